@@ -1,0 +1,53 @@
+// The neutral far-field CSV schema (version 1), documented in docs/far-field-csv.md.
+//
+// Reading is strict: any file that does not describe one regular grid per frequency is refused
+// with an Error that names file, line, column, what was expected and what was found. Nothing
+// partial is ever returned.
+#pragma once
+#include <cstddef>
+#include <functional>
+#include <string>
+#include <string_view>
+#include <utility>
+#include <vector>
+
+#include "pattern/far_field.hpp"
+#include "pattern/result.hpp"
+
+namespace ellipsa {
+
+// Field column families of the schema; a file holds exactly one.
+enum class CsvFamily {
+    complex,          // e_theta_re, e_theta_im, e_phi_re, e_phi_im
+    theta_phi_polar,  // e_theta_db, e_theta_phase, e_phi_db, e_phi_phase
+    circular_polar,   // e_rhcp_db, e_rhcp_phase, e_lhcp_db, e_lhcp_phase
+    ludwig3_polar,    // e_co_db, e_co_phase, e_cross_db, e_cross_phase (needs ludwig3-reference)
+    magnitude_db,     // e_theta_db, e_phi_db (no phase)
+    total_db          // e_total_db (total only)
+};
+const char* to_string(CsvFamily f);
+bool parse_csv_family(std::string_view name, CsvFamily& out);
+
+struct CsvReadOptions {
+    // Foreign layouts: source column name -> schema column name (case-insensitive source names).
+    std::vector<std::pair<std::string, std::string>> column_map;
+    // Optional: called now and then with the fraction read (0..1); return false to cancel.
+    std::function<bool(double)> progress;
+};
+
+// Read a file (memory-mapped). The file name is used in messages.
+Result<FarFieldSet> read_far_field_csv(const std::string& path, const CsvReadOptions& options = {});
+// Parse text already in memory; `display_name` is used in messages.
+Result<FarFieldSet> parse_far_field_csv(std::string_view text, const std::string& display_name,
+                                        const CsvReadOptions& options = {});
+
+struct CsvWriteOptions {
+    CsvFamily family = CsvFamily::complex;
+};
+// Format a set as schema text (shortest round-trip number formatting).
+Result<std::string> format_far_field_csv(const FarFieldSet& s, const CsvWriteOptions& options = {});
+// Write to `path` through a temporary file in the same folder and a rename, so an interrupted
+// write never leaves a broken file in place of a good one.
+Status write_far_field_csv(const FarFieldSet& s, const std::string& path, const CsvWriteOptions& options = {});
+
+}  // namespace ellipsa

@@ -1,0 +1,86 @@
+// The far-field set: the one data model everything else reads.
+//
+// A FarFieldSet holds one or more frequencies sampled on one regular theta/phi grid. Each
+// frequency stores complex E_theta and E_phi per sample (structure of arrays, row-major with
+// theta as the slow index: index = i_theta * phi.count + i_phi). Amplitudes are in square-root
+// units of the set's quantity, so |E_theta|^2 + |E_phi|^2 is gain, directivity or relative power
+// in linear terms. Phasors follow exp(+j w t); importers convert other conventions on the way in.
+#pragma once
+#include <cstddef>
+#include <string>
+#include <vector>
+
+#include "pattern/vec3.hpp"
+
+namespace ellipsa {
+
+enum class Quantity { gain, directivity, relative };
+const char* to_string(Quantity q);
+
+// What the file carried. Magnitude-only and total-only data lack the phase that circular
+// components, axial ratio and correlation need; analyses check this and say so.
+enum class FieldContent {
+    complex,         // E_theta and E_phi with phase
+    magnitude_only,  // |E_theta| and |E_phi|, no phase (stored with zero phase)
+    total_only       // only |E|^2 (stored as E_theta = |E|, E_phi = 0)
+};
+const char* to_string(FieldContent c);
+
+enum class Ludwig3Reference { x, y };
+
+// One regularly sampled angle axis: values start_deg + i * step_deg, i in [0, count).
+struct AngleAxis {
+    double start_deg = 0;
+    double step_deg = 1;
+    int count = 1;
+    double value_deg(int i) const { return start_deg + i * step_deg; }
+    double last_deg() const { return value_deg(count - 1); }
+};
+
+// Regular grid. theta in [0, 180]; phi start in [0, 360), samples taken modulo 360.
+struct Grid {
+    AngleAxis theta;
+    AngleAxis phi;
+    std::size_t size() const { return std::size_t(theta.count) * std::size_t(phi.count); }
+    std::size_t index(int i_theta, int i_phi) const {
+        return std::size_t(i_theta) * std::size_t(phi.count) + std::size_t(i_phi);
+    }
+    // True when the phi samples go all the way round (count * step == 360).
+    bool phi_wraps() const;
+    // True when the theta samples reach the given pole (within a tiny tolerance).
+    bool has_north_pole() const;
+    bool has_south_pole() const;
+};
+
+// Build a full-sphere grid with the given steps: theta 0..180 inclusive, phi 0..360 exclusive.
+// The steps must divide 180 and 360 (callers check; the result is rounded to whole counts).
+Grid full_sphere_grid(double theta_step_deg, double phi_step_deg);
+
+struct FarField {
+    double frequency_hz = 0;  // 0 when unknown
+    std::vector<cplx> e_theta;
+    std::vector<cplx> e_phi;
+};
+
+struct FarFieldSet {
+    std::string name;    // short label for legends and reports
+    std::string source;  // where the data came from (file path, "synth dipole ...")
+    std::string note;
+    Quantity quantity = Quantity::gain;
+    FieldContent content = FieldContent::complex;
+    Ludwig3Reference ludwig3_reference = Ludwig3Reference::x;
+    bool time_convention_converted = false;  // true when the file used exp(-i w t) and was conjugated
+    Grid grid;
+    std::vector<FarField> frequencies;
+
+    bool has_phase() const { return content == FieldContent::complex; }
+    // Index of the frequency nearest to f_hz (0 when there is only one).
+    std::size_t nearest_frequency(double f_hz) const;
+};
+
+// Sample values in convenient forms.
+inline double power(cplx et, cplx ep) { return std::norm(et) + std::norm(ep); }
+// 10 log10 of a linear power quantity; -inf for zero.
+double to_db(double linear);
+
+}  // namespace ellipsa

@@ -1,0 +1,93 @@
+#include "pattern/interpolate.hpp"
+
+#include <algorithm>
+#include <cmath>
+
+namespace ellipsa {
+
+CVec3 cartesian_at(const Grid& g, const FarField& f, int it, int ip) {
+    const double t = g.theta.value_deg(it) * deg, p = g.phi.value_deg(ip) * deg;
+    const std::size_t k = g.index(it, ip);
+    return f.e_theta[k] * theta_hat(t, p) + f.e_phi[k] * phi_hat(p);
+}
+
+bool grid_stencil(const Grid& g, double theta_deg, double phi_deg, GridStencil& st) {
+    constexpr double eps = 1e-9;
+    const double u = (theta_deg - g.theta.start_deg) / g.theta.step_deg;
+    const int nt = g.theta.count, np = g.phi.count;
+    if (!(u >= -eps && u <= (nt - 1) + eps)) return false;
+    int i0 = int(std::floor(u));
+    if (i0 < 0) i0 = 0;
+    if (i0 > nt - 1) i0 = nt - 1;
+    int i1 = i0 + 1 < nt ? i0 + 1 : i0;
+    double ft = i1 == i0 ? 0.0 : std::clamp(u - i0, 0.0, 1.0);
+
+    // At a pole every phi is the same point: any phi column will do, and the Cartesian vectors
+    // there agree. Still, use the asked phi so theta/phi projections stay continuous.
+    double v = wrap360(phi_deg - g.phi.start_deg) / g.phi.step_deg;
+    int j0, j1;
+    double fp;
+    if (g.phi_wraps()) {
+        j0 = int(std::floor(v));
+        fp = v - j0;
+        j0 %= np;
+        j1 = (j0 + 1) % np;
+    } else {
+        const double span = 360.0 / g.phi.step_deg;
+        if (v > span - eps) v -= span;  // just below the start, by rounding
+        if (!(v >= -eps && v <= (np - 1) + eps)) {
+            // Outside the phi range is still fine exactly at a sampled pole.
+            const bool at_pole = (std::abs(theta_deg) < eps && g.has_north_pole()) ||
+                                 (std::abs(theta_deg - 180) < eps && g.has_south_pole());
+            if (!at_pole) return false;
+            v = 0;
+        }
+        j0 = std::clamp(int(std::floor(v)), 0, np - 1);
+        j1 = j0 + 1 < np ? j0 + 1 : j0;
+        fp = j1 == j0 ? 0.0 : std::clamp(v - j0, 0.0, 1.0);
+    }
+    st.i_theta[0] = i0;
+    st.i_theta[1] = i1;
+    st.i_phi[0] = j0;
+    st.i_phi[1] = j1;
+    st.w[0][0] = (1 - ft) * (1 - fp);
+    st.w[0][1] = (1 - ft) * fp;
+    st.w[1][0] = ft * (1 - fp);
+    st.w[1][1] = ft * fp;
+    return true;
+}
+
+std::optional<FieldSample> interpolate(const FarFieldSet& s, std::size_t fi, double theta_deg, double phi_deg) {
+    const Grid& g = s.grid;
+    if (!(theta_deg >= -1e-9 && theta_deg <= 180 + 1e-9)) return std::nullopt;
+    GridStencil st;
+    if (!grid_stencil(g, theta_deg, phi_deg, st)) return std::nullopt;
+    const FarField& f = s.frequencies[fi];
+    if (s.content == FieldContent::complex) {
+        CVec3 e{};
+        for (int a = 0; a < 2; ++a)
+            for (int b = 0; b < 2; ++b) {
+                double w = st.w[a][b];
+                if (w == 0) continue;
+                e = e + w * cartesian_at(g, f, st.i_theta[a], st.i_phi[b]);
+            }
+        const double t = theta_deg * deg, p = phi_deg * deg;
+        return FieldSample{dot(e, theta_hat(t, p)), dot(e, phi_hat(p))};
+    }
+    double pt = 0, pp = 0;
+    for (int a = 0; a < 2; ++a)
+        for (int b = 0; b < 2; ++b) {
+            std::size_t k = g.index(st.i_theta[a], st.i_phi[b]);
+            pt += st.w[a][b] * std::norm(f.e_theta[k]);
+            pp += st.w[a][b] * std::norm(f.e_phi[k]);
+        }
+    return FieldSample{cplx(std::sqrt(pt), 0), cplx(std::sqrt(pp), 0)};
+}
+
+std::optional<FieldSample> interpolate(const FarFieldSet& s, std::size_t fi, Vec3 dir) {
+    double t, p;
+    to_spherical(dir, t, p);
+    return interpolate(s, fi, t / deg, p / deg);
+}
+
+}  // namespace ellipsa

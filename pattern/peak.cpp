@@ -1,0 +1,112 @@
+#include "pattern/peak.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+
+namespace ellipsa {
+
+namespace {
+
+double sample_power(const FarFieldSet& s, const FarField& f, int it, int ip, Component c) {
+    const std::size_t k = s.grid.index(it, ip);
+    if (c == Component::total) return std::norm(f.e_theta[k]) + std::norm(f.e_phi[k]);
+    PolarisationState st =
+        decompose(f.e_theta[k], f.e_phi[k], s.grid.phi.value_deg(ip) * deg, s.ludwig3_reference);
+    return component_power(st, c);
+}
+
+// Parabola through (-1, ym), (0, y0), (1, yp): offset of the vertex in [-0.5, 0.5] and the rise.
+bool parabola(double ym, double y0, double yp, double& offset, double& rise) {
+    if (!std::isfinite(ym) || !std::isfinite(y0) || !std::isfinite(yp)) return false;
+    const double den = ym - 2 * y0 + yp;
+    if (!(den < 0)) return false;
+    offset = std::clamp(0.5 * (ym - yp) / den, -0.5, 0.5);
+    // y(d) = y0 + (yp - ym) d / 2 + den d^2 / 2; at the vertex this rises by -den d^2 / 2.
+    rise = -0.5 * den * offset * offset;
+    return true;
+}
+
+}  // namespace
+
+Peak find_peak(const FarFieldSet& s, std::size_t fi, Component c) {
+    const Grid& g = s.grid;
+    const FarField& f = s.frequencies[fi];
+    Peak pk;
+    double best = -1;
+    for (int i = 0; i < g.theta.count; ++i)
+        for (int j = 0; j < g.phi.count; ++j) {
+            double v = sample_power(s, f, i, j, c);
+            if (v > best) {
+                best = v;
+                pk.i_theta = i;
+                pk.i_phi = j;
+            }
+        }
+    pk.sample_value = best;
+    pk.value = best;
+    pk.theta_deg = g.theta.value_deg(pk.i_theta);
+    pk.phi_deg = wrap360(g.phi.value_deg(pk.i_phi));
+    if (!(best > 0)) return pk;
+
+    const double y0 = to_db(best);
+    const int it = pk.i_theta, ip = pk.i_phi, nt = g.theta.count, np = g.phi.count;
+    const bool pole = (it == 0 && g.has_north_pole()) || (it == nt - 1 && g.has_south_pole());
+    double rise_total = 0;
+
+    // Along theta. Across a pole the neighbour lies at phi + 180, when the grid has it.
+    auto opposite_column = [&](int j) -> int {
+        if (!g.phi_wraps()) return -1;
+        double half = 180.0 / g.phi.step_deg;
+        if (std::abs(half - std::round(half)) > 1e-9) return -1;
+        return (j + int(std::lround(half))) % np;
+    };
+    double ym = std::numeric_limits<double>::quiet_NaN(), yp = ym;
+    if (it > 0)
+        ym = to_db(sample_power(s, f, it - 1, ip, c));
+    else if (g.has_north_pole() && nt > 1) {
+        int jo = opposite_column(ip);
+        if (jo >= 0) ym = to_db(sample_power(s, f, 1, jo, c));
+    }
+    if (it < nt - 1)
+        yp = to_db(sample_power(s, f, it + 1, ip, c));
+    else if (g.has_south_pole() && nt > 1) {
+        int jo = opposite_column(ip);
+        if (jo >= 0) yp = to_db(sample_power(s, f, nt - 2, jo, c));
+    }
+    double off, rise;
+    if (parabola(ym, y0, yp, off, rise)) {
+        double t = pk.theta_deg + off * g.theta.step_deg;
+        double p = pk.phi_deg;
+        if (t < 0) {
+            t = -t;
+            p = wrap360(p + 180);
+        } else if (t > 180) {
+            t = 360 - t;
+            p = wrap360(p + 180);
+        }
+        pk.theta_deg = t;
+        pk.phi_deg = p;
+        rise_total += rise;
+    }
+    // Along phi (meaningless at a pole, where all phi are one point).
+    if (!pole && np >= 3) {
+        int jm = ip - 1, jp = ip + 1;
+        if (g.phi_wraps()) {
+            jm = (ip - 1 + np) % np;
+            jp = (ip + 1) % np;
+        }
+        if (jm >= 0 && jp < np) {
+            double zm = to_db(sample_power(s, f, it, jm, c));
+            double zp = to_db(sample_power(s, f, it, jp, c));
+            if (parabola(zm, y0, zp, off, rise)) {
+                pk.phi_deg = wrap360(pk.phi_deg + off * g.phi.step_deg);
+                rise_total += rise;
+            }
+        }
+    }
+    pk.value = best * std::pow(10.0, rise_total / 10.0);
+    return pk;
+}
+
+}  // namespace ellipsa

@@ -1,0 +1,113 @@
+// Polarisation of one far-field sample in every basis the tool shows.
+//
+// Conventions (docs/conventions, IEEE Std 145-2013, Balanis sec. 2.12), exp(+j w t):
+//   E_R = (E_theta + j E_phi)/sqrt2,  E_L = (E_theta - j E_phi)/sqrt2
+//   Ludwig-3 x reference: co = Et cos p - Ep sin p, cross = Et sin p + Ep cos p
+//   Ludwig-3 y reference: co = Et sin p + Ep cos p, cross = Et cos p - Ep sin p
+//   Stokes: I = |Et|^2+|Ep|^2, Q = |Et|^2-|Ep|^2, U = 2 Re(Et Ep*), V = 2 Im(Et Ep*) = |E_R|^2-|E_L|^2
+//   AR = (|E_R|+|E_L|)/||E_R|-|E_L||  (infinite for linear), tilt = arg(E_R E_L*)/2 in (-90, 90]
+// Vertical/horizontal relative to the horizon of an antenna whose up axis is +z are the theta
+// and phi components.
+#pragma once
+#include <cstddef>
+#include <limits>
+
+#include "pattern/far_field.hpp"
+
+namespace ellipsa {
+
+enum class Sense { right, left, linear, none };  // none: zero field
+const char* to_string(Sense s);
+
+// Below this |V|/I a field is reported as linear (AR infinite). Double-precision rounding of a
+// truly linear field leaves |V|/I near 1e-16; this keeps a margin for data written to 15+ digits.
+inline constexpr double linear_threshold = 1e-12;
+
+struct Stokes {
+    double i = 0, q = 0, u = 0, v = 0;
+};
+
+inline Stokes stokes(cplx et, cplx ep) {
+    double a = std::norm(et), b = std::norm(ep);
+    cplx c = et * std::conj(ep);
+    return {a + b, a - b, 2 * c.real(), 2 * c.imag()};
+}
+
+inline constexpr double inv_sqrt2 = 0.70710678118654752440;
+inline cplx rhcp(cplx et, cplx ep) { return (et + cplx(0, 1) * ep) * inv_sqrt2; }
+inline cplx lhcp(cplx et, cplx ep) { return (et - cplx(0, 1) * ep) * inv_sqrt2; }
+
+struct CoCross {
+    cplx co, cross;
+};
+inline CoCross ludwig3(cplx et, cplx ep, double cos_phi, double sin_phi, Ludwig3Reference ref) {
+    if (ref == Ludwig3Reference::x) return {et * cos_phi - ep * sin_phi, et * sin_phi + ep * cos_phi};
+    return {et * sin_phi + ep * cos_phi, et * cos_phi - ep * sin_phi};
+}
+// Inverse of ludwig3(): E_theta, E_phi from co and cross.
+void from_ludwig3(cplx co, cplx cross, double cos_phi, double sin_phi, Ludwig3Reference ref, cplx& et,
+                  cplx& ep);
+
+// Axial ratio (linear, >= 1) from the circular partial powers |E_R|^2 and |E_L|^2 (computed
+// directly from E_R and E_L, which keeps full precision near circular); +infinity for a linear
+// field, NaN for zero field. (|R|+|L|)/||R|-|L|| = (|R|+|L|)^2 / ||R|^2-|L|^2|.
+inline double axial_ratio_from_circular(double rhcp_power, double lhcp_power) {
+    const double i = rhcp_power + lhcp_power, v = rhcp_power - lhcp_power;
+    if (!(i > 0)) return std::numeric_limits<double>::quiet_NaN();
+    const double av = std::abs(v);
+    if (av <= linear_threshold * i) return std::numeric_limits<double>::infinity();
+    const double s = std::sqrt(rhcp_power) + std::sqrt(lhcp_power);
+    return s * s / av;
+}
+double axial_ratio(cplx et, cplx ep);
+// Tilt of the major axis from theta-hat toward phi-hat, degrees in (-90, 90]; 0 for zero field.
+double tilt_deg(const Stokes& s);
+Sense sense_of(const Stokes& s);
+
+// Everything about one sample. Powers are linear in the set's quantity.
+struct PolarisationState {
+    cplx e_theta, e_phi, e_rhcp, e_lhcp, e_co, e_cross;
+    double total = 0, theta = 0, phi = 0, rhcp = 0, lhcp = 0, co = 0, cross = 0;
+    double axial_ratio = 0;  // linear; +inf when linear, NaN when zero field
+    double tilt_deg = 0;
+    Sense sense = Sense::none;
+    Stokes stokes;
+};
+
+PolarisationState decompose(cplx et, cplx ep, double phi_rad, Ludwig3Reference ref);
+
+// The components the tool can show, one name each (used by CLI, viewer and exports).
+enum class Component { total, theta, phi, vertical, horizontal, co, cross, rhcp, lhcp };
+inline constexpr Component all_components[] = {Component::total, Component::theta,  Component::phi,
+                                               Component::vertical, Component::horizontal,
+                                               Component::co, Component::cross, Component::rhcp,
+                                               Component::lhcp};
+const char* to_string(Component c);
+// Parse a component name ("total", "theta", "rhcp", ...); returns false when unknown.
+bool parse_component(const char* name, Component& out);
+// True when the component needs phase: circular parts and Ludwig-3 co/cross mix E_theta and E_phi coherently.
+bool needs_phase(Component c);
+// Linear power of a component from a decomposed state.
+double component_power(const PolarisationState& s, Component c);
+
+// Batch kernel over many directions (structure of arrays in and out). Costs one sincos per
+// direction (for Ludwig-3) and one atan2 (for tilt); no allocation.
+struct DecompositionArrays {
+    double* total;
+    double* theta;
+    double* phi;
+    double* rhcp;
+    double* lhcp;
+    double* co;
+    double* cross;
+    double* axial_ratio;  // linear, +inf for linear fields
+    double* tilt_deg;
+    double* stokes_i;
+    double* stokes_q;
+    double* stokes_u;
+    double* stokes_v;
+};
+void decompose_many(std::size_t n, const cplx* e_theta, const cplx* e_phi, const double* phi_rad,
+                    Ludwig3Reference ref, const DecompositionArrays& out);
+
+}  // namespace ellipsa
