@@ -1,0 +1,159 @@
+// ellipsa info: the headline figures of a pattern file, per frequency.
+#include <cstdio>
+#include <iostream>
+#include <memory>
+#include <optional>
+
+#include "cli/commands.hpp"
+#include "cli/format.hpp"
+#include "cli/json.hpp"
+#include "cli/load.hpp"
+#include "pattern/integrate.hpp"
+#include "pattern/summary.hpp"
+
+namespace ellipsa::cli {
+
+namespace {
+
+struct InfoArgs {
+    std::string file;
+    std::optional<double> frequency_hz;
+    bool json = false;
+    LoadOptions load;
+};
+
+std::string grid_line(const Grid& g) {
+    char buf[256];
+    std::snprintf(buf, sizeof buf, "theta %g..%g deg step %g (%d), phi %g..%g deg step %g (%d)", g.theta.start_deg,
+                  g.theta.last_deg(), g.theta.step_deg, g.theta.count, g.phi.start_deg, g.phi.last_deg(),
+                  g.phi.step_deg, g.phi.count);
+    return buf;
+}
+
+void write_json(const FarFieldSet& s, const std::vector<std::size_t>& which, const std::vector<PatternSummary>& rs) {
+    JsonWriter j;
+    j.begin_object();
+    j.field("name", s.name).field("source", s.source);
+    j.field("quantity", to_string(s.quantity)).field("content", to_string(s.content));
+    j.key("frequencies_hz").begin_array();
+    for (std::size_t k : which) j.value(s.frequencies[k].frequency_hz);
+    j.end_array();
+    j.field("coverage", coverage(s.grid));
+    j.key("grid").begin_object();
+    j.field("theta_start_deg", s.grid.theta.start_deg).field("theta_step_deg", s.grid.theta.step_deg);
+    j.field("theta_count", s.grid.theta.count).field("phi_start_deg", s.grid.phi.start_deg);
+    j.field("phi_step_deg", s.grid.phi.step_deg).field("phi_count", s.grid.phi.count);
+    j.end_object();
+    j.key("results").begin_array();
+    for (const PatternSummary& r : rs) {
+        j.begin_object();
+        j.field("frequency_hz", r.frequency_hz);
+        j.field("peak_db", r.peak_db).field("peak_theta_deg", r.peak.theta_deg).field("peak_phi_deg", r.peak.phi_deg);
+        j.field("directivity_dbi", r.directivity_dbi);
+        j.field("radiation_efficiency", r.power.radiation_efficiency);
+        j.field("hpbw_elevation_deg", r.hpbw_elevation_deg);
+        j.field("hpbw_azimuth_deg", r.hpbw_azimuth_deg);
+        j.field("front_to_back_db", r.front_to_back_db);
+        j.field("sidelobe_elevation_db", r.sidelobe_elevation_db);
+        j.field("axial_ratio_db", r.axial_ratio_db);
+        j.key("sense");
+        if (r.sense && *r.sense != Sense::none)
+            j.value(to_string(*r.sense));
+        else
+            j.null();
+        std::optional<double> d_sampled;
+        if (r.power.directivity_sampled_only) d_sampled = to_db(*r.power.directivity_sampled_only);
+        j.field("directivity_sampled_region_only_dbi", d_sampled);
+        if (!r.unavailable_reason.empty()) j.field("unavailable_reason", r.unavailable_reason);
+        j.end_object();
+    }
+    j.end_array();
+    j.end_object();
+    std::cout << j.str() << "\n";
+}
+
+void write_human(const std::string& path, const FarFieldSet& s, const std::vector<PatternSummary>& rs) {
+    const char* q = to_string(s.quantity);
+    const char* u = db_unit(q);
+    std::cout << path << ": " << (s.name.empty() ? "(no name)" : s.name) << "\n";
+    if (!s.source.empty()) std::cout << "  source       " << s.source << "\n";
+    std::cout << "  quantity     " << q
+              << (s.quantity == Quantity::gain          ? " (absolute, includes radiation efficiency)"
+                  : s.quantity == Quantity::directivity ? " (lossless)"
+                                                        : " (relative power, unknown reference)")
+              << "\n";
+    std::cout << "  data         " << to_string(s.content)
+              << (s.content == FieldContent::complex ? " E_theta, E_phi with phase" : "") << "\n";
+    std::cout << "  grid         " << grid_line(s.grid) << "\n";
+    const double cov = coverage(s.grid);
+    char buf[128];
+    std::snprintf(buf, sizeof buf, "%.1f %% of the sphere%s", 100 * cov, is_full_sphere(s.grid) ? " (full)" : "");
+    std::cout << "  coverage     " << buf << "\n";
+    for (const PatternSummary& r : rs) {
+        std::cout << "\n  " << format_frequency(r.frequency_hz) << "\n";
+        std::snprintf(buf, sizeof buf, " at theta %.1f, phi %.1f deg", r.peak.theta_deg, r.peak.phi_deg);
+        std::cout << "    peak                  " << fmt(r.peak_db, u) << buf << "\n";
+        if (r.directivity_dbi)
+            std::cout << "    directivity           " << fmt(r.directivity_dbi, "dBi") << "\n";
+        else if (r.power.directivity_sampled_only)
+            std::cout << "    directivity           unavailable (partial sphere); "
+                      << fmt(to_db(*r.power.directivity_sampled_only), "dBi")
+                      << " assuming nothing radiates outside the sampled region\n";
+        std::cout << "    radiation efficiency  "
+                  << (r.power.radiation_efficiency ? fmt(100 * *r.power.radiation_efficiency, "%", 1)
+                      : s.quantity == Quantity::gain ? std::string("unavailable (partial sphere)")
+                                                     : std::string("unavailable (needs absolute gain data)"))
+                  << "\n";
+        std::cout << "    HPBW elevation        "
+                  << fmt(r.hpbw_elevation_deg, "deg", 1, "none (no half-power points on this cut)") << "\n";
+        std::cout << "    HPBW azimuth          "
+                  << fmt(r.hpbw_azimuth_deg, "deg", 1, "none (no half-power points: omnidirectional)") << "\n";
+        std::cout << "    front-to-back         " << fmt(r.front_to_back_db, "dB", 2, "unavailable") << "\n";
+        std::cout << "    polarisation at peak  ";
+        if (!r.sense)
+            std::cout << "unavailable (" << r.unavailable_reason << ")\n";
+        else if (*r.sense == Sense::linear)
+            std::cout << "linear (axial ratio infinite)\n";
+        else
+            std::cout << to_string(*r.sense) << "-hand, axial ratio " << fmt(r.axial_ratio_db, "dB") << "\n";
+    }
+}
+
+Registered add_info(CLI::App& root) {
+    auto a = std::make_shared<InfoArgs>();
+    CLI::App* sub = root.add_subcommand("info", "Summarise a pattern file: peak, directivity, beamwidths, polarisation");
+    sub->add_option("FILE", a->file, "Far-field CSV file")->required();
+    sub->add_option("--frequency", a->frequency_hz, "Only this frequency, Hz (nearest within 0.5 %)");
+    sub->add_flag("--json", a->json, "Print one JSON object instead of the human summary");
+    add_load_options(sub, a->load);
+    return {sub, [a]() -> int {
+                auto s = load_pattern(a->file, a->load);
+                if (!s) {
+                    std::cerr << "ellipsa info: " << s.error().format() << "\n";
+                    return exit_bad_input;
+                }
+                std::vector<std::size_t> which;
+                if (a->frequency_hz) {
+                    auto k = pick_frequency(*s, a->frequency_hz, a->file);
+                    if (!k) {
+                        std::cerr << "ellipsa info: " << k.error().format() << "\n";
+                        return exit_bad_input;
+                    }
+                    which.push_back(*k);
+                } else {
+                    for (std::size_t k = 0; k < s->frequencies.size(); ++k) which.push_back(k);
+                }
+                std::vector<PatternSummary> rs;
+                for (std::size_t k : which) rs.push_back(summarize(*s, k));
+                if (a->json)
+                    write_json(*s, which, rs);
+                else
+                    write_human(a->file, *s, rs);
+                return exit_ok;
+            }};
+}
+const CommandRegistration registration(20, add_info);
+
+}  // namespace
+
+}  // namespace ellipsa::cli

@@ -1,0 +1,132 @@
+// ellipsa probe: every polarisation figure at one direction, interpolated.
+#include <cmath>
+#include <cstdio>
+#include <iostream>
+#include <memory>
+#include <optional>
+
+#include "cli/commands.hpp"
+#include "cli/format.hpp"
+#include "cli/json.hpp"
+#include "cli/load.hpp"
+#include "pattern/interpolate.hpp"
+#include "pattern/polarisation.hpp"
+
+namespace ellipsa::cli {
+
+namespace {
+
+struct ProbeArgs {
+    std::string file;
+    double theta_deg = 0, phi_deg = 0;
+    std::optional<double> frequency_hz;
+    std::string ludwig3;
+    bool json = false;
+    LoadOptions load;
+};
+
+std::optional<double> db_or_null(double linear, bool available) {
+    if (!available) return std::nullopt;
+    double d = to_db(linear);
+    if (!std::isfinite(d)) return std::nullopt;  // zero field: no finite dB value
+    return d;
+}
+
+Registered add_probe(CLI::App& root) {
+    auto a = std::make_shared<ProbeArgs>();
+    CLI::App* sub = root.add_subcommand("probe", "Every component, axial ratio, tilt, sense and Stokes at one direction");
+    sub->add_option("FILE", a->file, "Far-field CSV file")->required();
+    sub->add_option("--theta", a->theta_deg, "Theta, deg from +z (0..180)")->required()->check(CLI::Range(0.0, 180.0));
+    sub->add_option("--phi", a->phi_deg, "Phi, deg from +x toward +y")->required();
+    sub->add_option("--frequency", a->frequency_hz, "Frequency, Hz (needed when the file holds several)");
+    sub->add_option("--ludwig3", a->ludwig3, "Ludwig-3 reference for co/cross: x or y (default: the file's, else x)")
+        ->check(CLI::IsMember({"x", "y"}));
+    sub->add_flag("--json", a->json, "Print one JSON object");
+    add_load_options(sub, a->load);
+    return {sub, [a]() -> int {
+                auto s = load_pattern(a->file, a->load);
+                if (!s) {
+                    std::cerr << "ellipsa probe: " << s.error().format() << "\n";
+                    return exit_bad_input;
+                }
+                if (!a->frequency_hz && s->frequencies.size() > 1) {
+                    std::cerr << "ellipsa probe: " << a->file << " holds " << s->frequencies.size()
+                              << " frequencies; choose one with --frequency\n";
+                    return exit_usage;
+                }
+                auto fi = pick_frequency(*s, a->frequency_hz, a->file);
+                if (!fi) {
+                    std::cerr << "ellipsa probe: " << fi.error().format() << "\n";
+                    return exit_bad_input;
+                }
+                auto f = interpolate(*s, *fi, a->theta_deg, a->phi_deg);
+                if (!f) {
+                    std::cerr << "ellipsa probe: " << a->file << ": theta " << a->theta_deg << ", phi " << a->phi_deg
+                              << " deg lies outside the sampled region\n";
+                    return exit_bad_input;
+                }
+                Ludwig3Reference ref = s->ludwig3_reference;
+                if (a->ludwig3 == "x") ref = Ludwig3Reference::x;
+                if (a->ludwig3 == "y") ref = Ludwig3Reference::y;
+                const PolarisationState p = decompose(f->e_theta, f->e_phi, a->phi_deg * deg, ref);
+                const bool ph = s->has_phase();
+                const bool parts = s->content != FieldContent::total_only;
+                std::optional<double> ar_db;
+                if (ph && std::isfinite(p.axial_ratio)) ar_db = 20 * std::log10(p.axial_ratio);
+                const char* sense = ph && p.sense != Sense::none ? to_string(p.sense) : nullptr;
+                if (a->json) {
+                    JsonWriter j;
+                    j.begin_object();
+                    j.field("frequency_hz", s->frequencies[*fi].frequency_hz);
+                    j.field("theta_deg", a->theta_deg).field("phi_deg", a->phi_deg);
+                    j.field("quantity", to_string(s->quantity));
+                    j.field("total_db", db_or_null(p.total, true));
+                    j.field("theta_db", db_or_null(p.theta, parts)).field("phi_db", db_or_null(p.phi, parts));
+                    j.field("vertical_db", db_or_null(p.theta, parts)).field("horizontal_db", db_or_null(p.phi, parts));
+                    j.field("rhcp_db", db_or_null(p.rhcp, ph)).field("lhcp_db", db_or_null(p.lhcp, ph));
+                    j.field("co_db", db_or_null(p.co, ph)).field("cross_db", db_or_null(p.cross, ph));
+                    j.field("ludwig3_reference", ref == Ludwig3Reference::x ? "x" : "y");
+                    j.field("axial_ratio_db", ar_db);
+                    j.key("tilt_deg");
+                    if (ph && p.sense != Sense::none) j.value(p.tilt_deg); else j.null();
+                    j.key("sense");
+                    if (sense) j.value(sense); else j.null();
+                    j.key("stokes").begin_array();
+                    j.value(p.stokes.i);
+                    if (parts) j.value(p.stokes.q); else j.null();
+                    if (ph) j.value(p.stokes.u).value(p.stokes.v); else j.null().null();
+                    j.end_array();
+                    j.end_object();
+                    std::cout << j.str() << "\n";
+                    return exit_ok;
+                }
+                const char* u = db_unit(to_string(s->quantity));
+                const char* uc = db_unit(to_string(s->quantity), true);
+                auto line = [](const char* label, const std::string& v) { std::printf("  %-22s %s\n", label, v.c_str()); };
+                const char* np = "unavailable (needs phase)";
+                std::printf("%s at theta %g, phi %g deg, %s\n", a->file.c_str(), a->theta_deg, a->phi_deg,
+                            format_frequency(s->frequencies[*fi].frequency_hz).c_str());
+                line("total", fmt(to_db(p.total), u));
+                if (parts) {
+                    line("theta (vertical)", fmt(to_db(p.theta), u));
+                    line("phi (horizontal)", fmt(to_db(p.phi), u));
+                }
+                line("RHCP", ph ? fmt(to_db(p.rhcp), uc) : np);
+                line("LHCP", ph ? fmt(to_db(p.lhcp), uc) : np);
+                line(ref == Ludwig3Reference::x ? "co (Ludwig-3, x ref)" : "co (Ludwig-3, y ref)", ph ? fmt(to_db(p.co), u) : np);
+                line("cross (Ludwig-3)", ph ? fmt(to_db(p.cross), u) : np);
+                line("axial ratio", !ph ? np : ar_db ? fmt(ar_db, "dB") : std::string("infinite (linear)"));
+                line("tilt", ph ? fmt(p.tilt_deg, "deg", 1) : np);
+                line("sense", sense ? sense : np);
+                char buf[160];
+                std::snprintf(buf, sizeof buf, "I %.6g, Q %.6g, U %.6g, V %.6g", p.stokes.i, p.stokes.q, p.stokes.u,
+                              p.stokes.v);
+                line("Stokes (linear)", ph ? std::string(buf) : np);
+                return exit_ok;
+            }};
+}
+const CommandRegistration registration(30, add_probe);
+
+}  // namespace
+
+}  // namespace ellipsa::cli

@@ -1,0 +1,29 @@
+#include "cli/format.hpp"
+
+#include <cmath>
+#include <cstdio>
+#include <cstring>
+
+namespace ellipsa::cli {
+
+std::string fmt(double v, const char* unit, int decimals) {
+    char buf[64];
+    if (std::isinf(v))
+        std::snprintf(buf, sizeof buf, "%s%s%s", v < 0 ? "-inf" : "inf", *unit ? " " : "", unit);
+    else if (std::isnan(v))
+        std::snprintf(buf, sizeof buf, "n/a");
+    else
+        std::snprintf(buf, sizeof buf, "%.*f%s%s", decimals, v == 0 ? 0.0 : v, *unit ? " " : "", unit);
+    return buf;
+}
+
+std::string fmt(const std::optional<double>& v, const char* unit, int decimals, const char* missing) {
+    return v ? fmt(*v, unit, decimals) : std::string(missing);
+}
+
+const char* db_unit(const char* quantity, bool circular) {
+    if (std::strcmp(quantity, "relative") == 0) return "dB";
+    return circular ? "dBic" : "dBi";
+}
+
+}  // namespace ellipsa::cli

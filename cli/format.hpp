@@ -1,0 +1,15 @@
+// Human-readable number formatting shared by the commands.
+#pragma once
+#include <optional>
+#include <string>
+
+namespace ellipsa::cli {
+
+// "5.16 dBi", or `missing` when the value is unavailable; "-inf dB" style for zero powers.
+std::string fmt(const std::optional<double>& v, const char* unit, int decimals = 2,
+                const char* missing = "unavailable");
+std::string fmt(double v, const char* unit, int decimals = 2);
+// The dB unit of a quantity: dBi for gain and directivity, dB for relative data.
+const char* db_unit(const char* quantity, bool circular = false);
+
+}  // namespace ellipsa::cli

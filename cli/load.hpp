@@ -1,0 +1,30 @@
+// Loading pattern files for commands, with the options every file-reading command shares.
+#pragma once
+#include <optional>
+#include <string>
+
+#include <CLI/CLI.hpp>
+
+#include "importers/far_field_csv.hpp"
+#include "pattern/result.hpp"
+
+namespace ellipsa::cli {
+
+struct LoadOptions {
+    std::string map;  // --map "Source=schema,..." or @file
+};
+// Adds --map to a subcommand.
+void add_load_options(CLI::App* sub, LoadOptions& o);
+
+// Read a pattern file; progress goes to stderr on a terminal for long loads.
+Result<FarFieldSet> load_pattern(const std::string& path, const LoadOptions& o);
+
+// The frequency index asked for (nearest within 0.5 %), or the only one; an Error lists what
+// the file holds when no frequency matches.
+Result<std::size_t> pick_frequency(const FarFieldSet& s, const std::optional<double>& frequency_hz,
+                                   const std::string& path);
+
+// "2.45 GHz", "915 MHz", "unknown"
+std::string format_frequency(double hz);
+
+}  // namespace ellipsa::cli

@@ -1,0 +1,56 @@
+// ellipsa: far-field polarisation analysis for antennas in cluttered, non-line-of-sight links.
+#include <algorithm>
+#include <cstdio>
+#include <iostream>
+#include <vector>
+
+#include "cli/commands.hpp"
+#include "cli/version.hpp"
+
+using namespace ellipsa::cli;
+
+namespace ellipsa::cli {
+std::vector<CommandEntry>& command_registry() {
+    static std::vector<CommandEntry> r;
+    return r;
+}
+}  // namespace ellipsa::cli
+
+int main(int argc, char** argv) {
+    CLI::App app{"ellipsa: read far-field patterns, decompose their polarisation, score them for multipath links"};
+    app.name("ellipsa");
+    app.require_subcommand(0, 1);
+    bool show_version = false;
+    app.add_flag("--version", show_version, "Print the version and which OpenGL renderer would be used");
+
+    std::vector<CommandEntry> entries = command_registry();
+    std::sort(entries.begin(), entries.end(), [](const CommandEntry& a, const CommandEntry& b) { return a.order < b.order; });
+    std::vector<Registered> commands;
+    for (const CommandEntry& e : entries) commands.push_back(e.add(app));
+    try {
+        app.parse(argc, argv);
+    } catch (const CLI::CallForHelp& e) {
+        return app.exit(e);
+    } catch (const CLI::CallForAllHelp& e) {
+        return app.exit(e);
+    } catch (const CLI::ParseError& e) {
+        std::cerr << "ellipsa: " << e.what() << "\n";
+        std::cerr << "Run 'ellipsa --help' (or 'ellipsa COMMAND --help') for usage.\n";
+        return exit_usage;
+    }
+    if (show_version) {
+        std::cout << version_text();
+        return exit_ok;
+    }
+    for (auto& [sub, run] : commands)
+        if (sub->parsed()) {
+            try {
+                return run();
+            } catch (const std::bad_alloc&) {
+                std::cerr << "ellipsa: out of memory\n";
+                return exit_bad_input;
+            }
+        }
+    std::cout << app.help();
+    return exit_usage;
+}

@@ -1,0 +1,7 @@
+#pragma once
+#include <string>
+
+namespace ellipsa::cli {
+// "ellipsa 0.1.0\n" plus a line saying which OpenGL renderer the viewer would use.
+std::string version_text();
+}  // namespace ellipsa::cli
