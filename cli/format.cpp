@@ -12,8 +12,10 @@ std::string fmt(double v, const char* unit, int decimals) {
         std::snprintf(buf, sizeof buf, "%s%s%s", v < 0 ? "-inf" : "inf", *unit ? " " : "", unit);
     else if (std::isnan(v))
         std::snprintf(buf, sizeof buf, "n/a");
-    else
-        std::snprintf(buf, sizeof buf, "%.*f%s%s", decimals, v == 0 ? 0.0 : v, *unit ? " " : "", unit);
+    else {
+        if (std::abs(v) < 0.5 * std::pow(10.0, -decimals)) v = 0;  // no "-0.0"
+        std::snprintf(buf, sizeof buf, "%.*f%s%s", decimals, v, *unit ? " " : "", unit);
+    }
     return buf;
 }
 

@@ -34,6 +34,7 @@ CellWeights cell_weights(const Grid& g) {
 }
 
 double coverage(const Grid& g) {
+    if (is_full_sphere(g)) return 1.0;
     CellWeights w = cell_weights(g);
     double st = 0, sp = 0;
     for (double x : w.theta) st += x;

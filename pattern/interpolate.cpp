@@ -72,7 +72,14 @@ std::optional<FieldSample> interpolate(const FarFieldSet& s, std::size_t fi, dou
                 e = e + w * cartesian_at(g, f, st.i_theta[a], st.i_phi[b]);
             }
         const double t = theta_deg * deg, p = phi_deg * deg;
-        return FieldSample{dot(e, theta_hat(t, p)), dot(e, phi_hat(p))};
+        FieldSample out{dot(e, theta_hat(t, p)), dot(e, phi_hat(p))};
+        // Going through Cartesian and back leaves rounding residue of about 1e-16 |E| in a
+        // component that is zero in the data (E_phi of a dipole); clear it rather than report
+        // -330 dB as if it were measured.
+        const double mag = std::sqrt(std::norm(out.e_theta) + std::norm(out.e_phi));
+        if (std::abs(out.e_theta) < 1e-13 * mag) out.e_theta = 0;
+        if (std::abs(out.e_phi) < 1e-13 * mag) out.e_phi = 0;
+        return out;
     }
     double pt = 0, pp = 0;
     for (int a = 0; a < 2; ++a)

@@ -1,5 +1,6 @@
 #include "pattern/reference.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <cstdio>
 #include <vector>
@@ -127,6 +128,18 @@ FarFieldSet synthesize(const ReferenceAntenna& a, double step_deg, double freque
             f.e_theta[k] = dot(e, theta_hat(t, p));
             f.e_phi[k] = dot(e, phi_hat(p));
         }
+    }
+    // Projection onto theta-hat/phi-hat leaves rounding residue (~1e-17) where a component is
+    // exactly zero in closed form (E_phi of a dipole); clear it so files show true zeros.
+    double peak = 0;
+    for (std::size_t k = 0; k < s.grid.size(); ++k) peak = std::max(peak, std::abs(f.e_theta[k]) + std::abs(f.e_phi[k]));
+    auto clean = [&](cplx& v) {
+        if (std::abs(v.real()) < 1e-14 * peak) v.real(0);
+        if (std::abs(v.imag()) < 1e-14 * peak) v.imag(0);
+    };
+    for (std::size_t k = 0; k < s.grid.size(); ++k) {
+        clean(f.e_theta[k]);
+        clean(f.e_phi[k]);
     }
     s.frequencies.push_back(std::move(f));
     return s;
