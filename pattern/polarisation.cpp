@@ -109,8 +109,8 @@ double component_power(const PolarisationState& s, Component c) {
     return s.total;
 }
 
-void decompose_many(std::size_t n, const cplx* e_theta, const cplx* e_phi, const double* phi_rad,
-                    Ludwig3Reference ref, const DecompositionArrays& o) {
+void decompose_many(std::size_t n, const cplx* e_theta, const cplx* e_phi, const double* cos_phi,
+                    const double* sin_phi, Ludwig3Reference ref, const DecompositionArrays& o) {
     const bool xref = ref == Ludwig3Reference::x;
     for (std::size_t k = 0; k < n; ++k) {
         const double tr = e_theta[k].real(), ti = e_theta[k].imag();
@@ -128,7 +128,7 @@ void decompose_many(std::size_t n, const cplx* e_theta, const cplx* e_phi, const
         o.phi[k] = b;
         o.rhcp[k] = R;
         o.lhcp[k] = L;
-        const double s = std::sin(phi_rad[k]), c = std::cos(phi_rad[k]);
+        const double s = sin_phi[k], c = cos_phi[k];
         // Ludwig-3 x: co = Et c - Ep s; cross = Et s + Ep c. |co|^2 = a c^2 + b s^2 - 2 cs Re(Et Ep*)
         const double co_x = a * c * c + b * s * s - 2 * c * s * cr;
         const double cross_x = a * s * s + b * c * c + 2 * c * s * cr;

@@ -90,8 +90,10 @@ bool needs_phase(Component c);
 // Linear power of a component from a decomposed state.
 double component_power(const PolarisationState& s, Component c);
 
-// Batch kernel over many directions (structure of arrays in and out). Costs one sincos per
-// direction (for Ludwig-3) and one atan2 (for tilt); no allocation.
+// Batch kernel over many directions (structure of arrays in and out). The direction enters only
+// through cos(phi) and sin(phi) for Ludwig-3 (on a grid they are per column; from a direction
+// vector they are x/rho and y/rho), so the kernel needs no trigonometry but one atan2 per
+// direction for the tilt; no allocation.
 struct DecompositionArrays {
     double* total;
     double* theta;
@@ -107,7 +109,7 @@ struct DecompositionArrays {
     double* stokes_u;
     double* stokes_v;
 };
-void decompose_many(std::size_t n, const cplx* e_theta, const cplx* e_phi, const double* phi_rad,
-                    Ludwig3Reference ref, const DecompositionArrays& out);
+void decompose_many(std::size_t n, const cplx* e_theta, const cplx* e_phi, const double* cos_phi,
+                    const double* sin_phi, Ludwig3Reference ref, const DecompositionArrays& out);
 
 }  // namespace ellipsa
