@@ -115,7 +115,8 @@ void write_human(const std::string& path, const FarFieldSet& s, const std::vecto
         else if (*r.sense == Sense::linear)
             std::cout << "linear (axial ratio infinite)\n";
         else
-            std::cout << to_string(*r.sense) << "-hand, axial ratio " << fmt(r.axial_ratio_db, "dB") << "\n";
+            std::cout << to_string(*r.sense) << "-hand, axial ratio " << fmt(r.axial_ratio_db, "dB")
+                      << (r.axial_ratio_db && *r.axial_ratio_db > 30 ? " (nearly linear)" : "") << "\n";
     }
 }
 
