@@ -183,9 +183,11 @@ BeamFigures beam_figures(const std::vector<double>& angle_deg, const std::vector
             const int j = k + dir * m;
             if (!ok(j)) return std::nullopt;
             const double yj = to_db(at(j));
-            if (yj <= level_db) {
+            // A pattern that just touches half power (1 + cos^2 t) counts as crossing it there.
+            if (yj <= level_db + 1e-9) {
                 const double yprev = to_db(at(j - dir));
-                const double frac = std::isfinite(yj) ? (yprev - level_db) / (yprev - yj) : 1.0;
+                const double frac =
+                    std::isfinite(yj) && yprev > yj ? std::clamp((yprev - level_db) / (yprev - yj), 0.0, 1.0) : 1.0;
                 return dir * (m - 1 + frac) * step;  // offset from the peak sample
             }
         }

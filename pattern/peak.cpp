@@ -37,7 +37,9 @@ Peak find_peak(const FarFieldSet& s, std::size_t fi, Component c) {
     for (int i = 0; i < g.theta.count; ++i)
         for (int j = 0; j < g.phi.count; ++j) {
             double v = sample_power(s, f, i, j, c);
-            if (v > best) {
+            // Ties within rounding keep the first sample (lowest theta, then phi), so symmetric
+            // patterns report the same peak on every machine.
+            if (v > best * (1 + 1e-9) || (best <= 0 && v > best)) {
                 best = v;
                 pk.i_theta = i;
                 pk.i_phi = j;

@@ -1,4 +1,4 @@
-// Peak search: the largest sample, refined below the grid step by a parabola through the
+// Peak search: the largest sample (ties within 1e-9 go to the lowest theta, then phi), refined below the grid step by a parabola through the
 // neighbouring samples in dB along theta and along phi (exact for a Gaussian beam).
 #pragma once
 #include <functional>
