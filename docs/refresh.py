@@ -1,0 +1,66 @@
+#!/usr/bin/python3
+"""Keep the command output shown in the docs true.
+
+In README.md and docs/*.md, a block
+
+    <!-- run: ellipsa info examples/turnstile.csv -->
+    ```console
+    ...
+    ```
+
+is rewritten with the real output of the command (run from the repository root, with `ellipsa`
+meaning build/ellipsa). Several commands may be chained with ' && ' in one marker; each is shown
+with its own '$' line. Run `docs/refresh.py` after changing a command's output; `--check`
+reports stale blocks without writing (exit 1 if any).
+"""
+import os
+import re
+import subprocess
+import sys
+
+ROOT = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
+BLOCK = re.compile(r"(<!-- run: (?P<cmd>.*?) -->\n)```console\n.*?```\n", re.S)
+
+
+def run(cmd):
+    shown = []
+    for part in cmd.split(" && "):
+        exe = part.replace("ellipsa ", os.path.join(ROOT, "build", "ellipsa") + " ", 1) if part.startswith("ellipsa ") else part
+        p = subprocess.run(exe, shell=True, cwd=os.path.join(ROOT, "out", "docs"), capture_output=True, text=True,
+                           env=dict(os.environ, ELLIPSA_ROOT=ROOT))
+        out = p.stdout + p.stderr
+        shown.append("$ " + part + "\n" + out)
+    return "".join(shown)
+
+
+def main():
+    check = "--check" in sys.argv
+    os.makedirs(os.path.join(ROOT, "out", "docs"), exist_ok=True)
+    # commands refer to examples/ relative to the repo: give the work folder a link to it
+    link = os.path.join(ROOT, "out", "docs", "examples")
+    if not os.path.exists(link):
+        os.symlink(os.path.join(ROOT, "examples"), link)
+    files = [os.path.join(ROOT, "README.md")] + [
+        os.path.join(ROOT, "docs", f) for f in sorted(os.listdir(os.path.join(ROOT, "docs"))) if f.endswith(".md")]
+    stale = 0
+    for path in files:
+        text = open(path, encoding="utf-8").read()
+
+        def sub(m):
+            return m.group(1) + "```console\n" + run(m.group("cmd")) + "```\n"
+
+        new = BLOCK.sub(sub, text)
+        if new != text:
+            stale += 1
+            if not check:
+                tmp = path + ".tmp"
+                open(tmp, "w", encoding="utf-8").write(new)
+                os.replace(tmp, path)
+                print("refreshed", os.path.relpath(path, ROOT))
+    if check and stale:
+        print(f"{stale} file(s) have stale command output; run docs/refresh.py")
+        sys.exit(1)
+
+
+if __name__ == "__main__":
+    main()
