@@ -1,5 +1,7 @@
 #include "pattern/polarisation.hpp"
 
+#include "pattern/fast_atan2.hpp"
+
 #include <cmath>
 #include <cstring>
 
@@ -109,6 +111,15 @@ double component_power(const PolarisationState& s, Component c) {
     return s.total;
 }
 
+DecompositionBuffer::DecompositionBuffer(std::size_t n) : n_(n) {
+    constexpr std::size_t stagger = 72;  // doubles: 9 cache lines, not a power of two
+    const std::size_t stride = n + stagger;
+    storage_.assign(13 * stride, 0.0);
+    double* p[13];
+    for (std::size_t i = 0; i < 13; ++i) p[i] = storage_.data() + i * stride;
+    arrays_ = {p[0], p[1], p[2], p[3], p[4], p[5], p[6], p[7], p[8], p[9], p[10], p[11], p[12]};
+}
+
 void decompose_many(std::size_t n, const cplx* e_theta, const cplx* e_phi, const double* cos_phi,
                     const double* sin_phi, Ludwig3Reference ref, const DecompositionArrays& o) {
     const bool xref = ref == Ludwig3Reference::x;
@@ -135,7 +146,7 @@ void decompose_many(std::size_t n, const cplx* e_theta, const cplx* e_phi, const
         o.co[k] = xref ? co_x : cross_x;
         o.cross[k] = xref ? cross_x : co_x;
         o.axial_ratio[k] = axial_ratio_from_circular(R, L);
-        double t = (Q == 0 && U == 0) ? 0.0 : 0.5 * std::atan2(U, Q) / deg;
+        double t = (Q == 0 && U == 0) ? 0.0 : 0.5 * fast_atan2(U, Q) / deg;
         o.tilt_deg[k] = t <= -90.0 ? t + 180.0 : t;
         o.stokes_i[k] = I;
         o.stokes_q[k] = Q;

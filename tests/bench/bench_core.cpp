@@ -34,11 +34,8 @@ int main() {
         cph[k] = std::cos(ph[k]);
         sph[k] = std::sin(ph[k]);
     }
-    std::vector<double> b[13];
-    for (auto& v : b) v.resize(n);
-    DecompositionArrays o{b[0].data(), b[1].data(), b[2].data(), b[3].data(),  b[4].data(),
-                          b[5].data(), b[6].data(), b[7].data(), b[8].data(),  b[9].data(),
-                          b[10].data(), b[11].data(), b[12].data()};
+    DecompositionBuffer buffer(n);
+    const DecompositionArrays& o = buffer.arrays();
     double ms = best_ms(5, [&] { decompose_many(n, et.data(), ep.data(), cph.data(), sph.data(), Ludwig3Reference::x, o); });
     std::printf("decompose 1e6 directions (all bases, AR, tilt, Stokes): %8.2f ms  (%.1f M dir/s; target < 50 ms)\n",
                 ms, 1e-3 * double(n) / ms);
