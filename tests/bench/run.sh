@@ -9,3 +9,7 @@ echo "== ellipsa benchmarks ($(nproc) cores, $(date -u +%Y-%m-%dT%H:%MZ)) =="
 echo
 echo "-- core kernels --"
 "$B/tests/bench_core" || echo "bench_core failed"
+
+echo
+echo "-- exports (time per cut figure, SVG/PNG/PDF from one drawing path) --"
+"$B/tests/bench_export" || echo "bench_export failed"

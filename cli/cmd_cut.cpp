@@ -1,0 +1,150 @@
+// ellipsa cut: one cut through a pattern as a figure (SVG, PDF, PNG) or as the plotted values (CSV).
+#include <cmath>
+#include <cstdio>
+#include <iostream>
+#include <memory>
+#include <optional>
+#include <sys/stat.h>
+
+#include "cli/commands.hpp"
+#include "cli/format.hpp"
+#include "cli/load.hpp"
+#include "exports/cut_figure.hpp"
+#include "exports/render.hpp"
+#include "importers/atomic_write.hpp"
+#include "pattern/peak.hpp"
+
+namespace ellipsa::cli {
+
+namespace {
+
+using namespace ellipsa::exports;
+
+struct CutArgs {
+    std::string file;
+    std::optional<double> phi_deg, theta_deg;
+    bool through_peak = false;
+    std::string components = "total";
+    std::string style = "polar";
+    std::optional<double> frequency_hz;
+    double range_db = 40;
+    std::string title;
+    std::string size = "1200x900";
+    double dpi = 150;
+    std::optional<double> step_deg;
+    bool force = false;
+    std::string out;
+    LoadOptions load;
+};
+
+int fail(int code, const std::string& msg) {
+    std::cerr << "ellipsa cut: " << msg << "\n";
+    return code;
+}
+
+int run_cut(const CutArgs& a) {
+    const int chosen = int(a.phi_deg.has_value()) + int(a.theta_deg.has_value()) + int(a.through_peak);
+    if (chosen != 1) return fail(exit_usage, "choose exactly one cut: --phi DEG, --theta DEG or --through-peak");
+    const auto format = format_from_path(a.out);
+    if (!format) return fail(exit_usage, "--out " + a.out + ": expected a file name ending in .svg, .png, .pdf or .csv");
+    PlotStyle style;
+    if (!parse_plot_style(a.style, style)) return fail(exit_usage, "--style: expected polar or rect, found \"" + a.style + "\"");
+    auto size = parse_size(a.size, a.dpi);
+    if (!size) return fail(exit_usage, size.error().format());
+    auto comps = parse_component_list(a.components);
+    if (!comps) return fail(exit_usage, comps.error().format());
+    struct stat st {};
+    if (!a.force && ::stat(a.out.c_str(), &st) == 0) return fail(exit_bad_input, a.out + ": already exists; use --force to replace it");
+
+    auto s = load_pattern(a.file, a.load);
+    if (!s) return fail(exit_bad_input, s.error().format());
+    if (s->source.empty()) s->source = a.file;
+    auto fi = pick_frequency(*s, a.frequency_hz, a.file);
+    if (!fi) return fail(exit_bad_input, fi.error().format());
+    if (!a.frequency_hz && s->frequencies.size() > 1)
+        std::cerr << "ellipsa cut: " << a.file << " holds " << s->frequencies.size() << " frequencies; using "
+                  << format_frequency(s->frequencies[*fi].frequency_hz) << " (choose with --frequency)\n";
+    for (Component c : *comps)
+        if (auto why = component_unavailable(*s, c)) return fail(exit_bad_input, a.file + ": " + *why);
+
+    CutSpec spec;
+    if (a.phi_deg) {
+        spec = CutSpec::phi_cut(*a.phi_deg);
+    } else if (a.theta_deg) {
+        if (!(*a.theta_deg >= 0 && *a.theta_deg <= 180)) return fail(exit_usage, "--theta: expected 0..180 deg");
+        spec = CutSpec::theta_cut(*a.theta_deg);
+    } else {
+        // The elevation cut through the peak of the total power (the plane summarize() measures
+        // its elevation beamwidth in).
+        const Peak pk = find_peak(*s, *fi, Component::total);
+        spec = CutSpec::phi_cut(std::round(pk.phi_deg * 1e6) / 1e6);
+    }
+    auto cut = compute_cut(*s, *fi, spec, *comps, a.step_deg.value_or(0));
+    if (!cut) return fail(exit_bad_input, a.file + ": " + cut.error().message);
+
+    std::string bytes;
+    if (*format == FileFormat::csv) {
+        bytes = cut_csv(*s, *cut);
+    } else {
+        FigureOptions fo;
+        fo.style = style;
+        fo.range_db = a.range_db;
+        fo.title = a.title;
+        const CutPlot plot = make_cut_plot(*s, *cut, fo);
+        auto img = render_image([&](cairo_t* cr, double w, double h) { draw_cut_plot(cr, plot, w, h); }, *format,
+                                *size, plot.title);
+        if (!img) return fail(exit_bad_input, a.out + ": " + img.error().message);
+        bytes = std::move(*img);
+    }
+    Status w = write_file_atomically(a.out, bytes, a.force);
+    if (!w) return fail(exit_bad_input, w.error().format());
+
+    std::cout << "wrote " << a.out << ": " << spec.label() << ", " << format_frequency(s->frequencies[*fi].frequency_hz) << "\n";
+    for (std::size_t i = 0; i < cut->components.size(); ++i) {
+        const BeamFigures& b = cut->beams[i];
+        bool positive = false;
+        for (double p : cut->power[i]) positive = positive || p > 0;
+        if (!positive) {
+            std::cout << "  " << to_string(cut->components[i]) << ": no power on this cut\n";
+            continue;
+        }
+        const std::string u = component_unit(*s, cut->components[i]);
+        char buf[96];
+        std::snprintf(buf, sizeof buf, " at %s = %.1f deg", spec.angle_name(), b.peak_angle_deg);
+        std::cout << "  " << to_string(cut->components[i]) << ": peak " << fmt(b.peak_db, u.c_str()) << buf << ", HPBW "
+                  << fmt(b.hpbw_deg, "deg", 1, "none") << ", F/B " << fmt(b.front_to_back_db, "dB", 2, "n/a") << "\n";
+    }
+    return exit_ok;
+}
+
+Registered add_cut(CLI::App& root) {
+    auto a = std::make_shared<CutArgs>();
+    CLI::App* sub = root.add_subcommand(
+        "cut", "Plot one cut (polar or rectangular) as SVG, PDF or PNG, or write its values as CSV");
+    sub->add_option("FILE", a->file, "Far-field CSV file")->required();
+    auto* o_phi = sub->add_option("--phi", a->phi_deg, "Elevation cut at this phi, deg (theta runs -180..180; negative = phi + 180)");
+    auto* o_theta = sub->add_option("--theta", a->theta_deg, "Conical cut at this theta, deg (90: the azimuth plane)");
+    auto* o_peak = sub->add_flag("--through-peak", a->through_peak, "Elevation cut through the peak of the total power");
+    o_phi->excludes(o_theta)->excludes(o_peak);
+    o_theta->excludes(o_peak);
+    sub->add_option("--components", a->components,
+                    "Comma-separated: total, theta, phi, vertical, horizontal, co, cross, rhcp, lhcp (default total)");
+    sub->add_option("--style", a->style, "polar (default) or rect");
+    sub->add_option("--frequency", a->frequency_hz, "Frequency, Hz (nearest within 0.5 %; default the first)");
+    sub->add_option("--range", a->range_db, "Dynamic range shown below the top of the scale, dB (default 40)")
+        ->check(CLI::Range(3.0, 200.0));
+    sub->add_option("--title", a->title, "Figure title (default: the pattern's name)");
+    sub->add_option("--size", a->size, "Image size WIDTHxHEIGHT in pixels (default 1200x900); SVG/PDF get the same physical size");
+    sub->add_option("--dpi", a->dpi, "Dots per inch: sets the physical size and text scale (default 150)");
+    sub->add_option("--step", a->step_deg, "Cut sample step, deg (default: a quarter of the grid step)")
+        ->check(CLI::Range(0.01, 10.0));
+    sub->add_flag("--force", a->force, "Replace the output file if it exists");
+    sub->add_option("--out", a->out, "Output file: .svg, .png, .pdf or .csv")->required();
+    add_load_options(sub, a->load);
+    return {sub, [a]() -> int { return run_cut(*a); }};
+}
+const CommandRegistration registration(70, add_cut);
+
+}  // namespace
+
+}  // namespace ellipsa::cli

@@ -1,0 +1,235 @@
+#include "exports/cut_figure.hpp"
+
+#include <cmath>
+#include <cstdio>
+
+namespace ellipsa::exports {
+
+std::optional<std::string> component_unavailable(const FarFieldSet& s, Component c) {
+    if (s.content == FieldContent::total_only && c != Component::total)
+        return std::string("component \"") + to_string(c) +
+               "\" needs E_theta and E_phi separately, but the data hold only the total power";
+    if (needs_phase(c) && !s.has_phase())
+        return std::string("component \"") + to_string(c) + "\" needs the phase between E_theta and E_phi, but the data are " +
+               to_string(s.content) + " (no phase); use total, theta, phi, vertical or horizontal";
+    return std::nullopt;
+}
+
+std::string component_label(Component c, Ludwig3Reference ref) {
+    const std::string l3 = ref == Ludwig3Reference::x ? " (Ludwig-3, x ref.)" : " (Ludwig-3, y ref.)";
+    switch (c) {
+        case Component::total: return "Total";
+        case Component::theta: return "θ component";
+        case Component::phi: return "φ component";
+        case Component::vertical: return "Vertical";
+        case Component::horizontal: return "Horizontal";
+        case Component::co: return "Co-polar" + l3;
+        case Component::cross: return "Cross-polar" + l3;
+        case Component::rhcp: return "RHCP";
+        case Component::lhcp: return "LHCP";
+    }
+    return "?";
+}
+
+std::string component_unit(const FarFieldSet& s, Component c) {
+    if (s.quantity == Quantity::relative) return "dB";
+    return c == Component::rhcp || c == Component::lhcp ? "dBic" : "dBi";
+}
+
+Result<std::vector<Component>> parse_component_list(const std::string& text) {
+    std::vector<Component> out;
+    std::size_t pos = 0;
+    while (pos <= text.size()) {
+        std::size_t comma = text.find(',', pos);
+        std::string item = text.substr(pos, comma == std::string::npos ? std::string::npos : comma - pos);
+        while (!item.empty() && item.front() == ' ') item.erase(item.begin());
+        while (!item.empty() && item.back() == ' ') item.pop_back();
+        Component c;
+        if (!parse_component(item.c_str(), c)) {
+            std::string known;
+            for (Component k : all_components) known += (known.empty() ? "" : ", ") + std::string(to_string(k));
+            return Error{"--components", 0, 0, "unknown component \"" + item + "\"; expected a comma-separated list of " + known};
+        }
+        for (Component have : out)
+            if (have == c) return Error{"--components", 0, 0, "component \"" + item + "\" is listed twice"};
+        out.push_back(c);
+        if (comma == std::string::npos) break;
+        pos = comma + 1;
+    }
+    if (out.empty()) return Error{"--components", 0, 0, "expected at least one component"};
+    return out;
+}
+
+std::string frequency_text(double hz) {
+    if (!(hz > 0)) return "unknown frequency";
+    char buf[64];
+    if (hz >= 1e9)
+        std::snprintf(buf, sizeof buf, "%g GHz", hz / 1e9);
+    else if (hz >= 1e6)
+        std::snprintf(buf, sizeof buf, "%g MHz", hz / 1e6);
+    else if (hz >= 1e3)
+        std::snprintf(buf, sizeof buf, "%g kHz", hz / 1e3);
+    else
+        std::snprintf(buf, sizeof buf, "%g Hz", hz);
+    return buf;
+}
+
+std::string describe_cut(const CutSpec& spec) {
+    char buf[160];
+    switch (spec.kind) {
+        case CutKind::phi_const: std::snprintf(buf, sizeof buf, "Elevation cut, φ = %g°", spec.phi_deg); break;
+        case CutKind::theta_const:
+            std::snprintf(buf, sizeof buf, "%s, θ = %g°", spec.theta_deg == 90 ? "Azimuth cut" : "Conical cut",
+                          spec.theta_deg);
+            break;
+        case CutKind::great_circle: {
+            double t, p;
+            to_spherical(spec.centre, t, p);
+            std::snprintf(buf, sizeof buf, "Great circle through θ = %.1f°, φ = %.1f°", t / deg, p / deg);
+            break;
+        }
+    }
+    return buf;
+}
+
+Result<CutData> compute_cut(const FarFieldSet& s, std::size_t fi, const CutSpec& spec,
+                            const std::vector<Component>& components, double step_deg) {
+    if (fi >= s.frequencies.size()) return Error{"", 0, 0, "frequency index out of range"};
+    if (spec.kind == CutKind::theta_const && !(spec.theta_deg >= 0 && spec.theta_deg <= 180))
+        return Error{"--theta", 0, 0, "expected a polar angle from 0 to 180 deg"};
+    for (Component c : components)
+        if (auto why = component_unavailable(s, c)) return Error{s.source, 0, 0, *why};
+    CutData d;
+    d.spec = spec;
+    d.freq_index = fi;
+    d.components = components;
+    d.samples = sample_cut(s, fi, spec, step_deg > 0 ? step_deg : default_cut_step(s.grid));
+    bool any = false;
+    for (unsigned char v : d.samples.valid) any = any || v;
+    if (!any) return Error{s.source, 0, 0, "the " + spec.label() + " cut lies entirely outside the sampled region"};
+    for (Component c : components) {
+        d.power.push_back(cut_power(s, d.samples, c));
+        d.beams.push_back(beam_figures(d.samples.angle_deg, d.power.back()));
+    }
+    return d;
+}
+
+namespace {
+void append_number(std::string& out, double v) {
+    char buf[40];
+    if (std::isnan(v)) return;  // outside the sampled region: empty field
+    if (std::isinf(v)) {
+        out += v < 0 ? "-inf" : "inf";
+        return;
+    }
+    std::snprintf(buf, sizeof buf, "%.17g", v);
+    out += buf;
+}
+std::string lower(std::string s) {
+    for (char& c : s) c = char(c >= 'A' && c <= 'Z' ? c - 'A' + 'a' : c);
+    return s;
+}
+}  // namespace
+
+std::string cut_csv(const FarFieldSet& s, const CutData& c) {
+    std::string out = "angle_deg,theta_deg,phi_deg";
+    for (Component comp : c.components) out += std::string(",") + to_string(comp) + "_" + lower(component_unit(s, comp));
+    out += "\n";
+    const CutSamples& x = c.samples;
+    out.reserve(out.size() + x.angle_deg.size() * (3 + c.components.size()) * 20);
+    for (std::size_t k = 0; k < x.angle_deg.size(); ++k) {
+        append_number(out, x.angle_deg[k]);
+        out += ',';
+        append_number(out, x.theta_deg[k]);
+        out += ',';
+        append_number(out, x.phi_deg[k]);
+        for (std::size_t i = 0; i < c.components.size(); ++i) {
+            out += ',';
+            const double p = c.power[i][k];
+            if (!std::isnan(p)) append_number(out, to_db(p));
+        }
+        out += '\n';
+    }
+    return out;
+}
+
+namespace {
+
+std::string quantity_label(Quantity q) {
+    switch (q) {
+        case Quantity::gain: return "Gain";
+        case Quantity::directivity: return "Directivity";
+        case Quantity::relative: return "Relative power";
+    }
+    return "Power";
+}
+
+PlotCurve curve_of(const FarFieldSet& s, const CutData& c, std::size_t i, const std::string& prefix) {
+    PlotCurve pc;
+    pc.label = prefix + component_label(c.components[i], s.ludwig3_reference);
+    pc.unit = component_unit(s, c.components[i]);
+    pc.angle_deg = c.samples.angle_deg;
+    pc.value_db.resize(c.power[i].size());
+    for (std::size_t k = 0; k < pc.value_db.size(); ++k) pc.value_db[k] = std::isnan(c.power[i][k]) ? NAN : to_db(c.power[i][k]);
+    // A curve with no positive sample has no peak to read.
+    bool positive = false;
+    for (double p : c.power[i]) positive = positive || p > 0;
+    if (positive) pc.beam = c.beams[i];
+    return pc;
+}
+
+}  // namespace
+
+CutPlot make_cut_plot(const FarFieldSet& s, const CutData& c, const FigureOptions& o) {
+    CutPlot p;
+    p.style = o.style;
+    p.range_db = o.range_db;
+    p.top_db = o.top_db;
+    p.title = o.title.empty() ? (s.name.empty() ? std::string("Far-field cut") : s.name) : o.title;
+    const double f = s.frequencies[c.freq_index].frequency_hz;
+    p.value_label = quantity_label(s.quantity);
+    bool lin = false, circ = false;
+    for (Component k : c.components) (k == Component::rhcp || k == Component::lhcp ? circ : lin) = true;
+    p.value_unit = s.quantity == Quantity::relative ? "dB" : lin && circ ? "dBi, dBic" : circ ? "dBic" : "dBi";
+    p.subtitle = describe_cut(c.spec) + "  ·  " + frequency_text(f) + "  ·  " + p.value_label + " (" + p.value_unit + ")";
+    switch (c.spec.kind) {
+        case CutKind::phi_const: {
+            p.layout = AngleLayout::signed_half;
+            p.angle_symbol = "θ";
+            char a[64], b[64];
+            std::snprintf(a, sizeof a, "θ < 0: φ = %g°", wrap360(c.spec.phi_deg + 180));
+            std::snprintf(b, sizeof b, "φ = %g°", c.spec.phi_deg);
+            p.negative_side = a;
+            p.positive_side = b;
+            break;
+        }
+        case CutKind::theta_const:
+            p.layout = AngleLayout::full_turn;
+            p.angle_symbol = "φ";
+            break;
+        case CutKind::great_circle:
+            p.layout = AngleLayout::signed_half;
+            p.angle_symbol = "angle";
+            p.notes.push_back("Angle measured along the great circle from its centre direction.");
+            break;
+    }
+    for (std::size_t i = 0; i < c.components.size(); ++i) p.curves.push_back(curve_of(s, c, i, ""));
+    // -3 dB markers on the first curve that has a half-power beamwidth.
+    p.marked_curve = -1;
+    for (std::size_t i = 0; i < p.curves.size() && p.marked_curve < 0; ++i)
+        if (p.curves[i].beam && p.curves[i].beam->hpbw_deg) p.marked_curve = int(i);
+    p.notes.push_back("F/B: peak against the point 180° further round this cut.");
+    char grid[200];
+    std::snprintf(grid, sizeof grid, "Data: %s, %s; grid θ step %g°, φ step %g°; cut sampled every %.3g°.",
+                  to_string(s.quantity), to_string(s.content), s.grid.theta.step_deg, s.grid.phi.step_deg,
+                  c.samples.step_deg);
+    p.notes.push_back(grid);
+    if (!s.source.empty()) p.notes.push_back("Source: " + s.source);
+    return p;
+}
+
+void add_curves(CutPlot& plot, const FarFieldSet& s, const CutData& c, const std::string& prefix) {
+    for (std::size_t i = 0; i < c.components.size(); ++i) plot.curves.push_back(curve_of(s, c, i, prefix));
+}
+
+}  // namespace ellipsa::exports

@@ -1,0 +1,573 @@
+#include "exports/cut_plot.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <cstdio>
+
+#include "exports/fonts.hpp"
+#include "exports/palette.hpp"
+
+namespace ellipsa::exports {
+
+bool parse_plot_style(std::string_view name, PlotStyle& out) {
+    if (name == "polar") {
+        out = PlotStyle::polar;
+        return true;
+    }
+    if (name == "rect" || name == "rectangular") {
+        out = PlotStyle::rect;
+        return true;
+    }
+    return false;
+}
+
+double grid_step_db(double range_db) {
+    if (range_db <= 20) return 5;
+    if (range_db <= 60) return 10;
+    return 20;
+}
+
+double plot_top_db(const CutPlot& p) {
+    if (p.top_db) return *p.top_db;
+    double hi = -INFINITY;
+    for (const PlotCurve& c : p.curves)
+        for (double v : c.value_db)
+            if (std::isfinite(v)) hi = std::max(hi, v);
+    if (!std::isfinite(hi)) return 0;
+    return 5 * std::ceil(hi / 5 - 1e-9);
+}
+
+namespace {
+
+constexpr double kPi = 3.14159265358979323846;
+constexpr double kDeg = kPi / 180;
+
+// A number with a typographic minus sign and no "-0".
+std::string num(double v, int decimals) {
+    if (std::abs(v) < 0.5 * std::pow(10.0, -decimals)) v = 0;
+    char b[48];
+    std::snprintf(b, sizeof b, "%.*f", decimals, v);
+    std::string s = b;
+    if (!s.empty() && s[0] == '-') s = "\u2212" + s.substr(1);
+    return s;
+}
+std::string angle_text(double a_deg, int decimals) { return num(a_deg, decimals) + "°"; }
+
+struct Pen {
+    cairo_t* cr;
+    double u;  // layout unit: 1 at the reference size of 576 x 432 pt
+    double size = 10;
+
+    void font(FontWeight w, double s) {
+        size = s * u;
+        set_font(cr, w, size);
+    }
+    void colour(Rgb c, double alpha = 1) { cairo_set_source_rgba(cr, c.r, c.g, c.b, alpha); }
+    double width(const std::string& s) const {
+        cairo_text_extents_t e;
+        cairo_text_extents(cr, s.c_str(), &e);
+        return e.x_advance;
+    }
+    // halign: 0 left, 0.5 centre, 1 right; vcentre: y is the middle of the digits, not the baseline.
+    void text(const std::string& s, double x, double y, double halign = 0, bool vcentre = false) {
+        const double dx = -halign * width(s);
+        const double dy = vcentre ? 0.36 * size : 0;
+        cairo_move_to(cr, x + dx, y + dy);
+        cairo_show_text(cr, s.c_str());
+    }
+    void line(double x0, double y0, double x1, double y1) {
+        cairo_move_to(cr, x0, y0);
+        cairo_line_to(cr, x1, y1);
+        cairo_stroke(cr);
+    }
+    void dash(double on, double off) {
+        const double d[2] = {on * u, off * u};
+        cairo_set_dash(cr, d, 2, 0);
+    }
+    void solid() { cairo_set_dash(cr, nullptr, 0, 0); }
+    void curve_style(std::size_t i, double line_width) {
+        colour(curve_colour(i));
+        cairo_set_line_width(cr, line_width);
+        const Dash d = curve_dash(i);
+        if (d.count == 0) {
+            solid();
+        } else {
+            double v[4];
+            for (int k = 0; k < d.count; ++k) v[k] = d.d[k] * line_width;
+            cairo_set_dash(cr, v, d.count, 0);
+        }
+    }
+    // A white box behind a label so it stays readable over grid and curves.
+    void halo(const std::string& s, double x, double y, double halign, bool vcentre) {
+        const double w = width(s), pad = 1.2 * u;
+        const double left = x - halign * w - pad;
+        const double top = (vcentre ? y - 0.36 * size : y - 0.72 * size) - pad;
+        cairo_save(cr);
+        cairo_set_source_rgba(cr, 1, 1, 1, 0.85);
+        cairo_rectangle(cr, left, top, w + 2 * pad, 0.72 * size + 2 * pad);
+        cairo_fill(cr);
+        cairo_restore(cr);
+    }
+};
+
+// Word-wrap `s` into lines no wider than `w` with the current font.
+std::vector<std::string> wrap(Pen& pen, const std::string& s, double w) {
+    std::vector<std::string> out;
+    std::string cur;
+    std::size_t pos = 0;
+    while (pos < s.size()) {
+        std::size_t sp = s.find(' ', pos);
+        std::string word = s.substr(pos, sp == std::string::npos ? std::string::npos : sp - pos);
+        pos = sp == std::string::npos ? s.size() : sp + 1;
+        std::string trial = cur.empty() ? word : cur + " " + word;
+        if (!cur.empty() && pen.width(trial) > w) {
+            out.push_back(cur);
+            cur = word;
+        } else {
+            cur = trial;
+        }
+    }
+    if (!cur.empty()) out.push_back(cur);
+    return out;
+}
+
+// The top of the scale, then every whole multiple of `step` strictly between top and floor.
+std::vector<double> grid_levels(double top, double floor, double step) {
+    std::vector<double> v{top};
+    for (double x = std::floor((top - 1e-9) / step) * step; x > floor + 1e-9; x -= step)
+        if (top - x > 0.25 * step) v.push_back(x);
+    return v;
+}
+
+struct Scale {
+    double top, floor;
+    // 0 at the floor, 1 at the top; values below the floor (and -inf) sit on the floor.
+    double fraction(double db) const {
+        const double v = std::clamp(db, floor, top);
+        return (v - floor) / (top - floor);
+    }
+};
+
+// The peak readout of a curve, "2.15 dBi at θ = 90.0°".
+std::string peak_text(const CutPlot& p, const PlotCurve& c) {
+    if (!c.beam) return "no power on this cut";
+    return "peak " + num(c.beam->peak_db, 2) + " " + c.unit + " at " + p.angle_symbol + " = " +
+           angle_text(c.beam->peak_angle_deg, 1);
+}
+std::string beam_text(const PlotCurve& c) {
+    if (!c.beam) return "";
+    std::string s = "HPBW " + (c.beam->hpbw_deg ? angle_text(*c.beam->hpbw_deg, 1) : std::string("none"));
+    s += "   F/B " + (c.beam->front_to_back_db ? num(*c.beam->front_to_back_db, 1) + " dB" : std::string("n/a"));
+    return s;
+}
+
+// ---------------------------------------------------------------------------------- header ---
+double draw_header(Pen& pen, const CutPlot& p, double w, double m) {
+    const double u = pen.u;
+    pen.colour(ink);
+    pen.font(FontWeight::bold, 13);
+    pen.text(p.title, m, m + 11 * u);
+    pen.colour(ink_soft);
+    pen.font(FontWeight::regular, 9);
+    pen.text(p.subtitle, m, m + 25 * u);
+    const double y = m + 32 * u;
+    cairo_set_line_width(pen.cr, 0.5 * u);
+    pen.colour(grid_major);
+    pen.line(m, y, w - m, y);
+    return y;
+}
+
+// ---------------------------------------------------------------------------------- legend ---
+void draw_legend(Pen& pen, const CutPlot& p, double x0, double y0, double x1, double y1) {
+    const double u = pen.u;
+    double y = y0 + 12 * u;
+    for (std::size_t i = 0; i < p.curves.size(); ++i) {
+        const PlotCurve& c = p.curves[i];
+        pen.curve_style(i, 1.6 * u);
+        cairo_set_line_cap(pen.cr, CAIRO_LINE_CAP_BUTT);
+        pen.line(x0, y - 3 * u, x0 + 24 * u, y - 3 * u);
+        pen.solid();
+        pen.colour(ink);
+        pen.font(FontWeight::bold, 8.8);
+        pen.text(c.label, x0 + 30 * u, y);
+        pen.colour(ink_soft);
+        pen.font(FontWeight::regular, 7.6);
+        pen.text(peak_text(p, c), x0 + 30 * u, y + 10.5 * u);
+        const std::string b = beam_text(c);
+        if (!b.empty()) pen.text(b, x0 + 30 * u, y + 20 * u);
+        y += (b.empty() ? 26 : 35) * u;
+        if (y > y1) return;
+    }
+    // Marker key and small print.
+    y += 2 * u;
+    pen.font(FontWeight::regular, 7.0);
+    const double wrap_w = x1 - x0;
+    std::vector<std::string> lines;
+    if (p.marked_curve >= 0 && std::size_t(p.marked_curve) < p.curves.size() && p.curves[std::size_t(p.marked_curve)].beam &&
+        p.curves[std::size_t(p.marked_curve)].beam->hpbw_deg)
+        for (auto& l : wrap(pen, "Dots and dashed line: the −3 dB (half-power) points of " +
+                                     p.curves[std::size_t(p.marked_curve)].label + ".", wrap_w))
+            lines.push_back(l);
+    for (const std::string& n : p.notes)
+        for (auto& l : wrap(pen, n, wrap_w)) lines.push_back(l);
+    // Put the small print at the bottom of the panel when there is room, else right below.
+    const double line_h = 9 * u;
+    double ys = std::max(y + 4 * u, y1 - line_h * double(lines.size()));
+    pen.colour(ink_soft);
+    for (const std::string& l : lines) {
+        if (ys > y1 + 2 * u) break;
+        pen.text(l, x0, ys);
+        ys += line_h;
+    }
+}
+
+// A curve's samples as (angle, fraction) with the loop closed.
+template <class Emit>
+void walk_curve(const PlotCurve& c, const Scale& sc, Emit emit) {
+    const std::size_t n = c.angle_deg.size();
+    for (std::size_t k = 0; k <= n && n > 0; ++k) {
+        const std::size_t j = k % n;
+        const double a = c.angle_deg[j] + (k == n ? 360.0 : 0.0);
+        const double v = c.value_db[j];
+        if (std::isnan(v))
+            emit(a, -1.0, false);
+        else
+            emit(a, sc.fraction(v), true);
+    }
+}
+
+// ----------------------------------------------------------------------------------- polar ---
+struct PolarGeom {
+    double cx, cy, r;
+    AngleLayout layout;
+    void at(double a_deg, double frac, double& x, double& y) const {
+        const double a = a_deg * kDeg, rr = r * frac;
+        if (layout == AngleLayout::signed_half) {
+            x = cx + rr * std::sin(a);
+            y = cy - rr * std::cos(a);
+        } else {
+            x = cx + rr * std::cos(a);
+            y = cy - rr * std::sin(a);
+        }
+    }
+    // Unit direction on screen of an angle.
+    void dir(double a_deg, double& dx, double& dy) const {
+        at(a_deg, 1, dx, dy);
+        dx = (dx - cx) / r;
+        dy = (dy - cy) / r;
+    }
+};
+
+// Interpolated fraction of a curve at an angle (for label placement); -1 when unknown.
+double fraction_at(const PlotCurve& c, const Scale& sc, double a_deg) {
+    const std::size_t n = c.angle_deg.size();
+    if (n < 2) return -1;
+    const double step = c.angle_deg[1] - c.angle_deg[0];
+    double t = (a_deg - c.angle_deg[0]) / step;
+    t = std::fmod(t, double(n));
+    if (t < 0) t += double(n);
+    const std::size_t k = std::size_t(t) % n;
+    const double v0 = c.value_db[k], v1 = c.value_db[(k + 1) % n];
+    if (std::isnan(v0) || std::isnan(v1)) return -1;
+    const double f = t - std::floor(t);
+    return (1 - f) * sc.fraction(v0) + f * sc.fraction(v1);
+}
+
+void draw_polar(Pen& pen, const CutPlot& p, double x0, double y0, double x1, double y1) {
+    cairo_t* cr = pen.cr;
+    const double u = pen.u;
+    const double top = plot_top_db(p), range = std::max(p.range_db, 1.0), step = grid_step_db(range);
+    const Scale sc{top, top - range};
+    const double bottom_caption = p.negative_side.empty() ? 10 * u : 14 * u;
+    const double margin = 24 * u;
+    const double r = std::max(10.0, std::min(x1 - x0, y1 - y0 - bottom_caption) / 2 - margin);
+    const PolarGeom g{(x0 + x1) / 2, y0 + (y1 - y0 - bottom_caption) / 2, r, p.layout};
+
+    // Minor spokes every 10 deg (outer part only), major every 30 deg, rings every `step` dB.
+    cairo_set_line_cap(cr, CAIRO_LINE_CAP_BUTT);
+    cairo_set_line_width(cr, 0.4 * u);
+    pen.colour(grid_minor);
+    for (int a = 0; a < 360; a += 10) {
+        if (a % 30 == 0) continue;
+        double xa, ya, xb, yb;
+        g.at(a, 0.0, xa, ya);
+        g.at(a, 1.0, xb, yb);
+        pen.line(xa, ya, xb, yb);
+    }
+    pen.colour(grid_major);
+    cairo_set_line_width(cr, 0.5 * u);
+    for (int a = 0; a < 360; a += 30) {
+        double xb, yb;
+        g.at(a, 1.0, xb, yb);
+        pen.line(g.cx, g.cy, xb, yb);
+    }
+    // Rings at whole multiples of the grid step; the rim is the top of the scale.
+    const std::vector<double> rings = grid_levels(top, top - range, step);
+    for (std::size_t i = 1; i < rings.size(); ++i) {
+        cairo_new_sub_path(cr);
+        cairo_arc(cr, g.cx, g.cy, r * sc.fraction(rings[i]), 0, 2 * kPi);
+    }
+    cairo_stroke(cr);
+    // Rim: a darker circle with 10-degree ticks outside it.
+    pen.colour(ink_soft);
+    cairo_set_line_width(cr, 0.8 * u);
+    cairo_new_sub_path(cr);
+    cairo_arc(cr, g.cx, g.cy, r, 0, 2 * kPi);
+    cairo_stroke(cr);
+    cairo_set_line_width(cr, 0.5 * u);
+    for (int a = 0; a < 360; a += 10) {
+        double dx, dy;
+        g.dir(a, dx, dy);
+        const double len = (a % 30 == 0 ? 4.5 : 2.5) * u;
+        pen.line(g.cx + dx * r, g.cy + dy * r, g.cx + dx * (r + len), g.cy + dy * (r + len));
+    }
+    // Angle labels every 30 deg.
+    pen.colour(ink);
+    pen.font(FontWeight::regular, 7.8);
+    for (int k = 0; k < 12; ++k) {
+        double a = 30.0 * k;
+        if (p.layout == AngleLayout::signed_half && a > 180) a -= 360;
+        const std::string s = angle_text(a, 0);
+        double dx, dy;
+        g.dir(a, dx, dy);
+        const double w = pen.width(s), h = 0.72 * pen.size;
+        const double d = r + 7 * u + std::abs(dx) * w / 2 + std::abs(dy) * h / 2;
+        pen.text(s, g.cx + dx * d, g.cy + dy * d, 0.5, true);
+    }
+
+    // Curves.
+    cairo_set_line_join(cr, CAIRO_LINE_JOIN_ROUND);
+    cairo_set_line_cap(cr, CAIRO_LINE_CAP_ROUND);
+    for (std::size_t i = 0; i < p.curves.size(); ++i) {
+        bool pen_down = false;
+        walk_curve(p.curves[i], sc, [&](double a, double f, bool ok) {
+            if (!ok) {
+                pen_down = false;
+                return;
+            }
+            double x, y;
+            g.at(a, f, x, y);
+            if (pen_down)
+                cairo_line_to(cr, x, y);
+            else
+                cairo_move_to(cr, x, y);
+            pen_down = true;
+        });
+        pen.curve_style(i, 1.5 * u);
+        cairo_stroke(cr);
+    }
+    pen.solid();
+
+    // -3 dB markers of the marked curve: a dashed arc at the half-power level between the two
+    // crossings, and a dot at each crossing.
+    if (p.marked_curve >= 0 && std::size_t(p.marked_curve) < p.curves.size()) {
+        const PlotCurve& c = p.curves[std::size_t(p.marked_curve)];
+        if (c.beam && c.beam->left_deg && c.beam->right_deg) {
+            const double f = sc.fraction(c.beam->peak_db - 10 * std::log10(2.0));
+            const double a0 = *c.beam->left_deg, a1 = *c.beam->right_deg;
+            const int n = std::max(2, int(std::ceil((a1 - a0) / 1.0)));
+            for (int k = 0; k <= n; ++k) {
+                double x, y;
+                g.at(a0 + (a1 - a0) * k / n, f, x, y);
+                if (k == 0)
+                    cairo_move_to(cr, x, y);
+                else
+                    cairo_line_to(cr, x, y);
+            }
+            pen.colour(ink);
+            cairo_set_line_width(cr, 0.7 * u);
+            pen.dash(2.5, 1.8);
+            cairo_stroke(cr);
+            pen.solid();
+            for (double a : {a0, a1}) {
+                double x, y;
+                g.at(a, f, x, y);
+                cairo_new_sub_path(cr);
+                cairo_arc(cr, x, y, 2.3 * u, 0, 2 * kPi);
+            }
+            pen.colour(curve_colour(std::size_t(p.marked_curve)));
+            cairo_fill_preserve(cr);
+            pen.colour(ink);
+            cairo_set_line_width(cr, 0.6 * u);
+            cairo_stroke(cr);
+        }
+    }
+
+    // dB labels along the spoke (between major spokes) where the curves come least far out.
+    double best_a = 15, best_f = 2;
+    for (int k = 0; k < 12; ++k) {
+        const double a = 15 + 30.0 * k;
+        double f = 0;
+        for (const PlotCurve& c : p.curves) f = std::max(f, fraction_at(c, sc, a));
+        if (f < best_f - 1e-9) {
+            best_f = f;
+            best_a = a;
+        }
+    }
+    pen.font(FontWeight::regular, 7.2);
+    for (std::size_t i = 0; i < rings.size(); ++i) {
+        double x, y;
+        g.at(best_a, sc.fraction(rings[i]), x, y);
+        const std::string s = num(rings[i], 0) + (i == 0 ? " " + p.value_unit : "");
+        pen.halo(s, x, y, 0.5, true);
+        pen.colour(ink_soft);
+        pen.text(s, x, y, 0.5, true);
+    }
+
+    // Captions under the circle.
+    pen.font(FontWeight::regular, 7.6);
+    pen.colour(ink_soft);
+    const double yc = y1 - 2 * u;
+    if (!p.negative_side.empty()) {
+        pen.text("\u2190 " + p.negative_side, g.cx - r, yc, 0.0);
+        pen.text(p.positive_side + " \u2192", g.cx + r, yc, 1.0);
+    }
+    pen.text("radius: " + p.value_label + ", " + num(top - range, 0) + " (centre) to " + num(top, 0) + " " + p.value_unit,
+             g.cx, yc, 0.5);
+}
+
+// ------------------------------------------------------------------------------ rectangular ---
+void draw_rect(Pen& pen, const CutPlot& p, double x0, double y0, double x1, double y1) {
+    cairo_t* cr = pen.cr;
+    const double u = pen.u;
+    const double top = plot_top_db(p), range = std::max(p.range_db, 1.0), step = grid_step_db(range);
+    const Scale sc{top, top - range};
+    const double a_min = p.layout == AngleLayout::signed_half ? -180 : 0, a_max = a_min + 360;
+    const double bx0 = x0 + 40 * u, bx1 = x1 - 14 * u, by0 = y0 + 10 * u;
+    const double by1 = y1 - (p.negative_side.empty() ? 30 : 40) * u;
+    auto X = [&](double a) { return bx0 + (bx1 - bx0) * (a - a_min) / (a_max - a_min); };
+    auto Y = [&](double f) { return by1 - (by1 - by0) * f; };
+
+    cairo_set_line_cap(cr, CAIRO_LINE_CAP_BUTT);
+    // Grid.
+    cairo_set_line_width(cr, 0.4 * u);
+    pen.colour(grid_minor);
+    for (double a = a_min + 10; a < a_max; a += 10)
+        if (std::fmod(a - a_min, 30) != 0) pen.line(X(a), by0, X(a), by1);
+    pen.colour(grid_major);
+    cairo_set_line_width(cr, 0.5 * u);
+    for (double a = a_min + 30; a < a_max; a += 30) pen.line(X(a), by0, X(a), by1);
+    std::vector<double> rings = grid_levels(top, top - range, step);
+    rings.push_back(top - range);  // the bottom of the frame
+    for (double v : rings) pen.line(bx0, Y(sc.fraction(v)), bx1, Y(sc.fraction(v)));
+    // Frame and ticks.
+    pen.colour(ink_soft);
+    cairo_set_line_width(cr, 0.8 * u);
+    cairo_rectangle(cr, bx0, by0, bx1 - bx0, by1 - by0);
+    cairo_stroke(cr);
+    cairo_set_line_width(cr, 0.5 * u);
+    for (double a = a_min; a <= a_max + 1e-9; a += 10) pen.line(X(a), by1, X(a), by1 + (std::fmod(a - a_min, 30) == 0 ? 4 : 2) * u);
+    for (double v : rings) pen.line(bx0 - 4 * u, Y(sc.fraction(v)), bx0, Y(sc.fraction(v)));
+    // Labels.
+    pen.colour(ink);
+    pen.font(FontWeight::regular, 7.8);
+    const double label_every = pen.width("\u2212180°") * 1.35 > (X(30) - X(0)) ? 60 : 30;
+    for (double a = a_min; a <= a_max + 1e-9; a += label_every) pen.text(angle_text(a, 0), X(a), by1 + 13 * u, 0.5);
+    for (double v : rings) pen.text(num(v, 0), bx0 - 6 * u, Y(sc.fraction(v)), 1.0, true);
+    pen.font(FontWeight::regular, 8.4);
+    pen.text(p.angle_symbol + " (deg)", (bx0 + bx1) / 2, by1 + 25 * u, 0.5);
+    cairo_save(cr);
+    cairo_move_to(cr, 0, 0);
+    cairo_translate(cr, x0 + 8 * u, (by0 + by1) / 2);
+    cairo_rotate(cr, -kPi / 2);
+    pen.text(p.value_label + " (" + p.value_unit + ")", 0, 0, 0.5);
+    cairo_restore(cr);
+    if (!p.negative_side.empty()) {
+        pen.font(FontWeight::regular, 7.6);
+        pen.colour(ink_soft);
+        pen.text("\u2190 " + p.negative_side, X(a_min), by1 + 36 * u, 0.0);
+        pen.text(p.positive_side + " \u2192", X(a_max), by1 + 36 * u, 1.0);
+    }
+
+    // Curves (angles wrapped into the axis range; a jump back starts a new piece).
+    cairo_save(cr);
+    cairo_rectangle(cr, bx0, by0 - 2 * u, bx1 - bx0, by1 - by0 + 4 * u);
+    cairo_clip(cr);
+    cairo_set_line_join(cr, CAIRO_LINE_JOIN_ROUND);
+    cairo_set_line_cap(cr, CAIRO_LINE_CAP_ROUND);
+    for (std::size_t i = 0; i < p.curves.size(); ++i) {
+        bool pen_down = false;
+        double last_a = -1e300;
+        walk_curve(p.curves[i], sc, [&](double a, double f, bool ok) {
+            if (!ok) {
+                pen_down = false;
+                return;
+            }
+            double aw = a;
+            while (aw > a_max + 1e-9) aw -= 360;
+            while (aw < a_min - 1e-9) aw += 360;
+            if (aw < last_a) pen_down = false;
+            last_a = aw;
+            if (pen_down)
+                cairo_line_to(cr, X(aw), Y(f));
+            else
+                cairo_move_to(cr, X(aw), Y(f));
+            pen_down = true;
+        });
+        pen.curve_style(i, 1.5 * u);
+        cairo_stroke(cr);
+    }
+    pen.solid();
+    cairo_restore(cr);
+
+    // -3 dB markers: dashed level line between the crossings, dashed verticals, dots.
+    if (p.marked_curve >= 0 && std::size_t(p.marked_curve) < p.curves.size()) {
+        const PlotCurve& c = p.curves[std::size_t(p.marked_curve)];
+        if (c.beam && c.beam->left_deg && c.beam->right_deg) {
+            const double f = sc.fraction(c.beam->peak_db - 10 * std::log10(2.0));
+            auto wrap_a = [&](double a) {
+                while (a >= a_max) a -= 360;
+                while (a < a_min) a += 360;
+                return a;
+            };
+            const double l = wrap_a(*c.beam->left_deg), rr = wrap_a(*c.beam->right_deg);
+            pen.colour(ink);
+            cairo_set_line_width(cr, 0.7 * u);
+            pen.dash(2.5, 1.8);
+            if (l <= rr) {
+                pen.line(X(l), Y(f), X(rr), Y(f));
+            } else {  // the beam straddles the ends of the axis
+                pen.line(X(l), Y(f), X(a_max), Y(f));
+                pen.line(X(a_min), Y(f), X(rr), Y(f));
+            }
+            cairo_set_line_width(cr, 0.5 * u);
+            pen.dash(1.2, 1.8);
+            pen.line(X(l), Y(f), X(l), by1);
+            pen.line(X(rr), Y(f), X(rr), by1);
+            pen.solid();
+            for (double a : {l, rr}) {
+                cairo_new_sub_path(cr);
+                cairo_arc(cr, X(a), Y(f), 2.3 * u, 0, 2 * kPi);
+            }
+            pen.colour(curve_colour(std::size_t(p.marked_curve)));
+            cairo_fill_preserve(cr);
+            pen.colour(ink);
+            cairo_set_line_width(cr, 0.6 * u);
+            cairo_stroke(cr);
+        }
+    }
+}
+
+}  // namespace
+
+void draw_cut_plot(cairo_t* cr, const CutPlot& p, double w, double h) {
+    cairo_save(cr);
+    Pen pen{cr, std::clamp(std::min(w / 576.0, h / 432.0), 0.4, 4.0)};
+    const double u = pen.u, m = 16 * u;
+    // Opaque white page: print-friendly and readable in dark-themed viewers.
+    cairo_set_source_rgb(cr, 1, 1, 1);
+    cairo_rectangle(cr, 0, 0, w, h);
+    cairo_fill(cr);
+
+    const double header = draw_header(pen, p, w, m);
+    const double legend_w = std::clamp(0.33 * w, 150 * u, 230 * u);
+    const double lx0 = w - m - legend_w;
+    if (p.style == PlotStyle::polar)
+        draw_polar(pen, p, m, header + 4 * u, lx0 - 8 * u, h - m);
+    else
+        draw_rect(pen, p, m, header + 4 * u, lx0 - 8 * u, h - m);
+    draw_legend(pen, p, lx0 + 4 * u, header + 8 * u, w - m, h - m);
+    cairo_restore(cr);
+}
+
+}  // namespace ellipsa::exports

@@ -1,0 +1,28 @@
+// The fonts every export uses: DejaVu Sans (regular and bold) bundled into the library, loaded
+// through FreeType and handed to Cairo as cairo-ft faces. Nothing depends on the system font
+// path or fontconfig at run time, and hinting is off so that output is the same on every machine.
+#pragma once
+#include <cstddef>
+
+#include <cairo.h>
+
+namespace ellipsa::exports {
+
+enum class FontWeight { regular, bold };
+
+struct FontBytes {
+    const unsigned char* data;
+    std::size_t size;
+};
+// The embedded TrueType bytes (font_data.cpp).
+FontBytes bundled_font_bytes(FontWeight w);
+
+// The Cairo face for a weight; created on first use and kept for the life of the process
+// (thread-safe initialisation). Returns nullptr only if FreeType cannot read the embedded font.
+cairo_font_face_t* font_face(FontWeight w);
+
+// Select a face and size (in user units) on a context, with deterministic font options
+// (grey antialiasing, no hinting, unhinted metrics).
+void set_font(cairo_t* cr, FontWeight w, double size);
+
+}  // namespace ellipsa::exports

@@ -1,0 +1,162 @@
+#include "exports/render.hpp"
+
+#include <cairo-pdf.h>
+#include <cairo-svg.h>
+
+#include <algorithm>
+#include <cctype>
+#include <cmath>
+#include <cstdint>
+#include <cstring>
+
+namespace ellipsa::exports {
+
+const char* to_string(FileFormat f) {
+    switch (f) {
+        case FileFormat::svg: return "svg";
+        case FileFormat::pdf: return "pdf";
+        case FileFormat::png: return "png";
+        case FileFormat::csv: return "csv";
+    }
+    return "?";
+}
+
+std::optional<FileFormat> format_from_path(std::string_view path) {
+    const std::size_t dot = path.rfind('.');
+    const std::size_t slash = path.rfind('/');
+    if (dot == std::string_view::npos || (slash != std::string_view::npos && dot < slash)) return std::nullopt;
+    std::string ext(path.substr(dot + 1));
+    for (char& c : ext) c = char(std::tolower(static_cast<unsigned char>(c)));
+    if (ext == "svg") return FileFormat::svg;
+    if (ext == "pdf") return FileFormat::pdf;
+    if (ext == "png") return FileFormat::png;
+    if (ext == "csv") return FileFormat::csv;
+    return std::nullopt;
+}
+
+Result<RenderSize> parse_size(std::string_view text, double dpi) {
+    const std::size_t x = text.find_first_of("xX");
+    auto bad = [&] {
+        return Error{"--size", 0, 0,
+                     "expected WIDTHxHEIGHT in pixels, each 16..20000 (e.g. 1200x900), found \"" + std::string(text) + "\""};
+    };
+    if (x == std::string_view::npos) return bad();
+    auto whole = [](std::string_view s, int& out) {
+        if (s.empty() || s.size() > 6) return false;
+        int v = 0;
+        for (char c : s) {
+            if (c < '0' || c > '9') return false;
+            v = v * 10 + (c - '0');
+        }
+        out = v;
+        return true;
+    };
+    RenderSize r;
+    if (!whole(text.substr(0, x), r.width_px) || !whole(text.substr(x + 1), r.height_px)) return bad();
+    if (r.width_px < 16 || r.height_px < 16 || r.width_px > 20000 || r.height_px > 20000) return bad();
+    if (!(dpi >= 36 && dpi <= 2400)) return Error{"--dpi", 0, 0, "expected 36..2400 dots per inch"};
+    r.dpi = dpi;
+    return r;
+}
+
+namespace {
+
+cairo_status_t append(void* closure, const unsigned char* data, unsigned int length) {
+    static_cast<std::string*>(closure)->append(reinterpret_cast<const char*>(data), length);
+    return CAIRO_STATUS_SUCCESS;
+}
+
+Error cairo_error(const char* what, cairo_status_t s) {
+    return Error{"", 0, 0, std::string(what) + ": " + cairo_status_to_string(s)};
+}
+
+}  // namespace
+
+Result<std::string> render_image(const Drawing& draw, FileFormat format, const RenderSize& size,
+                                 const std::string& title) {
+    std::string out;
+    const double w = size.width_pt(), h = size.height_pt();
+    cairo_surface_t* surface = nullptr;
+    switch (format) {
+        case FileFormat::svg:
+            surface = cairo_svg_surface_create_for_stream(append, &out, w, h);
+            cairo_svg_surface_restrict_to_version(surface, CAIRO_SVG_VERSION_1_1);
+            cairo_svg_surface_set_document_unit(surface, CAIRO_SVG_UNIT_PT);
+            break;
+        case FileFormat::pdf:
+            surface = cairo_pdf_surface_create_for_stream(append, &out, w, h);
+            cairo_pdf_surface_set_metadata(surface, CAIRO_PDF_METADATA_CREATOR, "ellipsa");
+            if (!title.empty()) cairo_pdf_surface_set_metadata(surface, CAIRO_PDF_METADATA_TITLE, title.c_str());
+            // A fixed date keeps the file reproducible: the same input gives the same bytes.
+            cairo_pdf_surface_set_metadata(surface, CAIRO_PDF_METADATA_CREATE_DATE, "2000-01-01T00:00:00Z");
+            break;
+        case FileFormat::png:
+            surface = cairo_image_surface_create(CAIRO_FORMAT_RGB24, size.width_px, size.height_px);
+            break;
+        case FileFormat::csv: return Error{"", 0, 0, "csv is not an image format"};
+    }
+    if (cairo_surface_status(surface) != CAIRO_STATUS_SUCCESS) {
+        Error e = cairo_error("cannot create the drawing surface", cairo_surface_status(surface));
+        cairo_surface_destroy(surface);
+        return e;
+    }
+    cairo_t* cr = cairo_create(surface);
+    if (format == FileFormat::png) cairo_scale(cr, size.dpi / 72.0, size.dpi / 72.0);
+    draw(cr, w, h);
+    cairo_status_t st = cairo_status(cr);
+    cairo_destroy(cr);
+    if (st == CAIRO_STATUS_SUCCESS && format == FileFormat::png) {
+        cairo_surface_flush(surface);
+        st = cairo_surface_write_to_png_stream(surface, append, &out);
+    }
+    cairo_surface_finish(surface);
+    if (st == CAIRO_STATUS_SUCCESS) st = cairo_surface_status(surface);
+    cairo_surface_destroy(surface);
+    if (st != CAIRO_STATUS_SUCCESS) return cairo_error("drawing failed", st);
+    return out;
+}
+
+namespace {
+struct Reader {
+    std::string_view data;
+    std::size_t pos = 0;
+};
+cairo_status_t read_chunk(void* closure, unsigned char* data, unsigned int length) {
+    Reader* r = static_cast<Reader*>(closure);
+    if (r->data.size() - r->pos < length) return CAIRO_STATUS_READ_ERROR;
+    std::memcpy(data, r->data.data() + r->pos, length);
+    r->pos += length;
+    return CAIRO_STATUS_SUCCESS;
+}
+}  // namespace
+
+Result<RgbImage> decode_png(std::string_view bytes) {
+    Reader rd{bytes};
+    cairo_surface_t* s = cairo_image_surface_create_from_png_stream(read_chunk, &rd);
+    if (cairo_surface_status(s) != CAIRO_STATUS_SUCCESS) {
+        Error e = cairo_error("not a readable PNG", cairo_surface_status(s));
+        cairo_surface_destroy(s);
+        return e;
+    }
+    cairo_surface_flush(s);
+    RgbImage img;
+    img.width = cairo_image_surface_get_width(s);
+    img.height = cairo_image_surface_get_height(s);
+    const int stride = cairo_image_surface_get_stride(s);
+    const unsigned char* p = cairo_image_surface_get_data(s);
+    img.rgb.resize(std::size_t(img.width) * std::size_t(img.height) * 3);
+    for (int y = 0; y < img.height; ++y)
+        for (int x = 0; x < img.width; ++x) {
+            std::uint32_t v;
+            std::memcpy(&v, p + std::size_t(y) * std::size_t(stride) + std::size_t(x) * 4, 4);
+            // Native-endian 0xAARRGGBB; premultiplied, but exports are opaque.
+            char* o = &img.rgb[(std::size_t(y) * std::size_t(img.width) + std::size_t(x)) * 3];
+            o[0] = char((v >> 16) & 0xff);
+            o[1] = char((v >> 8) & 0xff);
+            o[2] = char(v & 0xff);
+        }
+    cairo_surface_destroy(s);
+    return img;
+}
+
+}  // namespace ellipsa::exports

@@ -1,0 +1,50 @@
+// Export benchmark: time to sample one cut and write it as SVG, PNG (1200x900) and PDF, from the
+// same drawing code. Prints figures; never fails on a slow machine.
+#include <chrono>
+#include <cstdio>
+
+#include "exports/cut_figure.hpp"
+#include "exports/render.hpp"
+#include "pattern/reference.hpp"
+
+using namespace ellipsa;
+using namespace ellipsa::exports;
+
+template <class F>
+double best_ms(int reps, F&& f) {
+    double best = 1e300;
+    for (int r = 0; r < reps; ++r) {
+        auto t0 = std::chrono::steady_clock::now();
+        f();
+        auto t1 = std::chrono::steady_clock::now();
+        best = std::min(best, std::chrono::duration<double, std::milli>(t1 - t0).count());
+    }
+    return best;
+}
+
+int main() {
+    ReferenceAntenna a;
+    a.kind = ReferenceKind::crossed_dipoles;
+    const FarFieldSet s = synthesize(a, 1.0, 2.45e9);
+    const std::vector<Component> comps{Component::total, Component::rhcp, Component::lhcp};
+    CutPlot plot;
+    const double cut_ms = best_ms(5, [&] {
+        auto c = compute_cut(s, 0, CutSpec::phi_cut(0), comps);
+        plot = make_cut_plot(s, *c, {});
+    });
+    std::printf("cut: sample + 3 components + beam figures (1 deg grid, 1440 samples): %8.2f ms\n", cut_ms);
+    const RenderSize size;  // 1200x900 px at 150 dpi
+    for (FileFormat f : {FileFormat::svg, FileFormat::png, FileFormat::pdf}) {
+        for (PlotStyle st : {PlotStyle::polar, PlotStyle::rect}) {
+            plot.style = st;
+            std::size_t bytes = 0;
+            const double ms = best_ms(5, [&] {
+                auto r = render_image([&](cairo_t* cr, double w, double h) { draw_cut_plot(cr, plot, w, h); }, f, size);
+                bytes = r.ok() ? r->size() : 0;
+            });
+            std::printf("cut plot %-5s %-3s (1200x900, 3 curves): %8.2f ms per figure  (%zu kB)\n",
+                        st == PlotStyle::polar ? "polar" : "rect", to_string(f), ms, bytes / 1024);
+        }
+    }
+    return 0;
+}
