@@ -1,0 +1,444 @@
+#include "pattern/diversity.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <cstdio>
+
+#include "pattern/integrate.hpp"
+#include "pattern/interpolate.hpp"
+
+namespace ellipsa {
+
+namespace {
+
+Error fail(std::string msg) { return Error{"", 0, 0, std::move(msg)}; }
+
+std::string percent(double x) {
+    char buf[32];
+    std::snprintf(buf, sizeof buf, "%.1f %%", 100 * x);
+    return buf;
+}
+
+bool same_grid(const Grid& a, const Grid& b) {
+    auto eq = [](double x, double y) { return std::abs(x - y) <= 1e-9 * std::max(1.0, std::abs(x)); };
+    return a.theta.count == b.theta.count && a.phi.count == b.phi.count && eq(a.theta.start_deg, b.theta.start_deg) &&
+           eq(a.theta.step_deg, b.theta.step_deg) && eq(a.phi.start_deg, b.phi.start_deg) &&
+           eq(a.phi.step_deg, b.phi.step_deg);
+}
+
+// Per-sample partial gains of one frequency, already scaled to gain.
+struct PartialGains {
+    std::vector<double> gtt, gpp, gtp;  // |E_theta|^2, |E_phi|^2, Re(E_theta conj(E_phi))
+};
+PartialGains partial_gains(const FarField& f, double factor) {
+    PartialGains p;
+    const std::size_t n = f.e_theta.size();
+    p.gtt.resize(n);
+    p.gpp.resize(n);
+    p.gtp.resize(n);
+    for (std::size_t k = 0; k < n; ++k) {
+        const cplx a = f.e_theta[k], b = f.e_phi[k];
+        p.gtt[k] = factor * std::norm(a);
+        p.gpp[k] = factor * std::norm(b);
+        p.gtp[k] = factor * (a.real() * b.real() + a.imag() * b.imag());
+    }
+    return p;
+}
+
+// sin/cos of the grid's rows and columns, so per-sample unit vectors are products, not trig.
+struct GridTrig {
+    std::vector<double> st, ct, sp, cp;
+};
+GridTrig grid_trig(const Grid& g) {
+    GridTrig t;
+    for (int i = 0; i < g.theta.count; ++i) {
+        const double a = g.theta.value_deg(i) * deg;
+        t.st.push_back(std::sin(a));
+        t.ct.push_back(std::cos(a));
+    }
+    // Exact zeros at the poles keep the pole samples on the axis.
+    if (g.has_north_pole()) t.st.front() = 0, t.ct.front() = 1;
+    if (g.has_south_pole()) t.st.back() = 0, t.ct.back() = -1;
+    for (int j = 0; j < g.phi.count; ++j) {
+        const double a = g.phi.value_deg(j) * deg;
+        t.sp.push_back(std::sin(a));
+        t.cp.push_back(std::cos(a));
+    }
+    return t;
+}
+
+// For one "up" direction n in the antenna frame: the environment's densities toward each grid
+// sample, and the projections of n on the sample's theta-hat and phi-hat.
+struct UpTables {
+    std::vector<double> pv, ph, alpha, beta;
+};
+void build_up_tables(const Grid& g, const GridTrig& tr, const Environment& e, Vec3 n, UpTables& t) {
+    const std::size_t size = g.size();
+    t.pv.resize(size);
+    t.ph.resize(size);
+    t.alpha.resize(size);
+    t.beta.resize(size);
+    const bool per_elevation = e.model == EnvironmentModel::profile && e.profile_measure == ProfileMeasure::per_elevation;
+    const double half_step = 0.5 * g.theta.step_deg * deg;
+    for (int i = 0; i < g.theta.count; ++i) {
+        const double st = tr.st[std::size_t(i)], ct = tr.ct[std::size_t(i)];
+        for (int j = 0; j < g.phi.count; ++j) {
+            const double sp = tr.sp[std::size_t(j)], cp = tr.cp[std::size_t(j)];
+            const std::size_t k = g.index(i, j);
+            // u = (st cp, st sp, ct); theta-hat = (ct cp, ct sp, -st); phi-hat = (-sp, cp, 0)
+            const double c = std::clamp(n.x * st * cp + n.y * st * sp + n.z * ct, -1.0, 1.0);
+            const double tp = std::acos(c);
+            if (per_elevation && std::sin(tp) < std::sin(half_step)) {
+                // Near the environment's poles such a table's per-steradian density diverges:
+                // use its mean over a cell the size of a grid step.
+                const double a = std::max(0.0, tp - half_step), b = std::min(pi, tp + half_step);
+                t.pv[k] = raw_density_cell_mean(e, true, a, b);
+                t.ph[k] = raw_density_cell_mean(e, false, a, b);
+            } else {
+                t.pv[k] = raw_density(e, true, tp);
+                t.ph[k] = e.model == EnvironmentModel::uniform ? t.pv[k] : raw_density(e, false, tp);
+            }
+            t.alpha[k] = n.x * ct * cp + n.y * ct * sp - n.z * st;
+            t.beta[k] = -n.x * sp + n.y * cp;
+        }
+    }
+}
+
+struct RotatedSums {
+    double meg_v = 0, meg_h = 0;
+};
+// MEG for the tables of one up direction, with the tables read `shift` phi columns further on
+// (an exact roll of the antenna about its own z axis by shift * phi step).
+Result<RotatedSums> accumulate_rotated(const Grid& g, const std::vector<double>& wt, const std::vector<double>& wp,
+                                       const UpTables& t, const PartialGains& pg, double w_v, double w_h,
+                                       int shift) {
+    const int np = g.phi.count;
+    double sv = 0, sh = 0, mv = 0, mh = 0;
+    for (int i = 0; i < g.theta.count; ++i) {
+        const std::size_t row = g.index(i, 0);
+        double rsv = 0, rsh = 0, rmv = 0, rmh = 0;
+        for (int j = 0; j < np; ++j) {
+            int jj = j + shift;
+            if (jj >= np) jj -= np;
+            const std::size_t k = row + std::size_t(j), q = row + std::size_t(jj);
+            const double a = t.alpha[q], b = t.beta[q];
+            const double rho2 = a * a + b * b;
+            const double gtt = pg.gtt[k], gpp = pg.gpp[k];
+            // |n.E|^2 / (1 - (n.u)^2); on the environment's axis itself keep the sample's own basis.
+            const double gv = rho2 > 1e-24 ? (a * a * gtt + b * b * gpp + 2 * a * b * pg.gtp[k]) / rho2 : gtt;
+            const double gh = gtt + gpp - gv;
+            const double w = wp[std::size_t(j)];
+            const double pv = t.pv[q] * w, ph = t.ph[q] * w;
+            rsv += pv;
+            rsh += ph;
+            rmv += pv * gv;
+            rmh += ph * gh;
+        }
+        const double wr = wt[std::size_t(i)];
+        sv += rsv * wr;
+        sh += rsh * wr;
+        mv += rmv * wr;
+        mh += rmh * wr;
+    }
+    if ((w_v > 0 && !(sv > 0)) || (w_h > 0 && !(sh > 0)))
+        return fail("the turned environment has no power at any sample of this grid (it is too narrow for the grid step)");
+    RotatedSums r;
+    r.meg_v = w_v > 0 ? w_v * mv / sv : 0.0;
+    r.meg_h = w_h > 0 ? w_h * std::max(0.0, mh) / sh : 0.0;
+    return r;
+}
+
+Status check_rotatable(const FarFieldSet& s, const Environment& e) {
+    if (!is_full_sphere(s.grid))
+        return fail("turning the antenna needs the full sphere; this grid covers " + percent(coverage(s.grid)) +
+                    " of it");
+    if (s.content == FieldContent::magnitude_only)
+        return fail("turning the antenna needs the phase between E_theta and E_phi (the turned vertical/horizontal "
+                    "split depends on it); this data has magnitudes only");
+    if (s.content == FieldContent::total_only && !polarisation_blind(e))
+        return fail("total-only data has no vertical/horizontal split; it can be scored only in a "
+                    "polarisation-blind environment (XPR 0 dB, the same V and H density)");
+    return Ok{};
+}
+
+}  // namespace
+
+Result<GainScale> gain_scale(const FarFieldSet& s, std::size_t fi) {
+    const double p = radiated_power(s.grid, s.frequencies[fi]);
+    if (!(p > 0)) return fail("the pattern is zero everywhere at this frequency");
+    GainScale g;
+    switch (s.quantity) {
+        case Quantity::gain: break;
+        case Quantity::directivity:
+            g.assumption = "directivity data: assumes a lossless antenna (gain = directivity)";
+            break;
+        case Quantity::relative:
+            if (!is_full_sphere(s.grid))
+                return fail("relative data have no known scale, and on a grid that covers only " +
+                            percent(coverage(s.grid)) +
+                            " of the sphere they cannot be scaled to directivity; MEG is unavailable");
+            g.factor = 4 * pi / p;
+            g.assumption = "relative data scaled to directivity over the full sphere: assumes a lossless antenna";
+            break;
+    }
+    return g;
+}
+
+Result<MegFigures> mean_effective_gain(const FarFieldSet& s, std::size_t fi, const Environment& e) {
+    auto scale = gain_scale(s, fi);
+    if (!scale) return scale.error();
+    const bool total_only = s.content == FieldContent::total_only;
+    if (total_only && !polarisation_blind(e))
+        return fail("total-only data has no vertical/horizontal split; MEG needs it in this environment "
+                    "(XPR or the V/H densities differ). Only a polarisation-blind environment (XPR 0 dB, the "
+                    "same V and H density) can score it");
+    auto env = sample_environment(e, s.grid);
+    if (!env) return env.error();
+    const Grid& g = s.grid;
+    const CellWeights w = cell_weights(g);
+    const FarField& f = s.frequencies[fi];
+    const double factor = scale->factor;
+    double mv = 0, mh = 0, bal = 0, incoming = 0;
+    for (int i = 0; i < g.theta.count; ++i) {
+        double rmv = 0, rmh = 0, rbal = 0, rin = 0;
+        for (int j = 0; j < g.phi.count; ++j) {
+            const std::size_t k = g.index(i, j);
+            const double gt = factor * std::norm(f.e_theta[k]), gp = factor * std::norm(f.e_phi[k]);
+            const double pt = env->p_theta[k], pp = env->p_phi[k];
+            const double wj = w.phi[std::size_t(j)];
+            rmv += wj * pt * gt;
+            rmh += wj * pp * gp;
+            const double q = wj * (env->w_v * pt + env->w_h * pp);
+            rin += q;
+            const double hi = std::max(gt, gp), lo = std::min(gt, gp);
+            if (hi > 0 && lo * balance_ratio_3db >= hi) rbal += q;
+        }
+        const double wi = w.theta[std::size_t(i)];
+        mv += rmv * wi;
+        mh += rmh * wi;
+        bal += rbal * wi;
+        incoming += rin * wi;
+    }
+    MegFigures m;
+    m.assumption = scale->assumption;
+    m.sampled_share = env->sampled_share;
+    const double v = env->w_v * mv, h = env->w_h * mh;
+    m.meg = v + h;
+    if (!total_only) {
+        m.meg_vertical = v;
+        m.meg_horizontal = h;
+        if (m.meg > 0) {
+            m.vertical_share = v / m.meg;
+            m.horizontal_share = h / m.meg;
+        }
+        if (incoming > 0) m.balanced_share = bal / incoming;
+    } else {
+        m.notes.push_back("total-only data: no vertical/horizontal split or balance figures");
+    }
+    if (env->sampled_share < 1 - 1e-9)
+        m.notes.push_back("the grid holds only " + percent(env->sampled_share) +
+                          " of the incoming power: MEG counts only what arrives inside the sampled region (a lower "
+                          "bound)");
+    return m;
+}
+
+Result<MegFigures> mean_effective_gain_rotated(const FarFieldSet& s, std::size_t fi, const Environment& e,
+                                               const Mat3& r) {
+    Status ok = check_rotatable(s, e);
+    if (!ok) return ok.error();
+    Status ev = validate(e);
+    if (!ev) return ev.error();
+    auto scale = gain_scale(s, fi);
+    if (!scale) return scale.error();
+    const Grid& g = s.grid;
+    const CellWeights w = cell_weights(g);
+    const GridTrig tr = grid_trig(g);
+    const PartialGains pg = partial_gains(s.frequencies[fi], scale->factor);
+    UpTables t;
+    build_up_tables(g, tr, e, apply_transposed(r, Vec3{0, 0, 1}), t);
+    auto sums = accumulate_rotated(g, w.theta, w.phi, t, pg, e.weight_vertical(), e.weight_horizontal(), 0);
+    if (!sums) return sums.error();
+    MegFigures m;
+    m.assumption = scale->assumption;
+    m.meg = sums->meg_v + sums->meg_h;
+    if (s.content != FieldContent::total_only) {
+        m.meg_vertical = sums->meg_v;
+        m.meg_horizontal = sums->meg_h;
+        if (m.meg > 0) {
+            m.vertical_share = sums->meg_v / m.meg;
+            m.horizontal_share = sums->meg_h / m.meg;
+        }
+    }
+    return m;
+}
+
+Status validate(const OrientationSweep& sw) {
+    if (!std::isfinite(sw.tilt_max_deg) || sw.tilt_max_deg < 0 || sw.tilt_max_deg > 180)
+        return fail("the largest tilt must lie in [0, 180] deg");
+    if (!std::isfinite(sw.tilt_step_deg) || sw.tilt_step_deg < 0.1 || sw.tilt_step_deg > 180)
+        return fail("the tilt step must lie in [0.1, 180] deg");
+    if (!std::isfinite(sw.roll_step_deg) || sw.roll_step_deg < 0.1 || sw.roll_step_deg > 360)
+        return fail("the roll step must lie in [0.1, 360] deg");
+    return Ok{};
+}
+
+Result<OrientationFigures> orientation_robustness(const FarFieldSet& s, std::size_t fi, const Environment& e,
+                                                  const OrientationSweep& sw) {
+    Status sv = validate(sw);
+    if (!sv) return sv.error();
+    Status ok = check_rotatable(s, e);
+    if (!ok) return ok.error();
+    Status ev = validate(e);
+    if (!ev) return ev.error();
+    auto scale = gain_scale(s, fi);
+    if (!scale) return scale.error();
+
+    std::vector<double> tilts;
+    for (int k = 0;; ++k) {
+        const double t = k * sw.tilt_step_deg;
+        if (t > sw.tilt_max_deg + 1e-9) break;
+        tilts.push_back(std::min(t, sw.tilt_max_deg));
+    }
+    if (tilts.back() < sw.tilt_max_deg - 1e-9) tilts.push_back(sw.tilt_max_deg);
+    std::vector<double> rolls;
+    for (int k = 0; k * sw.roll_step_deg < 360 - 1e-9; ++k) rolls.push_back(k * sw.roll_step_deg);
+
+    const Grid& g = s.grid;
+    const CellWeights w = cell_weights(g);
+    const GridTrig tr = grid_trig(g);
+    const PartialGains pg = partial_gains(s.frequencies[fi], scale->factor);
+    const double w_v = e.weight_vertical(), w_h = e.weight_horizontal();
+    const double shift_ratio = sw.roll_step_deg / g.phi.step_deg;
+    const bool exact_shift = g.phi_wraps() && std::abs(shift_ratio - std::round(shift_ratio)) < 1e-9;
+
+    OrientationFigures out;
+    out.exact_roll_shift = exact_shift;
+    UpTables t;
+    for (double tilt : tilts) {
+        const double ta = tilt * deg;
+        const bool vertical_axis = std::abs(tilt) < 1e-12;
+        TiltRow row{tilt, 1e300, 0, -1e300};
+        int count = 0;
+        if (exact_shift) build_up_tables(g, tr, e, Vec3{0, std::sin(ta), std::cos(ta)}, t);
+        for (double roll : rolls) {
+            if (vertical_axis && roll != 0) break;  // every roll is the same orientation up to azimuth
+            int shift = 0;
+            if (exact_shift) {
+                shift = int(std::lround(roll / g.phi.step_deg)) % g.phi.count;
+            } else {
+                const double ra = roll * deg;
+                // n = R^T z for R = R_x(tilt) R_z(roll)
+                build_up_tables(g, tr, e, Vec3{std::sin(ta) * std::sin(ra), std::sin(ta) * std::cos(ra), std::cos(ta)},
+                                t);
+            }
+            auto sums = accumulate_rotated(g, w.theta, w.phi, t, pg, w_v, w_h, shift);
+            if (!sums) return sums.error();
+            OrientationSample o{tilt, roll, sums->meg_v + sums->meg_h, sums->meg_v, sums->meg_h};
+            out.samples.push_back(o);
+            row.min = std::min(row.min, o.meg);
+            row.max = std::max(row.max, o.meg);
+            row.mean += o.meg;
+            ++count;
+        }
+        row.mean /= count;
+        out.by_tilt.push_back(row);
+    }
+
+    std::vector<double> v;
+    for (const OrientationSample& o : out.samples) v.push_back(o.meg);
+    std::sort(v.begin(), v.end());
+    out.min = v.front();
+    out.max = v.back();
+    const std::size_t n = v.size();
+    out.median = n % 2 ? v[n / 2] : 0.5 * (v[n / 2 - 1] + v[n / 2]);
+    out.worst = out.best = out.samples.front();
+    for (const OrientationSample& o : out.samples) {
+        if (o.meg < out.worst.meg) out.worst = o;
+        if (o.meg > out.best.meg) out.best = o;
+    }
+    // Random orientation with the axis within tilt_max: weight each tilt row by its band.
+    double sum = 0, wsum = 0;
+    for (std::size_t k = 0; k < out.by_tilt.size(); ++k) {
+        const double t0 = tilts[k] * deg;
+        const double a = k == 0 ? 0.0 : 0.5 * (tilts[k - 1] + tilts[k]) * deg;
+        const double b = k + 1 == tilts.size() ? sw.tilt_max_deg * deg : 0.5 * (tilts[k] + tilts[k + 1]) * deg;
+        (void)t0;
+        const double wk = std::cos(a) - std::cos(b);
+        sum += wk * out.by_tilt[k].mean;
+        wsum += wk;
+    }
+    out.random_mean = wsum > 0 ? sum / wsum : out.by_tilt.front().mean;
+    return out;
+}
+
+double selection_diversity_gain_db(double ecc) { return 10.0 * std::sqrt(1.0 - std::clamp(ecc, 0.0, 1.0)); }
+
+Result<CorrelationFigures> envelope_correlation(const FarFieldSet& a, std::size_t fa, const FarFieldSet& b,
+                                                std::size_t fb, const Environment& e) {
+    for (const FarFieldSet* p : {&a, &b})
+        if (p->content != FieldContent::complex)
+            return fail("envelope correlation needs complex fields on a common phase reference; " +
+                        (p->name.empty() ? std::string("one pattern") : "\"" + p->name + "\"") + " has " +
+                        to_string(p->content) + " data");
+    auto env = sample_environment(e, a.grid);
+    if (!env) return env.error();
+    const Grid& g = a.grid;
+    CorrelationFigures out;
+    out.sampled_share = env->sampled_share;
+    const FarField& f1 = a.frequencies[fa];
+    std::vector<cplx> bt, bp;
+    const cplx* et2;
+    const cplx* ep2;
+    if (same_grid(a.grid, b.grid)) {
+        et2 = b.frequencies[fb].e_theta.data();
+        ep2 = b.frequencies[fb].e_phi.data();
+    } else {
+        out.resampled = true;
+        bt.resize(g.size());
+        bp.resize(g.size());
+        for (int i = 0; i < g.theta.count; ++i)
+            for (int j = 0; j < g.phi.count; ++j) {
+                const double td = g.theta.value_deg(i), pd = g.phi.value_deg(j);
+                auto v = interpolate(b, fb, td, pd);
+                if (!v) {
+                    char buf[200];
+                    std::snprintf(buf, sizeof buf,
+                                  "the second pattern does not cover the first one's grid (no data at theta %g, phi "
+                                  "%g deg)",
+                                  td, pd);
+                    return fail(buf);
+                }
+                bt[g.index(i, j)] = v->e_theta;
+                bp[g.index(i, j)] = v->e_phi;
+            }
+        et2 = bt.data();
+        ep2 = bp.data();
+    }
+    const CellWeights w = cell_weights(g);
+    cplx num = 0;
+    double d1 = 0, d2 = 0;
+    for (int i = 0; i < g.theta.count; ++i) {
+        cplx rn = 0;
+        double r1 = 0, r2 = 0;
+        for (int j = 0; j < g.phi.count; ++j) {
+            const std::size_t k = g.index(i, j);
+            const double qt = env->w_v * env->p_theta[k] * w.phi[std::size_t(j)];
+            const double qp = env->w_h * env->p_phi[k] * w.phi[std::size_t(j)];
+            rn += qt * f1.e_theta[k] * std::conj(et2[k]) + qp * f1.e_phi[k] * std::conj(ep2[k]);
+            r1 += qt * std::norm(f1.e_theta[k]) + qp * std::norm(f1.e_phi[k]);
+            r2 += qt * std::norm(et2[k]) + qp * std::norm(ep2[k]);
+        }
+        const double wi = w.theta[std::size_t(i)];
+        num += wi * rn;
+        d1 += wi * r1;
+        d2 += wi * r2;
+    }
+    if (!(d1 > 0) || !(d2 > 0))
+        return fail(std::string("the ") + (d1 > 0 ? "second" : "first") +
+                    " pattern receives no power in this environment, so the correlation is undefined");
+    out.ecc = std::clamp(std::norm(num) / (d1 * d2), 0.0, 1.0);
+    out.diversity_gain_db = selection_diversity_gain_db(out.ecc);
+    return out;
+}
+
+}  // namespace ellipsa
