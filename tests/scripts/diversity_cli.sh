@@ -1,0 +1,43 @@
+#!/usr/bin/env bash
+# The diversity command's contract: exit codes, JSON keys, clear messages for bad environments and
+# profile tables. Usage: diversity_cli.sh ELLIPSA WORKDIR
+set -uo pipefail
+E=$1; W=$2; mkdir -p "$W"; cd "$W"
+pass=0; fail=0
+ok() { echo "ok   $1"; pass=$((pass+1)); }
+bad() { echo "FAIL $1"; fail=$((fail+1)); }
+expect_rc() {  # WANT LABEL CMD...
+  local want=$1 label=$2; shift 2
+  "$@" >out.txt 2>err.txt; local rc=$?
+  if [[ $rc == "$want" ]]; then ok "$label (exit $rc)"; else bad "$label: exit $rc, expected $want; stderr: $(head -c 300 err.txt)"; fi
+}
+has() { grep -q "\"$1\":" out.txt && ok "JSON has $1" || bad "JSON lacks $1"; }
+expect_rc 0 "synth z dipole" "$E" synth dipole --step 2 --out z.csv
+expect_rc 0 "synth x dipole" "$E" synth dipole --step 2 --rotate-y 90 --out x.csv
+expect_rc 0 "uniform, one file" "$E" diversity z.csv --json
+for k in environment patterns meg_db meg_vertical_db meg_horizontal_db vertical_share horizontal_share balanced_share; do has $k; done
+# Taga 1990: a lossless antenna in the uniform environment has MEG -3.01 dB.
+grep -q '"meg_db": -3.01' out.txt && ok "uniform MEG is -3.01 dB" || bad "uniform MEG not -3.01 dB: $(head -c 400 out.txt)"
+expect_rc 0 "two files, preset, orientations" "$E" diversity z.csv x.csv --environment urban --orientations --json
+for k in ecc diversity_gain_db correlation orientations min_db median_db max_db worst by_tilt; do has $k; done
+# conventions.md: a z and an x dipole are uncorrelated (in any azimuth-uniform environment).
+grep -Eq '"ecc": \[(0|[0-9.]+e-(1[2-9]|[2-9][0-9]))\]' out.txt && ok "z/x dipoles: ECC 0" || bad "z/x ECC not 0: $(grep -o '"ecc": [^]]*]' out.txt)"
+expect_rc 0 "human output" "$E" diversity z.csv x.csv --environment indoor --orientations
+grep -q 'dBi' out.txt && grep -q 'diversity gain' out.txt && ok "human output has units" || bad "human output lacks units"
+expect_rc 2 "gaussian without all angles is bad usage" "$E" diversity z.csv --environment gaussian --v-mean 10
+grep -q -- '--v-spread' err.txt && ok "names the missing option" || bad "does not name the missing option: $(cat err.txt)"
+expect_rc 2 "unknown environment is bad usage" "$E" diversity z.csv --environment moon
+expect_rc 2 "angles with the uniform environment are bad usage" "$E" diversity z.csv --environment uniform --v-mean 3
+expect_rc 2 "bad XPR is bad usage" "$E" diversity z.csv --xpr lots
+expect_rc 2 "zero spread is bad usage" "$E" diversity z.csv --environment urban --v-spread 0
+expect_rc 0 "XPR inf accepted" "$E" diversity z.csv --environment rural --xpr inf --json
+grep -q '"xpr_db": "inf"' out.txt && ok "infinite XPR echoed as \"inf\"" || bad "infinite XPR not echoed"
+printf '# horizon-heavy\nelevation_deg,p_v,p_h\n-20,0,0\n0,1,0.5\n40,0,0\n' > prof.csv
+expect_rc 0 "profile table" "$E" diversity z.csv --profile prof.csv --json
+grep -q '"model": "profile"' out.txt && ok "profile model used" || bad "profile model not used"
+printf 'elevation_deg,p_v,p_h\n-20,0,0\n0,oops,0.5\n' > badprof.csv
+expect_rc 1 "bad profile is bad input" "$E" diversity z.csv --profile badprof.csv
+grep -q 'badprof.csv:3:3:' err.txt && ok "profile error names file:line:column" || bad "profile error: $(cat err.txt)"
+expect_rc 1 "missing file is bad input" "$E" diversity no-such.csv
+echo "$pass passed, $fail failed"
+[[ $fail == 0 ]]
