@@ -36,7 +36,7 @@ struct DiversityArgs {
 
 const char* orientation_definition =
     "antenna turned by roll about its own z axis, then tilted by tilt about the world's horizontal x axis "
-    "(R = R_x(tilt) R_z(roll)); world up is +z; tilt 0 counted once";
+    "(R = R_x(tilt) R_z(roll)); world up is +z; tilts 0 and 180 counted once";
 const char* diversity_gain_method =
     "two-branch selection combining at 1 % outage, Rayleigh fading, equal branch powers: 10 sqrt(1 - ECC) dB "
     "(approximation used with Vaughan & Andersen 1987; common practice)";
@@ -321,10 +321,14 @@ void write_human(const EnvChoice& env, const std::vector<PatternResult>& ps, con
             std::cout << "      min / median / max  " << fmt(to_db(o->min), "") << " / " << fmt(to_db(o->median), "")
                       << " / " << fmt(to_db(o->max), "dBi") << "  (spread " << fmt(to_db(o->max) - to_db(o->min), "dB")
                       << ")\n";
-            std::snprintf(buf, sizeof buf, "tilt %g deg, roll %g deg", o->worst.tilt_deg, o->worst.roll_deg);
-            std::cout << "      worst               " << fmt(to_db(o->worst.meg), "dBi") << " at " << buf << "\n";
-            std::snprintf(buf, sizeof buf, "tilt %g deg, roll %g deg", o->best.tilt_deg, o->best.roll_deg);
-            std::cout << "      best                " << fmt(to_db(o->best.meg), "dBi") << " at " << buf << "\n";
+            if (to_db(o->max) - to_db(o->min) < 0.005) {
+                std::cout << "      worst / best        every orientation within 0.01 dB\n";
+            } else {
+                std::snprintf(buf, sizeof buf, "tilt %g deg, roll %g deg", o->worst.tilt_deg, o->worst.roll_deg);
+                std::cout << "      worst               " << fmt(to_db(o->worst.meg), "dBi") << " at " << buf << "\n";
+                std::snprintf(buf, sizeof buf, "tilt %g deg, roll %g deg", o->best.tilt_deg, o->best.roll_deg);
+                std::cout << "      best                " << fmt(to_db(o->best.meg), "dBi") << " at " << buf << "\n";
+            }
             std::cout << "      random orientation  " << fmt(to_db(o->random_mean), "dBi") << " mean\n";
             std::cout << "      by tilt (deg: min / mean / max dBi)\n";
             for (const TiltRow& t : o->by_tilt) {

@@ -70,14 +70,23 @@ GridTrig grid_trig(const Grid& g) {
 // For one "up" direction n in the antenna frame: the environment's densities toward each grid
 // sample, and the projections of n on the sample's theta-hat and phi-hat.
 struct UpTables {
-    std::vector<double> pv, ph, alpha, beta;
+    std::vector<double> pv, ph;
+    // |v.E|^2 = ca |E_theta|^2 + cb |E_phi|^2 + cab Re(E_theta conj(E_phi)), with v the environment's
+    // vertical unit vector at the sample: ca = alpha^2 / rho^2, cb = beta^2 / rho^2, cab = 2 alpha beta / rho^2,
+    // alpha = n . theta-hat, beta = n . phi-hat, rho^2 = alpha^2 + beta^2 = 1 - (n . u)^2.
+    std::vector<double> ca, cb, cab;
 };
 void build_up_tables(const Grid& g, const GridTrig& tr, const Environment& e, Vec3 n, UpTables& t) {
     const std::size_t size = g.size();
     t.pv.resize(size);
     t.ph.resize(size);
-    t.alpha.resize(size);
-    t.beta.resize(size);
+    t.ca.resize(size);
+    t.cb.resize(size);
+    t.cab.resize(size);
+    // The same density for V and H (uniform, or equal Gaussian parameters): evaluate it once.
+    const bool same_vh = e.model == EnvironmentModel::uniform ||
+                         (e.model == EnvironmentModel::gaussian && e.v_mean_deg == e.h_mean_deg &&
+                          e.v_spread_deg == e.h_spread_deg);
     const bool per_elevation = e.model == EnvironmentModel::profile && e.profile_measure == ProfileMeasure::per_elevation;
     const double half_step = 0.5 * g.theta.step_deg * deg;
     for (int i = 0; i < g.theta.count; ++i) {
@@ -96,10 +105,22 @@ void build_up_tables(const Grid& g, const GridTrig& tr, const Environment& e, Ve
                 t.ph[k] = raw_density_cell_mean(e, false, a, b);
             } else {
                 t.pv[k] = raw_density(e, true, tp);
-                t.ph[k] = e.model == EnvironmentModel::uniform ? t.pv[k] : raw_density(e, false, tp);
+                t.ph[k] = same_vh ? t.pv[k] : raw_density(e, false, tp);
             }
-            t.alpha[k] = n.x * ct * cp + n.y * ct * sp - n.z * st;
-            t.beta[k] = -n.x * sp + n.y * cp;
+            const double a = n.x * ct * cp + n.y * ct * sp - n.z * st;
+            const double b = -n.x * sp + n.y * cp;
+            const double rho2 = a * a + b * b;
+            if (rho2 > 1e-24) {
+                t.ca[k] = a * a / rho2;
+                t.cb[k] = b * b / rho2;
+                t.cab[k] = 2 * a * b / rho2;
+            } else {
+                // On the environment's axis itself V/H is undefined (a set of zero measure): keep
+                // the sample's own theta/phi basis, as the unturned computation does.
+                t.ca[k] = 1;
+                t.cb[k] = 0;
+                t.cab[k] = 0;
+            }
         }
     }
 }
@@ -107,44 +128,64 @@ void build_up_tables(const Grid& g, const GridTrig& tr, const Environment& e, Ve
 struct RotatedSums {
     double meg_v = 0, meg_h = 0;
 };
-// MEG for the tables of one up direction, with the tables read `shift` phi columns further on
-// (an exact roll of the antenna about its own z axis by shift * phi step).
-Result<RotatedSums> accumulate_rotated(const Grid& g, const std::vector<double>& wt, const std::vector<double>& wp,
-                                       const UpTables& t, const PartialGains& pg, double w_v, double w_h,
-                                       int shift) {
+// MEG for the tables of one up direction, once per entry of `shifts`: the tables are read
+// `shift` phi columns further on (an exact roll of the antenna about its own z axis by
+// shift * phi step). Rows are the outer loop so each row's data stay in cache for all shifts.
+Result<std::vector<RotatedSums>> accumulate_rotated(const Grid& g, const std::vector<double>& wt,
+                                                    const std::vector<double>& wp, const UpTables& t,
+                                                    const PartialGains& pg, double w_v, double w_h,
+                                                    const std::vector<int>& shifts) {
     const int np = g.phi.count;
-    double sv = 0, sh = 0, mv = 0, mh = 0;
+    const std::size_t ns = shifts.size();
+    // sv and sh (the normalising sums) do not depend on the shift: a shift only permutes a row.
+    double sv = 0, sh = 0;
+    std::vector<double> mv(ns, 0.0), mh(ns, 0.0);
     for (int i = 0; i < g.theta.count; ++i) {
         const std::size_t row = g.index(i, 0);
-        double rsv = 0, rsh = 0, rmv = 0, rmh = 0;
+        const double* pv = t.pv.data() + row;
+        const double* ph = t.ph.data() + row;
+        const double* ca = t.ca.data() + row;
+        const double* cb = t.cb.data() + row;
+        const double* cab = t.cab.data() + row;
+        const double* gtt = pg.gtt.data() + row;
+        const double* gpp = pg.gpp.data() + row;
+        const double* gtp = pg.gtp.data() + row;
+        double rsv = 0, rsh = 0;
         for (int j = 0; j < np; ++j) {
-            int jj = j + shift;
-            if (jj >= np) jj -= np;
-            const std::size_t k = row + std::size_t(j), q = row + std::size_t(jj);
-            const double a = t.alpha[q], b = t.beta[q];
-            const double rho2 = a * a + b * b;
-            const double gtt = pg.gtt[k], gpp = pg.gpp[k];
-            // |n.E|^2 / (1 - (n.u)^2); on the environment's axis itself keep the sample's own basis.
-            const double gv = rho2 > 1e-24 ? (a * a * gtt + b * b * gpp + 2 * a * b * pg.gtp[k]) / rho2 : gtt;
-            const double gh = gtt + gpp - gv;
-            const double w = wp[std::size_t(j)];
-            const double pv = t.pv[q] * w, ph = t.ph[q] * w;
-            rsv += pv;
-            rsh += ph;
-            rmv += pv * gv;
-            rmh += ph * gh;
+            rsv += pv[j] * wp[std::size_t(j)];
+            rsh += ph[j] * wp[std::size_t(j)];
         }
         const double wr = wt[std::size_t(i)];
         sv += rsv * wr;
         sh += rsh * wr;
-        mv += rmv * wr;
-        mh += rmh * wr;
+        for (std::size_t m = 0; m < ns; ++m) {
+            const int shift = shifts[m];
+            double rmv = 0, rmh = 0;
+            // Two runs so the inner loop has no wrap test: columns [0, np - shift) read
+            // [shift, np), the rest read from column 0 on.
+            for (int run = 0; run < 2; ++run) {
+                const int j0 = run == 0 ? 0 : np - shift, j1 = run == 0 ? np - shift : np;
+                const int off = run == 0 ? shift : shift - np;
+                for (int j = j0; j < j1; ++j) {
+                    const int q = j + off;
+                    const double gv = ca[q] * gtt[j] + cb[q] * gpp[j] + cab[q] * gtp[j];
+                    const double gh = gtt[j] + gpp[j] - gv;
+                    const double w = wp[std::size_t(j)];
+                    rmv += pv[q] * w * gv;
+                    rmh += ph[q] * w * gh;
+                }
+            }
+            mv[m] += rmv * wr;
+            mh[m] += rmh * wr;
+        }
     }
     if ((w_v > 0 && !(sv > 0)) || (w_h > 0 && !(sh > 0)))
         return fail("the turned environment has no power at any sample of this grid (it is too narrow for the grid step)");
-    RotatedSums r;
-    r.meg_v = w_v > 0 ? w_v * mv / sv : 0.0;
-    r.meg_h = w_h > 0 ? w_h * std::max(0.0, mh) / sh : 0.0;
+    std::vector<RotatedSums> r(ns);
+    for (std::size_t m = 0; m < ns; ++m) {
+        r[m].meg_v = w_v > 0 ? w_v * mv[m] / sv : 0.0;
+        r[m].meg_h = w_h > 0 ? w_h * std::max(0.0, mh[m]) / sh : 0.0;
+    }
     return r;
 }
 
@@ -256,8 +297,9 @@ Result<MegFigures> mean_effective_gain_rotated(const FarFieldSet& s, std::size_t
     const PartialGains pg = partial_gains(s.frequencies[fi], scale->factor);
     UpTables t;
     build_up_tables(g, tr, e, apply_transposed(r, Vec3{0, 0, 1}), t);
-    auto sums = accumulate_rotated(g, w.theta, w.phi, t, pg, e.weight_vertical(), e.weight_horizontal(), 0);
-    if (!sums) return sums.error();
+    auto all = accumulate_rotated(g, w.theta, w.phi, t, pg, e.weight_vertical(), e.weight_horizontal(), {0});
+    if (!all) return all.error();
+    const RotatedSums* sums = &all->front();
     MegFigures m;
     m.assumption = scale->assumption;
     m.meg = sums->meg_v + sums->meg_h;
@@ -316,24 +358,32 @@ Result<OrientationFigures> orientation_robustness(const FarFieldSet& s, std::siz
     UpTables t;
     for (double tilt : tilts) {
         const double ta = tilt * deg;
-        const bool vertical_axis = std::abs(tilt) < 1e-12;
+        const bool vertical_axis = std::abs(tilt) < 1e-12 || std::abs(tilt - 180) < 1e-12;
         TiltRow row{tilt, 1e300, 0, -1e300};
         int count = 0;
-        if (exact_shift) build_up_tables(g, tr, e, Vec3{0, std::sin(ta), std::cos(ta)}, t);
-        for (double roll : rolls) {
-            if (vertical_axis && roll != 0) break;  // every roll is the same orientation up to azimuth
-            int shift = 0;
-            if (exact_shift) {
-                shift = int(std::lround(roll / g.phi.step_deg)) % g.phi.count;
-            } else {
+        // The rolls of this tilt (tilt 0 and 180 once: every roll is the same orientation up to azimuth).
+        std::vector<double> these = vertical_axis ? std::vector<double>{0.0} : rolls;
+        std::vector<RotatedSums> sums;
+        if (exact_shift) {
+            build_up_tables(g, tr, e, Vec3{0, std::sin(ta), std::cos(ta)}, t);
+            std::vector<int> shifts;
+            for (double roll : these) shifts.push_back(int(std::lround(roll / g.phi.step_deg)) % g.phi.count);
+            auto r = accumulate_rotated(g, w.theta, w.phi, t, pg, w_v, w_h, shifts);
+            if (!r) return r.error();
+            sums = std::move(*r);
+        } else {
+            for (double roll : these) {
                 const double ra = roll * deg;
                 // n = R^T z for R = R_x(tilt) R_z(roll)
                 build_up_tables(g, tr, e, Vec3{std::sin(ta) * std::sin(ra), std::sin(ta) * std::cos(ra), std::cos(ta)},
                                 t);
+                auto r = accumulate_rotated(g, w.theta, w.phi, t, pg, w_v, w_h, {0});
+                if (!r) return r.error();
+                sums.push_back(r->front());
             }
-            auto sums = accumulate_rotated(g, w.theta, w.phi, t, pg, w_v, w_h, shift);
-            if (!sums) return sums.error();
-            OrientationSample o{tilt, roll, sums->meg_v + sums->meg_h, sums->meg_v, sums->meg_h};
+        }
+        for (std::size_t m = 0; m < these.size(); ++m) {
+            OrientationSample o{tilt, these[m], sums[m].meg_v + sums[m].meg_h, sums[m].meg_v, sums[m].meg_h};
             out.samples.push_back(o);
             row.min = std::min(row.min, o.meg);
             row.max = std::max(row.max, o.meg);

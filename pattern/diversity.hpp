@@ -70,8 +70,8 @@ Result<MegFigures> mean_effective_gain_rotated(const FarFieldSet& s, std::size_t
 // The orientation set: the antenna is first turned by `roll` about its own z axis, then tilted by
 // `tilt` about the world's horizontal x axis: R = R_x(tilt) R_z(roll). The environments are
 // uniform in azimuth, so a turn about the world's vertical changes nothing and this set covers
-// every orientation with the antenna's axis up to tilt_max from vertical. Tilt 0 is counted once
-// (every roll gives the same MEG there).
+// every orientation with the antenna's axis up to tilt_max from vertical. Tilts 0 and 180 are counted
+// once (every roll gives the same MEG there).
 struct OrientationSweep {
     double tilt_step_deg = 15;
     double tilt_max_deg = 90;

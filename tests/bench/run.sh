@@ -13,3 +13,7 @@ echo "-- core kernels --"
 echo
 echo "-- exports (time per cut figure, SVG/PNG/PDF from one drawing path) --"
 "$B/tests/bench_export" || echo "bench_export failed"
+
+echo
+echo "-- diversity (MEG, orientation sweep, envelope correlation) --"
+"$B/tests/bench_diversity" || echo "bench_diversity failed"
