@@ -157,7 +157,9 @@ std::string peak_text(const CutPlot& p, const PlotCurve& c) {
 std::string beam_text(const PlotCurve& c) {
     if (!c.beam) return "";
     std::string s = "HPBW " + (c.beam->hpbw_deg ? angle_text(*c.beam->hpbw_deg, 1) : std::string("none"));
-    s += "   F/B " + (c.beam->front_to_back_db ? num(*c.beam->front_to_back_db, 1) + " dB" : std::string("n/a"));
+    // Beyond 60 dB a front-to-back ratio is a numerical null, not a measurable figure.
+    const auto& fb = c.beam->front_to_back_db;
+    s += "   F/B " + (!fb ? std::string("n/a") : *fb > 60 ? std::string("> 60 dB") : num(*fb, 1) + " dB");
     return s;
 }
 
@@ -208,6 +210,13 @@ void draw_legend(Pen& pen, const CutPlot& p, double x0, double y0, double x1, do
         for (auto& l : wrap(pen, "Dots and dashed line: the −3 dB (half-power) points of " +
                                      p.curves[std::size_t(p.marked_curve)].label + ".", wrap_w))
             lines.push_back(l);
+    if (p.style == PlotStyle::polar) {
+        const double top = plot_top_db(p), range = std::max(p.range_db, 1.0);
+        for (auto& l : wrap(pen, "Radius: " + p.value_label + ", " + num(top - range, 0) + " (centre) to " + num(top, 0) +
+                                     " (rim) " + p.value_unit + "; " + num(grid_step_db(range), 0) + " dB per ring.",
+                            wrap_w))
+            lines.push_back(l);
+    }
     for (const std::string& n : p.notes)
         for (auto& l : wrap(pen, n, wrap_w)) lines.push_back(l);
     // Put the small print at the bottom of the panel when there is room, else right below.
@@ -422,8 +431,7 @@ void draw_polar(Pen& pen, const CutPlot& p, double x0, double y0, double x1, dou
         pen.text("\u2190 " + p.negative_side, g.cx - r, yc, 0.0);
         pen.text(p.positive_side + " \u2192", g.cx + r, yc, 1.0);
     }
-    pen.text("radius: " + p.value_label + ", " + num(top - range, 0) + " (centre) to " + num(top, 0) + " " + p.value_unit,
-             g.cx, yc, 0.5);
+
 }
 
 // ------------------------------------------------------------------------------ rectangular ---

@@ -1,0 +1,90 @@
+// ellipsa report: one folder with index.html and report.md (same content), the figures table per
+// pattern and frequency, the principal cuts as SVG/PNG/CSV, and a comparison when several
+// patterns are given. The folder is built under a temporary name and renamed into place.
+#include <ctime>
+#include <iostream>
+#include <memory>
+#include <optional>
+
+#include "cli/commands.hpp"
+#include "cli/load.hpp"
+#include "cli/version.hpp"
+#include "exports/atomic_folder.hpp"
+#include "exports/report.hpp"
+
+namespace ellipsa::cli {
+
+namespace {
+
+using namespace ellipsa::exports;
+
+struct ReportArgs {
+    std::vector<std::string> files;
+    std::string out;
+    std::optional<double> frequency_hz;
+    std::string title = "Antenna pattern report";
+    std::string size = "1200x900";
+    double dpi = 150;
+    double range_db = 40;
+    bool force = false;
+    LoadOptions load;
+};
+
+int fail(int code, const std::string& msg) {
+    std::cerr << "ellipsa report: " << msg << "\n";
+    return code;
+}
+
+std::string first_line(const std::string& s) { return s.substr(0, s.find('\n')); }
+
+int run_report(const ReportArgs& a) {
+    auto size = parse_size(a.size, a.dpi);
+    if (!size) return fail(exit_usage, size.error().format());
+    ReportOptions o;
+    o.title = a.title;
+    o.frequency_hz = a.frequency_hz;
+    o.size = *size;
+    o.range_db = a.range_db;
+    o.generator = first_line(version_text());
+    {
+        std::time_t t = std::time(nullptr);
+        char buf[64];
+        std::strftime(buf, sizeof buf, "%Y-%m-%d %H:%M UTC", std::gmtime(&t));
+        o.generated_utc = buf;
+    }
+    o.snapshot_note = "3D views are not included: this build has no headless snapshot renderer.";
+
+    std::vector<ReportInput> inputs;
+    for (const std::string& f : a.files) {
+        auto s = load_pattern(f, a.load);
+        if (!s) return fail(exit_bad_input, s.error().format());
+        inputs.push_back({f, std::move(*s)});
+    }
+    auto files = build_report(inputs, o);
+    if (!files) return fail(exit_bad_input, files.error().format());
+    Status st = publish_folder(a.out, [&](const std::string& dir) { return write_report_files(dir, *files); }, a.force);
+    if (!st) return fail(exit_bad_input, st.error().format());
+    std::cout << "wrote " << a.out << "/index.html and report.md with " << files->size() - 2 << " figure and data files\n";
+    return exit_ok;
+}
+
+Registered add_report(CLI::App& root) {
+    auto a = std::make_shared<ReportArgs>();
+    CLI::App* sub = root.add_subcommand(
+        "report", "Write a report folder (index.html + report.md): figures, principal cuts, comparison");
+    sub->add_option("FILE", a->files, "Far-field CSV files (one or more)")->required();
+    sub->add_option("--out", a->out, "Output folder (created; replaced only with --force)")->required();
+    sub->add_option("--frequency", a->frequency_hz, "Only this frequency, Hz (nearest within 0.5 %; default all)");
+    sub->add_option("--title", a->title, "Report title");
+    sub->add_option("--size", a->size, "Cut figure size WIDTHxHEIGHT in pixels (default 1200x900)");
+    sub->add_option("--dpi", a->dpi, "Dots per inch of the figures (default 150)");
+    sub->add_option("--range", a->range_db, "Dynamic range of the cut plots, dB (default 40)")->check(CLI::Range(3.0, 200.0));
+    sub->add_flag("--force", a->force, "Replace the output folder if it exists");
+    add_load_options(sub, a->load);
+    return {sub, [a]() -> int { return run_report(*a); }};
+}
+const CommandRegistration registration(80, add_report);
+
+}  // namespace
+
+}  // namespace ellipsa::cli

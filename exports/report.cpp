@@ -1,0 +1,381 @@
+#include "exports/report.hpp"
+
+#include <cctype>
+#include <cmath>
+#include <cstdio>
+
+#include "exports/cut_figure.hpp"
+#include "exports/document.hpp"
+#include "importers/atomic_write.hpp"
+#include "pattern/cut.hpp"
+#include "pattern/integrate.hpp"
+
+namespace ellipsa::exports {
+
+std::vector<Component> report_components(const FarFieldSet& s, const PatternSummary& r) {
+    if (s.content == FieldContent::total_only) return {Component::total};
+    if (s.has_phase() && r.sense && (*r.sense == Sense::right || *r.sense == Sense::left) && r.axial_ratio_db &&
+        *r.axial_ratio_db <= 6.0)
+        return {Component::total, Component::rhcp, Component::lhcp};
+    return {Component::total, Component::theta, Component::phi};
+}
+
+namespace {
+
+std::string fixed(double v, int decimals) {
+    if (std::abs(v) < 0.5 * std::pow(10.0, -decimals)) v = 0;
+    char b[48];
+    std::snprintf(b, sizeof b, "%.*f", decimals, v);
+    return b;
+}
+std::string opt(const std::optional<double>& v, int decimals, const std::string& unit, const std::string& missing) {
+    return v ? fixed(*v, decimals) + unit : missing;
+}
+
+std::string slug(const std::string& s) {
+    std::string o;
+    for (unsigned char c : s) {
+        if (std::isalnum(c))
+            o += char(std::tolower(c));
+        else if (!o.empty() && o.back() != '-')
+            o += '-';
+        if (o.size() >= 32) break;
+    }
+    while (!o.empty() && o.back() == '-') o.pop_back();
+    return o.empty() ? "pattern" : o;
+}
+std::string basename_of(const std::string& p) {
+    const std::size_t s = p.rfind('/');
+    std::string b = s == std::string::npos ? p : p.substr(s + 1);
+    const std::size_t dot = b.rfind('.');
+    return dot == std::string::npos || dot == 0 ? b : b.substr(0, dot);
+}
+std::string freq_tag(double hz, std::size_t fi) {
+    if (!(hz > 0)) return "f" + std::to_string(fi + 1);
+    char b[48];
+    std::snprintf(b, sizeof b, "%gMHz", std::round(hz / 1e3) / 1e3);
+    return b;
+}
+std::string display_name(const ReportInput& in) { return in.set.name.empty() ? basename_of(in.path) : in.set.name; }
+
+const char* quantity_word(Quantity q) {
+    switch (q) {
+        case Quantity::gain: return "Peak gain";
+        case Quantity::directivity: return "Peak directivity";
+        case Quantity::relative: return "Peak (relative)";
+    }
+    return "Peak";
+}
+std::string unit_of(const FarFieldSet& s) { return s.quantity == Quantity::relative ? " dB" : " dBi"; }
+
+// One figures column: label -> value, in a fixed row order.
+std::vector<std::pair<std::string, std::string>> figure_rows(const FarFieldSet& s, std::size_t fi, const PatternSummary& r,
+                                                            const ReportOptions& o) {
+    std::vector<std::pair<std::string, std::string>> v;
+    const std::string u = unit_of(s);
+    v.emplace_back(std::string(quantity_word(s.quantity)) + (s.quantity == Quantity::relative ? " (dB)" : " (dBi)"),
+                   fixed(r.peak_db, 2));
+    v.emplace_back("Peak direction", "θ " + fixed(r.peak.theta_deg, 1) + "°, φ " + fixed(r.peak.phi_deg, 1) + "°");
+    std::string d;
+    if (r.directivity_dbi)
+        d = fixed(*r.directivity_dbi, 2);
+    else if (r.power.directivity_sampled_only)
+        d = "unavailable (partial sphere; " + fixed(to_db(*r.power.directivity_sampled_only), 2) +
+            " if nothing radiates outside the sampled region)";
+    else
+        d = "unavailable";
+    v.emplace_back("Directivity (dBi)", d);
+    v.emplace_back("Radiation efficiency (%)",
+                   r.power.radiation_efficiency ? fixed(100 * *r.power.radiation_efficiency, 1)
+                   : s.quantity == Quantity::gain ? std::string("unavailable (partial sphere)")
+                                                  : std::string("unavailable (needs absolute gain data)"));
+    v.emplace_back("HPBW, elevation plane through the peak (°)", opt(r.hpbw_elevation_deg, 1, "", "none (no half-power points)"));
+    v.emplace_back("HPBW, azimuth-like plane through the peak (°)",
+                   opt(r.hpbw_azimuth_deg, 1, "", "none (no half-power points: omnidirectional)"));
+    // Beyond 60 dB the back direction is a numerical null, not a measurable figure.
+    v.emplace_back("Front-to-back (dB)", !r.front_to_back_db        ? std::string("unavailable (back outside the data, or zero)")
+                                         : *r.front_to_back_db > 60 ? std::string("> 60")
+                                                                    : fixed(*r.front_to_back_db, 2));
+    std::string ar;
+    if (!r.sense)
+        ar = "unavailable (no phase in the data)";
+    else if (*r.sense == Sense::linear)
+        ar = "linear (infinite)";
+    else if (*r.sense == Sense::none)
+        ar = "zero field";
+    else
+        ar = opt(r.axial_ratio_db, 2, "", "?") + (*r.sense == Sense::right ? " (right-hand)" : " (left-hand)");
+    v.emplace_back("Axial ratio at the peak (dB)", ar);
+    if (o.extra_figures)
+        for (const ExtraFigure& e : o.extra_figures(s, fi)) v.emplace_back(e.label, e.value);
+    (void)u;
+    return v;
+}
+
+struct CutDef {
+    std::string tag;      // file name part
+    std::string caption;  // figure caption
+    CutSpec spec;
+};
+
+std::vector<CutDef> principal_cuts(const PatternSummary& r, std::string* peak_note) {
+    std::vector<CutDef> v{{"phi0", "Elevation cut φ = 0° (xz-plane)", CutSpec::phi_cut(0)},
+                          {"phi90", "Elevation cut φ = 90° (yz-plane)", CutSpec::phi_cut(90)},
+                          {"theta90", "Azimuth cut θ = 90° (xy-plane)", CutSpec::theta_cut(90)}};
+    const double pp = std::round(wrap360(r.peak.phi_deg) * 10) / 10;
+    // The phi-cut planes phi and phi + 180 are the same cut.
+    const double plane = std::fmod(pp, 180.0);
+    if (std::abs(plane) < 0.05 || std::abs(plane - 180) < 0.05)
+        *peak_note = "The peak lies in the φ = 0° plane: its elevation cut is the φ = 0° cut.";
+    else if (std::abs(plane - 90) < 0.05)
+        *peak_note = "The peak lies in the φ = 90° plane: its elevation cut is the φ = 90° cut.";
+    else {
+        char c[96];
+        std::snprintf(c, sizeof c, "Elevation cut through the peak, φ = %g°", pp);
+        v.push_back({"peak", c, CutSpec::phi_cut(pp)});
+    }
+    return v;
+}
+
+struct Renderer {
+    const ReportOptions& o;
+    std::vector<ReportFile>& files;
+
+    Status figure(const CutPlot& plot, const std::string& base, DocFigure& f) {
+        for (FileFormat fmt : {FileFormat::svg, FileFormat::png}) {
+            auto img = render_image([&](cairo_t* cr, double w, double h) { draw_cut_plot(cr, plot, w, h); }, fmt, o.size,
+                                    plot.title);
+            if (!img) return img.error();
+            const std::string name = base + "." + to_string(fmt);
+            files.push_back({name, std::move(*img)});
+            (fmt == FileFormat::svg ? f.vector_file : f.raster_file) = name;
+        }
+        return Ok{};
+    }
+};
+
+std::string components_text(const std::vector<Component>& comps, Ludwig3Reference ref) {
+    std::string s;
+    for (std::size_t i = 0; i < comps.size(); ++i)
+        s += (i == 0 ? "" : i + 1 == comps.size() ? " and " : ", ") + component_label(comps[i], ref);
+    return s;
+}
+
+}  // namespace
+
+Result<std::vector<ReportFile>> build_report(const std::vector<ReportInput>& inputs, const ReportOptions& o) {
+    std::vector<ReportFile> files;
+    Renderer rd{o, files};
+    Document doc;
+    doc.title = o.title;
+    if (inputs.empty()) return Error{"", 0, 0, "no pattern to report on"};
+
+    // Frequencies per pattern.
+    std::vector<std::vector<std::size_t>> freqs(inputs.size());
+    for (std::size_t i = 0; i < inputs.size(); ++i) {
+        const FarFieldSet& s = inputs[i].set;
+        if (s.frequencies.empty()) return Error{inputs[i].path, 0, 0, "holds no frequency"};
+        if (o.frequency_hz) {
+            const std::size_t k = s.nearest_frequency(*o.frequency_hz);
+            if (std::abs(s.frequencies[k].frequency_hz - *o.frequency_hz) > 0.005 * std::abs(*o.frequency_hz)) {
+                std::string list;
+                for (const auto& f : s.frequencies) list += (list.empty() ? "" : ", ") + frequency_text(f.frequency_hz);
+                return Error{inputs[i].path, 0, 0, "has no data at " + frequency_text(*o.frequency_hz) + "; it holds " + list};
+            }
+            freqs[i].push_back(k);
+        } else {
+            for (std::size_t k = 0; k < s.frequencies.size(); ++k) freqs[i].push_back(k);
+        }
+    }
+
+    std::string intro = "Generated by " + o.generator;
+    if (!o.generated_utc.empty()) intro += " on " + o.generated_utc;
+    intro += " from " + std::to_string(inputs.size()) + (inputs.size() == 1 ? " pattern file." : " pattern files.");
+    doc.paragraph(intro);
+    {
+        DocTable t;
+        t.header = {"", "Pattern", "File", "Frequencies"};
+        t.numeric = {false, false, false, false};
+        for (std::size_t i = 0; i < inputs.size(); ++i) {
+            std::string fl;
+            for (std::size_t k : freqs[i]) fl += (fl.empty() ? "" : ", ") + frequency_text(inputs[i].set.frequencies[k].frequency_hz);
+            t.rows.push_back({std::string(1, char('A' + i % 26)) + (i >= 26 ? std::to_string(i / 26) : ""), display_name(inputs[i]),
+                              inputs[i].path, fl});
+        }
+        doc.table(t);
+    }
+
+    std::vector<std::vector<PatternSummary>> summaries(inputs.size());
+    for (std::size_t i = 0; i < inputs.size(); ++i) {
+        const ReportInput& in = inputs[i];
+        const FarFieldSet& s = in.set;
+        const std::string base = "p" + std::to_string(i + 1) + "-" + slug(display_name(in));
+        doc.heading(2, std::string(1, char('A' + i % 26)) + ". " + display_name(in), base);
+        std::string about = "File " + in.path + ". ";
+        if (!s.source.empty() && s.source != in.path) about += "Source: " + s.source + ". ";
+        char grid[240];
+        std::snprintf(grid, sizeof grid,
+                      "Quantity %s, %s data; grid θ %g..%g° step %g°, φ %g..%g° step %g°; %.1f %% of the sphere sampled.",
+                      to_string(s.quantity), to_string(s.content), s.grid.theta.start_deg, s.grid.theta.last_deg(),
+                      s.grid.theta.step_deg, s.grid.phi.start_deg, s.grid.phi.last_deg(), s.grid.phi.step_deg,
+                      100 * coverage(s.grid));
+        about += grid;
+        doc.paragraph(about);
+        if (!s.note.empty()) doc.note(s.note);
+
+        for (std::size_t fi : freqs[i]) summaries[i].push_back(summarize(s, fi));
+        // Figures table: one column per frequency.
+        DocTable t;
+        t.header = {"Figure"};
+        for (std::size_t fi : freqs[i]) t.header.push_back(frequency_text(s.frequencies[fi].frequency_hz));
+        std::vector<std::vector<std::pair<std::string, std::string>>> cols;
+        for (std::size_t j = 0; j < freqs[i].size(); ++j) cols.push_back(figure_rows(s, freqs[i][j], summaries[i][j], o));
+        for (std::size_t r = 0; r < cols[0].size(); ++r) {
+            std::vector<std::string> row{cols[0][r].first};
+            for (auto& c : cols) row.push_back(r < c.size() ? c[r].second : "");
+            t.rows.push_back(row);
+        }
+        doc.heading(3, "Figures");
+        doc.table(t);
+        if (!summaries[i].empty() && !summaries[i][0].unavailable_reason.empty()) doc.note(summaries[i][0].unavailable_reason);
+
+        for (std::size_t j = 0; j < freqs[i].size(); ++j) {
+            const std::size_t fi = freqs[i][j];
+            const PatternSummary& r = summaries[i][j];
+            const std::string fbase = base + "-" + freq_tag(s.frequencies[fi].frequency_hz, fi);
+            doc.heading(3, "Cuts at " + frequency_text(s.frequencies[fi].frequency_hz));
+            const std::vector<Component> comps = report_components(s, r);
+            std::string peak_note;
+            std::vector<DocFigure> figs;
+            for (const CutDef& cd : principal_cuts(r, &peak_note)) {
+                auto cut = compute_cut(s, fi, cd.spec, comps);
+                if (!cut) {
+                    doc.note(cd.caption + ": " + cut.error().message);
+                    continue;
+                }
+                FigureOptions fo;
+                fo.range_db = o.range_db;
+                fo.title = display_name(in);
+                const CutPlot plot = make_cut_plot(s, *cut, fo);
+                DocFigure f;
+                f.caption = cd.caption + ", " + frequency_text(s.frequencies[fi].frequency_hz);
+                f.alt = f.caption + " of " + display_name(in);
+                Status st = rd.figure(plot, fbase + "-" + cd.tag, f);
+                if (!st) return st.error();
+                files.push_back({fbase + "-" + cd.tag + ".csv", cut_csv(s, *cut)});
+                figs.push_back(f);
+            }
+            if (o.snapshot) {
+                auto png = o.snapshot(s, fi);
+                if (png) {
+                    DocFigure f;
+                    f.caption = "3D view of the total pattern, " + frequency_text(s.frequencies[fi].frequency_hz);
+                    f.raster_file = fbase + "-3d.png";
+                    files.push_back({f.raster_file, std::move(*png)});
+                    figs.push_back(f);
+                } else {
+                    doc.note("3D view unavailable: " + png.error().message);
+                }
+            }
+            doc.figures(figs);
+            doc.note("Curves: " + components_text(comps, s.ludwig3_reference) +
+                     (comps.size() > 1 && comps[1] == Component::rhcp
+                          ? " (the peak is circularly polarised: axial ratio up to 6 dB)."
+                          : comps.size() > 1 ? " (θ and φ are the vertical and horizontal parts for an antenna with +z up)." : ".") +
+                     (peak_note.empty() ? "" : " " + peak_note) + " Each cut's plotted values are in the CSV file beside its image.");
+        }
+    }
+    if (!o.snapshot && !o.snapshot_note.empty()) doc.note(o.snapshot_note);
+
+    // Comparison.
+    if (inputs.size() > 1) {
+        doc.heading(2, "Comparison", "comparison");
+        // The frequency: the asked-for one, or for each pattern the one nearest the first pattern's first.
+        const double f0 = o.frequency_hz ? *o.frequency_hz : inputs[0].set.frequencies[freqs[0][0]].frequency_hz;
+        std::vector<std::size_t> cfi(inputs.size());
+        std::vector<PatternSummary> cs;
+        bool same_f = true;
+        for (std::size_t i = 0; i < inputs.size(); ++i) {
+            cfi[i] = inputs[i].set.nearest_frequency(f0);
+            cs.push_back(summarize(inputs[i].set, cfi[i]));
+            if (std::abs(inputs[i].set.frequencies[cfi[i]].frequency_hz - f0) > 0.005 * std::abs(f0)) same_f = false;
+        }
+        doc.paragraph(same_f ? "All patterns at " + frequency_text(f0) + "."
+                             : "The patterns hold different frequencies; each is taken at its frequency nearest " +
+                                   frequency_text(f0) + " (see the table header).");
+        DocTable t;
+        t.header = {"Figure"};
+        std::vector<std::vector<std::pair<std::string, std::string>>> cols;
+        for (std::size_t i = 0; i < inputs.size(); ++i) {
+            t.header.push_back(std::string(1, char('A' + i % 26)) + ". " + display_name(inputs[i]) + " (" +
+                               frequency_text(inputs[i].set.frequencies[cfi[i]].frequency_hz) + ")");
+            cols.push_back(figure_rows(inputs[i].set, cfi[i], cs[i], o));
+        }
+        for (std::size_t r = 0; r < cols[0].size(); ++r) {
+            std::vector<std::string> row{cols[0][r].first};
+            for (auto& c : cols) row.push_back(r < c.size() ? c[r].second : "");
+            t.rows.push_back(row);
+        }
+        doc.table(t);
+        std::vector<DocFigure> figs;
+        std::string dummy;
+        for (const CutDef& cd : principal_cuts(cs[0], &dummy)) {
+            if (cd.tag == "peak") continue;  // peaks differ between patterns
+            CutPlot plot;
+            bool first = true;
+            for (std::size_t i = 0; i < inputs.size(); ++i) {
+                auto cut = compute_cut(inputs[i].set, cfi[i], cd.spec, {Component::total});
+                if (!cut) continue;
+                const std::string prefix = std::string(1, char('A' + i % 26)) + ". " + display_name(inputs[i]) + " ";
+                if (first) {
+                    FigureOptions fo;
+                    fo.range_db = o.range_db;
+                    fo.title = "Comparison, total power";
+                    plot = make_cut_plot(inputs[i].set, *cut, fo);
+                    plot.curves.clear();
+                    plot.notes.clear();
+                    plot.notes.push_back("F/B: peak against the point 180° further round this cut.");
+                    if (!same_f) plot.subtitle = describe_cut(cd.spec) + "  ·  " + plot.value_label + " (" + plot.value_unit + ")";
+                    first = false;
+                }
+                add_curves(plot, inputs[i].set, *cut, prefix);
+                plot.curves.back().label = std::string(1, char('A' + i % 26)) + ". " + display_name(inputs[i]);
+                if (!same_f) plot.curves.back().label += " (" + frequency_text(inputs[i].set.frequencies[cfi[i]].frequency_hz) + ")";
+            }
+            if (first) continue;
+            plot.marked_curve = -1;
+            DocFigure f;
+            f.caption = "Comparison: " + cd.caption + ", total power";
+            Status st = rd.figure(plot, "compare-" + cd.tag, f);
+            if (!st) return st.error();
+            figs.push_back(f);
+        }
+        doc.figures(figs);
+    }
+
+    doc.heading(2, "Method", "method");
+    doc.paragraph("Directions: θ from +z, φ from +x toward +y. Elevation cuts run θ from −180° to 180° in the plane φ "
+                  "(negative θ is the half-plane φ + 180°); the azimuth cut runs φ round the horizon θ = 90°.");
+    doc.paragraph("HPBW: the width between the two −3.01 dB crossings around the peak of a cut, interpolated between "
+                  "samples. Front-to-back: the peak against the opposite direction (θ → 180° − θ, φ → φ + 180°) in the "
+                  "figures table, and against the point 180° further round the cut in the figure legends.");
+    doc.paragraph("Directivity = 4π U_max / P with P integrated over the sphere; radiation efficiency = P / 4π from "
+                  "absolute gain data. Both need the full sphere. Axial ratio and sense follow IEEE Std 145-2013 "
+                  "(exp(+jωt), right-hand when the field turns clockwise looking along the direction of propagation).");
+    for (const std::string& n : o.method_notes) doc.paragraph(n);
+    doc.note("Curve colours: Okabe–Ito palette, with a different dash for each curve so the figures also read in grey.");
+
+    files.push_back({"index.html", to_html(doc)});
+    files.push_back({"report.md", to_markdown(doc)});
+    return files;
+}
+
+Status write_report_files(const std::string& dir, const std::vector<ReportFile>& files) {
+    for (const ReportFile& f : files) {
+        Status st = write_file_atomically(dir + "/" + f.name, f.bytes, true);
+        if (!st) return st;
+    }
+    return Ok{};
+}
+
+}  // namespace ellipsa::exports

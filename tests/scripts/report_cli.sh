@@ -1,0 +1,73 @@
+#!/usr/bin/env bash
+# ellipsa report end to end: the folder holds a well-formed, self-contained index.html and a
+# report.md whose images all exist; SVG figures are well-formed; an existing folder is kept
+# without --force and replaced with it; failed writes (file in the way, read-only parent as a
+# non-root user) exit 1 and leave the existing folder untouched, with no temporary folder left.
+# Usage: report_cli.sh ELLIPSA WORKDIR
+set -uo pipefail
+E=$1; W=$2; rm -rf "$W"; mkdir -p "$W"; chmod 755 "$W"; cd "$W"
+pass=0; fail=0
+ok() { echo "ok   $1"; pass=$((pass+1)); }
+bad() { echo "FAIL $1"; fail=$((fail+1)); }
+expect_rc() {  # WANT LABEL CMD...
+  local want=$1 label=$2; shift 2
+  "$@" >out.txt 2>err.txt; local rc=$?
+  if [[ $rc == "$want" ]]; then ok "$label (exit $rc)"; else bad "$label: exit $rc, expected $want; stderr: $(head -c 300 err.txt)"; fi
+}
+OPTS=(--size 480x360 --dpi 60)
+expect_rc 0 "synth dipole" "$E" synth dipole --length 1 --step 3 --name "Full-wave dipole" --out a.csv
+expect_rc 0 "synth turnstile" "$E" synth crossed-dipoles --step 3 --rotate-x 35 --rotate-z 30 --name "Turnstile" --out b.csv
+chmod 644 a.csv b.csv
+expect_rc 0 "report on two patterns" "$E" report a.csv b.csv --out rep "${OPTS[@]}"
+[[ -f rep/index.html && -f rep/report.md ]] && ok "index.html and report.md written" || bad "missing index.html/report.md"
+xmllint --noout rep/index.html 2>err.txt && ok "index.html is well-formed (xmllint)" || bad "index.html: $(head -c 300 err.txt)"
+grep -qi 'http\|<script\|@import\|url(' rep/index.html && bad "index.html refers to something outside the folder" || ok "index.html has no network resources"
+missing=0
+for f in $(grep -o '\(src\|href\)="[^"]*"' rep/index.html | sed 's/.*="\(.*\)"/\1/'); do [[ -f rep/$f ]] || { missing=1; echo "  missing $f"; }; done
+for f in $(grep -o '](\([^)]*\))' rep/report.md | sed 's/](\(.*\))/\1/'); do [[ -f rep/$f ]] || { missing=1; echo "  missing $f"; }; done
+[[ $missing == 0 ]] && ok "every referenced image and file exists in the folder" || bad "references to missing files"
+nsvg=$(ls rep/*.svg | wc -l); bad_svg=0
+for f in rep/*.svg; do xmllint --noout "$f" 2>/dev/null || bad_svg=1; done
+[[ $bad_svg == 0 && $nsvg -ge 9 ]] && ok "$nsvg SVG figures, all well-formed" || bad "SVG figures: $nsvg, malformed: $bad_svg"
+ls rep/ | grep -q -- '-peak\.svg$' && ok "cut through an off-plane peak included" || bad "no peak cut: $(ls rep)"
+ls rep/ | grep -q '^compare-phi0\.svg$' && ok "comparison figures written" || bad "no comparison figures"
+# Handbook figure in both documents: full-wave dipole D = 3.82 dBi, HPBW 47.8 deg (Balanis sec. 4.5, Table 4.2).
+for d in index.html report.md; do
+  grep -q '3\.8[12]' rep/$d && grep -q '47\.[6-9]' rep/$d && ok "$d carries the full-wave dipole's 3.82 dBi and 47.8 deg" || bad "$d lacks the dipole figures"
+done
+# The same rows in both documents.
+rows_md=$(grep '^| ' rep/report.md | grep -vc -- '^| ---'); rows_html=$(grep -c '<tr>' rep/index.html)
+[[ $rows_md == "$rows_html" ]] && ok "same number of table rows in HTML and Markdown ($rows_md)" || bad "table rows: md $rows_md, html $rows_html"
+
+# Existing folder kept without --force, replaced with it, nothing left behind.
+echo marker > rep/marker.txt
+expect_rc 1 "existing folder without --force" "$E" report a.csv --out rep "${OPTS[@]}"
+grep -q 'use --force' err.txt && ok "message says to use --force" || bad "message: $(cat err.txt)"
+[[ -f rep/marker.txt && -f rep/compare-phi0.svg ]] && ok "existing folder untouched" || bad "existing folder changed"
+expect_rc 0 "--force replaces the folder" "$E" report a.csv --out rep --force "${OPTS[@]}"
+[[ ! -f rep/marker.txt && ! -f rep/compare-phi0.svg && -f rep/index.html ]] && ok "folder replaced as a whole" || bad "old content left in the folder"
+[[ $(ls -d rep* | wc -l) == 1 ]] && ok "no temporary or old folder left beside it" || bad "left: $(ls -d rep*)"
+
+# A regular file where the folder's parent should be.
+echo keep > plain
+expect_rc 1 "output under a regular file fails" "$E" report a.csv --out plain/rep "${OPTS[@]}"
+[[ $(cat plain) == keep ]] && ok "the file in the way is untouched" || bad "plain changed"
+
+# Read-only parent folder holding an existing report: as user nobody when running as root
+# (root ignores permission bits).
+mkdir -p ro && cp -r rep ro/rep && chmod -R a+rX ro && chmod 555 ro
+run_unprivileged() { if [[ $(id -u) == 0 ]]; then setpriv --reuid=65534 --regid=65534 --clear-groups "$@"; else "$@"; fi; }
+before=$(cd ro/rep && sha256sum * | sha256sum)
+run_unprivileged "$E" report a.csv --out ro/rep --force "${OPTS[@]}" >out.txt 2>err.txt; rc=$?
+[[ $rc == 1 ]] && ok "report into a read-only folder exits 1: $(head -1 err.txt)" || bad "read-only: exit $rc; $(cat err.txt)"
+after=$(cd ro/rep && sha256sum * | sha256sum)
+[[ $before == "$after" ]] && ok "existing report in the read-only folder untouched" || bad "ro/rep changed"
+[[ $(ls ro | wc -l) == 1 ]] && ok "no temporary folder left in the read-only folder" || bad "left: $(ls ro)"
+chmod 755 ro
+
+expect_rc 2 "no output folder is bad usage" "$E" report a.csv
+expect_rc 1 "missing input is bad input" "$E" report a.csv nope.csv --out rep2
+[[ ! -e rep2 ]] && ok "nothing created when an input is missing" || bad "rep2 created"
+expect_rc 0 "report --help" "$E" report --help
+echo "$pass passed, $fail failed"
+[[ $fail == 0 ]]
