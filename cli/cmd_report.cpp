@@ -1,6 +1,7 @@
 // ellipsa report: one folder with index.html and report.md (same content), the figures table per
 // pattern and frequency, the principal cuts as SVG/PNG/CSV, and a comparison when several
 // patterns are given. The folder is built under a temporary name and renamed into place.
+#include <cmath>
 #include <ctime>
 #include <iostream>
 #include <memory>
@@ -11,6 +12,7 @@
 #include "cli/version.hpp"
 #include "exports/atomic_folder.hpp"
 #include "exports/report.hpp"
+#include "pattern/environment.hpp"
 
 namespace ellipsa::cli {
 
@@ -26,6 +28,8 @@ struct ReportArgs {
     std::string size = "1200x900";
     double dpi = 150;
     double range_db = 40;
+    std::string environment = "uniform";
+    std::optional<double> xpr_db;
     bool force = false;
     LoadOptions load;
 };
@@ -51,6 +55,17 @@ int run_report(const ReportArgs& a) {
         char buf[64];
         std::strftime(buf, sizeof buf, "%Y-%m-%d %H:%M UTC", std::gmtime(&t));
         o.generated_utc = buf;
+    }
+    {
+        auto env = environment_preset(a.environment);
+        if (!env) return fail(exit_usage, "--environment: " + env.error().message);
+        if (a.xpr_db) {
+            env->xpr_db = *a.xpr_db;
+            env->name += ", XPR " + std::to_string(int(std::lround(*a.xpr_db))) + " dB";
+        }
+        Status valid = validate(*env);
+        if (!valid) return fail(exit_usage, "environment: " + valid.error().message);
+        o.environment = *env;
     }
     o.snapshot_note = "3D views are not included: this build has no headless snapshot renderer.";
 
@@ -79,6 +94,10 @@ Registered add_report(CLI::App& root) {
     sub->add_option("--size", a->size, "Cut figure size WIDTHxHEIGHT in pixels (default 1200x900)");
     sub->add_option("--dpi", a->dpi, "Dots per inch of the figures (default 150)");
     sub->add_option("--range", a->range_db, "Dynamic range of the cut plots, dB (default 40)")->check(CLI::Range(3.0, 200.0));
+    sub->add_option("--environment", a->environment,
+                    "Multipath environment for the MEG row: uniform (default), indoor, urban or rural "
+                    "(see `ellipsa diversity` for custom ones)");
+    sub->add_option("--xpr", a->xpr_db, "Override the environment's vertical-to-horizontal power ratio, dB");
     sub->add_flag("--force", a->force, "Replace the output folder if it exists");
     add_load_options(sub, a->load);
     return {sub, [a]() -> int { return run_report(*a); }};

@@ -8,6 +8,7 @@
 #include "exports/document.hpp"
 #include "importers/atomic_write.hpp"
 #include "pattern/cut.hpp"
+#include "pattern/diversity.hpp"
 #include "pattern/integrate.hpp"
 
 namespace ellipsa::exports {
@@ -106,6 +107,19 @@ std::vector<std::pair<std::string, std::string>> figure_rows(const FarFieldSet& 
     else
         ar = opt(r.axial_ratio_db, 2, "", "?") + (*r.sense == Sense::right ? " (right-hand)" : " (left-hand)");
     v.emplace_back("Axial ratio at the peak (dB)", ar);
+    if (o.environment) {
+        auto m = mean_effective_gain(s, fi, *o.environment);
+        std::string val;
+        if (!m)
+            val = "unavailable (" + m.error().message + ")";
+        else {
+            val = fixed(to_db(m->meg), 2);
+            if (!m->assumption.empty()) val += " (" + m->assumption + ")";
+            if (m->sampled_share < 1 - 1e-9)
+                val += " (counts only the " + fixed(100 * m->sampled_share, 1) + " % of incoming power that arrives inside the data)";
+        }
+        v.emplace_back("MEG, " + o.environment->name + " environment (dB)", val);
+    }
     if (o.extra_figures)
         for (const ExtraFigure& e : o.extra_figures(s, fi)) v.emplace_back(e.label, e.value);
     (void)u;
@@ -362,6 +376,10 @@ Result<std::vector<ReportFile>> build_report(const std::vector<ReportInput>& inp
     doc.paragraph("Directivity = 4π U_max / P with P integrated over the sphere; radiation efficiency = P / 4π from "
                   "absolute gain data. Both need the full sphere. Axial ratio and sense follow IEEE Std 145-2013 "
                   "(exp(+jωt), right-hand when the field turns clockwise looking along the direction of propagation).");
+    if (o.environment)
+        doc.paragraph("MEG: mean effective gain after T. Taga (IEEE Trans. VT-39, 1990), the integral of "
+                      "[XPR/(1+XPR) G_θ P_θ + 1/(1+XPR) G_φ P_φ] over the sphere, antenna +z up, in the environment " +
+                      describe(*o.environment) + ". Parameters: " + o.environment->source + ".");
     for (const std::string& n : o.method_notes) doc.paragraph(n);
     doc.note("Curve colours: Okabe–Ito palette, with a different dash for each curve so the figures also read in grey.");
 

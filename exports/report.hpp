@@ -6,6 +6,7 @@
 //
 // The library knows no viewer and no GL: 3D snapshots and extra figure rows (MEG, which needs a
 // multipath environment) come in through callbacks, so the report builds and tests anywhere.
+// MEG comes from pattern/diversity.hpp for the environment in the options.
 #pragma once
 #include <functional>
 #include <optional>
@@ -13,6 +14,7 @@
 #include <vector>
 
 #include "exports/render.hpp"
+#include "pattern/environment.hpp"
 #include "pattern/far_field.hpp"
 #include "pattern/result.hpp"
 #include "pattern/summary.hpp"
@@ -43,7 +45,8 @@ struct ReportOptions {
     std::string generated_utc;           // date line; empty leaves it out (reproducible output)
     SnapshotFn snapshot;                 // empty: no 3D view (snapshot_note says why)
     std::string snapshot_note;
-    ExtraFiguresFn extra_figures;        // e.g. MEG for a chosen environment
+    std::optional<Environment> environment;  // MEG row (Taga 1990) in this environment; none: no MEG row
+    ExtraFiguresFn extra_figures;        // further rows, appended after MEG
     std::vector<std::string> method_notes;  // extra lines for the method section
 };
 

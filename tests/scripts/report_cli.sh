@@ -65,6 +65,10 @@ after=$(cd ro/rep && sha256sum * | sha256sum)
 [[ $(ls ro | wc -l) == 1 ]] && ok "no temporary folder left in the read-only folder" || bad "left: $(ls ro)"
 chmod 755 ro
 
+expect_rc 2 "unknown environment is bad usage" "$E" report a.csv --out rep3 --environment moon
+[[ ! -e rep3 ]] && ok "nothing created on a usage error" || bad "rep3 created"
+expect_rc 0 "report with the urban environment" "$E" report a.csv --out rep3 --environment urban "${OPTS[@]}"
+grep -q 'MEG, urban environment' rep3/report.md && ok "MEG row names the environment" || bad "no MEG row"
 expect_rc 2 "no output folder is bad usage" "$E" report a.csv
 expect_rc 1 "missing input is bad input" "$E" report a.csv nope.csv --out rep2
 [[ ! -e rep2 ]] && ok "nothing created when an input is missing" || bad "rep2 created"

@@ -12,6 +12,7 @@
 #include "exports/atomic_folder.hpp"
 #include "exports/report.hpp"
 #include "importers/atomic_write.hpp"
+#include "pattern/environment.hpp"
 #include "pattern/reference.hpp"
 
 using namespace ellipsa;
@@ -43,6 +44,12 @@ std::string read_file(const fs::path& p) {
     return std::string((std::istreambuf_iterator<char>(in)), std::istreambuf_iterator<char>());
 }
 
+std::size_t count_of(const std::string& hay, const std::string& needle) {
+    std::size_t n = 0;
+    for (std::size_t p = hay.find(needle); p != std::string::npos; p = hay.find(needle, p + 1)) ++n;
+    return n;
+}
+
 fs::path scratch(const std::string& name) {
     fs::path p = fs::temp_directory_path() / ("ellipsa-test-" + name + "-" + std::to_string(::getpid()));
     fs::remove_all(p);
@@ -57,6 +64,7 @@ TEST_CASE("report: files, self-contained HTML, same figures in HTML and Markdown
                                 reference_input(ReferenceKind::crossed_dipoles, "Turnstile tilted", 40)};
     ReportOptions o;
     o.size = RenderSize{400, 300, 50};  // small figures keep the test quick
+    o.environment = *environment_preset("uniform");
     auto files = build_report(in, o);
     REQUIRE(files.ok());
     const ReportFile* html = find(*files, "index.html");
@@ -98,6 +106,10 @@ TEST_CASE("report: files, self-contained HTML, same figures in HTML and Markdown
         CHECK(doc->find("1.76") != std::string::npos);
         CHECK(doc->find("0.00 (right-hand)") != std::string::npos);
         CHECK(doc->find("Comparison") != std::string::npos);
+        // Uniform environment, XPR 0 dB: MEG = efficiency / 2 = -3.01 dB for a lossless antenna
+        // (Taga 1990; conventions.md), for both antennas.
+        CHECK(doc->find("MEG, uniform environment (dB)") != std::string::npos);
+        CHECK(count_of(*doc, "-3.01") >= 2);
     }
 }
 
