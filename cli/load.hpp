@@ -11,10 +11,17 @@
 namespace ellipsa::cli {
 
 struct LoadOptions {
-    std::string map;  // --map "Source=schema,..." or @file
+    std::string map;       // --map "Source=schema,..." (or @FILE for a map file)
+    std::string map_file;  // --map-file FILE
+    std::string assume;    // --assume "angle-unit=rad,frequency-unit=GHz,..."
+    std::string scale;     // --scale "schema_column=factor,..."
+    std::string offset;    // --offset "schema_column=value,..."
 };
-// Adds --map to a subcommand.
+// The one place that adds the import options (--map, --map-file, --assume, --scale, --offset)
+// to a subcommand.
 void add_load_options(CLI::App* sub, LoadOptions& o);
+// The reader options the command-line options describe (a map file is read here).
+Result<CsvReadOptions> read_options(const LoadOptions& o);
 
 // Read a pattern file; progress goes to stderr on a terminal for long loads.
 Result<FarFieldSet> load_pattern(const std::string& path, const LoadOptions& o);

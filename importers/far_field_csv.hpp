@@ -6,6 +6,7 @@
 #pragma once
 #include <cstddef>
 #include <functional>
+#include <optional>
 #include <string>
 #include <string_view>
 #include <utility>
@@ -28,12 +29,38 @@ enum class CsvFamily {
 const char* to_string(CsvFamily f);
 bool parse_csv_family(std::string_view name, CsvFamily& out);
 
+// A metadata value given outside the file: same keys and values as the `# key: value` lines
+// (plus `phase-unit`, deg | rad, for foreign files whose phases and angles differ). It replaces
+// what the file says. `origin` names where it came from in messages ("--assume", a map file).
+struct CsvSetting {
+    std::string key, value;
+    std::string origin;
+    long line = 0;
+};
+
 struct CsvReadOptions {
-    // Foreign layouts: source column name -> schema column name (case-insensitive source names).
+    // Foreign layouts: source column name -> schema column name, or "ignore" to skip a column
+    // (source names compare case-insensitively, surrounding spaces and quotes ignored).
     std::vector<std::pair<std::string, std::string>> column_map;
+    std::vector<CsvSetting> settings;
+    // value = value_in_file * scale + offset for a schema column, applied before units are
+    // converted (a dB column gets a dB offset, an angle column an offset in angle-unit).
+    std::vector<std::pair<std::string, double>> scale;
+    std::vector<std::pair<std::string, double>> offset;
+    // Largest heap the final arrays may take; 0: what the system has available now.
+    std::size_t memory_limit_bytes = 0;
+    // Worker threads; 0: one per core (small inputs always use one).
+    int threads = 0;
     // Optional: called now and then with the fraction read (0..1); return false to cancel.
     std::function<bool(double)> progress;
 };
+
+// The schema column names, in documentation order (theta, phi, ..., e_total_db).
+const std::vector<std::string>& csv_schema_columns();
+
+// Read a small column-map file (see docs/far-field-csv.md, "Map files") into `options`.
+Status read_csv_map_file(const std::string& path, CsvReadOptions& options);
+Status parse_csv_map_text(std::string_view text, const std::string& display_name, CsvReadOptions& options);
 
 // Read a file (memory-mapped). The file name is used in messages.
 Result<FarFieldSet> read_far_field_csv(const std::string& path, const CsvReadOptions& options = {});
@@ -43,7 +70,12 @@ Result<FarFieldSet> parse_far_field_csv(std::string_view text, const std::string
 
 struct CsvWriteOptions {
     CsvFamily family = CsvFamily::complex;
+    // Reference for the Ludwig-3 family; unset: the set's own.
+    std::optional<Ludwig3Reference> ludwig3_reference;
+    bool overwrite = true;  // false: refuse when the target exists
 };
+// The family that keeps everything a set holds: complex, theta-phi-db or total-db.
+CsvFamily natural_family(const FarFieldSet& s);
 // Format a set as schema text (shortest round-trip number formatting).
 Result<std::string> format_far_field_csv(const FarFieldSet& s, const CsvWriteOptions& options = {});
 // Write to `path` through a temporary file in the same folder and a rename, so an interrupted

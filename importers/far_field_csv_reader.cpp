@@ -1,165 +1,809 @@
-// Reader for the neutral far-field CSV schema (first cut: complex family, theta/phi angles).
+// Reader for the neutral far-field CSV schema, version 1 (docs/far-field-csv.md).
+//
+// Two passes over the (memory-mapped) text, each split across worker threads at line
+// boundaries:
+//   pass 1 reads only the angle and frequency cells and collects their distinct values, from
+//          which the regular grid is built and checked;
+//   pass 2 reads every cell, converts the field family to complex E_theta/E_phi and writes each
+//          row straight into its place in the final arrays.
+// No per-row buffer exists, so the heap peak is the final arrays plus one byte per grid point
+// (which points were seen). Errors carry the byte offset of their line; the line number is
+// counted only when one is reported.
 #include <algorithm>
-#include <charconv>
+#include <atomic>
 #include <cmath>
-#include <fstream>
-#include <map>
-#include <sstream>
+#include <cstring>
+#include <limits>
+#include <thread>
+#include <unordered_map>
 
+#include "importers/csv_layout.hpp"
 #include "importers/far_field_csv.hpp"
+#include "importers/mapped_file.hpp"
+#include "pattern/polarisation.hpp"
 
 namespace ellipsa {
 
-namespace {
-
-std::string lower_trim(std::string_view s) {
-    while (!s.empty() && (s.front() == ' ' || s.front() == '\t' || s.front() == '"')) s.remove_prefix(1);
-    while (!s.empty() && (s.back() == ' ' || s.back() == '\t' || s.back() == '"' || s.back() == '\r')) s.remove_suffix(1);
-    std::string o(s);
-    for (char& c : o) c = char(std::tolower(static_cast<unsigned char>(c)));
-    return o;
+const std::vector<std::string>& csv_schema_columns() {
+    static const std::vector<std::string> v = [] {
+        std::vector<std::string> o;
+        for (int k = 0; k < csv::c_count; ++k) o.emplace_back(csv::column_name(k));
+        return o;
+    }();
+    return v;
 }
 
-bool parse_double(std::string_view s, double& v) {
-    while (!s.empty() && s.front() == ' ') s.remove_prefix(1);
-    while (!s.empty() && (s.back() == ' ' || s.back() == '\r')) s.remove_suffix(1);
-    if (!s.empty() && s.front() == '+') s.remove_prefix(1);
-    auto r = std::from_chars(s.data(), s.data() + s.size(), v);
-    return r.ec == std::errc() && r.ptr == s.data() + s.size() && std::isfinite(v);
+namespace {
+
+using namespace csv;
+
+constexpr double angle_tol_deg = 1e-6;     // range checks
+constexpr double merge_tol_deg = 1e-7;     // distinct angle values closer than this are one value
+constexpr double max_field = 1e150;        // |field| above this is refused (its square must stay finite)
+constexpr double max_db = 3000;            // dB above this is refused
+constexpr double zero_db = -3000;          // dB at or below this (and -inf) is zero field
+
+std::uint64_t bits_of(double v) {
+    std::uint64_t b;
+    std::memcpy(&b, &v, sizeof b);
+    return b;
+}
+
+// Distinct values met while scanning, with the offset of the first line holding each.
+// A small direct-mapped cache in front of the hash map makes the common case (few distinct
+// angles, met again and again) a compare and a branch.
+struct DistinctValues {
+    std::uint64_t cache[512];
+    std::unordered_map<std::uint64_t, std::size_t> first;
+    DistinctValues() { std::fill(std::begin(cache), std::end(cache), ~std::uint64_t(0)); }
+    void add(double v, std::size_t line_offset) {
+        if (v == 0) v = 0;  // -0 is 0
+        const std::uint64_t b = bits_of(v);
+        const std::size_t h = std::size_t((b * 0x9E3779B97F4A7C15ull) >> 55);
+        if (cache[h] == b) return;
+        cache[h] = b;
+        auto it = first.find(b);
+        if (it == first.end()) first.emplace(b, line_offset);
+        else if (line_offset < it->second) it->second = line_offset;
+    }
+};
+
+struct Value {
+    double v;
+    std::size_t line_offset;
+};
+
+// Merge the per-thread sets, sort, and fold values closer than tol (relative when rel).
+std::vector<Value> merged(const std::vector<const DistinctValues*>& sets, double tol, bool rel) {
+    std::vector<Value> all;
+    for (const DistinctValues* s : sets)
+        for (const auto& [b, off] : s->first) {
+            double v;
+            std::memcpy(&v, &b, sizeof v);
+            all.push_back({v, off});
+        }
+    std::sort(all.begin(), all.end(), [](const Value& a, const Value& b) { return a.v < b.v || (a.v == b.v && a.line_offset < b.line_offset); });
+    std::vector<Value> out;
+    for (const Value& x : all) {
+        if (!out.empty()) {
+            const double t = rel ? tol * std::max(std::abs(out.back().v), std::abs(x.v)) : tol;
+            if (x.v - out.back().v <= t) {
+                out.back().line_offset = std::min(out.back().line_offset, x.line_offset);
+                continue;
+            }
+        }
+        out.push_back(x);
+    }
+    return out;
+}
+
+// The cell values a row gives, by role, after scale/offset.
+struct Cells {
+    double v[c_count];
+};
+
+struct Chunk {
+    std::size_t begin = 0, end = 0;
+    // pass 1
+    DistinctValues theta, phi, freq;
+    std::size_t rows = 0;
+    double phi_min = std::numeric_limits<double>::infinity(), phi_max = -std::numeric_limits<double>::infinity();
+    std::size_t phi_min_offset = 0, phi_max_offset = 0;
+    // pass 2
+    struct Alias {
+        std::size_t freq, index;
+        cplx et, ep;
+        std::size_t line_offset;
+    };
+    std::vector<Alias> aliases;
+    double peak_power = 0;
+    Failure failure;
+};
+
+struct Context {
+    std::string_view text;
+    const std::string* file;
+    const Layout* L;
+    const CsvReadOptions* options;
+    const MappedFile* mapped = nullptr;
+    std::atomic<bool> cancelled{false};
+    // grid (pass 2)
+    double theta0 = 0, theta_step = 1, phi0 = 0, phi_step = 360;
+    int n_theta = 1, n_phi = 1, phi_shift = 0;
+    bool phi_seam = false;  // the last distinct phi is the seam duplicate of the first
+    int n_phi_distinct = 1;
+    std::vector<double> freqs;
+    std::vector<FarField>* out = nullptr;
+    std::vector<std::vector<unsigned char>>* seen = nullptr;
+};
+
+// Walk the lines of [c.begin, c.end), calling row(line_begin, line_end) for each data row.
+// Blank lines and '#' lines are skipped (metadata keys after the header are refused).
+template <class Row>
+void for_each_row(Context& ctx, Chunk& c, bool first_pass, double progress_base, double progress_span, Row&& row) {
+    const char* const base = ctx.text.data();
+    const char* p = base + c.begin;
+    const char* const end = base + c.end;
+    const char delim = ctx.L->delimiter;
+    std::size_t n = 0;
+    std::size_t released = c.begin;
+    while (p < end) {
+        const char* nl = static_cast<const char*>(std::memchr(p, '\n', std::size_t(end - p)));
+        const char* e = nl ? nl : end;
+        const char* next = nl ? nl + 1 : end;
+        if (e > p && e[-1] == '\r') --e;
+        const char* q = p;
+        while (q < e && (*q == ' ' || *q == '\t' || *q == delim)) ++q;
+        if (q == e) {
+            p = next;
+            continue;
+        }
+        if (*q == '#') {
+            if (first_pass) {
+                const char* colon = static_cast<const char*>(std::memchr(q, ':', std::size_t(e - q)));
+                if (colon) {
+                    std::string key = normalise_name(std::string_view(q + 1, std::size_t(colon - q - 1)));
+                    static const char* keys[] = {"quantity", "time-convention", "angle-unit", "frequency-unit",
+                                                 "frequency", "ludwig3-reference", "name", "source", "note"};
+                    for (const char* k : keys)
+                        if (key == k) {
+                            c.failure = {true, std::size_t(p - base), long(q - p) + 1,
+                                         "expected metadata lines before the header row, found \"# " + key +
+                                             ":\" after it"};
+                            return;
+                        }
+                }
+            }
+            p = next;
+            continue;
+        }
+        if (!row(p, e)) return;
+        if ((++n & 4095) == 0) {
+            if (ctx.cancelled.load(std::memory_order_relaxed)) return;
+            const std::size_t done = std::size_t(p - base);
+            if (ctx.mapped && done - released > (16u << 20)) {
+                ctx.mapped->release(released, done - released);
+                released = done;
+            }
+            if (progress_span > 0 && ctx.options->progress) {
+                const double f = double(done - c.begin) / double(std::max<std::size_t>(1, c.end - c.begin));
+                if (!ctx.options->progress(progress_base + progress_span * f)) ctx.cancelled = true;
+            }
+        }
+        p = next;
+    }
+    if (ctx.mapped) ctx.mapped->release(released, c.end - released);
+}
+
+// Parse the cells a row needs (role wanted[r]); up to and including header cell `last`
+// (all cells, and the row length check, when last < 0).
+bool parse_cells(Context& ctx, Chunk& c, const char* p, const char* e, int last, Cells& out) {
+    const Layout& L = *ctx.L;
+    const char* const base = ctx.text.data();
+    const char* q = p;
+    const int ncells = L.cells;
+    const int upto = last < 0 ? ncells - 1 : last;
+    for (int k = 0; k <= upto; ++k) {
+        const int r = L.role[std::size_t(k)];
+        if (r >= 0) {
+            NumberStatus st;
+            double v;
+            const char* cell = q;
+            q = parse_number_cell(q, e, L.delimiter, L.decimal_comma, v, st);
+            if (st != NumberStatus::ok) {
+                const char* ce = static_cast<const char*>(std::memchr(cell, L.delimiter, std::size_t(e - cell)));
+                if (!ce) ce = e;
+                c.failure = {true, std::size_t(p - base), long(cell - p) + 1,
+                             std::string("expected a number in column \"") + column_name(r) + "\", found " +
+                                 (cell == ce ? std::string("an empty cell") : quote_found(std::string_view(cell, std::size_t(ce - cell))))};
+                return false;
+            }
+            if (L.transform) v = v * L.scale[std::size_t(r)] + L.offset[std::size_t(r)];
+            out.v[r] = v;
+        } else {
+            const char* ce = static_cast<const char*>(std::memchr(q, L.delimiter, std::size_t(e - q)));
+            q = ce ? ce : e;
+        }
+        if (k < ncells - 1) {
+            if (q >= e) {
+                c.failure = {true, std::size_t(p - base), long(q - p) + 1,
+                             "expected " + std::to_string(ncells) + " cells as in the header row, found " +
+                                 std::to_string(k + 1)};
+                return false;
+            }
+            ++q;  // the delimiter
+        }
+    }
+    if (last < 0 && q < e) {
+        // Only empty trailing cells may follow.
+        const char* t = q;
+        while (t < e && (*t == ' ' || *t == '\t' || *t == L.delimiter)) ++t;
+        if (t < e) {
+            int extra = 0;
+            for (const char* s = q; s < e; ++s) extra += *s == L.delimiter;
+            c.failure = {true, std::size_t(p - base), long(q - p) + 1,
+                         "expected " + std::to_string(ncells) + " cells as in the header row, found " +
+                             std::to_string(ncells + extra)};
+            return false;
+        }
+    }
+    return true;
+}
+
+// Angles of a row in degrees: theta in [0, 180], phi as written (raw), and the frequency in Hz.
+// Returns false (with a failure) when out of range.
+bool row_angles(Context& ctx, Chunk& c, const char* p, const Cells& cells, double& theta, double& phi, double& f_hz) {
+    const Layout& L = *ctx.L;
+    const char* const base = ctx.text.data();
+    auto bad = [&](int role, std::string msg) {
+        // Column of the cell: count delimiters up to it.
+        const int cell = L.column_of[std::size_t(role)];
+        const char* q = p;
+        for (int k = 0; k < cell; ++k) {
+            const char* d = static_cast<const char*>(std::memchr(q, L.delimiter, std::size_t(ctx.text.data() + ctx.text.size() - q)));
+            if (!d) break;
+            q = d + 1;
+        }
+        c.failure = {true, std::size_t(p - base), long(q - p) + 1, std::move(msg)};
+        return false;
+    };
+    auto fmtv = [](double v) {
+        char b[32];
+        std::snprintf(b, sizeof b, "%.9g", v);
+        return std::string(b);
+    };
+    if (L.az_el) {
+        const double el = cells.v[c_elevation] * L.angle_to_deg, az = cells.v[c_azimuth] * L.angle_to_deg;
+        if (!(el >= -90 - angle_tol_deg && el <= 90 + angle_tol_deg))
+            return bad(c_elevation, "expected elevation in [-90, 90] deg, found " + fmtv(el));
+        if (!(az >= -180 - angle_tol_deg && az <= 360 + angle_tol_deg))
+            return bad(c_azimuth, "expected azimuth in [0, 360] or [-180, 180] deg, found " + fmtv(az));
+        theta = std::clamp(90.0 - el, 0.0, 180.0);
+        phi = az;
+    } else {
+        const double t = cells.v[c_theta] * L.angle_to_deg, ph = cells.v[c_phi] * L.angle_to_deg;
+        if (!(t >= -angle_tol_deg && t <= 180 + angle_tol_deg))
+            return bad(c_theta, "expected theta in [0, 180] deg, found " + fmtv(t));
+        if (!(ph >= -180 - angle_tol_deg && ph <= 360 + angle_tol_deg))
+            return bad(c_phi, "expected phi in [0, 360] or [-180, 180] deg, found " + fmtv(ph));
+        theta = std::clamp(t, 0.0, 180.0);
+        phi = ph;
+    }
+    if (L.frequency_column) {
+        f_hz = cells.v[c_frequency] * L.hz_per_unit;
+        if (!(f_hz >= 0) || !std::isfinite(f_hz))
+            return bad(c_frequency, "expected a frequency >= 0, found " + fmtv(cells.v[c_frequency]));
+    } else {
+        f_hz = L.frequency_hz ? *L.frequency_hz : 0.0;
+    }
+    return true;
+}
+
+void pass1(Context& ctx, Chunk& c, bool report_progress) {
+    Cells cells;
+    for_each_row(ctx, c, true, 0.0, report_progress ? 0.35 : 0.0, [&](const char* p, const char* e) {
+        if (!parse_cells(ctx, c, p, e, ctx.L->last_angle_cell, cells)) return false;
+        double t, ph, f;
+        if (!row_angles(ctx, c, p, cells, t, ph, f)) return false;
+        const std::size_t off = std::size_t(p - ctx.text.data());
+        c.theta.add(t, off);
+        c.phi.add(ph, off);
+        c.freq.add(f, off);
+        if (ph < c.phi_min) {
+            c.phi_min = ph;
+            c.phi_min_offset = off;
+        }
+        if (ph > c.phi_max) {
+            c.phi_max = ph;
+            c.phi_max_offset = off;
+        }
+        ++c.rows;
+        return true;
+    });
+}
+
+// 10^(db/20), with -inf and very low values as exact zero.
+inline bool db_amplitude(double db, double& a) {
+    if (db <= zero_db) {
+        a = 0;
+        return true;
+    }
+    if (!(db <= max_db)) return false;
+    a = std::exp(db * (2.302585092994045684 / 20.0));
+    return true;
+}
+
+void pass2(Context& ctx, Chunk& c, bool report_progress) {
+    const Layout& L = *ctx.L;
+    const char* const base = ctx.text.data();
+    Cells cells;
+    std::size_t last_f = 0;
+    double last_f_value = std::numeric_limits<double>::quiet_NaN();
+    const std::size_t nf = ctx.freqs.size();
+    for_each_row(ctx, c, false, 0.35, report_progress ? 0.65 : 0.0, [&](const char* p, const char* e) {
+        if (!parse_cells(ctx, c, p, e, -1, cells)) return false;
+        double t, ph, f;
+        if (!row_angles(ctx, c, p, cells, t, ph, f)) return false;
+        auto fail_at = [&](int role, std::string msg) {
+            const int cell = L.column_of[std::size_t(role)];
+            const char* q = p;
+            for (int k = 0; k < cell && q < e; ++k) {
+                const char* d = static_cast<const char*>(std::memchr(q, L.delimiter, std::size_t(e - q)));
+                if (!d) break;
+                q = d + 1;
+            }
+            c.failure = {true, std::size_t(p - base), long(q - p) + 1, std::move(msg)};
+            return false;
+        };
+        // Grid indices.
+        std::size_t fk = last_f;
+        if (!(f == last_f_value)) {
+            auto it = std::lower_bound(ctx.freqs.begin(), ctx.freqs.end(), f * (1 - 1e-9));
+            fk = std::size_t(it - ctx.freqs.begin());
+            if (fk >= nf || std::abs(ctx.freqs[fk] - f) > 1e-9 * std::max(1.0, f))
+                return fail_at(c_frequency, "internal: frequency not in the first pass's list");
+            last_f = fk;
+            last_f_value = f;
+        }
+        const double it_d = (t - ctx.theta0) / ctx.theta_step;
+        const long it = std::lround(it_d);
+        const double ip_d = (ph - ctx.phi0) / ctx.phi_step;
+        long ip = std::lround(ip_d);
+        if (it < 0 || it >= ctx.n_theta || ip < 0 || ip >= ctx.n_phi_distinct)
+            return fail_at(L.az_el ? c_elevation : c_theta, "internal: angle not on the first pass's grid");
+        bool alias = false;
+        if (ctx.phi_seam && ip == ctx.n_phi_distinct - 1) {
+            alias = true;
+            ip = 0;
+        }
+        ip = (ip + ctx.phi_shift) % ctx.n_phi;
+        const std::size_t k = std::size_t(it) * std::size_t(ctx.n_phi) + std::size_t(ip);
+
+        // Field values.
+        cplx et, ep;
+        const double* v = cells.v;
+        switch (L.family) {
+            case CsvFamily::complex: {
+                for (int r : {c_e_theta_re, c_e_theta_im, c_e_phi_re, c_e_phi_im})
+                    if (!(std::abs(v[r]) <= max_field))
+                        return fail_at(r, std::string("expected a finite field value below 1e150 in magnitude in column \"") +
+                                              column_name(r) + "\"");
+                et = cplx(v[c_e_theta_re], L.minus_iwt ? -v[c_e_theta_im] : v[c_e_theta_im]);
+                ep = cplx(v[c_e_phi_re], L.minus_iwt ? -v[c_e_phi_im] : v[c_e_phi_im]);
+                break;
+            }
+            case CsvFamily::total_db: {
+                double a;
+                if (!db_amplitude(v[c_e_total_db], a)) return fail_at(c_e_total_db, "expected a dB value below 3000 in column \"e_total_db\"");
+                et = a;
+                ep = 0;
+                break;
+            }
+            case CsvFamily::magnitude_db: {
+                double a, b;
+                if (!db_amplitude(v[c_e_theta_db], a)) return fail_at(c_e_theta_db, "expected a dB value below 3000 in column \"e_theta_db\"");
+                if (!db_amplitude(v[c_e_phi_db], b)) return fail_at(c_e_phi_db, "expected a dB value below 3000 in column \"e_phi_db\"");
+                et = a;
+                ep = b;
+                break;
+            }
+            default: {
+                int r1, p1, r2, p2;
+                if (L.family == CsvFamily::theta_phi_polar) r1 = c_e_theta_db, p1 = c_e_theta_phase, r2 = c_e_phi_db, p2 = c_e_phi_phase;
+                else if (L.family == CsvFamily::circular_polar) r1 = c_e_rhcp_db, p1 = c_e_rhcp_phase, r2 = c_e_lhcp_db, p2 = c_e_lhcp_phase;
+                else r1 = c_e_co_db, p1 = c_e_co_phase, r2 = c_e_cross_db, p2 = c_e_cross_phase;
+                double a, b;
+                if (!db_amplitude(v[r1], a)) return fail_at(r1, std::string("expected a dB value below 3000 in column \"") + column_name(r1) + "\"");
+                if (!db_amplitude(v[r2], b)) return fail_at(r2, std::string("expected a dB value below 3000 in column \"") + column_name(r2) + "\"");
+                for (int r : {p1, p2})
+                    if (!std::isfinite(v[r])) return fail_at(r, std::string("expected a finite phase in column \"") + column_name(r) + "\"");
+                double ph1 = v[p1] * L.phase_to_rad, ph2 = v[p2] * L.phase_to_rad;
+                if (L.minus_iwt) {
+                    ph1 = -ph1;
+                    ph2 = -ph2;
+                }
+                const cplx c1 = std::polar(a, ph1), c2 = std::polar(b, ph2);
+                if (L.family == CsvFamily::theta_phi_polar) {
+                    et = c1;
+                    ep = c2;
+                } else if (L.family == CsvFamily::circular_polar) {
+                    // Inverse of E_R = (Et + j Ep)/sqrt2, E_L = (Et - j Ep)/sqrt2 (conventions.md):
+                    // Et = (E_R + E_L)/sqrt2, Ep = (E_R - E_L)/(j sqrt2) = -j (E_R - E_L)/sqrt2.
+                    et = (c1 + c2) * inv_sqrt2;
+                    ep = cplx(0, -1) * (c1 - c2) * inv_sqrt2;
+                } else {
+                    const double pr = ph * deg;
+                    from_ludwig3(c1, c2, std::cos(pr), std::sin(pr), *L.ludwig3_reference, et, ep);
+                }
+            }
+        }
+        const double pw = std::norm(et) + std::norm(ep);
+        if (pw > c.peak_power) c.peak_power = pw;
+        if (alias) {
+            c.aliases.push_back({fk, k, et, ep, std::size_t(p - base)});
+            return true;
+        }
+        std::atomic_ref<unsigned char> s((*ctx.seen)[fk][k]);
+        unsigned char expected = 0;
+        if (s.compare_exchange_strong(expected, 1, std::memory_order_acq_rel)) {
+            (*ctx.out)[fk].e_theta[k] = et;
+            (*ctx.out)[fk].e_phi[k] = ep;
+            s.store(2, std::memory_order_release);
+            return true;
+        }
+        // A second row for the same point: wait for the first writer, then compare.
+        while (s.load(std::memory_order_acquire) != 2) std::this_thread::yield();
+        const cplx a = (*ctx.out)[fk].e_theta[k], b = (*ctx.out)[fk].e_phi[k];
+        const double d = std::sqrt(std::norm(a - et) + std::norm(b - ep));
+        const double m = std::sqrt(std::max(std::norm(a) + std::norm(b), pw));
+        if (!(d <= 1e-3 * m || m <= 1e-6)) {
+            char buf[200];
+            std::snprintf(buf, sizeof buf, "expected at most one value per grid point, found a second one that differs "
+                                           "(theta %.9g, phi %.9g deg, %.9g Hz)", t, ph, f);
+            c.failure = {true, std::size_t(p - base), 1, buf};
+            return false;
+        }
+        return true;
+    });
+}
+
+// Split [begin, end) into n chunks at line starts.
+std::vector<Chunk> split(std::string_view text, std::size_t begin, int n) {
+    std::vector<Chunk> cs(std::size_t(std::max(1, n)));
+    const std::size_t len = text.size() - begin;
+    std::size_t a = begin;
+    for (std::size_t i = 0; i < cs.size(); ++i) {
+        std::size_t b = i + 1 == cs.size() ? text.size() : begin + len * (i + 1) / cs.size();
+        if (b < a) b = a;
+        if (b < text.size()) {
+            const void* nl = std::memchr(text.data() + b, '\n', text.size() - b);
+            b = nl ? std::size_t(static_cast<const char*>(nl) - text.data()) + 1 : text.size();
+        }
+        cs[i].begin = a;
+        cs[i].end = b;
+        a = b;
+    }
+    return cs;
+}
+
+template <class F>
+void run_chunks(std::vector<Chunk>& cs, F&& f) {
+    if (cs.size() == 1) {
+        f(cs[0], true);
+        return;
+    }
+    std::vector<std::thread> ts;
+    for (std::size_t i = 1; i < cs.size(); ++i) ts.emplace_back([&, i] { f(cs[i], false); });
+    f(cs[0], true);
+    for (auto& t : ts) t.join();
+}
+
+const Failure* first_failure(const std::vector<Chunk>& cs) {
+    const Failure* best = nullptr;
+    for (const Chunk& c : cs)
+        if (c.failure.set && (!best || c.failure.line_offset < best->line_offset)) best = &c.failure;
+    return best;
+}
+
+std::string fmt(double v) {
+    char b[32];
+    std::snprintf(b, sizeof b, "%.9g", v);
+    return b;
+}
+
+std::string freq_text(double hz) {
+    if (hz >= 1e9) return fmt(hz / 1e9) + " GHz";
+    if (hz >= 1e6) return fmt(hz / 1e6) + " MHz";
+    if (hz >= 1e3) return fmt(hz / 1e3) + " kHz";
+    return fmt(hz) + " Hz";
+}
+
+// Build a regular axis from sorted distinct values; on failure sets `f` at the first value off.
+bool regular_axis(const std::vector<Value>& v, const char* what, double& start, double& step, Failure& f) {
+    start = v.front().v;
+    if (v.size() == 1) {
+        step = 0;
+        return true;
+    }
+    step = (v.back().v - v.front().v) / double(v.size() - 1);
+    const double tol = std::max(1e-9, 1e-4 * step);
+    // The smallest gap tells the intended step when one value is missing in between.
+    double min_gap = std::numeric_limits<double>::infinity();
+    for (std::size_t k = 1; k < v.size(); ++k) min_gap = std::min(min_gap, v[k].v - v[k - 1].v);
+    for (std::size_t k = 0; k < v.size(); ++k) {
+        const double want = start + double(k) * step;
+        if (std::abs(v[k].v - want) > tol) {
+            // Report in terms of the smallest gap: "after A expected B, found C".
+            std::size_t j = 1;
+            while (j < v.size() && std::abs((v[j].v - v[j - 1].v) - min_gap) <= std::max(1e-9, 1e-4 * min_gap)) ++j;
+            if (j >= v.size()) j = k;
+            f = {true, v[j].line_offset, 0,
+                 std::string("expected evenly spaced ") + what + " values (step " + fmt(min_gap) + " deg): after " +
+                     fmt(v[j - 1].v) + " expected " + fmt(v[j - 1].v + min_gap) + ", found " + fmt(v[j].v) +
+                     " deg (a missing or irregular step)"};
+            return false;
+        }
+    }
+    return true;
 }
 
 }  // namespace
 
-Result<FarFieldSet> parse_far_field_csv(std::string_view text, const std::string& name, const CsvReadOptions&) {
+Result<FarFieldSet> parse_far_field_text(std::string_view text, const std::string& name, const CsvReadOptions& o,
+                                         const MappedFile* mapped);
+
+Result<FarFieldSet> parse_far_field_csv(std::string_view text, const std::string& name, const CsvReadOptions& o) {
+    return parse_far_field_text(text, name, o, nullptr);
+}
+
+Result<FarFieldSet> parse_far_field_text(std::string_view text, const std::string& name, const CsvReadOptions& o,
+                                         const MappedFile* mapped) {
+    // Binary garbage: text never holds a NUL byte.
+    if (const void* z = std::memchr(text.data(), 0, text.size())) {
+        const std::size_t off = std::size_t(static_cast<const char*>(z) - text.data());
+        std::size_t ls = off;
+        while (ls > 0 && text[ls - 1] != '\n') --ls;
+        return Error{name, line_number_at(text, ls), long(off - ls) + 1, "expected text, found a NUL byte (a binary file?)"};
+    }
+    auto layout = read_layout(text, name, o);
+    if (!layout) return layout.error();
+    const Layout& L = *layout;
+
+    Context ctx;
+    ctx.text = text;
+    ctx.file = &name;
+    ctx.L = &L;
+    ctx.options = &o;
+    ctx.mapped = mapped;
+    int threads = o.threads > 0 ? o.threads : int(std::max(1u, std::thread::hardware_concurrency()));
+    threads = std::min(threads, 8);
+    if (o.threads <= 0 && text.size() - L.data_offset < (std::size_t(4) << 20)) threads = 1;
+    std::vector<Chunk> chunks = split(text, L.data_offset, threads);
+
+    // Pass 1: angles and frequencies.
+    run_chunks(chunks, [&](Chunk& c, bool first) { pass1(ctx, c, first); });
+    if (ctx.cancelled) return Error{name, 0, 0, "reading cancelled"};
+    if (const Failure* f = first_failure(chunks)) return to_error(text, name, *f);
+    std::size_t rows = 0;
+    for (const Chunk& c : chunks) rows += c.rows;
+    if (rows == 0)
+        return Error{name, line_number_at(text, L.header_offset), 0, "expected data rows after the header row, found none"};
+
+    std::vector<const DistinctValues*> ts, ps, fs;
+    double phi_min = std::numeric_limits<double>::infinity(), phi_max = -phi_min;
+    std::size_t phi_min_off = 0, phi_max_off = 0;
+    for (const Chunk& c : chunks) {
+        ts.push_back(&c.theta);
+        ps.push_back(&c.phi);
+        fs.push_back(&c.freq);
+        if (c.phi_min < phi_min) phi_min = c.phi_min, phi_min_off = c.phi_min_offset;
+        if (c.phi_max > phi_max) phi_max = c.phi_max, phi_max_off = c.phi_max_offset;
+    }
+    const char* phi_word = L.az_el ? "azimuth" : "phi";
+    if (phi_min < -angle_tol_deg && phi_max > 180 + angle_tol_deg) {
+        const std::size_t later = std::max(phi_min_off, phi_max_off);
+        return to_error(text, name, {true, later, 0,
+                                     std::string("expected ") + phi_word + " in [0, 360) or in [-180, 180], found both " +
+                                         fmt(phi_min) + " (line " + std::to_string(line_number_at(text, phi_min_off)) +
+                                         ") and " + fmt(phi_max) + " (line " +
+                                         std::to_string(line_number_at(text, phi_max_off)) + ")"});
+    }
+    std::vector<Value> tv = merged(ts, merge_tol_deg, false);
+    std::vector<Value> pv = merged(ps, merge_tol_deg, false);
+    std::vector<Value> fv = merged(fs, 1e-9, true);
+
     FarFieldSet s;
-    s.source = name;
-    long line_no = 0;
-    std::size_t pos = 0;
-    std::vector<std::string> header;
-    struct Row {
-        double f, t, p;
-        cplx et, ep;
-        long line;
-    };
-    std::vector<Row> rows;
-    int ci[7] = {-1, -1, -1, -1, -1, -1, -1};
-    const char* names[7] = {"frequency", "theta", "phi", "e_theta_re", "e_theta_im", "e_phi_re", "e_phi_im"};
-    while (pos < text.size()) {
-        std::size_t eol = text.find('\n', pos);
-        std::string_view line = text.substr(pos, eol == std::string_view::npos ? std::string_view::npos : eol - pos);
-        pos = eol == std::string_view::npos ? text.size() : eol + 1;
-        ++line_no;
-        if (!line.empty() && line.back() == '\r') line.remove_suffix(1);
-        if (line.empty()) continue;
-        if (line[0] == '#') {
-            std::string_view body = line.substr(1);
-            std::size_t colon = body.find(':');
-            if (colon == std::string_view::npos) continue;
-            std::string key = lower_trim(body.substr(0, colon));
-            std::string val(body.substr(colon + 1));
-            val = val.substr(std::min(val.find_first_not_of(' '), val.size()));
-            if (key == "quantity") {
-                if (val == "gain") s.quantity = Quantity::gain;
-                else if (val == "directivity") s.quantity = Quantity::directivity;
-                else if (val == "relative") s.quantity = Quantity::relative;
-                else return Error{name, line_no, 1, "quantity: expected gain, directivity or relative, found \"" + val + "\""};
-            } else if (key == "name") s.name = val;
-            else if (key == "source") s.source = val;
-            else if (key == "note") s.note = val;
-            continue;
-        }
-        std::vector<std::string_view> cells;
-        std::size_t a = 0;
-        while (true) {
-            std::size_t c = line.find(',', a);
-            cells.push_back(line.substr(a, c == std::string_view::npos ? std::string_view::npos : c - a));
-            if (c == std::string_view::npos) break;
-            a = c + 1;
-        }
-        if (header.empty()) {
-            for (std::size_t k = 0; k < cells.size(); ++k) {
-                header.push_back(lower_trim(cells[k]));
-                for (int n = 0; n < 7; ++n)
-                    if (header.back() == names[n]) ci[n] = int(k);
+    s.name = L.name.empty() ? name : L.name;
+    s.source = L.source.empty() ? name : L.source;
+    s.note = L.note;
+    s.quantity = L.quantity;
+    s.ludwig3_reference = L.ludwig3_reference ? *L.ludwig3_reference : Ludwig3Reference::x;
+    s.time_convention_converted = L.minus_iwt;
+    s.content = L.family == CsvFamily::magnitude_db ? FieldContent::magnitude_only
+                : L.family == CsvFamily::total_db   ? FieldContent::total_only
+                                                    : FieldContent::complex;
+
+    // Theta axis.
+    Failure af;
+    double t0, dt;
+    if (!regular_axis(tv, L.az_el ? "theta (90 - elevation)" : "theta", t0, dt, af)) return to_error(text, name, af);
+    if (tv.size() == 1) dt = 1;
+    else {
+        if (std::abs(t0) <= 1e-4 * dt) t0 = 0;
+        double t1 = tv.back().v;
+        if (std::abs(t1 - 180) <= 1e-4 * dt) t1 = 180;
+        dt = (t1 - t0) / double(tv.size() - 1);
+    }
+    s.grid.theta = {t0, dt, int(tv.size())};
+    // Phi axis: values as written, in [0, 360] or [-180, 180].
+    double p0, dp;
+    if (!regular_axis(pv, phi_word, p0, dp, af)) return to_error(text, name, af);
+    int n_phi = int(pv.size());
+    bool seam = false;
+    if (pv.size() >= 3 && std::abs(pv.back().v - pv.front().v - 360) <= 1e-4 * dp) {
+        seam = true;  // 0 and 360, or -180 and 180: one column twice
+        n_phi = int(pv.size()) - 1;
+        dp = 360.0 / n_phi;
+    } else if (pv.size() >= 2 && std::abs(dp * double(pv.size()) - 360) <= 1e-4 * dp) {
+        dp = 360.0 / double(pv.size());  // wraps without a duplicate
+    } else if (pv.size() == 1) {
+        dp = 360;
+    }
+    const bool wraps = seam || std::abs(dp * n_phi - 360) <= 1e-9 * 360;
+    ctx.phi0 = p0;
+    ctx.phi_step = pv.size() == 1 ? 360 : (pv.back().v - pv.front().v) / double(pv.size() - 1);
+    ctx.n_phi_distinct = int(pv.size());
+    ctx.phi_seam = seam;
+    // Stored start in [0, 360); a full circle starts at its smallest non-negative sample.
+    double start = wrap360(p0);
+    int shift = 0;
+    if (wraps && n_phi > 1) {
+        // Turn the columns so the stored start is the smallest sample in [0, 360).
+        double k = std::floor(start / dp);
+        double s0 = start - k * dp;
+        if (s0 >= dp * (1 - 1e-6)) s0 = 0, k += 1;
+        if (s0 <= dp * 1e-6) s0 = 0;
+        shift = int(std::llround(k)) % n_phi;
+        start = s0;
+    }
+    ctx.phi_shift = shift;
+    s.grid.phi = {start, dp, n_phi};
+    ctx.theta0 = t0;
+    ctx.theta_step = dt;
+    ctx.n_theta = s.grid.theta.count;
+    ctx.n_phi = n_phi;
+    for (const Value& x : fv) ctx.freqs.push_back(x.v);
+    // lower_bound with a tolerance needs exact representatives: use the merged values.
+
+    // Memory: the final arrays plus one byte per point.
+    const std::size_t points = s.grid.size();
+    const long double need = (long double)points * (long double)ctx.freqs.size() * (2 * sizeof(cplx) + 1);
+    const std::size_t limit = o.memory_limit_bytes ? o.memory_limit_bytes : available_memory_bytes();
+    const long double grid_points = (long double)points * (long double)ctx.freqs.size();
+    if (limit > 0 && need > (long double)limit) {
+        if (grid_points > (long double)rows)
+            return Error{name, 0, 0, "expected a value at every point of the grid (" + fmt(double(grid_points)) +
+                                         " points), found only " + std::to_string(rows) + " data rows"};
+        return Error{name, 0, 0, "expected a file that fits in memory: its grid needs " + fmt(double(need / 1e6)) +
+                                     " MB, " + fmt(double(limit) / 1e6) + " MB are available"};
+    }
+    if (grid_points > 4e9) return Error{name, 0, 0, "expected at most 4e9 grid points, found " + fmt(double(grid_points))};
+
+    s.frequencies.resize(ctx.freqs.size());
+    std::vector<std::vector<unsigned char>> seen(ctx.freqs.size());
+    for (std::size_t k = 0; k < ctx.freqs.size(); ++k) {
+        s.frequencies[k].frequency_hz = ctx.freqs[k];
+        s.frequencies[k].e_theta.assign(points, cplx(0, 0));
+        s.frequencies[k].e_phi.assign(points, cplx(0, 0));
+        seen[k].assign(points, 0);
+    }
+    ctx.out = &s.frequencies;
+    ctx.seen = &seen;
+
+    // Pass 2: every cell, straight into place.
+    for (Chunk& c : chunks) c.failure = {};
+    run_chunks(chunks, [&](Chunk& c, bool first) { pass2(ctx, c, first); });
+    if (ctx.cancelled) return Error{name, 0, 0, "reading cancelled"};
+    if (const Failure* f = first_failure(chunks)) return to_error(text, name, *f);
+
+    // Seam duplicates: merge when consistent, fill when the canonical column is absent.
+    std::vector<Chunk::Alias> aliases;
+    for (Chunk& c : chunks) aliases.insert(aliases.end(), c.aliases.begin(), c.aliases.end());
+    std::sort(aliases.begin(), aliases.end(), [](const auto& a, const auto& b) { return a.line_offset < b.line_offset; });
+    for (const auto& a : aliases) {
+        FarField& ff = s.frequencies[a.freq];
+        if (seen[a.freq][a.index]) {
+            const cplx x = ff.e_theta[a.index], y = ff.e_phi[a.index];
+            const double d = std::sqrt(std::norm(x - a.et) + std::norm(y - a.ep));
+            const double m = std::sqrt(std::max(std::norm(x) + std::norm(y), std::norm(a.et) + std::norm(a.ep)));
+            if (!(d <= 1e-3 * m || m <= 1e-6)) {
+                const int it = int(a.index / std::size_t(n_phi));
+                const int ip = int(a.index % std::size_t(n_phi));
+                return to_error(text, name,
+                                {true, a.line_offset, 1,
+                                 "expected the " + std::string(phi_word) + " seam duplicate to repeat the value at " +
+                                     phi_word + " " + fmt(s.grid.phi.value_deg(ip)) + " deg (theta " +
+                                     fmt(s.grid.theta.value_deg(it)) + " deg, " + freq_text(ctx.freqs[a.freq]) +
+                                     "), found a different value"});
             }
-            for (int n = 1; n < 7; ++n)
-                if (ci[n] < 0) return Error{name, line_no, 1, std::string("header: expected a column \"") + names[n] + "\""};
-            continue;
+        } else {
+            ff.e_theta[a.index] = a.et;
+            ff.e_phi[a.index] = a.ep;
+            seen[a.freq][a.index] = 2;
         }
-        if (cells.size() != header.size())
-            return Error{name, line_no, 1, "expected " + std::to_string(header.size()) + " cells, found " + std::to_string(cells.size())};
-        double v[7] = {0, 0, 0, 0, 0, 0, 0};
-        for (int n = 0; n < 7; ++n) {
-            if (ci[n] < 0) continue;
-            if (!parse_double(cells[std::size_t(ci[n])], v[n])) {
-                long col = 1;
-                for (int k = 0; k < ci[n]; ++k) col += long(cells[std::size_t(k)].size()) + 1;
-                return Error{name, line_no, col, std::string("expected a number in column ") + names[n] + ", found \"" +
-                                                     std::string(cells[std::size_t(ci[n])]) + "\""};
+    }
+
+    // Poles: a single sample at theta = 0 or 180 stands for the whole ring. The field there has
+    // no z part; its Cartesian vector is turned onto the theta/phi basis of every other phi.
+    if (n_phi > 1 && s.content != FieldContent::magnitude_only) {
+        for (int it : {0, s.grid.theta.count - 1}) {
+            const double th = s.grid.theta.value_deg(it);
+            if (!(th == 0 || th == 180)) continue;
+            for (std::size_t fk = 0; fk < s.frequencies.size(); ++fk) {
+                int count = 0, at = -1;
+                for (int ip = 0; ip < n_phi; ++ip)
+                    if (seen[fk][s.grid.index(it, ip)]) ++count, at = ip;
+                if (count != 1) continue;
+                FarField& ff = s.frequencies[fk];
+                const std::size_t k0 = s.grid.index(it, at);
+                const double p0r = s.grid.phi.value_deg(at) * deg, tr = th * deg;
+                if (s.content == FieldContent::total_only) {
+                    for (int ip = 0; ip < n_phi; ++ip) {
+                        ff.e_theta[s.grid.index(it, ip)] = ff.e_theta[k0];
+                        ff.e_phi[s.grid.index(it, ip)] = 0;
+                        seen[fk][s.grid.index(it, ip)] = 2;
+                    }
+                    continue;
+                }
+                const CVec3 e = ff.e_theta[k0] * theta_hat(tr, p0r) + ff.e_phi[k0] * phi_hat(p0r);
+                for (int ip = 0; ip < n_phi; ++ip) {
+                    const std::size_t k = s.grid.index(it, ip);
+                    const double pr = s.grid.phi.value_deg(ip) * deg;
+                    ff.e_theta[k] = dot(e, theta_hat(tr, pr));
+                    ff.e_phi[k] = dot(e, phi_hat(pr));
+                    seen[fk][k] = 2;
+                }
             }
         }
-        if (v[1] < -1e-9 || v[1] > 180 + 1e-9) return Error{name, line_no, 1, "theta out of range [0, 180]"};
-        rows.push_back({v[0], v[1], wrap360(v[2]), cplx(v[3], v[4]), cplx(v[5], v[6]), line_no});
     }
-    if (header.empty()) return Error{name, 0, 0, "empty file: expected a header row"};
-    if (rows.empty()) return Error{name, 0, 0, "no data rows"};
-    std::vector<double> fs, ts, ps;
-    for (const Row& r : rows) {
-        fs.push_back(r.f);
-        ts.push_back(r.t);
-        ps.push_back(r.p);
+
+    // Every point present?
+    std::size_t missing = 0;
+    std::string first_missing;
+    for (std::size_t fk = 0; fk < s.frequencies.size(); ++fk)
+        for (std::size_t k = 0; k < points; ++k)
+            if (!seen[fk][k]) {
+                if (++missing <= 5) {
+                    const int it = int(k / std::size_t(n_phi)), ip = int(k % std::size_t(n_phi));
+                    first_missing += (missing > 1 ? "; " : "") + std::string("theta ") + fmt(s.grid.theta.value_deg(it)) +
+                                     ", phi " + fmt(wrap360(s.grid.phi.value_deg(ip))) + " deg, " +
+                                     (L.frequency_column || L.frequency_hz ? freq_text(ctx.freqs[fk]) : "no frequency");
+                }
+            }
+    if (missing > 0) {
+        char head[256];
+        std::snprintf(head, sizeof head,
+                      "expected a value at every grid point (theta %s..%s step %s, phi %s step %s x %d, %zu "
+                      "frequencies), found %zu missing: ",
+                      fmt(s.grid.theta.start_deg).c_str(), fmt(s.grid.theta.last_deg()).c_str(),
+                      fmt(s.grid.theta.step_deg).c_str(), fmt(s.grid.phi.start_deg).c_str(),
+                      fmt(s.grid.phi.step_deg).c_str(), n_phi, s.frequencies.size(), missing);
+        return Error{name, 0, 0, head + first_missing + (missing > 5 ? "; ..." : "")};
     }
-    auto uniq = [](std::vector<double>& x) {
-        std::sort(x.begin(), x.end());
-        x.erase(std::unique(x.begin(), x.end(), [](double a, double b) { return std::abs(a - b) < 1e-9; }), x.end());
-    };
-    uniq(fs);
-    uniq(ts);
-    uniq(ps);
-    auto regular = [](const std::vector<double>& x, AngleAxis& ax) {
-        ax.start_deg = x.front();
-        ax.count = int(x.size());
-        ax.step_deg = x.size() > 1 ? (x.back() - x.front()) / double(x.size() - 1) : 1.0;
-        for (std::size_t k = 0; k < x.size(); ++k)
-            if (std::abs(x[k] - (ax.start_deg + double(k) * ax.step_deg)) > 1e-6) return false;
-        return true;
-    };
-    if (!regular(ts, s.grid.theta)) return Error{name, 0, 0, "theta values do not form a regular grid"};
-    if (!regular(ps, s.grid.phi)) return Error{name, 0, 0, "phi values do not form a regular grid"};
-    if (s.grid.phi.count > 1 && std::abs(s.grid.phi.count * s.grid.phi.step_deg - 360) > 1e-6 &&
-        s.grid.phi.last_deg() + s.grid.phi.step_deg > 360 - 1e-6)
-        return Error{name, 0, 0, "phi values do not form a regular grid"};
-    if (s.grid.phi.count == 1) s.grid.phi.step_deg = 360;
-    s.frequencies.resize(fs.size());
-    std::vector<std::vector<char>> seen(fs.size(), std::vector<char>(s.grid.size(), 0));
-    for (std::size_t k = 0; k < fs.size(); ++k) {
-        s.frequencies[k].frequency_hz = fs[k];
-        s.frequencies[k].e_theta.assign(s.grid.size(), 0);
-        s.frequencies[k].e_phi.assign(s.grid.size(), 0);
-    }
-    for (const Row& r : rows) {
-        std::size_t fk = std::size_t(std::lower_bound(fs.begin(), fs.end(), r.f - 1e-9) - fs.begin());
-        int it = int(std::lround((r.t - s.grid.theta.start_deg) / s.grid.theta.step_deg));
-        int ip = int(std::lround((r.p - s.grid.phi.start_deg) / s.grid.phi.step_deg));
-        std::size_t k = s.grid.index(it, ip);
-        if (seen[fk][k]) return Error{name, r.line, 1, "duplicate grid point"};
-        seen[fk][k] = 1;
-        s.frequencies[fk].e_theta[k] = r.et;
-        s.frequencies[fk].e_phi[k] = r.ep;
-    }
-    for (std::size_t fk = 0; fk < fs.size(); ++fk)
-        for (std::size_t k = 0; k < s.grid.size(); ++k)
-            if (!seen[fk][k]) return Error{name, 0, 0, "missing grid point"};
-    if (s.name.empty()) s.name = name;
+    if (o.progress) o.progress(1.0);
     return s;
 }
 
 Result<FarFieldSet> read_far_field_csv(const std::string& path, const CsvReadOptions& o) {
-    std::ifstream in(path, std::ios::binary);
-    if (!in) return Error{path, 0, 0, "cannot open the file"};
-    std::stringstream ss;
-    ss << in.rdbuf();
-    return parse_far_field_csv(ss.str(), path, o);
+    auto m = MappedFile::open(path);
+    if (!m) return m.error();
+    const std::size_t limit = o.memory_limit_bytes ? o.memory_limit_bytes : available_memory_bytes();
+    // A first guess before reading: the arrays take about half the file's size for the usual
+    // layouts (32 bytes per point, 60-90 bytes per row). The exact check follows pass 1.
+    if (limit > 0 && m->text().size() / 4 > limit)
+        return Error{path, 0, 0, "expected a file that fits in memory: it holds " + fmt(double(m->text().size()) / 1e6) +
+                                     " MB, " + fmt(double(limit) / 1e6) + " MB are available"};
+    return parse_far_field_text(m->text(), path, o, &*m);
 }
 
 }  // namespace ellipsa

@@ -1,10 +1,14 @@
-// Writer for the neutral far-field CSV schema.
+// Writer for the neutral far-field CSV schema, every family.
+//
+// Numbers use the shortest form that reads back to the same double (std::to_chars), so the
+// complex family round-trips exactly; the dB/phase families round-trip to a few ulps.
 #include <charconv>
 #include <cmath>
 #include <cstring>
 
 #include "importers/atomic_write.hpp"
 #include "importers/far_field_csv.hpp"
+#include "pattern/polarisation.hpp"
 
 namespace ellipsa {
 
@@ -30,61 +34,172 @@ bool parse_csv_family(std::string_view name, CsvFamily& out) {
     return false;
 }
 
+CsvFamily natural_family(const FarFieldSet& s) {
+    switch (s.content) {
+        case FieldContent::complex: return CsvFamily::complex;
+        case FieldContent::magnitude_only: return CsvFamily::magnitude_db;
+        case FieldContent::total_only: return CsvFamily::total_db;
+    }
+    return CsvFamily::complex;
+}
+
 namespace {
 
-// Shortest representation that reads back to the same double.
-void put_number(std::string& out, double v) {
+// Shortest representation that reads back to the same double; "-inf" for zero power in dB.
+inline void put_number(std::string& out, double v) {
     char buf[32];
     auto r = std::to_chars(buf, buf + sizeof buf, v);
     out.append(buf, r.ptr);
 }
 
+inline void put_db(std::string& out, double power) {
+    if (!(power > 0)) {
+        out += "-inf";
+        return;
+    }
+    put_number(out, 10.0 * std::log10(power));
+}
+
+inline void put_phase_deg(std::string& out, cplx c) {
+    double a = std::arg(c) / deg;
+    if (a == 0) a = 0;  // no "-0"
+    put_number(out, a);
+}
+
+// One metadata line with newlines in the value kept as more lines of the same key.
+void put_meta(std::string& out, const char* key, const std::string& value) {
+    std::size_t a = 0;
+    while (a <= value.size()) {
+        std::size_t nl = value.find('\n', a);
+        std::string part = value.substr(a, nl == std::string::npos ? std::string::npos : nl - a);
+        for (char& c : part)
+            if (c == '\r') c = ' ';
+        out += std::string("# ") + key + ": " + part + "\n";
+        if (nl == std::string::npos || std::strcmp(key, "note") != 0) break;
+        a = nl + 1;
+    }
+}
+
 }  // namespace
 
 Result<std::string> format_far_field_csv(const FarFieldSet& s, const CsvWriteOptions& o) {
-    if (o.family != CsvFamily::complex)
-        return Error{"", 0, 0, std::string("writing the ") + to_string(o.family) + " family is not supported yet"};
-    if (!s.has_phase())
-        return Error{"", 0, 0, "the complex family needs phase; this set has " + std::string(to_string(s.content)) +
-                                   " data"};
+    const CsvFamily fam = o.family;
+    const bool needs_phase = fam == CsvFamily::complex || fam == CsvFamily::theta_phi_polar ||
+                             fam == CsvFamily::circular_polar || fam == CsvFamily::ludwig3_polar;
+    if (needs_phase && !s.has_phase())
+        return Error{"", 0, 0, std::string("expected complex data for the ") + to_string(fam) + " family, found " +
+                                   to_string(s.content) + " data (write theta-phi-db or total-db instead)"};
+    if (fam == CsvFamily::magnitude_db && s.content == FieldContent::total_only)
+        return Error{"", 0, 0, "expected theta and phi parts for the theta-phi-db family, found total-only data "
+                               "(write total-db instead)"};
+    const Grid& g = s.grid;
+    for (const FarField& f : s.frequencies)
+        if (f.e_theta.size() != g.size() || f.e_phi.size() != g.size())
+            return Error{"", 0, 0, "expected field arrays of the grid's size"};
+    const Ludwig3Reference ref = o.ludwig3_reference ? *o.ludwig3_reference : s.ludwig3_reference;
+
     std::string out;
-    out.reserve(s.grid.size() * s.frequencies.size() * 90 + 256);
+    out.reserve(g.size() * s.frequencies.size() * (fam == CsvFamily::total_db ? 40 : 100) + 512);
     out += "# ellipsa far-field CSV, schema version 1\n";
     out += std::string("# quantity: ") + to_string(s.quantity) + "\n";
     out += "# time-convention: +jwt\n";
     out += "# angle-unit: deg\n";
     out += "# frequency-unit: Hz\n";
-    if (!s.name.empty()) out += "# name: " + s.name + "\n";
-    if (!s.source.empty()) out += "# source: " + s.source + "\n";
-    if (!s.note.empty()) out += "# note: " + s.note + "\n";
-    out += "frequency,theta,phi,e_theta_re,e_theta_im,e_phi_re,e_phi_im\n";
-    const Grid& g = s.grid;
-    for (const FarField& f : s.frequencies)
-        for (int i = 0; i < g.theta.count; ++i)
+    if (fam == CsvFamily::ludwig3_polar) out += ref == Ludwig3Reference::x ? "# ludwig3-reference: x\n" : "# ludwig3-reference: y\n";
+    if (!s.name.empty()) put_meta(out, "name", s.name);
+    if (!s.source.empty()) put_meta(out, "source", s.source);
+    if (!s.note.empty()) put_meta(out, "note", s.note);
+    out += "frequency,theta,phi,";
+    switch (fam) {
+        case CsvFamily::complex: out += "e_theta_re,e_theta_im,e_phi_re,e_phi_im\n"; break;
+        case CsvFamily::theta_phi_polar: out += "e_theta_db,e_theta_phase,e_phi_db,e_phi_phase\n"; break;
+        case CsvFamily::circular_polar: out += "e_rhcp_db,e_rhcp_phase,e_lhcp_db,e_lhcp_phase\n"; break;
+        case CsvFamily::ludwig3_polar: out += "e_co_db,e_co_phase,e_cross_db,e_cross_phase\n"; break;
+        case CsvFamily::magnitude_db: out += "e_theta_db,e_phi_db\n"; break;
+        case CsvFamily::total_db: out += "e_total_db\n"; break;
+    }
+    std::vector<double> cos_phi(std::size_t(g.phi.count)), sin_phi(std::size_t(g.phi.count)), phi_deg(std::size_t(g.phi.count));
+    for (int j = 0; j < g.phi.count; ++j) {
+        phi_deg[std::size_t(j)] = wrap360(g.phi.value_deg(j));
+        cos_phi[std::size_t(j)] = std::cos(phi_deg[std::size_t(j)] * deg);
+        sin_phi[std::size_t(j)] = std::sin(phi_deg[std::size_t(j)] * deg);
+    }
+    for (const FarField& f : s.frequencies) {
+        char fbuf[32];
+        auto fr = std::to_chars(fbuf, fbuf + sizeof fbuf, f.frequency_hz);
+        const std::string_view ftext(fbuf, std::size_t(fr.ptr - fbuf));
+        for (int i = 0; i < g.theta.count; ++i) {
+            char tbuf[32];
+            auto tr = std::to_chars(tbuf, tbuf + sizeof tbuf, g.theta.value_deg(i));
+            const std::string_view ttext(tbuf, std::size_t(tr.ptr - tbuf));
             for (int j = 0; j < g.phi.count; ++j) {
                 const std::size_t k = g.index(i, j);
-                put_number(out, f.frequency_hz);
+                const cplx et = f.e_theta[k], ep = f.e_phi[k];
+                out += ftext;
                 out += ',';
-                put_number(out, g.theta.value_deg(i));
+                out += ttext;
                 out += ',';
-                put_number(out, wrap360(g.phi.value_deg(j)));
+                put_number(out, phi_deg[std::size_t(j)]);
                 out += ',';
-                put_number(out, f.e_theta[k].real());
-                out += ',';
-                put_number(out, f.e_theta[k].imag());
-                out += ',';
-                put_number(out, f.e_phi[k].real());
-                out += ',';
-                put_number(out, f.e_phi[k].imag());
+                switch (fam) {
+                    case CsvFamily::complex:
+                        put_number(out, et.real());
+                        out += ',';
+                        put_number(out, et.imag());
+                        out += ',';
+                        put_number(out, ep.real());
+                        out += ',';
+                        put_number(out, ep.imag());
+                        break;
+                    case CsvFamily::theta_phi_polar:
+                        put_db(out, std::norm(et));
+                        out += ',';
+                        put_phase_deg(out, et);
+                        out += ',';
+                        put_db(out, std::norm(ep));
+                        out += ',';
+                        put_phase_deg(out, ep);
+                        break;
+                    case CsvFamily::circular_polar: {
+                        const cplx r = rhcp(et, ep), l = lhcp(et, ep);
+                        put_db(out, std::norm(r));
+                        out += ',';
+                        put_phase_deg(out, r);
+                        out += ',';
+                        put_db(out, std::norm(l));
+                        out += ',';
+                        put_phase_deg(out, l);
+                        break;
+                    }
+                    case CsvFamily::ludwig3_polar: {
+                        const CoCross cc = ludwig3(et, ep, cos_phi[std::size_t(j)], sin_phi[std::size_t(j)], ref);
+                        put_db(out, std::norm(cc.co));
+                        out += ',';
+                        put_phase_deg(out, cc.co);
+                        out += ',';
+                        put_db(out, std::norm(cc.cross));
+                        out += ',';
+                        put_phase_deg(out, cc.cross);
+                        break;
+                    }
+                    case CsvFamily::magnitude_db:
+                        put_db(out, std::norm(et));
+                        out += ',';
+                        put_db(out, std::norm(ep));
+                        break;
+                    case CsvFamily::total_db: put_db(out, std::norm(et) + std::norm(ep)); break;
+                }
                 out += '\n';
             }
+        }
+    }
     return out;
 }
 
 Status write_far_field_csv(const FarFieldSet& s, const std::string& path, const CsvWriteOptions& o) {
     auto text = format_far_field_csv(s, o);
     if (!text) return Error{path, 0, 0, text.error().message};
-    return write_file_atomically(path, *text, true);
+    return write_file_atomically(path, *text, o.overwrite);
 }
 
 }  // namespace ellipsa

@@ -1,0 +1,130 @@
+// Internal to the CSV reader: what the metadata lines and the header row say about a file
+// (delimiter, column roles, family, units), and the number parser of the data rows.
+// Not part of the importer API; far_field_csv.hpp is.
+#pragma once
+#include <array>
+#include <cmath>
+#include <cstddef>
+#include <optional>
+#include <string>
+#include <string_view>
+#include <vector>
+
+#include <fast_float/fast_float.h>
+
+#include "importers/far_field_csv.hpp"
+
+namespace ellipsa::csv {
+
+// Column roles of the schema. The order is the documentation order.
+enum Col : int {
+    c_frequency, c_theta, c_phi, c_azimuth, c_elevation,
+    c_e_theta_re, c_e_theta_im, c_e_phi_re, c_e_phi_im,
+    c_e_theta_db, c_e_theta_phase, c_e_phi_db, c_e_phi_phase,
+    c_e_rhcp_db, c_e_rhcp_phase, c_e_lhcp_db, c_e_lhcp_phase,
+    c_e_co_db, c_e_co_phase, c_e_cross_db, c_e_cross_phase,
+    c_e_total_db,
+    c_count
+};
+inline constexpr int c_ignore = -1;
+const char* column_name(int role);
+int column_role(std::string_view lower_name);  // -1 when unknown
+
+// A failure found while scanning, located by the byte offset of its line (line numbers are
+// counted only when an error is reported, so worker threads need not know them).
+struct Failure {
+    bool set = false;
+    std::size_t line_offset = 0;
+    long column = 0;  // 1-based byte column in the line; 0 when not tied to one
+    std::string message;
+};
+
+struct Layout {
+    char delimiter = ',';
+    bool decimal_comma = false;     // allowed when the delimiter is not a comma
+    std::size_t header_offset = 0;  // byte offset of the header line
+    std::size_t data_offset = 0;    // first byte after the header line
+    int cells = 0;                  // header cells (trailing empty ones dropped)
+    std::vector<int> role;          // per header cell: Col or c_ignore
+    std::vector<long> header_column;  // 1-based byte column of each header cell
+    std::array<int, c_count> column_of{};  // header cell of each role, -1 when absent
+    CsvFamily family = CsvFamily::complex;
+    bool az_el = false;
+    bool frequency_column = false;
+    int last_angle_cell = 0;  // highest header cell index pass 1 needs
+
+    // metadata
+    Quantity quantity = Quantity::gain;
+    bool minus_iwt = false;
+    double angle_to_deg = 1.0;      // deg per angle-unit
+    double phase_to_rad = pi / 180;  // rad per phase unit
+    double hz_per_unit = 1.0;
+    std::optional<double> frequency_hz;  // from metadata
+    std::optional<Ludwig3Reference> ludwig3_reference;
+    std::string name, source, note;
+
+    bool transform = false;  // any scale/offset set
+    std::array<double, c_count> scale{};
+    std::array<double, c_count> offset{};
+};
+
+// Read the metadata lines and the header row. Errors carry file, line and column.
+Result<Layout> read_layout(std::string_view text, const std::string& file, const CsvReadOptions& o);
+
+// Line number (1-based) of the line starting at `offset`.
+long line_number_at(std::string_view text, std::size_t offset);
+Error to_error(std::string_view text, const std::string& file, const Failure& f);
+
+// Short printable form of some bytes for messages: at most 40 characters, control bytes as \xNN.
+std::string quote_found(std::string_view s);
+
+enum class NumberStatus { ok, not_a_number, nan };
+
+// Parse the number cell that starts at p (cell content runs to the delimiter or e). Leading
+// and trailing spaces, a leading '+', surrounding double quotes and (when allowed) a decimal
+// comma are accepted. On success returns the pointer at the delimiter or e.
+inline const char* parse_number_cell(const char* p, const char* e, char delim, bool decimal_comma, double& v,
+                                     NumberStatus& st) {
+    while (p < e && (*p == ' ' || (*p == '\t' && delim != '\t'))) ++p;
+    bool quoted = false;
+    if (p < e && *p == '"') {
+        quoted = true;
+        ++p;
+        while (p < e && *p == ' ') ++p;
+    }
+    if (p < e && *p == '+') ++p;
+    auto r = fast_float::from_chars(p, e, v);
+    if (r.ec != std::errc()) {
+        st = NumberStatus::not_a_number;
+        return p;
+    }
+    if (decimal_comma && r.ptr < e && *r.ptr == ',') {
+        r = fast_float::from_chars_advanced(p, e, v, fast_float::parse_options{fast_float::chars_format::general, ','});
+        if (r.ec != std::errc()) {
+            st = NumberStatus::not_a_number;
+            return p;
+        }
+    }
+    const char* q = r.ptr;
+    while (q < e && (*q == ' ' || (*q == '\t' && delim != '\t'))) ++q;
+    if (quoted) {
+        if (q < e && *q == '"')
+            ++q;
+        else {
+            st = NumberStatus::not_a_number;
+            return p;
+        }
+        while (q < e && (*q == ' ' || (*q == '\t' && delim != '\t'))) ++q;
+    }
+    if (q < e && *q != delim) {
+        st = NumberStatus::not_a_number;
+        return p;
+    }
+    st = std::isnan(v) ? NumberStatus::nan : NumberStatus::ok;
+    return q;
+}
+
+// Trim spaces, tabs and surrounding double quotes; lower-case ASCII.
+std::string normalise_name(std::string_view s);
+
+}  // namespace ellipsa::csv
