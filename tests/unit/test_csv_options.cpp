@@ -48,7 +48,7 @@ TEST_CASE("metadata lines set quantity, names and frequency", "[csv][options]") 
     CHECK(s.frequencies[0].frequency_hz == Approx(2.4e9));
 }
 
-TEST_CASE("-iwt conjugates every phase", "[csv][options]") {
+TEST_CASE("a time convention of -iwt conjugates every phase", "[csv][options]") {
     // conventions.md: a file declared exp(-i w t) has all phases negated on import.
     FarFieldSet s = load("# time-convention: -iwt\ntheta,phi,e_theta_re,e_theta_im,e_phi_re,e_phi_im\n" +
                          grid_rows(",", "1,2,3,-4"));
@@ -115,7 +115,7 @@ TEST_CASE("semicolon and tab delimiters, decimal commas, CRLF, BOM, quotes, blan
     CHECK_FALSE(r.ok());
 }
 
-TEST_CASE("-inf and very low dB read as zero field", "[csv][options]") {
+TEST_CASE("minus infinity and very low dB read as zero field", "[csv][options]") {
     FarFieldSet s = load("theta,phi,e_theta_db,e_phi_db\n0,0,-inf,-1e30\n0,180,-INF,-3000\n90,0,0,-2999\n90,180,0,0\n");
     CHECK(s.content == FieldContent::magnitude_only);
     CHECK(at(s, 0, 0) == cplx(0, 0));
