@@ -77,7 +77,7 @@ int run_cut(const CutArgs& a) {
         // The elevation cut through the peak of the total power (the plane summarize() measures
         // its elevation beamwidth in).
         const Peak pk = find_peak(*s, *fi, Component::total);
-        spec = CutSpec::phi_cut(std::round(pk.phi_deg * 1e6) / 1e6);
+        spec = CutSpec::phi_cut(std::round(pk.phi_deg * 10) / 10);  // to 0.1 deg, as shown
     }
     auto cut = compute_cut(*s, *fi, spec, *comps, a.step_deg.value_or(0));
     if (!cut) return fail(exit_bad_input, a.file + ": " + cut.error().message);

@@ -413,11 +413,12 @@ void draw_polar(Pen& pen, const CutPlot& p, double x0, double y0, double x1, dou
             best_a = a;
         }
     }
+    // The rim's value is in the legend's scale note; the rings carry theirs, the outermost with the unit.
     pen.font(FontWeight::regular, 7.2);
-    for (std::size_t i = 0; i < rings.size(); ++i) {
+    for (std::size_t i = 1; i < rings.size(); ++i) {
         double x, y;
         g.at(best_a, sc.fraction(rings[i]), x, y);
-        const std::string s = num(rings[i], 0) + (i == 0 ? " " + p.value_unit : "");
+        const std::string s = num(rings[i], 0) + (i == 1 ? " " + p.value_unit : "");
         pen.halo(s, x, y, 0.5, true);
         pen.colour(ink_soft);
         pen.text(s, x, y, 0.5, true);

@@ -304,8 +304,9 @@ Result<std::vector<ReportFile>> build_report(const std::vector<ReportInput>& inp
     // Comparison.
     if (inputs.size() > 1) {
         doc.heading(2, "Comparison", "comparison");
-        // The frequency: the asked-for one, or for each pattern the one nearest the first pattern's first.
-        const double f0 = o.frequency_hz ? *o.frequency_hz : inputs[0].set.frequencies[freqs[0][0]].frequency_hz;
+        // Default: the middle one of the first pattern's frequencies (the design frequency of a band sweep).
+        const double f0 =
+            o.frequency_hz ? *o.frequency_hz : inputs[0].set.frequencies[freqs[0][freqs[0].size() / 2]].frequency_hz;
         std::vector<std::size_t> cfi(inputs.size());
         std::vector<PatternSummary> cs;
         bool same_f = true;
