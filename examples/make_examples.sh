@@ -31,11 +31,12 @@ for f in 2.40e9 2.45e9 2.50e9; do
     --noise-db 0.1 --noise-deg 0.5 --seed 12 --name "turnstile" \
     --note "invented: crossed printed dipoles in quadrature, RHCP toward +z" --out "$tmp/ts-$f.csv"
   ts+=("$tmp/ts-$f.csv")
-  # Small loop close to the ground plane: the loop's own E_phi plus a current it induces along the
-  # ground plane edge (x), in quadrature; the mix spreads power over every polarisation.
-  "$E" synth small-loop --step $STEP --frequency "$f" --out "$tmp/sl-$f.csv"
-  "$E" synth short-dipole --rotate-y 90 --step $STEP --frequency "$f" --out "$tmp/gx-$f.csv"
-  /usr/bin/python3 perturb.py --add "$tmp/sl-$f.csv" 1@0 --add "$tmp/gx-$f.csv" 0.8@90 --efficiency 0.55 \
+  # Small loop close to the ground plane, its board tipped 30 deg: the loop's own field plus a
+  # vertical current it drives on the ground plane, 0.9 times as strong and 60 deg ahead; the
+  # mix spreads power over every polarisation.
+  "$E" synth small-loop --rotate-x 30 --step $STEP --frequency "$f" --out "$tmp/sl-$f.csv"
+  "$E" synth short-dipole --step $STEP --frequency "$f" --out "$tmp/gz-$f.csv"
+  /usr/bin/python3 perturb.py --add "$tmp/sl-$f.csv" 1@0 --add "$tmp/gz-$f.csv" 0.9@60 --ground-tilt 0.25 --efficiency 0.75 \
     --noise-db 0.1 --noise-deg 0.5 --seed 13 --name "small loop" \
     --note "invented: small loop near the tag's ground plane, with the edge current it induces" \
     --out "$tmp/lp-$f.csv"
