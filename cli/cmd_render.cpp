@@ -1,0 +1,113 @@
+// ellipsa render: a 3D snapshot of a pattern as PNG, through the headless EGL context (works with
+// no display at all).
+#include <filesystem>
+#include <iostream>
+#include <memory>
+#include <optional>
+
+#include "cli/commands.hpp"
+#include "cli/load.hpp"
+#include "viewer/snapshot.hpp"
+
+namespace ellipsa::cli {
+namespace {
+struct RenderArgs {
+    std::string file, out, component = "total", color_by = "component", view, size = "1200x900", map = "viridis";
+    std::optional<double> frequency_hz;
+    double range_db = 30;
+    bool force = false, glyphs = false, software = false;
+    LoadOptions load;
+};
+
+bool parse_pair(const std::string& s, char sep, double& a, double& b) {
+    const auto k = s.find(sep);
+    if (k == std::string::npos) return false;
+    try {
+        std::size_t n1 = 0, n2 = 0;
+        a = std::stod(s.substr(0, k), &n1);
+        b = std::stod(s.substr(k + 1), &n2);
+        return n1 == k && n2 == s.size() - k - 1;
+    } catch (...) {
+        return false;
+    }
+}
+
+Registered add_render(CLI::App& root) {
+    auto a = std::make_shared<RenderArgs>();
+    CLI::App* sub = root.add_subcommand("render", "Write a 3D snapshot of a pattern (PNG, with colour bar); needs no display");
+    sub->add_option("FILE", a->file, "Far-field CSV file")->required();
+    sub->add_option("--out", a->out, "Output PNG file")->required();
+    sub->add_option("--component", a->component,
+                    "Radius from: total, theta, phi, vertical, horizontal, co, cross, rhcp, lhcp (default total)");
+    sub->add_option("--color-by", a->color_by,
+                    "Colour by: component, axial-ratio, rhcp-minus-lhcp, tilt (default component)");
+    sub->add_option("--view", a->view, "Eye direction AZ,EL in degrees (azimuth from +x toward +y, elevation above xy; default 35,22)");
+    sub->add_option("--size", a->size, "Image size WxH in pixels (default 1200x900)");
+    sub->add_option("--frequency", a->frequency_hz, "Frequency, Hz (nearest within 0.5 %; default the first)");
+    sub->add_option("--range", a->range_db, "Dynamic range below the peak shown by the radius, dB (default 30)")
+        ->check(CLI::Range(1.0, 200.0));
+    sub->add_option("--colormap", a->map, "Sequential colour map for gain: viridis, cividis, magma (default viridis)");
+    sub->add_flag("--glyphs", a->glyphs, "Draw polarisation ellipses on the surface");
+    sub->add_flag("--software", a->software, "Force Mesa's software renderer");
+    sub->add_flag("--force", a->force, "Overwrite an existing output file");
+    add_load_options(sub, a->load);
+    return {sub, [a]() -> int {
+                viewer::SnapshotOptions o;
+                if (!parse_component(a->component.c_str(), o.component)) {
+                    std::cerr << "ellipsa render: unknown --component '" << a->component << "'\n";
+                    return exit_usage;
+                }
+                if (!viewer::parse_color_by(a->color_by, o.color_by) || o.color_by == viewer::ColorBy::difference) {
+                    std::cerr << "ellipsa render: unknown --color-by '" << a->color_by
+                              << "' (expected component, axial-ratio, rhcp-minus-lhcp or tilt)\n";
+                    return exit_usage;
+                }
+                if (!viewer::parse_color_map(a->map, o.gain_map) || !viewer::is_sequential(o.gain_map)) {
+                    std::cerr << "ellipsa render: --colormap expects viridis, cividis or magma, found '" << a->map << "'\n";
+                    return exit_usage;
+                }
+                if (!a->view.empty() && !parse_pair(a->view, ',', o.view_azimuth_deg, o.view_elevation_deg)) {
+                    std::cerr << "ellipsa render: --view expects AZ,EL in degrees, e.g. 35,22; found '" << a->view << "'\n";
+                    return exit_usage;
+                }
+                if (o.view_elevation_deg < -90 || o.view_elevation_deg > 90) {
+                    std::cerr << "ellipsa render: --view elevation must lie in [-90, 90], found " << o.view_elevation_deg << "\n";
+                    return exit_usage;
+                }
+                double w = 0, h = 0;
+                if (!parse_pair(a->size, 'x', w, h) || w != int(w) || h != int(h) || w < 64 || h < 64 || w > 8192 || h > 8192) {
+                    std::cerr << "ellipsa render: --size expects WxH in pixels between 64 and 8192, e.g. 1200x900; found '"
+                              << a->size << "'\n";
+                    return exit_usage;
+                }
+                o.width = int(w), o.height = int(h);
+                o.range_db = a->range_db;
+                o.glyphs = a->glyphs;
+                o.software = a->software;
+                std::error_code ec;
+                if (!a->force && std::filesystem::exists(a->out, ec)) {
+                    std::cerr << "ellipsa render: " << a->out << " exists; use --force to overwrite it\n";
+                    return exit_bad_input;
+                }
+                auto s = load_pattern(a->file, a->load);
+                if (!s) {
+                    std::cerr << "ellipsa render: " << s.error().format() << "\n";
+                    return exit_bad_input;
+                }
+                auto k = pick_frequency(*s, a->frequency_hz, a->file);
+                if (!k) {
+                    std::cerr << "ellipsa render: " << k.error().format() << "\n";
+                    return exit_bad_input;
+                }
+                o.frequency_index = *k;
+                if (Status st = viewer::render_snapshot_png(*s, o, a->out, a->force); !st) {
+                    std::cerr << "ellipsa render: " << st.error().format() << "\n";
+                    return exit_bad_input;
+                }
+                std::cout << "wrote " << a->out << " (" << o.width << "x" << o.height << ")\n";
+                return exit_ok;
+            }};
+}
+const CommandRegistration registration(65, add_render);
+}  // namespace
+}  // namespace ellipsa::cli

@@ -1,0 +1,29 @@
+#!/usr/bin/env bash
+# Headless snapshot: `ellipsa render` with DISPLAY (and WAYLAND_DISPLAY) unset writes a PNG of
+# the asked size with surface pixels; it refuses to overwrite without --force and leaves the
+# existing file untouched; bad options are usage errors (exit 2).
+set -euo pipefail
+: "${ELLIPSA:?}" "${PNG_CHECK:?}"
+out=$(mktemp -d)
+trap 'rm -rf "$out"' EXIT
+unset DISPLAY WAYLAND_DISPLAY
+"$ELLIPSA" synth crossed-dipoles --step 2 --out "$out/turnstile.csv" >/dev/null
+"$ELLIPSA" render "$out/turnstile.csv" --out "$out/snap.png" --size 640x480 --view 30,20
+"$PNG_CHECK" "$out/snap.png" 640 480 0.04
+"$ELLIPSA" render "$out/turnstile.csv" --out "$out/ar.png" --size 500x400 --color-by axial-ratio --component rhcp --glyphs
+"$PNG_CHECK" "$out/ar.png" 500 400 0.04
+before=$(cksum < "$out/snap.png")
+if "$ELLIPSA" render "$out/turnstile.csv" --out "$out/snap.png" --size 320x240 2>"$out/err"; then
+  echo "render overwrote an existing file without --force"; exit 1
+fi
+grep -q -- "--force" "$out/err"
+[[ "$(cksum < "$out/snap.png")" == "$before" ]]
+"$ELLIPSA" render "$out/turnstile.csv" --out "$out/snap.png" --size 320x240 --force
+"$PNG_CHECK" "$out/snap.png" 320 240 0.04
+set +e
+"$ELLIPSA" render "$out/turnstile.csv" --out "$out/x.png" --view nonsense 2>/dev/null; rc=$?
+set -e
+[[ $rc -eq 2 ]] || { echo "bad --view gave exit $rc, expected 2"; exit 1; }
+ls "$out"/.*tmp* 2>/dev/null && { echo "temporary file left behind"; exit 1; }
+"$ELLIPSA" --version | grep -q "OpenGL: "
+echo "render_headless: ok"

@@ -1,0 +1,13 @@
+#!/usr/bin/env bash
+# Windowed smoke test: the viewer opens the example under Xvfb, draws 5 frames and writes a
+# screenshot of the right size, not blank, with surface pixels (checked by png_check).
+set -euo pipefail
+: "${ELLIPSA:?}" "${PNG_CHECK:?}"
+if [[ -z "${XVFB_RUN:-}" ]] || ! command -v "$XVFB_RUN" >/dev/null; then
+  echo "xvfb-run not installed: skipping"; exit 77
+fi
+out=$(mktemp -d)
+trap 'rm -rf "$out"' EXIT
+export XDG_CONFIG_HOME="$out/config"
+"$XVFB_RUN" -a -s "-screen 0 1400x900x24" "$ELLIPSA" view ${VIEW_EXTRA:-} --size 1280x800 --frames 5 --screenshot "$out/shot.png"
+"$PNG_CHECK" "$out/shot.png" 1280 800 0.03

@@ -1,0 +1,22 @@
+// The interactive viewer: one GLFW window with the 3D view, the cut plot and the side panels.
+#pragma once
+#include <string>
+#include <vector>
+
+namespace ellipsa::viewer {
+
+struct ViewerOptions {
+    std::vector<std::string> files;  // empty: the bundled example (or the built-in demo)
+    bool software = false;
+    int width = 0, height = 0;       // 0: from the saved settings (default 1280 x 800)
+    int frames = 0;                  // > 0: run this many frames and exit
+    std::string screenshot;          // with frames: write the last frame as PNG
+    bool frame_stats = false;        // print one JSON line of frame times (vsync off)
+    bool save_settings = true;       // false for scripted runs (--frames)
+};
+
+// Runs until the window closes (or `frames` frames). Returns a process exit code (0 ok,
+// 1 when no window could be made or the screenshot could not be written).
+int run_viewer(const ViewerOptions& o);
+
+}  // namespace ellipsa::viewer

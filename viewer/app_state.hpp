@@ -1,0 +1,79 @@
+// Everything the viewer window knows, in one value: the loaded patterns, what is shown, the
+// camera, the probe and the persistent settings. Panels read it and return intents; the loop in
+// app.cpp applies them. Nothing here draws.
+#pragma once
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "pattern/cut.hpp"
+#include "pattern/far_field.hpp"
+#include "pattern/summary.hpp"
+#include "viewer/render_context.hpp"
+#include "viewer/scene/camera.hpp"
+#include "viewer/scene/picking.hpp"
+#include "viewer/scene/settings.hpp"
+#include "viewer/scene/surface_mesh.hpp"
+#include "viewer/ui_style.hpp"
+
+namespace ellipsa::viewer {
+
+struct LoadedPattern {
+    FarFieldSet set;
+    std::string path;  // empty for built-in patterns
+    std::vector<PatternSummary> summaries;  // per frequency, filled on first use
+};
+
+// One component's curve on the current cut.
+struct CutCurve {
+    Component component;
+    int pattern = 0;         // index into patterns (A or B)
+    std::vector<double> db;  // NaN where invalid
+};
+
+struct CutData {
+    CutSpec spec;
+    std::vector<double> angle_deg, theta_deg, phi_deg;
+    std::vector<CutCurve> curves;
+    BeamFigures figures;      // of the first curve
+    std::string unit;
+    double peak_db = 0;
+    bool valid = false;
+};
+
+struct AppState {
+    std::vector<LoadedPattern> patterns;
+    int active = 0;    // A
+    int compare = -1;  // B for the difference view, -1 none
+    std::size_t freq = 0;
+    ViewerSettings settings;
+    OrbitCamera camera;
+    RendererInfo renderer;
+    UiFonts fonts;
+
+    SurfaceMesh mesh;
+    std::string mesh_error;  // why the surface cannot be shown (shown in the view)
+    double mesh_build_ms = 0;
+    bool mesh_dirty = true, glyphs_dirty = true, cut_dirty = true;
+    CutData cut;
+
+    std::optional<Pick> hover, pinned;
+    std::string path_input;
+    std::string load_error;  // last failed load, shown until dismissed
+    std::string note;        // e.g. "built-in demo"
+    bool show_help = false;
+    bool want_export = false;
+    std::string export_message;
+
+    const LoadedPattern* active_pattern() const {
+        return active >= 0 && active < int(patterns.size()) ? &patterns[std::size_t(active)] : nullptr;
+    }
+    const LoadedPattern* compare_pattern() const {
+        return compare >= 0 && compare < int(patterns.size()) && compare != active ? &patterns[std::size_t(compare)] : nullptr;
+    }
+    // The frequency index to use for pattern p (nearest to A's current frequency).
+    std::size_t freq_for(const LoadedPattern& p) const;
+    const PatternSummary* summary();
+};
+
+}  // namespace ellipsa::viewer

@@ -1,0 +1,209 @@
+// The cut panel: polar or rectangular plot of the active cut with several components (and the B
+// pattern) overlaid, a legend, dB grid labels, -3 dB markers and the HPBW / front-to-back readout.
+#include <imgui.h>
+
+#include <cmath>
+#include <cstdio>
+
+#include "viewer/panels.hpp"
+#include "viewer/scene/components.hpp"
+#include "viewer/scene/plot_math.hpp"
+
+namespace ellipsa::viewer {
+
+namespace {
+// Okabe-Ito colours (colour-blind safe), in the order curves are added.
+const ImU32 curve_colors[] = {IM_COL32(0, 114, 178, 255), IM_COL32(213, 94, 0, 255),  IM_COL32(0, 158, 115, 255),
+                              IM_COL32(204, 121, 167, 255), IM_COL32(86, 180, 233, 255), IM_COL32(230, 159, 0, 255),
+                              IM_COL32(90, 90, 90, 255),   IM_COL32(240, 228, 66, 255), IM_COL32(0, 0, 0, 255)};
+const ImU32 ink = IM_COL32(34, 38, 46, 255), grid = IM_COL32(205, 206, 203, 255), muted = IM_COL32(95, 100, 108, 255);
+
+void plot_polar(ImDrawList* dl, ImVec2 c, float R, const CutData& cd, double top, double range) {
+    for (double lv : db_grid_levels(top, range)) {
+        const float r = R * float(polar_radius(lv, top, range));
+        dl->AddCircle(c, r, grid, 72, 1.0f);
+        char b[16];
+        std::snprintf(b, sizeof b, "%g", lv);
+        dl->AddText(ImVec2(c.x + 3, c.y - r - 14), muted, b);
+    }
+    for (int a = 0; a < 360; a += 30) {
+        const float x = std::sin(float(a * pi / 180)), y = -std::cos(float(a * pi / 180));
+        dl->AddLine(c, ImVec2(c.x + R * x, c.y + R * y), grid);
+        char b[16];
+        const int shown = cd.spec.kind == CutKind::theta_const ? a : (a > 180 ? a - 360 : a);
+        std::snprintf(b, sizeof b, "%d\u00b0", shown);
+        const ImVec2 ts = ImGui::CalcTextSize(b);
+        dl->AddText(ImVec2(c.x + (R + 12) * x - ts.x * 0.5f, c.y + (R + 10) * y - ts.y * 0.5f), muted, b);
+    }
+    for (std::size_t k = 0; k < cd.curves.size(); ++k) {
+        const CutCurve& cv = cd.curves[k];
+        std::vector<ImVec2> pts;
+        auto flush = [&] {
+            if (pts.size() > 1) dl->AddPolyline(pts.data(), int(pts.size()), curve_colors[k % 9], 0, cv.pattern == 0 ? 2.0f : 1.5f);
+            pts.clear();
+        };
+        for (std::size_t i = 0; i <= cd.angle_deg.size(); ++i) {
+            const std::size_t j = i % cd.angle_deg.size();
+            const double v = cv.db[j];
+            if (std::isnan(v)) {
+                flush();
+                continue;
+            }
+            const float r = R * float(polar_radius(v, top, range));
+            const float a = float(cd.angle_deg[j] * pi / 180);
+            pts.push_back(ImVec2(c.x + r * std::sin(a), c.y - r * std::cos(a)));
+        }
+        flush();
+    }
+    // -3 dB markers of the first curve.
+    const BeamFigures& bf = cd.figures;
+    for (const std::optional<double>& x : {bf.left_deg, bf.right_deg})
+        if (x) {
+            const float r = R * float(polar_radius(bf.peak_db - 3.0103, top, range)), a = float(*x * pi / 180);
+            const ImVec2 p(c.x + r * std::sin(a), c.y - r * std::cos(a));
+            dl->AddLine(c, p, IM_COL32(120, 120, 120, 200), 1.0f);
+            dl->AddCircle(p, 4, ink, 12, 1.5f);
+        }
+}
+
+void plot_rect(ImDrawList* dl, ImVec2 p0, ImVec2 p1, const CutData& cd, double top, double range) {
+    const double a0 = cd.angle_deg.front(), a1 = cd.angle_deg.front() + 360;
+    auto X = [&](double a) { return p0.x + float((a - a0) / (a1 - a0)) * (p1.x - p0.x); };
+    auto Y = [&](double db) { return p1.y - float(polar_radius(db, top, range)) * (p1.y - p0.y); };
+    for (double lv : db_grid_levels(top, range)) {
+        dl->AddLine(ImVec2(p0.x, Y(lv)), ImVec2(p1.x, Y(lv)), grid);
+        char b[16];
+        std::snprintf(b, sizeof b, "%g", lv);
+        const ImVec2 ts = ImGui::CalcTextSize(b);
+        dl->AddText(ImVec2(p0.x - ts.x - 4, Y(lv) - ts.y * 0.5f), muted, b);
+    }
+    for (int a = int(a0); a <= int(a1); a += 45) {
+        dl->AddLine(ImVec2(X(a), p0.y), ImVec2(X(a), p1.y), grid);
+        char b[16];
+        std::snprintf(b, sizeof b, "%d\u00b0", a);
+        const ImVec2 ts = ImGui::CalcTextSize(b);
+        dl->AddText(ImVec2(X(a) - ts.x * 0.5f, p1.y + 2), muted, b);
+    }
+    dl->AddRect(p0, p1, IM_COL32(160, 160, 160, 255));
+    for (std::size_t k = 0; k < cd.curves.size(); ++k) {
+        const CutCurve& cv = cd.curves[k];
+        std::vector<ImVec2> pts;
+        auto flush = [&] {
+            if (pts.size() > 1) dl->AddPolyline(pts.data(), int(pts.size()), curve_colors[k % 9], 0, cv.pattern == 0 ? 2.0f : 1.5f);
+            pts.clear();
+        };
+        for (std::size_t i = 0; i < cd.angle_deg.size(); ++i) {
+            if (std::isnan(cv.db[i])) {
+                flush();
+                continue;
+            }
+            pts.push_back(ImVec2(X(cd.angle_deg[i]), Y(cv.db[i])));
+        }
+        flush();
+    }
+    const BeamFigures& bf = cd.figures;
+    const float y3 = Y(bf.peak_db - 3.0103);
+    for (const std::optional<double>& x : {bf.left_deg, bf.right_deg})
+        if (x) {
+            double a = *x;
+            while (a < a0) a += 360;
+            while (a > a1) a -= 360;
+            dl->AddLine(ImVec2(X(a), y3 - 8), ImVec2(X(a), y3 + 8), ink, 1.5f);
+        }
+    if (bf.left_deg || bf.right_deg) dl->AddLine(ImVec2(p0.x, y3), ImVec2(p1.x, y3), IM_COL32(150, 150, 150, 140), 1.0f);
+}
+}  // namespace
+
+Intents draw_cut_panel(AppState& s) {
+    Intents in;
+    ViewerSettings& st = s.settings;
+    const LoadedPattern* a = s.active_pattern();
+    if (!a) return in;
+    // Controls on the left, plot on the right.
+    const float controls_w = 230;
+    ImGui::BeginChild("cutcontrols", ImVec2(controls_w, 0), false);
+    if (ImGui::RadioButton("\u03c6 = const", st.cut_kind == 0)) st.cut_kind = 0, in.recut = true;
+    ImGui::SameLine();
+    if (ImGui::RadioButton("\u03b8 = const", st.cut_kind == 1)) st.cut_kind = 1, in.recut = true;
+    if (ImGui::RadioButton("through the pinned direction", st.cut_kind == 2)) st.cut_kind = 2, in.recut = true;
+    if (st.cut_kind < 2) {
+        float ang = float(st.cut_angle_deg);
+        ImGui::SetNextItemWidth(-1);
+        if (st.cut_kind == 0 ? ImGui::SliderFloat("##ang", &ang, 0, 180, "\u03c6 = %.0f\u00b0")
+                             : ImGui::SliderFloat("##ang", &ang, 0, 180, "\u03b8 = %.0f\u00b0")) {
+            st.cut_angle_deg = std::round(ang);
+            in.recut = true;
+        }
+    } else if (!s.pinned) {
+        ImGui::TextDisabled("click the surface to pin");
+    }
+    ImGui::Checkbox("polar", &st.polar_plot);
+    ImGui::Separator();
+    for (Component c : all_components) {
+        if (c == Component::vertical || c == Component::horizontal) continue;  // same as theta and phi here
+        if (!unavailable_reason(a->set, c).empty()) continue;
+        bool on = (st.cut_components >> unsigned(c)) & 1u;
+        if (ImGui::Checkbox(label_of(c), &on)) {
+            st.cut_components ^= 1u << unsigned(c);
+            in.recut = true;
+        }
+    }
+    ImGui::EndChild();
+    ImGui::SameLine();
+    ImGui::BeginChild("cutplot", ImVec2(0, 0), false);
+    const CutData& cd = s.cut;
+    const ImVec2 o = ImGui::GetCursorScreenPos(), avail = ImGui::GetContentRegionAvail();
+    ImDrawList* dl = ImGui::GetWindowDrawList();
+    if (!cd.valid || cd.angle_deg.empty()) {
+        ImGui::TextDisabled(st.cut_kind == 2 ? "Pin a direction to cut through it." : "Choose at least one component.");
+        ImGui::EndChild();
+        return in;
+    }
+    const double range = st.range_db, top = plot_top_db(cd.peak_db, range);
+    const float legend_w = 210;
+    const float plot_w = avail.x - legend_w, plot_h = avail.y;
+    if (st.polar_plot) {
+        const float R = std::max(20.0f, std::min(plot_w, plot_h) * 0.5f - 24);
+        plot_polar(dl, ImVec2(o.x + plot_w * 0.5f, o.y + plot_h * 0.5f), R, cd, top, range);
+    } else {
+        plot_rect(dl, ImVec2(o.x + 40, o.y + 8), ImVec2(o.x + plot_w - 10, o.y + plot_h - 22), cd, top, range);
+    }
+    // Legend and readouts.
+    float ly = o.y + 4;
+    const float lx = o.x + plot_w + 6;
+    dl->AddText(ImVec2(lx, ly), ink, cd.spec.label().c_str());
+    ly += 20;
+    for (std::size_t k = 0; k < cd.curves.size(); ++k) {
+        const CutCurve& cv = cd.curves[k];
+        dl->AddLine(ImVec2(lx, ly + 8), ImVec2(lx + 22, ly + 8), curve_colors[k % 9], cv.pattern == 0 ? 2.5f : 1.5f);
+        std::string name = std::string(label_of(cv.component)) + (s.compare_pattern() ? (cv.pattern == 0 ? " (A)" : " (B)") : "");
+        dl->AddText(ImVec2(lx + 28, ly), ink, name.c_str());
+        ly += 18;
+    }
+    ly += 6;
+    char b[128];
+    const BeamFigures& bf = cd.figures;
+    std::snprintf(b, sizeof b, "peak %.2f %s at %.1f\u00b0", bf.peak_db, cd.unit.c_str(), bf.peak_angle_deg);
+    dl->AddText(ImVec2(lx, ly), ink, b);
+    ly += 18;
+    if (bf.hpbw_deg)
+        std::snprintf(b, sizeof b, "HPBW %.1f\u00b0 (-3 dB marks)", *bf.hpbw_deg);
+    else
+        std::snprintf(b, sizeof b, "HPBW: no -3 dB points");
+    dl->AddText(ImVec2(lx, ly), ink, b);
+    ly += 18;
+    if (bf.front_to_back_db)
+        std::snprintf(b, sizeof b, "front-to-back %.2f dB", *bf.front_to_back_db);
+    else
+        std::snprintf(b, sizeof b, "front-to-back: n/a");
+    dl->AddText(ImVec2(lx, ly), ink, b);
+    ly += 18;
+    if (bf.sidelobe_db) {
+        std::snprintf(b, sizeof b, "side lobe %.2f dB", *bf.sidelobe_db);
+        dl->AddText(ImVec2(lx, ly), ink, b);
+    }
+    ImGui::EndChild();
+    return in;
+}
+
+}  // namespace ellipsa::viewer

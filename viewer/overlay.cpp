@@ -1,0 +1,65 @@
+#include "viewer/overlay.hpp"
+
+#include <cmath>
+#include <cstdio>
+
+namespace ellipsa::viewer {
+
+namespace {
+double nice_step(double span, int target) {
+    const double raw = span / target;
+    const double p = std::pow(10.0, std::floor(std::log10(raw)));
+    for (double m : {1.0, 2.0, 2.5, 5.0, 10.0})
+        if (raw <= m * p) return m * p;
+    return 10 * p;
+}
+}  // namespace
+
+void draw_color_bar(ImDrawList* dl, ImVec2 pos, ImVec2 size, const ColorBar& bar, ImFont* font, ImFont* title_font) {
+    const ImU32 ink = IM_COL32(34, 38, 46, 255);
+    // Title (two lines if needed): "Total gain" / "dBi".
+    const std::string title = bar.title + " (" + bar.unit + ")";
+    ImFont* tf = title_font ? title_font : ImGui::GetFont();
+    const float tsize = tf->FontSize;
+    dl->AddText(tf, tsize, ImVec2(pos.x, pos.y - tsize * 1.6f), ink, title.c_str());
+    // Gradient in 64 bands, top = max.
+    const int bands = 64;
+    for (int b = 0; b < bands; ++b) {
+        const float y0 = pos.y + size.y * b / bands, y1 = pos.y + size.y * (b + 1) / bands + 0.5f;
+        const double t = 1.0 - (b + 0.5) / bands;
+        dl->AddRectFilled(ImVec2(pos.x, y0), ImVec2(pos.x + size.x, y1), to_u32(map_color(bar.map, t)));
+    }
+    dl->AddRect(pos, ImVec2(pos.x + size.x, pos.y + size.y), IM_COL32(90, 90, 90, 255));
+    // Ticks.
+    ImFont* f = font ? font : ImGui::GetFont();
+    const double span = bar.max - bar.min;
+    if (!(span > 0)) return;
+    const double step = bar.map == ColorMap::cyclic ? 45.0 : nice_step(span, 6);
+    const double first = std::ceil(bar.min / step - 1e-9) * step;
+    for (double v = first; v <= bar.max + 1e-9 * span; v += step) {
+        const float y = pos.y + float((bar.max - v) / span) * size.y;
+        dl->AddLine(ImVec2(pos.x + size.x, y), ImVec2(pos.x + size.x + 5, y), ink, 1.0f);
+        char buf[32];
+        std::snprintf(buf, sizeof buf, "%g", std::abs(v) < 1e-9 * span ? 0.0 : v);
+        dl->AddText(f, f->FontSize, ImVec2(pos.x + size.x + 8, y - f->FontSize * 0.5f), ink, buf);
+    }
+}
+
+void draw_axis_labels(ImDrawList* dl, const OrbitCamera& cam, ImVec2 origin, ImVec2 size, double length, ImFont* font) {
+    struct Axis {
+        glm::dvec3 tip;
+        const char* label;
+        ImU32 col;
+    } axes[] = {{{length, 0, 0}, "x  (\u03b8 90\u00b0, \u03c6 0\u00b0)", IM_COL32(150, 50, 40, 255)},
+                {{0, length, 0}, "y  (\u03c6 90\u00b0)", IM_COL32(40, 110, 55, 255)},
+                {{0, 0, length}, "z  (\u03b8 0\u00b0)", IM_COL32(40, 75, 150, 255)}};
+    ImFont* f = font ? font : ImGui::GetFont();
+    for (const Axis& a : axes) {
+        Projected p = project(cam, a.tip * 1.04, size.x, size.y);
+        if (!p.visible) continue;
+        dl->AddText(f, f->FontSize, ImVec2(origin.x + float(p.x) + 3, origin.y + float(p.y) - f->FontSize * 0.5f), a.col,
+                    a.label);
+    }
+}
+
+}  // namespace ellipsa::viewer

@@ -1,0 +1,24 @@
+// 2D annotations drawn over the 3D view with ImGui draw lists: the labelled colour bar, the
+// axis labels and the caption. Shared by the window and by headless snapshots, so an exported
+// image looks like the screen.
+#pragma once
+#include <imgui.h>
+
+#include <string>
+
+#include "viewer/scene/camera.hpp"
+#include "viewer/scene/surface_mesh.hpp"
+
+namespace ellipsa::viewer {
+
+// A vertical colour bar in the rectangle [pos, pos + size] (the gradient strip; labels go to its
+// right): title above, unit in the title, 5 to 7 tick labels.
+void draw_color_bar(ImDrawList* dl, ImVec2 pos, ImVec2 size, const ColorBar& bar, ImFont* font, ImFont* title_font);
+
+// Labels "x", "y", "z" (with theta/phi hints) at the tips of the axes of the given length,
+// projected with the camera into the view rectangle [origin, origin + size].
+void draw_axis_labels(ImDrawList* dl, const OrbitCamera& cam, ImVec2 origin, ImVec2 size, double length, ImFont* font);
+
+inline ImU32 to_u32(const Rgb& c, float a = 1) { return ImGui::ColorConvertFloat4ToU32(ImVec4(c.r, c.g, c.b, a)); }
+
+}  // namespace ellipsa::viewer

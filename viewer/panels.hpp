@@ -1,0 +1,35 @@
+// The side panels of the viewer window. Each reads the AppState, draws its widgets and returns
+// what the user asked for; the analysis lives in pattern/ and viewer/scene/, never here.
+#pragma once
+#include <string>
+#include <vector>
+
+#include "viewer/app_state.hpp"
+
+namespace ellipsa::viewer {
+
+struct Intents {
+    std::vector<std::string> open;  // files to load
+    int close = -1;                 // pattern index to close
+    bool rebuild_surface = false;   // component, colouring, range or frequency changed
+    bool rebuild_glyphs = false;
+    bool recut = false;
+    bool reset_view = false;
+    bool export_view = false;
+    void merge(const Intents& o);
+};
+
+Intents draw_patterns_panel(AppState& s);
+Intents draw_surface_panel(AppState& s);
+void draw_probe_panel(AppState& s);
+Intents draw_polarisation_panel(AppState& s);
+Intents draw_cut_panel(AppState& s);
+void draw_help_overlay(AppState& s);
+
+// The figures of one direction, as label/value rows (for the probe panel and tests of the UI).
+struct ProbeRow {
+    std::string label, value;
+};
+std::vector<ProbeRow> probe_rows(const FarFieldSet& set, std::size_t freq, double theta_deg, double phi_deg);
+
+}  // namespace ellipsa::viewer

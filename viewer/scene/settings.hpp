@@ -1,0 +1,42 @@
+// The viewer's own persistent settings (beside ImGui's imgui.ini): a small "key = value" text file
+// under $XDG_CONFIG_HOME/ellipsa/viewer.conf (or ~/.config/ellipsa/viewer.conf). This header is
+// the pure part: the values, and their text form. Unknown keys and bad values are skipped and
+// reported, so an old or hand-edited file never stops the viewer from starting.
+#pragma once
+#include <string>
+#include <vector>
+
+#include "pattern/polarisation.hpp"
+#include "viewer/scene/colormap.hpp"
+#include "viewer/scene/components.hpp"
+
+namespace ellipsa::viewer {
+
+struct ViewerSettings {
+    Component component = Component::total;
+    ColorBy color_by = ColorBy::component;
+    ColorMap gain_map = ColorMap::viridis;
+    double range_db = 30;
+    bool wireframe = false;
+    bool translucent = false;
+    bool glyphs = true;
+    double glyph_spacing_deg = 15;
+    bool polar_plot = true;
+    int cut_kind = 0;          // 0 phi = const, 1 theta = const, 2 through the pinned direction
+    double cut_angle_deg = 0;  // phi for kind 0, theta for kind 1
+    unsigned cut_components = 1u;  // bit per Component (bit 0: total)
+    double poincare_within_db = 3;
+    int window_width = 1280, window_height = 800;
+    float left_panel_width = 300, right_panel_width = 340, cut_panel_height = 300;
+    std::vector<std::string> recent_files;  // most recent first, at most max_recent
+    static constexpr std::size_t max_recent = 10;
+
+    // Put a path at the front of the recent list (removing an older copy).
+    void remember_file(const std::string& path);
+};
+
+std::string format_settings(const ViewerSettings& s);
+// Parse settings text; problems ("line 4: unknown key 'foo'") are appended to `warnings`.
+ViewerSettings parse_settings(const std::string& text, std::vector<std::string>* warnings = nullptr);
+
+}  // namespace ellipsa::viewer

@@ -1,0 +1,138 @@
+#include "viewer/snapshot.hpp"
+
+#include <imgui.h>
+#include <imgui_impl_opengl3.h>
+#include <stb_image_write.h>
+
+#include <algorithm>
+#include <cstdio>
+
+#include "importers/atomic_write.hpp"
+#include "viewer/gl.hpp"
+#include "viewer/overlay.hpp"
+#include "viewer/render_context.hpp"
+#include "viewer/scene/glyphs.hpp"
+#include "viewer/scene_renderer.hpp"
+#include "viewer/ui_style.hpp"
+
+namespace ellipsa::viewer {
+
+namespace {
+std::string frequency_text(double hz) {
+    char buf[64];
+    if (!(hz > 0)) return "frequency unknown";
+    if (hz >= 1e9)
+        std::snprintf(buf, sizeof buf, "%g GHz", hz / 1e9);
+    else if (hz >= 1e6)
+        std::snprintf(buf, sizeof buf, "%g MHz", hz / 1e6);
+    else
+        std::snprintf(buf, sizeof buf, "%g Hz", hz);
+    return buf;
+}
+
+// Restores the caller's ImGui context (the viewer window may be exporting).
+struct ImGuiContextGuard {
+    ImGuiContext* saved = ImGui::GetCurrentContext();
+    ImGuiContext* mine = ImGui::CreateContext();
+    ImGuiContextGuard() { ImGui::SetCurrentContext(mine); }
+    ~ImGuiContextGuard() {
+        ImGui::DestroyContext(mine);
+        ImGui::SetCurrentContext(saved);
+    }
+};
+}  // namespace
+
+std::string encode_png(const std::vector<std::uint8_t>& rgba, int w, int h) {
+    std::string out;
+    stbi_write_png_to_func(
+        [](void* ctx, void* data, int size) { static_cast<std::string*>(ctx)->append(static_cast<const char*>(data), std::size_t(size)); },
+        &out, w, h, 4, rgba.data(), w * 4);
+    return out;
+}
+
+Result<std::vector<std::uint8_t>> render_snapshot_rgba(const FarFieldSet& s, const SnapshotOptions& o) {
+    if (o.width < 64 || o.height < 64 || o.width > 8192 || o.height > 8192)
+        return Error{"", 0, 0, "image size must be between 64x64 and 8192x8192, found " + std::to_string(o.width) + "x" +
+                                   std::to_string(o.height)};
+    if (o.frequency_index >= s.frequencies.size()) return Error{s.source, 0, 0, "frequency index out of range"};
+    SurfaceOptions so;
+    so.component = o.component;
+    so.color_by = o.color_by;
+    so.range_db = o.range_db;
+    so.gain_map = o.gain_map;
+    auto mesh = build_surface(s, o.frequency_index, so, o.compare, o.compare_frequency_index);
+    if (!mesh) return mesh.error();
+
+    ContextRequest req;
+    req.software = o.software;
+    req.width = o.width;
+    req.height = o.height;
+    auto ctx = create_headless_context(req);
+    if (!ctx) return ctx.error();
+
+    OffscreenTarget target;
+    if (Status st = target.create(o.width, o.height, 4); !st) return st.error();
+    SceneRenderer scene;
+    if (Status st = scene.init(); !st) return st.error();
+    scene.set_surface(*mesh);
+    scene.set_axes(build_axes(1.3));
+    if (o.glyphs && s.has_phase()) scene.set_glyphs(build_glyphs(s, o.frequency_index, *mesh, GlyphOptions{}));
+
+    // Layout: the 3D view on the left, the colour bar in a strip on the right.
+    const float bar_strip = std::max(150.0f, o.width * 0.16f);
+    const int view_w = o.width - int(bar_strip);
+    OrbitCamera cam;
+    cam.azimuth_deg = o.view_azimuth_deg;
+    cam.elevation_deg = std::clamp(o.view_elevation_deg, -89.5, 89.5);
+    SceneStyle style;
+    style.background = {1, 1, 1};
+    style.cut_ring = false;
+    target.bind();
+    glViewport(0, 0, o.width, o.height);
+    glClearColor(1, 1, 1, 1);
+    glClear(GL_COLOR_BUFFER_BIT | GL_DEPTH_BUFFER_BIT);
+    scene.draw(cam, 0, 0, view_w, o.height, style, true);
+
+    // Annotations with ImGui draw lists.
+    ImGuiContextGuard guard;
+    ImGuiIO& io = ImGui::GetIO();
+    io.IniFilename = nullptr;
+    io.LogFilename = nullptr;
+    const float scale = std::clamp(o.height / 800.0f, 0.8f, 3.0f);
+    UiFonts fonts = setup_ui_style(scale);
+    io.DisplaySize = ImVec2(float(o.width), float(o.height));
+    io.DeltaTime = 1.0f / 60;
+    if (!ImGui_ImplOpenGL3_Init("#version 330")) return Error{"", 0, 0, "cannot start the ImGui OpenGL renderer"};
+    ImGui_ImplOpenGL3_NewFrame();
+    ImGui::NewFrame();
+    ImDrawList* dl = ImGui::GetBackgroundDrawList();
+    const ImU32 ink = IM_COL32(34, 38, 46, 255), muted = IM_COL32(95, 100, 108, 255);
+    const std::string title = !o.title.empty() ? o.title
+                              : (s.name.empty() ? std::string("pattern") : s.name) + "  \u00b7  " +
+                                    frequency_text(s.frequencies[o.frequency_index].frequency_hz);
+    dl->AddText(fonts.title, fonts.title->FontSize, ImVec2(16 * scale, 12 * scale), ink, title.c_str());
+    char line[256];
+    std::snprintf(line, sizeof line, "radius: %s, %.4g %s at the peak, %g dB dynamic range", label_of(o.component),
+                  mesh->peak_db, mesh->unit.c_str(), o.range_db);
+    dl->AddText(fonts.small, fonts.small->FontSize, ImVec2(16 * scale, 12 * scale + fonts.title->FontSize * 1.35f), muted, line);
+    std::snprintf(line, sizeof line, "view from azimuth %g\u00b0, elevation %g\u00b0", o.view_azimuth_deg, o.view_elevation_deg);
+    dl->AddText(fonts.small, fonts.small->FontSize, ImVec2(16 * scale, o.height - fonts.small->FontSize * 1.8f), muted, line);
+    draw_axis_labels(dl, cam, ImVec2(0, 0), ImVec2(float(view_w), float(o.height)), 1.3, fonts.small);
+    const ImVec2 bar_pos(view_w + 18 * scale, o.height * 0.22f), bar_size(20 * scale, o.height * 0.56f);
+    draw_color_bar(dl, bar_pos, bar_size, mesh->bar, fonts.small, fonts.small);
+    ImGui::Render();
+    target.bind();
+    glViewport(0, 0, o.width, o.height);
+    ImGui_ImplOpenGL3_RenderDrawData(ImGui::GetDrawData());
+    std::vector<std::uint8_t> px = target.read_rgba();
+    ImGui_ImplOpenGL3_Shutdown();
+    return px;
+}
+
+Status render_snapshot_png(const FarFieldSet& s, const SnapshotOptions& o, const std::string& path, bool overwrite) {
+    auto px = render_snapshot_rgba(s, o);
+    if (!px) return px.error();
+    return write_file_atomically(path, encode_png(*px, o.width, o.height), overwrite);
+}
+
+}  // namespace ellipsa::viewer
