@@ -67,6 +67,16 @@ for ang in 30 -60 135; do
     || bad "CSV at angle $ang: $got_t/$got_r vs probe $want_t/$want_r"
 done
 
+# Magnitude-only data: components that need the phase are refused, the others are plotted.
+expect_rc 0 "convert to magnitude-only (theta-phi-db)" "$E" convert x.csv xm.csv --family theta-phi-db
+expect_rc 1 "rhcp on magnitude-only data is refused" "$E" cut xm.csv --phi 0 --components total,rhcp --out m.svg
+grep -q 'needs the phase' err.txt && ok "message says the component needs the phase: $(head -1 err.txt)" || bad "message: $(cat err.txt)"
+[[ ! -e m.svg ]] && ok "nothing written when refused" || bad "m.svg written"
+expect_rc 0 "theta/phi on magnitude-only data are plotted" "$E" cut xm.csv --phi 0 --components total,theta,phi --out m.svg
+expect_rc 0 "total-only data" "$E" convert x.csv xt.csv --family total-db
+expect_rc 1 "theta on total-only data is refused" "$E" cut xt.csv --phi 0 --components theta --out t.svg
+grep -q 'only the total' err.txt && ok "message says only the total is known" || bad "message: $(cat err.txt)"
+
 # Usage errors
 expect_rc 2 "two cuts at once is bad usage" "$E" cut d.csv --phi 0 --theta 90 --out u.svg
 expect_rc 2 "no cut is bad usage" "$E" cut d.csv --out u.svg
