@@ -163,6 +163,38 @@ std::string beam_text(const PlotCurve& c) {
     return s;
 }
 
+// Angle ranges [a0, a1] where no curve has data (outside the sampled region), from the first
+// curve's samples (all curves of one cut share them; overlays with other steps are skipped).
+std::vector<std::pair<double, double>> no_data_ranges(const CutPlot& p) {
+    std::vector<std::pair<double, double>> out;
+    if (p.curves.empty()) return out;
+    const PlotCurve& c0 = p.curves[0];
+    const std::size_t n = c0.angle_deg.size();
+    if (n < 2) return out;
+    for (const PlotCurve& c : p.curves)
+        if (c.angle_deg.size() != n) return out;
+    auto empty = [&](std::size_t k) {
+        for (const PlotCurve& c : p.curves)
+            if (!std::isnan(c.value_db[k])) return false;
+        return true;
+    };
+    const double step = c0.angle_deg[1] - c0.angle_deg[0];
+    std::size_t k = 0;
+    while (k < n) {
+        if (!empty(k)) {
+            ++k;
+            continue;
+        }
+        std::size_t j = k;
+        while (j + 1 < n && empty(j + 1)) ++j;
+        // The gap reaches half-way to the neighbouring samples that have data.
+        out.emplace_back(c0.angle_deg[k] - (k > 0 ? step / 2 : 0), c0.angle_deg[j] + (j + 1 < n ? step / 2 : step));
+        k = j + 1;
+    }
+    return out;
+}
+constexpr Rgb no_data_grey{0.93, 0.93, 0.93};
+
 // ---------------------------------------------------------------------------------- header ---
 double draw_header(Pen& pen, const CutPlot& p, double w, double m) {
     const double u = pen.u;
@@ -210,6 +242,8 @@ void draw_legend(Pen& pen, const CutPlot& p, double x0, double y0, double x1, do
         for (auto& l : wrap(pen, "Dots and dashed line: the −3 dB (half-power) points of " +
                                      p.curves[std::size_t(p.marked_curve)].label + ".", wrap_w))
             lines.push_back(l);
+    if (!no_data_ranges(p).empty())
+        for (auto& l : wrap(pen, "Grey: outside the sampled region (no data).", wrap_w)) lines.push_back(l);
     if (p.style == PlotStyle::polar) {
         const double top = plot_top_db(p), range = std::max(p.range_db, 1.0);
         for (auto& l : wrap(pen, "Radius: " + p.value_label + ", " + num(top - range, 0) + " (centre) to " + num(top, 0) +
@@ -244,6 +278,7 @@ void walk_curve(const PlotCurve& c, const Scale& sc, Emit emit) {
             emit(a, sc.fraction(v), true);
     }
 }
+
 
 // ----------------------------------------------------------------------------------- polar ---
 struct PolarGeom {
@@ -291,6 +326,20 @@ void draw_polar(Pen& pen, const CutPlot& p, double x0, double y0, double x1, dou
     const double margin = 24 * u;
     const double r = std::max(10.0, std::min(x1 - x0, y1 - y0 - bottom_caption) / 2 - margin);
     const PolarGeom g{(x0 + x1) / 2, y0 + (y1 - y0 - bottom_caption) / 2, r, p.layout};
+
+    // Outside the sampled region: light grey wedges.
+    for (const auto& [a0, a1] : no_data_ranges(p)) {
+        cairo_move_to(cr, g.cx, g.cy);
+        const int n = std::max(2, int(std::ceil(a1 - a0)));
+        for (int k = 0; k <= n; ++k) {
+            double x, y;
+            g.at(a0 + (a1 - a0) * k / n, 1.0, x, y);
+            cairo_line_to(cr, x, y);
+        }
+        cairo_close_path(cr);
+    }
+    pen.colour(no_data_grey);
+    cairo_fill(cr);
 
     // Minor spokes every 10 deg (outer part only), major every 30 deg, rings every `step` dB.
     cairo_set_line_cap(cr, CAIRO_LINE_CAP_BUTT);
@@ -448,6 +497,15 @@ void draw_rect(Pen& pen, const CutPlot& p, double x0, double y0, double x1, doub
     auto Y = [&](double f) { return by1 - (by1 - by0) * f; };
 
     cairo_set_line_cap(cr, CAIRO_LINE_CAP_BUTT);
+    // Outside the sampled region: light grey bands.
+    for (auto [a0, a1] : no_data_ranges(p)) {
+        while (a0 >= a_max) a0 -= 360, a1 -= 360;
+        while (a0 < a_min) a0 += 360, a1 += 360;
+        cairo_rectangle(cr, X(a0), by0, X(std::min(a1, a_max)) - X(a0), by1 - by0);
+        if (a1 > a_max) cairo_rectangle(cr, X(a_min), by0, X(a1 - 360) - X(a_min), by1 - by0);
+    }
+    pen.colour(no_data_grey);
+    cairo_fill(cr);
     // Grid.
     cairo_set_line_width(cr, 0.4 * u);
     pen.colour(grid_minor);

@@ -135,3 +135,32 @@ TEST_CASE("sizes and formats are parsed strictly", "[export]") {
     CHECK_FALSE(format_from_path("x.jpg"));
     CHECK_FALSE(format_from_path("dir.svg/file"));
 }
+
+TEST_CASE("the unsampled part of a cut is shaded and said so", "[export]") {
+    // Upper hemisphere only (theta 0..90), as a range measurement above a ground plane gives.
+    ReferenceAntenna a;
+    a.kind = ReferenceKind::dipole;
+    FarFieldSet full = synthesize(a, 2.0, 1e9);
+    FarFieldSet half = full;
+    half.grid.theta.count = 46;
+    for (FarField& f : half.frequencies) {
+        f.e_theta.resize(half.grid.size());
+        f.e_phi.resize(half.grid.size());
+    }
+    const std::string grey = "fill:rgb(93%,93%,93%)";
+    for (PlotStyle style : {PlotStyle::polar, PlotStyle::rect}) {
+        FigureOptions o;
+        o.style = style;
+        auto cut_half = compute_cut(half, 0, CutSpec::phi_cut(0), {Component::total});
+        auto cut_full = compute_cut(full, 0, CutSpec::phi_cut(0), {Component::total});
+        REQUIRE(cut_half.ok());
+        REQUIRE(cut_full.ok());
+        const CutPlot ph = make_cut_plot(half, *cut_half, o), pf = make_cut_plot(full, *cut_full, o);
+        CHECK(render(ph, FileFormat::svg).find(grey) != std::string::npos);
+        CHECK(render(pf, FileFormat::svg).find(grey) == std::string::npos);
+        // The cut's lower half (|theta| > 90) has no data: the curve holds NaN there.
+        std::size_t nan = 0;
+        for (double v : ph.curves[0].value_db) nan += std::isnan(v);
+        CHECK(nan > ph.curves[0].value_db.size() / 3);
+    }
+}
