@@ -50,6 +50,7 @@ Result<std::vector<ProfilePoint>> parse_elevation_profile(std::string_view text,
     bool have_header = false;
     long line_no = 0, last_line = 0;
     std::size_t pos = 0;
+    if (text.substr(0, 3) == "\xEF\xBB\xBF") pos = 3;  // a UTF-8 byte-order mark, as some spreadsheets write
     while (pos < text.size()) {
         std::size_t eol = text.find('\n', pos);
         std::string_view line = text.substr(pos, eol == std::string_view::npos ? std::string_view::npos : eol - pos);

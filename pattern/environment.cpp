@@ -316,6 +316,23 @@ double profile_xpr_db(const Environment& e) {
     return 10 * std::log10(v / h);
 }
 
+ElevationCurve elevation_curve(const Environment& e, int count) {
+    ElevationCurve c;
+    if (count < 1) return c;
+    double total[2];
+    for (int part = 0; part < 2; ++part)
+        total[part] = 2 * pi * simpson([&](double t) { return share_integrand(e, part == 0, t); }, 0, pi,
+                                       intervals_for(0, pi));
+    for (int k = 0; k < count; ++k) {
+        const double el = -90 + (k + 0.5) * 180.0 / count;
+        const double t = (90 - el) * deg;
+        c.elevation_deg.push_back(el);
+        c.p_v.push_back(total[0] > 0 ? raw_density(e, true, t) / total[0] : 0.0);
+        c.p_h.push_back(total[1] > 0 ? raw_density(e, false, t) / total[1] : 0.0);
+    }
+    return c;
+}
+
 bool polarisation_blind(const Environment& e) {
     if (e.xpr_db != 0) return false;
     switch (e.model) {

@@ -108,6 +108,13 @@ double profile_xpr_db(const Environment& e);
 // Total-only data (no V/H split) can be scored only in such an environment.
 bool polarisation_blind(const Environment& e);
 
+// The environment as curves over elevation, for plots: the densities per steradian, normalised
+// to integrate to 1 over the sphere, at `count` elevations centred in equal bands from -90 to 90 deg.
+struct ElevationCurve {
+    std::vector<double> elevation_deg, p_v, p_h;
+};
+ElevationCurve elevation_curve(const Environment& e, int count);
+
 // One-line human description: "Gaussian (urban): V 20 deg +- 20 deg, H ..., XPR 6 dB".
 std::string describe(const Environment& e);
 

@@ -38,6 +38,19 @@ grep -q '"model": "profile"' out.txt && ok "profile model used" || bad "profile 
 printf 'elevation_deg,p_v,p_h\n-20,0,0\n0,oops,0.5\n' > badprof.csv
 expect_rc 1 "bad profile is bad input" "$E" diversity z.csv --profile badprof.csv
 grep -q 'badprof.csv:3:3:' err.txt && ok "profile error names file:line:column" || bad "profile error: $(cat err.txt)"
+# Several frequencies: every figure per frequency; a one-frequency FILE2 pairs with each.
+expect_rc 0 "synth at 2.4 GHz" "$E" synth dipole --step 2 --frequency 2.4e9 --out f1.csv
+expect_rc 0 "synth loop at 2.5 GHz" "$E" synth small-loop --step 2 --frequency 2.5e9 --out f2.csv
+{ cat f1.csv; grep -v '^#' f2.csv | tail -n +2; } > two.csv
+expect_rc 0 "two frequencies" "$E" diversity two.csv x.csv --json
+n=$(grep -o '"meg_db"' out.txt | wc -l)
+[[ $n == 3 ]] && ok "one MEG per frequency and file (3)" || bad "expected 3 MEG figures, found $n"
+grep -q '"ecc": \[[^],]*,[^],]*\]' out.txt && ok "one ECC per frequency of FILE" || bad "ECC not per frequency: $(grep -o '"ecc": [^]]*]' out.txt)"
+expect_rc 0 "one frequency picked" "$E" diversity two.csv --frequency 2.5e9 --json
+grep -q '"frequency_hz": 2.5e+09' out.txt && ! grep -q '"frequency_hz": 2.4e+09' out.txt && ok "--frequency picks 2.5 GHz" || bad "--frequency did not pick"
+expect_rc 1 "absent frequency is bad input" "$E" diversity two.csv --frequency 5e9
+printf '\xEF\xBB\xBFelevation_deg,p_v,p_h\r\n0,1,1\r\n10,1,1\r\n' > bom.csv
+expect_rc 0 "profile with byte-order mark and CRLF" "$E" diversity z.csv --profile bom.csv
 expect_rc 1 "missing file is bad input" "$E" diversity no-such.csv
 echo "$pass passed, $fail failed"
 [[ $fail == 0 ]]

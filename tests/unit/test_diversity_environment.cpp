@@ -145,3 +145,27 @@ TEST_CASE("elevation profile files: good tables and clear errors", "[diversity][
     CHECK(!parse_elevation_profile("elevation_deg,p_v,p_h\n0,1,1\n", "t.csv"));
     CHECK(!parse_elevation_profile("", "t.csv"));
 }
+
+TEST_CASE("elevation curves for plots integrate to 1 over the sphere", "[diversity][environment]") {
+    // Taga 1990: each density integrates to 1; over the sphere dOmega = 2 pi cos(el) d(el).
+    Environment g;
+    g.model = EnvironmentModel::gaussian;
+    g.v_mean_deg = 10;
+    g.v_spread_deg = 15;
+    g.h_mean_deg = 30;
+    g.h_spread_deg = 25;
+    const int n = 1800;
+    ElevationCurve c = elevation_curve(g, n);
+    REQUIRE(int(c.elevation_deg.size()) == n);
+    double sv = 0, sh = 0;
+    const double d = pi / n;
+    for (int k = 0; k < n; ++k) {
+        sv += c.p_v[std::size_t(k)] * 2 * pi * std::cos(c.elevation_deg[std::size_t(k)] * deg) * d;
+        sh += c.p_h[std::size_t(k)] * 2 * pi * std::cos(c.elevation_deg[std::size_t(k)] * deg) * d;
+    }
+    CHECK(sv == Approx(1.0).epsilon(1e-5));
+    CHECK(sh == Approx(1.0).epsilon(1e-5));
+    // The uniform environment is 1 / (4 pi) everywhere.
+    ElevationCurve u = elevation_curve(Environment{}, 7);
+    for (double p : u.p_v) CHECK(p == Approx(1 / (4 * pi)).epsilon(1e-9));
+}
