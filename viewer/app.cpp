@@ -8,6 +8,7 @@
 #include <chrono>
 #include <cmath>
 #include <cstdio>
+#include <cstdlib>
 #include <ctime>
 #include <filesystem>
 #include <iostream>
@@ -71,6 +72,7 @@ void open_files(AppState& s, const std::vector<std::string>& files) {
         s.freq = 0;
         s.note.clear();
         s.mesh_dirty = s.cut_dirty = true;
+        ++s.generation;
     }
 }
 
@@ -392,6 +394,7 @@ int run_viewer(const ViewerOptions& opt) {
         if (!in.open.empty()) open_files(s, in.open);
         if (in.close >= 0 && in.close < int(s.patterns.size()) && s.patterns.size() > 1) {
             s.patterns.erase(s.patterns.begin() + in.close);
+            ++s.generation;
             if (s.compare == in.close) s.compare = -1;
             else if (s.compare > in.close) --s.compare;
             if (s.active >= in.close && s.active > 0) --s.active;
@@ -483,8 +486,8 @@ int run_viewer(const ViewerOptions& opt) {
         const float sx = io.DisplaySize.x > 0 ? fbw / io.DisplaySize.x : 1, sy = io.DisplaySize.y > 0 ? fbh / io.DisplaySize.y : 1;
         glBindFramebuffer(GL_FRAMEBUFFER, 0);
         glViewport(0, 0, fbw, fbh);
-        glClearColor(0.95f, 0.95f, 0.94f, 1);
-        glClear(GL_COLOR_BUFFER_BIT | GL_DEPTH_BUFFER_BIT);
+        // No full-window clear: the menu bar and the panels cover everything outside the 3D view,
+        // which the scene clears itself (a full clear costs llvmpipe a few ms per frame).
         SceneStyle style;
         style.wireframe = s.settings.wireframe;
         style.translucent = s.settings.translucent;
@@ -493,9 +496,21 @@ int run_viewer(const ViewerOptions& opt) {
         style.background = {0.985f, 0.985f, 0.98f};
         const int vx = int(L.view_pos.x * sx), vw = int(L.view_size.x * sx), vh = int(L.view_size.y * sy);
         const int vy = fbh - int((L.view_pos.y + L.view_size.y) * sy);
+        static const bool profile = std::getenv("ELLIPSA_FRAME_PROFILE") != nullptr;
+        auto tp0 = std::chrono::steady_clock::now();
+        if (profile) glFinish();
+        auto tp1 = std::chrono::steady_clock::now();
         scene.draw(s.camera, vx, vy, vw, vh, style, true);
+        if (profile) glFinish();
+        auto tp2 = std::chrono::steady_clock::now();
         glViewport(0, 0, fbw, fbh);
         ImGui_ImplOpenGL3_RenderDrawData(ImGui::GetDrawData());
+        if (profile) {
+            glFinish();
+            std::fprintf(stderr, "verts %d idx %d  cpu %.1f  clear %.1f  scene %.1f  ui %.1f ms\n", io.MetricsRenderVertices, io.MetricsRenderIndices, std::chrono::duration<double, std::milli>(tp0 - t0).count(),
+                         std::chrono::duration<double, std::milli>(tp1 - tp0).count(), std::chrono::duration<double, std::milli>(tp2 - tp1).count(),
+                         ms_since(tp2));
+        }
 
         ++frame;
         const bool last = opt.frames > 0 && frame >= opt.frames;

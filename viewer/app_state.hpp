@@ -12,6 +12,7 @@
 #include "viewer/render_context.hpp"
 #include "viewer/scene/camera.hpp"
 #include "viewer/scene/picking.hpp"
+#include "viewer/scene/poincare.hpp"
 #include "viewer/scene/settings.hpp"
 #include "viewer/scene/surface_mesh.hpp"
 #include "viewer/ui_style.hpp"
@@ -58,6 +59,15 @@ struct AppState {
     CutData cut;
 
     std::optional<Pick> hover, pinned;
+    // The Poincare cloud of the active pattern, recomputed only when its inputs change.
+    struct {
+        int generation = -1;
+        int active = -1;
+        std::size_t freq = 0;
+        double within_db = 0;
+        std::vector<PoincarePoint> points;
+    } poincare;
+    int generation = 0;  // bumped whenever patterns are opened or closed
     std::string path_input;
     std::string load_error;  // last failed load, shown until dismissed
     std::string note;        // e.g. "built-in demo"

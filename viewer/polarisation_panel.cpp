@@ -79,7 +79,8 @@ void draw_poincare(ImDrawList* dl, ImVec2 c, float r, const std::vector<Poincare
             SpherePoint2 p = view_sphere_point(q.s1, q.s2, q.s3, az, el);
             if ((p.depth >= 0) != (pass == 1)) continue;
             const ImU32 col = q.s3 > 0 ? IM_COL32(213, 94, 0, pass ? 150 : 55) : IM_COL32(0, 77, 140, pass ? 150 : 55);
-            dl->AddCircleFilled(ImVec2(c.x + r * float(p.x), c.y - r * float(p.y)), 1.8f, col, 6);
+            const ImVec2 at(c.x + r * float(p.x), c.y - r * float(p.y));
+            dl->AddRectFilled(ImVec2(at.x - 1.5f, at.y - 1.5f), ImVec2(at.x + 1.5f, at.y + 1.5f), col);
         }
     if (mark) {
         SpherePoint2 p = view_sphere_point(mark->s1, mark->s2, mark->s3, az, el);
@@ -111,7 +112,12 @@ Intents draw_polarisation_panel(AppState& s) {
     else
         dl->AddText(ImVec2(o.x + 4, o.y + size * 0.4f), IM_COL32(120, 120, 120, 255), "pin a direction");
     // Right: the Poincare sphere.
-    std::vector<PoincarePoint> cloud = poincare_cloud(a->set, s.freq, s.settings.poincare_within_db, 3000);
+    auto& pc = s.poincare;
+    if (pc.generation != s.generation || pc.active != s.active || pc.freq != s.freq || pc.within_db != s.settings.poincare_within_db) {
+        pc.points = poincare_cloud(a->set, s.freq, s.settings.poincare_within_db, 2000);
+        pc.generation = s.generation, pc.active = s.active, pc.freq = s.freq, pc.within_db = s.settings.poincare_within_db;
+    }
+    const std::vector<PoincarePoint>& cloud = pc.points;
     PoincarePoint mark;
     if (f) mark = poincare_point(stokes(f->e_theta, f->e_phi));
     draw_poincare(dl, ImVec2(o.x + w - size * 0.5f, o.y + size * 0.5f + 4), size * 0.40f, cloud, f ? &mark : nullptr);

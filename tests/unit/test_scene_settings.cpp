@@ -1,0 +1,75 @@
+// Viewer settings text: round trip, bad lines reported with their line number and skipped,
+// recent-file list kept short and without duplicates; and the cut-plot grid helpers.
+#include <catch2/catch.hpp>
+
+#include "viewer/scene/plot_math.hpp"
+#include "viewer/scene/settings.hpp"
+
+using namespace ellipsa;
+using namespace ellipsa::viewer;
+
+TEST_CASE("settings round-trip through their text form", "[scene][settings]") {
+    ViewerSettings s;
+    s.component = Component::rhcp;
+    s.color_by = ColorBy::tilt;
+    s.gain_map = ColorMap::magma;
+    s.range_db = 42;
+    s.wireframe = true;
+    s.cut_kind = 1;
+    s.cut_angle_deg = 60;
+    s.cut_components = 0x181;
+    s.window_width = 1600;
+    s.remember_file("/data/b.csv");
+    s.remember_file("/data/a b.csv");
+    std::vector<std::string> w;
+    ViewerSettings t = parse_settings(format_settings(s), &w);
+    CHECK(w.empty());
+    CHECK(t.component == Component::rhcp);
+    CHECK(t.color_by == ColorBy::tilt);
+    CHECK(t.gain_map == ColorMap::magma);
+    CHECK(t.range_db == 42);
+    CHECK(t.wireframe);
+    CHECK(t.cut_kind == 1);
+    CHECK(t.cut_angle_deg == 60);
+    CHECK(t.cut_components == 0x181u);
+    CHECK(t.window_width == 1600);
+    REQUIRE(t.recent_files.size() == 2);
+    CHECK(t.recent_files[0] == "/data/a b.csv");
+}
+
+TEST_CASE("bad settings lines are reported and skipped", "[scene][settings]") {
+    std::vector<std::string> w;
+    ViewerSettings t = parse_settings("range_db = 20\nnonsense\ncomponent = sideways\nrange_db = 9999\ngain_map = jet\nfoo = 1\n", &w);
+    CHECK(t.range_db == 20);
+    CHECK(t.component == Component::total);
+    CHECK(t.gain_map == ColorMap::viridis);
+    REQUIRE(w.size() == 5);
+    CHECK(w[0].rfind("line 2:", 0) == 0);
+    CHECK(w[2].find("range_db") != std::string::npos);
+}
+
+TEST_CASE("the recent-file list keeps the newest first, once, at most ten", "[scene][settings]") {
+    ViewerSettings s;
+    for (int i = 0; i < 14; ++i) s.remember_file("/f" + std::to_string(i));
+    s.remember_file("/f7");
+    CHECK(s.recent_files.size() == ViewerSettings::max_recent);
+    CHECK(s.recent_files[0] == "/f7");
+    CHECK(std::count(s.recent_files.begin(), s.recent_files.end(), "/f7") == 1);
+}
+
+TEST_CASE("cut plot dB grid: readable steps and levels", "[scene][plot]") {
+    // Common practice: 3 to 8 grid rings, steps of 3, 5, 10 or 20 dB.
+    CHECK(db_grid_step(20) == 3);
+    CHECK(db_grid_step(30) == 5);
+    CHECK(db_grid_step(60) == 10);
+    auto lv = db_grid_levels(5, 30);
+    REQUIRE(lv.size() == 7);
+    CHECK(lv.front() == 5);
+    CHECK(lv.back() == -25);
+    CHECK(plot_top_db(1.76, 30) == 5);
+    CHECK(plot_top_db(-3.2, 30) == 0);
+    CHECK(polar_radius(5, 5, 30) == 1);
+    CHECK(polar_radius(-10, 5, 30) == Approx(0.5));
+    CHECK(polar_radius(-100, 5, 30) == 0);
+    CHECK(std::isnan(polar_radius(NAN, 5, 30)));
+}
