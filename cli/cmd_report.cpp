@@ -13,6 +13,9 @@
 #include "exports/atomic_folder.hpp"
 #include "exports/report.hpp"
 #include "pattern/environment.hpp"
+#ifdef ELLIPSA_HAVE_VIEWER
+#include "viewer/snapshot.hpp"
+#endif
 
 namespace ellipsa::cli {
 
@@ -67,7 +70,20 @@ int run_report(const ReportArgs& a) {
         if (!valid) return fail(exit_usage, "environment: " + valid.error().message);
         o.environment = *env;
     }
-    o.snapshot_note = "3D views are not included: this build has no headless snapshot renderer.";
+#ifdef ELLIPSA_HAVE_VIEWER
+    // One 3D view per pattern and frequency through the headless EGL context (viewer/snapshot.hpp).
+    o.snapshot = [size = *size](const FarFieldSet& s, std::size_t fi) -> Result<std::string> {
+        viewer::SnapshotOptions so;
+        so.frequency_index = fi;
+        so.width = size.width_px;
+        so.height = size.height_px;
+        auto rgba = viewer::render_snapshot_rgba(s, so);
+        if (!rgba) return rgba.error();
+        return viewer::encode_png(*rgba, so.width, so.height);
+    };
+#else
+    o.snapshot_note = "3D views are not included: this build has no viewer (ELLIPSA_VIEWER=OFF).";
+#endif
 
     std::vector<ReportInput> inputs;
     for (const std::string& f : a.files) {

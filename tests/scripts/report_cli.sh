@@ -31,6 +31,13 @@ for f in rep/*.svg; do xmllint --noout "$f" 2>/dev/null || bad_svg=1; done
 [[ $bad_svg == 0 && $nsvg -ge 9 ]] && ok "$nsvg SVG figures, all well-formed" || bad "SVG figures: $nsvg, malformed: $bad_svg"
 ls rep/ | grep -q -- '-peak\.svg$' && ok "cut through an off-plane peak included" || bad "no peak cut: $(ls rep)"
 ls rep/ | grep -q '^compare-phi0\.svg$' && ok "comparison figures written" || bad "no comparison figures"
+# 3D views: required when this build can render headless (ellipsa render works), else a note.
+if "$E" render a.csv --out probe3d.png --size 64x48 >/dev/null 2>&1; then
+  [[ $(ls rep/*-3d.png 2>/dev/null | wc -l) == 2 ]] && ok "one 3D snapshot per pattern and frequency" || bad "3D snapshots: $(ls rep | grep 3d)"
+  grep -q -- '-3d.png' rep/index.html && grep -q -- '-3d.png' rep/report.md && ok "snapshots shown in both documents" || bad "snapshots not referenced"
+else
+  grep -q '3D view' rep/report.md && ok "no headless renderer here: the report says so" || bad "no snapshots and no note"
+fi
 # Handbook figure in both documents: full-wave dipole D = 3.82 dBi, HPBW 47.8 deg (Balanis sec. 4.5, Table 4.2).
 for d in index.html report.md; do
   grep -q '3\.8[12]' rep/$d && grep -q '47\.[6-9]' rep/$d && ok "$d carries the full-wave dipole's 3.82 dBi and 47.8 deg" || bad "$d lacks the dipole figures"

@@ -178,3 +178,29 @@ TEST_CASE("publish_folder: new, refused, replaced, failed fill, file in the way"
     CHECK(read_file(root / "plain") == "keep");
     fs::remove_all(root);
 }
+
+TEST_CASE("report: 3D snapshots come in through the callback, failures become a note", "[export][report]") {
+    std::vector<ReportInput> in{reference_input(ReferenceKind::dipole, "d")};
+    ReportOptions o;
+    o.size = RenderSize{320, 240, 40};
+    int calls = 0;
+    o.snapshot = [&](const FarFieldSet&, std::size_t fi) -> Result<std::string> {
+        ++calls;
+        CHECK(fi == 0);
+        return std::string("\x89PNG fake");
+    };
+    auto ok = build_report(in, o);
+    REQUIRE(ok.ok());
+    CHECK(calls == 1);
+    const ReportFile* snap = find(*ok, "p1-d-2450MHz-3d.png");
+    REQUIRE(snap);
+    CHECK(snap->bytes == "\x89PNG fake");
+    CHECK(find(*ok, "index.html")->bytes.find("p1-d-2450MHz-3d.png") != std::string::npos);
+    CHECK(find(*ok, "report.md")->bytes.find("p1-d-2450MHz-3d.png") != std::string::npos);
+
+    o.snapshot = [](const FarFieldSet&, std::size_t) -> Result<std::string> { return Error{"", 0, 0, "no EGL display"}; };
+    auto noted = build_report(in, o);
+    REQUIRE(noted.ok());
+    CHECK_FALSE(find(*noted, "p1-d-2450MHz-3d.png"));
+    CHECK(find(*noted, "report.md")->bytes.find("3D view unavailable: no EGL display") != std::string::npos);
+}
