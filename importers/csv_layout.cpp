@@ -130,6 +130,8 @@ Result<Layout> read_layout(std::string_view text, const std::string& file, const
         std::string_view line = text.substr(pos, nl == std::string_view::npos ? std::string_view::npos : nl - pos);
         pos = nl == std::string_view::npos ? text.size() : nl + 1;
         if (!line.empty() && line.back() == '\r') line.remove_suffix(1);
+        if (const std::size_t z = line.find('\0'); z != std::string_view::npos)
+            return fail(start, long(z) + 1, "expected text, found a NUL byte (a binary file?)");
         const std::size_t first = line.find_first_not_of(" \t,;");
         if (first == std::string_view::npos) continue;  // blank
         if (line[first] == '#') {

@@ -127,6 +127,7 @@ struct Context {
     const CsvReadOptions* options;
     const MappedFile* mapped = nullptr;
     std::atomic<bool> cancelled{false};
+    bool concurrent = false;  // more than one worker writes the arrays
     // grid (pass 2)
     double theta0 = 0, theta_step = 1, phi0 = 0, phi_step = 360;
     int n_theta = 1, n_phi = 1, phi_shift = 0;
@@ -151,6 +152,15 @@ void for_each_row(Context& ctx, Chunk& c, bool first_pass, double progress_base,
         const char* nl = static_cast<const char*>(std::memchr(p, '\n', std::size_t(end - p)));
         const char* e = nl ? nl : end;
         const char* next = nl ? nl + 1 : end;
+        if (first_pass) {
+            // Binary garbage: text never holds a NUL byte (checked line by line, so the pages
+            // are touched once, while they are being parsed).
+            if (const void* z = std::memchr(p, 0, std::size_t(e - p))) {
+                c.failure = {true, std::size_t(p - base), long(static_cast<const char*>(z) - p) + 1,
+                             "expected text, found a NUL byte (a binary file?)"};
+                return;
+            }
+        }
         if (e > p && e[-1] == '\r') --e;
         const char* q = p;
         while (q < e && (*q == ' ' || *q == '\t' || *q == delim)) ++q;
@@ -181,7 +191,7 @@ void for_each_row(Context& ctx, Chunk& c, bool first_pass, double progress_base,
         if ((++n & 4095) == 0) {
             if (ctx.cancelled.load(std::memory_order_relaxed)) return;
             const std::size_t done = std::size_t(p - base);
-            if (ctx.mapped && done - released > (16u << 20)) {
+            if (ctx.mapped && done - released > (2u << 20)) {
                 ctx.mapped->release(released, done - released);
                 released = done;
             }
@@ -366,9 +376,9 @@ void pass2(Context& ctx, Chunk& c, bool report_progress) {
             last_f_value = f;
         }
         const double it_d = (t - ctx.theta0) / ctx.theta_step;
-        const long it = std::lround(it_d);
+        const long it = it_d > -0.5 ? long(it_d + 0.5) : -1;
         const double ip_d = (ph - ctx.phi0) / ctx.phi_step;
-        long ip = std::lround(ip_d);
+        long ip = ip_d > -0.5 ? long(ip_d + 0.5) : -1;
         if (it < 0 || it >= ctx.n_theta || ip < 0 || ip >= ctx.n_phi_distinct)
             return fail_at(L.az_el ? c_elevation : c_theta, "internal: angle not on the first pass's grid");
         bool alias = false;
@@ -443,16 +453,26 @@ void pass2(Context& ctx, Chunk& c, bool report_progress) {
             c.aliases.push_back({fk, k, et, ep, std::size_t(p - base)});
             return true;
         }
-        std::atomic_ref<unsigned char> s((*ctx.seen)[fk][k]);
-        unsigned char expected = 0;
-        if (s.compare_exchange_strong(expected, 1, std::memory_order_acq_rel)) {
-            (*ctx.out)[fk].e_theta[k] = et;
-            (*ctx.out)[fk].e_phi[k] = ep;
-            s.store(2, std::memory_order_release);
-            return true;
+        unsigned char& seen = (*ctx.seen)[fk][k];
+        if (!ctx.concurrent) {
+            if (seen == 0) {
+                (*ctx.out)[fk].e_theta[k] = et;
+                (*ctx.out)[fk].e_phi[k] = ep;
+                seen = 2;
+                return true;
+            }
+        } else {
+            std::atomic_ref<unsigned char> s(seen);
+            unsigned char expected = 0;
+            if (s.compare_exchange_strong(expected, 1, std::memory_order_acq_rel)) {
+                (*ctx.out)[fk].e_theta[k] = et;
+                (*ctx.out)[fk].e_phi[k] = ep;
+                s.store(2, std::memory_order_release);
+                return true;
+            }
+            // A second row for the same point: wait for the first writer, then compare.
+            while (s.load(std::memory_order_acquire) != 2) std::this_thread::yield();
         }
-        // A second row for the same point: wait for the first writer, then compare.
-        while (s.load(std::memory_order_acquire) != 2) std::this_thread::yield();
         const cplx a = (*ctx.out)[fk].e_theta[k], b = (*ctx.out)[fk].e_phi[k];
         const double d = std::sqrt(std::norm(a - et) + std::norm(b - ep));
         const double m = std::sqrt(std::max(std::norm(a) + std::norm(b), pw));
@@ -558,13 +578,6 @@ Result<FarFieldSet> parse_far_field_csv(std::string_view text, const std::string
 
 Result<FarFieldSet> parse_far_field_text(std::string_view text, const std::string& name, const CsvReadOptions& o,
                                          const MappedFile* mapped) {
-    // Binary garbage: text never holds a NUL byte.
-    if (const void* z = std::memchr(text.data(), 0, text.size())) {
-        const std::size_t off = std::size_t(static_cast<const char*>(z) - text.data());
-        std::size_t ls = off;
-        while (ls > 0 && text[ls - 1] != '\n') --ls;
-        return Error{name, line_number_at(text, ls), long(off - ls) + 1, "expected text, found a NUL byte (a binary file?)"};
-    }
     auto layout = read_layout(text, name, o);
     if (!layout) return layout.error();
     const Layout& L = *layout;
@@ -701,6 +714,7 @@ Result<FarFieldSet> parse_far_field_text(std::string_view text, const std::strin
     ctx.seen = &seen;
 
     // Pass 2: every cell, straight into place.
+    ctx.concurrent = chunks.size() > 1;
     for (Chunk& c : chunks) c.failure = {};
     run_chunks(chunks, [&](Chunk& c, bool first) { pass2(ctx, c, first); });
     if (ctx.cancelled) return Error{name, 0, 0, "reading cancelled"};

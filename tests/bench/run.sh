@@ -17,3 +17,22 @@ echo "-- exports (time per cut figure, SVG/PNG/PDF from one drawing path) --"
 echo
 echo "-- diversity (MEG, orientation sweep, envelope correlation) --"
 "$B/tests/bench_diversity" || echo "bench_diversity failed"
+
+echo
+echo "-- CSV importer (1M rows, 16 frequencies, ~70 MB; MB/s target >= 300; peak memory target < 2x arrays) --"
+BENCH_DIR=${BENCH_DIR:-$B/bench-data}
+mkdir -p "$BENCH_DIR"
+"$B/tests/bench_csv" "$BENCH_DIR" || echo "bench_csv failed"
+CSV=$BENCH_DIR/bench_csv_1m.csv
+if [[ -f $CSV ]]; then
+  read -r e_wall e_cpu < <(/usr/bin/python3 tests/bench/time_cmd.py 3 "$B/ellipsa" info "$CSV")
+  printf "%-42s %7s s wall %7s s CPU\n" "ellipsa info (read + 16 summaries)" "$e_wall" "$e_cpu"
+  if /usr/bin/python3 -c "import pandas, numpy" 2>/dev/null; then
+    read -r p_wall p_cpu < <(/usr/bin/python3 tests/bench/time_cmd.py 2 /usr/bin/python3 tests/bench/pandas_info.py "$CSV")
+    printf "%-42s %7s s wall %7s s CPU\n" "pandas read_csv + numpy integration" "$p_wall" "$p_cpu"
+    awk -v pw="$p_wall" -v ew="$e_wall" -v pc="$p_cpu" -v ec="$e_cpu" 'BEGIN {
+      printf "%-42s %7.1fx wall %6.1fx CPU  (target >= 5x, aim 10x)\n", "ellipsa info speed-up over pandas+numpy", pw / ew, pc / ec }'
+  else
+    echo "python3-pandas / python3-numpy missing: no comparison"
+  fi
+fi
