@@ -653,16 +653,17 @@ Result<FarFieldSet> parse_far_field_text(std::string_view text, const std::strin
     if (!regular_axis(pv, phi_word, p0, dp, af)) return to_error(text, name, af);
     int n_phi = int(pv.size());
     bool seam = false;
-    if (pv.size() >= 3 && std::abs(pv.back().v - pv.front().v - 360) <= 1e-4 * dp) {
+    if (pv.size() >= 2 && std::abs(pv.back().v - pv.front().v - 360) <= 1e-4 * dp) {
         seam = true;  // 0 and 360, or -180 and 180: one column twice
         n_phi = int(pv.size()) - 1;
         dp = 360.0 / n_phi;
     } else if (pv.size() >= 2 && std::abs(dp * double(pv.size()) - 360) <= 1e-4 * dp) {
         dp = 360.0 / double(pv.size());  // wraps without a duplicate
-    } else if (pv.size() == 1) {
-        dp = 360;
     }
-    const bool wraps = seam || std::abs(dp * n_phi - 360) <= 1e-9 * 360;
+    // A single phi column is a cut, not a ring: its step is a placeholder (1 deg) so the grid
+    // does not wrap and its coverage is zero, as for a single theta row.
+    if (n_phi == 1) dp = 1;
+    const bool wraps = n_phi > 1 && (seam || std::abs(dp * n_phi - 360) <= 1e-9 * 360);
     ctx.phi0 = p0;
     ctx.phi_step = pv.size() == 1 ? 360 : (pv.back().v - pv.front().v) / double(pv.size() - 1);
     ctx.n_phi_distinct = int(pv.size());

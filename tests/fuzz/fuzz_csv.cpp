@@ -1,0 +1,51 @@
+// libFuzzer target for the far-field CSV reader (tests/fuzz/run.sh builds and runs it).
+//
+// Any input must give either a set or an Error with a message; never a crash, hang, leak or
+// undefined behaviour (the target is built with ASan + UBSan). A set that loads must also
+// survive the writer: formatted in its own family it reads back to the same grid.
+#include <cstddef>
+#include <cstdint>
+#include <cstdio>
+#include <cstdlib>
+#include <string>
+#include <string_view>
+
+#include "importers/far_field_csv.hpp"
+
+using namespace ellipsa;
+
+extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size) {
+    const std::string_view text(reinterpret_cast<const char*>(data), size);
+    CsvReadOptions o;
+    o.threads = 1 + int(size % 2);          // both the one-worker and the two-worker paths
+    o.memory_limit_bytes = 64u << 20;       // refuse huge grids quickly instead of allocating
+    if (size > 0 && data[0] == 'M') {       // now and then, a foreign-layout read
+        o.column_map = {{"Level", "e_total_db"}, {"Az", "azimuth"}, {"El", "elevation"}, {"x", "ignore"}};
+        o.settings = {{"angle-unit", "rad", "fuzz", 1}};
+    }
+    auto r = parse_far_field_csv(text, "fuzz.csv", o);
+    if (!r) {
+        if (r.error().message.empty()) std::abort();  // every refusal says what was expected
+        return 0;
+    }
+    const FarFieldSet& s = *r;
+    if (s.frequencies.empty() || s.grid.size() == 0) std::abort();
+    for (const FarField& f : s.frequencies)
+        if (f.e_theta.size() != s.grid.size() || f.e_phi.size() != s.grid.size()) std::abort();
+    if (s.grid.size() * s.frequencies.size() > 20000) return 0;  // keep each run fast
+    CsvWriteOptions w;
+    w.family = natural_family(s);
+    auto text2 = format_far_field_csv(s, w);
+    if (!text2) std::abort();
+    CsvReadOptions o2;
+    o2.threads = 1;
+    auto r2 = parse_far_field_csv(*text2, "fuzz-rewritten.csv", o2);
+    if (!r2) {
+        std::fprintf(stderr, "rewritten set does not read back: %s\n", r2.error().format().c_str());
+        std::abort();
+    }
+    if (r2->grid.theta.count != s.grid.theta.count || r2->grid.phi.count != s.grid.phi.count ||
+        r2->frequencies.size() != s.frequencies.size())
+        std::abort();
+    return 0;
+}
