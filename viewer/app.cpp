@@ -55,9 +55,9 @@ double ms_since(std::chrono::steady_clock::time_point t0) {
     return std::chrono::duration<double, std::milli>(std::chrono::steady_clock::now() - t0).count();
 }
 
-void open_files(AppState& s, const std::vector<std::string>& files) {
+void open_files(AppState& s, const std::vector<std::string>& files, const std::string& map = "") {
     for (const std::string& f : files) {
-        auto r = load_pattern_file(f);
+        auto r = load_pattern_file(f, map);
         if (!r) {
             s.load_error = r.error().format();  // the loaded patterns and the view stay as they were
             continue;
@@ -391,7 +391,7 @@ int run_viewer(const ViewerOptions& opt) {
         draw_help_overlay(s);
 
         // Apply intents.
-        if (!in.open.empty()) open_files(s, in.open);
+        if (!in.open.empty()) open_files(s, in.open, in.open_map);
         if (in.close >= 0 && in.close < int(s.patterns.size()) && s.patterns.size() > 1) {
             s.patterns.erase(s.patterns.begin() + in.close);
             ++s.generation;
@@ -465,10 +465,10 @@ int run_viewer(const ViewerOptions& opt) {
                 bg->AddText(s.fonts.body, s.fonts.body->FontSize, ImVec2(L.view_pos.x + 12, L.view_pos.y + 52),
                             IM_COL32(150, 40, 20, 255), s.mesh_error.c_str());
             const float bh = std::min(L.view_size.y * 0.55f, 320.0f);
-            draw_color_bar(bg, ImVec2(L.view_pos.x + L.view_size.x - 78, L.view_pos.y + (L.view_size.y - bh) * 0.5f + 10),
+            draw_color_bar(bg, ImVec2(L.view_pos.x + L.view_size.x - 64, L.view_pos.y + (L.view_size.y - bh) * 0.5f + 10),
                            ImVec2(16, bh), s.mesh.bar, s.fonts.small, s.fonts.small);
             draw_axis_labels(bg, s.camera, L.view_pos, L.view_size, 1.3, s.fonts.small);
-            const std::string rl = s.renderer.line();
+            const std::string rl = "OpenGL: " + s.renderer.renderer + (s.renderer.software ? ", Mesa software" : ", hardware");
             bg->AddText(s.fonts.small, s.fonts.small->FontSize,
                         ImVec2(L.view_pos.x + 12, L.view_pos.y + L.view_size.y - s.fonts.small->FontSize - 6), muted, rl.c_str());
             auto mark = [&](const Pick& p, ImU32 col) {

@@ -68,7 +68,7 @@ struct AppState {
         std::vector<PoincarePoint> points;
     } poincare;
     int generation = 0;  // bumped whenever patterns are opened or closed
-    std::string path_input;
+    std::string path_input, map_input;
     std::string load_error;  // last failed load, shown until dismissed
     std::string note;        // e.g. "built-in demo"
     bool show_help = false;

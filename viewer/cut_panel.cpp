@@ -22,9 +22,11 @@ void plot_polar(ImDrawList* dl, ImVec2 c, float R, const CutData& cd, double top
     for (double lv : db_grid_levels(top, range)) {
         const float r = R * float(polar_radius(lv, top, range));
         dl->AddCircle(c, r, grid, 72, 1.0f);
+        if (r < 14) continue;
         char b[16];
         std::snprintf(b, sizeof b, "%g", lv);
-        dl->AddText(ImVec2(c.x + 3, c.y - r - 14), muted, b);
+        // Ring labels just inside each ring, beside the 0-degree spoke.
+        dl->AddText(ImVec2(c.x + 3, c.y - r + 1), muted, b);
     }
     for (int a = 0; a < 360; a += 30) {
         const float x = std::sin(float(a * pi / 180)), y = -std::cos(float(a * pi / 180));
@@ -120,12 +122,11 @@ Intents draw_cut_panel(AppState& s) {
     const LoadedPattern* a = s.active_pattern();
     if (!a) return in;
     // Controls on the left, plot on the right.
-    const float controls_w = 230;
-    ImGui::BeginChild("cutcontrols", ImVec2(controls_w, 0), false);
-    if (ImGui::RadioButton("\u03c6 = const", st.cut_kind == 0)) st.cut_kind = 0, in.recut = true;
-    ImGui::SameLine();
-    if (ImGui::RadioButton("\u03b8 = const", st.cut_kind == 1)) st.cut_kind = 1, in.recut = true;
-    if (ImGui::RadioButton("through the pinned direction", st.cut_kind == 2)) st.cut_kind = 2, in.recut = true;
+    const float controls_w = 228;
+    ImGui::BeginChild("cutcontrols", ImVec2(controls_w, 0), false, ImGuiWindowFlags_NoScrollbar);
+    const char* kinds[] = {"\u03c6 = const (elevation cut)", "\u03b8 = const (conical cut)", "through the pinned direction"};
+    ImGui::SetNextItemWidth(-1);
+    if (ImGui::Combo("##kind", &st.cut_kind, kinds, 3)) in.recut = true;
     if (st.cut_kind < 2) {
         float ang = float(st.cut_angle_deg);
         ImGui::SetNextItemWidth(-1);
@@ -136,14 +137,22 @@ Intents draw_cut_panel(AppState& s) {
         }
     } else if (!s.pinned) {
         ImGui::TextDisabled("click the surface to pin");
+    } else {
+        ImGui::TextDisabled("along \u03c6-hat through the pin");
     }
-    ImGui::Checkbox("polar", &st.polar_plot);
+    ImGui::Checkbox("polar plot", &st.polar_plot);
+    ImGui::SameLine();
+    ImGui::TextDisabled("(P)");
     ImGui::Separator();
+    ImGui::TextDisabled("Components");
+    int shown = 0;
     for (Component c : all_components) {
         if (c == Component::vertical || c == Component::horizontal) continue;  // same as theta and phi here
         if (!unavailable_reason(a->set, c).empty()) continue;
         bool on = (st.cut_components >> unsigned(c)) & 1u;
-        if (ImGui::Checkbox(label_of(c), &on)) {
+        if (shown++ % 2) ImGui::SameLine(controls_w * 0.5f);
+        const char* short_name = c == Component::co ? "Co-polar" : c == Component::cross ? "Cross-polar" : label_of(c);
+        if (ImGui::Checkbox(short_name, &on)) {
             st.cut_components ^= 1u << unsigned(c);
             in.recut = true;
         }
@@ -160,7 +169,7 @@ Intents draw_cut_panel(AppState& s) {
         return in;
     }
     const double range = st.range_db, top = plot_top_db(cd.peak_db, range);
-    const float legend_w = 210;
+    const float legend_w = std::max(150.0f, std::min(230.0f, avail.x - avail.y));
     const float plot_w = avail.x - legend_w, plot_h = avail.y;
     if (st.polar_plot) {
         const float R = std::max(20.0f, std::min(plot_w, plot_h) * 0.5f - 24);
@@ -187,15 +196,15 @@ Intents draw_cut_panel(AppState& s) {
     dl->AddText(ImVec2(lx, ly), ink, b);
     ly += 18;
     if (bf.hpbw_deg)
-        std::snprintf(b, sizeof b, "HPBW %.1f\u00b0 (-3 dB marks)", *bf.hpbw_deg);
+        std::snprintf(b, sizeof b, "HPBW %.1f\u00b0 (circles)", *bf.hpbw_deg);
     else
         std::snprintf(b, sizeof b, "HPBW: no -3 dB points");
     dl->AddText(ImVec2(lx, ly), ink, b);
     ly += 18;
     if (bf.front_to_back_db)
-        std::snprintf(b, sizeof b, "front-to-back %.2f dB", *bf.front_to_back_db);
+        std::snprintf(b, sizeof b, "F/B %.2f dB", *bf.front_to_back_db);
     else
-        std::snprintf(b, sizeof b, "front-to-back: n/a");
+        std::snprintf(b, sizeof b, "F/B n/a");
     dl->AddText(ImVec2(lx, ly), ink, b);
     ly += 18;
     if (bf.sidelobe_db) {

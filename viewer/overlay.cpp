@@ -17,11 +17,14 @@ double nice_step(double span, int target) {
 
 void draw_color_bar(ImDrawList* dl, ImVec2 pos, ImVec2 size, const ColorBar& bar, ImFont* font, ImFont* title_font) {
     const ImU32 ink = IM_COL32(34, 38, 46, 255);
-    // Title (two lines if needed): "Total gain" / "dBi".
-    const std::string title = bar.title + " (" + bar.unit + ")";
+    // Title on two lines, right-aligned to the tick labels: "Total gain" / "dBi".
     ImFont* tf = title_font ? title_font : ImGui::GetFont();
     const float tsize = tf->FontSize;
-    dl->AddText(tf, tsize, ImVec2(pos.x, pos.y - tsize * 1.6f), ink, title.c_str());
+    const float right = pos.x + size.x + 8 + tf->CalcTextSizeA(tsize, 1e9f, 0, "-25.5").x;
+    const std::string unit = "(" + bar.unit + ")";
+    const float w1 = tf->CalcTextSizeA(tsize, 1e9f, 0, bar.title.c_str()).x, w2 = tf->CalcTextSizeA(tsize, 1e9f, 0, unit.c_str()).x;
+    dl->AddText(tf, tsize, ImVec2(right - w1, pos.y - tsize * 2.9f), ink, bar.title.c_str());
+    dl->AddText(tf, tsize, ImVec2(right - w2, pos.y - tsize * 1.6f), ink, unit.c_str());
     // Gradient in 64 bands, top = max.
     const int bands = 64;
     for (int b = 0; b < bands; ++b) {

@@ -13,6 +13,7 @@ namespace ellipsa::viewer {
 
 void Intents::merge(const Intents& o) {
     open.insert(open.end(), o.open.begin(), o.open.end());
+    if (!o.open_map.empty()) open_map = o.open_map;
     if (o.close >= 0) close = o.close;
     rebuild_surface |= o.rebuild_surface;
     rebuild_glyphs |= o.rebuild_glyphs;
@@ -66,7 +67,9 @@ void row(const char* label, const std::string& value, const char* tip = nullptr)
 // --- Patterns ---------------------------------------------------------------------------------
 Intents draw_patterns_panel(AppState& s) {
     Intents in;
-    ImGui::TextDisabled("Open a far-field CSV (or drop files on the window)");
+    ImGui::PushTextWrapPos(0);
+    ImGui::TextDisabled("Open a far-field CSV by path, from the recent list, or drop files on the window.");
+    ImGui::PopTextWrapPos();
     char buf[1024];
     std::snprintf(buf, sizeof buf, "%s", s.path_input.c_str());
     ImGui::SetNextItemWidth(-70);
@@ -74,7 +77,20 @@ Intents draw_patterns_panel(AppState& s) {
                                                 ImGuiInputTextFlags_EnterReturnsTrue);
     s.path_input = buf;
     ImGui::SameLine();
-    if ((ImGui::Button("Open", ImVec2(-1, 0)) || enter) && !s.path_input.empty()) in.open.push_back(s.path_input);
+    if ((ImGui::Button("Open", ImVec2(-1, 0)) || enter) && !s.path_input.empty()) {
+        in.open.push_back(s.path_input);
+        in.open_map = s.map_input;
+    }
+    if (ImGui::TreeNode("Column map for foreign layouts")) {
+        std::snprintf(buf, sizeof buf, "%s", s.map_input.c_str());
+        ImGui::SetNextItemWidth(-1);
+        ImGui::InputTextWithHint("##map", "map file (optional)", buf, sizeof buf);
+        s.map_input = buf;
+        ImGui::PushTextWrapPos(0);
+        ImGui::TextDisabled("Without one, a .map file beside the CSV that names it is used.");
+        ImGui::PopTextWrapPos();
+        ImGui::TreePop();
+    }
     if (!s.settings.recent_files.empty()) {
         ImGui::SetNextItemWidth(-1);
         if (ImGui::BeginCombo("##recent", "Recent files", ImGuiComboFlags_HeightLarge)) {
@@ -94,7 +110,7 @@ Intents draw_patterns_panel(AppState& s) {
         ImGui::PopStyleColor();
     }
     ImGui::Spacing();
-    ImGui::TextDisabled("Loaded patterns  (A = shown, B = compared)");
+    ImGui::TextDisabled("Patterns: A is shown, tick B to compare");
     if (ImGui::BeginTable("patterns", 3, ImGuiTableFlags_RowBg | ImGuiTableFlags_BordersInnerH)) {
         ImGui::TableSetupColumn("name", ImGuiTableColumnFlags_WidthStretch);
         ImGui::TableSetupColumn("B", ImGuiTableColumnFlags_WidthFixed, 24);
@@ -247,9 +263,10 @@ Intents draw_surface_panel(AppState& s) {
         OrbitCamera::Preset p;
     } presets[] = {{"+x", OrbitCamera::Preset::px}, {"-x", OrbitCamera::Preset::nx}, {"+y", OrbitCamera::Preset::py},
                    {"-y", OrbitCamera::Preset::ny}, {"top", OrbitCamera::Preset::pz}, {"bottom", OrbitCamera::Preset::nz}};
-    for (const auto& p : presets) {
-        ImGui::SameLine();
-        if (ImGui::SmallButton(p.label)) s.camera.look_from(p.p);
+    for (int k = 0; k < 6; ++k) {
+        if (k) ImGui::SameLine();
+        if (ImGui::SmallButton(presets[k].label)) s.camera.look_from(presets[k].p);
+        if (ImGui::IsItemHovered()) ImGui::SetTooltip("key %d", k + 1);
     }
     if (ImGui::SmallButton("Reset view")) in.reset_view = true;
     ImGui::SameLine();

@@ -10,7 +10,12 @@
 namespace ellipsa::viewer {
 
 // Read one far-field CSV file (importers/far_field_csv.hpp); the set's source is the path.
-Result<FarFieldSet> load_pattern_file(const std::string& path);
+// map_file: a column-map file for foreign layouts; when empty, a map beside the file is used if
+// one names it (a "<stem>.map", or a .map file in the same folder that mentions the file name).
+Result<FarFieldSet> load_pattern_file(const std::string& path, const std::string& map_file = "");
+
+// The map file that load_pattern_file would pick for `path` ("" when none).
+std::string map_file_beside(const std::string& path);
 
 // The example CSV files shipped in examples/ (next to the executable's source tree or in
 // $ELLIPSA_EXAMPLES), sorted by name; empty when there are none.

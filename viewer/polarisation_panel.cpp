@@ -120,7 +120,7 @@ Intents draw_polarisation_panel(AppState& s) {
     const std::vector<PoincarePoint>& cloud = pc.points;
     PoincarePoint mark;
     if (f) mark = poincare_point(stokes(f->e_theta, f->e_phi));
-    draw_poincare(dl, ImVec2(o.x + w - size * 0.5f, o.y + size * 0.5f + 4), size * 0.40f, cloud, f ? &mark : nullptr);
+    draw_poincare(dl, ImVec2(o.x + w - size * 0.58f, o.y + size * 0.5f + 4), size * 0.38f, cloud, f ? &mark : nullptr);
     ImGui::Dummy(ImVec2(w, size + 8));
     ImGui::TextDisabled(p ? (s.pinned ? "Ellipse at the pinned direction," : "Ellipse under the cursor,") : "");
     ImGui::SameLine();

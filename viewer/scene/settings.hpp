@@ -27,7 +27,7 @@ struct ViewerSettings {
     unsigned cut_components = 1u;  // bit per Component (bit 0: total)
     double poincare_within_db = 3;
     int window_width = 1280, window_height = 800;
-    float left_panel_width = 300, right_panel_width = 340, cut_panel_height = 300;
+    float left_panel_width = 285, right_panel_width = 315, cut_panel_height = 310;
     std::vector<std::string> recent_files;  // most recent first, at most max_recent
     static constexpr std::size_t max_recent = 10;
 
