@@ -119,3 +119,29 @@ TEST_CASE("corpus: a single phi cut in Ludwig-3 (y reference), tab separated", "
     CHECK(at(s, 40, 90).real() == Approx(a_dipole * std::sin(40 * deg)));
     CHECK(std::abs(at(s, 40, 90, true)) < 1e-15);
 }
+
+TEST_CASE("corpus: the worked foreign-layout example of docs/far-field-csv.md", "[csv][corpus]") {
+    // An invented lossless cardioid toward +z, G = 3 ((1 + cos t)/2)^2: the integral of
+    // ((1 + cos t)/2)^2 over the sphere is 4 pi / 3 (by hand), so D = 3 and P / 4 pi = 1.
+    const std::string dir = std::string(ELLIPSA_SOURCE_DIR) + "/tests/data/csv/foreign/";
+    CsvReadOptions o;
+    REQUIRE(read_csv_map_file(dir + "range3.map", o).ok());
+    auto r = read_far_field_csv(dir + "range3.csv", o);
+    if (!r) FAIL(r.error().format());
+    const FarFieldSet& s = *r;
+    CHECK(s.content == FieldContent::total_only);
+    CHECK(s.quantity == Quantity::gain);
+    CHECK(s.frequencies[0].frequency_hz == Approx(5.8e9));
+    CHECK(s.grid.theta.count == 19);
+    CHECK(s.grid.phi.count == 36);
+    // Elevation 90 is theta 0, the peak: 4.7712 dB - 7.5 dB in the file + 7.5 dB offset (4 decimals written).
+    CHECK(std::norm(at(s, 0, 0)) == Approx(3.0).epsilon(1e-4));
+    CHECK(std::norm(at(s, 180, 0)) == 0.0);
+    // 10-degree cells: the exact-cell integral is within 0.5 % of the closed form.
+    CHECK(radiated_power(s.grid, s.frequencies[0]) / (4 * pi) == Approx(1.0).epsilon(5e-3));
+    // Without the map the header is refused at its first unknown column.
+    auto bare = read_far_field_csv(dir + "range3.csv");
+    REQUIRE_FALSE(bare.ok());
+    CHECK(bare.error().line == 1);
+    CHECK(bare.error().column == 1);
+}

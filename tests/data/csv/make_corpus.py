@@ -84,3 +84,19 @@ for t in range(0, 181, 10):
     # at phi = 90, y reference: co = Et sin p + Ep cos p = Et
     rows.append("\t".join([str(t), "90", db(et(t) ** 2), "0", "-inf", "0"]))
 write("phi_cut_ludwig3_tabs.csv", "\n".join(rows) + "\n")
+
+# 9. The worked example of docs/far-field-csv.md: an invented range export ("range 3") with
+#    its own column names, semicolons and decimal commas, az/el, a sample index and a remark
+#    column, levels in dB relative to a 7.5 dBi reference horn. The pattern is a lossless
+#    cardioid toward +z, G = 3 ((1 + cos t)/2)^2, whose directivity is 3 (4.77 dBi):
+#    the integral of ((1 + cos t)/2)^2 over the sphere is 4 pi / 3.
+rows = ["Sample;Az/deg;El/deg;Level re horn/dB;Remark"]
+n = 0
+for el in range(-90, 91, 10):
+    for az in range(0, 360, 10):
+        n += 1
+        t = math.radians(90 - el)
+        g = 3 * ((1 + math.cos(t)) / 2) ** 2
+        level = "-inf" if g <= 0 else f"{10 * math.log10(g) - 7.5:.4f}".replace(".", ",")
+        rows.append(f"{n};{az};{el};{level};{'check cable' if n == 5 else ''}")
+write("foreign/range3.csv", "\n".join(rows) + "\n")

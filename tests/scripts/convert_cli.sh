@@ -1,0 +1,51 @@
+#!/usr/bin/env bash
+# ellipsa convert: every family round-trips through the command, foreign layouts convert with the
+# import options, and convert never writes over its input. Usage: convert_cli.sh ELLIPSA WORKDIR SOURCE_DIR
+set -uo pipefail
+E=$1; W=$2; SRC=$3; mkdir -p "$W"; cd "$W"
+pass=0; fail=0
+ok() { echo "ok   $1"; pass=$((pass+1)); }
+bad() { echo "FAIL $1"; fail=$((fail+1)); }
+"$E" synth crossed-dipoles --step 5 --out x.csv || bad "synth"
+ref=$("$E" info x.csv --json)
+for fam in complex theta-phi-db-phase circular-db-phase ludwig3-db-phase; do
+  if "$E" convert x.csv "x-$fam.csv" --family "$fam" 2>err.txt; then
+    got=$("$E" info "x-$fam.csv" --json)
+    # The same figures (peak, directivity, beamwidths, axial ratio, sense) whatever the family,
+    # to 1e-9 relative (the dB/phase families round-trip to a few ulps).
+    if /usr/bin/python3 - "$ref" "$got" <<'PY'
+import json, sys
+a, b = json.loads(sys.argv[1]), json.loads(sys.argv[2])
+def same(x, y):
+    if isinstance(x, dict):
+        return all(same(x[k], y.get(k)) for k in x if k not in ("name", "source"))
+    if isinstance(x, list):
+        return len(x) == len(y) and all(same(p, q) for p, q in zip(x, y))
+    if isinstance(x, float) or isinstance(y, float):
+        return x is not None and y is not None and abs(x - y) <= 1e-9 * max(1.0, abs(x))
+    return x == y
+sys.exit(0 if same(a, b) else 1)
+PY
+    then ok "$fam: info unchanged"; else bad "$fam: info differs"; fi
+  else
+    bad "$fam: convert failed: $(cat err.txt)"
+  fi
+done
+"$E" convert x.csv x-mag.csv --family theta-phi-db && grep -q '"content": "magnitude-only"' <("$E" info x-mag.csv --json) \
+  && ok "theta-phi-db gives magnitude-only data" || bad "theta-phi-db"
+"$E" convert x-mag.csv x-bad.csv --family complex 2>err.txt; rc=$?
+[[ $rc == 1 ]] && grep -q "expected complex data" err.txt && ok "no phase family from magnitudes (exit 1)" || bad "magnitude to complex: exit $rc $(cat err.txt)"
+"$E" convert x.csv x.csv 2>err.txt; rc=$?
+[[ $rc == 2 ]] && grep -q "other than the input" err.txt && ok "refuses to write over its input (exit 2)" || bad "overwrite input: exit $rc"
+ln -sf x.csv link.csv
+"$E" convert link.csv x.csv 2>err.txt; rc=$?
+[[ $rc == 2 ]] && ok "refuses its input through a link too" || bad "link: exit $rc"
+"$E" convert "$SRC/tests/data/csv/foreign/range3.csv" r3.csv --map-file "$SRC/tests/data/csv/foreign/range3.map" \
+  && head -12 r3.csv | grep -q '^frequency,theta,phi,e_total_db$' && ok "foreign layout converts with --map-file" || bad "foreign convert"
+"$E" convert "$SRC/tests/data/csv/foreign/range3.csv" r3b.csv --map "Sample=ignore,Remark=ignore,Az/deg=azimuth,El/deg=elevation,Level re horn/dB=e_total_db" \
+  --offset "e_total_db=7.5" --assume "quantity=gain,frequency=5.8 GHz" && cmp -s r3.csv r3b.csv \
+  && ok "--map/--offset/--assume give the same file as the map file" || bad "options differ from map file"
+"$E" info "$SRC/tests/data/csv/foreign/range3.csv" --map-file "$SRC/tests/data/csv/foreign/range3.map" --map "Nope=theta" 2>err.txt; rc=$?
+[[ $rc == 1 ]] && grep -q 'range3.csv:1: --map: expected a column named "Nope"' err.txt && ok "a map entry matching nothing is refused" || bad "unused map: $rc $(cat err.txt)"
+echo "$pass passed, $fail failed"
+[[ $fail == 0 ]]
