@@ -36,3 +36,24 @@ if [[ -f $CSV ]]; then
     echo "python3-pandas / python3-numpy missing: no comparison"
   fi
 fi
+
+echo
+echo "-- viewer (mesh rebuild target < 20 ms; frame at 1280x800 under llvmpipe: 1-deg median <= 16.7 ms, 0.5-deg <= 33 ms) --"
+if [[ -x $B/tests/bench_viewer_mesh ]]; then
+  "$B/tests/bench_viewer_mesh" || echo "bench_viewer_mesh failed"
+  if command -v xvfb-run >/dev/null; then
+    VB=$(mktemp -d)
+    for step in 1 0.5; do
+      "$B/ellipsa" synth crossed-dipoles --step "$step" --out "$VB/grid-$step.csv" >/dev/null
+      stats=$(XDG_CONFIG_HOME="$VB/config" xvfb-run -a -s "-screen 0 1400x900x24" \
+        "$B/ellipsa" view "$VB/grid-$step.csv" --software --size 1280x800 --frames 150 --frame-stats 2>/dev/null | tail -1)
+      printf "  %-44s %s\n" "frame time, $step-deg grid, 1280x800, llvmpipe" "$stats"
+    done
+    rm -rf "$VB"
+    echo "  (includes ImGui panels, glyphs, cut plot and Poincare sphere; load from other processes inflates these)"
+  else
+    echo "  xvfb-run missing: no frame-time figures"
+  fi
+else
+  echo "viewer not built"
+fi

@@ -5,6 +5,7 @@
 #include <limits>
 
 #include "pattern/interpolate.hpp"
+#include "viewer/scene/parallel.hpp"
 
 namespace ellipsa::viewer {
 
@@ -61,110 +62,140 @@ Result<SurfaceMesh> build_surface(const FarFieldSet& s, std::size_t k, const Sur
     m.cols = np + (wraps ? 1 : 0);
     m.unit = db_unit(s.quantity, o.component);
 
-    const std::vector<double> power = component_power_grid(s, k, o.component);
-    std::vector<double> value_db(power.size());
+    // Trigonometry once per row and column, not per sample.
+    const std::size_t nt_u = static_cast<std::size_t>(nt), np_u = static_cast<std::size_t>(np);
+    std::vector<double> sin_t(nt_u), cos_t(nt_u), sin_p(np_u), cos_p(np_u);
+    for (int i = 0; i < nt; ++i) sin_t[std::size_t(i)] = std::sin(g.theta.value_deg(i) * deg), cos_t[std::size_t(i)] = std::cos(g.theta.value_deg(i) * deg);
+    for (int j = 0; j < np; ++j) sin_p[std::size_t(j)] = std::sin(g.phi.value_deg(j) * deg), cos_p[std::size_t(j)] = std::cos(g.phi.value_deg(j) * deg);
+    const FarField& f = s.frequencies[k];
+    const std::size_t ns = g.size();
+    constexpr std::size_t min_block = 20000;
+
+    // Component in dB and its peak.
+    std::vector<double> value_db(ns);
+    parallel_blocks(ns, min_block, [&](std::size_t a, std::size_t b) {
+        for (std::size_t n = a; n < b; ++n) {
+            const cplx et = f.e_theta[n], ep = f.e_phi[n];
+            double v = 0;
+            switch (o.component) {
+                case Component::total: v = std::norm(et) + std::norm(ep); break;
+                case Component::theta:
+                case Component::vertical: v = std::norm(et); break;
+                case Component::phi:
+                case Component::horizontal: v = std::norm(ep); break;
+                case Component::rhcp: v = std::norm(rhcp(et, ep)); break;
+                case Component::lhcp: v = std::norm(lhcp(et, ep)); break;
+                case Component::co:
+                case Component::cross: {
+                    const std::size_t j = n % std::size_t(np);
+                    CoCross cc = ludwig3(et, ep, cos_p[j], sin_p[j], s.ludwig3_reference);
+                    v = std::norm(o.component == Component::co ? cc.co : cc.cross);
+                    break;
+                }
+            }
+            value_db[n] = db_of(v);
+        }
+    });
     double peak = -std::numeric_limits<double>::infinity();
-    for (std::size_t n = 0; n < power.size(); ++n) {
-        value_db[n] = db_of(power[n]);
-        peak = std::max(peak, value_db[n]);
-    }
+    for (double v : value_db) peak = std::max(peak, v);
     if (!std::isfinite(peak)) peak = 0;  // an all-zero component: flat at the origin
     m.peak_db = peak;
     m.floor_db = peak - o.range_db;
 
-    // Colour values and the colour bar.
-    std::vector<double> t(power.size());
+    // Colour values in [0, 1] (NaN: no value, grey) and the colour bar.
+    std::vector<double> t(ns);
     ColorBar& bar = m.bar;
     const std::string comp_name = label_of(o.component);
+    std::vector<double> pb;
+    if (o.color_by == ColorBy::difference) pb = other_power_on_grid(s, *other, kb, o.component);
     switch (o.color_by) {
-        case ColorBy::component: {
-            bar = {o.gain_map, m.floor_db, m.peak_db, comp_name + " " + quantity_word(s.quantity), m.unit};
-            for (std::size_t n = 0; n < t.size(); ++n) t[n] = radius_from_db(value_db[n], peak, o.range_db);
-            break;
-        }
-        case ColorBy::axial_ratio:
-        case ColorBy::circular_balance:
-        case ColorBy::tilt: {
-            PolarisationGrid pg = polarisation_grid(s, k);
-            if (o.color_by == ColorBy::axial_ratio) {
-                bar = {o.gain_map, 0, o.axial_ratio_max_db, "Axial ratio", "dB"};
-                for (std::size_t n = 0; n < t.size(); ++n)
-                    t[n] = std::isnan(pg.axial_ratio_db[n]) ? pg.axial_ratio_db[n]
-                                                            : std::min(pg.axial_ratio_db[n], o.axial_ratio_max_db) / o.axial_ratio_max_db;
-            } else if (o.color_by == ColorBy::circular_balance) {
-                bar = {ColorMap::diverging, -o.balance_range_db, o.balance_range_db, "RHCP minus LHCP", "dB"};
-                for (std::size_t n = 0; n < t.size(); ++n)
-                    t[n] = 0.5 + 0.5 * std::clamp(pg.balance_db[n] / o.balance_range_db, -1.0, 1.0);
-            } else {
-                bar = {ColorMap::cyclic, -90, 90, "Tilt from theta toward phi", "deg"};
-                for (std::size_t n = 0; n < t.size(); ++n) t[n] = (pg.tilt_deg[n] + 90) / 180;
-            }
-            break;
-        }
-        case ColorBy::difference: {
-            const std::vector<double> pb = other_power_on_grid(s, *other, kb, o.component);
-            bar = {ColorMap::diverging, -o.difference_range_db, o.difference_range_db,
-                   comp_name + ": A minus B", "dB"};
-            for (std::size_t n = 0; n < t.size(); ++n) {
-                const double d = value_db[n] - db_of(pb[n]);
-                // Where A is below the floor the difference is not shown (grey), nor where B is unknown.
-                t[n] = (value_db[n] > m.floor_db && std::isfinite(d))
-                           ? 0.5 + 0.5 * std::clamp(d / o.difference_range_db, -1.0, 1.0)
-                           : std::numeric_limits<double>::quiet_NaN();
-            }
-            break;
-        }
+        case ColorBy::component: bar = {o.gain_map, m.floor_db, m.peak_db, comp_name + " " + quantity_word(s.quantity), m.unit}; break;
+        case ColorBy::axial_ratio: bar = {o.gain_map, 0, o.axial_ratio_max_db, "Axial ratio", "dB"}; break;
+        case ColorBy::circular_balance: bar = {ColorMap::diverging, -o.balance_range_db, o.balance_range_db, "RHCP minus LHCP", "dB"}; break;
+        case ColorBy::tilt: bar = {ColorMap::cyclic, -90, 90, "Tilt from theta toward phi", "deg"}; break;
+        case ColorBy::difference: bar = {ColorMap::diverging, -o.difference_range_db, o.difference_range_db, comp_name + ": A minus B", "dB"}; break;
     }
+    parallel_blocks(ns, min_block, [&](std::size_t a, std::size_t b) {
+        for (std::size_t n = a; n < b; ++n) {
+            const cplx et = f.e_theta[n], ep = f.e_phi[n];
+            switch (o.color_by) {
+                case ColorBy::component: t[n] = radius_from_db(value_db[n], peak, o.range_db); break;
+                case ColorBy::axial_ratio: {
+                    const double ar = axial_ratio_from_circular(std::norm(rhcp(et, ep)), std::norm(lhcp(et, ep)));
+                    t[n] = std::isnan(ar) ? ar : std::min(20 * std::log10(ar), o.axial_ratio_max_db) / o.axial_ratio_max_db;
+                    break;
+                }
+                case ColorBy::circular_balance: {
+                    const double r = std::norm(rhcp(et, ep)), l = std::norm(lhcp(et, ep));
+                    t[n] = (r > 0 || l > 0) ? 0.5 + 0.5 * std::clamp(10 * std::log10(std::max(r, 1e-300) / std::max(l, 1e-300)) / o.balance_range_db, -1.0, 1.0)
+                                            : std::numeric_limits<double>::quiet_NaN();
+                    break;
+                }
+                case ColorBy::tilt: t[n] = (tilt_deg(stokes(et, ep)) + 90) / 180; break;
+                case ColorBy::difference: {
+                    const double d = value_db[n] - db_of(pb[n]);
+                    // Where A is below the floor the difference is not shown (grey), nor where B is unknown.
+                    t[n] = (value_db[n] > m.floor_db && std::isfinite(d)) ? 0.5 + 0.5 * std::clamp(d / o.difference_range_db, -1.0, 1.0)
+                                                                          : std::numeric_limits<double>::quiet_NaN();
+                    break;
+                }
+            }
+        }
+    });
 
-    // Positions.
-    m.radius.resize(power.size());
-    std::vector<Vec3> pos(std::size_t(nt) * m.cols);
-    for (int i = 0; i < nt; ++i) {
-        const double th = g.theta.value_deg(i) * deg;
-        for (int j = 0; j < m.cols; ++j) {
-            const int jj = j % np;
-            const double ph = g.phi.value_deg(jj) * deg;
-            const std::size_t n = g.index(i, jj);
-            const double r = radius_from_db(value_db[n], peak, o.range_db);
-            m.radius[n] = float(r);
-            pos[std::size_t(i) * m.cols + j] = r * direction(th, ph);
-        }
-    }
+    // Positions, radii and colours.
+    m.radius.resize(ns);
+    m.vertices.resize(std::size_t(nt) * m.cols * surface_floats_per_vertex);
+    const std::size_t cols = std::size_t(m.cols);
+    parallel_blocks(std::size_t(nt), std::max<std::size_t>(1, min_block / cols), [&](std::size_t ia, std::size_t ib) {
+        for (std::size_t i = ia; i < ib; ++i)
+            for (std::size_t j = 0; j < cols; ++j) {
+                const std::size_t jj = j % std::size_t(np), n = i * std::size_t(np) + jj;
+                const double r = radius_from_db(value_db[n], peak, o.range_db);
+                m.radius[n] = float(r);
+                float* v = &m.vertices[(i * cols + j) * surface_floats_per_vertex];
+                v[0] = float(r * sin_t[i] * cos_p[jj]), v[1] = float(r * sin_t[i] * sin_p[jj]), v[2] = float(r * cos_t[i]);
+                const Rgb c = map_color(bar.map, t[n]);
+                v[6] = c.r, v[7] = c.g, v[8] = c.b;
+            }
+    });
     // Normals from central differences on the grid (one-sided at the edges); where the surface
     // degenerates (poles, the origin) the radial direction stands in.
-    auto P = [&](int i, int j) -> const Vec3& { return pos[std::size_t(i) * m.cols + j]; };
-    m.vertices.resize(std::size_t(nt) * m.cols * surface_floats_per_vertex);
-    for (int i = 0; i < nt; ++i) {
-        const int i0 = std::max(i - 1, 0), i1 = std::min(i + 1, nt - 1);
-        for (int j = 0; j < m.cols; ++j) {
-            int j0, j1;
-            if (wraps) {
-                j0 = (j % np + np - 1) % np;
-                j1 = (j % np + 1) % np;
-            } else {
-                j0 = std::max(j - 1, 0);
-                j1 = std::min(j + 1, m.cols - 1);
+    auto P = [&](int i, int j) {
+        const float* v = &m.vertices[(std::size_t(i) * cols + std::size_t(j)) * surface_floats_per_vertex];
+        return Vec3{v[0], v[1], v[2]};
+    };
+    parallel_blocks(std::size_t(nt), std::max<std::size_t>(1, min_block / cols), [&](std::size_t ia, std::size_t ib) {
+        for (int i = int(ia); i < int(ib); ++i) {
+            const int i0 = std::max(i - 1, 0), i1 = std::min(i + 1, nt - 1);
+            for (int j = 0; j < m.cols; ++j) {
+                int j0, j1;
+                if (wraps) {
+                    j0 = (j % np + np - 1) % np;
+                    j1 = (j % np + 1) % np;
+                } else {
+                    j0 = std::max(j - 1, 0);
+                    j1 = std::min(j + 1, m.cols - 1);
+                }
+                Vec3 nrm = cross(P(i1, j) - P(i0, j), P(i, j1) - P(i, j0));
+                const std::size_t jj = std::size_t(j % np);
+                const Vec3 radial{sin_t[std::size_t(i)] * cos_p[jj], sin_t[std::size_t(i)] * sin_p[jj], cos_t[std::size_t(i)]};
+                if (norm(nrm) < 1e-12) nrm = radial;
+                nrm = normalized(nrm);
+                if (dot(nrm, radial) < 0) nrm = -1.0 * nrm;
+                float* v = &m.vertices[(std::size_t(i) * cols + std::size_t(j)) * surface_floats_per_vertex];
+                v[3] = float(nrm.x), v[4] = float(nrm.y), v[5] = float(nrm.z);
             }
-            Vec3 n = cross(P(i1, j % m.cols) - P(i0, j % m.cols), P(i, j1) - P(i, j0));
-            const Vec3& p = P(i, j);
-            const double th = g.theta.value_deg(i) * deg, ph = g.phi.value_deg(j % np) * deg;
-            const Vec3 radial = direction(th, ph);
-            if (norm(n) < 1e-12) n = radial;
-            n = normalized(n);
-            if (dot(n, radial) < 0 && norm(p) > 0) n = -1.0 * n;
-            const Rgb c = map_color(bar.map, t[g.index(i, j % np)]);
-            float* v = &m.vertices[(std::size_t(i) * m.cols + j) * surface_floats_per_vertex];
-            v[0] = float(p.x), v[1] = float(p.y), v[2] = float(p.z);
-            v[3] = float(n.x), v[4] = float(n.y), v[5] = float(n.z);
-            v[6] = c.r, v[7] = c.g, v[8] = c.b;
         }
-    }
+    });
     // Triangles: two per grid cell.
-    m.triangles.reserve(std::size_t(std::max(nt - 1, 0)) * std::max(m.cols - 1, 0) * 6);
+    m.triangles.resize(std::size_t(std::max(nt - 1, 0)) * std::size_t(std::max(m.cols - 1, 0)) * 6);
+    std::uint32_t* tri = m.triangles.data();
     for (int i = 0; i + 1 < nt; ++i)
         for (int j = 0; j + 1 < m.cols; ++j) {
             const std::uint32_t a = std::uint32_t(i * m.cols + j), b = a + 1, c = a + std::uint32_t(m.cols), d = c + 1;
-            m.triangles.insert(m.triangles.end(), {a, c, b, b, c, d});
+            tri[0] = a, tri[1] = c, tri[2] = b, tri[3] = b, tri[4] = c, tri[5] = d;
+            tri += 6;
         }
     // Wireframe: meridians and parallels every wire_step_deg (nearest grid lines).
     const int step = std::max(1, int(std::lround(o.wire_step_deg / std::max(g.theta.step_deg, 1e-9))));
