@@ -9,9 +9,9 @@
 #include "cli/commands.hpp"
 #include "cli/format.hpp"
 #include "cli/load.hpp"
+#include "exports/cut_export.hpp"
 #include "exports/cut_figure.hpp"
 #include "exports/render.hpp"
-#include "importers/atomic_write.hpp"
 #include "pattern/peak.hpp"
 
 namespace ellipsa::cli {
@@ -79,25 +79,16 @@ int run_cut(const CutArgs& a) {
         const Peak pk = find_peak(*s, *fi, Component::total);
         spec = CutSpec::phi_cut(std::round(pk.phi_deg * 10) / 10);  // to 0.1 deg, as shown
     }
-    auto cut = compute_cut(*s, *fi, spec, *comps, a.step_deg.value_or(0));
-    if (!cut) return fail(exit_bad_input, a.file + ": " + cut.error().message);
-
-    std::string bytes;
-    if (*format == FileFormat::csv) {
-        bytes = cut_csv(*s, *cut);
-    } else {
-        FigureOptions fo;
-        fo.style = style;
-        fo.range_db = a.range_db;
-        fo.title = a.title;
-        const CutPlot plot = make_cut_plot(*s, *cut, fo);
-        auto img = render_image([&](cairo_t* cr, double w, double h) { draw_cut_plot(cr, plot, w, h); }, *format,
-                                *size, plot.title);
-        if (!img) return fail(exit_bad_input, a.out + ": " + img.error().message);
-        bytes = std::move(*img);
-    }
-    Status w = write_file_atomically(a.out, bytes, a.force);
-    if (!w) return fail(exit_bad_input, w.error().format());
+    CutExportRequest req;
+    req.spec = spec;
+    req.components = *comps;
+    req.figure.style = style;
+    req.figure.range_db = a.range_db;
+    req.figure.title = a.title;
+    req.size = *size;
+    req.step_deg = a.step_deg.value_or(0);
+    auto cut = export_cut(*s, *fi, req, a.out, a.force);
+    if (!cut) return fail(exit_bad_input, cut.error().file.empty() ? a.file + ": " + cut.error().message : cut.error().format());
 
     std::cout << "wrote " << a.out << ": " << spec.label() << ", " << format_frequency(s->frequencies[*fi].frequency_hz) << "\n";
     for (std::size_t i = 0; i < cut->components.size(); ++i) {

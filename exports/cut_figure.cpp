@@ -98,7 +98,7 @@ Result<CutData> compute_cut(const FarFieldSet& s, std::size_t fi, const CutSpec&
     if (spec.kind == CutKind::theta_const && !(spec.theta_deg >= 0 && spec.theta_deg <= 180))
         return Error{"--theta", 0, 0, "expected a polar angle from 0 to 180 deg"};
     for (Component c : components)
-        if (auto why = component_unavailable(s, c)) return Error{s.source, 0, 0, *why};
+        if (auto why = component_unavailable(s, c)) return Error{"", 0, 0, *why};
     CutData d;
     d.spec = spec;
     d.freq_index = fi;
@@ -106,7 +106,7 @@ Result<CutData> compute_cut(const FarFieldSet& s, std::size_t fi, const CutSpec&
     d.samples = sample_cut(s, fi, spec, step_deg > 0 ? step_deg : default_cut_step(s.grid));
     bool any = false;
     for (unsigned char v : d.samples.valid) any = any || v;
-    if (!any) return Error{s.source, 0, 0, "the " + spec.label() + " cut lies entirely outside the sampled region"};
+    if (!any) return Error{"", 0, 0, "the " + spec.label() + " cut lies entirely outside the sampled region"};
     for (Component c : components) {
         d.power.push_back(cut_power(s, d.samples, c));
         d.beams.push_back(beam_figures(d.samples.angle_deg, d.power.back()));
