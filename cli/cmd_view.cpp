@@ -4,6 +4,9 @@
 
 #include "cli/commands.hpp"
 #include "viewer/app.hpp"
+#include "viewer/scene/components.hpp"
+#include <cmath>
+#include <cstdio>
 
 namespace ellipsa::cli {
 namespace {
@@ -12,7 +15,15 @@ struct ViewArgs {
     bool software = false, frame_stats = false;
     std::string size, screenshot;
     int frames = 0;
+    std::string component, color_by, pin, view;
+    int compare = 0;
+    bool wireframe = false, translucent = false;
 };
+
+bool parse_pair(const std::string& s, double& a, double& b) {
+    char tail = 0;
+    return std::sscanf(s.c_str(), "%lf,%lf%c", &a, &b, &tail) == 2;
+}
 
 Registered add_view(CLI::App& root) {
     auto a = std::make_shared<ViewArgs>();
@@ -24,6 +35,13 @@ Registered add_view(CLI::App& root) {
     sub->add_option("--screenshot", a->screenshot, "With --frames: write the last frame to this PNG");
     sub->add_flag("--frame-stats", a->frame_stats,
                   "Print one JSON line {\"frames\", \"median_ms\", \"p95_ms\"} at exit (vsync off)");
+    sub->add_option("--component", a->component, "Start with this component as the radius (total, theta, ..., rhcp, lhcp)");
+    sub->add_option("--color-by", a->color_by, "Start with this colouring (component, axial-ratio, rhcp-minus-lhcp, tilt, difference)");
+    sub->add_option("--compare", a->compare, "Start comparing with FILE number N (1-based) as B");
+    sub->add_option("--pin", a->pin, "Start with THETA,PHI (deg) pinned, and the cut through it");
+    sub->add_option("--view", a->view, "Start looking from AZ,EL (deg)");
+    sub->add_flag("--wireframe", a->wireframe, "Start with the wireframe on");
+    sub->add_flag("--translucent", a->translucent, "Start with a translucent surface");
     return {sub, [a]() -> int {
                 viewer::ViewerOptions o;
                 o.files = a->files;
@@ -45,7 +63,36 @@ Registered add_view(CLI::App& root) {
                     }
                     o.width = w, o.height = h;
                 }
-                o.save_settings = a->frames == 0;  // scripted runs leave the user's settings alone
+                o.save_settings = a->frames == 0;
+                ellipsa::Component c;
+                if (!a->component.empty() && !parse_component(a->component.c_str(), c)) {
+                    std::cerr << "ellipsa view: unknown --component '" << a->component << "'\n";
+                    return exit_usage;
+                }
+                viewer::ColorBy cb;
+                if (!a->color_by.empty() && !viewer::parse_color_by(a->color_by, cb)) {
+                    std::cerr << "ellipsa view: unknown --color-by '" << a->color_by << "'\n";
+                    return exit_usage;
+                }
+                o.component = a->component;
+                o.color_by = a->color_by;
+                o.compare = a->compare - 1;
+                o.wireframe = a->wireframe;
+                o.translucent = a->translucent;
+                if (!a->pin.empty()) {
+                    if (!parse_pair(a->pin, o.pin_theta_deg, o.pin_phi_deg) || o.pin_theta_deg < 0 || o.pin_theta_deg > 180) {
+                        std::cerr << "ellipsa view: --pin expects THETA,PHI in degrees with THETA in [0, 180], found '" << a->pin << "'\n";
+                        return exit_usage;
+                    }
+                    o.has_pin = true;
+                }
+                if (!a->view.empty()) {
+                    if (!parse_pair(a->view, o.view_azimuth_deg, o.view_elevation_deg) || std::abs(o.view_elevation_deg) > 90) {
+                        std::cerr << "ellipsa view: --view expects AZ,EL in degrees with EL in [-90, 90], found '" << a->view << "'\n";
+                        return exit_usage;
+                    }
+                    o.has_view = true;
+                }  // scripted runs leave the user's settings alone
                 return viewer::run_viewer(o);
             }};
 }

@@ -319,6 +319,21 @@ int run_viewer(const ViewerOptions& opt) {
         s.note = note;
     }
 
+    // Starting state asked for on the command line.
+    if (!opt.component.empty()) parse_component(opt.component.c_str(), s.settings.component);
+    if (!opt.color_by.empty()) parse_color_by(opt.color_by, s.settings.color_by);
+    if (opt.compare >= 0 && opt.compare < int(s.patterns.size()) && opt.compare != s.active) s.compare = opt.compare;
+    if (opt.has_view) s.camera.azimuth_deg = opt.view_azimuth_deg, s.camera.elevation_deg = std::clamp(opt.view_elevation_deg, -89.5, 89.5);
+    if (opt.wireframe) s.settings.wireframe = true;
+    if (opt.translucent) s.settings.translucent = true;
+    if (opt.has_pin) {
+        Pick p;
+        p.theta_deg = opt.pin_theta_deg;
+        p.phi_deg = wrap360(opt.pin_phi_deg);
+        s.pinned = p;  // its point on the surface is filled in once the surface exists
+        s.settings.cut_kind = 2;
+    }
+
     std::vector<double> frame_ms;
     bool pressing = false;
     ImVec2 press_pos;
@@ -410,6 +425,11 @@ int run_viewer(const ViewerOptions& opt) {
         if (s.mesh_dirty) {
             rebuild_surface(s, scene);
             s.mesh_dirty = false;
+            if (s.pinned && s.active_pattern()) {
+                const double r = surface_radius(s.active_pattern()->set, s.mesh, s.pinned->theta_deg, s.pinned->phi_deg);
+                const Vec3 d = direction(s.pinned->theta_deg * deg, s.pinned->phi_deg * deg);
+                s.pinned->point = glm::dvec3(r * d.x, r * d.y, r * d.z);
+            }
         }
         if (s.glyphs_dirty) {
             const LoadedPattern* a = s.active_pattern();

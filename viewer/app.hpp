@@ -13,6 +13,14 @@ struct ViewerOptions {
     std::string screenshot;          // with frames: write the last frame as PNG
     bool frame_stats = false;        // print one JSON line of frame times (vsync off)
     bool save_settings = true;       // false for scripted runs (--frames)
+    // Optional starting state (for scripted screenshots); unset values come from the settings.
+    std::string component, color_by;  // names as in `ellipsa render`
+    bool has_pin = false;
+    double pin_theta_deg = 0, pin_phi_deg = 0;
+    bool has_view = false;
+    double view_azimuth_deg = 0, view_elevation_deg = 0;
+    int compare = -1;                 // index of the B pattern among the files
+    bool wireframe = false, translucent = false;
 };
 
 // Runs until the window closes (or `frames` frames). Returns a process exit code (0 ok,

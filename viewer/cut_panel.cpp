@@ -180,7 +180,8 @@ Intents draw_cut_panel(AppState& s) {
     // Legend and readouts.
     float ly = o.y + 4;
     const float lx = o.x + plot_w + 6;
-    dl->AddText(ImVec2(lx, ly), ink, cd.spec.label().c_str());
+    const std::string title = cd.spec.kind == CutKind::great_circle ? std::string("through the pin") : cd.spec.label();
+    dl->AddText(ImVec2(lx, ly), ink, title.c_str());
     ly += 20;
     for (std::size_t k = 0; k < cd.curves.size(); ++k) {
         const CutCurve& cv = cd.curves[k];

@@ -311,7 +311,7 @@ std::vector<ProbeRow> probe_rows(const FarFieldSet& set, std::size_t k, double t
     if (S.i > 0) {
         std::snprintf(b, sizeof b, "%.4g", S.i);
         rows.push_back({"Stokes I", b});
-        std::snprintf(b, sizeof b, "%+.3f  %+.3f  %+.3f", S.q / S.i, S.u / S.i, S.v / S.i);
+        std::snprintf(b, sizeof b, "%+.2f %+.2f %+.2f", S.q / S.i, S.u / S.i, S.v / S.i);
         rows.push_back({"Q/I U/I V/I", b});
     }
     return rows;

@@ -20,8 +20,8 @@ void draw_ellipse(ImDrawList* dl, ImVec2 c, float r, cplx et, cplx ep) {
     dl->AddCircle(c, r, faint, 64, 1.0f);
     dl->AddLine(ImVec2(c.x - r * 1.1f, c.y), ImVec2(c.x + r * 1.1f, c.y), grid);
     dl->AddLine(ImVec2(c.x, c.y - r * 1.1f), ImVec2(c.x, c.y + r * 1.1f), grid);
-    dl->AddText(ImVec2(c.x + r * 1.1f - 14, c.y + 2), ink, "\u03c6\u0302");
-    dl->AddText(ImVec2(c.x + 4, c.y - r * 1.1f - 2), ink, "\u03b8\u0302");
+    dl->AddText(ImVec2(c.x + r * 1.1f - 14, c.y + 2), ink, "\u03c6");
+    dl->AddText(ImVec2(c.x + 4, c.y - r * 1.1f - 2), ink, "\u03b8");
     const std::vector<PlanePoint> path = ellipse_path(et, ep, 96);
     if (path.empty()) return;
     const Stokes st = stokes(et, ep);

@@ -26,4 +26,10 @@ set -e
 [[ $rc -eq 2 ]] || { echo "bad --view gave exit $rc, expected 2"; exit 1; }
 ls "$out"/.*tmp* 2>/dev/null && { echo "temporary file left behind"; exit 1; }
 "$ELLIPSA" --version | grep -q "OpenGL: "
+# The window needs a display: without one, `view` says so and exits 1 instead of hanging.
+set +e
+timeout 60 "$ELLIPSA" view --frames 1 2>"$out/err"; rc=$?
+set -e
+[[ $rc -eq 1 ]] || { echo "view without a display gave exit $rc, expected 1"; exit 1; }
+grep -qi "display" "$out/err"
 echo "render_headless: ok"
