@@ -109,7 +109,22 @@ Result<CutData> compute_cut(const FarFieldSet& s, std::size_t fi, const CutSpec&
     if (!any) return Error{"", 0, 0, "the " + spec.label() + " cut lies entirely outside the sampled region"};
     for (Component c : components) {
         d.power.push_back(cut_power(s, d.samples, c));
-        d.beams.push_back(beam_figures(d.samples.angle_deg, d.power.back()));
+        // Start the climb at the largest sample; between equal maxima (a symmetric pattern) take
+        // the one at a non-negative angle, in the cut's own half-plane rather than phi + 180.
+        const std::vector<double>& p = d.power.back();
+        int best = -1;
+        for (std::size_t k = 0; k < p.size(); ++k) {
+            if (!(p[k] > 0)) continue;
+            if (best < 0) {
+                best = int(k);
+                continue;
+            }
+            const double b = p[std::size_t(best)];
+            const bool tie = std::abs(p[k] - b) <= 1e-9 * b;
+            if ((!tie && p[k] > b) || (tie && d.samples.angle_deg[k] >= 0 && d.samples.angle_deg[std::size_t(best)] < 0))
+                best = int(k);
+        }
+        d.beams.push_back(beam_figures(d.samples.angle_deg, p, best));
     }
     return d;
 }

@@ -110,6 +110,26 @@ struct Pen {
     }
 };
 
+// Make `s` fit in `w`: shrink the current font down to `min_size` (layout points), then cut the
+// text with an ellipsis. Leaves the font at the size it chose.
+std::string fit(Pen& pen, const std::string& s, double w, double min_size) {
+    double size = pen.size / pen.u;
+    while (pen.width(s) > w && size > min_size + 1e-9) {
+        size = std::max(min_size, size - 0.5);
+        pen.size = size * pen.u;
+        cairo_set_font_size(pen.cr, pen.size);
+    }
+    if (pen.width(s) <= w) return s;
+    // Cut at UTF-8 character boundaries.
+    std::string t = s;
+    while (!t.empty() && pen.width(t + "…") > w) {
+        t.pop_back();
+        while (!t.empty() && (static_cast<unsigned char>(t.back()) & 0xC0) == 0x80) t.pop_back();
+        if (!t.empty() && (static_cast<unsigned char>(t.back()) & 0xC0) == 0xC0) t.pop_back();
+    }
+    return t + "…";
+}
+
 // Word-wrap `s` into lines no wider than `w` with the current font.
 std::vector<std::string> wrap(Pen& pen, const std::string& s, double w) {
     std::vector<std::string> out;
@@ -200,10 +220,10 @@ double draw_header(Pen& pen, const CutPlot& p, double w, double m) {
     const double u = pen.u;
     pen.colour(ink);
     pen.font(FontWeight::bold, 13);
-    pen.text(p.title, m, m + 11 * u);
+    pen.text(fit(pen, p.title, w - 2 * m, 9.5), m, m + 11 * u);
     pen.colour(ink_soft);
     pen.font(FontWeight::regular, 9);
-    pen.text(p.subtitle, m, m + 25 * u);
+    pen.text(fit(pen, p.subtitle, w - 2 * m, 7.5), m, m + 25 * u);
     const double y = m + 32 * u;
     cairo_set_line_width(pen.cr, 0.5 * u);
     pen.colour(grid_major);
@@ -215,6 +235,9 @@ double draw_header(Pen& pen, const CutPlot& p, double w, double m) {
 void draw_legend(Pen& pen, const CutPlot& p, double x0, double y0, double x1, double y1) {
     const double u = pen.u;
     double y = y0 + 12 * u;
+    // Many curves: one readout line per curve instead of two.
+    const bool compact = p.curves.size() > 5;
+    const double text_w = x1 - x0 - 30 * u;
     for (std::size_t i = 0; i < p.curves.size(); ++i) {
         const PlotCurve& c = p.curves[i];
         pen.curve_style(i, 1.6 * u);
@@ -222,14 +245,22 @@ void draw_legend(Pen& pen, const CutPlot& p, double x0, double y0, double x1, do
         pen.line(x0, y - 3 * u, x0 + 24 * u, y - 3 * u);
         pen.solid();
         pen.colour(ink);
-        pen.font(FontWeight::bold, 8.8);
-        pen.text(c.label, x0 + 30 * u, y);
+        pen.font(FontWeight::bold, compact ? 8.2 : 8.8);
+        pen.text(fit(pen, c.label, text_w, 6.5), x0 + 30 * u, y);
         pen.colour(ink_soft);
-        pen.font(FontWeight::regular, 7.6);
-        pen.text(peak_text(p, c), x0 + 30 * u, y + 10.5 * u);
+        pen.font(FontWeight::regular, compact ? 7.0 : 7.6);
         const std::string b = beam_text(c);
-        if (!b.empty()) pen.text(b, x0 + 30 * u, y + 20 * u);
-        y += (b.empty() ? 26 : 35) * u;
+        if (compact) {
+            std::string line = c.beam ? num(c.beam->peak_db, 2) + " " + c.unit + " at " + angle_text(c.beam->peak_angle_deg, 1)
+                                      : peak_text(p, c);
+            if (!b.empty()) line += "  " + b;
+            pen.text(fit(pen, line, text_w, 6.2), x0 + 30 * u, y + 9.5 * u);
+            y += 24 * u;
+        } else {
+            pen.text(fit(pen, peak_text(p, c), text_w, 6.0), x0 + 30 * u, y + 10.5 * u);
+            if (!b.empty()) pen.text(b, x0 + 30 * u, y + 20 * u);
+            y += (b.empty() ? 26 : 35) * u;
+        }
         if (y > y1) return;
     }
     // Marker key and small print.

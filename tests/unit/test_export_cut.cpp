@@ -142,6 +142,8 @@ TEST_CASE("plot curves carry the core's beam figures", "[export]") {
     CHECK(*p.curves[0].beam->hpbw_deg == Approx(78.0).margin(0.3));
     CHECK(*p.curves[0].beam->front_to_back_db == Approx(0.0).margin(1e-6));
     CHECK_FALSE(p.curves[1].beam);  // no phi component on a z dipole: no peak to read
+    // Equal maxima at theta = +-90: the readout names the cut's own half-plane (angle >= 0).
+    CHECK(p.curves[0].beam->peak_angle_deg == Approx(90.0).margin(0.01));
     CHECK(p.marked_curve == 0);
     CHECK(p.layout == AngleLayout::signed_half);
     CHECK(p.subtitle.find("1 GHz") != std::string::npos);
