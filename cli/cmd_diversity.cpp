@@ -193,6 +193,9 @@ void json_orientations(JsonWriter& j, const Result<OrientationFigures>& r, const
     j.field("min_db", to_db(o.min)).field("median_db", to_db(o.median)).field("max_db", to_db(o.max));
     j.field("spread_db", to_db(o.max) - to_db(o.min));
     j.field("random_orientation_mean_db", to_db(o.random_mean));
+    j.field("random_orientation_p10_db", to_db(o.random_p10));
+    j.field("as_given_db", to_db(o.samples.front().meg));
+    j.field("worst_loss_db", to_db(o.samples.front().meg) - to_db(o.min));
     j.key("worst");
     json_sample(j, o.worst);
     j.key("best");
@@ -329,7 +332,10 @@ void write_human(const EnvChoice& env, const std::vector<PatternResult>& ps, con
                 std::snprintf(buf, sizeof buf, "tilt %g deg, roll %g deg", o->best.tilt_deg, o->best.roll_deg);
                 std::cout << "      best                " << fmt(to_db(o->best.meg), "dBi") << " at " << buf << "\n";
             }
-            std::cout << "      random orientation  " << fmt(to_db(o->random_mean), "dBi") << " mean\n";
+            std::cout << "      random orientation  " << fmt(to_db(o->random_mean), "dBi") << " mean, 90 % reach "
+                      << fmt(to_db(o->random_p10), "dBi") << "\n";
+            std::cout << "      careless mounting   costs up to " << fmt(to_db(o->samples.front().meg) - to_db(o->min), "dB")
+                      << " against the orientation as given\n";
             std::cout << "      by tilt (deg: min / mean / max dBi)\n";
             for (const TiltRow& t : o->by_tilt) {
                 std::snprintf(buf, sizeof buf, "        %5.1f: %7.2f / %7.2f / %7.2f\n", t.tilt_deg, to_db(t.min),

@@ -406,18 +406,44 @@ Result<OrientationFigures> orientation_robustness(const FarFieldSet& s, std::siz
         if (o.meg < out.worst.meg) out.worst = o;
         if (o.meg > out.best.meg) out.best = o;
     }
-    // Random orientation with the axis within tilt_max: weight each tilt row by its band.
-    double sum = 0, wsum = 0;
-    for (std::size_t k = 0; k < out.by_tilt.size(); ++k) {
-        const double t0 = tilts[k] * deg;
+    // Random orientation with the axis within tilt_max: weight each tilt row by its band of axis
+    // directions, shared equally among the row's rolls.
+    std::vector<double> band(tilts.size());
+    double wsum = 0;
+    for (std::size_t k = 0; k < tilts.size(); ++k) {
         const double a = k == 0 ? 0.0 : 0.5 * (tilts[k - 1] + tilts[k]) * deg;
         const double b = k + 1 == tilts.size() ? sw.tilt_max_deg * deg : 0.5 * (tilts[k] + tilts[k + 1]) * deg;
-        (void)t0;
-        const double wk = std::cos(a) - std::cos(b);
-        sum += wk * out.by_tilt[k].mean;
-        wsum += wk;
+        band[k] = std::cos(a) - std::cos(b);
+        wsum += band[k];
     }
-    out.random_mean = wsum > 0 ? sum / wsum : out.by_tilt.front().mean;
+    if (!(wsum > 0)) {  // tilt_max 0: one orientation
+        std::fill(band.begin(), band.end(), 1.0);
+        wsum = double(band.size());
+    }
+    double sum = 0;
+    for (std::size_t k = 0; k < tilts.size(); ++k) sum += band[k] * out.by_tilt[k].mean;
+    out.random_mean = sum / wsum;
+    // The 10th percentile of that distribution: sort the samples, walk up the cumulative weight.
+    std::vector<std::pair<double, double>> weighted;  // (meg, weight)
+    {
+        std::size_t k = 0, first = 0;
+        for (std::size_t q = 0; q <= out.samples.size(); ++q) {
+            if (q == out.samples.size() || out.samples[q].tilt_deg != out.samples[first].tilt_deg) {
+                const double each = band[k] / double(q - first);
+                for (std::size_t r = first; r < q; ++r) weighted.push_back({out.samples[r].meg, each});
+                ++k;
+                first = q;
+            }
+        }
+    }
+    std::sort(weighted.begin(), weighted.end());
+    double acc = 0;
+    out.random_p10 = weighted.front().first;
+    for (const auto& [m, wq] : weighted) {
+        acc += wq;
+        out.random_p10 = m;
+        if (acc >= 0.1 * wsum) break;
+    }
     return out;
 }
 

@@ -96,6 +96,9 @@ struct OrientationFigures {
     // each tilt row stands for the band of axis directions halfway to its neighbours and is
     // weighted by that band's solid angle (cos a - cos b).
     double random_mean = 0;
+    // The MEG that 90 % of such random orientations reach or exceed (same weights; the value of
+    // the sample where the cumulative weight passes 10 %).
+    double random_p10 = 0;
     bool exact_roll_shift = false;  // rolls done by exact column shifts of the grid (roll step multiple of phi step)
 };
 // Cost: with the roll step a multiple of the grid's phi step, one acos and two density
