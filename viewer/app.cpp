@@ -189,6 +189,7 @@ Layout compute_layout(const AppState& s, ImVec2 display, float menu_h) {
 bool begin_panel(const char* name, ImVec2 pos, ImVec2 size) {
     ImGui::SetNextWindowPos(pos, ImGuiCond_Always);
     ImGui::SetNextWindowSize(size, ImGuiCond_Always);
+    ImGui::SetNextWindowBgAlpha(0.0f);  // the framebuffer is cleared to the panel colour
     return ImGui::Begin(name, nullptr, ImGuiWindowFlags_NoMove | ImGuiWindowFlags_NoResize | ImGuiWindowFlags_NoCollapse |
                                            ImGuiWindowFlags_NoBringToFrontOnFocus);
 }
@@ -506,8 +507,10 @@ int run_viewer(const ViewerOptions& opt) {
         const float sx = io.DisplaySize.x > 0 ? fbw / io.DisplaySize.x : 1, sy = io.DisplaySize.y > 0 ? fbh / io.DisplaySize.y : 1;
         glBindFramebuffer(GL_FRAMEBUFFER, 0);
         glViewport(0, 0, fbw, fbh);
-        // No full-window clear: the menu bar and the panels cover everything outside the 3D view,
-        // which the scene clears itself (a full clear costs llvmpipe a few ms per frame).
+        // Clear to the panel colour: the tiled panels draw no background of their own.
+        glDisable(GL_SCISSOR_TEST);
+        glClearColor(panel_rgb[0], panel_rgb[1], panel_rgb[2], 1);
+        glClear(GL_COLOR_BUFFER_BIT);
         SceneStyle style;
         style.wireframe = s.settings.wireframe;
         style.translucent = s.settings.translucent;

@@ -115,8 +115,19 @@ void SceneRenderer::set_surface(const SurfaceMesh& m) {
     glBindBuffer(GL_ARRAY_BUFFER, surface_vbo_);
     glBufferData(GL_ARRAY_BUFFER, GLsizeiptr(m.vertices.size() * sizeof(float)), m.vertices.data(), GL_STATIC_DRAW);
     glBindBuffer(GL_ELEMENT_ARRAY_BUFFER, surface_ibo_);
-    glBufferData(GL_ELEMENT_ARRAY_BUFFER, GLsizeiptr(m.triangles.size() * sizeof(std::uint32_t)), m.triangles.data(),
-                 GL_STATIC_DRAW);
+    const std::vector<std::uint32_t>* levels[3] = {&m.triangles, &m.triangles_stride2, &m.triangles_stride4};
+    std::size_t total = 0;
+    for (int k = 0; k < 3; ++k) {
+        lod_offset_[k] = total * sizeof(std::uint32_t);
+        lod_count_[k] = int(levels[k]->size());
+        total += levels[k]->size();
+    }
+    glBufferData(GL_ELEMENT_ARRAY_BUFFER, GLsizeiptr(total * sizeof(std::uint32_t)), nullptr, GL_STATIC_DRAW);
+    for (int k = 0; k < 3; ++k)
+        if (lod_count_[k])
+            glBufferSubData(GL_ELEMENT_ARRAY_BUFFER, GLintptr(lod_offset_[k]), GLsizeiptr(levels[k]->size() * sizeof(std::uint32_t)),
+                            levels[k]->data());
+    grid_step_deg_ = m.grid_step_deg;
     glBindBuffer(GL_ELEMENT_ARRAY_BUFFER, wire_ibo_);
     glBufferData(GL_ELEMENT_ARRAY_BUFFER, GLsizeiptr(m.wire_lines.size() * sizeof(std::uint32_t)), m.wire_lines.data(),
                  GL_STATIC_DRAW);
@@ -186,7 +197,13 @@ void SceneRenderer::draw(const OrbitCamera& cam, int x, int y, int w, int h, con
             glUniform1f(s_alpha_, 1.0f);
         }
         glBindVertexArray(surface_vao_);
-        glDrawElements(GL_TRIANGLES, surface_index_count_, GL_UNSIGNED_INT, nullptr);
+        // Level of detail: skip grid lines whose cells would be under a few pixels wide.
+        int level = 0;
+        const int stride = lod_stride(grid_step_deg_, h, cam.fov_deg, cam.distance);
+        if (stride >= 4 && lod_count_[2]) level = 2;
+        else if (stride >= 2 && lod_count_[1]) level = 1;
+        last_stride_ = 1 << level;
+        glDrawElements(GL_TRIANGLES, lod_count_[level], GL_UNSIGNED_INT, reinterpret_cast<void*>(lod_offset_[level]));
         glDepthMask(GL_TRUE);
         glDisable(GL_CULL_FACE);
         glDisable(GL_POLYGON_OFFSET_FILL);

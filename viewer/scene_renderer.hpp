@@ -40,6 +40,8 @@ public:
     // Draw into the bound framebuffer, in the viewport (x, y from the bottom-left, w, h pixels).
     // clear: fill the viewport with the background first.
     void draw(const OrbitCamera& cam, int x, int y, int w, int h, const SceneStyle& style, bool clear = true);
+    // The level of detail used by the last draw (1: every grid line).
+    int last_stride() const { return last_stride_; }
 
 private:
     struct Lines {
@@ -52,6 +54,10 @@ private:
     unsigned surface_program_ = 0, line_program_ = 0;
     unsigned surface_vao_ = 0, surface_vbo_ = 0, surface_ibo_ = 0, wire_vao_ = 0, wire_ibo_ = 0;
     int surface_index_count_ = 0, wire_index_count_ = 0;
+    int lod_count_[3] = {0, 0, 0};            // triangles x3 for stride 1, 2, 4
+    std::size_t lod_offset_[3] = {0, 0, 0};   // byte offsets in the index buffer
+    double grid_step_deg_ = 1;
+    int last_stride_ = 1;
     Lines glyphs_, ring_, axes_;
     // Uniform locations.
     int s_view_ = -1, s_proj_ = -1, s_alpha_ = -1, l_view_ = -1, l_proj_ = -1, l_tint_ = -1;

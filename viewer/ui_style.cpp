@@ -35,12 +35,12 @@ UiFonts setup_ui_style(float scale) {
     s.ItemSpacing = ImVec2(8, 5);
     s.ScrollbarSize = 12;
     ImVec4* c = s.Colors;
-    const ImVec4 ink(0.13f, 0.15f, 0.18f, 1), paper(0.975f, 0.975f, 0.965f, 1), panel(0.95f, 0.95f, 0.94f, 1);
+    const ImVec4 ink(0.13f, 0.15f, 0.18f, 1), paper(0.975f, 0.975f, 0.965f, 1), panel(panel_rgb[0], panel_rgb[1], panel_rgb[2], 1);
     const ImVec4 accent(0.16f, 0.36f, 0.55f, 1), accent_soft(0.16f, 0.36f, 0.55f, 0.18f);
     c[ImGuiCol_Text] = ink;
     c[ImGuiCol_TextDisabled] = ImVec4(0.45f, 0.47f, 0.50f, 1);
     c[ImGuiCol_WindowBg] = panel;
-    c[ImGuiCol_ChildBg] = paper;
+    c[ImGuiCol_ChildBg] = ImVec4(0, 0, 0, 0);  // children show their panel's colour
     c[ImGuiCol_PopupBg] = paper;
     c[ImGuiCol_Border] = ImVec4(0.78f, 0.78f, 0.76f, 1);
     c[ImGuiCol_FrameBg] = ImVec4(1, 1, 1, 1);

@@ -166,3 +166,20 @@ TEST_CASE("surface radius between samples is bilinear", "[scene][mesh]") {
     const double r44 = norm(vertex(*m, 22, 0)), r46 = norm(vertex(*m, 23, 0));
     CHECK(surface_radius(s, *m, 45, 0) == Approx(0.5 * (r44 + r46)).margin(1e-6));
 }
+
+TEST_CASE("level of detail keeps cells a few pixels wide", "[scene][mesh]") {
+    // Unit radius at distance 5.4, fov 30 deg, 470 px high: 470 / (2 tan 15 deg 5.4) = 162 px.
+    CHECK(lod_stride(1.0, 470, 30, 5.4) == 1);   // 2.8 px cells
+    CHECK(lod_stride(0.5, 470, 30, 5.4) == 2);   // 1.4 px -> every 2nd line
+    CHECK(lod_stride(0.25, 470, 30, 5.4) == 4);
+    CHECK(lod_stride(0.5, 470, 30, 2.0) == 1);   // zoomed in: full detail
+    // The coarse lists cover the same surface: same corners, fewer triangles.
+    FarFieldSet s = short_dipole(1);
+    auto m = build_surface(s, 0, SurfaceOptions{});
+    REQUIRE(m);
+    CHECK(m->triangles_stride2.size() == std::size_t(90 * 180 * 6));
+    CHECK(m->triangles_stride4.size() == std::size_t(45 * 90 * 6));
+    std::uint32_t max2 = 0;
+    for (std::uint32_t v : m->triangles_stride2) max2 = std::max(max2, v);
+    CHECK(max2 == std::uint32_t(m->rows * m->cols - 1));
+}

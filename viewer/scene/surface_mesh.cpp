@@ -197,6 +197,26 @@ Result<SurfaceMesh> build_surface(const FarFieldSet& s, std::size_t k, const Sur
             tri[0] = a, tri[1] = c, tri[2] = b, tri[3] = b, tri[4] = c, tri[5] = d;
             tri += 6;
         }
+    // Coarser levels of detail over the same vertices.
+    auto coarse = [&](int k, std::vector<std::uint32_t>& out) {
+        std::vector<int> rows_k, cols_k;
+        for (int i = 0; i < nt; i += k) rows_k.push_back(i);
+        if (rows_k.back() != nt - 1) rows_k.push_back(nt - 1);
+        for (int j = 0; j < m.cols; j += k) cols_k.push_back(j);
+        if (cols_k.back() != m.cols - 1) cols_k.push_back(m.cols - 1);
+        out.reserve((rows_k.size() - 1) * (cols_k.size() - 1) * 6);
+        for (std::size_t a = 0; a + 1 < rows_k.size(); ++a)
+            for (std::size_t b = 0; b + 1 < cols_k.size(); ++b) {
+                const std::uint32_t v00 = std::uint32_t(rows_k[a] * m.cols + cols_k[b]), v01 = std::uint32_t(rows_k[a] * m.cols + cols_k[b + 1]);
+                const std::uint32_t v10 = std::uint32_t(rows_k[a + 1] * m.cols + cols_k[b]), v11 = std::uint32_t(rows_k[a + 1] * m.cols + cols_k[b + 1]);
+                out.insert(out.end(), {v00, v10, v01, v01, v10, v11});
+            }
+    };
+    m.grid_step_deg = std::min(g.theta.step_deg, g.phi.step_deg);
+    if (nt > 8 && m.cols > 8) {
+        coarse(2, m.triangles_stride2);
+        coarse(4, m.triangles_stride4);
+    }
     // Wireframe: meridians and parallels every wire_step_deg (nearest grid lines).
     const int step = std::max(1, int(std::lround(o.wire_step_deg / std::max(g.theta.step_deg, 1e-9))));
     const int pstep = std::max(1, int(std::lround(o.wire_step_deg / std::max(g.phi.step_deg, 1e-9))));
@@ -207,6 +227,13 @@ Result<SurfaceMesh> build_surface(const FarFieldSet& s, std::size_t k, const Sur
         for (int i = 0; i + 1 < nt; ++i)
             m.wire_lines.insert(m.wire_lines.end(), {std::uint32_t(i * m.cols + j), std::uint32_t((i + 1) * m.cols + j)});
     return m;
+}
+
+int lod_stride(double step_deg, double view_h, double fov_deg, double distance, double min_cell_px) {
+    const double unit_px = view_h / (2 * std::tan(0.5 * fov_deg * deg) * std::max(distance, 1e-6));
+    for (int k : {1, 2, 4})
+        if (k * step_deg * deg * unit_px >= min_cell_px) return k;
+    return 4;
 }
 
 double surface_radius(const FarFieldSet& s, const SurfaceMesh& m, double theta_deg, double phi_deg) {

@@ -46,6 +46,10 @@ struct SurfaceMesh {
     int rows = 0, cols = 0;  // vertex rows (theta samples) and columns (phi samples + seam column)
     std::vector<float> vertices;        // interleaved, surface_floats_per_vertex per vertex
     std::vector<std::uint32_t> triangles;
+    // Coarser triangle lists over the same vertices, taking every 2nd and every 4th grid line
+    // (the last row and column always kept): drawn when cells would be smaller than a few pixels.
+    std::vector<std::uint32_t> triangles_stride2, triangles_stride4;
+    double grid_step_deg = 1;  // finer of the theta and phi steps
     std::vector<std::uint32_t> wire_lines;  // pairs of vertex indices
     double peak_db = 0, floor_db = -30;  // of the shown component
     std::string unit;                    // of the radius
@@ -60,6 +64,11 @@ inline double radius_from_db(double value_db, double peak_db, double range_db) {
     const double r = (value_db - (peak_db - range_db)) / range_db;
     return r > 1 ? 1 : r;
 }
+
+// Level of detail: the grid stride (1, 2 or 4) whose cells stay at least min_cell_px pixels wide
+// for a view of view_height_px pixels, a vertical field of view fov_deg and an eye at `distance`
+// (the unit radius spans view_height_px / (2 tan(fov/2) distance) pixels).
+int lod_stride(double grid_step_deg, double view_height_px, double fov_deg, double distance, double min_cell_px = 2.5);
 
 // Build the surface of one frequency. `other`, when given, is the B pattern for ColorBy::difference
 // (sampled at this set's directions by interpolation when the grids differ). Errors say why a
