@@ -5,6 +5,7 @@
 
 #include "exports/cut_figure.hpp"
 #include "exports/render.hpp"
+#include "exports/report.hpp"
 #include "pattern/reference.hpp"
 
 using namespace ellipsa;
@@ -46,5 +47,28 @@ int main() {
                         st == PlotStyle::polar ? "polar" : "rect", to_string(f), ms, bytes / 1024);
         }
     }
+    // A whole report without 3D views (those are the viewer's cost): 3 patterns x 3 frequencies,
+    // 4 cuts each as SVG + PNG + CSV, plus the comparison.
+    std::vector<ReportInput> in;
+    for (int k = 0; k < 3; ++k) {
+        ReferenceAntenna r;
+        r.kind = k == 0 ? ReferenceKind::dipole : k == 1 ? ReferenceKind::crossed_dipoles : ReferenceKind::loop;
+        r.orientation = rotation_xyz_deg(20.0 * k, 0, 15.0 * k);
+        ReportInput ri;
+        ri.set = synthesize(r, 2.0, 2.4e9);
+        for (double f : {2.45e9, 2.5e9}) {
+            FarField ff = ri.set.frequencies[0];
+            ff.frequency_hz = f;
+            ri.set.frequencies.push_back(ff);
+        }
+        ri.path = "bench" + std::to_string(k) + ".csv";
+        in.push_back(std::move(ri));
+    }
+    std::size_t nfiles = 0;
+    const double rep_ms = best_ms(2, [&] {
+        auto r = build_report(in, ReportOptions{});
+        nfiles = r.ok() ? r->size() : 0;
+    });
+    std::printf("report, 3 patterns x 3 frequencies, no 3D views (%zu files):  %8.0f ms\n", nfiles, rep_ms);
     return 0;
 }
