@@ -31,6 +31,7 @@ struct ReportArgs {
     std::string size = "1200x900";
     double dpi = 150;
     double range_db = 40;
+    std::string style = "polar";
     std::string environment = "uniform";
     std::optional<double> xpr_db;
     bool force = false;
@@ -52,6 +53,7 @@ int run_report(const ReportArgs& a) {
     o.frequency_hz = a.frequency_hz;
     o.size = *size;
     o.range_db = a.range_db;
+    if (!parse_plot_style(a.style, o.style)) return fail(exit_usage, "--style: expected polar or rect, found \"" + a.style + "\"");
     o.generator = first_line(version_text());
     {
         std::time_t t = std::time(nullptr);
@@ -110,6 +112,7 @@ Registered add_report(CLI::App& root) {
     sub->add_option("--size", a->size, "Cut figure size WIDTHxHEIGHT in pixels (default 1200x900)");
     sub->add_option("--dpi", a->dpi, "Dots per inch of the figures (default 150)");
     sub->add_option("--range", a->range_db, "Dynamic range of the cut plots, dB (default 40)")->check(CLI::Range(3.0, 200.0));
+    sub->add_option("--style", a->style, "Cut figures: polar (default) or rect");
     sub->add_option("--environment", a->environment,
                     "Multipath environment for the MEG row: uniform (default), indoor, urban or rural "
                     "(see `ellipsa diversity` for custom ones)");

@@ -164,14 +164,14 @@ std::string to_html(const Document& d) {
 }
 
 std::string to_markdown(const Document& d) {
-    std::string o = "# " + d.title + "\n\n";
+    std::string o = "# " + markdown_escape_cell(d.title) + "\n\n";
     for (const DocBlock& b : d.blocks) {
         switch (b.kind) {
             case DocBlock::Kind::heading:
                 if (b.level <= 1) break;  // the title is the one level-1 heading
-                o += std::string(std::size_t(b.level), '#') + " " + b.text + "\n\n";
+                o.append(std::size_t(b.level), '#').append(" ").append(markdown_escape_cell(b.text)).append("\n\n");
                 break;
-            case DocBlock::Kind::paragraph: o += b.text + "\n\n"; break;
+            case DocBlock::Kind::paragraph: o.append(markdown_escape_cell(b.text)).append("\n\n"); break;
             case DocBlock::Kind::note:
                 o.append("*").append(markdown_escape_cell(b.text)).append("*\n\n");
                 break;

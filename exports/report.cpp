@@ -1,5 +1,6 @@
 #include "exports/report.hpp"
 
+#include <algorithm>
 #include <cctype>
 #include <cmath>
 #include <cstdio>
@@ -57,6 +58,30 @@ std::string freq_tag(double hz, std::size_t fi) {
     std::snprintf(b, sizeof b, "%gMHz", std::round(hz / 1e3) / 1e3);
     return b;
 }
+// "A", "B", ... "Z", "A2", ...
+std::string letter(std::size_t i) {
+    return std::string(1, char('A' + i % 26)) + (i >= 26 ? std::to_string(i / 26 + 1) : "");
+}
+
+// Figures tables: one row per figure, one column per label; at most five value columns per table
+// so that the page stays readable with many frequencies or patterns.
+void figures_tables(Document& doc, const std::vector<std::string>& labels,
+                    const std::vector<std::vector<std::pair<std::string, std::string>>>& cols) {
+    constexpr std::size_t per_table = 5;
+    for (std::size_t c0 = 0; c0 < cols.size(); c0 += per_table) {
+        const std::size_t c1 = std::min(cols.size(), c0 + per_table);
+        DocTable t;
+        t.header = {"Figure"};
+        for (std::size_t c = c0; c < c1; ++c) t.header.push_back(labels[c]);
+        for (std::size_t r = 0; r < cols[c0].size(); ++r) {
+            std::vector<std::string> row{cols[c0][r].first};
+            for (std::size_t c = c0; c < c1; ++c) row.push_back(r < cols[c].size() ? cols[c][r].second : "");
+            t.rows.push_back(row);
+        }
+        doc.table(t);
+    }
+}
+
 std::string display_name(const ReportInput& in) { return in.set.name.empty() ? basename_of(in.path) : in.set.name; }
 
 const char* quantity_word(Quantity q) {
@@ -213,8 +238,7 @@ Result<std::vector<ReportFile>> build_report(const std::vector<ReportInput>& inp
         for (std::size_t i = 0; i < inputs.size(); ++i) {
             std::string fl;
             for (std::size_t k : freqs[i]) fl += (fl.empty() ? "" : ", ") + frequency_text(inputs[i].set.frequencies[k].frequency_hz);
-            t.rows.push_back({std::string(1, char('A' + i % 26)) + (i >= 26 ? std::to_string(i / 26) : ""), display_name(inputs[i]),
-                              inputs[i].path, fl});
+            t.rows.push_back({letter(i), display_name(inputs[i]), inputs[i].path, fl});
         }
         doc.table(t);
     }
@@ -224,7 +248,7 @@ Result<std::vector<ReportFile>> build_report(const std::vector<ReportInput>& inp
         const ReportInput& in = inputs[i];
         const FarFieldSet& s = in.set;
         const std::string base = "p" + std::to_string(i + 1) + "-" + slug(display_name(in));
-        doc.heading(2, std::string(1, char('A' + i % 26)) + ". " + display_name(in), base);
+        doc.heading(2, letter(i) + ". " + display_name(in), base);
         std::string about = "File " + in.path + ". ";
         if (!s.source.empty() && s.source != in.path) about += "Source: " + s.source + ". ";
         char grid[240];
@@ -239,18 +263,14 @@ Result<std::vector<ReportFile>> build_report(const std::vector<ReportInput>& inp
 
         for (std::size_t fi : freqs[i]) summaries[i].push_back(summarize(s, fi));
         // Figures table: one column per frequency.
-        DocTable t;
-        t.header = {"Figure"};
-        for (std::size_t fi : freqs[i]) t.header.push_back(frequency_text(s.frequencies[fi].frequency_hz));
+        std::vector<std::string> labels;
         std::vector<std::vector<std::pair<std::string, std::string>>> cols;
-        for (std::size_t j = 0; j < freqs[i].size(); ++j) cols.push_back(figure_rows(s, freqs[i][j], summaries[i][j], o));
-        for (std::size_t r = 0; r < cols[0].size(); ++r) {
-            std::vector<std::string> row{cols[0][r].first};
-            for (auto& c : cols) row.push_back(r < c.size() ? c[r].second : "");
-            t.rows.push_back(row);
+        for (std::size_t j = 0; j < freqs[i].size(); ++j) {
+            labels.push_back(frequency_text(s.frequencies[freqs[i][j]].frequency_hz));
+            cols.push_back(figure_rows(s, freqs[i][j], summaries[i][j], o));
         }
         doc.heading(3, "Figures");
-        doc.table(t);
+        figures_tables(doc, labels, cols);
         if (!summaries[i].empty() && !summaries[i][0].unavailable_reason.empty()) doc.note(summaries[i][0].unavailable_reason);
 
         for (std::size_t j = 0; j < freqs[i].size(); ++j) {
@@ -269,6 +289,7 @@ Result<std::vector<ReportFile>> build_report(const std::vector<ReportInput>& inp
                 }
                 FigureOptions fo;
                 fo.range_db = o.range_db;
+                fo.style = o.style;
                 fo.title = display_name(in);
                 const CutPlot plot = make_cut_plot(s, *cut, fo);
                 DocFigure f;
@@ -318,20 +339,14 @@ Result<std::vector<ReportFile>> build_report(const std::vector<ReportInput>& inp
         doc.paragraph(same_f ? "All patterns at " + frequency_text(f0) + "."
                              : "The patterns hold different frequencies; each is taken at its frequency nearest " +
                                    frequency_text(f0) + " (see the table header).");
-        DocTable t;
-        t.header = {"Figure"};
+        std::vector<std::string> labels;
         std::vector<std::vector<std::pair<std::string, std::string>>> cols;
         for (std::size_t i = 0; i < inputs.size(); ++i) {
-            t.header.push_back(std::string(1, char('A' + i % 26)) + ". " + display_name(inputs[i]) + " (" +
-                               frequency_text(inputs[i].set.frequencies[cfi[i]].frequency_hz) + ")");
+            labels.push_back(letter(i) + ". " + display_name(inputs[i]) + " (" +
+                             frequency_text(inputs[i].set.frequencies[cfi[i]].frequency_hz) + ")");
             cols.push_back(figure_rows(inputs[i].set, cfi[i], cs[i], o));
         }
-        for (std::size_t r = 0; r < cols[0].size(); ++r) {
-            std::vector<std::string> row{cols[0][r].first};
-            for (auto& c : cols) row.push_back(r < c.size() ? c[r].second : "");
-            t.rows.push_back(row);
-        }
-        doc.table(t);
+        figures_tables(doc, labels, cols);
         std::vector<DocFigure> figs;
         std::string dummy;
         for (const CutDef& cd : principal_cuts(cs[0], &dummy)) {
@@ -341,10 +356,11 @@ Result<std::vector<ReportFile>> build_report(const std::vector<ReportInput>& inp
             for (std::size_t i = 0; i < inputs.size(); ++i) {
                 auto cut = compute_cut(inputs[i].set, cfi[i], cd.spec, {Component::total});
                 if (!cut) continue;
-                const std::string prefix = std::string(1, char('A' + i % 26)) + ". " + display_name(inputs[i]) + " ";
+                const std::string prefix = letter(i) + ". " + display_name(inputs[i]) + " ";
                 if (first) {
                     FigureOptions fo;
                     fo.range_db = o.range_db;
+                fo.style = o.style;
                     fo.title = "Comparison, total power";
                     plot = make_cut_plot(inputs[i].set, *cut, fo);
                     plot.curves.clear();
@@ -354,7 +370,7 @@ Result<std::vector<ReportFile>> build_report(const std::vector<ReportInput>& inp
                     first = false;
                 }
                 add_curves(plot, inputs[i].set, *cut, prefix);
-                plot.curves.back().label = std::string(1, char('A' + i % 26)) + ". " + display_name(inputs[i]);
+                plot.curves.back().label = letter(i) + ". " + display_name(inputs[i]);
                 if (!same_f) plot.curves.back().label += " (" + frequency_text(inputs[i].set.frequencies[cfi[i]].frequency_hz) + ")";
             }
             if (first) continue;

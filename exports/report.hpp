@@ -13,6 +13,7 @@
 #include <string>
 #include <vector>
 
+#include "exports/cut_plot.hpp"
 #include "exports/render.hpp"
 #include "pattern/environment.hpp"
 #include "pattern/far_field.hpp"
@@ -41,6 +42,7 @@ struct ReportOptions {
     std::optional<double> frequency_hz;  // only this frequency (nearest within 0.5 %); default all
     RenderSize size;                     // of every cut figure (1200x900 px at 150 dpi)
     double range_db = 40;
+    PlotStyle style = PlotStyle::polar;  // of every cut figure
     std::string generator = "ellipsa";   // "ellipsa 0.1.0": provenance line
     std::string generated_utc;           // date line; empty leaves it out (reproducible output)
     SnapshotFn snapshot;                 // empty: no 3D view (snapshot_note says why)

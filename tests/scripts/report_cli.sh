@@ -76,6 +76,13 @@ expect_rc 2 "unknown environment is bad usage" "$E" report a.csv --out rep3 --en
 [[ ! -e rep3 ]] && ok "nothing created on a usage error" || bad "rep3 created"
 expect_rc 0 "report with the urban environment" "$E" report a.csv --out rep3 --environment urban "${OPTS[@]}"
 grep -q 'MEG, urban environment' rep3/report.md && ok "MEG row names the environment" || bad "no MEG row"
+# Names with markup characters are escaped; rectangular cuts on request.
+expect_rc 0 "synth a dipole named with markup characters" "$E" synth dipole --step 6 --name 'Dipole <A&B> "x" | *y*' --out m.csv
+expect_rc 0 "report with --style rect" "$E" report m.csv --out rep4 --style rect "${OPTS[@]}"
+xmllint --noout rep4/index.html 2>err.txt && ok "names with < & > \" stay well-formed HTML" || bad "escaping: $(head -c 300 err.txt)"
+grep -q 'Dipole &lt;A&amp;B&gt;' rep4/index.html && ok "HTML shows the name escaped" || bad "name not escaped in HTML"
+grep -qF 'Dipole \<A&B> "x" \| \*y\*' rep4/report.md && ok "Markdown escapes < | * in text" || bad "Markdown cell: $(grep -m1 'Dipole' rep4/report.md)"
+expect_rc 2 "unknown style is bad usage" "$E" report a.csv --out rep5 --style pie
 expect_rc 2 "no output folder is bad usage" "$E" report a.csv
 expect_rc 1 "missing input is bad input" "$E" report a.csv nope.csv --out rep2
 [[ ! -e rep2 ]] && ok "nothing created when an input is missing" || bad "rep2 created"
