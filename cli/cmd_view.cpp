@@ -15,7 +15,7 @@ struct ViewArgs {
     bool software = false, frame_stats = false;
     std::string size, screenshot;
     int frames = 0;
-    std::string component, color_by, pin, view;
+    std::string component, color_by, pin, view, export_cut;
     int compare = 0;
     bool wireframe = false, translucent = false;
 };
@@ -41,6 +41,7 @@ Registered add_view(CLI::App& root) {
     sub->add_option("--pin", a->pin, "Start with THETA,PHI (deg) pinned, and the cut through it");
     sub->add_option("--view", a->view, "Start looking from AZ,EL (deg)");
     sub->add_flag("--wireframe", a->wireframe, "Start with the wireframe on");
+    sub->add_option("--export-cut", a->export_cut, "With --frames: write the cut of the last frame (.svg, .png, .pdf or .csv)");
     sub->add_flag("--translucent", a->translucent, "Start with a translucent surface");
     return {sub, [a]() -> int {
                 viewer::ViewerOptions o;
@@ -74,6 +75,11 @@ Registered add_view(CLI::App& root) {
                     std::cerr << "ellipsa view: unknown --color-by '" << a->color_by << "'\n";
                     return exit_usage;
                 }
+                if (!a->export_cut.empty() && a->frames == 0) {
+                    std::cerr << "ellipsa view: --export-cut needs --frames N (the cut of the last frame is written)\n";
+                    return exit_usage;
+                }
+                o.export_cut = a->export_cut;
                 o.component = a->component;
                 o.color_by = a->color_by;
                 o.compare = a->compare - 1;

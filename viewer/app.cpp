@@ -19,6 +19,7 @@
 #include "importers/atomic_write.hpp"
 #include "pattern/peak.hpp"
 #include "viewer/app_state.hpp"
+#include "viewer/cut_export_ui.hpp"
 #include "viewer/gl.hpp"
 #include "viewer/overlay.hpp"
 #include "viewer/panels.hpp"
@@ -420,6 +421,7 @@ int run_viewer(const ViewerOptions& opt) {
             in.rebuild_surface = in.recut = true;
         }
         if (in.reset_view) s.camera.reset();
+        if (!in.export_cut.empty()) s.cut_export_message = export_current_cut(s, in.export_cut);
         if (in.rebuild_surface) s.mesh_dirty = true;
         if (in.recut) s.cut_dirty = true;
         if (in.rebuild_glyphs) s.glyphs_dirty = true;
@@ -537,6 +539,13 @@ int run_viewer(const ViewerOptions& opt) {
 
         ++frame;
         const bool last = opt.frames > 0 && frame >= opt.frames;
+        if (last && !opt.export_cut.empty()) {
+            const std::string msg = export_current_cut(s, opt.export_cut);
+            if (msg.rfind("Wrote", 0) != 0) {
+                std::cerr << "ellipsa view: " << msg << "\n";
+                exit_code = 1;
+            }
+        }
         if (last && !opt.screenshot.empty()) {
             std::vector<std::uint8_t> px(std::size_t(fbw) * fbh * 4);
             glPixelStorei(GL_PACK_ALIGNMENT, 1);

@@ -21,6 +21,7 @@ struct ViewerOptions {
     double view_azimuth_deg = 0, view_elevation_deg = 0;
     int compare = -1;                 // index of the B pattern among the files
     bool wireframe = false, translucent = false;
+    std::string export_cut;           // with frames: write the cut shown in the last frame (.svg/.png/.pdf/.csv)
 };
 
 // Runs until the window closes (or `frames` frames). Returns a process exit code (0 ok,

@@ -73,7 +73,7 @@ struct AppState {
     std::string note;        // e.g. "built-in demo"
     bool show_help = false;
     bool want_export = false;
-    std::string export_message;
+    std::string export_message, cut_export_message;
 
     const LoadedPattern* active_pattern() const {
         return active >= 0 && active < int(patterns.size()) ? &patterns[std::size_t(active)] : nullptr;

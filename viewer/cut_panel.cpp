@@ -4,6 +4,7 @@
 
 #include <cmath>
 #include <cstdio>
+#include <ctime>
 
 #include "viewer/panels.hpp"
 #include "viewer/scene/components.hpp"
@@ -28,8 +29,17 @@ void plot_polar(ImDrawList* dl, ImVec2 c, float R, const CutData& cd, double top
         // Ring labels just inside each ring, beside the 0-degree spoke.
         dl->AddText(ImVec2(c.x + 3, c.y - r + 1), muted, b);
     }
+    const bool full_turn = cd.spec.kind == CutKind::theta_const;
+    // Screen position of a cut angle: elevation-like cuts put 0 at the top and turn clockwise (a side
+    // view with +z up); theta = const cuts put phi = 0 at the right and turn counter-clockwise (the
+    // xy-plane seen from +z), as the exported figures do.
+    auto at = [&](double angle_deg, float r) {
+        const float a = float(angle_deg * pi / 180);
+        return full_turn ? ImVec2(c.x + r * std::cos(a), c.y - r * std::sin(a)) : ImVec2(c.x + r * std::sin(a), c.y - r * std::cos(a));
+    };
     for (int a = 0; a < 360; a += 30) {
-        const float x = std::sin(float(a * pi / 180)), y = -std::cos(float(a * pi / 180));
+        const ImVec2 u = at(a, 1);
+        const float x = u.x - c.x, y = u.y - c.y;
         dl->AddLine(c, ImVec2(c.x + R * x, c.y + R * y), grid);
         char b[16];
         const int shown = cd.spec.kind == CutKind::theta_const ? a : (a > 180 ? a - 360 : a);
@@ -51,9 +61,7 @@ void plot_polar(ImDrawList* dl, ImVec2 c, float R, const CutData& cd, double top
                 flush();
                 continue;
             }
-            const float r = R * float(polar_radius(v, top, range));
-            const float a = float(cd.angle_deg[j] * pi / 180);
-            pts.push_back(ImVec2(c.x + r * std::sin(a), c.y - r * std::cos(a)));
+            pts.push_back(at(cd.angle_deg[j], R * float(polar_radius(v, top, range))));
         }
         flush();
     }
@@ -61,8 +69,7 @@ void plot_polar(ImDrawList* dl, ImVec2 c, float R, const CutData& cd, double top
     const BeamFigures& bf = cd.figures;
     for (const std::optional<double>& x : {bf.left_deg, bf.right_deg})
         if (x) {
-            const float r = R * float(polar_radius(bf.peak_db - 3.0103, top, range)), a = float(*x * pi / 180);
-            const ImVec2 p(c.x + r * std::sin(a), c.y - r * std::cos(a));
+            const ImVec2 p = at(*x, R * float(polar_radius(bf.peak_db - 3.0103, top, range)));
             dl->AddLine(c, p, IM_COL32(120, 120, 120, 200), 1.0f);
             dl->AddCircle(p, 4, ink, 12, 1.5f);
         }
@@ -143,6 +150,24 @@ Intents draw_cut_panel(AppState& s) {
     ImGui::Checkbox("polar plot", &st.polar_plot);
     ImGui::SameLine();
     ImGui::TextDisabled("(P)");
+    ImGui::SameLine();
+    static int fmt = 0;
+    const char* fmts[] = {"svg", "png", "pdf", "csv"};
+    if (ImGui::SmallButton("Export")) {
+        char name[64];
+        std::time_t t = std::time(nullptr);
+        std::strftime(name, sizeof name, "ellipsa-cut-%Y%m%d-%H%M%S.", std::localtime(&t));
+        in.export_cut = std::string(name) + fmts[fmt];
+    }
+    if (ImGui::IsItemHovered()) ImGui::SetTooltip("Write this cut to the current folder, as with 'ellipsa cut'");
+    ImGui::SameLine();
+    ImGui::SetNextItemWidth(-1);
+    ImGui::Combo("##fmt", &fmt, fmts, 4);
+    if (!s.cut_export_message.empty()) {
+        ImGui::PushTextWrapPos(0);
+        ImGui::TextDisabled("%s", s.cut_export_message.c_str());
+        ImGui::PopTextWrapPos();
+    }
     ImGui::Separator();
     ImGui::TextDisabled("Components");
     int shown = 0;

@@ -20,6 +20,7 @@ void Intents::merge(const Intents& o) {
     recut |= o.recut;
     reset_view |= o.reset_view;
     export_view |= o.export_view;
+    if (!o.export_cut.empty()) export_cut = o.export_cut;
 }
 
 namespace {

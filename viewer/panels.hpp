@@ -17,6 +17,7 @@ struct Intents {
     bool recut = false;
     bool reset_view = false;
     bool export_view = false;
+    std::string export_cut;  // file name (format from the extension)
     void merge(const Intents& o);
 };
 
