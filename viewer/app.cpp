@@ -336,6 +336,8 @@ int run_viewer(const ViewerOptions& opt) {
         s.settings.cut_kind = 2;
     }
 
+    s.show_intro = opt.save_settings && !s.settings.seen_intro;  // first interactive run
+
     std::vector<double> frame_ms;
     bool pressing = false;
     ImVec2 press_pos;
@@ -379,6 +381,7 @@ int run_viewer(const ViewerOptions& opt) {
             }
             if (ImGui::BeginMenu("Help")) {
                 if (ImGui::MenuItem("Keys and mouse", "F1")) s.show_help = true;
+                if (ImGui::MenuItem("What the panels show")) s.show_intro = true;
                 ImGui::EndMenu();
             }
             const std::string r = "GL: " + s.renderer.renderer + (s.renderer.software ? "  (Mesa software)" : "  (hardware)");
@@ -406,6 +409,7 @@ int run_viewer(const ViewerOptions& opt) {
         if (begin_panel("Cut", L.cut_pos, L.cut_size)) in.merge(draw_cut_panel(s));
         ImGui::End();
         draw_help_overlay(s);
+        draw_intro_overlay(s);
 
         // Apply intents.
         if (!in.open.empty()) open_files(s, in.open, in.open_map);

@@ -72,6 +72,7 @@ struct AppState {
     std::string load_error;  // last failed load, shown until dismissed
     std::string note;        // e.g. "built-in demo"
     bool show_help = false;
+    bool show_intro = false;
     bool want_export = false;
     std::string export_message, cut_export_message;
 

@@ -55,6 +55,20 @@ void help_marker(const char* text) {
         ImGui::EndTooltip();
     }
 }
+// One-line definitions with units, for tooltips (IEEE Std 145-2013 terms).
+const char* definition(const std::string& label) {
+    if (label == "Axial ratio") return "Major over minor axis of the polarisation ellipse, in dB; 0 dB is circular, infinite is linear";
+    if (label == "Tilt") return "Angle of the ellipse's major axis from theta-hat toward phi-hat, degrees in (-90, 90]";
+    if (label == "Sense") return "Right-hand: the field turns clockwise seen along the direction of propagation (IEEE Std 145)";
+    if (label == "Stokes I") return "Total power density |E_theta|^2 + |E_phi|^2, linear units of the file's quantity";
+    if (label == "Q/I U/I V/I") return "Normalised Stokes parameters: Q theta-vs-phi linear, U +-45 deg linear, V > 0 right-hand";
+    if (label == "RHCP" || label == "LHCP") return "Circular partial gain, dBic";
+    if (label.rfind("Co-polar", 0) == 0 || label.rfind("Cross-polar", 0) == 0)
+        return "Ludwig's third definition (IEEE Trans. AP-21, 1973), with the file's reference";
+    if (label == "Vertical" || label == "Horizontal") return "Relative to the horizon of an antenna whose up axis is +z: the theta and phi parts";
+    return nullptr;
+}
+
 void row(const char* label, const std::string& value, const char* tip = nullptr) {
     ImGui::TableNextRow();
     ImGui::TableSetColumnIndex(0);
@@ -324,7 +338,7 @@ void draw_probe_panel(AppState& s) {
     auto show = [&](const char* title, const Pick& p) {
         ImGui::TextUnformatted(title);
         if (ImGui::BeginTable(title, 2, ImGuiTableFlags_SizingStretchProp | ImGuiTableFlags_RowBg)) {
-            for (const ProbeRow& r : probe_rows(a->set, s.freq, p.theta_deg, p.phi_deg)) row(r.label.c_str(), r.value);
+            for (const ProbeRow& r : probe_rows(a->set, s.freq, p.theta_deg, p.phi_deg)) row(r.label.c_str(), r.value, definition(r.label));
             ImGui::EndTable();
         }
     };
@@ -338,6 +352,44 @@ void draw_probe_panel(AppState& s) {
     else if (!s.pinned)
         ImGui::TextWrapped("Point at the surface to read every component, the axial ratio, tilt, sense and Stokes "
                            "parameters there. Click to pin a direction.");
+}
+
+// --- First run ---
+void draw_intro_overlay(AppState& s) {
+    if (!s.show_intro) return;
+    const ImVec2 d = ImGui::GetIO().DisplaySize;
+    ImGui::SetNextWindowPos(ImVec2(d.x * 0.5f, d.y * 0.45f), ImGuiCond_Always, ImVec2(0.5f, 0.5f));
+    ImGui::SetNextWindowSize(ImVec2(std::min(560.0f, d.x - 40), 0), ImGuiCond_Always);
+    ImGui::SetNextWindowBgAlpha(0.98f);
+    if (ImGui::Begin("What you are looking at", nullptr,
+                     ImGuiWindowFlags_NoCollapse | ImGuiWindowFlags_NoSavedSettings | ImGuiWindowFlags_AlwaysAutoResize)) {
+        ImGui::PushTextWrapPos(0);
+        const char* lines[][2] = {
+            {"3D view", "The gain surface: its radius is the chosen component in dB, from the range floor at the centre to "
+                        "the peak. Drag to turn, wheel to zoom, click to pin a direction."},
+            {"Patterns", "The loaded files (A is shown; tick B to compare), the frequency and the headline figures."},
+            {"Surface", "What sets the radius, what sets the colour (axial ratio, RHCP minus LHCP, tilt, A minus B), "
+                        "the dynamic range and the polarisation ellipses."},
+            {"Probe", "Every component, the axial ratio, tilt, sense and Stokes parameters under the cursor or at the pin."},
+            {"Polarisation", "The pinned field's ellipse seen along propagation, and the Poincare sphere with the states "
+                             "of all directions near the peak: a wide cloud means the polarisation varies over the beam."},
+            {"Cut", "A polar or rectangular cut with -3 dB marks, HPBW and front-to-back; the cut shows as a ring "
+                    "on the surface."},
+        };
+        for (auto& l : lines) {
+            ImGui::TextUnformatted(l[0]);
+            ImGui::SameLine(110);
+            ImGui::TextDisabled("%s", l[1]);
+        }
+        ImGui::Spacing();
+        ImGui::TextDisabled("F1 lists the keys. This note appears once.");
+        ImGui::PopTextWrapPos();
+        if (ImGui::Button("Got it", ImVec2(120, 0))) {
+            s.show_intro = false;
+            s.settings.seen_intro = true;
+        }
+    }
+    ImGui::End();
 }
 
 // --- Help -------------------------------------------------------------------------------------

@@ -27,6 +27,8 @@ void draw_probe_panel(AppState& s);
 Intents draw_polarisation_panel(AppState& s);
 Intents draw_cut_panel(AppState& s);
 void draw_help_overlay(AppState& s);
+// The first-run orientation: what each panel shows, dismissable (remembered in the settings).
+void draw_intro_overlay(AppState& s);
 
 // The figures of one direction, as label/value rows (for the probe panel and tests of the UI).
 struct ProbeRow {

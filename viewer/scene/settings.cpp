@@ -44,6 +44,7 @@ std::string format_settings(const ViewerSettings& s) {
     o << "cut_angle_deg = " << s.cut_angle_deg << "\n";
     o << "cut_components = " << s.cut_components << "\n";
     o << "poincare_within_db = " << s.poincare_within_db << "\n";
+    o << "seen_intro = " << s.seen_intro << "\n";
     o << "window_width = " << s.window_width << "\n";
     o << "window_height = " << s.window_height << "\n";
     o << "left_panel_width = " << s.left_panel_width << "\n";
@@ -104,6 +105,7 @@ ViewerSettings parse_settings(const std::string& text, std::vector<std::string>*
         else if (k == "cut_angle_deg") need_num(s.cut_angle_deg, -360, 360);
         else if (k == "cut_components") need_num(s.cut_components, 0, 511);
         else if (k == "poincare_within_db") need_num(s.poincare_within_db, 0.1, 60);
+        else if (k == "seen_intro") need_bool(s.seen_intro);
         else if (k == "window_width") need_num(s.window_width, 320, 16384);
         else if (k == "window_height") need_num(s.window_height, 240, 16384);
         else if (k == "left_panel_width") need_num(s.left_panel_width, 150, 2000);

@@ -26,6 +26,7 @@ struct ViewerSettings {
     double cut_angle_deg = 0;  // phi for kind 0, theta for kind 1
     unsigned cut_components = 1u;  // bit per Component (bit 0: total)
     double poincare_within_db = 3;
+    bool seen_intro = false;   // the first-run orientation was dismissed
     int window_width = 1280, window_height = 800;
     float left_panel_width = 285, right_panel_width = 315, cut_panel_height = 310;
     std::vector<std::string> recent_files;  // most recent first, at most max_recent
