@@ -18,6 +18,7 @@ struct ViewArgs {
     std::string component, color_by, pin, view, export_cut;
     int compare = 0;
     bool wireframe = false, translucent = false;
+    bool diversity = false;
 };
 
 bool parse_pair(const std::string& s, double& a, double& b) {
@@ -43,6 +44,7 @@ Registered add_view(CLI::App& root) {
     sub->add_flag("--wireframe", a->wireframe, "Start with the wireframe on");
     sub->add_option("--export-cut", a->export_cut, "With --frames: write the cut of the last frame (.svg, .png, .pdf or .csv)");
     sub->add_flag("--translucent", a->translucent, "Start with a translucent surface");
+    sub->add_flag("--diversity", a->diversity, "Start with the diversity panel open (MEG, ECC, orientation curve)");
     return {sub, [a]() -> int {
                 viewer::ViewerOptions o;
                 o.files = a->files;
@@ -85,6 +87,7 @@ Registered add_view(CLI::App& root) {
                 o.compare = a->compare - 1;
                 o.wireframe = a->wireframe;
                 o.translucent = a->translucent;
+                o.diversity_panel = a->diversity;
                 if (!a->pin.empty()) {
                     if (!parse_pair(a->pin, o.pin_theta_deg, o.pin_phi_deg) || o.pin_theta_deg < 0 || o.pin_theta_deg > 180) {
                         std::cerr << "ellipsa view: --pin expects THETA,PHI in degrees with THETA in [0, 180], found '" << a->pin << "'\n";

@@ -22,6 +22,7 @@
 #include "viewer/cut_export_ui.hpp"
 #include "viewer/gl.hpp"
 #include "viewer/overlay.hpp"
+#include "viewer/panel_diversity.hpp"
 #include "viewer/panels.hpp"
 #include "viewer/pattern_files.hpp"
 #include "viewer/scene/glyphs.hpp"
@@ -262,6 +263,8 @@ std::string export_name() {
 
 int run_viewer(const ViewerOptions& opt) {
     AppState s;
+    DiversityPanelState diversity;  // the diversity panel (viewer/panel_diversity.hpp)
+    diversity.open = opt.diversity_panel;
     std::vector<std::string> warnings;
     if (opt.save_settings) s.settings = load_settings(warnings);
     for (const std::string& w : warnings) std::cerr << "ellipsa view: " << w << "\n";
@@ -372,6 +375,7 @@ int run_viewer(const ViewerOptions& opt) {
                 ImGui::MenuItem("Translucent surface", "T", &s.settings.translucent);
                 if (ImGui::MenuItem("Polarisation ellipses", "G", &s.settings.glyphs)) in.rebuild_glyphs = true;
                 ImGui::MenuItem("Polar cut plot", "P", &s.settings.polar_plot);
+                ImGui::MenuItem("Diversity (MEG, ECC, orientation)", nullptr, &diversity.open);
                 if (ImGui::MenuItem("Reset view", "R")) in.reset_view = true;
                 ImGui::Separator();
                 ImGui::SliderFloat("left panel", &s.settings.left_panel_width, 200, 600, "%.0f px");
@@ -408,6 +412,7 @@ int run_viewer(const ViewerOptions& opt) {
         ImGui::End();
         if (begin_panel("Cut", L.cut_pos, L.cut_size)) in.merge(draw_cut_panel(s));
         ImGui::End();
+        draw_diversity_panel(s, diversity);
         draw_help_overlay(s);
         draw_intro_overlay(s);
 

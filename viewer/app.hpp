@@ -22,6 +22,7 @@ struct ViewerOptions {
     int compare = -1;                 // index of the B pattern among the files
     bool wireframe = false, translucent = false;
     std::string export_cut;           // with frames: write the cut shown in the last frame (.svg/.png/.pdf/.csv)
+    bool diversity_panel = false;     // start with the diversity panel open
 };
 
 // Runs until the window closes (or `frames` frames). Returns a process exit code (0 ok,

@@ -1,0 +1,311 @@
+#include "viewer/panel_diversity.hpp"
+
+#include <imgui.h>
+
+#include <algorithm>
+#include <chrono>
+#include <cmath>
+#include <cstdio>
+
+namespace ellipsa::viewer {
+
+namespace {
+// Okabe-Ito colours as in the cut panel: vertical blue, horizontal vermilion.
+const ImU32 v_col = IM_COL32(0, 114, 178, 255), h_col = IM_COL32(213, 94, 0, 255);
+const ImU32 ink = IM_COL32(34, 38, 46, 255), grid = IM_COL32(205, 206, 203, 255), muted = IM_COL32(95, 100, 108, 255);
+const ImU32 band = IM_COL32(0, 114, 178, 50);
+
+std::string db_text(double linear, const char* unit = "dBi") {
+    char b[48];
+    const double v = to_db(linear);
+    const char* gap = *unit ? " " : "";
+    if (std::isinf(v))
+        std::snprintf(b, sizeof b, "%s%s%s", v < 0 ? "-inf" : "inf", gap, unit);
+    else
+        std::snprintf(b, sizeof b, "%.2f%s%s", v, gap, unit);
+    return b;
+}
+
+// A titled separator (ImGui 1.86 has no SeparatorText).
+void section(const std::string& title) {
+    ImGui::Spacing();
+    ImGui::Separator();
+    ImGui::TextUnformatted(title.c_str());
+}
+
+void row(const char* label, const std::string& value) {
+    ImGui::TextDisabled("%s", label);
+    ImGui::SameLine(170);
+    ImGui::TextUnformatted(value.c_str());
+}
+
+struct Series {
+    const std::vector<double>* y;
+    ImU32 color;
+    float thickness;
+};
+
+// A small line plot with a frame, x ticks and labels. y is drawn from y0 to y1.
+void line_plot(const char* id, const std::vector<double>& x, const std::vector<Series>& series, double x0, double x1,
+               double xtick, double y0, double y1, const char* xlabel, const char* ylabel,
+               const std::vector<double>* band_lo = nullptr, const std::vector<double>* band_hi = nullptr) {
+    const float w = std::max(160.0f, ImGui::GetContentRegionAvail().x), h = 130;
+    const ImVec2 o = ImGui::GetCursorScreenPos();
+    ImGui::InvisibleButton(id, ImVec2(w, h + 34));
+    ImDrawList* dl = ImGui::GetWindowDrawList();
+    const ImVec2 p0(o.x + 44, o.y + 4), p1(o.x + w - 8, o.y + h);
+    auto X = [&](double v) { return p0.x + float((v - x0) / (x1 - x0)) * (p1.x - p0.x); };
+    auto Y = [&](double v) {
+        const double t = y1 > y0 ? (v - y0) / (y1 - y0) : 0.5;
+        return p1.y - float(std::clamp(t, 0.0, 1.0)) * (p1.y - p0.y);
+    };
+    dl->AddRect(p0, p1, grid);
+    for (double t = x0; t <= x1 + 1e-9; t += xtick) {
+        dl->AddLine(ImVec2(X(t), p0.y), ImVec2(X(t), p1.y), grid);
+        char b[16];
+        std::snprintf(b, sizeof b, "%g", t);
+        const ImVec2 ts = ImGui::CalcTextSize(b);
+        dl->AddText(ImVec2(X(t) - ts.x * 0.5f, p1.y + 2), muted, b);
+    }
+    for (double v : {y0, y1}) {
+        char b[16];
+        std::snprintf(b, sizeof b, "%.3g", v);
+        const ImVec2 ts = ImGui::CalcTextSize(b);
+        dl->AddText(ImVec2(p0.x - ts.x - 4, Y(v) - ts.y * 0.5f), muted, b);
+    }
+    const ImVec2 xs = ImGui::CalcTextSize(xlabel);
+    dl->AddText(ImVec2(0.5f * (p0.x + p1.x) - xs.x * 0.5f, p1.y + 16), muted, xlabel);
+    dl->AddText(ImVec2(p0.x + 4, p0.y + 2), muted, ylabel);
+    if (band_lo && band_hi && band_lo->size() == x.size() && band_hi->size() == x.size())
+        for (std::size_t k = 0; k + 1 < x.size(); ++k)
+            dl->AddQuadFilled(ImVec2(X(x[k]), Y((*band_lo)[k])), ImVec2(X(x[k + 1]), Y((*band_lo)[k + 1])),
+                              ImVec2(X(x[k + 1]), Y((*band_hi)[k + 1])), ImVec2(X(x[k]), Y((*band_hi)[k])), band);
+    for (const Series& s : series) {
+        std::vector<ImVec2> pts;
+        for (std::size_t k = 0; k < x.size() && k < s.y->size(); ++k)
+            if (std::isfinite((*s.y)[k])) pts.push_back(ImVec2(X(x[k]), Y((*s.y)[k])));
+        if (pts.size() > 1) dl->AddPolyline(pts.data(), int(pts.size()), s.color, 0, s.thickness);
+    }
+}
+
+void legend_swatch(ImU32 c, const char* label) {
+    const ImVec2 p = ImGui::GetCursorScreenPos();
+    const float hgt = ImGui::GetTextLineHeight();
+    ImGui::GetWindowDrawList()->AddLine(ImVec2(p.x, p.y + hgt * 0.5f), ImVec2(p.x + 18, p.y + hgt * 0.5f), c, 2.5f);
+    ImGui::Dummy(ImVec2(22, hgt));
+    ImGui::SameLine();
+    ImGui::TextUnformatted(label);
+}
+
+void draw_environment(DiversityPanelState& d) {
+    DiversityChoice& c = d.choice;
+    const auto& names = diversity_choice_names();
+    if (ImGui::BeginCombo("environment", c.preset.c_str())) {
+        for (const std::string& n : names)
+            if (ImGui::Selectable(n.c_str(), n == c.preset)) {
+                DiversityChoice fresh = choice_from_preset(n);
+                fresh.orientations = c.orientations;
+                fresh.sweep = c.sweep;
+                if (n == "gaussian") {  // start the custom model from the current angles
+                    fresh.v_mean_deg = c.v_mean_deg, fresh.v_spread_deg = c.v_spread_deg;
+                    fresh.h_mean_deg = c.h_mean_deg, fresh.h_spread_deg = c.h_spread_deg;
+                    fresh.xpr_db = c.xpr_db;
+                }
+                c = fresh;
+            }
+        ImGui::EndCombo();
+    }
+    float xpr = float(c.xpr_db);
+    ImGui::BeginDisabled(c.vertical_only);
+    if (ImGui::SliderFloat("XPR", &xpr, -10, 20, "%.1f dB")) c.xpr_db = std::round(double(xpr) * 10) / 10;
+    ImGui::EndDisabled();
+    ImGui::SameLine();
+    ImGui::Checkbox("V only", &c.vertical_only);
+    if (ImGui::IsItemHovered()) ImGui::SetTooltip("XPR = +inf: all incoming power vertically polarised");
+    const bool gaussian = c.preset != "uniform";
+    if (gaussian) {
+        auto angle = [](const char* label, double& v, float lo, float hi) {
+            float f = float(v);
+            if (ImGui::SliderFloat(label, &f, lo, hi, "%.1f deg")) v = std::round(double(f) * 10) / 10;
+        };
+        angle("V mean elevation", c.v_mean_deg, -45, 60);
+        angle("V spread", c.v_spread_deg, 0.5, 60);
+        angle("H mean elevation", c.h_mean_deg, -45, 60);
+        angle("H spread", c.h_spread_deg, 0.5, 60);
+    }
+    const DiversityFigures& f = d.figures;
+    if (f.environment) {
+        ImGui::PushTextWrapPos(0);
+        ImGui::TextDisabled("%s", f.environment->source.c_str());
+        ImGui::PopTextWrapPos();
+    } else if (!f.environment_error.empty()) {
+        ImGui::TextWrapped("Environment not usable: %s", f.environment_error.c_str());
+    }
+    // The incoming-power densities over elevation (per steradian, both normalised to 1 over the sphere).
+    // V is drawn wide under a thin H so both stay visible where they coincide.
+    if (!f.curve.elevation_deg.empty()) {
+        double top = 0;
+        for (double v : f.curve.p_v) top = std::max(top, v);
+        for (double v : f.curve.p_h) top = std::max(top, v);
+        ImGui::TextUnformatted("Incoming power over elevation");
+        line_plot("##profile", f.curve.elevation_deg, {{&f.curve.p_v, v_col, 4.0f}, {&f.curve.p_h, h_col, 1.8f}}, -90, 90,
+                  30, 0, top > 0 ? top * 1.05 : 1, "elevation, deg", "density, 1/sr");
+        legend_swatch(v_col, "P_theta (vertical)");
+        ImGui::SameLine(0, 18);
+        legend_swatch(h_col, "P_phi (horizontal)");
+    }
+}
+
+void draw_pattern(const char* tag, const LoadedPattern* p, const PatternDiversity& f) {
+    if (!p) return;
+    section(std::string(tag) + ": " + (p->set.name.empty() ? p->path : p->set.name));
+    if (!f.meg) {
+        ImGui::TextWrapped("MEG unavailable: %s", f.meg_error.c_str());
+        return;
+    }
+    const MegFigures& m = *f.meg;
+    row("MEG", db_text(m.meg));
+    char b[96];
+    if (m.meg_vertical && m.vertical_share) {
+        std::snprintf(b, sizeof b, "%s  (%.1f %%)", db_text(*m.meg_vertical).c_str(), 100 * *m.vertical_share);
+        row("  vertical part", b);
+        std::snprintf(b, sizeof b, "%s  (%.1f %%)", db_text(*m.meg_horizontal).c_str(), 100 * *m.horizontal_share);
+        row("  horizontal part", b);
+    }
+    if (m.balanced_share) {
+        std::snprintf(b, sizeof b, "%.1f %% of the incoming power", 100 * *m.balanced_share);
+        row("V, H within 3 dB", b);
+    }
+    ImGui::PushTextWrapPos(0);
+    if (!m.assumption.empty()) ImGui::TextDisabled("%s", m.assumption.c_str());
+    for (const std::string& n : m.notes) ImGui::TextDisabled("%s", n.c_str());
+    ImGui::PopTextWrapPos();
+}
+
+void draw_orientations(const char* tag, const PatternDiversity& f, const OrientationSweep& sw, bool pending) {
+    if (!f.meg) return;
+    if (!f.orientations) {
+        if (!f.orientation_error.empty()) ImGui::TextWrapped("%s orientations unavailable: %s", tag, f.orientation_error.c_str());
+        return;
+    }
+    const OrientationFigures& o = *f.orientations;
+    char b[160];
+    std::snprintf(b, sizeof b, "%s / %s / %s", db_text(o.min, "").c_str(), db_text(o.median, "").c_str(),
+                  db_text(o.max).c_str());
+    ImGui::Text("%s%s", tag, pending ? "  (updating when the slider is released)" : "");
+    row("min / median / max", b);
+    std::snprintf(b, sizeof b, "%s at tilt %g, roll %g deg", db_text(o.worst.meg).c_str(), o.worst.tilt_deg,
+                  o.worst.roll_deg);
+    row("worst", to_db(o.max) - to_db(o.min) < 0.005 ? std::string("every orientation within 0.01 dB") : b);
+    std::snprintf(b, sizeof b, "%s mean, 90 %% reach %s", db_text(o.random_mean).c_str(), db_text(o.random_p10).c_str());
+    row("random orientation", b);
+    // The orientation curve: mean over the rolls per tilt, with the min..max band.
+    std::vector<double> t, lo, mean, hi;
+    for (const TiltRow& r : o.by_tilt) {
+        t.push_back(r.tilt_deg);
+        lo.push_back(to_db(r.min));
+        mean.push_back(to_db(r.mean));
+        hi.push_back(to_db(r.max));
+    }
+    double y0 = 1e300, y1 = -1e300;
+    for (double v : lo)
+        if (std::isfinite(v)) y0 = std::min(y0, v);
+    for (double v : hi)
+        if (std::isfinite(v)) y1 = std::max(y1, v);
+    if (!(y1 > y0)) y0 -= 0.5, y1 += 0.5;
+    const double pad = 0.1 * (y1 - y0);
+    line_plot((std::string("##orient") + tag).c_str(), t, {{&mean, ink, 2.0f}}, 0, sw.tilt_max_deg,
+              sw.tilt_max_deg > 90 ? 30 : 15, std::floor(y0 - pad), std::ceil(y1 + pad), "tilt, deg",
+              "MEG, dBi (mean; band: min..max over roll)", &lo, &hi);
+}
+
+bool needs_compute(const AppState& s, const DiversityPanelState& d) {
+    return !d.computed || d.sweep_pending || !(d.computed_for == d.choice) || d.generation != s.generation ||
+           d.active != s.active || d.compare != s.compare || d.freq != s.freq;
+}
+
+void compute(const AppState& s, DiversityPanelState& d) {
+    const LoadedPattern* a = s.active_pattern();
+    const LoadedPattern* b = s.compare_pattern();
+    // While a slider is held, the MEG follows it at once and the orientation sweep waits.
+    const bool dragging = ImGui::IsAnyItemActive();
+    DiversityChoice c = d.choice;
+    const bool defer = dragging && c.orientations;
+    if (defer) c.orientations = false;
+    const auto t0 = std::chrono::steady_clock::now();
+    DiversityFigures f = compute_diversity(c, a ? &a->set : nullptr, a ? s.freq : 0, b ? &b->set : nullptr,
+                                           b ? s.freq_for(*b) : 0);
+    if (defer) {  // keep the last sweep on screen
+        f.a.orientations = d.figures.a.orientations;
+        f.b.orientations = d.figures.b.orientations;
+    }
+    d.compute_ms = std::chrono::duration<double, std::milli>(std::chrono::steady_clock::now() - t0).count();
+    d.figures = std::move(f);
+    d.computed_for = d.choice;
+    d.generation = s.generation;
+    d.active = s.active;
+    d.compare = s.compare;
+    d.freq = s.freq;
+    d.computed = true;
+    d.sweep_pending = defer;
+}
+}  // namespace
+
+void draw_diversity_panel(const AppState& s, DiversityPanelState& d) {
+    if (!d.open) return;
+    // First shown over the right-hand panels, so the 3D view stays in sight.
+    const ImVec2 display = ImGui::GetIO().DisplaySize;
+    ImGui::SetNextWindowSize(ImVec2(440, std::max(300.0f, display.y - 60)), ImGuiCond_FirstUseEver);
+    ImGui::SetNextWindowPos(ImVec2(std::max(0.0f, display.x - 450), 30), ImGuiCond_FirstUseEver);
+    if (!ImGui::Begin("Diversity (multipath)", &d.open)) {
+        ImGui::End();
+        return;
+    }
+    draw_environment(d);
+    if (needs_compute(s, d)) compute(s, d);
+    const DiversityFigures& f = d.figures;
+    const LoadedPattern* a = s.active_pattern();
+    const LoadedPattern* b = s.compare_pattern();
+    if (!a) {
+        ImGui::TextDisabled("Open a pattern to see its figures.");
+        ImGui::End();
+        return;
+    }
+    draw_pattern("A", a, f.a);
+    if (f.has_b) draw_pattern("B", b, f.b);
+    if (f.has_b) {
+        section("A with B");
+        if (f.correlation) {
+            char v[64];
+            std::snprintf(v, sizeof v, "%.4f", f.correlation->ecc);
+            row("envelope correlation", v);
+            std::snprintf(v, sizeof v, "%.2f dB", f.correlation->diversity_gain_db);
+            row("diversity gain", v);
+            if (ImGui::IsItemHovered())
+                ImGui::SetTooltip("Two-branch selection combining at 1 %% outage, Rayleigh fading, equal branch powers:\n"
+                                  "10 sqrt(1 - ECC) dB (approximation used with Vaughan & Andersen 1987)");
+            if (f.meg_ratio_db) {
+                std::snprintf(v, sizeof v, "%.2f dB", *f.meg_ratio_db);
+                row("MEG ratio A / B", v);
+            }
+        } else {
+            ImGui::TextWrapped("Correlation unavailable: %s", f.correlation_error.c_str());
+        }
+    } else {
+        ImGui::TextDisabled("Tick a B pattern to see the envelope correlation and diversity gain.");
+    }
+    section("Orientation");
+    ImGui::Checkbox("turn the antenna", &d.choice.orientations);
+    if (ImGui::IsItemHovered())
+        ImGui::SetTooltip("Roll about the antenna's own z axis, then tilt about the world's horizontal x axis:\n"
+                          "R = R_x(tilt) R_z(roll), tilt 0..%g deg by %g, roll by %g deg",
+                          d.choice.sweep.tilt_max_deg, d.choice.sweep.tilt_step_deg, d.choice.sweep.roll_step_deg);
+    if (d.choice.orientations) {
+        draw_orientations("A", f.a, d.choice.sweep, d.sweep_pending);
+        if (f.has_b) draw_orientations("B", f.b, d.choice.sweep, d.sweep_pending);
+    }
+    ImGui::TextDisabled("computed in %.0f ms", d.compute_ms);
+    ImGui::End();
+}
+
+}  // namespace ellipsa::viewer

@@ -1,0 +1,54 @@
+// What the viewer's diversity panel shows, computed without any UI: the environment the user
+// picked, and the figures of the shown patterns in it (pattern/diversity.hpp). The panel
+// (viewer/panel_diversity.cpp) only draws these values and edits the choice.
+#pragma once
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "pattern/diversity.hpp"
+#include "pattern/environment.hpp"
+
+namespace ellipsa::viewer {
+
+// The user's environment choice: a preset by name, or "gaussian" with its own angles.
+struct DiversityChoice {
+    std::string preset = "uniform";  // "uniform", "indoor", "urban", "rural" or "gaussian"
+    double xpr_db = 0;
+    bool vertical_only = false;  // XPR = +inf
+    double v_mean_deg = 10, v_spread_deg = 15, h_mean_deg = 10, h_spread_deg = 15;
+    bool orientations = true;
+    OrientationSweep sweep;
+    bool operator==(const DiversityChoice& o) const;
+};
+
+// The names the panel offers, in order.
+const std::vector<std::string>& diversity_choice_names();
+// Start a choice from a preset: its XPR and angles become the editable values.
+DiversityChoice choice_from_preset(const std::string& name);
+// The environment a choice stands for (the preset's own source text, or "user parameters").
+Result<Environment> make_environment(const DiversityChoice& c);
+
+struct PatternDiversity {
+    std::optional<MegFigures> meg;
+    std::string meg_error;
+    std::optional<OrientationFigures> orientations;
+    std::string orientation_error;
+};
+struct DiversityFigures {
+    std::optional<Environment> environment;
+    std::string environment_error;
+    ElevationCurve curve;        // the densities over elevation, for the profile plot
+    PatternDiversity a, b;       // b only when a second pattern is given
+    bool has_b = false;
+    std::optional<CorrelationFigures> correlation;
+    std::string correlation_error;
+    std::optional<double> meg_ratio_db;  // A over B
+};
+
+// Cost: MEG and ECC one pass over the grid each; the orientation sweep about 50 ms on a
+// 1-degree grid (pattern/diversity.hpp), so callers recompute only when an input changes.
+DiversityFigures compute_diversity(const DiversityChoice& c, const FarFieldSet* a, std::size_t fa,
+                                   const FarFieldSet* b, std::size_t fb, int curve_points = 181);
+
+}  // namespace ellipsa::viewer
