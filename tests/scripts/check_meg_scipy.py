@@ -8,6 +8,9 @@ Taga's MEG (IEEE Trans. VT-39, 1990) and the XPR-weighted Vaughan-Andersen envel
 (IEEE Trans. VT-36, 1987) over the sphere with scipy's adaptive quadrature (scipy.integrate.dblquad,
 QUADPACK). ellipsa samples the same antennas on a 1-degree grid (`ellipsa synth`) and integrates with
 its cell weights, so the two share no code and no quadrature.
+Cases: a custom Gaussian (MEG and its V/H parts of crossed dipoles, a tilted half-wave dipole and a
+tilted loop), the worst and best orientations of the sweep, the envelope correlation of two antennas,
+the urban preset, and a per-elevation user table with XPR from its own totals.
 Usage: check_meg_scipy.py ELLIPSA WORKDIR
 """
 import json
@@ -224,5 +227,42 @@ e = ju["environment"]
 envu = Gaussian(e["v_mean_deg"], e["v_spread_deg"], e["h_mean_deg"], e["h_spread_deg"], e["xpr_db"])
 mu, _, _ = meg(f_dipole, envu)
 check("tilted half-wave dipole, urban preset, MEG dB", ju["patterns"][0]["results"][0]["meg_db"], db(mu), 0.005)
+
+# 5. A user elevation table (linear interpolation, zero outside), read per unit elevation angle,
+# with XPR from the table's own column totals.
+table = [(-10, 0.0, 0.0), (0, 1.0, 0.2), (20, 0.6, 0.5), (45, 0.0, 0.3), (60, 0.0, 0.0)]
+prof = os.path.join(work, "profile.csv")
+with open(prof, "w", encoding="utf-8") as f:
+    f.write("# test table\nelevation_deg,p_v,p_h\n")
+    for el, v, h in table:
+        f.write(f"{el},{v},{h}\n")
+els = np.array([t[0] for t in table], dtype=float)
+
+
+class Table:
+    """Per-elevation table: P(theta) = p(el) / cos(el) per steradian, each column normalised to 1 over
+    the sphere (integral of P dOmega = 2 pi * integral of p d(el)); XPR from the two totals."""
+
+    def __init__(self):
+        self.cols = [np.array([t[1] for t in table]), np.array([t[2] for t in table])]
+        self.tot = []
+        for c in self.cols:
+            f = lambda e, c=c: np.interp(math.degrees(e), els, c, left=0, right=0)
+            self.tot.append(2 * math.pi * quad(f, -math.pi / 2, math.pi / 2, points=list(np.radians(els)), limit=200,
+                                               epsabs=1e-13)[0])
+        x = self.tot[0] / self.tot[1]
+        self.wv, self.wh = x / (1 + x), 1 / (1 + x)
+
+    def p(self, k, t):
+        el = math.degrees(math.pi / 2 - t)
+        v = np.interp(el, els, self.cols[k], left=0, right=0)
+        return v / max(math.cos(math.radians(el)), 1e-300) / self.tot[k]
+
+
+envt = Table()
+jt = json.loads(run(["diversity", dipole, "--profile", prof, "--profile-measure", "elevation", "--json"]))
+mt, _, _ = meg(f_dipole, envt)
+check("tilted half-wave dipole, per-elevation table, MEG dB", jt["patterns"][0]["results"][0]["meg_db"], db(mt), 0.01)
+check("XPR from the table's totals, dB", jt["environment"]["xpr_db"], db(envt.tot[0] / envt.tot[1]), 1e-6)
 
 sys.exit(1 if failures else 0)
