@@ -493,14 +493,19 @@ Registered add_diversity(CLI::App& root) {
                     "(per unit elevation, summed over azimuth)")
         ->check(CLI::IsMember({"solid-angle", "elevation"}));
     sub->add_flag("--orientations", a->orientations, "Also turn the antenna through tilts and rolls: MEG statistics");
-    sub->add_option("--tilt-step", a->sweep.tilt_step_deg, "Orientation sweep: tilt step, deg (default 15)");
+    sub->add_option("--tilt-step", a->sweep.tilt_step_deg, "Orientation sweep: tilt step, deg (default 15; implies --orientations)");
     sub->add_option("--tilt-max", a->sweep.tilt_max_deg, "Orientation sweep: largest tilt, deg (default 90; up to 180)");
     sub->add_option("--roll-step", a->sweep.roll_step_deg,
                     "Orientation sweep: roll step, deg (default 15; a multiple of the grid's phi step is exact and fast)");
     sub->add_option("--frequency", a->frequency_hz, "Only this frequency, Hz (nearest within 0.5 %)");
     sub->add_flag("--json", a->json, "Print one JSON object instead of the human summary");
     add_load_options(sub, a->load);
-    return {sub, [a]() -> int { return run(*a); }};
+    return {sub, [a, sub]() -> int {
+                // Giving a sweep option asks for the sweep.
+                if (sub->count("--tilt-step") || sub->count("--tilt-max") || sub->count("--roll-step"))
+                    a->orientations = true;
+                return run(*a);
+            }};
 }
 const CommandRegistration registration(60, add_diversity);
 

@@ -51,6 +51,8 @@ grep -q '"frequency_hz": 2.5e+09' out.txt && ! grep -q '"frequency_hz": 2.4e+09'
 expect_rc 1 "absent frequency is bad input" "$E" diversity two.csv --frequency 5e9
 printf '\xEF\xBB\xBFelevation_deg,p_v,p_h\r\n0,1,1\r\n10,1,1\r\n' > bom.csv
 expect_rc 0 "profile with byte-order mark and CRLF" "$E" diversity z.csv --profile bom.csv
+expect_rc 0 "a sweep option implies --orientations" "$E" diversity z.csv --tilt-step 45 --json
+has orientations
 expect_rc 1 "missing file is bad input" "$E" diversity no-such.csv
 echo "$pass passed, $fail failed"
 [[ $fail == 0 ]]

@@ -141,3 +141,22 @@ TEST_CASE("random-orientation statistics weight each tilt by its solid angle", "
     CHECK(o->random_p10 == Approx(0.015).margin(0.01));
     CHECK(o->random_p10 <= o->median);
 }
+
+TEST_CASE("per-elevation tables stay right when turned, up to the environment's poles", "[diversity][orientation]") {
+    // A table of cos(elevation) per unit elevation is the uniform environment (the solid angle of a
+    // band is 2 pi cos(el) d(el)); turned any way it must still give efficiency / 2 (Taga 1990).
+    // This drives the cell-mean path used where such a table's per-steradian density diverges.
+    Environment c;
+    c.model = EnvironmentModel::profile;
+    c.profile_measure = ProfileMeasure::per_elevation;
+    for (double el = -90; el <= 90 + 1e-9; el += 1) c.profile.push_back({el, std::cos(el * deg), std::cos(el * deg)});
+    const FarFieldSet s = make(ReferenceKind::crossed_dipoles, rotation_xyz_deg(20, 0, 0), 1.0);
+    const double eta = radiated_power(s.grid, s.frequencies[0]) / (4 * pi);
+    OrientationSweep sw;
+    sw.tilt_step_deg = 30;
+    sw.roll_step_deg = 60;
+    auto o = orientation_robustness(s, 0, c, sw);
+    REQUIRE(o);
+    CHECK(o->min == Approx(eta / 2).epsilon(2e-4));
+    CHECK(o->max == Approx(eta / 2).epsilon(2e-4));
+}
