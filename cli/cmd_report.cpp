@@ -3,6 +3,7 @@
 // patterns are given. The folder is built under a temporary name and renamed into place.
 #include <cmath>
 #include <ctime>
+#include <filesystem>
 #include <iostream>
 #include <memory>
 #include <optional>
@@ -87,6 +88,15 @@ int run_report(const ReportArgs& a) {
     o.snapshot_note = "3D views are not included: this build has no viewer (ELLIPSA_VIEWER=OFF).";
 #endif
 
+    // --force replaces a report folder, never some other folder that happens to be named.
+    {
+        std::error_code ec;
+        const std::filesystem::path out(a.out);
+        if (a.force && std::filesystem::is_directory(out, ec) && !std::filesystem::is_empty(out, ec) &&
+            !std::filesystem::exists(out / "index.html", ec) && !std::filesystem::exists(out / "report.md", ec))
+            return fail(exit_bad_input, a.out + ": exists and does not look like a report folder (no index.html or "
+                                        "report.md); not replacing it, even with --force");
+    }
     std::vector<ReportInput> inputs;
     for (const std::string& f : a.files) {
         auto s = load_pattern(f, a.load);

@@ -92,13 +92,11 @@ const char* quantity_word(Quantity q) {
     }
     return "Peak";
 }
-std::string unit_of(const FarFieldSet& s) { return s.quantity == Quantity::relative ? " dB" : " dBi"; }
 
 // One figures column: label -> value, in a fixed row order.
 std::vector<std::pair<std::string, std::string>> figure_rows(const FarFieldSet& s, std::size_t fi, const PatternSummary& r,
                                                             const ReportOptions& o) {
     std::vector<std::pair<std::string, std::string>> v;
-    const std::string u = unit_of(s);
     v.emplace_back(std::string(quantity_word(s.quantity)) + (s.quantity == Quantity::relative ? " (dB)" : " (dBi)"),
                    fixed(r.peak_db, 2));
     v.emplace_back("Peak direction", "θ " + fixed(r.peak.theta_deg, 1) + "°, φ " + fixed(r.peak.phi_deg, 1) + "°");
@@ -147,7 +145,6 @@ std::vector<std::pair<std::string, std::string>> figure_rows(const FarFieldSet& 
     }
     if (o.extra_figures)
         for (const ExtraFigure& e : o.extra_figures(s, fi)) v.emplace_back(e.label, e.value);
-    (void)u;
     return v;
 }
 
@@ -276,7 +273,14 @@ Result<std::vector<ReportFile>> build_report(const std::vector<ReportInput>& inp
         for (std::size_t j = 0; j < freqs[i].size(); ++j) {
             const std::size_t fi = freqs[i][j];
             const PatternSummary& r = summaries[i][j];
-            const std::string fbase = base + "-" + freq_tag(s.frequencies[fi].frequency_hz, fi);
+            // File names per frequency; frequencies that round to the same tag get their index too.
+            std::string fbase = base + "-" + freq_tag(s.frequencies[fi].frequency_hz, fi);
+            for (std::size_t jj = 0; jj < j; ++jj)
+                if (freq_tag(s.frequencies[freqs[i][jj]].frequency_hz, freqs[i][jj]) ==
+                    freq_tag(s.frequencies[fi].frequency_hz, fi)) {
+                    fbase += "-f" + std::to_string(fi + 1);
+                    break;
+                }
             doc.heading(3, "Cuts at " + frequency_text(s.frequencies[fi].frequency_hz));
             const std::vector<Component> comps = report_components(s, r);
             std::string peak_note;

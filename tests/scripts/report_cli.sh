@@ -55,6 +55,11 @@ expect_rc 0 "--force replaces the folder" "$E" report a.csv --out rep --force "$
 [[ ! -f rep/marker.txt && ! -f rep/compare-phi0.svg && -f rep/index.html ]] && ok "folder replaced as a whole" || bad "old content left in the folder"
 [[ $(ls -d rep* | wc -l) == 1 ]] && ok "no temporary or old folder left beside it" || bad "left: $(ls -d rep*)"
 
+# --force never replaces a folder that is not a report.
+mkdir -p notreport && echo "my notes" > notreport/notes.txt
+expect_rc 1 "--force refuses a folder that is not a report" "$E" report a.csv --out notreport --force "${OPTS[@]}"
+[[ $(cat notreport/notes.txt) == "my notes" ]] && ok "the other folder is untouched" || bad "notreport changed"
+
 # A regular file where the folder's parent should be.
 echo keep > plain
 expect_rc 1 "output under a regular file fails" "$E" report a.csv --out plain/rep "${OPTS[@]}"
