@@ -3,6 +3,7 @@
 #include <cctype>
 #include <charconv>
 #include <cmath>
+#include <filesystem>
 #include <fstream>
 #include <sstream>
 
@@ -118,6 +119,9 @@ Result<std::vector<ProfilePoint>> parse_elevation_profile(std::string_view text,
 }
 
 Result<std::vector<ProfilePoint>> read_elevation_profile(const std::string& path) {
+    std::error_code ec;
+    if (std::filesystem::is_directory(path, ec))
+        return Error{path, 0, 0, "is a folder; expected an elevation profile file (elevation_deg,p_v,p_h)"};
     std::ifstream in(path, std::ios::binary);
     if (!in) return Error{path, 0, 0, "cannot open the elevation profile file"};
     std::ostringstream ss;

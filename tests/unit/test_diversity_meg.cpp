@@ -171,3 +171,28 @@ TEST_CASE("partial grids count only the power that arrives where the pattern is 
     CHECK(m->meg == Approx(0.25).epsilon(1e-3));  // half of efficiency/2 for a symmetric dipole
     CHECK(!m->notes.empty());
 }
+
+TEST_CASE("MEG needs no phase: magnitude-only data give the same MEG, but cannot be turned", "[diversity]") {
+    // Taga's MEG uses only the partial gains |E_theta|^2 and |E_phi|^2 (Taga 1990).
+    Environment e;
+    e.model = EnvironmentModel::gaussian;
+    e.v_mean_deg = 10;
+    e.v_spread_deg = 15;
+    e.h_mean_deg = 25;
+    e.h_spread_deg = 30;
+    e.xpr_db = 6;
+    FarFieldSet s = make(ReferenceKind::crossed_dipoles, rotation_xyz_deg(30, 20, 0));
+    FarFieldSet m = s;
+    m.content = FieldContent::magnitude_only;
+    for (auto& v : m.frequencies[0].e_theta) v = std::abs(v);
+    for (auto& v : m.frequencies[0].e_phi) v = std::abs(v);
+    auto a = mean_effective_gain(s, 0, e), b = mean_effective_gain(m, 0, e);
+    REQUIRE(a);
+    REQUIRE(b);
+    CHECK(b->meg == Approx(a->meg).epsilon(1e-14));
+    CHECK(*b->balanced_share == Approx(*a->balanced_share).epsilon(1e-14));
+    // Turning it would need the phase between E_theta and E_phi.
+    auto o = orientation_robustness(m, 0, e, OrientationSweep{});
+    REQUIRE(!o);
+    CHECK(o.error().message.find("phase") != std::string::npos);
+}
