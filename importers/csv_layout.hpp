@@ -86,7 +86,7 @@ enum class NumberStatus { ok, not_a_number, nan };
 // decimal significand fits in 53 bits and the power of ten is within 10^+-22, one IEEE multiply
 // or divide of two exact doubles is correctly rounded, so the result equals fast_float's. Returns
 // false (and leaves p) for anything else; the caller then uses fast_float.
-inline bool fast_decimal(const char*& p, const char* e, bool decimal_comma, double& v) {
+[[gnu::always_inline]] inline bool fast_decimal(const char*& p, const char* e, bool decimal_comma, double& v) {
     static constexpr double pow10[23] = {1e0,  1e1,  1e2,  1e3,  1e4,  1e5,  1e6,  1e7,  1e8,  1e9,  1e10, 1e11,
                                          1e12, 1e13, 1e14, 1e15, 1e16, 1e17, 1e18, 1e19, 1e20, 1e21, 1e22};
     const char* q = p;
@@ -156,7 +156,7 @@ inline bool fast_decimal(const char*& p, const char* e, bool decimal_comma, doub
 // Parse the number cell that starts at p (cell content runs to the delimiter or e). Leading
 // and trailing spaces, a leading '+', surrounding double quotes and (when allowed) a decimal
 // comma are accepted. On success returns the pointer at the delimiter or e.
-inline const char* parse_number_cell(const char* p, const char* e, char delim, bool decimal_comma, double& v,
+[[gnu::always_inline]] inline const char* parse_number_cell(const char* p, const char* e, char delim, bool decimal_comma, double& v,
                                      NumberStatus& st) {
     while (p < e && (*p == ' ' || (*p == '\t' && delim != '\t'))) ++p;
     bool quoted = false;

@@ -15,7 +15,12 @@
 #include <cstring>
 #include <limits>
 #include <thread>
+#include <cstdint>
 #include <unordered_map>
+#if defined(__SSE2__)
+#include <emmintrin.h>
+#endif
+#include <sys/stat.h>
 
 #include "importers/csv_layout.hpp"
 #include "importers/far_field_csv.hpp"
@@ -138,6 +143,21 @@ struct Context {
     std::vector<std::vector<unsigned char>>* seen = nullptr;
 };
 
+// First '\n' or NUL byte in [p, end), or end. SSE2 (x86-64 baseline), 16 bytes a step.
+inline const char* find_newline_or_nul(const char* p, const char* end) {
+#if defined(__SSE2__)
+    const __m128i nl = _mm_set1_epi8('\n'), zero = _mm_setzero_si128();
+    while (end - p >= 16) {
+        const __m128i v = _mm_loadu_si128(reinterpret_cast<const __m128i*>(p));
+        const int m = _mm_movemask_epi8(_mm_or_si128(_mm_cmpeq_epi8(v, nl), _mm_cmpeq_epi8(v, zero)));
+        if (m) return p + __builtin_ctz(unsigned(m));
+        p += 16;
+    }
+#endif
+    while (p < end && *p != '\n' && *p != 0) ++p;
+    return p;
+}
+
 // Walk the lines of [c.begin, c.end), calling row(line_begin, line_end) for each data row.
 // Blank lines and '#' lines are skipped (metadata keys after the header are refused).
 template <class Row>
@@ -149,18 +169,22 @@ void for_each_row(Context& ctx, Chunk& c, bool first_pass, double progress_base,
     std::size_t n = 0;
     std::size_t released = c.begin;
     while (p < end) {
-        const char* nl = static_cast<const char*>(std::memchr(p, '\n', std::size_t(end - p)));
-        const char* e = nl ? nl : end;
-        const char* next = nl ? nl + 1 : end;
+        const char* nl;
         if (first_pass) {
-            // Binary garbage: text never holds a NUL byte (checked line by line, so the pages
-            // are touched once, while they are being parsed).
-            if (const void* z = std::memchr(p, 0, std::size_t(e - p))) {
-                c.failure = {true, std::size_t(p - base), long(static_cast<const char*>(z) - p) + 1,
+            // Binary garbage: text never holds a NUL byte. One scan finds the line end and any
+            // NUL before it, while the pages are being parsed anyway.
+            nl = find_newline_or_nul(p, end);
+            if (nl < end && *nl == 0) {
+                c.failure = {true, std::size_t(p - base), long(nl - p) + 1,
                              "expected text, found a NUL byte (a binary file?)"};
                 return;
             }
+            if (nl == end) nl = nullptr;
+        } else {
+            nl = static_cast<const char*>(std::memchr(p, '\n', std::size_t(end - p)));
         }
+        const char* e = nl ? nl : end;
+        const char* next = nl ? nl + 1 : end;
         if (e > p && e[-1] == '\r') --e;
         const char* q = p;
         while (q < e && (*q == ' ' || *q == '\t' || *q == delim)) ++q;
@@ -205,127 +229,186 @@ void for_each_row(Context& ctx, Chunk& c, bool first_pass, double progress_base,
     if (ctx.mapped) ctx.mapped->release(released, c.end - released);
 }
 
-// Parse the cells a row needs (role wanted[r]); up to and including header cell `last`
-// (all cells, and the row length check, when last < 0).
-bool parse_cells(Context& ctx, Chunk& c, const char* p, const char* e, int last, Cells& out) {
-    const Layout& L = *ctx.L;
-    const char* const base = ctx.text.data();
+// Angle and frequency cells repeat a few distinct texts over and over ("0", "90", "2.45e9").
+// Their raw bytes (up to 16, zero-padded: text holds no NUL) are a key into a small
+// direct-mapped cache per role, so each distinct text is parsed and checked once per thread.
+struct CellKey {
+    std::uint64_t a = 0, b = 0;
+    bool operator==(const CellKey& o) const { return a == o.a && b == o.b; }
+};
+
+// Key of the cell at p (up to the delimiter or e); false when it is empty or longer than 16.
+inline bool key_cell(const char* p, const char* e, char delim, CellKey& k, const char*& cell_end) {
     const char* q = p;
-    const int ncells = L.cells;
-    const int upto = last < 0 ? ncells - 1 : last;
-    for (int k = 0; k <= upto; ++k) {
-        const int r = L.role[std::size_t(k)];
-        if (r >= 0) {
-            NumberStatus st;
-            double v;
-            const char* cell = q;
-            q = parse_number_cell(q, e, L.delimiter, L.decimal_comma, v, st);
-            if (st != NumberStatus::ok) {
-                const char* ce = static_cast<const char*>(std::memchr(cell, L.delimiter, std::size_t(e - cell)));
-                if (!ce) ce = e;
-                c.failure = {true, std::size_t(p - base), long(cell - p) + 1,
-                             std::string("expected a number in column \"") + column_name(r) + "\", found " +
-                                 (cell == ce ? std::string("an empty cell") : quote_found(std::string_view(cell, std::size_t(ce - cell))))};
-                return false;
-            }
-            if (L.transform) v = v * L.scale[std::size_t(r)] + L.offset[std::size_t(r)];
-            out.v[r] = v;
-        } else {
-            const char* ce = static_cast<const char*>(std::memchr(q, L.delimiter, std::size_t(e - q)));
-            q = ce ? ce : e;
+    const char* lim = e - p > 17 ? p + 17 : e;
+    while (q < lim && *q != delim) ++q;
+    const std::size_t n = std::size_t(q - p);
+    if (n == 0 || n > 16) return false;
+    if (e - p >= 16) {
+        // Two unaligned loads, then clear the bytes past the cell.
+        std::memcpy(&k.a, p, 8);
+        std::memcpy(&k.b, p + 8, 8);
+        if (n < 8) {
+            k.a &= (std::uint64_t(1) << (8 * n)) - 1;
+            k.b = 0;
+        } else if (n < 16) {
+            k.b &= n == 8 ? 0 : (std::uint64_t(1) << (8 * (n - 8))) - 1;
         }
-        if (k < ncells - 1) {
-            if (q >= e) {
-                c.failure = {true, std::size_t(p - base), long(q - p) + 1,
-                             "expected " + std::to_string(ncells) + " cells as in the header row, found " +
-                                 std::to_string(k + 1)};
-                return false;
-            }
-            ++q;  // the delimiter
-        }
+    } else {
+        char buf[16] = {};
+        for (std::size_t i = 0; i < n; ++i) buf[i] = p[i];
+        std::memcpy(&k.a, buf, 8);
+        std::memcpy(&k.b, buf + 8, 8);
     }
-    if (last < 0 && q < e) {
-        // Only empty trailing cells may follow.
-        const char* t = q;
-        while (t < e && (*t == ' ' || *t == '\t' || *t == L.delimiter)) ++t;
-        if (t < e) {
-            int extra = 0;
-            for (const char* s = q; s < e; ++s) extra += *s == L.delimiter;
-            c.failure = {true, std::size_t(p - base), long(q - p) + 1,
-                         "expected " + std::to_string(ncells) + " cells as in the header row, found " +
-                             std::to_string(ncells + extra)};
-            return false;
-        }
-    }
+    cell_end = q;
     return true;
 }
 
-// Angles of a row in degrees: theta in [0, 180], phi as written (raw), and the frequency in Hz.
-// Returns false (with a failure) when out of range.
-bool row_angles(Context& ctx, Chunk& c, const char* p, const Cells& cells, double& theta, double& phi, double& f_hz) {
-    const Layout& L = *ctx.L;
-    const char* const base = ctx.text.data();
-    auto bad = [&](int role, std::string msg) {
-        // Column of the cell: count delimiters up to it.
-        const int cell = L.column_of[std::size_t(role)];
-        const char* q = p;
-        for (int k = 0; k < cell; ++k) {
-            const char* d = static_cast<const char*>(std::memchr(q, L.delimiter, std::size_t(ctx.text.data() + ctx.text.size() - q)));
-            if (!d) break;
-            q = d + 1;
-        }
-        c.failure = {true, std::size_t(p - base), long(q - p) + 1, std::move(msg)};
-        return false;
-    };
-    auto fmtv = [](double v) {
-        char b[32];
-        std::snprintf(b, sizeof b, "%.9g", v);
-        return std::string(b);
-    };
-    if (L.az_el) {
-        const double el = cells.v[c_elevation] * L.angle_to_deg, az = cells.v[c_azimuth] * L.angle_to_deg;
-        if (!(el >= -90 - angle_tol_deg && el <= 90 + angle_tol_deg))
-            return bad(c_elevation, "expected elevation in [-90, 90] deg, found " + fmtv(el));
-        if (!(az >= -180 - angle_tol_deg && az <= 360 + angle_tol_deg))
-            return bad(c_azimuth, "expected azimuth in [0, 360] or [-180, 180] deg, found " + fmtv(az));
-        theta = std::clamp(90.0 - el, 0.0, 180.0);
-        phi = az;
-    } else {
-        const double t = cells.v[c_theta] * L.angle_to_deg, ph = cells.v[c_phi] * L.angle_to_deg;
-        if (!(t >= -angle_tol_deg && t <= 180 + angle_tol_deg))
-            return bad(c_theta, "expected theta in [0, 180] deg, found " + fmtv(t));
-        if (!(ph >= -180 - angle_tol_deg && ph <= 360 + angle_tol_deg))
-            return bad(c_phi, "expected phi in [0, 360] or [-180, 180] deg, found " + fmtv(ph));
-        theta = std::clamp(t, 0.0, 180.0);
-        phi = ph;
+inline std::size_t key_slot(const CellKey& k) {
+    return std::size_t(((k.a * 0x9E3779B97F4A7C15ull) ^ (k.b * 0xC2B2AE3D27D4EB4Full)) >> 56);
+}
+
+// What an angle or frequency cell means once parsed: the value (deg, Hz) and, in pass 2, its
+// grid index (theta row, phi column, frequency) and whether it is the phi seam duplicate.
+struct AngleInfo {
+    double value = 0;
+    long index = 0;
+    bool alias = false;
+};
+
+struct AngleCache {
+    CellKey key[256];
+    bool used[256] = {};
+    AngleInfo info[256];
+};
+
+// Which part of the grid a role gives: 0 theta, 1 phi, 2 frequency; -1 a field column.
+inline int angle_slot(int role) {
+    switch (role) {
+        case c_theta:
+        case c_elevation: return 0;
+        case c_phi:
+        case c_azimuth: return 1;
+        case c_frequency: return 2;
+        default: return -1;
     }
-    if (L.frequency_column) {
-        f_hz = cells.v[c_frequency] * L.hz_per_unit;
-        if (!(f_hz >= 0) || !std::isfinite(f_hz))
-            return bad(c_frequency, "expected a frequency >= 0, found " + fmtv(cells.v[c_frequency]));
-    } else {
-        f_hz = L.frequency_hz ? *L.frequency_hz : 0.0;
+}
+
+std::string fmtv(double v) {
+    char b[32];
+    std::snprintf(b, sizeof b, "%.9g", v);
+    return b;
+}
+
+// Convert and check one angle/frequency value (after scale/offset); empty message when fine.
+std::string angle_value(const Layout& L, int role, double raw, double& out) {
+    switch (role) {
+        case c_theta: {
+            const double t = raw * L.angle_to_deg;
+            if (!(t >= -angle_tol_deg && t <= 180 + angle_tol_deg)) return "expected theta in [0, 180] deg, found " + fmtv(t);
+            out = std::clamp(t, 0.0, 180.0);
+            return {};
+        }
+        case c_elevation: {
+            const double el = raw * L.angle_to_deg;
+            if (!(el >= -90 - angle_tol_deg && el <= 90 + angle_tol_deg))
+                return "expected elevation in [-90, 90] deg, found " + fmtv(el);
+            out = std::clamp(90.0 - el, 0.0, 180.0);
+            return {};
+        }
+        case c_phi:
+        case c_azimuth: {
+            const double ph = raw * L.angle_to_deg;
+            if (!(ph >= -180 - angle_tol_deg && ph <= 360 + angle_tol_deg))
+                return std::string("expected ") + (role == c_phi ? "phi" : "azimuth") +
+                       " in [0, 360] or [-180, 180] deg, found " + fmtv(ph);
+            out = ph;
+            return {};
+        }
+        default: {
+            const double f = raw * L.hz_per_unit;
+            if (!(f >= 0) || !std::isfinite(f)) return "expected a frequency >= 0, found " + fmtv(raw);
+            out = f;
+            return {};
+        }
+    }
+}
+
+inline void fail_cell(Chunk& c, const char* base, const char* line, const char* cell, std::string msg) {
+    c.failure = {true, std::size_t(line - base), long(cell - line) + 1, std::move(msg)};
+}
+
+inline std::string not_a_number(int role, const char* cell, const char* e, char delim) {
+    const char* ce = static_cast<const char*>(std::memchr(cell, delim, std::size_t(e - cell)));
+    if (!ce) ce = e;
+    return std::string("expected a number in column \"") + column_name(role) + "\", found " +
+           (cell == ce ? std::string("an empty cell") : quote_found(std::string_view(cell, std::size_t(ce - cell))));
+}
+
+// Past the delimiter after cell k (false, with a failure, when the row ends early).
+inline bool next_cell(Chunk& c, const char* base, const char* line, const char* e, const char*& q, int k, int ncells) {
+    if (k < ncells - 1) {
+        if (q >= e) {
+            fail_cell(c, base, line, q,
+                      "expected " + std::to_string(ncells) + " cells as in the header row, found " + std::to_string(k + 1));
+            return false;
+        }
+        ++q;
     }
     return true;
 }
 
 void pass1(Context& ctx, Chunk& c, bool report_progress) {
-    Cells cells;
+    const Layout& L = *ctx.L;
+    const char* const base = ctx.text.data();
+    AngleCache cache[3];
+    DistinctValues* sets[3] = {&c.theta, &c.phi, &c.freq};
+    if (!L.frequency_column) c.freq.add(L.frequency_hz ? *L.frequency_hz : 0.0, c.begin);
+    const int upto = L.last_angle_cell;
     for_each_row(ctx, c, true, 0.0, report_progress ? 0.35 : 0.0, [&](const char* p, const char* e) {
-        if (!parse_cells(ctx, c, p, e, ctx.L->last_angle_cell, cells)) return false;
-        double t, ph, f;
-        if (!row_angles(ctx, c, p, cells, t, ph, f)) return false;
-        const std::size_t off = std::size_t(p - ctx.text.data());
-        c.theta.add(t, off);
-        c.phi.add(ph, off);
-        c.freq.add(f, off);
-        if (ph < c.phi_min) {
-            c.phi_min = ph;
-            c.phi_min_offset = off;
-        }
-        if (ph > c.phi_max) {
-            c.phi_max = ph;
-            c.phi_max_offset = off;
+        const char* q = p;
+        for (int k = 0; k <= upto; ++k) {
+            const int r = L.role[std::size_t(k)];
+            const int slot = angle_slot(r);
+            if (slot < 0) {
+                const char* ce = static_cast<const char*>(std::memchr(q, L.delimiter, std::size_t(e - q)));
+                q = ce ? ce : e;
+            } else {
+                CellKey key;
+                const char* ce = nullptr;
+                const bool keyed = key_cell(q, e, L.delimiter, key, ce);
+                const std::size_t h = keyed ? key_slot(key) : 0;
+                if (keyed && cache[slot].used[h] && cache[slot].key[h] == key) {
+                    q = ce;
+                } else {
+                    NumberStatus st;
+                    double v;
+                    const char* cell = q;
+                    q = parse_number_cell(q, e, L.delimiter, L.decimal_comma, v, st);
+                    if (st != NumberStatus::ok) {
+                        fail_cell(c, base, p, cell, not_a_number(r, cell, e, L.delimiter));
+                        return false;
+                    }
+                    if (L.transform) v = v * L.scale[std::size_t(r)] + L.offset[std::size_t(r)];
+                    double x;
+                    std::string msg = angle_value(L, r, v, x);
+                    if (!msg.empty()) {
+                        fail_cell(c, base, p, cell, std::move(msg));
+                        return false;
+                    }
+                    const std::size_t off = std::size_t(p - base);
+                    sets[slot]->add(x, off);
+                    if (slot == 1) {
+                        if (x < c.phi_min) c.phi_min = x, c.phi_min_offset = off;
+                        if (x > c.phi_max) c.phi_max = x, c.phi_max_offset = off;
+                    }
+                    if (keyed) {
+                        cache[slot].used[h] = true;
+                        cache[slot].key[h] = key;
+                    }
+                }
+            }
+            if (!next_cell(c, base, p, e, q, k, L.cells)) return false;
         }
         ++c.rows;
         return true;
@@ -346,52 +429,111 @@ inline bool db_amplitude(double db, double& a) {
 void pass2(Context& ctx, Chunk& c, bool report_progress) {
     const Layout& L = *ctx.L;
     const char* const base = ctx.text.data();
-    Cells cells;
-    std::size_t last_f = 0;
-    double last_f_value = std::numeric_limits<double>::quiet_NaN();
+    const int ncells = L.cells;
+    AngleCache cache[3];
+    std::vector<const char*> cell_at(std::size_t(ncells) + 1);
+    double v[c_count];
     const std::size_t nf = ctx.freqs.size();
+    AngleInfo fixed_f;  // without a frequency column: the one frequency
+    fixed_f.value = ctx.freqs.empty() ? 0.0 : ctx.freqs[0];
+    // Grid place of a parsed angle/frequency value; false when it is not on the first pass's grid.
+    auto place = [&](int slot, double x, AngleInfo& a) {
+        a.value = x;
+        if (slot == 0) {
+            const double d = (x - ctx.theta0) / ctx.theta_step;
+            a.index = d > -0.5 ? long(d + 0.5) : -1;
+            return a.index >= 0 && a.index < ctx.n_theta;
+        }
+        if (slot == 1) {
+            const double d = (x - ctx.phi0) / ctx.phi_step;
+            long ip = d > -0.5 ? long(d + 0.5) : -1;
+            if (ip < 0 || ip >= ctx.n_phi_distinct) return false;
+            a.alias = ctx.phi_seam && ip == ctx.n_phi_distinct - 1;
+            if (a.alias) ip = 0;
+            a.index = (ip + ctx.phi_shift) % ctx.n_phi;
+            return true;
+        }
+        auto it = std::lower_bound(ctx.freqs.begin(), ctx.freqs.end(), x * (1 - 1e-9));
+        a.index = long(it - ctx.freqs.begin());
+        return std::size_t(a.index) < nf && std::abs(ctx.freqs[std::size_t(a.index)] - x) <= 1e-9 * std::max(1.0, x);
+    };
     for_each_row(ctx, c, false, 0.35, report_progress ? 0.65 : 0.0, [&](const char* p, const char* e) {
-        if (!parse_cells(ctx, c, p, e, -1, cells)) return false;
-        double t, ph, f;
-        if (!row_angles(ctx, c, p, cells, t, ph, f)) return false;
-        auto fail_at = [&](int role, std::string msg) {
-            const int cell = L.column_of[std::size_t(role)];
-            const char* q = p;
-            for (int k = 0; k < cell && q < e; ++k) {
-                const char* d = static_cast<const char*>(std::memchr(q, L.delimiter, std::size_t(e - q)));
-                if (!d) break;
-                q = d + 1;
+        const AngleInfo* ang[3] = {nullptr, nullptr, L.frequency_column ? nullptr : &fixed_f};
+        AngleInfo fresh[3];
+        const char* q = p;
+        for (int k = 0; k < ncells; ++k) {
+            cell_at[std::size_t(k)] = q;
+            const int r = L.role[std::size_t(k)];
+            if (r < 0) {
+                const char* ce = static_cast<const char*>(std::memchr(q, L.delimiter, std::size_t(e - q)));
+                q = ce ? ce : e;
+            } else {
+                const int slot = angle_slot(r);
+                CellKey key;
+                const char* ce = nullptr;
+                const bool keyed = slot >= 0 && key_cell(q, e, L.delimiter, key, ce);
+                const std::size_t h = keyed ? key_slot(key) : 0;
+                if (keyed && cache[slot].used[h] && cache[slot].key[h] == key) {
+                    ang[slot] = &cache[slot].info[h];
+                    q = ce;
+                } else {
+                    NumberStatus st;
+                    double x;
+                    const char* cell = q;
+                    q = parse_number_cell(q, e, L.delimiter, L.decimal_comma, x, st);
+                    if (st != NumberStatus::ok) {
+                        fail_cell(c, base, p, cell, not_a_number(r, cell, e, L.delimiter));
+                        return false;
+                    }
+                    if (L.transform) x = x * L.scale[std::size_t(r)] + L.offset[std::size_t(r)];
+                    if (slot < 0) {
+                        v[r] = x;
+                    } else {
+                        double y;
+                        std::string msg = angle_value(L, r, x, y);
+                        if (!msg.empty()) {
+                            fail_cell(c, base, p, cell, std::move(msg));
+                            return false;
+                        }
+                        AngleInfo& a = keyed ? cache[slot].info[h] : fresh[slot];
+                        if (!place(slot, y, a)) {
+                            fail_cell(c, base, p, cell, "internal: value not on the first pass's grid");
+                            return false;
+                        }
+                        if (keyed) {
+                            cache[slot].used[h] = true;
+                            cache[slot].key[h] = key;
+                        }
+                        ang[slot] = &a;
+                    }
+                }
             }
-            c.failure = {true, std::size_t(p - base), long(q - p) + 1, std::move(msg)};
+            if (!next_cell(c, base, p, e, q, k, ncells)) return false;
+        }
+        if (q < e) {
+            // Only empty trailing cells may follow.
+            const char* t = q;
+            while (t < e && (*t == ' ' || *t == '\t' || *t == L.delimiter)) ++t;
+            if (t < e) {
+                int extra = 0;
+                for (const char* s = q; s < e; ++s) extra += *s == L.delimiter;
+                fail_cell(c, base, p, q,
+                          "expected " + std::to_string(ncells) + " cells as in the header row, found " +
+                              std::to_string(ncells + extra));
+                return false;
+            }
+        }
+        auto fail_at = [&](int role, std::string msg) {
+            fail_cell(c, base, p, cell_at[std::size_t(L.column_of[std::size_t(role)])], std::move(msg));
             return false;
         };
-        // Grid indices.
-        std::size_t fk = last_f;
-        if (!(f == last_f_value)) {
-            auto it = std::lower_bound(ctx.freqs.begin(), ctx.freqs.end(), f * (1 - 1e-9));
-            fk = std::size_t(it - ctx.freqs.begin());
-            if (fk >= nf || std::abs(ctx.freqs[fk] - f) > 1e-9 * std::max(1.0, f))
-                return fail_at(c_frequency, "internal: frequency not in the first pass's list");
-            last_f = fk;
-            last_f_value = f;
-        }
-        const double it_d = (t - ctx.theta0) / ctx.theta_step;
-        const long it = it_d > -0.5 ? long(it_d + 0.5) : -1;
-        const double ip_d = (ph - ctx.phi0) / ctx.phi_step;
-        long ip = ip_d > -0.5 ? long(ip_d + 0.5) : -1;
-        if (it < 0 || it >= ctx.n_theta || ip < 0 || ip >= ctx.n_phi_distinct)
-            return fail_at(L.az_el ? c_elevation : c_theta, "internal: angle not on the first pass's grid");
-        bool alias = false;
-        if (ctx.phi_seam && ip == ctx.n_phi_distinct - 1) {
-            alias = true;
-            ip = 0;
-        }
-        ip = (ip + ctx.phi_shift) % ctx.n_phi;
-        const std::size_t k = std::size_t(it) * std::size_t(ctx.n_phi) + std::size_t(ip);
+        const std::size_t fk = std::size_t(ang[2]->index);
+        const std::size_t k = std::size_t(ang[0]->index) * std::size_t(ctx.n_phi) + std::size_t(ang[1]->index);
+        const bool alias = ang[1]->alias;
+        const double t = ang[0]->value, ph = ang[1]->value, f = ang[2]->value;
 
         // Field values.
         cplx et, ep;
-        const double* v = cells.v;
         switch (L.family) {
             case CsvFamily::complex: {
                 for (int r : {c_e_theta_re, c_e_theta_im, c_e_phi_re, c_e_phi_im})
@@ -810,14 +952,18 @@ Result<FarFieldSet> parse_far_field_text(std::string_view text, const std::strin
 }
 
 Result<FarFieldSet> read_far_field_csv(const std::string& path, const CsvReadOptions& o) {
+    // Before mapping: a first guess from the size. The arrays take about half the file's size
+    // for the usual layouts (32 bytes per point, 60-90 bytes per row); a file more than four
+    // times the available memory cannot fit whatever its layout. The exact check follows pass 1.
+    struct stat st {};
+    if (::stat(path.c_str(), &st) == 0 && S_ISREG(st.st_mode)) {
+        const std::size_t limit = o.memory_limit_bytes ? o.memory_limit_bytes : available_memory_bytes();
+        if (limit > 0 && std::size_t(st.st_size) / 4 > limit)
+            return Error{path, 0, 0, "expected a file that fits in memory: it holds " + fmt(double(st.st_size) / 1e6) +
+                                         " MB, " + fmt(double(limit) / 1e6) + " MB are available"};
+    }
     auto m = MappedFile::open(path);
     if (!m) return m.error();
-    const std::size_t limit = o.memory_limit_bytes ? o.memory_limit_bytes : available_memory_bytes();
-    // A first guess before reading: the arrays take about half the file's size for the usual
-    // layouts (32 bytes per point, 60-90 bytes per row). The exact check follows pass 1.
-    if (limit > 0 && m->text().size() / 4 > limit)
-        return Error{path, 0, 0, "expected a file that fits in memory: it holds " + fmt(double(m->text().size()) / 1e6) +
-                                     " MB, " + fmt(double(limit) / 1e6) + " MB are available"};
     return parse_far_field_text(m->text(), path, o, &*m);
 }
 

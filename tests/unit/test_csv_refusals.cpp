@@ -2,6 +2,7 @@
 // column. (Schema rules: docs/far-field-csv.md; location format: common practice for compilers.)
 #include <catch2/catch.hpp>
 
+#include <cstdio>
 #include <string>
 
 #include "importers/far_field_csv.hpp"
@@ -242,4 +243,35 @@ TEST_CASE("map entries that match nothing, or name no schema column, are refused
     auto r = parse_far_field_csv("theta,phi,Gain\n0,0,0\n", "t.csv", o);
     REQUIRE_FALSE(r.ok());
     CHECK_THAT(r.error().message, Contains("schema column name"));
+}
+
+TEST_CASE("a file far larger than memory is refused before it is mapped", "[csv][refuse]") {
+    const std::string path = "ellipsa_test_big.csv";
+    {
+        std::FILE* f = std::fopen(path.c_str(), "wb");
+        REQUIRE(f);
+        const std::string text = header + good_rows();
+        std::fwrite(text.data(), 1, text.size(), f);
+        std::fclose(f);
+    }
+    CsvReadOptions o;
+    o.memory_limit_bytes = 10;
+    auto r = read_far_field_csv(path, o);
+    REQUIRE_FALSE(r.ok());
+    CHECK(r.error().file == path);
+    CHECK(r.error().line == 0);
+    CHECK_THAT(r.error().message, Contains("fits in memory") && Contains("it holds"));
+    std::remove(path.c_str());
+}
+
+TEST_CASE("devices, directories and missing files are refused without blocking", "[csv][refuse]") {
+    auto r = read_far_field_csv("/dev/zero");
+    REQUIRE_FALSE(r.ok());
+    CHECK_THAT(r.error().message, Contains("regular file"));
+    r = read_far_field_csv(".");
+    REQUIRE_FALSE(r.ok());
+    CHECK_THAT(r.error().message, Contains("directory"));
+    r = read_far_field_csv("no-such-file.csv");
+    REQUIRE_FALSE(r.ok());
+    CHECK_THAT(r.error().message, Contains("cannot open"));
 }
