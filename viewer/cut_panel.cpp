@@ -150,10 +150,9 @@ Intents draw_cut_panel(AppState& s) {
     ImGui::Checkbox("polar plot", &st.polar_plot);
     ImGui::SameLine();
     ImGui::TextDisabled("(P)");
-    ImGui::SameLine();
     static int fmt = 0;
     const char* fmts[] = {"svg", "png", "pdf", "csv"};
-    if (ImGui::SmallButton("Export")) {
+    if (ImGui::SmallButton("Export cut as")) {
         char name[64];
         std::time_t t = std::time(nullptr);
         std::strftime(name, sizeof name, "ellipsa-cut-%Y%m%d-%H%M%S.", std::localtime(&t));
@@ -161,7 +160,7 @@ Intents draw_cut_panel(AppState& s) {
     }
     if (ImGui::IsItemHovered()) ImGui::SetTooltip("Write this cut to the current folder, as with 'ellipsa cut'");
     ImGui::SameLine();
-    ImGui::SetNextItemWidth(-1);
+    ImGui::SetNextItemWidth(70);
     ImGui::Combo("##fmt", &fmt, fmts, 4);
     if (!s.cut_export_message.empty()) {
         ImGui::PushTextWrapPos(0);

@@ -1,6 +1,7 @@
 #include "viewer/scene_renderer.hpp"
 
 #include <glm/gtc/type_ptr.hpp>
+#include <cstdlib>
 #include <string>
 #include <vector>
 
@@ -199,7 +200,12 @@ void SceneRenderer::draw(const OrbitCamera& cam, int x, int y, int w, int h, con
         glBindVertexArray(surface_vao_);
         // Level of detail: skip grid lines whose cells would be under a few pixels wide.
         int level = 0;
-        const int stride = lod_stride(grid_step_deg_, h, cam.fov_deg, cam.distance);
+        // ELLIPSA_FULL_DETAIL=1 always draws every grid line (for comparisons and benchmarks).
+        static const bool full_detail = [] {
+            const char* e = std::getenv("ELLIPSA_FULL_DETAIL");
+            return e && *e && *e != '0';
+        }();
+        const int stride = full_detail ? 1 : lod_stride(grid_step_deg_, h, cam.fov_deg, cam.distance, 3.0);
         if (stride >= 4 && lod_count_[2]) level = 2;
         else if (stride >= 2 && lod_count_[1]) level = 1;
         last_stride_ = 1 << level;
