@@ -200,6 +200,10 @@ void json_orientations(JsonWriter& j, const Result<OrientationFigures>& r, const
     json_sample(j, o.worst);
     j.key("best");
     json_sample(j, o.best);
+    j.key("samples").begin_array();  // every orientation: [tilt_deg, roll_deg, meg_db]
+    for (const OrientationSample& q : o.samples)
+        j.begin_array().value(q.tilt_deg).value(q.roll_deg).value(to_db(q.meg)).end_array();
+    j.end_array();
     j.key("by_tilt").begin_array();
     for (const TiltRow& t : o.by_tilt) {
         j.begin_object();
