@@ -15,7 +15,7 @@ struct ViewArgs {
     bool software = false, frame_stats = false;
     std::string size, screenshot;
     int frames = 0;
-    std::string component, color_by, pin, view, export_cut;
+    std::string component, color_by, pin, view, export_cut, export_view;
     int compare = 0;
     bool wireframe = false, translucent = false;
     bool diversity = false;
@@ -42,6 +42,7 @@ Registered add_view(CLI::App& root) {
     sub->add_option("--pin", a->pin, "Start with THETA,PHI (deg) pinned, and the cut through it");
     sub->add_option("--view", a->view, "Start looking from AZ,EL (deg)");
     sub->add_flag("--wireframe", a->wireframe, "Start with the wireframe on");
+    sub->add_option("--export-view", a->export_view, "With --frames: export the 3D view of the last frame as PNG (as Ctrl+E)");
     sub->add_option("--export-cut", a->export_cut, "With --frames: write the cut of the last frame (.svg, .png, .pdf or .csv)");
     sub->add_flag("--translucent", a->translucent, "Start with a translucent surface");
     sub->add_flag("--diversity", a->diversity, "Start with the diversity panel open (MEG, ECC, orientation curve)");
@@ -82,6 +83,11 @@ Registered add_view(CLI::App& root) {
                     return exit_usage;
                 }
                 o.export_cut = a->export_cut;
+                o.export_view = a->export_view;
+                if (!a->export_view.empty() && a->frames == 0) {
+                    std::cerr << "ellipsa view: --export-view needs --frames N\n";
+                    return exit_usage;
+                }
                 o.component = a->component;
                 o.color_by = a->color_by;
                 o.compare = a->compare - 1;

@@ -572,6 +572,7 @@ int run_viewer(const ViewerOptions& opt) {
         }
         glfwSwapBuffers(win);
 
+        if (last && !opt.export_view.empty()) in.export_view = true;
         if (in.export_view) {
             // Same code path as `ellipsa render`, through a headless context of its own.
             const LoadedPattern* a = s.active_pattern();
@@ -588,9 +589,16 @@ int run_viewer(const ViewerOptions& opt) {
                 const LoadedPattern* b = s.compare_pattern();
                 so.compare = b ? &b->set : nullptr;
                 so.compare_frequency_index = b ? s.freq_for(*b) : 0;
-                const std::string path = export_name();
+                const std::string path = opt.export_view.empty() ? export_name() : opt.export_view;
+                // GLVND lets a thread hold only one window-system API's context at a time: release
+                // the window's GLX context while the headless EGL context works, then take it back.
+                glfwMakeContextCurrent(nullptr);
                 Status st = render_snapshot_png(a->set, so, path, false);
                 s.export_message = st ? "Wrote " + std::filesystem::absolute(path).string() : "Export failed: " + st.error().format();
+                if (!st && !opt.export_view.empty()) {
+                    std::cerr << "ellipsa view: " << s.export_message << "\n";
+                    exit_code = 1;
+                }
             }
             rc.make_current();
         }

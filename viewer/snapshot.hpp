@@ -34,7 +34,9 @@ struct SnapshotOptions {
     std::size_t compare_frequency_index = 0;
 };
 
-// Render to RGBA8 pixels (top row first), width * height * 4 bytes.
+// Render to RGBA8 pixels (top row first), width * height * 4 bytes. Makes and drops its own
+// headless context: a caller with a current window context must release it first (GLVND allows
+// one window-system API per thread at a time) and make it current again afterwards.
 Result<std::vector<std::uint8_t>> render_snapshot_rgba(const FarFieldSet& s, const SnapshotOptions& o);
 
 // Render and write a PNG through a temporary file and a rename. overwrite = false refuses when

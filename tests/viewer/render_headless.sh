@@ -24,6 +24,12 @@ set +e
 "$ELLIPSA" render "$out/turnstile.csv" --out "$out/x.png" --view nonsense 2>/dev/null; rc=$?
 set -e
 [[ $rc -eq 2 ]] || { echo "bad --view gave exit $rc, expected 2"; exit 1; }
+# An unknown component is a usage error (exit 2) and writes nothing.
+set +e
+"$ELLIPSA" render "$out/turnstile.csv" --out "$out/bad.png" --component sideways 2>/dev/null; rc=$?
+set -e
+[[ $rc -eq 2 ]] || { echo "unknown component gave exit $rc, expected 2"; exit 1; }
+[[ ! -e $out/bad.png ]]
 ls "$out"/.*tmp* 2>/dev/null && { echo "temporary file left behind"; exit 1; }
 "$ELLIPSA" --version | grep -q "OpenGL: "
 # The window needs a display: without one, `view` says so and exits 1 instead of hanging.

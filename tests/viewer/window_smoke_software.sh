@@ -13,11 +13,13 @@ export XDG_CONFIG_HOME="$out/config"
 "$ELLIPSA" synth dipole --step 2 --out "$out/b.csv" >/dev/null
 "$XVFB_RUN" -a -s "-screen 0 1400x900x24" "$ELLIPSA" view "$out/a.csv" "$out/b.csv" --software --size 1024x700 \
   --frames 4 --screenshot "$out/shot.png" --color-by difference --compare 2 --pin 40,30 --frame-stats \
-  --export-cut "$out/cut.svg" > "$out/stats.json"
+  --export-cut "$out/cut.svg" --export-view "$out/view.png" > "$out/stats.json"
 "$PNG_CHECK" "$out/shot.png" 1024 700 0.03
 # The exported cut is well-formed SVG with the A and B curves (one path each at least).
 if command -v xmllint >/dev/null; then xmllint --noout "$out/cut.svg"; fi
 [[ $(grep -c "<path" "$out/cut.svg") -ge 2 ]]
+# The view export from inside the window (a headless context beside the window's) works.
+"$PNG_CHECK" "$out/view.png" 1200 900 0.04
 # One JSON line with the three figures.
 [[ $(wc -l < "$out/stats.json") -eq 1 ]]
 grep -Eq '^\{"frames": 4, "median_ms": [0-9.]+, "p95_ms": [0-9.]+\}$' "$out/stats.json"
