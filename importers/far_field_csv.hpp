@@ -62,7 +62,11 @@ const std::vector<std::string>& csv_schema_columns();
 Status read_csv_map_file(const std::string& path, CsvReadOptions& options);
 Status parse_csv_map_text(std::string_view text, const std::string& display_name, CsvReadOptions& options);
 
-// Read a file (memory-mapped). The file name is used in messages.
+// Read a file (memory-mapped; only regular files). The file name is used in messages.
+// Costs two passes over the text, each split across the cores at line boundaries (pass 1: the
+// angle and frequency cells, to build and check the grid; pass 2: every cell, written straight
+// into the final arrays). Heap: the final arrays plus one byte per grid point; the file's pages
+// are dropped behind the reader. The size is checked against available memory first.
 Result<FarFieldSet> read_far_field_csv(const std::string& path, const CsvReadOptions& options = {});
 // Parse text already in memory; `display_name` is used in messages.
 Result<FarFieldSet> parse_far_field_csv(std::string_view text, const std::string& display_name,

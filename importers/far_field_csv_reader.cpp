@@ -892,6 +892,18 @@ Result<FarFieldSet> parse_far_field_text(std::string_view text, const std::strin
 
     // Poles: a single sample at theta = 0 or 180 stands for the whole ring. The field there has
     // no z part; its Cartesian vector is turned onto the theta/phi basis of every other phi.
+    bool lone_pole_without_phase = false;
+    if (n_phi > 1 && s.content == FieldContent::magnitude_only) {
+        for (int it : {0, s.grid.theta.count - 1}) {
+            const double th = s.grid.theta.value_deg(it);
+            if (!(th == 0 || th == 180)) continue;
+            for (std::size_t fk = 0; fk < s.frequencies.size(); ++fk) {
+                int count = 0;
+                for (int ip = 0; ip < n_phi; ++ip) count += seen[fk][s.grid.index(it, ip)] != 0;
+                if (count == 1) lone_pole_without_phase = true;
+            }
+        }
+    }
     if (n_phi > 1 && s.content != FieldContent::magnitude_only) {
         for (int it : {0, s.grid.theta.count - 1}) {
             const double th = s.grid.theta.value_deg(it);
@@ -945,7 +957,11 @@ Result<FarFieldSet> parse_far_field_text(std::string_view text, const std::strin
                       fmt(s.grid.theta.start_deg).c_str(), fmt(s.grid.theta.last_deg()).c_str(),
                       fmt(s.grid.theta.step_deg).c_str(), fmt(s.grid.phi.start_deg).c_str(),
                       fmt(s.grid.phi.step_deg).c_str(), n_phi, s.frequencies.size(), missing);
-        return Error{name, 0, 0, head + first_missing + (missing > 5 ? "; ..." : "")};
+        return Error{name, 0, 0,
+                     head + first_missing + (missing > 5 ? "; ..." : "") +
+                         (lone_pole_without_phase ? " (one sample at a pole stands for its whole ring only with phase: "
+                                                    "magnitude-only data must give every phi there)"
+                                                  : "")};
     }
     if (o.progress) o.progress(1.0);
     return s;

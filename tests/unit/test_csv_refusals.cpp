@@ -275,3 +275,9 @@ TEST_CASE("devices, directories and missing files are refused without blocking",
     REQUIRE_FALSE(r.ok());
     CHECK_THAT(r.error().message, Contains("cannot open"));
 }
+
+TEST_CASE("a lone pole sample without phase is refused with the reason", "[csv][refuse]") {
+    // With phase the one sample is turned to every phi (test_csv_corpus); magnitudes cannot be.
+    Error e = refuse("theta,phi,e_theta_db,e_phi_db\n0,0,0,0\n90,0,0,0\n90,180,0,0\n180,0,0,0\n180,180,0,0\n");
+    CHECK_THAT(e.message, Contains("theta 0, phi 180 deg") && Contains("only with phase"));
+}
