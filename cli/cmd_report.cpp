@@ -74,16 +74,22 @@ int run_report(const ReportArgs& a) {
         o.environment = *env;
     }
 #ifdef ELLIPSA_HAVE_VIEWER
-    // One 3D view per pattern and frequency through the headless EGL context (viewer/snapshot.hpp).
-    o.snapshot = [size = *size](const FarFieldSet& s, std::size_t fi) -> Result<std::string> {
-        viewer::SnapshotOptions so;
-        so.frequency_index = fi;
-        so.width = size.width_px;
-        so.height = size.height_px;
-        auto rgba = viewer::render_snapshot_rgba(s, so);
-        if (!rgba) return rgba.error();
-        return viewer::encode_png(*rgba, so.width, so.height);
+    // 3D views per pattern and frequency through the headless EGL context (viewer/snapshot.hpp):
+    // gain-coloured, and for data with phase also coloured by axial ratio.
+    auto view = [size = *size](viewer::ColorBy colour) {
+        return [size, colour](const FarFieldSet& s, std::size_t fi) -> Result<std::string> {
+            viewer::SnapshotOptions so;
+            so.frequency_index = fi;
+            so.width = size.width_px;
+            so.height = size.height_px;
+            so.color_by = colour;
+            auto rgba = viewer::render_snapshot_rgba(s, so);
+            if (!rgba) return rgba.error();
+            return viewer::encode_png(*rgba, so.width, so.height);
+        };
     };
+    o.snapshot = view(viewer::ColorBy::component);
+    o.polarisation_snapshot = view(viewer::ColorBy::axial_ratio);
 #else
     o.snapshot_note = "3D views are not included: this build has no viewer (ELLIPSA_VIEWER=OFF).";
 #endif

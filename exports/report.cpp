@@ -316,6 +316,19 @@ Result<std::vector<ReportFile>> build_report(const std::vector<ReportInput>& inp
                     doc.note("3D view unavailable: " + png.error().message);
                 }
             }
+            if (o.polarisation_snapshot && s.has_phase()) {
+                auto png = o.polarisation_snapshot(s, fi);
+                if (png) {
+                    DocFigure f;
+                    f.caption = "3D view of the total pattern coloured by axial ratio, " +
+                                frequency_text(s.frequencies[fi].frequency_hz);
+                    f.raster_file = fbase + "-3d-axial-ratio.png";
+                    files.push_back({f.raster_file, std::move(*png)});
+                    figs.push_back(f);
+                } else {
+                    doc.note("3D axial-ratio view unavailable: " + png.error().message);
+                }
+            }
             doc.figures(figs);
             doc.note("Curves: " + components_text(comps, s.ludwig3_reference) +
                      (comps.size() > 1 && comps[1] == Component::rhcp

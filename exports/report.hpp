@@ -46,6 +46,8 @@ struct ReportOptions {
     std::string generator = "ellipsa";   // "ellipsa 0.1.0": provenance line
     std::string generated_utc;           // date line; empty leaves it out (reproducible output)
     SnapshotFn snapshot;                 // empty: no 3D view (snapshot_note says why)
+    // A second view coloured by axial ratio, only for data with phase (empty: none).
+    SnapshotFn polarisation_snapshot;
     std::string snapshot_note;
     std::optional<Environment> environment;  // MEG row (Taga 1990) in this environment; none: no MEG row
     ExtraFiguresFn extra_figures;        // further rows, appended after MEG

@@ -32,11 +32,12 @@ for f in rep/*.svg; do xmllint --noout "$f" 2>/dev/null || bad_svg=1; done
 ls rep/ | grep -q -- '-peak\.svg$' && ok "cut through an off-plane peak included" || bad "no peak cut: $(ls rep)"
 ls rep/ | grep -q '^compare-phi0\.svg$' && ok "comparison figures written" || bad "no comparison figures"
 # 3D views: required when this build can render headless (ellipsa render works), else a note.
-if "$E" render a.csv --out probe3d.png --size 64x48 >/dev/null 2>&1; then
+if "$E" render a.csv --out probe3d.png --size 96x72 >/dev/null 2>&1; then
   [[ $(ls rep/*-3d.png 2>/dev/null | wc -l) == 2 ]] && ok "one 3D snapshot per pattern and frequency" || bad "3D snapshots: $(ls rep | grep 3d)"
+  [[ $(ls rep/*-3d-axial-ratio.png 2>/dev/null | wc -l) == 2 ]] && ok "and one coloured by axial ratio (data with phase)" || bad "AR snapshots: $(ls rep | grep 3d)"
   grep -q -- '-3d.png' rep/index.html && grep -q -- '-3d.png' rep/report.md && ok "snapshots shown in both documents" || bad "snapshots not referenced"
 else
-  grep -q '3D view' rep/report.md && ok "no headless renderer here: the report says so" || bad "no snapshots and no note"
+  grep -q "3D view unavailable\|3D views are not included" rep/report.md && ok "no headless renderer here: the report says so" || bad "no snapshots and no note"
 fi
 # Handbook figure in both documents: full-wave dipole D = 3.82 dBi, HPBW 47.8 deg (Balanis sec. 4.5, Table 4.2).
 for d in index.html report.md; do

@@ -198,6 +198,22 @@ TEST_CASE("report: 3D snapshots come in through the callback, failures become a 
     CHECK(find(*ok, "index.html")->bytes.find("p1-d-2450MHz-3d.png") != std::string::npos);
     CHECK(find(*ok, "report.md")->bytes.find("p1-d-2450MHz-3d.png") != std::string::npos);
 
+    // The axial-ratio view is asked for only when the data have phase.
+    int ar_calls = 0;
+    o.polarisation_snapshot = [&](const FarFieldSet&, std::size_t) -> Result<std::string> {
+        ++ar_calls;
+        return std::string("\x89PNG ar");
+    };
+    auto with_ar = build_report(in, o);
+    REQUIRE(with_ar.ok());
+    CHECK(ar_calls == 1);
+    CHECK(find(*with_ar, "p1-d-2450MHz-3d-axial-ratio.png"));
+    std::vector<ReportInput> mag = in;
+    mag[0].set.content = FieldContent::magnitude_only;
+    REQUIRE(build_report(mag, o).ok());
+    CHECK(ar_calls == 1);
+    o.polarisation_snapshot = nullptr;
+
     o.snapshot = [](const FarFieldSet&, std::size_t) -> Result<std::string> { return Error{"", 0, 0, "no EGL display"}; };
     auto noted = build_report(in, o);
     REQUIRE(noted.ok());
