@@ -4,6 +4,7 @@
 
 #include <cmath>
 #include <cstdio>
+#include <cstdlib>
 
 #include "pattern/interpolate.hpp"
 #include "pattern/polarisation.hpp"
@@ -30,12 +31,6 @@ std::string freq_text(double hz) {
     if (hz >= 1e9) std::snprintf(b, sizeof b, "%g GHz", hz / 1e9);
     else if (hz >= 1e6) std::snprintf(b, sizeof b, "%g MHz", hz / 1e6);
     else std::snprintf(b, sizeof b, "%g Hz", hz);
-    return b;
-}
-std::string db_text(double v, const char* unit) {
-    char b[64];
-    if (!std::isfinite(v)) return v < 0 ? std::string("below -300 ") + unit : "n/a";
-    std::snprintf(b, sizeof b, "%.2f %s", v, unit);
     return b;
 }
 std::string opt_text(const std::optional<double>& v, const char* unit, const char* none) {
@@ -290,55 +285,33 @@ Intents draw_surface_panel(AppState& s) {
     return in;
 }
 
-// --- Probe ------------------------------------------------------------------------------------
-std::vector<ProbeRow> probe_rows(const FarFieldSet& set, std::size_t k, double th, double ph) {
-    std::vector<ProbeRow> rows;
-    char b[128];
-    std::snprintf(b, sizeof b, "\u03b8 %.1f\u00b0   \u03c6 %.1f\u00b0", th, ph);
-    rows.push_back({"Direction", b});
-    auto f = interpolate(set, k, th, ph);
-    if (!f) {
-        rows.push_back({"", "outside the sampled region"});
-        return rows;
-    }
-    const PolarisationState st = decompose(f->e_theta, f->e_phi, ph * deg, set.ludwig3_reference);
-    for (Component c : all_components) {
-        if (!unavailable_reason(set, c).empty()) continue;
-        rows.push_back({label_of(c), db_text(to_db(component_power(st, c)), db_unit(set.quantity, c).c_str())});
-    }
-    if (!set.has_phase()) {
-        rows.push_back({"Polarisation", "needs phase (file is " + std::string(to_string(set.content)) + ")"});
-        return rows;
-    }
-    if (std::isinf(st.axial_ratio))
-        rows.push_back({"Axial ratio", "infinite (linear)"});
-    else if (std::isnan(st.axial_ratio))
-        rows.push_back({"Axial ratio", "n/a (no field)"});
-    else
-        rows.push_back({"Axial ratio", db_text(20 * std::log10(st.axial_ratio), "dB")});
-    std::snprintf(b, sizeof b, "%.1f\u00b0", st.tilt_deg);
-    rows.push_back({"Tilt", b});
-    rows.push_back({"Sense", st.sense == Sense::right  ? "right-hand"
-                             : st.sense == Sense::left ? "left-hand"
-                             : st.sense == Sense::linear ? "linear"
-                                                         : "no field"});
-    const Stokes& S = st.stokes;
-    if (S.i > 0) {
-        std::snprintf(b, sizeof b, "%.4g", S.i);
-        rows.push_back({"Stokes I", b});
-        std::snprintf(b, sizeof b, "%+.2f %+.2f %+.2f", S.q / S.i, S.u / S.i, S.v / S.i);
-        rows.push_back({"Q/I U/I V/I", b});
-    }
-    return rows;
-}
-
+// --- Probe ---
 void draw_probe_panel(AppState& s) {
     const LoadedPattern* a = s.active_pattern();
     if (!a) return;
+    const LoadedPattern* b = s.compare_pattern();
     auto show = [&](const char* title, const Pick& p) {
         ImGui::TextUnformatted(title);
         if (ImGui::BeginTable(title, 2, ImGuiTableFlags_SizingStretchProp | ImGuiTableFlags_RowBg)) {
             for (const ProbeRow& r : probe_rows(a->set, s.freq, p.theta_deg, p.phi_deg)) row(r.label.c_str(), r.value, definition(r.label));
+            if (b) {
+                // The compared pattern at the same direction: its shown component and A minus B.
+                const Component c = s.settings.component;
+                const std::vector<ProbeRow> rb = probe_rows(b->set, s.freq_for(*b), p.theta_deg, p.phi_deg);
+                const std::vector<ProbeRow> ra = probe_rows(a->set, s.freq, p.theta_deg, p.phi_deg);
+                for (const ProbeRow& r : rb)
+                    if (r.label == label_of(c)) {
+                        row(("B: " + r.label).c_str(), r.value, "The same component of the compared pattern B");
+                        for (const ProbeRow& q : ra)
+                            if (q.label == r.label) {
+                                const double va = std::atof(q.value.c_str()), vb = std::atof(r.value.c_str());
+                                char d[48];
+                                std::snprintf(d, sizeof d, "%+.2f dB", va - vb);
+                                if (q.value.find("inf") == std::string::npos && r.value.find("inf") == std::string::npos)
+                                    row("A minus B", d, "Difference of the shown component, dB");
+                            }
+                    }
+            }
             ImGui::EndTable();
         }
     };

@@ -5,6 +5,7 @@
 #include <vector>
 
 #include "viewer/app_state.hpp"
+#include "viewer/scene/probe.hpp"
 
 namespace ellipsa::viewer {
 
@@ -30,10 +31,5 @@ void draw_help_overlay(AppState& s);
 // The first-run orientation: what each panel shows, dismissable (remembered in the settings).
 void draw_intro_overlay(AppState& s);
 
-// The figures of one direction, as label/value rows (for the probe panel and tests of the UI).
-struct ProbeRow {
-    std::string label, value;
-};
-std::vector<ProbeRow> probe_rows(const FarFieldSet& set, std::size_t freq, double theta_deg, double phi_deg);
 
 }  // namespace ellipsa::viewer
