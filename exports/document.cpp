@@ -117,6 +117,7 @@ std::string to_html(const Document& d) {
     std::string o = "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\"/>\n";
     o += "<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\"/>\n";
     o += "<title>" + html_escape(d.title) + "</title>\n<style>" + std::string(kStyle) + "</style>\n</head>\n<body>\n<main>\n";
+    o += "<h1>" + html_escape(d.title) + "</h1>\n";
     for (const DocBlock& b : d.blocks) {
         switch (b.kind) {
             case DocBlock::Kind::heading: {

@@ -84,6 +84,8 @@ TEST_CASE("report: files, self-contained HTML, same figures in HTML and Markdown
     CHECK(names.count("compare-theta90.png") == 1);
 
     // Self-contained: no URL schemes, and every image or link points at a file of the report.
+    CHECK(html->bytes.find("<h1>Antenna pattern report</h1>") != std::string::npos);
+    CHECK(md->bytes.rfind("# Antenna pattern report\n", 0) == 0);
     CHECK(html->bytes.find("http") == std::string::npos);
     CHECK(html->bytes.find("<script") == std::string::npos);
     std::regex ref(R"re((?:src|href)="([^"]+)")re");
