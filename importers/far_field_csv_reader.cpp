@@ -218,6 +218,7 @@ void for_each_row(Context& ctx, Chunk& c, bool first_pass, double progress_base,
             if (ctx.mapped && done - released > (2u << 20)) {
                 ctx.mapped->release(released, done - released);
                 released = done;
+                ctx.mapped->prefetch(done, std::min<std::size_t>(c.end - done, 2u << 20));
             }
             if (progress_span > 0 && ctx.options->progress) {
                 const double f = double(done - c.begin) / double(std::max<std::size_t>(1, c.end - c.begin));

@@ -68,6 +68,18 @@ void MappedFile::release(std::size_t offset, std::size_t length) const {
     if (b > a) ::madvise(const_cast<char*>(data_) + a, b - a, MADV_DONTNEED);
 }
 
+void MappedFile::prefetch(std::size_t offset, std::size_t length) const {
+#ifndef MADV_POPULATE_READ
+#define MADV_POPULATE_READ 22
+#endif
+    if (!mapped_ || offset >= size_) return;
+    if (length > size_ - offset) length = size_ - offset;
+    const std::size_t page = std::size_t(::sysconf(_SC_PAGESIZE));
+    const std::size_t a = offset / page * page;
+    // Best effort: older kernels answer EINVAL and the pages fault in as usual.
+    ::madvise(const_cast<char*>(data_) + a, offset + length - a, MADV_POPULATE_READ);
+}
+
 std::size_t available_memory_bytes() {
     std::FILE* f = std::fopen("/proc/meminfo", "r");
     if (!f) return 0;

@@ -29,6 +29,8 @@ public:
     // Tell the kernel the bytes [offset, offset + length) are not needed for now (resident
     // memory drops; a later read faults them back in from the page cache).
     void release(std::size_t offset, std::size_t length) const;
+    // Map the pages of [offset, offset + length) now, in one call, instead of one fault at a time.
+    void prefetch(std::size_t offset, std::size_t length) const;
 
 private:
     const char* data_ = nullptr;
