@@ -15,7 +15,7 @@ struct ViewArgs {
     bool software = false, frame_stats = false;
     std::string size, screenshot;
     int frames = 0;
-    std::string component, color_by, pin, view, export_cut, export_view;
+    std::string component, color_by, pin, view, export_cut, export_view, cursor;
     int compare = 0;
     bool wireframe = false, translucent = false;
     bool diversity = false;
@@ -42,6 +42,7 @@ Registered add_view(CLI::App& root) {
     sub->add_option("--pin", a->pin, "Start with THETA,PHI (deg) pinned, and the cut through it");
     sub->add_option("--view", a->view, "Start looking from AZ,EL (deg)");
     sub->add_flag("--wireframe", a->wireframe, "Start with the wireframe on");
+    sub->add_option("--cursor", a->cursor, "With --frames: hold the mouse pointer at X,Y window pixels (probe screenshots)");
     sub->add_option("--export-view", a->export_view, "With --frames: export the 3D view of the last frame as PNG (as Ctrl+E)");
     sub->add_option("--export-cut", a->export_cut, "With --frames: write the cut of the last frame (.svg, .png, .pdf or .csv)");
     sub->add_flag("--translucent", a->translucent, "Start with a translucent surface");
@@ -84,6 +85,13 @@ Registered add_view(CLI::App& root) {
                 }
                 o.export_cut = a->export_cut;
                 o.export_view = a->export_view;
+                if (!a->cursor.empty()) {
+                    if (a->frames == 0 || !parse_pair(a->cursor, o.cursor_x, o.cursor_y)) {
+                        std::cerr << "ellipsa view: --cursor expects X,Y in pixels and needs --frames N, found '" << a->cursor << "'\n";
+                        return exit_usage;
+                    }
+                    o.has_cursor = true;
+                }
                 if (!a->export_view.empty() && a->frames == 0) {
                     std::cerr << "ellipsa view: --export-view needs --frames N\n";
                     return exit_usage;

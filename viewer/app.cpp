@@ -348,6 +348,7 @@ int run_viewer(const ViewerOptions& opt) {
     int exit_code = 0;
     while (!glfwWindowShouldClose(win)) {
         const auto t0 = std::chrono::steady_clock::now();
+        if (opt.has_cursor) glfwSetCursorPos(win, opt.cursor_x, opt.cursor_y);
         glfwPollEvents();
         if (!g_dropped.empty()) {
             open_files(s, g_dropped);

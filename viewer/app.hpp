@@ -21,6 +21,8 @@ struct ViewerOptions {
     double view_azimuth_deg = 0, view_elevation_deg = 0;
     int compare = -1;                 // index of the B pattern among the files
     bool wireframe = false, translucent = false;
+    bool has_cursor = false;          // place the pointer at (cursor_x, cursor_y) window pixels each frame
+    double cursor_x = 0, cursor_y = 0;
     std::string export_view;          // with frames: export the 3D view of the last frame (headless snapshot)
     std::string export_cut;           // with frames: write the cut shown in the last frame (.svg/.png/.pdf/.csv)
     bool diversity_panel = false;     // start with the diversity panel open

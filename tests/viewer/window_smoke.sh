@@ -9,5 +9,7 @@ fi
 out=$(mktemp -d)
 trap 'rm -rf "$out"' EXIT
 export XDG_CONFIG_HOME="$out/config"
-"$XVFB_RUN" -a -s "-screen 0 1400x900x24" "$ELLIPSA" view ${VIEW_EXTRA:-} --size 1280x800 --frames 5 --screenshot "$out/shot.png"
+# The pointer rests over the 3D view, so hover picking and the probe run too.
+"$XVFB_RUN" -a -s "-screen 0 1400x900x24" "$ELLIPSA" view ${VIEW_EXTRA:-} --size 1280x800 --frames 5 --cursor 620,240 \
+  --screenshot "$out/shot.png"
 "$PNG_CHECK" "$out/shot.png" 1280 800 0.03
