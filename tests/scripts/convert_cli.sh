@@ -47,5 +47,18 @@ ln -sf x.csv link.csv
   && ok "--map/--offset/--assume give the same file as the map file" || bad "options differ from map file"
 "$E" info "$SRC/tests/data/csv/foreign/range3.csv" --map-file "$SRC/tests/data/csv/foreign/range3.map" --map "Nope=theta" 2>err.txt; rc=$?
 [[ $rc == 1 ]] && grep -q 'range3.csv:1: --map: expected a column named "Nope"' err.txt && ok "a map entry matching nothing is refused" || bad "unused map: $rc $(cat err.txt)"
+R3="$SRC/tests/data/csv/foreign/range3.csv"; M3="$SRC/tests/data/csv/foreign/range3.map"
+"$E" info "$R3" --map "@$M3" >/dev/null && ok "--map @FILE reads a map file" || bad "--map @FILE"
+"$E" info "$R3" --map-file "$M3" --scale "e_total_db=x" 2>err.txt; rc=$?
+[[ $rc == 1 ]] && grep -q -- '--scale: expected a finite number after "e_total_db="' err.txt && ok "--scale needs a number" || bad "--scale: $rc $(cat err.txt)"
+"$E" info "$R3" --map-file "$M3" --scale "gain=2" 2>err.txt; rc=$?
+[[ $rc == 1 ]] && grep -q -- '--scale: expected a schema column name, found "gain"' err.txt && ok "--scale needs a schema column" || bad "--scale column: $rc $(cat err.txt)"
+"$E" info "$R3" --map-file "$M3" --assume "colour=red" 2>err.txt; rc=$?
+[[ $rc == 1 ]] && grep -q -- '--assume: expected a metadata key' err.txt && ok "--assume needs a metadata key" || bad "--assume key: $rc $(cat err.txt)"
+"$E" info "$R3" --map-file "$M3" --assume "angle-unit=grad" 2>err.txt; rc=$?
+[[ $rc == 1 ]] && grep -q -- '--assume: angle-unit: expected deg or rad, found "grad"' err.txt && ok "--assume values are checked" || bad "--assume value: $rc $(cat err.txt)"
+printf 'column: Sample = ignore\nscale: e_total_db 2\n' > broken.map
+"$E" info "$R3" --map-file broken.map 2>err.txt; rc=$?
+[[ $rc == 1 ]] && grep -q 'broken.map:2:8: expected "name = value"' err.txt && ok "map file errors name file:line:column" || bad "map file error: $rc $(cat err.txt)"
 echo "$pass passed, $fail failed"
 [[ $fail == 0 ]]
