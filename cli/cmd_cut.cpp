@@ -45,6 +45,11 @@ int fail(int code, const std::string& msg) {
 int run_cut(const CutArgs& a) {
     const int chosen = int(a.phi_deg.has_value()) + int(a.theta_deg.has_value()) + int(a.through_peak);
     if (chosen != 1) return fail(exit_usage, "choose exactly one cut: --phi DEG, --theta DEG or --through-peak");
+    // CLI11's range checks let NaN through; every angle and level must be a finite number.
+    if (!std::isfinite(a.range_db)) return fail(exit_usage, "--range: expected a number of dB from 3 to 200");
+    if (a.step_deg && !std::isfinite(*a.step_deg)) return fail(exit_usage, "--step: expected 0.01..10 deg");
+    if (a.phi_deg && !std::isfinite(*a.phi_deg)) return fail(exit_usage, "--phi: expected a finite angle in deg");
+    if (a.theta_deg && !std::isfinite(*a.theta_deg)) return fail(exit_usage, "--theta: expected 0..180 deg");
     const auto format = format_from_path(a.out);
     if (!format) return fail(exit_usage, "--out " + a.out + ": expected a file name ending in .svg, .png, .pdf or .csv");
     PlotStyle style;

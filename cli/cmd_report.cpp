@@ -47,6 +47,8 @@ int fail(int code, const std::string& msg) {
 std::string first_line(const std::string& s) { return s.substr(0, s.find('\n')); }
 
 int run_report(const ReportArgs& a) {
+    if (!std::isfinite(a.range_db)) return fail(exit_usage, "--range: expected a number of dB from 3 to 200");
+    if (a.xpr_db && std::isnan(*a.xpr_db)) return fail(exit_usage, "--xpr: expected a number of dB");
     auto size = parse_size(a.size, a.dpi);
     if (!size) return fail(exit_usage, size.error().format());
     ReportOptions o;

@@ -85,6 +85,11 @@ expect_rc 2 "bad size is bad usage" "$E" cut d.csv --phi 0 --size 12by10 --out u
 expect_rc 2 "unknown component is bad usage" "$E" cut d.csv --phi 0 --components total,circular --out u.svg
 grep -q 'circular' err.txt && ok "message names the unknown component" || bad "message: $(cat err.txt)"
 expect_rc 2 "theta outside 0..180 is bad usage" "$E" cut d.csv --theta 200 --out u.svg
+for o in "--range nan" "--step nan" "--dpi nan"; do
+  expect_rc 2 "$o is bad usage" "$E" cut d.csv --theta 90 $o --out u.svg
+done
+expect_rc 2 "--phi nan is bad usage" "$E" cut d.csv --phi nan --out u.svg
+grep -q -- '--phi: expected a finite angle' err.txt && ok "message: $(head -1 err.txt)" || bad "message: $(cat err.txt)"
 expect_rc 1 "missing input file is bad input" "$E" cut nope.csv --phi 0 --out u.svg
 [[ ! -e u.svg ]] && ok "nothing written on errors" || bad "u.svg written despite errors"
 
