@@ -7,6 +7,7 @@
 #include <algorithm>
 #include <chrono>
 #include <cmath>
+#include <csignal>
 #include <cstdio>
 #include <cstdlib>
 #include <ctime>
@@ -51,7 +52,10 @@ const PatternSummary* AppState::summary() {
 }
 
 namespace {
-std::vector<std::string> g_dropped;  // filled by the GLFW drop callback, drained each frame
+std::vector<std::string> g_dropped;
+// Ctrl+C or a polite kill closes the window normally, so the settings are still saved.
+volatile std::sig_atomic_t g_stop = 0;
+extern "C" void on_stop_signal(int) { g_stop = 1; }  // filled by the GLFW drop callback, drained each frame
 
 double ms_since(std::chrono::steady_clock::time_point t0) {
     return std::chrono::duration<double, std::milli>(std::chrono::steady_clock::now() - t0).count();
@@ -262,6 +266,8 @@ std::string export_name() {
 }  // namespace
 
 int run_viewer(const ViewerOptions& opt) {
+    std::signal(SIGINT, on_stop_signal);
+    std::signal(SIGTERM, on_stop_signal);
     AppState s;
     DiversityPanelState diversity;  // the diversity panel (viewer/panel_diversity.hpp)
     diversity.open = opt.diversity_panel;
@@ -346,7 +352,7 @@ int run_viewer(const ViewerOptions& opt) {
     ImVec2 press_pos;
     int frame = 0;
     int exit_code = 0;
-    while (!glfwWindowShouldClose(win)) {
+    while (!glfwWindowShouldClose(win) && (!g_stop || frame == 0)) {
         const auto t0 = std::chrono::steady_clock::now();
         if (opt.has_cursor) glfwSetCursorPos(win, opt.cursor_x, opt.cursor_y);
         glfwPollEvents();

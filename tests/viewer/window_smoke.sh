@@ -13,3 +13,13 @@ export XDG_CONFIG_HOME="$out/config"
 "$XVFB_RUN" -a -s "-screen 0 1400x900x24" "$ELLIPSA" view ${VIEW_EXTRA:-} --size 1280x800 --frames 5 --cursor 620,240 \
   --screenshot "$out/shot.png"
 "$PNG_CHECK" "$out/shot.png" 1280 800 0.03
+# Settings persist: an interactive run (no --frames) that is closed by SIGTERM saves viewer.conf
+# and imgui.ini under $XDG_CONFIG_HOME/ellipsa, with the opened file in the recent list.
+if [[ -z "${VIEW_EXTRA:-}" ]]; then
+  "$ELLIPSA" synth small-loop --step 3 --out "$out/loop.csv" >/dev/null
+  "$XVFB_RUN" -a -s "-screen 0 1400x900x24" bash -c \
+    '"$0" view "$1" --size 800x600 & p=$!; sleep 6; kill -TERM $p; wait $p' "$ELLIPSA" "$out/loop.csv"
+  grep -q "^recent = .*loop.csv$" "$XDG_CONFIG_HOME/ellipsa/viewer.conf"
+  grep -q "^window_width = 800$" "$XDG_CONFIG_HOME/ellipsa/viewer.conf"
+  [[ -s "$XDG_CONFIG_HOME/ellipsa/imgui.ini" ]]
+fi
