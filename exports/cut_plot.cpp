@@ -428,6 +428,7 @@ void draw_polar(Pen& pen, const CutPlot& p, double x0, double y0, double x1, dou
     cairo_set_line_join(cr, CAIRO_LINE_JOIN_ROUND);
     cairo_set_line_cap(cr, CAIRO_LINE_CAP_ROUND);
     for (std::size_t i = 0; i < p.curves.size(); ++i) {
+        if (!p.curves[i].beam) continue;  // no power anywhere on the cut: nothing to draw (the legend says so)
         bool pen_down = false;
         walk_curve(p.curves[i], sc, [&](double a, double f, bool ok) {
             if (!ok) {
@@ -584,6 +585,7 @@ void draw_rect(Pen& pen, const CutPlot& p, double x0, double y0, double x1, doub
     cairo_set_line_join(cr, CAIRO_LINE_JOIN_ROUND);
     cairo_set_line_cap(cr, CAIRO_LINE_CAP_ROUND);
     for (std::size_t i = 0; i < p.curves.size(); ++i) {
+        if (!p.curves[i].beam) continue;  // no power anywhere on the cut: nothing to draw (the legend says so)
         bool pen_down = false;
         double last_a = -1e300;
         walk_curve(p.curves[i], sc, [&](double a, double f, bool ok) {

@@ -32,7 +32,7 @@ for c in "$C1" "$C2" "$C3"; do
   n=$(count_paths c.svg "$c"); [[ $n == 2 ]] && ok "SVG: curve + legend swatch in $c" || bad "SVG: $n paths in $c, expected 2"
 done
 n=$(count_paths c.svg "$C4"); [[ $n == 0 ]] && ok "SVG: no fourth curve" || bad "SVG: $n paths in a fourth colour"
-expect_rc 0 "rect style SVG" "$E" cut x.csv --theta 90 --components theta,phi --style rect --out r.svg
+expect_rc 0 "rect style SVG" "$E" cut x.csv --theta 90 --components total,phi --style rect --out r.svg
 xmllint --noout r.svg 2>/dev/null && ok "rect SVG well-formed" || bad "rect SVG not well-formed"
 n1=$(count_paths r.svg "$C1"); n3=$(count_paths r.svg "$C3")
 [[ $n1 == 2 && $n3 == 0 ]] && ok "rect SVG: two curves" || bad "rect SVG: colour counts $n1/$n3"

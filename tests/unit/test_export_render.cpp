@@ -82,6 +82,22 @@ TEST_CASE("SVG export: one stroked path per curve and one per legend swatch", "[
     }
 }
 
+TEST_CASE("SVG export: a component with no power on the cut draws no curve", "[export]") {
+    // z dipole on an elevation cut: the phi component is zero everywhere (Balanis sec. 4.2).
+    ReferenceAntenna a;
+    a.kind = ReferenceKind::short_dipole;
+    const FarFieldSet s = synthesize(a, 2.0, 1e9);
+    auto cut = compute_cut(s, 0, CutSpec::phi_cut(0), {Component::total, Component::phi});
+    REQUIRE(cut.ok());
+    for (PlotStyle style : {PlotStyle::polar, PlotStyle::rect}) {
+        FigureOptions o;
+        o.style = style;
+        const std::string svg = render(make_cut_plot(s, *cut, o), FileFormat::svg);
+        CHECK(count(svg, stroke_of(curve_colour(0))) == 2);  // total: curve + swatch
+        CHECK(count(svg, stroke_of(curve_colour(1))) == 1);  // phi: swatch only
+    }
+}
+
 TEST_CASE("PDF export starts and ends like a PDF file", "[export]") {
     const std::string pdf = render(dipole_plot(PlotStyle::polar, {Component::total}), FileFormat::pdf);
     CHECK(pdf.rfind("%PDF-", 0) == 0);
