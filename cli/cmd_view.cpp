@@ -15,7 +15,7 @@ struct ViewArgs {
     bool software = false, frame_stats = false;
     std::string size, screenshot;
     int frames = 0;
-    std::string component, color_by, pin, view, export_cut, export_view, cursor;
+    std::string component, color_by, pin, view, export_cut, export_view, cursor, cut_style;
     int compare = 0;
     bool wireframe = false, translucent = false;
     bool diversity = false;
@@ -45,6 +45,7 @@ Registered add_view(CLI::App& root) {
     sub->add_option("--cursor", a->cursor, "With --frames: hold the mouse pointer at X,Y window pixels (probe screenshots)");
     sub->add_option("--export-view", a->export_view, "With --frames: export the 3D view of the last frame as PNG (as Ctrl+E)");
     sub->add_option("--export-cut", a->export_cut, "With --frames: write the cut of the last frame (.svg, .png, .pdf or .csv)");
+    sub->add_option("--cut-style", a->cut_style, "Start with a polar or rect cut plot")->check(CLI::IsMember({"polar", "rect"}));
     sub->add_flag("--translucent", a->translucent, "Start with a translucent surface");
     sub->add_flag("--diversity", a->diversity, "Start with the diversity panel open (MEG, ECC, orientation curve)");
     return {sub, [a]() -> int {
@@ -101,6 +102,7 @@ Registered add_view(CLI::App& root) {
                 o.compare = a->compare - 1;
                 o.wireframe = a->wireframe;
                 o.translucent = a->translucent;
+                if (!a->cut_style.empty()) o.cut_style = a->cut_style == "rect" ? 1 : 0;
                 o.diversity_panel = a->diversity;
                 if (!a->pin.empty()) {
                     if (!parse_pair(a->pin, o.pin_theta_deg, o.pin_phi_deg) || o.pin_theta_deg < 0 || o.pin_theta_deg > 180) {

@@ -337,6 +337,7 @@ int run_viewer(const ViewerOptions& opt) {
     if (opt.has_view) s.camera.azimuth_deg = opt.view_azimuth_deg, s.camera.elevation_deg = std::clamp(opt.view_elevation_deg, -89.5, 89.5);
     if (opt.wireframe) s.settings.wireframe = true;
     if (opt.translucent) s.settings.translucent = true;
+    if (opt.cut_style >= 0) s.settings.polar_plot = opt.cut_style == 0;
     if (opt.has_pin) {
         Pick p;
         p.theta_deg = opt.pin_theta_deg;

@@ -86,7 +86,9 @@ void plot_rect(ImDrawList* dl, ImVec2 p0, ImVec2 p1, const CutData& cd, double t
         const ImVec2 ts = ImGui::CalcTextSize(b);
         dl->AddText(ImVec2(p0.x - ts.x - 4, Y(lv) - ts.y * 0.5f), muted, b);
     }
-    for (int a = int(a0); a <= int(a1); a += 45) {
+    const int xstep = (p1.x - p0.x) / 8 < 48 ? 90 : 45;
+    dl->AddText(ImVec2(p0.x - 36, p0.y - 17), muted, cd.unit.c_str());
+    for (int a = int(a0); a <= int(a1); a += xstep) {
         dl->AddLine(ImVec2(X(a), p0.y), ImVec2(X(a), p1.y), grid);
         char b[16];
         std::snprintf(b, sizeof b, "%d\u00b0", a);
@@ -199,7 +201,7 @@ Intents draw_cut_panel(AppState& s) {
         const float R = std::max(20.0f, std::min(plot_w, plot_h) * 0.5f - 24);
         plot_polar(dl, ImVec2(o.x + plot_w * 0.5f, o.y + plot_h * 0.5f), R, cd, top, range);
     } else {
-        plot_rect(dl, ImVec2(o.x + 40, o.y + 8), ImVec2(o.x + plot_w - 10, o.y + plot_h - 22), cd, top, range);
+        plot_rect(dl, ImVec2(o.x + 40, o.y + 18), ImVec2(o.x + plot_w - 14, o.y + plot_h - 24), cd, top, range);
     }
     // Legend and readouts.
     float ly = o.y + 4;
@@ -221,7 +223,7 @@ Intents draw_cut_panel(AppState& s) {
     dl->AddText(ImVec2(lx, ly), ink, b);
     ly += 18;
     if (bf.hpbw_deg)
-        std::snprintf(b, sizeof b, "HPBW %.1f\u00b0 (circles)", *bf.hpbw_deg);
+        std::snprintf(b, sizeof b, st.polar_plot ? "HPBW %.1f\u00b0 (circles)" : "HPBW %.1f\u00b0 (ticks)", *bf.hpbw_deg);
     else
         std::snprintf(b, sizeof b, "HPBW: no -3 dB points");
     dl->AddText(ImVec2(lx, ly), ink, b);
