@@ -90,9 +90,20 @@ Rgb map_color(ColorMap m, double t) {
         case ColorMap::diverging: return from_table(rdbu9, t);
         case ColorMap::cyclic: {
             // Constant lightness and chroma, hue going once round: L* 68, C* 38 stays inside sRGB.
-            double w = t - std::floor(t);
-            const double h = 2 * 3.14159265358979323846 * w;
-            return lab_to_rgb(68, 38 * std::cos(h), 38 * std::sin(h));
+            // Tabulated once (512 steps, linear in between): lab_to_rgb costs several pow() calls.
+            static const std::array<Rgb, 513> table = [] {
+                std::array<Rgb, 513> tb{};
+                for (int k = 0; k <= 512; ++k) {
+                    const double h = 2 * 3.14159265358979323846 * k / 512;
+                    tb[std::size_t(k)] = lab_to_rgb(68, 38 * std::cos(h), 38 * std::sin(h));
+                }
+                return tb;
+            }();
+            const double w = (t - std::floor(t)) * 512;
+            const std::size_t i = std::min<std::size_t>(std::size_t(w), 511);
+            const float f = float(w - double(i));
+            const Rgb &a = table[i], &b = table[i + 1];
+            return {a.r + f * (b.r - a.r), a.g + f * (b.g - a.g), a.b + f * (b.b - a.b)};
         }
     }
     return {};

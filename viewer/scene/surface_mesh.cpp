@@ -190,13 +190,17 @@ Result<SurfaceMesh> build_surface(const FarFieldSet& s, std::size_t k, const Sur
     });
     // Triangles: two per grid cell.
     m.triangles.resize(std::size_t(std::max(nt - 1, 0)) * std::size_t(std::max(m.cols - 1, 0)) * 6);
-    std::uint32_t* tri = m.triangles.data();
-    for (int i = 0; i + 1 < nt; ++i)
-        for (int j = 0; j + 1 < m.cols; ++j) {
-            const std::uint32_t a = std::uint32_t(i * m.cols + j), b = a + 1, c = a + std::uint32_t(m.cols), d = c + 1;
-            tri[0] = a, tri[1] = c, tri[2] = b, tri[3] = b, tri[4] = c, tri[5] = d;
-            tri += 6;
+    const std::size_t bands = std::size_t(std::max(nt - 1, 0)), per_band = std::size_t(std::max(m.cols - 1, 0)) * 6;
+    parallel_blocks(bands, std::max<std::size_t>(1, 4 * min_block / std::max<std::size_t>(per_band, 1)), [&](std::size_t ia, std::size_t ib) {
+        for (std::size_t i = ia; i < ib; ++i) {
+            std::uint32_t* tri = m.triangles.data() + i * per_band;
+            for (int j = 0; j + 1 < m.cols; ++j) {
+                const std::uint32_t a = std::uint32_t(i * std::size_t(m.cols) + std::size_t(j)), b = a + 1, c = a + std::uint32_t(m.cols), d = c + 1;
+                tri[0] = a, tri[1] = c, tri[2] = b, tri[3] = b, tri[4] = c, tri[5] = d;
+                tri += 6;
+            }
         }
+    });
     // Coarser levels of detail over the same vertices.
     auto coarse = [&](int k, std::vector<std::uint32_t>& out) {
         std::vector<int> rows_k, cols_k;
@@ -204,12 +208,14 @@ Result<SurfaceMesh> build_surface(const FarFieldSet& s, std::size_t k, const Sur
         if (rows_k.back() != nt - 1) rows_k.push_back(nt - 1);
         for (int j = 0; j < m.cols; j += k) cols_k.push_back(j);
         if (cols_k.back() != m.cols - 1) cols_k.push_back(m.cols - 1);
-        out.reserve((rows_k.size() - 1) * (cols_k.size() - 1) * 6);
+        out.resize((rows_k.size() - 1) * (cols_k.size() - 1) * 6);
+        std::uint32_t* w = out.data();
         for (std::size_t a = 0; a + 1 < rows_k.size(); ++a)
             for (std::size_t b = 0; b + 1 < cols_k.size(); ++b) {
                 const std::uint32_t v00 = std::uint32_t(rows_k[a] * m.cols + cols_k[b]), v01 = std::uint32_t(rows_k[a] * m.cols + cols_k[b + 1]);
                 const std::uint32_t v10 = std::uint32_t(rows_k[a + 1] * m.cols + cols_k[b]), v11 = std::uint32_t(rows_k[a + 1] * m.cols + cols_k[b + 1]);
-                out.insert(out.end(), {v00, v10, v01, v01, v10, v11});
+                w[0] = v00, w[1] = v10, w[2] = v01, w[3] = v01, w[4] = v10, w[5] = v11;
+                w += 6;
             }
     };
     m.grid_step_deg = std::min(g.theta.step_deg, g.phi.step_deg);
