@@ -109,11 +109,6 @@ Error to_error(std::string_view text, const std::string& file, const Failure& f)
     return Error{file, line_number_at(text, f.line_offset), f.column, f.message};
 }
 
-const std::vector<std::string>& csv_schema_columns_impl() {
-    static const std::vector<std::string> v(names, names + c_count);
-    return v;
-}
-
 Result<Layout> read_layout(std::string_view text, const std::string& file, const CsvReadOptions& o) {
     Layout L;
     auto fail = [&](std::size_t off, long col, std::string msg) -> Error {

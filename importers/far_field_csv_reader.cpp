@@ -102,11 +102,6 @@ std::vector<Value> merged(const std::vector<const DistinctValues*>& sets, double
     return out;
 }
 
-// The cell values a row gives, by role, after scale/offset.
-struct Cells {
-    double v[c_count];
-};
-
 struct Chunk {
     std::size_t begin = 0, end = 0;
     // pass 1
@@ -121,7 +116,6 @@ struct Chunk {
         std::size_t line_offset;
     };
     std::vector<Alias> aliases;
-    double peak_power = 0;
     Failure failure;
 };
 
@@ -591,7 +585,6 @@ void pass2(Context& ctx, Chunk& c, bool report_progress) {
             }
         }
         const double pw = std::norm(et) + std::norm(ep);
-        if (pw > c.peak_power) c.peak_power = pw;
         if (alias) {
             c.aliases.push_back({fk, k, et, ep, std::size_t(p - base)});
             return true;
