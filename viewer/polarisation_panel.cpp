@@ -25,12 +25,15 @@ void draw_ellipse(ImDrawList* dl, ImVec2 c, float r, cplx et, cplx ep) {
     const std::vector<PlanePoint> path = ellipse_path(et, ep, 96);
     if (path.empty()) return;
     const Stokes st = stokes(et, ep);
-    const ImU32 col = std::abs(st.v) <= 1e-6 * st.i ? ink : (st.v > 0 ? right_col : left_col);
+    // As on the surface glyphs: above 40 dB axial ratio the ellipse is drawn as linear (black, no arrow).
+    const double ar = axial_ratio(et, ep);
+    const bool linear = !(20 * std::log10(ar) < 40);
+    const ImU32 col = linear ? ink : (st.v > 0 ? right_col : left_col);
     std::vector<ImVec2> pts;
     for (const PlanePoint& p : path) pts.push_back(ImVec2(c.x + r * float(p.x), c.y - r * float(p.y)));
     dl->AddPolyline(pts.data(), int(pts.size()), col, ImDrawFlags_Closed, 2.0f);
     // Arrow at w t = 0 along the direction of travel.
-    if (std::abs(st.v) > 1e-6 * st.i) {
+    if (!linear) {
         ImVec2 a = pts[0], b = pts[3];
         float vx = b.x - a.x, vy = b.y - a.y, len = std::sqrt(vx * vx + vy * vy);
         if (len > 0) {
@@ -110,7 +113,7 @@ Intents draw_polarisation_panel(AppState& s) {
     if (f)
         draw_ellipse(dl, ImVec2(o.x + size * 0.5f, o.y + size * 0.5f + 4), size * 0.42f, f->e_theta, f->e_phi);
     else
-        dl->AddText(ImVec2(o.x + 4, o.y + size * 0.4f), IM_COL32(120, 120, 120, 255), "pin a direction");
+        dl->AddCircle(ImVec2(o.x + size * 0.5f, o.y + size * 0.5f + 4), size * 0.42f, faint, 64, 1.0f);
     // Right: the Poincare sphere.
     auto& pc = s.poincare;
     if (pc.generation != s.generation || pc.active != s.active || pc.freq != s.freq || pc.within_db != s.settings.poincare_within_db) {
@@ -122,9 +125,10 @@ Intents draw_polarisation_panel(AppState& s) {
     if (f) mark = poincare_point(stokes(f->e_theta, f->e_phi));
     draw_poincare(dl, ImVec2(o.x + w - size * 0.58f, o.y + size * 0.5f + 4), size * 0.38f, cloud, f ? &mark : nullptr);
     ImGui::Dummy(ImVec2(w, size + 8));
-    ImGui::TextDisabled(p ? (s.pinned ? "Ellipse at the pinned direction," : "Ellipse under the cursor,") : "");
-    ImGui::SameLine();
-    ImGui::TextDisabled("seen along propagation");
+    ImGui::PushTextWrapPos(0);
+    ImGui::TextDisabled("%s", p ? (s.pinned ? "Left: the field at the pin, seen along propagation." : "Left: the field under the cursor, seen along propagation.")
+                                : "Left: pin a direction to see its ellipse.");
+    ImGui::PopTextWrapPos();
     float within = float(s.settings.poincare_within_db);
     ImGui::SetNextItemWidth(-150);
     if (ImGui::SliderFloat("##within", &within, 0.5f, 20, "within %.1f dB of peak")) s.settings.poincare_within_db = within;
