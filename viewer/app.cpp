@@ -13,6 +13,7 @@
 #include <ctime>
 #include <filesystem>
 #include <iostream>
+#include <thread>
 
 #define GLFW_INCLUDE_NONE
 #include <GLFW/glfw3.h>
@@ -61,12 +62,12 @@ double ms_since(std::chrono::steady_clock::time_point t0) {
     return std::chrono::duration<double, std::milli>(std::chrono::steady_clock::now() - t0).count();
 }
 
-void open_files(AppState& s, const std::vector<std::string>& files, const std::string& map = "") {
-    for (const std::string& f : files) {
-        auto r = load_pattern_file(f, map);
+// Take a finished read into the pattern list (or show its error; nothing else changes).
+void accept_loaded(AppState& s, const std::string& f, Result<FarFieldSet> r) {
+    {
         if (!r) {
             s.load_error = r.error().format();  // the loaded patterns and the view stay as they were
-            continue;
+            return;
         }
         s.load_error.clear();
         LoadedPattern p;
@@ -79,6 +80,39 @@ void open_files(AppState& s, const std::vector<std::string>& files, const std::s
         s.note.clear();
         s.mesh_dirty = s.cut_dirty = true;
         ++s.generation;
+    }
+}
+
+// Files asked for from the UI: read in the background, one at a time.
+void queue_files(AppState& s, const std::vector<std::string>& files, const std::string& map = "") {
+    for (const std::string& f : files) s.to_load.emplace_back(f, map);
+}
+
+void pump_background_load(AppState& s) {
+    if (s.loading && s.loading->done) {
+        s.loading->worker.join();
+        BackgroundLoad& l = *s.loading;
+        if (l.cancel)
+            s.load_error = l.path + ": loading cancelled";
+        else if (l.result)
+            accept_loaded(s, l.path, std::move(*l.result));
+        s.loading.reset();
+    }
+    if (!s.loading && !s.to_load.empty()) {
+        auto l = std::make_unique<BackgroundLoad>();
+        l->path = s.to_load.front().first;
+        l->map = s.to_load.front().second;
+        s.to_load.pop_front();
+        BackgroundLoad* raw = l.get();
+        l->worker = std::thread([raw] {
+            auto r = load_pattern_file(raw->path, raw->map, [raw](double f) {
+                raw->progress = f;
+                return !raw->cancel.load();
+            });
+            raw->result.emplace(std::move(r));
+            raw->done = true;
+        });
+        s.loading = std::move(l);
     }
 }
 
@@ -316,9 +350,19 @@ int run_viewer(const ViewerOptions& opt) {
 
     // Patterns: the command line, or the bundled example (or the built-in demo).
     if (!opt.files.empty()) {
-        open_files(s, opt.files);
+        // Through the same background reader the UI uses, waiting here so the first frame shows them.
+        queue_files(s, opt.files);
+        while (s.loading || !s.to_load.empty()) {
+            pump_background_load(s);
+            if (!s.load_error.empty()) {
+                std::cerr << "ellipsa view: " << s.load_error << "\n";
+                s.load_error_printed = s.load_error;
+                s.load_error.clear();
+            }
+            std::this_thread::sleep_for(std::chrono::milliseconds(2));
+        }
+        s.load_error = s.load_error_printed;
         if (s.patterns.empty()) {
-            std::cerr << "ellipsa view: " << s.load_error << "\n";
             std::string note;
             for (FarFieldSet& f : default_patterns(note)) s.patterns.push_back({std::move(f), "", {}});
             s.note = note;
@@ -358,7 +402,7 @@ int run_viewer(const ViewerOptions& opt) {
         if (opt.has_cursor) glfwSetCursorPos(win, opt.cursor_x, opt.cursor_y);
         glfwPollEvents();
         if (!g_dropped.empty()) {
-            open_files(s, g_dropped);
+            queue_files(s, g_dropped);
             g_dropped.clear();
         }
         ImGui_ImplOpenGL3_NewFrame();
@@ -425,7 +469,9 @@ int run_viewer(const ViewerOptions& opt) {
         draw_intro_overlay(s);
 
         // Apply intents.
-        if (!in.open.empty()) open_files(s, in.open, in.open_map);
+        if (!in.open.empty()) queue_files(s, in.open, in.open_map);
+        if (in.cancel_load && s.loading) s.loading->cancel = true;
+        pump_background_load(s);
         if (in.close >= 0 && in.close < int(s.patterns.size()) && s.patterns.size() > 1) {
             s.patterns.erase(s.patterns.begin() + in.close);
             ++s.generation;

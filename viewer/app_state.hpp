@@ -2,7 +2,11 @@
 // camera, the probe and the persistent settings. Panels read it and return intents; the loop in
 // app.cpp applies them. Nothing here draws.
 #pragma once
+#include <atomic>
+#include <deque>
+#include <memory>
 #include <optional>
+#include <thread>
 #include <string>
 #include <vector>
 
@@ -42,6 +46,20 @@ struct CutData {
     bool valid = false;
 };
 
+// A file being read on a worker thread, so a large file never freezes the window. The worker
+// touches only this object; the loop takes the result when `done` is set.
+struct BackgroundLoad {
+    std::string path, map;
+    std::atomic<double> progress{0};
+    std::atomic<bool> cancel{false}, done{false};
+    std::optional<Result<FarFieldSet>> result;
+    std::thread worker;
+    ~BackgroundLoad() {
+        cancel = true;
+        if (worker.joinable()) worker.join();
+    }
+};
+
 struct AppState {
     std::vector<LoadedPattern> patterns;
     int active = 0;    // A
@@ -70,6 +88,9 @@ struct AppState {
     int generation = 0;  // bumped whenever patterns are opened or closed
     std::string path_input, map_input;
     std::string load_error;  // last failed load, shown until dismissed
+    std::string load_error_printed;  // (start-up: already written to stderr)
+    std::unique_ptr<BackgroundLoad> loading;                  // the file being read, if any
+    std::deque<std::pair<std::string, std::string>> to_load;  // (path, map file) waiting their turn
     std::string note;        // e.g. "built-in demo"
     bool show_help = false;
     bool show_intro = false;

@@ -4,6 +4,7 @@
 
 #include <cmath>
 #include <cstdio>
+#include <filesystem>
 #include <cstdlib>
 
 #include "pattern/interpolate.hpp"
@@ -16,6 +17,7 @@ void Intents::merge(const Intents& o) {
     open.insert(open.end(), o.open.begin(), o.open.end());
     if (!o.open_map.empty()) open_map = o.open_map;
     if (o.close >= 0) close = o.close;
+    cancel_load |= o.cancel_load;
     rebuild_surface |= o.rebuild_surface;
     rebuild_glyphs |= o.rebuild_glyphs;
     recut |= o.recut;
@@ -108,6 +110,13 @@ Intents draw_patterns_panel(AppState& s) {
                 if (ImGui::Selectable(f.c_str())) in.open.push_back(f);
             ImGui::EndCombo();
         }
+    }
+    if (s.loading) {
+        const std::string name = std::filesystem::path(s.loading->path).filename().string();
+        ImGui::TextDisabled("Reading %s%s", name.c_str(), s.to_load.empty() ? "" : " (more waiting)");
+        ImGui::ProgressBar(float(s.loading->progress.load()), ImVec2(-70, 0));
+        ImGui::SameLine();
+        if (ImGui::Button("Cancel", ImVec2(-1, 0))) in.cancel_load = true;
     }
     if (!s.load_error.empty()) {
         ImGui::PushStyleColor(ImGuiCol_ChildBg, ImVec4(0.99f, 0.93f, 0.91f, 1));

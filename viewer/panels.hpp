@@ -13,6 +13,7 @@ struct Intents {
     std::vector<std::string> open;  // files to load
     std::string open_map;           // column-map file for them ("" = look beside each file)
     int close = -1;                 // pattern index to close
+    bool cancel_load = false;       // stop the file being read
     bool rebuild_surface = false;   // component, colouring, range or frequency changed
     bool rebuild_glyphs = false;
     bool recut = false;

@@ -30,8 +30,10 @@ std::string map_file_beside(const std::string& path) {
     return "";
 }
 
-Result<FarFieldSet> load_pattern_file(const std::string& path, const std::string& map_file) {
+Result<FarFieldSet> load_pattern_file(const std::string& path, const std::string& map_file,
+                                      std::function<bool(double)> progress) {
     CsvReadOptions ro;
+    ro.progress = std::move(progress);
     const std::string map = map_file.empty() ? map_file_beside(path) : map_file;
     if (!map.empty())
         if (Status st = read_csv_map_file(map, ro); !st) return st.error();

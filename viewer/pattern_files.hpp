@@ -1,6 +1,7 @@
 // Where the viewer's patterns come from: files (through the schema reader) or, with no file
 // given, the bundled example folder; and when that is missing, the built-in demo patterns.
 #pragma once
+#include <functional>
 #include <string>
 #include <vector>
 
@@ -12,7 +13,9 @@ namespace ellipsa::viewer {
 // Read one far-field CSV file (importers/far_field_csv.hpp); the set's source is the path.
 // map_file: a column-map file for foreign layouts; when empty, a map beside the file is used if
 // one names it (a "<stem>.map", or a .map file in the same folder that mentions the file name).
-Result<FarFieldSet> load_pattern_file(const std::string& path, const std::string& map_file = "");
+// progress, when given, is called now and then with the fraction read; returning false cancels.
+Result<FarFieldSet> load_pattern_file(const std::string& path, const std::string& map_file = "",
+                                      std::function<bool(double)> progress = {});
 
 // The map file that load_pattern_file would pick for `path` ("" when none).
 std::string map_file_beside(const std::string& path);
