@@ -218,6 +218,30 @@ void json_orientations(JsonWriter& j, const Result<OrientationFigures>& r, const
 void write_json(const EnvChoice& env, const std::vector<PatternResult>& ps, const std::vector<PairResult>& pairs,
                 const DiversityArgs& a) {
     JsonWriter j;
+    auto write_figures = [&](JsonWriter& j, const FreqResult& r) {
+        if (r.meg) {
+            const MegFigures& m = *r.meg;
+            j.field("meg_db", to_db(m.meg)).field("meg", m.meg);
+            j.field("meg_vertical_db", db(m.meg_vertical)).field("meg_horizontal_db", db(m.meg_horizontal));
+            j.field("vertical_share", m.vertical_share).field("horizontal_share", m.horizontal_share);
+            j.field("balanced_share", m.balanced_share);
+            j.field("sampled_share", m.sampled_share);
+            j.key("assumption");
+            if (m.assumption.empty())
+                j.null();
+            else
+                j.value(m.assumption);
+            j.key("notes").begin_array();
+            for (const std::string& n : m.notes) j.value(n);
+            j.end_array();
+        } else {
+            j.key("meg_db").null();
+            j.key("meg_vertical_db").null();
+            j.key("meg_horizontal_db").null();
+            j.field("unavailable_reason", r.meg.error().message);
+        }
+        if (r.orient) json_orientations(j, *r.orient, a.sweep);
+    };
     j.begin_object();
     json_environment(j, env);
     j.key("patterns").begin_array();
@@ -225,32 +249,17 @@ void write_json(const EnvChoice& env, const std::vector<PatternResult>& ps, cons
         j.begin_object();
         j.field("file", p.path).field("name", p.set.name);
         j.field("quantity", to_string(p.set.quantity)).field("content", to_string(p.set.content));
+        // The first (or only) frequency's figures sit on the pattern itself, so a script reading a
+        // single-frequency file finds patterns[i].meg_db; every frequency is in "results".
+        if (!p.results.empty()) {
+            j.field("frequency_hz", p.results.front().frequency_hz);
+            write_figures(j, p.results.front());
+        }
         j.key("results").begin_array();
         for (const FreqResult& r : p.results) {
             j.begin_object();
             j.field("frequency_hz", r.frequency_hz);
-            if (r.meg) {
-                const MegFigures& m = *r.meg;
-                j.field("meg_db", to_db(m.meg)).field("meg", m.meg);
-                j.field("meg_vertical_db", db(m.meg_vertical)).field("meg_horizontal_db", db(m.meg_horizontal));
-                j.field("vertical_share", m.vertical_share).field("horizontal_share", m.horizontal_share);
-                j.field("balanced_share", m.balanced_share);
-                j.field("sampled_share", m.sampled_share);
-                j.key("assumption");
-                if (m.assumption.empty())
-                    j.null();
-                else
-                    j.value(m.assumption);
-                j.key("notes").begin_array();
-                for (const std::string& n : m.notes) j.value(n);
-                j.end_array();
-            } else {
-                j.key("meg_db").null();
-                j.key("meg_vertical_db").null();
-                j.key("meg_horizontal_db").null();
-                j.field("unavailable_reason", r.meg.error().message);
-            }
-            if (r.orient) json_orientations(j, *r.orient, a.sweep);
+            write_figures(j, r);
             j.end_object();
         }
         j.end_array();
@@ -258,10 +267,14 @@ void write_json(const EnvChoice& env, const std::vector<PatternResult>& ps, cons
     }
     j.end_array();
     if (!pairs.empty()) {
-        j.key("ecc").begin_array();
+        // Scalars for the first (or only) frequency; one value per frequency of FILE after them.
+        const PairResult& q0 = pairs.front();
+        j.field("ecc", q0.corr ? std::optional<double>(q0.corr->ecc) : std::nullopt);
+        j.field("diversity_gain_db", q0.corr ? std::optional<double>(q0.corr->diversity_gain_db) : std::nullopt);
+        j.key("ecc_per_frequency").begin_array();
         for (const PairResult& q : pairs) j.value(q.corr ? std::optional<double>(q.corr->ecc) : std::nullopt);
         j.end_array();
-        j.key("diversity_gain_db").begin_array();
+        j.key("diversity_gain_db_per_frequency").begin_array();
         for (const PairResult& q : pairs)
             j.value(q.corr ? std::optional<double>(q.corr->diversity_gain_db) : std::nullopt);
         j.end_array();

@@ -219,7 +219,7 @@ for which in ("worst", "best"):
           db(mo), 0.005)
 
 # 3. Envelope correlation of the two antennas.
-check("envelope correlation", j["ecc"][0], ecc(f_crossed, f_dipole, env), 1e-3)
+check("envelope correlation", j["ecc"], ecc(f_crossed, f_dipole, env), 1e-3)
 
 # 4. A named preset (its values are echoed in the JSON and used here).
 ju = json.loads(run(["diversity", dipole, "--environment", "urban", "--json"]))

@@ -21,7 +21,7 @@ grep -q '"meg_db": -3.01' out.txt && ok "uniform MEG is -3.01 dB" || bad "unifor
 expect_rc 0 "two files, preset, orientations" "$E" diversity z.csv x.csv --environment urban --orientations --json
 for k in ecc diversity_gain_db correlation orientations min_db median_db max_db worst by_tilt; do has $k; done
 # conventions.md: a z and an x dipole are uncorrelated (in any azimuth-uniform environment).
-grep -Eq '"ecc": \[(0|[0-9.]+e-(1[2-9]|[2-9][0-9]))\]' out.txt && ok "z/x dipoles: ECC 0" || bad "z/x ECC not 0: $(grep -o '"ecc": [^]]*]' out.txt)"
+grep -Eq '"ecc": (0|[0-9.]+e-(1[2-9]|[2-9][0-9]))[,}]' out.txt && ok "z/x dipoles: ECC 0" || bad "z/x ECC not 0: $(grep -o '"ecc": [^,]*' out.txt)"
 expect_rc 0 "human output" "$E" diversity z.csv x.csv --environment indoor --orientations
 grep -q 'dBi' out.txt && grep -q 'diversity gain' out.txt && ok "human output has units" || bad "human output lacks units"
 expect_rc 2 "gaussian without all angles is bad usage" "$E" diversity z.csv --environment gaussian --v-mean 10
@@ -43,9 +43,10 @@ expect_rc 0 "synth at 2.4 GHz" "$E" synth dipole --step 2 --frequency 2.4e9 --ou
 expect_rc 0 "synth loop at 2.5 GHz" "$E" synth small-loop --step 2 --frequency 2.5e9 --out f2.csv
 { cat f1.csv; grep -v '^#' f2.csv | tail -n +2; } > two.csv
 expect_rc 0 "two frequencies" "$E" diversity two.csv x.csv --json
+# one MEG per frequency and file in "results" (3), plus the first frequency's on each pattern (2)
 n=$(grep -o '"meg_db"' out.txt | wc -l)
-[[ $n == 3 ]] && ok "one MEG per frequency and file (3)" || bad "expected 3 MEG figures, found $n"
-grep -q '"ecc": \[[^],]*,[^],]*\]' out.txt && ok "one ECC per frequency of FILE" || bad "ECC not per frequency: $(grep -o '"ecc": [^]]*]' out.txt)"
+[[ $n == 5 ]] && ok "one MEG per frequency and file, and the first on each pattern (5)" || bad "expected 5 MEG figures, found $n"
+grep -q '"ecc_per_frequency": \[[^],]*,[^],]*\]' out.txt && ok "one ECC per frequency of FILE" || bad "ECC not per frequency: $(grep -o '"ecc": [^]]*]' out.txt)"
 expect_rc 0 "one frequency picked" "$E" diversity two.csv --frequency 2.5e9 --json
 grep -q '"frequency_hz": 2.5e+09' out.txt && ! grep -q '"frequency_hz": 2.4e+09' out.txt && ok "--frequency picks 2.5 GHz" || bad "--frequency did not pick"
 expect_rc 1 "absent frequency is bad input" "$E" diversity two.csv --frequency 5e9
