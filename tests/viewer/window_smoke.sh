@@ -17,9 +17,18 @@ export XDG_CONFIG_HOME="$out/config"
 # and imgui.ini under $XDG_CONFIG_HOME/ellipsa, with the opened file in the recent list.
 if [[ -z "${VIEW_EXTRA:-}" ]]; then
   "$ELLIPSA" synth small-loop --step 3 --out "$out/loop.csv" >/dev/null
-  "$XVFB_RUN" -a -s "-screen 0 1400x900x24" bash -c \
-    '"$0" view "$1" --size 800x600 & p=$!; sleep 6; kill -TERM $p; wait $p' "$ELLIPSA" "$out/loop.csv"
-  grep -q "^recent = .*loop.csv$" "$XDG_CONFIG_HOME/ellipsa/viewer.conf"
-  grep -q "^window_width = 800$" "$XDG_CONFIG_HOME/ellipsa/viewer.conf"
-  [[ -s "$XDG_CONFIG_HOME/ellipsa/imgui.ini" ]]
+  # A loaded machine may need longer before the first frame: give it 6, 20, then 60 s.
+  saved=0
+  for wait_s in 6 20 60; do
+    rm -rf "$XDG_CONFIG_HOME/ellipsa"
+    "$XVFB_RUN" -a -s "-screen 0 1400x900x24" bash -c \
+      '"$0" view "$1" --size 800x600 & p=$!; sleep "$2"; kill -TERM $p; wait $p' "$ELLIPSA" "$out/loop.csv" "$wait_s" || true
+    if grep -q "^recent = .*loop.csv$" "$XDG_CONFIG_HOME/ellipsa/viewer.conf" 2>/dev/null &&
+       grep -q "^window_width = 800$" "$XDG_CONFIG_HOME/ellipsa/viewer.conf" &&
+       [[ -s "$XDG_CONFIG_HOME/ellipsa/imgui.ini" ]]; then
+      saved=1; break
+    fi
+    echo "settings not saved after ${wait_s} s; trying with more time"
+  done
+  [[ $saved == 1 ]] || { echo "settings were not saved on SIGTERM"; exit 1; }
 fi
