@@ -201,6 +201,7 @@ Result<Layout> read_layout(std::string_view text, const std::string& file, const
             cols.pop_back();
         }
     }
+    if (cells.empty()) return hfail(1, "expected a header row naming the columns, found only empty cells");
     {
         // A header that is a row of numbers: the header was forgotten.
         double v;

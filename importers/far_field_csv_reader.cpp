@@ -555,10 +555,13 @@ void pass2(Context& ctx, Chunk& c, bool report_progress) {
                 break;
             }
             default: {
-                int r1, p1, r2, p2;
-                if (L.family == CsvFamily::theta_phi_polar) r1 = c_e_theta_db, p1 = c_e_theta_phase, r2 = c_e_phi_db, p2 = c_e_phi_phase;
-                else if (L.family == CsvFamily::circular_polar) r1 = c_e_rhcp_db, p1 = c_e_rhcp_phase, r2 = c_e_lhcp_db, p2 = c_e_lhcp_phase;
-                else r1 = c_e_co_db, p1 = c_e_co_phase, r2 = c_e_cross_db, p2 = c_e_cross_phase;
+                // Amplitude and phase columns of the two components of this family.
+                const bool tp = L.family == CsvFamily::theta_phi_polar;
+                const bool circ = L.family == CsvFamily::circular_polar;
+                const int r1 = tp ? c_e_theta_db : circ ? c_e_rhcp_db : c_e_co_db;
+                const int p1 = tp ? c_e_theta_phase : circ ? c_e_rhcp_phase : c_e_co_phase;
+                const int r2 = tp ? c_e_phi_db : circ ? c_e_lhcp_db : c_e_cross_db;
+                const int p2 = tp ? c_e_phi_phase : circ ? c_e_lhcp_phase : c_e_cross_phase;
                 double a, b;
                 if (!db_amplitude(v[r1], a)) return fail_at(r1, std::string("expected a dB value below 3000 in column \"") + column_name(r1) + "\"");
                 if (!db_amplitude(v[r2], b)) return fail_at(r2, std::string("expected a dB value below 3000 in column \"") + column_name(r2) + "\"");
