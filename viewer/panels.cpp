@@ -198,6 +198,8 @@ Intents draw_patterns_panel(AppState& s) {
             if (sm->sense) {
                 if (*sm->sense == Sense::linear) pol = "linear (AR infinite)";
                 else if (*sm->sense == Sense::none) pol = "no field";
+                else if (sm->axial_ratio_db && *sm->axial_ratio_db > 40)  // as the glyphs and the pinned ellipse
+                    pol = "nearly linear, AR " + opt_text(sm->axial_ratio_db, "dB", "?");
                 else pol = std::string(to_string(*sm->sense)) + "-hand, AR " + opt_text(sm->axial_ratio_db, "dB", "?");
             }
             row("Pol. at peak", pol, "Sense and axial ratio at the peak (IEEE Std 145)");
