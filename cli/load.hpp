@@ -31,7 +31,4 @@ Result<FarFieldSet> load_pattern(const std::string& path, const LoadOptions& o);
 Result<std::size_t> pick_frequency(const FarFieldSet& s, const std::optional<double>& frequency_hz,
                                    const std::string& path);
 
-// "2.45 GHz", "915 MHz", "unknown"
-std::string format_frequency(double hz);
-
 }  // namespace ellipsa::cli

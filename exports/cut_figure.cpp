@@ -60,20 +60,6 @@ Result<std::vector<Component>> parse_component_list(const std::string& text) {
     return out;
 }
 
-std::string frequency_text(double hz) {
-    if (!(hz > 0)) return "unknown frequency";
-    char buf[64];
-    if (hz >= 1e9)
-        std::snprintf(buf, sizeof buf, "%g GHz", hz / 1e9);
-    else if (hz >= 1e6)
-        std::snprintf(buf, sizeof buf, "%g MHz", hz / 1e6);
-    else if (hz >= 1e3)
-        std::snprintf(buf, sizeof buf, "%g kHz", hz / 1e3);
-    else
-        std::snprintf(buf, sizeof buf, "%g Hz", hz);
-    return buf;
-}
-
 std::string describe_cut(const CutSpec& spec) {
     char buf[160];
     switch (spec.kind) {
@@ -206,7 +192,7 @@ CutPlot make_cut_plot(const FarFieldSet& s, const CutData& c, const FigureOption
     bool lin = false, circ = false;
     for (Component k : c.components) (k == Component::rhcp || k == Component::lhcp ? circ : lin) = true;
     p.value_unit = s.quantity == Quantity::relative ? "dB" : lin && circ ? "dBi, dBic" : circ ? "dBic" : "dBi";
-    p.subtitle = describe_cut(c.spec) + "  ·  " + frequency_text(f) + "  ·  " + p.value_label + " (" + p.value_unit + ")";
+    p.subtitle = describe_cut(c.spec) + "  ·  " + format_frequency(f) + "  ·  " + p.value_label + " (" + p.value_unit + ")";
     switch (c.spec.kind) {
         case CutKind::phi_const: {
             p.layout = AngleLayout::signed_half;

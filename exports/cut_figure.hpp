@@ -25,8 +25,6 @@ std::string component_unit(const FarFieldSet& s, Component c);
 // Parse "total,rhcp,lhcp"; the Error names the unknown entry and lists the known names.
 Result<std::vector<Component>> parse_component_list(const std::string& text);
 
-// "2.45 GHz", "915 MHz"; "unknown frequency" for 0.
-std::string frequency_text(double hz);
 // "Elevation cut, φ = 0°", "Azimuth cut, θ = 90°", "Great circle through θ = 45.0°, φ = 0.0°".
 std::string describe_cut(const CutSpec& spec);
 

@@ -212,13 +212,9 @@ Result<std::vector<ReportFile>> build_report(const std::vector<ReportInput>& inp
         const FarFieldSet& s = inputs[i].set;
         if (s.frequencies.empty()) return Error{inputs[i].path, 0, 0, "holds no frequency"};
         if (o.frequency_hz) {
-            const std::size_t k = s.nearest_frequency(*o.frequency_hz);
-            if (std::abs(s.frequencies[k].frequency_hz - *o.frequency_hz) > 0.005 * std::abs(*o.frequency_hz)) {
-                std::string list;
-                for (const auto& f : s.frequencies) list += (list.empty() ? "" : ", ") + frequency_text(f.frequency_hz);
-                return Error{inputs[i].path, 0, 0, "has no data at " + frequency_text(*o.frequency_hz) + "; it holds " + list};
-            }
-            freqs[i].push_back(k);
+            auto k = find_frequency(s, *o.frequency_hz, inputs[i].path);
+            if (!k) return k.error();
+            freqs[i].push_back(*k);
         } else {
             for (std::size_t k = 0; k < s.frequencies.size(); ++k) freqs[i].push_back(k);
         }
@@ -234,7 +230,7 @@ Result<std::vector<ReportFile>> build_report(const std::vector<ReportInput>& inp
         t.numeric = {false, false, false, false};
         for (std::size_t i = 0; i < inputs.size(); ++i) {
             std::string fl;
-            for (std::size_t k : freqs[i]) fl += (fl.empty() ? "" : ", ") + frequency_text(inputs[i].set.frequencies[k].frequency_hz);
+            for (std::size_t k : freqs[i]) fl += (fl.empty() ? "" : ", ") + format_frequency(inputs[i].set.frequencies[k].frequency_hz);
             t.rows.push_back({letter(i), display_name(inputs[i]), inputs[i].path, fl});
         }
         doc.table(t);
@@ -263,7 +259,7 @@ Result<std::vector<ReportFile>> build_report(const std::vector<ReportInput>& inp
         std::vector<std::string> labels;
         std::vector<std::vector<std::pair<std::string, std::string>>> cols;
         for (std::size_t j = 0; j < freqs[i].size(); ++j) {
-            labels.push_back(frequency_text(s.frequencies[freqs[i][j]].frequency_hz));
+            labels.push_back(format_frequency(s.frequencies[freqs[i][j]].frequency_hz));
             cols.push_back(figure_rows(s, freqs[i][j], summaries[i][j], o));
         }
         doc.heading(3, "Figures");
@@ -281,7 +277,7 @@ Result<std::vector<ReportFile>> build_report(const std::vector<ReportInput>& inp
                     fbase += "-f" + std::to_string(fi + 1);
                     break;
                 }
-            doc.heading(3, "Cuts at " + frequency_text(s.frequencies[fi].frequency_hz));
+            doc.heading(3, "Cuts at " + format_frequency(s.frequencies[fi].frequency_hz));
             const std::vector<Component> comps = report_components(s, r);
             std::string peak_note;
             std::vector<DocFigure> figs;
@@ -297,7 +293,7 @@ Result<std::vector<ReportFile>> build_report(const std::vector<ReportInput>& inp
                 fo.title = display_name(in);
                 const CutPlot plot = make_cut_plot(s, *cut, fo);
                 DocFigure f;
-                f.caption = cd.caption + ", " + frequency_text(s.frequencies[fi].frequency_hz);
+                f.caption = cd.caption + ", " + format_frequency(s.frequencies[fi].frequency_hz);
                 f.alt = f.caption + " of " + display_name(in);
                 Status st = rd.figure(plot, fbase + "-" + cd.tag, f);
                 if (!st) return st.error();
@@ -308,7 +304,7 @@ Result<std::vector<ReportFile>> build_report(const std::vector<ReportInput>& inp
                 auto png = o.snapshot(s, fi);
                 if (png) {
                     DocFigure f;
-                    f.caption = "3D view of the total pattern, " + frequency_text(s.frequencies[fi].frequency_hz);
+                    f.caption = "3D view of the total pattern, " + format_frequency(s.frequencies[fi].frequency_hz);
                     f.raster_file = fbase + "-3d.png";
                     files.push_back({f.raster_file, std::move(*png)});
                     figs.push_back(f);
@@ -321,7 +317,7 @@ Result<std::vector<ReportFile>> build_report(const std::vector<ReportInput>& inp
                 if (png) {
                     DocFigure f;
                     f.caption = "3D view of the total pattern coloured by axial ratio, " +
-                                frequency_text(s.frequencies[fi].frequency_hz);
+                                format_frequency(s.frequencies[fi].frequency_hz);
                     f.raster_file = fbase + "-3d-axial-ratio.png";
                     files.push_back({f.raster_file, std::move(*png)});
                     figs.push_back(f);
@@ -353,14 +349,14 @@ Result<std::vector<ReportFile>> build_report(const std::vector<ReportInput>& inp
             cs.push_back(summarize(inputs[i].set, cfi[i]));
             if (std::abs(inputs[i].set.frequencies[cfi[i]].frequency_hz - f0) > 0.005 * std::abs(f0)) same_f = false;
         }
-        doc.paragraph(same_f ? "All patterns at " + frequency_text(f0) + "."
+        doc.paragraph(same_f ? "All patterns at " + format_frequency(f0) + "."
                              : "The patterns hold different frequencies; each is taken at its frequency nearest " +
-                                   frequency_text(f0) + " (see the table header).");
+                                   format_frequency(f0) + " (see the table header).");
         std::vector<std::string> labels;
         std::vector<std::vector<std::pair<std::string, std::string>>> cols;
         for (std::size_t i = 0; i < inputs.size(); ++i) {
             labels.push_back(letter(i) + ". " + display_name(inputs[i]) + " (" +
-                             frequency_text(inputs[i].set.frequencies[cfi[i]].frequency_hz) + ")");
+                             format_frequency(inputs[i].set.frequencies[cfi[i]].frequency_hz) + ")");
             cols.push_back(figure_rows(inputs[i].set, cfi[i], cs[i], o));
         }
         figures_tables(doc, labels, cols);
@@ -388,7 +384,7 @@ Result<std::vector<ReportFile>> build_report(const std::vector<ReportInput>& inp
                 }
                 add_curves(plot, inputs[i].set, *cut, prefix);
                 plot.curves.back().label = letter(i) + ". " + display_name(inputs[i]);
-                if (!same_f) plot.curves.back().label += " (" + frequency_text(inputs[i].set.frequencies[cfi[i]].frequency_hz) + ")";
+                if (!same_f) plot.curves.back().label += " (" + format_frequency(inputs[i].set.frequencies[cfi[i]].frequency_hz) + ")";
             }
             if (first) continue;
             plot.marked_curve = -1;

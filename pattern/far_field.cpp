@@ -1,6 +1,7 @@
 #include "pattern/far_field.hpp"
 
 #include <cmath>
+#include <cstdio>
 #include <limits>
 
 namespace ellipsa {
@@ -49,6 +50,29 @@ std::size_t FarFieldSet::nearest_frequency(double f_hz) const {
         }
     }
     return best;
+}
+
+Result<std::size_t> find_frequency(const FarFieldSet& s, double f_hz, const std::string& path) {
+    if (s.frequencies.empty()) return Error{path, 0, 0, "holds no frequency"};
+    const std::size_t k = s.nearest_frequency(f_hz);
+    if (std::abs(s.frequencies[k].frequency_hz - f_hz) <= 0.005 * std::abs(f_hz)) return k;
+    std::string list;
+    for (const FarField& f : s.frequencies) list += (list.empty() ? "" : ", ") + format_frequency(f.frequency_hz);
+    return Error{path, 0, 0, "has no data at " + format_frequency(f_hz) + "; it holds " + list};
+}
+
+std::string format_frequency(double hz) {
+    if (!(hz > 0)) return "unknown frequency";
+    char buf[64];
+    if (hz >= 1e9)
+        std::snprintf(buf, sizeof buf, "%g GHz", hz / 1e9);
+    else if (hz >= 1e6)
+        std::snprintf(buf, sizeof buf, "%g MHz", hz / 1e6);
+    else if (hz >= 1e3)
+        std::snprintf(buf, sizeof buf, "%g kHz", hz / 1e3);
+    else
+        std::snprintf(buf, sizeof buf, "%g Hz", hz);
+    return buf;
 }
 
 double to_db(double linear) {

@@ -10,6 +10,7 @@
 #include <string>
 #include <vector>
 
+#include "pattern/result.hpp"
 #include "pattern/vec3.hpp"
 
 namespace ellipsa {
@@ -77,6 +78,13 @@ struct FarFieldSet {
     // Index of the frequency nearest to f_hz (0 when there is only one).
     std::size_t nearest_frequency(double f_hz) const;
 };
+
+// The index of the frequency within 0.5 % of f_hz, or an Error naming `path` that lists the
+// frequencies the set holds.
+Result<std::size_t> find_frequency(const FarFieldSet& s, double f_hz, const std::string& path);
+
+// Display text for a frequency: "2.45 GHz", "915 MHz"; "unknown frequency" for 0.
+std::string format_frequency(double hz);
 
 // Sample values in convenient forms.
 inline double power(cplx et, cplx ep) { return std::norm(et) + std::norm(ep); }

@@ -27,14 +27,6 @@ void Intents::merge(const Intents& o) {
 }
 
 namespace {
-std::string freq_text(double hz) {
-    char b[64];
-    if (!(hz > 0)) return "unknown";
-    if (hz >= 1e9) std::snprintf(b, sizeof b, "%g GHz", hz / 1e9);
-    else if (hz >= 1e6) std::snprintf(b, sizeof b, "%g MHz", hz / 1e6);
-    else std::snprintf(b, sizeof b, "%g Hz", hz);
-    return b;
-}
 std::string opt_text(const std::optional<double>& v, const char* unit, const char* none) {
     if (!v) return none;
     char b[64];
@@ -171,12 +163,12 @@ Intents draw_patterns_panel(AppState& s) {
     if (nf > 1) {
         int f = int(s.freq);
         ImGui::SetNextItemWidth(-1);
-        if (ImGui::SliderInt("##freq", &f, 0, int(nf) - 1, freq_text(a->set.frequencies[std::size_t(f)].frequency_hz).c_str())) {
+        if (ImGui::SliderInt("##freq", &f, 0, int(nf) - 1, format_frequency(a->set.frequencies[std::size_t(f)].frequency_hz).c_str())) {
             s.freq = std::size_t(f);
             in.rebuild_surface = in.recut = true;
         }
     } else {
-        ImGui::Text("Frequency  %s", freq_text(a->set.frequencies.empty() ? 0 : a->set.frequencies[0].frequency_hz).c_str());
+        ImGui::Text("Frequency  %s", format_frequency(a->set.frequencies.empty() ? 0 : a->set.frequencies[0].frequency_hz).c_str());
     }
     if (const PatternSummary* sm = s.summary()) {
         const char* u = a->set.quantity == Quantity::relative ? "dB" : "dBi";

@@ -18,18 +18,6 @@
 namespace ellipsa::viewer {
 
 namespace {
-std::string frequency_text(double hz) {
-    char buf[64];
-    if (!(hz > 0)) return "frequency unknown";
-    if (hz >= 1e9)
-        std::snprintf(buf, sizeof buf, "%g GHz", hz / 1e9);
-    else if (hz >= 1e6)
-        std::snprintf(buf, sizeof buf, "%g MHz", hz / 1e6);
-    else
-        std::snprintf(buf, sizeof buf, "%g Hz", hz);
-    return buf;
-}
-
 // Restores the caller's ImGui context (the viewer window may be exporting).
 struct ImGuiContextGuard {
     ImGuiContext* saved = ImGui::GetCurrentContext();
@@ -109,7 +97,7 @@ Result<std::vector<std::uint8_t>> render_snapshot_rgba(const FarFieldSet& s, con
     const ImU32 ink = IM_COL32(34, 38, 46, 255), muted = IM_COL32(95, 100, 108, 255);
     const std::string title = !o.title.empty() ? o.title
                               : (s.name.empty() ? std::string("pattern") : s.name) + "  \u00b7  " +
-                                    frequency_text(s.frequencies[o.frequency_index].frequency_hz);
+                                    format_frequency(s.frequencies[o.frequency_index].frequency_hz);
     dl->AddText(fonts.title, fonts.title->FontSize, ImVec2(16 * scale, 12 * scale), ink, title.c_str());
     char line[256];
     std::snprintf(line, sizeof line, "radius: %s, %.4g %s at the peak, %g dB dynamic range", label_of(o.component),

@@ -7,23 +7,13 @@
 #include <chrono>
 #include <cstdio>
 
+#include "tests/bench/best_time.hpp"
 #include "pattern/diversity.hpp"
 #include "pattern/reference.hpp"
 #include "pattern/rotate.hpp"
 
 using namespace ellipsa;
 
-template <class F>
-double best_ms(int reps, F&& f) {
-    double best = 1e300;
-    for (int r = 0; r < reps; ++r) {
-        auto t0 = std::chrono::steady_clock::now();
-        f();
-        auto t1 = std::chrono::steady_clock::now();
-        best = std::min(best, std::chrono::duration<double, std::milli>(t1 - t0).count());
-    }
-    return best;
-}
 
 int main() {
     Environment e;

@@ -3,6 +3,7 @@
 #include <chrono>
 #include <cstdio>
 
+#include "tests/bench/best_time.hpp"
 #include "exports/cut_figure.hpp"
 #include "exports/render.hpp"
 #include "exports/report.hpp"
@@ -11,17 +12,6 @@
 using namespace ellipsa;
 using namespace ellipsa::exports;
 
-template <class F>
-double best_ms(int reps, F&& f) {
-    double best = 1e300;
-    for (int r = 0; r < reps; ++r) {
-        auto t0 = std::chrono::steady_clock::now();
-        f();
-        auto t1 = std::chrono::steady_clock::now();
-        best = std::min(best, std::chrono::duration<double, std::milli>(t1 - t0).count());
-    }
-    return best;
-}
 
 int main() {
     ReferenceAntenna a;
