@@ -1,6 +1,6 @@
 // Polarisation of one far-field sample in every basis the tool shows.
 //
-// Conventions (docs/conventions, IEEE Std 145-2013, Balanis sec. 2.12), exp(+j w t):
+// Conventions (docs/conventions.md, IEEE Std 145-2013, Balanis sec. 2.12), exp(+j w t):
 //   E_R = (E_theta + j E_phi)/sqrt2,  E_L = (E_theta - j E_phi)/sqrt2
 //   Ludwig-3 x reference: co = Et cos p - Ep sin p, cross = Et sin p + Ep cos p
 //   Ludwig-3 y reference: co = Et sin p + Ep cos p, cross = Et cos p - Ep sin p
