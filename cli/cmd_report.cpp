@@ -11,7 +11,7 @@
 #include "cli/commands.hpp"
 #include "cli/load.hpp"
 #include "cli/version.hpp"
-#include "exports/atomic_folder.hpp"
+#include "io/atomic_folder.hpp"
 #include "exports/report.hpp"
 #include "pattern/environment.hpp"
 #ifdef ELLIPSA_HAVE_VIEWER
@@ -113,7 +113,7 @@ int run_report(const ReportArgs& a) {
     }
     auto files = build_report(inputs, o);
     if (!files) return fail(exit_bad_input, files.error().format());
-    Status st = publish_folder(a.out, [&](const std::string& dir) { return write_report_files(dir, *files); }, a.force);
+    Status st = io::publish_folder(a.out, [&](const std::string& dir) { return write_report_files(dir, *files); }, a.force);
     if (!st) return fail(exit_bad_input, st.error().format());
     std::cout << "wrote " << a.out << "/index.html and report.md with " << files->size() - 2 << " figure and data files\n";
     return exit_ok;

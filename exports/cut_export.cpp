@@ -1,6 +1,6 @@
 #include "exports/cut_export.hpp"
 
-#include "importers/atomic_write.hpp"
+#include "io/atomic_write.hpp"
 
 namespace ellipsa::exports {
 
@@ -20,7 +20,7 @@ Result<CutData> export_cut(const FarFieldSet& s, std::size_t fi, const CutExport
         if (!img) return Error{path, 0, 0, img.error().message};
         bytes = std::move(*img);
     }
-    Status w = write_file_atomically(path, bytes, overwrite);
+    Status w = io::write_file_atomically(path, bytes, overwrite);
     if (!w) return w.error();
     return cut;
 }

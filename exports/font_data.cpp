@@ -4,7 +4,7 @@
 // no file is opened at run time.
 #include <cstdint>
 
-#include "exports/fonts.hpp"
+#include "exports/font_data.hpp"
 
 #define ELLIPSA_INCBIN(sym, path)                          \
     __asm__(".section .rodata\n"                           \

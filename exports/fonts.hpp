@@ -2,20 +2,11 @@
 // through FreeType and handed to Cairo as cairo-ft faces. Nothing depends on the system font
 // path or fontconfig at run time, and hinting is off so that output is the same on every machine.
 #pragma once
-#include <cstddef>
-
 #include <cairo.h>
 
+#include "exports/font_data.hpp"
+
 namespace ellipsa::exports {
-
-enum class FontWeight { regular, bold };
-
-struct FontBytes {
-    const unsigned char* data;
-    std::size_t size;
-};
-// The embedded TrueType bytes (font_data.cpp).
-FontBytes bundled_font_bytes(FontWeight w);
 
 // The Cairo face for a weight; created on first use and kept for the life of the process
 // (thread-safe initialisation). Returns nullptr only if FreeType cannot read the embedded font.

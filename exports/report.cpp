@@ -7,7 +7,7 @@
 
 #include "exports/cut_figure.hpp"
 #include "exports/document.hpp"
-#include "importers/atomic_write.hpp"
+#include "io/atomic_write.hpp"
 #include "pattern/cut.hpp"
 #include "pattern/diversity.hpp"
 #include "pattern/integrate.hpp"
@@ -420,7 +420,7 @@ Result<std::vector<ReportFile>> build_report(const std::vector<ReportInput>& inp
 
 Status write_report_files(const std::string& dir, const std::vector<ReportFile>& files) {
     for (const ReportFile& f : files) {
-        Status st = write_file_atomically(dir + "/" + f.name, f.bytes, true);
+        Status st = io::write_file_atomically(dir + "/" + f.name, f.bytes, true);
         if (!st) return st;
     }
     return Ok{};

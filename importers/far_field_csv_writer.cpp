@@ -6,7 +6,7 @@
 #include <cmath>
 #include <cstring>
 
-#include "importers/atomic_write.hpp"
+#include "io/atomic_write.hpp"
 #include "importers/far_field_csv.hpp"
 #include "pattern/polarisation.hpp"
 
@@ -199,7 +199,7 @@ Result<std::string> format_far_field_csv(const FarFieldSet& s, const CsvWriteOpt
 Status write_far_field_csv(const FarFieldSet& s, const std::string& path, const CsvWriteOptions& o) {
     auto text = format_far_field_csv(s, o);
     if (!text) return Error{path, 0, 0, text.error().message};
-    return write_file_atomically(path, *text, o.overwrite);
+    return io::write_file_atomically(path, *text, o.overwrite);
 }
 
 }  // namespace ellipsa

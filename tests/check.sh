@@ -38,7 +38,7 @@ viewer_gate() {  # LOG
     echo "sanitizer error in the viewer run:" >&2; cat "$log" >&2; return 1
   fi
   if grep -qE "ERROR: LeakSanitizer" "$log"; then
-    if awk '/^(Direct|Indirect) leak/{blk=""} {blk=blk"\n"$0} /^$/{ if (blk ~ /\/(pattern|importers|cli|viewer|exports)\/[a-z_\/]+\.(cpp|hpp)/) {print blk; bad=1}; blk=""} END{exit bad?0:1}' "$log"; then
+    if awk '/^(Direct|Indirect) leak/{blk=""} {blk=blk"\n"$0} /^$/{ if (blk ~ /\/(pattern|io|importers|cli|viewer|exports)\/[a-z_\/]+\.(cpp|hpp)/) {print blk; bad=1}; blk=""} END{exit bad?0:1}' "$log"; then
       echo "leak through our own code in the viewer run (above)" >&2; return 1
     fi
     echo "viewer run: leaks reported only inside system libraries ($(grep -c '^\(Direct\|Indirect\) leak' "$log") blocks; Mesa/LLVM)"

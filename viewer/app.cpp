@@ -18,7 +18,7 @@
 #define GLFW_INCLUDE_NONE
 #include <GLFW/glfw3.h>
 
-#include "importers/atomic_write.hpp"
+#include "io/atomic_write.hpp"
 #include "pattern/peak.hpp"
 #include "viewer/app_state.hpp"
 #include "viewer/cut_export_ui.hpp"
@@ -618,7 +618,7 @@ int run_viewer(const ViewerOptions& opt) {
             const std::size_t rowb = std::size_t(fbw) * 4;
             for (int y = 0; y < fbh; ++y) std::copy_n(px.data() + std::size_t(fbh - 1 - y) * rowb, rowb, flipped.data() + std::size_t(y) * rowb);
             for (std::size_t i = 3; i < flipped.size(); i += 4) flipped[i] = 255;
-            Status st = write_file_atomically(opt.screenshot, encode_png(flipped, fbw, fbh), true);
+            Status st = io::write_file_atomically(opt.screenshot, encode_png(flipped, fbw, fbh), true);
             if (!st) {
                 std::cerr << "ellipsa view: " << st.error().format() << "\n";
                 exit_code = 1;

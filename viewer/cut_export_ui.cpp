@@ -4,7 +4,7 @@
 
 #include "exports/cut_figure.hpp"
 #include "exports/render.hpp"
-#include "importers/atomic_write.hpp"
+#include "io/atomic_write.hpp"
 
 namespace ellipsa::viewer {
 
@@ -41,7 +41,7 @@ std::string export_current_cut(const AppState& s, const std::string& path) {
         if (!img) return "Export failed: " + img.error().format();
         bytes = std::move(*img);
     }
-    Status st = write_file_atomically(path, bytes, false);
+    Status st = io::write_file_atomically(path, bytes, false);
     if (!st) return "Export failed: " + st.error().format();
     return "Wrote " + std::filesystem::absolute(path).string();
 }

@@ -5,7 +5,7 @@
 #include <fstream>
 #include <sstream>
 
-#include "importers/atomic_write.hpp"
+#include "io/atomic_write.hpp"
 
 namespace ellipsa::viewer {
 
@@ -34,7 +34,7 @@ bool save_settings(const ViewerSettings& s, std::string& message) {
     if (dir.empty()) return true;
     std::error_code ec;
     std::filesystem::create_directories(dir, ec);
-    Status st = write_file_atomically(dir + "/viewer.conf", format_settings(s), true);
+    Status st = io::write_file_atomically(dir + "/viewer.conf", format_settings(s), true);
     if (!st) message = st.error().format();
     return st.ok();
 }

@@ -7,7 +7,7 @@
 #include <algorithm>
 #include <cstdio>
 
-#include "importers/atomic_write.hpp"
+#include "io/atomic_write.hpp"
 #include "viewer/gl.hpp"
 #include "viewer/overlay.hpp"
 #include "viewer/render_context.hpp"
@@ -120,7 +120,7 @@ Result<std::vector<std::uint8_t>> render_snapshot_rgba(const FarFieldSet& s, con
 Status render_snapshot_png(const FarFieldSet& s, const SnapshotOptions& o, const std::string& path, bool overwrite) {
     auto px = render_snapshot_rgba(s, o);
     if (!px) return px.error();
-    return write_file_atomically(path, encode_png(*px, o.width, o.height), overwrite);
+    return io::write_file_atomically(path, encode_png(*px, o.width, o.height), overwrite);
 }
 
 }  // namespace ellipsa::viewer

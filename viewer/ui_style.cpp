@@ -2,23 +2,23 @@
 
 #include <imgui.h>
 
-#include "viewer/embedded.hpp"
+#include "exports/font_data.hpp"
 
 namespace ellipsa::viewer {
 
 UiFonts setup_ui_style(float scale) {
     ImGuiIO& io = ImGui::GetIO();
     UiFonts f;
-    const std::string_view ttf = embedded_file("DejaVuSans.ttf");
-    if (!ttf.empty()) {
+    const exports::FontBytes ttf = exports::bundled_font_bytes(exports::FontWeight::regular);
+    if (ttf.size > 0) {
         ImFontConfig cfg;
         cfg.FontDataOwnedByAtlas = false;  // the bytes live in the executable
         cfg.OversampleH = 2;
         static const ImWchar ranges[] = {0x0020, 0x00FF, 0x0370, 0x03FF, 0x2010, 0x2030, 0x2190, 0x21FF, 0x2200, 0x22FF, 0};
-        void* data = const_cast<char*>(ttf.data());
-        f.body = io.Fonts->AddFontFromMemoryTTF(data, int(ttf.size()), 15.0f * scale, &cfg, ranges);
-        f.small = io.Fonts->AddFontFromMemoryTTF(data, int(ttf.size()), 13.0f * scale, &cfg, ranges);
-        f.title = io.Fonts->AddFontFromMemoryTTF(data, int(ttf.size()), 18.0f * scale, &cfg, ranges);
+        void* data = const_cast<unsigned char*>(ttf.data);
+        f.body = io.Fonts->AddFontFromMemoryTTF(data, int(ttf.size), 15.0f * scale, &cfg, ranges);
+        f.small = io.Fonts->AddFontFromMemoryTTF(data, int(ttf.size), 13.0f * scale, &cfg, ranges);
+        f.title = io.Fonts->AddFontFromMemoryTTF(data, int(ttf.size), 18.0f * scale, &cfg, ranges);
     } else {
         f.body = f.small = f.title = io.Fonts->AddFontDefault();
     }

@@ -14,7 +14,7 @@
 
 #include "exports/cut_figure.hpp"
 #include "exports/render.hpp"
-#include "importers/atomic_write.hpp"
+#include "io/atomic_write.hpp"
 #include "pattern/reference.hpp"
 
 using namespace ellipsa;
@@ -42,7 +42,7 @@ TEST_CASE("golden image: polar cut of a 1.25-wavelength dipole", "[export][golde
 
     const std::string golden_path = std::string(ELLIPSA_SOURCE_DIR) + "/tests/data/golden/cut_dipole125_polar.png";
     if (std::getenv("ELLIPSA_UPDATE_GOLDEN")) {
-        REQUIRE(write_file_atomically(golden_path, *png).ok());
+        REQUIRE(io::write_file_atomically(golden_path, *png).ok());
         WARN("golden image rewritten: " << golden_path);
         return;
     }
@@ -70,7 +70,7 @@ TEST_CASE("golden image: polar cut of a 1.25-wavelength dipole", "[export][golde
     const double frac = double(far_off) / (double(got->rgb.size()) / 3);
     if (mean >= 0.5 || frac >= 0.003) {
         const std::string actual = "cut_dipole125_polar.actual.png";
-        (void)write_file_atomically(actual, *png);
+        (void)io::write_file_atomically(actual, *png);
         FAIL_CHECK("differs from the golden image (mean " << mean << ", far-off fraction " << frac
                                                           << "); this run's image is in ./" << actual);
     }

@@ -9,9 +9,9 @@
 #include <set>
 #include <string>
 
-#include "exports/atomic_folder.hpp"
+#include "io/atomic_folder.hpp"
 #include "exports/report.hpp"
-#include "importers/atomic_write.hpp"
+#include "io/atomic_write.hpp"
 #include "pattern/environment.hpp"
 #include "pattern/reference.hpp"
 
@@ -141,24 +141,24 @@ TEST_CASE("publish_folder: new, refused, replaced, failed fill, file in the way"
     const fs::path root = scratch("folder");
     const std::string target = (root / "out").string();
     auto writer = [](const std::string& text) {
-        return [text](const std::string& dir) { return write_file_atomically(dir + "/a.txt", text); };
+        return [text](const std::string& dir) { return io::write_file_atomically(dir + "/a.txt", text); };
     };
-    REQUIRE(publish_folder(target, writer("one"), false).ok());
+    REQUIRE(io::publish_folder(target, writer("one"), false).ok());
     CHECK(read_file(root / "out" / "a.txt") == "one");
 
-    auto refused = publish_folder(target, writer("two"), false);
+    auto refused = io::publish_folder(target, writer("two"), false);
     REQUIRE_FALSE(refused.ok());
     CHECK(refused.error().message.find("--force") != std::string::npos);
     CHECK(read_file(root / "out" / "a.txt") == "one");
 
-    REQUIRE(publish_folder(target, writer("three"), true).ok());
+    REQUIRE(io::publish_folder(target, writer("three"), true).ok());
     CHECK(read_file(root / "out" / "a.txt") == "three");
 
     // A fill that fails half-way leaves the old folder as it was and no temporary folder.
-    auto failed = publish_folder(
+    auto failed = io::publish_folder(
         target,
         [](const std::string& dir) -> Status {
-            (void)write_file_atomically(dir + "/a.txt", "partial");
+            (void)io::write_file_atomically(dir + "/a.txt", "partial");
             return Error{"", 0, 0, "simulated failure"};
         },
         true);
@@ -173,8 +173,8 @@ TEST_CASE("publish_folder: new, refused, replaced, failed fill, file in the way"
 
     // A regular file where the folder (or its parent) should be.
     std::ofstream(root / "plain") << "keep";
-    CHECK_FALSE(publish_folder((root / "plain").string(), writer("x"), true).ok());
-    auto under = publish_folder((root / "plain" / "sub").string(), writer("x"), true);
+    CHECK_FALSE(io::publish_folder((root / "plain").string(), writer("x"), true).ok());
+    auto under = io::publish_folder((root / "plain" / "sub").string(), writer("x"), true);
     REQUIRE_FALSE(under.ok());
     CHECK(under.error().message.find("temporary folder") != std::string::npos);
     CHECK(read_file(root / "plain") == "keep");

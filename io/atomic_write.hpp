@@ -6,9 +6,9 @@
 
 #include "pattern/result.hpp"
 
-namespace ellipsa {
+namespace ellipsa::io {
 
 // overwrite = false refuses when `path` exists (the message says to use --force).
 Status write_file_atomically(const std::string& path, std::string_view content, bool overwrite = true);
 
-}  // namespace ellipsa
+}  // namespace ellipsa::io

@@ -1,4 +1,4 @@
-#include "exports/atomic_folder.hpp"
+#include "io/atomic_folder.hpp"
 
 #include <cerrno>
 #include <cstdio>
@@ -8,7 +8,7 @@
 #include <sys/stat.h>
 #include <unistd.h>
 
-namespace ellipsa::exports {
+namespace ellipsa::io {
 
 namespace {
 
@@ -87,4 +87,4 @@ Status publish_folder(const std::string& target_in, const std::function<Status(c
     return Ok{};
 }
 
-}  // namespace ellipsa::exports
+}  // namespace ellipsa::io

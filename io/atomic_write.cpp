@@ -1,4 +1,4 @@
-#include "importers/atomic_write.hpp"
+#include "io/atomic_write.hpp"
 
 #include <cerrno>
 #include <cstdio>
@@ -7,7 +7,7 @@
 #include <sys/stat.h>
 #include <unistd.h>
 
-namespace ellipsa {
+namespace ellipsa::io {
 
 Status write_file_atomically(const std::string& path, std::string_view content, bool overwrite) {
     struct stat st {};
@@ -44,4 +44,4 @@ Status write_file_atomically(const std::string& path, std::string_view content, 
     return Ok{};
 }
 
-}  // namespace ellipsa
+}  // namespace ellipsa::io

@@ -8,7 +8,7 @@
 
 #include "pattern/result.hpp"
 
-namespace ellipsa::exports {
+namespace ellipsa::io {
 
 // fill(dir) writes the folder's files into `dir` (a fresh, empty temporary folder).
 // overwrite = false refuses when the target exists (the message says to use --force); a target
@@ -16,4 +16,4 @@ namespace ellipsa::exports {
 Status publish_folder(const std::string& target, const std::function<Status(const std::string& dir)>& fill,
                       bool overwrite);
 
-}  // namespace ellipsa::exports
+}  // namespace ellipsa::io
