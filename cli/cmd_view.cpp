@@ -7,6 +7,7 @@
 #include "viewer/scene/components.hpp"
 #include <cmath>
 #include <cstdio>
+#include <filesystem>
 
 namespace ellipsa::cli {
 namespace {
@@ -19,11 +20,22 @@ struct ViewArgs {
     int compare = 0;
     bool wireframe = false, translucent = false;
     bool diversity = false;
+    bool force = false;
 };
 
+// "A,B" with two finite numbers (sscanf alone takes "nan" and "inf").
 bool parse_pair(const std::string& s, double& a, double& b) {
     char tail = 0;
-    return std::sscanf(s.c_str(), "%lf,%lf%c", &a, &b, &tail) == 2;
+    return std::sscanf(s.c_str(), "%lf,%lf%c", &a, &b, &tail) == 2 && std::isfinite(a) && std::isfinite(b);
+}
+
+// The first of the files a scripted run would write that is already there (a dangling link counts).
+std::string existing_output(const ViewArgs& a) {
+    for (const std::string* f : {&a.screenshot, &a.export_cut, &a.export_view}) {
+        std::error_code ec;
+        if (!f->empty() && std::filesystem::exists(std::filesystem::symlink_status(*f, ec))) return *f;
+    }
+    return "";
 }
 
 Registered add_view(CLI::App& root) {
@@ -48,6 +60,7 @@ Registered add_view(CLI::App& root) {
     sub->add_option("--cut-style", a->cut_style, "Start with a polar or rect cut plot")->check(CLI::IsMember({"polar", "rect"}));
     sub->add_flag("--translucent", a->translucent, "Start with a translucent surface");
     sub->add_flag("--diversity", a->diversity, "Start with the diversity panel open (MEG, ECC, orientation curve)");
+    sub->add_flag("--force", a->force, "Replace the files of --screenshot, --export-view and --export-cut if they exist");
     return {sub, [a]() -> int {
                 viewer::ViewerOptions o;
                 o.files = a->files;
@@ -106,7 +119,7 @@ Registered add_view(CLI::App& root) {
                 o.diversity_panel = a->diversity;
                 if (!a->pin.empty()) {
                     if (!parse_pair(a->pin, o.pin_theta_deg, o.pin_phi_deg) || o.pin_theta_deg < 0 || o.pin_theta_deg > 180) {
-                        std::cerr << "ellipsa view: --pin expects THETA,PHI in degrees with THETA in [0, 180], found '" << a->pin << "'\n";
+                        std::cerr << "ellipsa view: --pin expects THETA,PHI in degrees (finite) with THETA in [0, 180], found '" << a->pin << "'\n";
                         return exit_usage;
                     }
                     o.has_pin = true;
@@ -117,7 +130,12 @@ Registered add_view(CLI::App& root) {
                         return exit_usage;
                     }
                     o.has_view = true;
-                }  // scripted runs leave the user's settings alone
+                }
+                if (const std::string f = existing_output(*a); !f.empty() && !a->force) {
+                    std::cerr << "ellipsa view: " << f << ": already exists; use --force to replace it\n";
+                    return exit_bad_input;
+                }
+                o.force = a->force;
                 return viewer::run_viewer(o);
             }};
 }

@@ -2,7 +2,8 @@
 # ./dev check: the quality gates beyond ./dev test.
 #   1. AddressSanitizer + UndefinedBehaviorSanitizer build; core, importer and scene tests under it
 #   2. the importer fuzz target for a bounded time on its corpus
-#   3. a headless viewer run under LeakSanitizer (errors from our code fail the gate)
+#   3. a headless viewer run under LeakSanitizer (errors from our code fail the gate), and the
+#      viewer robustness script under the sanitizers
 #   4. static analysis (cppcheck)
 #   5. a clean-machine check: a fresh clone runs the README's two commands (ELLIPSA_CLEAN_MACHINE=0 skips)
 set -euo pipefail
@@ -60,6 +61,12 @@ if command -v xvfb-run >/dev/null; then
 fi
 rm -rf "$tmp"
 echo "viewer: no sanitizer errors and no leaks from our code"
+# Hostile settings, empty cuts, NaN options, no replacing without --force (tests/viewer/robustness.sh),
+# under the sanitizers: ASan's RSS limit stands in for ulimit -v, which ASan's shadow memory cannot live under.
+if command -v xvfb-run >/dev/null; then
+  ELLIPSA=build-asan/ellipsa XVFB_RUN=$(command -v xvfb-run) ROBUST_MEMORY_KB=unlimited ROBUST_WAIT_S=8 \
+    ASAN_OPTIONS=detect_leaks=0:abort_on_error=1:hard_rss_limit_mb=4000 tests/viewer/robustness.sh
+fi
 
 echo "== 4. static analysis =="
 tests/static_analysis.sh

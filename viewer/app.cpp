@@ -157,52 +157,15 @@ void rebuild_surface(AppState& s, SceneRenderer& r) {
 void rebuild_cut(AppState& s, SceneRenderer& r) {
     s.cut = CutData{};
     const LoadedPattern* a = s.active_pattern();
-    if (!a) return;
-    const ViewerSettings& st = s.settings;
-    CutSpec spec;
-    if (st.cut_kind == 0)
-        spec = CutSpec::phi_cut(st.cut_angle_deg);
-    else if (st.cut_kind == 1)
-        spec = CutSpec::theta_cut(std::clamp(st.cut_angle_deg, 0.0, 180.0));
-    else if (s.pinned)
-        spec = CutSpec::through(s.pinned->theta_deg, s.pinned->phi_deg, false);
-    else {
+    const std::optional<CutSpec> spec = cut_spec_for(s.settings, s.pinned ? std::optional(s.pinned->theta_deg) : std::nullopt,
+                                                     s.pinned ? std::optional(s.pinned->phi_deg) : std::nullopt);
+    if (!a || !spec) {
         r.set_cut_ring(LineSet{});
         return;
     }
-    CutData& cd = s.cut;
-    cd.spec = spec;
-    const double step = std::max(0.25, default_cut_step(a->set.grid));
-    CutSamples cs = sample_cut(a->set, s.freq, spec, step);
-    cd.angle_deg = cs.angle_deg;
-    cd.theta_deg = cs.theta_deg;
-    cd.phi_deg = cs.phi_deg;
-    cd.unit = db_unit(a->set.quantity, Component::total);
-    auto add_curves = [&](const LoadedPattern& p, int which, const CutSamples& c) {
-        for (Component comp : all_components) {
-            if (!((st.cut_components >> unsigned(comp)) & 1u)) continue;
-            if (!unavailable_reason(p.set, comp).empty()) continue;
-            CutCurve cv{comp, which, {}};
-            for (double v : cut_power(p.set, c, comp)) cv.db.push_back(std::isnan(v) ? v : to_db(v));
-            cd.curves.push_back(std::move(cv));
-        }
-    };
-    add_curves(*a, 0, cs);
-    if (const LoadedPattern* b = s.compare_pattern()) {
-        CutSamples cb = sample_cut(b->set, s.freq_for(*b), spec, step);
-        if (cb.angle_deg.size() == cs.angle_deg.size()) add_curves(*b, 1, cb);
-    }
-    if (cd.curves.empty()) return;
-    std::vector<double> lin;
-    for (double v : cd.curves[0].db) lin.push_back(std::isnan(v) ? v : std::pow(10.0, v / 10));
-    cd.figures = beam_figures(cd.angle_deg, lin);
-    cd.unit = db_unit(a->set.quantity, cd.curves[0].component);
-    cd.peak_db = -1e300;
-    for (const CutCurve& cv : cd.curves)
-        for (double v : cv.db)
-            if (std::isfinite(v)) cd.peak_db = std::max(cd.peak_db, v);
-    cd.valid = true;
-    r.set_cut_ring(build_cut_ring(a->set, s.mesh, cd.theta_deg, cd.phi_deg, {0.10f, 0.10f, 0.12f}));
+    const LoadedPattern* b = s.compare_pattern();
+    s.cut = build_cut_data(a->set, s.freq, b ? &b->set : nullptr, b ? s.freq_for(*b) : 0, *spec, s.settings.cut_components);
+    r.set_cut_ring(s.cut.valid ? build_cut_ring(a->set, s.mesh, s.cut.theta_deg, s.cut.phi_deg, {0.10f, 0.10f, 0.12f}) : LineSet{});
 }
 
 struct Layout {
@@ -305,9 +268,16 @@ int run_viewer(const ViewerOptions& opt) {
     AppState s;
     DiversityPanelState diversity;  // the diversity panel (viewer/panel_diversity.hpp)
     diversity.open = opt.diversity_panel;
+    // Scripted runs (--frames) neither read nor write the user's settings.
     std::vector<std::string> warnings;
-    if (opt.save_settings) s.settings = load_settings(warnings);
+    SettingsPlace place;
+    if (opt.save_settings) {
+        place = settings_place(true);
+        s.settings = load_settings(place, warnings);
+        if (!place.problem.empty()) warnings.push_back("settings will not be saved: " + place.problem);
+    }
     for (const std::string& w : warnings) std::cerr << "ellipsa view: " << w << "\n";
+    warnings.clear();
 
     ContextRequest req;
     req.software = opt.software;
@@ -331,10 +301,11 @@ int run_viewer(const ViewerOptions& opt) {
     IMGUI_CHECKVERSION();
     ImGui::CreateContext();
     ImGuiIO& io = ImGui::GetIO();
-    static std::string ini_path;
-    ini_path = config_dir().empty() || !opt.save_settings ? "" : config_dir() + "/imgui.ini";
-    if (!ini_path.empty()) std::filesystem::create_directories(config_dir());
-    io.IniFilename = ini_path.empty() ? nullptr : ini_path.c_str();
+    // The viewer reads and writes imgui.ini itself: bounded, regular files only, saved at exit.
+    io.IniFilename = nullptr;
+    if (opt.save_settings)
+        if (const std::optional<std::string> ini = load_imgui_ini(place, warnings)) ImGui::LoadIniSettingsFromMemory(ini->data(), ini->size());
+    for (const std::string& w : warnings) std::cerr << "ellipsa view: " << w << "\n";
     float xscale = 1, yscale = 1;
     glfwGetWindowContentScale(win, &xscale, &yscale);
     s.fonts = setup_ui_style(std::clamp(xscale, 1.0f, 3.0f));
@@ -603,7 +574,7 @@ int run_viewer(const ViewerOptions& opt) {
         ++frame;
         const bool last = opt.frames > 0 && frame >= opt.frames;
         if (last && !opt.export_cut.empty()) {
-            const std::string msg = export_current_cut(s, opt.export_cut);
+            const std::string msg = export_current_cut(s, opt.export_cut, opt.force);
             if (msg.rfind("Wrote", 0) != 0) {
                 std::cerr << "ellipsa view: " << msg << "\n";
                 exit_code = 1;
@@ -618,7 +589,7 @@ int run_viewer(const ViewerOptions& opt) {
             const std::size_t rowb = std::size_t(fbw) * 4;
             for (int y = 0; y < fbh; ++y) std::copy_n(px.data() + std::size_t(fbh - 1 - y) * rowb, rowb, flipped.data() + std::size_t(y) * rowb);
             for (std::size_t i = 3; i < flipped.size(); i += 4) flipped[i] = 255;
-            Status st = io::write_file_atomically(opt.screenshot, encode_png(flipped, fbw, fbh), true);
+            Status st = io::write_file_atomically(opt.screenshot, encode_png(flipped, fbw, fbh), opt.force);
             if (!st) {
                 std::cerr << "ellipsa view: " << st.error().format() << "\n";
                 exit_code = 1;
@@ -647,7 +618,7 @@ int run_viewer(const ViewerOptions& opt) {
                 // GLVND lets a thread hold only one window-system API's context at a time: release
                 // the window's GLX context while the headless EGL context works, then take it back.
                 glfwMakeContextCurrent(nullptr);
-                Status st = render_snapshot_png(a->set, so, path, false);
+                Status st = render_snapshot_png(a->set, so, path, !opt.export_view.empty() && opt.force);
                 s.export_message = st ? "Wrote " + std::filesystem::absolute(path).string() : "Export failed: " + st.error().format();
                 if (!st && !opt.export_view.empty()) {
                     std::cerr << "ellipsa view: " << s.export_message << "\n";
@@ -673,12 +644,14 @@ int run_viewer(const ViewerOptions& opt) {
         std::printf("{\"frames\": %zu, \"median_ms\": %.3f, \"p95_ms\": %.3f}\n", frame_ms.size(), pct(0.5), pct(0.95));
         std::fflush(stdout);
     }
-    if (opt.save_settings) {
+    if (opt.save_settings && place.can_save()) {  // (a folder that cannot be made was reported at start)
         int w = 0, h = 0;
         glfwGetWindowSize(win, &w, &h);
         if (w > 0 && h > 0) s.settings.window_width = w, s.settings.window_height = h;
-        std::string msg;
-        if (!save_settings(s.settings, msg)) std::cerr << "ellipsa view: settings not saved: " << msg << "\n";
+        std::size_t ini_size = 0;
+        const char* ini = ImGui::SaveIniSettingsToMemory(&ini_size);
+        if (Status st = save_settings(place, s.settings, std::string(ini, ini_size)); !st)
+            std::cerr << "ellipsa view: settings not saved: " << st.error().format() << "\n";
     }
     ImGui_ImplOpenGL3_Shutdown();
     ImGui_ImplGlfw_Shutdown();

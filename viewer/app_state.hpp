@@ -15,6 +15,7 @@
 #include "pattern/summary.hpp"
 #include "viewer/render_context.hpp"
 #include "viewer/scene/camera.hpp"
+#include "viewer/scene/cut_view.hpp"
 #include "viewer/scene/picking.hpp"
 #include "viewer/scene/poincare.hpp"
 #include "viewer/scene/settings.hpp"
@@ -27,23 +28,6 @@ struct LoadedPattern {
     FarFieldSet set;
     std::string path;  // empty for built-in patterns
     std::vector<PatternSummary> summaries;  // per frequency, filled on first use
-};
-
-// One component's curve on the current cut.
-struct CutCurve {
-    Component component;
-    int pattern = 0;         // index into patterns (A or B)
-    std::vector<double> db;  // NaN where invalid
-};
-
-struct CutData {
-    CutSpec spec;
-    std::vector<double> angle_deg, theta_deg, phi_deg;
-    std::vector<CutCurve> curves;
-    BeamFigures figures;      // of the first curve
-    std::string unit;
-    double peak_db = 0;
-    bool valid = false;
 };
 
 // A file being read on a worker thread, so a large file never freezes the window. The worker

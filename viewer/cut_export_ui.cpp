@@ -8,7 +8,7 @@
 
 namespace ellipsa::viewer {
 
-std::string export_current_cut(const AppState& s, const std::string& path) {
+std::string export_current_cut(const AppState& s, const std::string& path, bool overwrite) {
     const LoadedPattern* a = s.active_pattern();
     if (!a || !s.cut.valid) return "Nothing to export: no cut is shown";
     const auto format = exports::format_from_path(path);
@@ -41,7 +41,7 @@ std::string export_current_cut(const AppState& s, const std::string& path) {
         if (!img) return "Export failed: " + img.error().format();
         bytes = std::move(*img);
     }
-    Status st = io::write_file_atomically(path, bytes, false);
+    Status st = io::write_file_atomically(path, bytes, overwrite);
     if (!st) return "Export failed: " + st.error().format();
     return "Wrote " + std::filesystem::absolute(path).string();
 }

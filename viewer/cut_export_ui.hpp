@@ -8,8 +8,8 @@
 
 namespace ellipsa::viewer {
 
-// Writes the current cut to `path` (format from the extension) without overwriting; returns a
-// one-line message for the UI ("Wrote ..." or the error).
-std::string export_current_cut(const AppState& s, const std::string& path);
+// Writes the current cut to `path` (format from the extension), replacing a file only when
+// `overwrite`; returns a one-line message for the UI ("Wrote ..." or the error).
+std::string export_current_cut(const AppState& s, const std::string& path, bool overwrite = false);
 
 }  // namespace ellipsa::viewer

@@ -66,7 +66,8 @@ void plot_polar(ImDrawList* dl, ImVec2 c, float R, const CutData& cd, double top
         flush();
     }
     // -3 dB markers of the first curve.
-    const BeamFigures& bf = cd.figures;
+    if (!cd.figures) return;
+    const BeamFigures& bf = *cd.figures;
     for (const std::optional<double>& x : {bf.left_deg, bf.right_deg})
         if (x) {
             const ImVec2 p = at(*x, R * float(polar_radius(bf.peak_db - 3.0103, top, range)));
@@ -112,13 +113,12 @@ void plot_rect(ImDrawList* dl, ImVec2 p0, ImVec2 p1, const CutData& cd, double t
         }
         flush();
     }
-    const BeamFigures& bf = cd.figures;
+    if (!cd.figures) return;
+    const BeamFigures& bf = *cd.figures;
     const float y3 = Y(bf.peak_db - 3.0103);
     for (const std::optional<double>& x : {bf.left_deg, bf.right_deg})
-        if (x) {
-            double a = *x;
-            while (a < a0) a += 360;
-            while (a > a1) a -= 360;
+        if (x && std::isfinite(*x)) {
+            const double a = a0 + std::fmod(std::fmod(*x - a0, 360.0) + 360.0, 360.0);  // into [a0, a0 + 360)
             dl->AddLine(ImVec2(X(a), y3 - 8), ImVec2(X(a), y3 + 8), ink, 1.5f);
         }
     if (bf.left_deg || bf.right_deg) dl->AddLine(ImVec2(p0.x, y3), ImVec2(p1.x, y3), IM_COL32(150, 150, 150, 140), 1.0f);
@@ -189,12 +189,14 @@ Intents draw_cut_panel(AppState& s) {
     const CutData& cd = s.cut;
     const ImVec2 o = ImGui::GetCursorScreenPos(), avail = ImGui::GetContentRegionAvail();
     ImDrawList* dl = ImGui::GetWindowDrawList();
-    if (!cd.valid || cd.angle_deg.empty()) {
-        ImGui::TextDisabled(st.cut_kind == 2 ? "Pin a direction to cut through it." : "Choose at least one component.");
+    if (!cd.valid || cd.angle_deg.empty() || !cd.peak_db) {
+        ImGui::TextDisabled(!cd.valid && st.cut_kind == 2 ? "Pin a direction to cut through it."
+                            : !cd.valid                   ? "Choose at least one component."
+                                                          : "No power on this cut: every chosen component is zero here.");
         ImGui::EndChild();
         return in;
     }
-    const double range = st.range_db, top = plot_top_db(cd.peak_db, range);
+    const double range = st.range_db, top = plot_top_db(*cd.peak_db, range);
     const float legend_w = std::max(150.0f, std::min(230.0f, avail.x - avail.y));
     const float plot_w = avail.x - legend_w, plot_h = avail.y;
     if (st.polar_plot) {
@@ -218,7 +220,12 @@ Intents draw_cut_panel(AppState& s) {
     }
     ly += 6;
     char b[128];
-    const BeamFigures& bf = cd.figures;
+    if (!cd.figures) {
+        dl->AddText(ImVec2(lx, ly), ink, "first curve: no power on this cut");
+        ImGui::EndChild();
+        return in;
+    }
+    const BeamFigures& bf = *cd.figures;
     std::snprintf(b, sizeof b, "peak %.2f %s at %.1f\u00b0", bf.peak_db, cd.unit.c_str(), bf.peak_angle_deg);
     dl->AddText(ImVec2(lx, ly), ink, b);
     ly += 18;

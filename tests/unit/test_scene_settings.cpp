@@ -2,6 +2,8 @@
 // recent-file list kept short and without duplicates; and the cut-plot grid helpers.
 #include <catch2/catch.hpp>
 
+#include <cmath>
+
 #include "viewer/scene/plot_math.hpp"
 #include "viewer/scene/settings.hpp"
 
@@ -72,4 +74,49 @@ TEST_CASE("cut plot dB grid: readable steps and levels", "[scene][plot]") {
     CHECK(polar_radius(-10, 5, 30) == Approx(0.5));
     CHECK(polar_radius(-100, 5, 30) == 0);
     CHECK(std::isnan(polar_radius(NAN, 5, 30)));
+}
+
+TEST_CASE("settings values must be finite, in range and whole where they count", "[scene][settings]") {
+    // NaN passes a check written as `d < lo || d > hi`; every such value must keep its default.
+    std::vector<std::string> w;
+    const ViewerSettings d;
+    ViewerSettings t = parse_settings("window_width = nan\nwindow_height = -inf\ncut_panel_height = nan\n"
+                                      "left_panel_width = inf\nrange_db = -nan\ncut_kind = 1.5\ncut_angle_deg = nan\n"
+                                      "cut_components = 2.5\nright_panel_width = 1e400\nglyphs = nan\n",
+                                      &w);
+    CHECK(w.size() == 10);
+    CHECK(t.window_width == d.window_width);
+    CHECK(t.window_height == d.window_height);
+    CHECK(t.cut_panel_height == d.cut_panel_height);
+    CHECK(t.left_panel_width == d.left_panel_width);
+    CHECK(t.right_panel_width == d.right_panel_width);
+    CHECK(t.range_db == d.range_db);
+    CHECK(t.cut_kind == d.cut_kind);
+    CHECK(t.cut_angle_deg == d.cut_angle_deg);
+    CHECK(t.cut_components == d.cut_components);
+    CHECK(t.glyphs == d.glyphs);
+    // Nothing non-finite can be written back.
+    CHECK(format_settings(t).find("nan") == std::string::npos);
+    CHECK(format_settings(t).find("inf") == std::string::npos);
+}
+
+TEST_CASE("a settings text full of problems reports a bounded list", "[scene][settings]") {
+    std::string text;
+    for (int i = 0; i < 5000; ++i) text += "nonsense\n";
+    std::vector<std::string> w;
+    parse_settings(text, &w);
+    REQUIRE(w.size() == max_settings_warnings + 1);
+    CHECK(w.back() == "and 4980 more problems, not listed");
+}
+
+TEST_CASE("cut plot dB grid levels stay bounded for any top", "[scene][plot]") {
+    // A cut with no power once started the plot at -1e300, where `v -= 5` no longer changes v:
+    // the loop never ended and grew without bound.
+    CHECK(db_grid_levels(-1e300, 30).size() == 7);
+    CHECK(db_grid_levels(1e300, 30).size() == 7);
+    CHECK(db_grid_levels(-INFINITY, 30).empty());
+    CHECK(db_grid_levels(NAN, 30).empty());
+    CHECK(db_grid_levels(0, NAN).empty());
+    CHECK(db_grid_levels(0, 0).empty());
+    CHECK(db_grid_levels(0, 1e300).size() <= std::size_t(max_db_grid_levels));
 }

@@ -1,5 +1,6 @@
 #include "viewer/scene/plot_math.hpp"
 
+#include <algorithm>
 #include <cmath>
 
 namespace ellipsa::viewer {
@@ -12,8 +13,11 @@ double db_grid_step(double range_db) {
 
 std::vector<double> db_grid_levels(double top_db, double range_db) {
     std::vector<double> out;
+    if (!std::isfinite(top_db) || !std::isfinite(range_db) || !(range_db > 0)) return out;
     const double step = db_grid_step(range_db);
-    for (double v = top_db; v >= top_db - range_db - 1e-9; v -= step) out.push_back(v);
+    // Counted, not stepped: at a huge |top| subtracting the step no longer changes the value.
+    const long n = std::min(max_db_grid_levels - 1, long(std::floor(range_db / step + 1e-9)));
+    for (long k = 0; k <= n; ++k) out.push_back(top_db - double(k) * step);
     return out;
 }
 

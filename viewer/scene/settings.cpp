@@ -1,6 +1,8 @@
 #include "viewer/scene/settings.hpp"
 
 #include <algorithm>
+#include <cmath>
+#include <type_traits>
 #include <cstdio>
 #include <cstdlib>
 #include <sstream>
@@ -18,6 +20,11 @@ namespace {
 std::string trim(const std::string& s) {
     const auto a = s.find_first_not_of(" \t\r"), b = s.find_last_not_of(" \t\r");
     return a == std::string::npos ? "" : s.substr(a, b - a + 1);
+}
+std::string number_text(double v) {
+    char b[32];
+    std::snprintf(b, sizeof b, "%g", v);
+    return b;
 }
 bool to_double(const std::string& v, double& out) {
     char* end = nullptr;
@@ -59,8 +66,9 @@ ViewerSettings parse_settings(const std::string& text, std::vector<std::string>*
     std::istringstream in(text);
     std::string line;
     int n = 0;
+    std::size_t problems = 0;
     auto warn = [&](const std::string& what) {
-        if (warnings) warnings->push_back("line " + std::to_string(n) + ": " + what);
+        if (warnings && ++problems <= max_settings_warnings) warnings->push_back("line " + std::to_string(n) + ": " + what);
     };
     while (std::getline(in, line)) {
         ++n;
@@ -74,11 +82,15 @@ ViewerSettings parse_settings(const std::string& text, std::vector<std::string>*
         const std::string k = trim(line.substr(0, eq)), v = trim(line.substr(eq + 1));
         double d = 0;
         const bool num = to_double(v, d);
+        // Written as "inside" so that NaN fails it; whole-number fields take whole numbers only.
         auto need_num = [&](auto& field, double lo, double hi) {
-            if (!num || d < lo || d > hi)
-                warn("'" + k + "' expects a number in [" + std::to_string(lo) + ", " + std::to_string(hi) + "], found '" + v + "'");
+            using T = std::remove_reference_t<decltype(field)>;
+            const bool whole = !std::is_floating_point_v<T>;
+            if (num && d >= lo && d <= hi && (!whole || d == std::floor(d)))
+                field = static_cast<T>(d);
             else
-                field = static_cast<std::remove_reference_t<decltype(field)>>(d);
+                warn("'" + k + "' expects " + (whole ? "a whole number" : "a number") + " from " + number_text(lo) + " to " +
+                     number_text(hi) + ", found '" + v + "'");
         };
         auto need_bool = [&](bool& field) {
             if (!num || (d != 0 && d != 1))
@@ -116,6 +128,8 @@ ViewerSettings parse_settings(const std::string& text, std::vector<std::string>*
         } else
             warn("unknown key '" + k + "'");
     }
+    if (warnings && problems > max_settings_warnings)
+        warnings->push_back("and " + std::to_string(problems - max_settings_warnings) + " more problems, not listed");
     return s;
 }
 

@@ -37,7 +37,11 @@ struct ViewerSettings {
 };
 
 std::string format_settings(const ViewerSettings& s);
-// Parse settings text; problems ("line 4: unknown key 'foo'") are appended to `warnings`.
+// Parse settings text: a pure function of the text (no I/O), linear in its length. Every value
+// is checked (finite, in range, whole where it counts something); a bad line keeps the default
+// and its problem ("line 4: unknown key 'foo'") is appended to `warnings`: the first
+// max_settings_warnings problems, then one line that counts the rest.
+inline constexpr std::size_t max_settings_warnings = 20;
 ViewerSettings parse_settings(const std::string& text, std::vector<std::string>* warnings = nullptr);
 
 }  // namespace ellipsa::viewer
