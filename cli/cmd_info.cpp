@@ -4,6 +4,7 @@
 #include <memory>
 #include <optional>
 
+#include "cli/band_text.hpp"
 #include "cli/commands.hpp"
 #include "cli/format.hpp"
 #include "cli/json.hpp"
@@ -65,14 +66,17 @@ void write_json(const FarFieldSet& s, const std::vector<std::size_t>& which, con
         if (r.power.directivity_sampled_only) d_sampled = to_db(*r.power.directivity_sampled_only);
         j.field("directivity_sampled_region_only_dbi", d_sampled);
         if (!r.unavailable_reason.empty()) j.field("unavailable_reason", r.unavailable_reason);
+        circular_json(j, circular_figures(s, which[std::size_t(&r - rs.data())], r));  // issue 16: AR beamwidth
         j.end_object();
     }
     j.end_array();
+    if (rs.size() > 1) band_summary_json(j, band_summary(s, which, rs));  // issue 16: band edges
     j.end_object();
     std::cout << j.str() << "\n";
 }
 
-void write_human(const std::string& path, const FarFieldSet& s, const std::vector<PatternSummary>& rs) {
+void write_human(const std::string& path, const FarFieldSet& s, const std::vector<std::size_t>& which,
+                 const std::vector<PatternSummary>& rs) {
     const char* q = to_string(s.quantity);
     const char* u = db_unit(q);
     std::cout << path << ": " << (s.name.empty() ? "(no name)" : s.name) << "\n";
@@ -117,7 +121,10 @@ void write_human(const std::string& path, const FarFieldSet& s, const std::vecto
         else
             std::cout << to_string(*r.sense) << "-hand, axial ratio " << fmt(r.axial_ratio_db, "dB")
                       << (r.axial_ratio_db && *r.axial_ratio_db > 30 ? " (nearly linear)" : "") << "\n";
+        // issue 16: AR beamwidth around the peak and the AR <= 3 dB share of the sphere.
+        std::cout << "    AR beamwidth (3 dB)   " << circular_text(circular_figures(s, which[std::size_t(&r - rs.data())], r)) << "\n";
     }
+    if (rs.size() > 1) std::cout << band_summary_text(band_summary(s, which, rs));  // issue 16
 }
 
 Registered add_info(CLI::App& root) {
@@ -149,7 +156,7 @@ Registered add_info(CLI::App& root) {
                 if (a->json)
                     write_json(*s, which, rs);
                 else
-                    write_human(a->file, *s, rs);
+                    write_human(a->file, *s, which, rs);
                 return exit_ok;
             }};
 }

@@ -62,6 +62,19 @@ const char* CutSpec::angle_name() const {
     return "angle";
 }
 
+int nearest_cut_sample(const CutSamples& c, Vec3 d) {
+    int best = -1;
+    double bd = -2;
+    for (std::size_t k = 0; k < c.angle_deg.size(); ++k) {
+        const double x = dot(direction(c.theta_deg[k] * deg, c.phi_deg[k] * deg), d);
+        if (x > bd) {
+            bd = x;
+            best = int(k);
+        }
+    }
+    return best;
+}
+
 double default_cut_step(const Grid& g) {
     double s = std::min(g.theta.step_deg, g.phi.step_deg) / 4;
     return std::max(s, 0.05);

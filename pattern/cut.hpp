@@ -44,6 +44,8 @@ struct CutSamples {
 
 // Sample a cut; step_deg is rounded so that 360 / step is a whole even number.
 CutSamples sample_cut(const FarFieldSet& s, std::size_t freq_index, const CutSpec& spec, double step_deg);
+// Index of the cut sample nearest to a direction (largest dot product); -1 for an empty cut.
+int nearest_cut_sample(const CutSamples& c, Vec3 dir);
 // A step that resolves the grid (a quarter of its finer step, at least 0.05 deg).
 double default_cut_step(const Grid& g);
 

@@ -7,24 +7,6 @@
 
 namespace ellipsa {
 
-namespace {
-
-// Index of the cut sample nearest to a direction.
-int nearest_sample(const CutSamples& c, Vec3 d) {
-    int best = -1;
-    double bd = -2;
-    for (std::size_t k = 0; k < c.angle_deg.size(); ++k) {
-        const double x = dot(direction(c.theta_deg[k] * deg, c.phi_deg[k] * deg), d);
-        if (x > bd) {
-            bd = x;
-            best = int(k);
-        }
-    }
-    return best;
-}
-
-}  // namespace
-
 PatternSummary summarize(const FarFieldSet& s, std::size_t fi) {
     PatternSummary r;
     r.frequency_hz = s.frequencies[fi].frequency_hz;
@@ -37,13 +19,13 @@ PatternSummary summarize(const FarFieldSet& s, std::size_t fi) {
     const double step = default_cut_step(s.grid);
     {
         CutSamples c = sample_cut(s, fi, CutSpec::phi_cut(r.peak.phi_deg), step);
-        BeamFigures b = beam_figures(c.angle_deg, cut_power(s, c, Component::total), nearest_sample(c, pd));
+        BeamFigures b = beam_figures(c.angle_deg, cut_power(s, c, Component::total), nearest_cut_sample(c, pd));
         r.hpbw_elevation_deg = b.hpbw_deg;
         r.sidelobe_elevation_db = b.sidelobe_db;
     }
     {
         CutSamples c = sample_cut(s, fi, CutSpec::through(r.peak.theta_deg, r.peak.phi_deg, true), step);
-        BeamFigures b = beam_figures(c.angle_deg, cut_power(s, c, Component::total), nearest_sample(c, pd));
+        BeamFigures b = beam_figures(c.angle_deg, cut_power(s, c, Component::total), nearest_cut_sample(c, pd));
         r.hpbw_azimuth_deg = b.hpbw_deg;
     }
     auto back = interpolate(s, fi, 180.0 - r.peak.theta_deg, r.peak.phi_deg + 180.0);

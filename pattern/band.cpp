@@ -1,0 +1,149 @@
+#include "pattern/band.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+#include <numeric>
+
+#include "pattern/diversity.hpp"
+#include "pattern/interpolate.hpp"
+#include "pattern/polarisation.hpp"
+
+namespace ellipsa {
+
+namespace {
+
+// Frequency indices of a set in ascending order of frequency.
+std::vector<std::size_t> ascending(const FarFieldSet& s) {
+    std::vector<std::size_t> k(s.frequencies.size());
+    std::iota(k.begin(), k.end(), std::size_t(0));
+    std::stable_sort(k.begin(), k.end(), [&](std::size_t a, std::size_t b) {
+        return s.frequencies[a].frequency_hz < s.frequencies[b].frequency_hz;
+    });
+    return k;
+}
+
+}  // namespace
+
+ArReading axial_ratio_at(const FarFieldSet& s, std::size_t fi, double theta_deg, double phi_deg) {
+    ArReading r;
+    if (!s.has_phase()) {
+        r.unavailable_reason = std::string("the data are ") + to_string(s.content) +
+                               ": the axial ratio needs the phase between E_theta and E_phi";
+        return r;
+    }
+    const auto f = interpolate(s, fi, theta_deg, phi_deg);
+    if (!f) {
+        r.unavailable_reason = "the direction lies outside the sampled region";
+        return r;
+    }
+    const PolarisationState st = decompose(f->e_theta, f->e_phi, phi_deg * deg, s.ludwig3_reference);
+    r.sense = st.sense;
+    if (st.sense == Sense::none) {
+        r.unavailable_reason = "the field is zero in that direction";
+        return r;
+    }
+    r.ar_db = std::isinf(st.axial_ratio) ? std::numeric_limits<double>::infinity() : 20 * std::log10(st.axial_ratio);
+    return r;
+}
+
+std::vector<FrequencyFigures> band_figures(const FarFieldSet& s, const BandOptions& o) {
+    std::vector<FrequencyFigures> out;
+    for (std::size_t fi : ascending(s)) {
+        FrequencyFigures f;
+        f.freq_index = fi;
+        f.summary = summarize(s, fi);
+        for (const Environment& e : o.environments) {
+            auto m = mean_effective_gain(s, fi, e);
+            f.meg.push_back(m ? MegReading{m->meg, ""} : MegReading{std::nullopt, m.error().message});
+        }
+        if (o.direction_deg) f.ar_at_direction = axial_ratio_at(s, fi, o.direction_deg->first, o.direction_deg->second);
+        const Peak& pk = f.summary.peak;
+        f.ar_beamwidth_elevation = ar_beamwidth_through(s, fi, pk.theta_deg, pk.phi_deg, false, o.ar_threshold_db);
+        f.ar_beamwidth_azimuth = ar_beamwidth_through(s, fi, pk.theta_deg, pk.phi_deg, true, o.ar_threshold_db);
+        out.push_back(std::move(f));
+    }
+    return out;
+}
+
+std::vector<PairFrequencyFigures> band_pair_figures(const FarFieldSet& a, const FarFieldSet& b,
+                                                    const std::vector<Environment>& environments) {
+    std::vector<PairFrequencyFigures> out;
+    for (std::size_t fa : ascending(a)) {
+        const double f = a.frequencies[fa].frequency_hz;
+        if (b.frequencies.empty()) break;
+        const std::size_t fb = b.nearest_frequency(f);
+        if (std::abs(b.frequencies[fb].frequency_hz - f) > 0.005 * std::abs(f)) continue;
+        PairFrequencyFigures p;
+        p.frequency_hz = f;
+        p.index_a = fa;
+        p.index_b = fb;
+        for (const Environment& e : environments) {
+            auto c = envelope_correlation(a, fa, b, fb, e);
+            PairFrequencyFigures::Entry en;
+            if (c) {
+                en.ecc = c->ecc;
+                en.diversity_gain_db = c->diversity_gain_db;
+            } else {
+                en.unavailable_reason = c.error().message;
+            }
+            p.per_environment.push_back(en);
+        }
+        out.push_back(std::move(p));
+    }
+    return out;
+}
+
+std::optional<BandEdges> band_edges(const std::vector<double>& fr, const std::vector<double>& v, std::size_t anchor,
+                                    double limit, bool below) {
+    const std::size_t n = std::min(fr.size(), v.size());
+    auto meets = [&](std::size_t k) { return !std::isnan(v[k]) && (below ? v[k] <= limit : v[k] >= limit); };
+    if (anchor >= n || !meets(anchor)) return std::nullopt;
+    // The crossing between sample a (meets) and sample b (does not), linear in the figure.
+    auto cross = [&](std::size_t a, std::size_t b) {
+        if (!std::isfinite(v[b])) return fr[b];  // beyond an infinite value: the crossing is at the far sample's side
+        const double t = (limit - v[a]) / (v[b] - v[a]);
+        return fr[a] + std::clamp(t, 0.0, 1.0) * (fr[b] - fr[a]);
+    };
+    BandEdges e;
+    e.anchor_hz = fr[anchor];
+    std::size_t lo = anchor, hi = anchor;
+    while (lo > 0 && meets(lo - 1)) --lo;
+    while (hi + 1 < n && meets(hi + 1)) ++hi;
+    if (lo == 0 || std::isnan(v[lo - 1])) {
+        e.lower_hz = fr[lo];
+        e.lower_open = true;
+    } else {
+        e.lower_hz = cross(lo, lo - 1);
+    }
+    if (hi + 1 == n || std::isnan(v[hi + 1])) {
+        e.upper_hz = fr[hi];
+        e.upper_open = true;
+    } else {
+        e.upper_hz = cross(hi, hi + 1);
+    }
+    e.centre_hz = (e.lower_hz + e.upper_hz) / 2;
+    e.percent = e.centre_hz > 0 ? 100 * (e.upper_hz - e.lower_hz) / e.centre_hz : 0;
+    return e;
+}
+
+std::optional<BandEdges> gain_bandwidth(const std::vector<double>& fr, const std::vector<double>& v, double drop_db) {
+    if (fr.size() < 2 || v.size() != fr.size()) return std::nullopt;
+    for (double f : fr)
+        if (!(f > 0)) return std::nullopt;
+    const std::size_t best = std::size_t(std::max_element(v.begin(), v.end()) - v.begin());
+    return band_edges(fr, v, best, v[best] - drop_db, false);
+}
+
+std::optional<BandEdges> ar_bandwidth(const std::vector<double>& fr, const std::vector<double>& ar_db, double threshold_db) {
+    if (fr.size() < 2) return std::nullopt;
+    std::size_t best = ar_db.size();
+    for (std::size_t k = 0; k < ar_db.size(); ++k)
+        if (!std::isnan(ar_db[k]) && (best == ar_db.size() || ar_db[k] < ar_db[best])) best = k;
+    if (best == ar_db.size()) return std::nullopt;
+    for (double f : fr)
+        if (!(f > 0)) return std::nullopt;
+    return band_edges(fr, ar_db, best, threshold_db, true);
+}
+
+}  // namespace ellipsa

@@ -1,0 +1,101 @@
+// Axial-ratio beamwidth and solid angle against the crossed-dipole turnstile's closed form.
+#include <catch2/catch.hpp>
+
+#include <cmath>
+
+#include "pattern/circular.hpp"
+#include "pattern/reference.hpp"
+#include "pattern/summary.hpp"
+
+using namespace ellipsa;
+
+namespace {
+FarFieldSet turnstile(double step_deg) {
+    ReferenceAntenna a;
+    a.kind = ReferenceKind::crossed_dipoles;
+    a.phase_deg = -90;  // right-hand toward +z
+    return synthesize(a, step_deg, 2.45e9);
+}
+}  // namespace
+
+TEST_CASE("circularity threshold: AR <= t exactly when |V|/I >= 2t/(1+t^2)", "[circular]") {
+    // sin 2chi = V/I and AR = |cot chi| (IEEE Std 145-2013; Balanis sec. 2.12): m = 2 AR / (1 + AR^2).
+    const double t = std::pow(10.0, 3.0 / 20);
+    CHECK(circularity_at_ar_db(3.0) == Approx(2 * t / (1 + t * t)).epsilon(1e-15));
+    CHECK(circularity_at_ar_db(0.0) == Approx(1.0).epsilon(1e-15));
+    // A field with AR exactly 2 (E_theta = 2, E_phi = j): m = 2*2/(1+4) = 0.8.
+    CHECK(circularity(2.0, cplx(0, 1)) == Approx(0.8).epsilon(1e-15));
+    CHECK(circularity(1.0, 0.0) == Approx(0.0).margin(1e-15));
+    CHECK(std::isnan(circularity(0.0, 0.0)));
+}
+
+TEST_CASE("turnstile: AR beamwidth is 2 acos(10^(-3/20)) = 89.864 deg in every plane", "[circular]") {
+    // conventions.md (closed-form reference antennas): two short dipoles crossed at right angles and
+    // fed in quadrature give AR = 1/|cos t| at angle t from their common normal, for every azimuth.
+    // AR <= 3 dB  <=>  |cos t| >= 10^(-3/20), so t <= acos(10^(-3/20)) = 44.932 deg on either side of
+    // the normal and the width is 2 acos(10^(-3/20)) = 89.86395 deg (not 90: 3 dB is 10^(3/20) =
+    // 1.4125 in field ratio, a little below sqrt 2 = 1/cos 45 deg). Derivation above; value by hand.
+    const double expected = 2 * std::acos(std::pow(10.0, -3.0 / 20)) / deg;
+    CHECK(expected == Approx(89.86395291988133).epsilon(1e-12));
+    const FarFieldSet s = turnstile(1.0);
+    const PatternSummary r = summarize(s, 0);
+    REQUIRE(r.peak.theta_deg == Approx(0).margin(1e-9));  // peak on the normal (+z; ties go to lower theta)
+    for (double phi : {0.0, 37.0, 90.0}) {
+        for (bool along_phi : {false, true}) {
+            const ArBeamwidth b = ar_beamwidth_through(s, 0, 0.0, phi, along_phi);
+            INFO("phi " << phi << " along_phi " << along_phi << ": " << b.unavailable_reason);
+            REQUIRE(b.width_deg);
+            // The cut is interpolated from a 1-degree grid (Cartesian bilinear) and the crossing
+            // linearly between 0.25-degree cut samples: agreement to 0.05 deg.
+            CHECK(*b.width_deg == Approx(expected).margin(0.05));
+            CHECK(*b.left_deg == Approx(-expected / 2).margin(0.05));
+            CHECK(*b.right_deg == Approx(expected / 2).margin(0.05));
+        }
+    }
+    // A user threshold: AR <= 6 dB gives 2 acos(10^(-6/20)) = 119.93 deg.
+    const ArBeamwidth b6 = ar_beamwidth_through(s, 0, 0.0, 0.0, false, 6.0);
+    REQUIRE(b6.width_deg);
+    CHECK(*b6.width_deg == Approx(2 * std::acos(std::pow(10.0, -6.0 / 20)) / deg).margin(0.05));
+}
+
+TEST_CASE("AR beamwidth is missing with a reason where there is none", "[circular]") {
+    const FarFieldSet s = turnstile(2.0);
+    // On the horizon the turnstile is linear: AR there exceeds any threshold.
+    const ArBeamwidth h = ar_beamwidth_through(s, 0, 90.0, 0.0, false);
+    CHECK(!h.width_deg);
+    CHECK(h.unavailable_reason.find("exceeds") != std::string::npos);
+    // Without phase there is no axial ratio.
+    FarFieldSet m = s;
+    m.content = FieldContent::magnitude_only;
+    const ArBeamwidth n = ar_beamwidth_through(m, 0, 0.0, 0.0, false);
+    CHECK(!n.width_deg);
+    CHECK(n.unavailable_reason.find("phase") != std::string::npos);
+    // Linear dipole: AR infinite at its peak.
+    ReferenceAntenna d;
+    d.kind = ReferenceKind::dipole;
+    const FarFieldSet ds = synthesize(d, 2.0, 1e9);
+    const ArBeamwidth dl = ar_beamwidth_through(ds, 0, 90.0, 0.0, false);
+    CHECK(!dl.width_deg);
+}
+
+TEST_CASE("turnstile: the solid angle where AR <= threshold is two caps, 4 pi (1 - cos t0)", "[circular]") {
+    // The region |cos t| >= c0 is two polar caps of half-angle t0 = acos c0, each 2 pi (1 - cos t0) sr
+    // (the area of a spherical cap, common practice), so the share of the sphere is 1 - c0.
+    // Choose the threshold so that t0 = 40.5 deg falls on a cell boundary of a 1-degree grid: the
+    // exact cell weights then sum to the closed form to rounding.
+    const double t0 = 40.5 * deg;
+    const double thr_db = 20 * std::log10(1 / std::cos(t0));
+    const FarFieldSet s = turnstile(1.0);
+    const auto a = ar_solid_angle(s, 0, thr_db);
+    REQUIRE(a);
+    CHECK(a->share == Approx(1 - std::cos(t0)).epsilon(1e-9));
+    CHECK(a->solid_angle_sr == Approx(4 * pi * (1 - std::cos(t0))).epsilon(1e-9));
+    // At 3 dB the boundary (44.93 deg) cuts through cells: the error is at most one boundary cell
+    // row per cap, sin(t0) dt / 2 of the sphere each.
+    const auto a3 = ar_solid_angle(s, 0, 3.0);
+    REQUIRE(a3);
+    CHECK(std::abs(a3->share - (1 - std::pow(10.0, -3.0 / 20))) <= std::sin(45 * deg) * 1.0 * deg);
+    FarFieldSet m = s;
+    m.content = FieldContent::magnitude_only;
+    CHECK(!ar_solid_angle(m, 0));
+}

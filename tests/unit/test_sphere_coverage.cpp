@@ -1,0 +1,93 @@
+// Sphere coverage (share of the sphere at or above a level) against a short dipole's closed form.
+#include <catch2/catch.hpp>
+
+#include <cmath>
+
+#include "pattern/integrate.hpp"
+#include "pattern/reference.hpp"
+#include "pattern/sphere_coverage.hpp"
+
+using namespace ellipsa;
+
+namespace {
+FarFieldSet short_dipole(double step) {
+    ReferenceAntenna a;
+    a.kind = ReferenceKind::short_dipole;
+    return synthesize(a, step, 1e9);
+}
+}  // namespace
+
+TEST_CASE("short dipole: the share of the sphere where G >= g is cos t0, sin^2 t0 = g / 1.5", "[coverage]") {
+    // Short dipole G = 1.5 sin^2 t (Balanis sec. 4.2). G >= g on t0 <= t <= 180 - t0 with
+    // sin^2 t0 = g/1.5. That band's solid angle is 2 pi (cos t0 - cos(pi - t0)) = 4 pi cos t0,
+    // so the share of the sphere is cos t0 (integration by hand, the area of a spherical zone).
+    // With t0 on a cell boundary of the 1-degree grid (30.5 deg) the exact cell weights give the
+    // closed form to rounding.
+    const FarFieldSet s = short_dipole(1.0);
+    const auto v = component_power_samples(s, 0, Component::total);
+    const CoverageCurve c = coverage_curve(s.grid, v, {});
+    CHECK(c.band_solid_angle_sr == Approx(4 * pi).epsilon(1e-12));
+    CHECK(c.sampled_share == Approx(1.0).epsilon(1e-12));
+    for (double t0_deg : {10.5, 30.5, 60.5, 85.5}) {
+        const double t0 = t0_deg * deg;
+        const double g_db = 10 * std::log10(1.5 * std::sin(t0) * std::sin(t0));
+        INFO("t0 " << t0_deg);
+        CHECK(share_at_or_above(c, g_db) == Approx(std::cos(t0)).epsilon(1e-9));
+    }
+    // Any other level: the boundary cuts through cells; at most one row of cells (two edges of
+    // half a row each, sin(t0) dt / 2 of the sphere per edge) away.
+    for (double g : {0.3, 1.0, 1.4}) {
+        const double t0 = std::asin(std::sqrt(g / 1.5));
+        CHECK(std::abs(share_at_or_above(c, 10 * std::log10(g)) - std::cos(t0)) <= std::sin(t0) * deg + 1e-12);
+    }
+    // Above the peak nothing; at the bottom the whole sphere (the poles are exactly zero: -inf dB).
+    CHECK(share_at_or_above(c, 10 * std::log10(1.5) + 0.01) == 0);
+    CHECK(share_at_or_above(c, -INFINITY) == Approx(1.0).epsilon(1e-12));
+    // The curve is a proper CCDF: levels fall, shares rise.
+    for (std::size_t k = 1; k < c.level_db.size(); ++k) {
+        CHECK(c.level_db[k] < c.level_db[k - 1]);
+        CHECK(c.share[k] > c.share[k - 1]);
+    }
+}
+
+TEST_CASE("short dipole within 30 deg of the horizon: share cos t0 / sin 30 deg", "[coverage]") {
+    // The band |elevation| <= 30 deg is 60 <= t <= 120 deg: 2 pi (cos 60 - cos 120) = 2 pi sr.
+    // For t0 > 60 deg the part of the band with G >= g is t0..180-t0: 4 pi cos t0, so the share is
+    // 2 cos t0; for t0 < 60 deg the whole band qualifies (by hand).
+    const FarFieldSet s = short_dipole(1.0);
+    const auto v = component_power_samples(s, 0, Component::total);
+    const CoverageCurve c = coverage_curve(s.grid, v, horizon_band(30));
+    CHECK(c.band_solid_angle_sr == Approx(2 * pi).epsilon(1e-12));
+    const double t0 = 70.5 * deg;
+    CHECK(share_at_or_above(c, 10 * std::log10(1.5 * std::sin(t0) * std::sin(t0))) == Approx(2 * std::cos(t0)).epsilon(1e-9));
+    CHECK(share_at_or_above(c, 10 * std::log10(1.5 * 0.5)) == Approx(1.0).epsilon(1e-12));
+    // A band edge inside a cell (elevation 30.25): the clipped cells still sum to the band exactly.
+    const CoverageCurve c2 = coverage_curve(s.grid, v, {-30.25, 30.25});
+    CHECK(c2.sampled_share == Approx(1.0).epsilon(1e-12));
+    CHECK(c2.band_solid_angle_sr == Approx(4 * pi * std::sin(30.25 * deg)).epsilon(1e-12));
+}
+
+TEST_CASE("coverage per component and best of two", "[coverage]") {
+    // A z dipole (vertical only) and the same dipole along x: the vertical component of the x
+    // dipole is small overhead; the best of the two totals covers at least what either covers.
+    ReferenceAntenna z;
+    z.kind = ReferenceKind::short_dipole;
+    ReferenceAntenna x = z;
+    x.orientation = rotation_y(90 * deg);
+    const FarFieldSet a = synthesize(z, 2.0, 1e9), b = synthesize(x, 2.0, 1e9);
+    const auto va = component_power_samples(a, 0, Component::total);
+    const auto vb = component_power_samples(b, 0, Component::total);
+    const auto best = best_of(va, vb);
+    const CoverageCurve ca = coverage_curve(a.grid, va, {}), cb = coverage_curve(a.grid, vb, {}),
+                        cbest = coverage_curve(a.grid, best, {});
+    for (double lvl : {-10.0, -3.0, 0.0, 1.0}) {
+        CHECK(share_at_or_above(cbest, lvl) >= share_at_or_above(ca, lvl) - 1e-12);
+        CHECK(share_at_or_above(cbest, lvl) >= share_at_or_above(cb, lvl) - 1e-12);
+    }
+    // Same antenna, same grid: b's values interpolated onto a's grid equal its own samples.
+    const auto vb2 = component_power_on_grid(b, 0, Component::total, a.grid);
+    for (std::size_t k = 0; k < vb.size(); k += 97) CHECK(vb2[k] == Approx(vb[k]).margin(1e-12));
+    // The horizontal (phi) part of the z dipole is zero everywhere: no share above any finite level.
+    const auto h = component_power_samples(a, 0, Component::horizontal);
+    CHECK(share_at_or_above(coverage_curve(a.grid, h, {}), -100) == 0);
+}
