@@ -2,6 +2,7 @@
 // pattern and frequency, the principal cuts as SVG/PNG/CSV, and a comparison when several
 // patterns are given. The folder is built under a temporary name and renamed into place.
 #include <cmath>
+#include <cstdio>
 #include <ctime>
 #include <filesystem>
 #include <iostream>
@@ -9,6 +10,7 @@
 #include <optional>
 
 #include "cli/commands.hpp"
+#include "cli/environment_options.hpp"
 #include "cli/load.hpp"
 #include "cli/version.hpp"
 #include "io/atomic_folder.hpp"
@@ -33,8 +35,7 @@ struct ReportArgs {
     double dpi = 150;
     double range_db = 40;
     std::string style = "polar";
-    std::string environment = "uniform";
-    std::optional<double> xpr_db;
+    EnvironmentOptions environment;
     bool force = false;
     LoadOptions load;
 };
@@ -48,7 +49,6 @@ std::string first_line(const std::string& s) { return s.substr(0, s.find('\n'));
 
 int run_report(const ReportArgs& a) {
     if (!std::isfinite(a.range_db)) return fail(exit_usage, "--range: expected a number of dB from 3 to 200");
-    if (a.xpr_db && std::isnan(*a.xpr_db)) return fail(exit_usage, "--xpr: expected a number of dB");
     auto size = parse_size(a.size, a.dpi);
     if (!size) return fail(exit_usage, size.error().format());
     ReportOptions o;
@@ -65,15 +65,16 @@ int run_report(const ReportArgs& a) {
         o.generated_utc = buf;
     }
     {
-        auto env = environment_preset(a.environment);
-        if (!env) return fail(exit_usage, "--environment: " + env.error().message);
-        if (a.xpr_db) {
-            env->xpr_db = *a.xpr_db;
-            env->name += ", XPR " + std::to_string(int(std::lround(*a.xpr_db))) + " dB";
+        auto built = chosen_environment(a.environment);
+        if (auto* u = std::get_if<UsageError>(&built)) return fail(exit_usage, u->message);
+        if (auto* er = std::get_if<Error>(&built)) return fail(exit_bad_input, er->format());
+        ChosenEnvironment& env = std::get<ChosenEnvironment>(built);
+        if (env.xpr_from == XprOrigin::user) {
+            char xpr[48];
+            std::snprintf(xpr, sizeof xpr, ", XPR %g dB", env.environment.xpr_db);
+            env.environment.name += xpr;
         }
-        Status valid = validate(*env);
-        if (!valid) return fail(exit_usage, "environment: " + valid.error().message);
-        o.environment = *env;
+        o.environment = env.environment;
     }
 #ifdef ELLIPSA_HAVE_VIEWER
     // 3D views per pattern and frequency through the headless EGL context (viewer/snapshot.hpp):
@@ -131,10 +132,7 @@ Registered add_report(CLI::App& root) {
     sub->add_option("--dpi", a->dpi, "Dots per inch of the figures (default 150)");
     sub->add_option("--range", a->range_db, "Dynamic range of the cut plots, dB (default 40)")->check(CLI::Range(3.0, 200.0));
     sub->add_option("--style", a->style, "Cut figures: polar (default) or rect");
-    sub->add_option("--environment", a->environment,
-                    "Multipath environment for the MEG row: uniform (default), indoor, urban or rural "
-                    "(see `ellipsa diversity` for custom ones)");
-    sub->add_option("--xpr", a->xpr_db, "Override the environment's vertical-to-horizontal power ratio, dB");
+    add_environment_options(sub, a->environment);
     sub->add_flag("--force", a->force, "Replace the output folder if it exists");
     add_load_options(sub, a->load);
     return {sub, [a]() -> int { return run_report(*a); }};

@@ -9,7 +9,7 @@
 #include "exports/document.hpp"
 #include "io/atomic_write.hpp"
 #include "pattern/cut.hpp"
-#include "pattern/diversity.hpp"
+#include "pattern/diversity_study.hpp"
 #include "pattern/integrate.hpp"
 
 namespace ellipsa::exports {
@@ -131,7 +131,9 @@ std::vector<std::pair<std::string, std::string>> figure_rows(const FarFieldSet& 
         ar = opt(r.axial_ratio_db, 2, "", "?") + (*r.sense == Sense::right ? " (right-hand)" : " (left-hand)");
     v.emplace_back("Axial ratio at the peak (dB)", ar);
     if (o.environment) {
-        auto m = mean_effective_gain(s, fi, *o.environment);
+        // The one diversity study (pattern/diversity_study.hpp), as `ellipsa diversity` computes it.
+        auto st = study_diversity(*o.environment, DiversityOptions{}, {StudyPattern{&s, s.name, {fi}}});
+        const Result<MegFigures> m = st ? st->patterns.front().front().meg : Result<MegFigures>(st.error());
         std::string val;
         if (!m)
             val = "unavailable (" + m.error().message + ")";

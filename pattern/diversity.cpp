@@ -19,6 +19,27 @@ std::string percent(double x) {
     return buf;
 }
 
+// Figures over the sphere need samples that stand for some solid angle: a single cut (one phi
+// or one theta value) has none, however strong its field.
+Status check_solid_angle(const Grid& g) {
+    if (g.phi.count < 2 || g.theta.count < 2) {
+        char buf[240];
+        if (g.phi.count < 2)
+            std::snprintf(buf, sizeof buf,
+                          "the data are a single cut (only phi = %g deg), not a sphere or a part of one: MEG and "
+                          "correlation integrate over directions and need several phi and theta values",
+                          g.phi.start_deg);
+        else
+            std::snprintf(buf, sizeof buf,
+                          "the data are a single cut (only theta = %g deg), not a sphere or a part of one: MEG and "
+                          "correlation integrate over directions and need several phi and theta values",
+                          g.theta.start_deg);
+        return fail(buf);
+    }
+    if (!(coverage(g) > 0)) return fail("the grid covers no solid angle (coverage 0): MEG needs part of the sphere");
+    return Ok{};
+}
+
 bool same_grid(const Grid& a, const Grid& b) {
     auto eq = [](double x, double y) { return std::abs(x - y) <= 1e-9 * std::max(1.0, std::abs(x)); };
     return a.theta.count == b.theta.count && a.phi.count == b.phi.count && eq(a.theta.start_deg, b.theta.start_deg) &&
@@ -190,6 +211,8 @@ Result<std::vector<RotatedSums>> accumulate_rotated(const Grid& g, const std::ve
 }
 
 Status check_rotatable(const FarFieldSet& s, const Environment& e) {
+    Status area = check_solid_angle(s.grid);
+    if (!area) return area;
     if (!is_full_sphere(s.grid))
         return fail("turning the antenna needs the full sphere; this grid covers " + percent(coverage(s.grid)) +
                     " of it");
@@ -205,6 +228,8 @@ Status check_rotatable(const FarFieldSet& s, const Environment& e) {
 }  // namespace
 
 Result<GainScale> gain_scale(const FarFieldSet& s, std::size_t fi) {
+    Status area = check_solid_angle(s.grid);
+    if (!area) return area.error();
     const double p = radiated_power(s.grid, s.frequencies[fi]);
     if (!(p > 0)) return fail("the pattern is zero everywhere at this frequency");
     GainScale g;
@@ -224,6 +249,18 @@ Result<GainScale> gain_scale(const FarFieldSet& s, std::size_t fi) {
     }
     return g;
 }
+
+namespace {
+// What every turned-antenna figure needs first: a grid and data that can be turned, a valid
+// environment, and the gain scale.
+Result<GainScale> rotatable_gain_scale(const FarFieldSet& s, std::size_t fi, const Environment& e) {
+    Status ok = check_rotatable(s, e);
+    if (!ok) return ok.error();
+    Status ev = validate(e);
+    if (!ev) return ev.error();
+    return gain_scale(s, fi);
+}
+}  // namespace
 
 Result<MegFigures> mean_effective_gain(const FarFieldSet& s, std::size_t fi, const Environment& e) {
     auto scale = gain_scale(s, fi);
@@ -285,11 +322,7 @@ Result<MegFigures> mean_effective_gain(const FarFieldSet& s, std::size_t fi, con
 
 Result<MegFigures> mean_effective_gain_rotated(const FarFieldSet& s, std::size_t fi, const Environment& e,
                                                const Mat3& r) {
-    Status ok = check_rotatable(s, e);
-    if (!ok) return ok.error();
-    Status ev = validate(e);
-    if (!ev) return ev.error();
-    auto scale = gain_scale(s, fi);
+    auto scale = rotatable_gain_scale(s, fi, e);
     if (!scale) return scale.error();
     const Grid& g = s.grid;
     const CellWeights w = cell_weights(g);
@@ -328,11 +361,7 @@ Result<OrientationFigures> orientation_robustness(const FarFieldSet& s, std::siz
                                                   const OrientationSweep& sw) {
     Status sv = validate(sw);
     if (!sv) return sv.error();
-    Status ok = check_rotatable(s, e);
-    if (!ok) return ok.error();
-    Status ev = validate(e);
-    if (!ev) return ev.error();
-    auto scale = gain_scale(s, fi);
+    auto scale = rotatable_gain_scale(s, fi, e);
     if (!scale) return scale.error();
 
     std::vector<double> tilts;
@@ -456,6 +485,8 @@ Result<CorrelationFigures> envelope_correlation(const FarFieldSet& a, std::size_
             return fail("envelope correlation needs complex fields on a common phase reference; " +
                         (p->name.empty() ? std::string("one pattern") : "\"" + p->name + "\"") + " has " +
                         to_string(p->content) + " data");
+    Status area = check_solid_angle(a.grid);
+    if (!area) return area.error();
     auto env = sample_environment(e, a.grid);
     if (!env) return env.error();
     const Grid& g = a.grid;

@@ -21,20 +21,29 @@ const char* to_string(ProfileMeasure m) {
     return m == ProfileMeasure::per_solid_angle ? "per-solid-angle" : "per-elevation";
 }
 
-double Environment::weight_vertical() const {
-    if (std::isinf(xpr_db)) return xpr_db > 0 ? 1.0 : 0.0;
-    const double x = std::pow(10.0, xpr_db / 10);
-    return x / (1 + x);
-}
-double Environment::weight_horizontal() const {
-    if (std::isinf(xpr_db)) return xpr_db > 0 ? 0.0 : 1.0;
-    const double x = std::pow(10.0, xpr_db / 10);
-    return 1 / (1 + x);
+// 1/(1 + 10^(-XPR/10)) and 1/(1 + 10^(XPR/10)): no inf/inf for a huge finite XPR, exact limits for +-inf.
+double Environment::weight_vertical() const { return 1 / (1 + std::pow(10.0, -xpr_db / 10)); }
+double Environment::weight_horizontal() const { return 1 / (1 + std::pow(10.0, xpr_db / 10)); }
+
+const char* to_string(XprOrigin o) {
+    switch (o) {
+        case XprOrigin::model_default: return "default";
+        case XprOrigin::user: return "option";
+        case XprOrigin::preset: return "preset";
+        case XprOrigin::profile_table: return "profile table";
+    }
+    return "default";
 }
 
 namespace {
 
 Error env_error(std::string msg) { return Error{"", 0, 0, std::move(msg)}; }
+
+double column_max(const std::vector<ProfilePoint>& t, bool vertical) {
+    double m = 0;
+    for (const ProfilePoint& p : t) m = std::max(m, vertical ? p.p_v : p.p_h);
+    return m;
+}
 
 // Linear interpolation of one profile column at an elevation; zero outside the table.
 double profile_value(const std::vector<ProfilePoint>& t, bool vertical, double el_deg) {
@@ -151,6 +160,17 @@ Status validate(const Environment& e) {
             sum_v += p.p_v;
             sum_h += p.p_h;
         }
+        for (bool vertical : {true, false}) {
+            const double m = column_max(t, vertical);
+            if (m > 0 && (m < 1e-290 || m > 1e290)) {
+                char buf[200];
+                std::snprintf(buf, sizeof buf,
+                              "the profile's %s column has its largest value %g outside [1e-290, 1e290]: rescale the "
+                              "column (only its shape matters)",
+                              vertical ? "p_v" : "p_h", m);
+                return env_error(buf);
+            }
+        }
         if (e.weight_vertical() > 0 && !(sum_v > 0))
             return env_error("the profile's p_v column is zero everywhere but the vertical part has weight "
                              "(XPR is not -inf)");
@@ -161,53 +181,44 @@ Status validate(const Environment& e) {
     return Ok{};
 }
 
-const std::vector<EnvironmentPreset>& environment_presets() {
-    static const std::vector<EnvironmentPreset> presets = [] {
-        std::vector<EnvironmentPreset> v;
-        Environment u;
-        u.model = EnvironmentModel::uniform;
-        u.name = "uniform";
-        u.source = "isotropic reference environment, XPR 0 dB (Taga 1990: MEG = efficiency / 2)";
-        v.push_back({"uniform", "power from every direction alike, equal V and H", u});
+namespace {
+// The presets. Only "uniform" is a definition; the Gaussian rows are from memory, and say so.
+constexpr EnvironmentPreset preset_table[] = {
+    {"uniform", "power from every direction alike, equal V and H", EnvironmentModel::uniform, 0, 0, 0, 0, 0,
+     "isotropic reference environment, XPR 0 dB (a definition: Taga 1990, MEG = efficiency / 2)"},
+    {"indoor", "wide elevation spread around the horizon, nearly balanced V and H", EnvironmentModel::gaussian, 1,
+     0, 30, 0, 30,
+     "from memory: illustrative values (indoor studies report wide elevation spreads and XPR near 0-3 dB); not "
+     "taken from a specific measurement or table"},
+    {"urban", "street-level urban: power a little above the horizon, mostly vertical", EnvironmentModel::gaussian, 6,
+     10, 15, 10, 15,
+     "from memory: of the order of the urban parameters T. Taga reports (IEEE Trans. VT-39, 1990, 900 MHz "
+     "measurements in Tokyo), not checked against the paper's table: mean elevation 10 deg, spread 15 deg, XPR 6 dB"},
+    {"rural", "open country: power close to the horizon, strongly vertical", EnvironmentModel::gaussian, 9, 3, 8, 3, 8,
+     "from memory: illustrative values (open areas: little scattering, narrow elevation spread, polarisation "
+     "largely kept); not taken from a specific measurement or table"},
+};
 
-        Environment in;
-        in.model = EnvironmentModel::gaussian;
-        in.name = "indoor";
-        in.xpr_db = 1;
-        in.v_mean_deg = in.h_mean_deg = 0;
-        in.v_spread_deg = in.h_spread_deg = 30;
-        in.source = "illustrative values from memory (indoor studies report wide elevation spreads and XPR near "
-                    "0-3 dB); not taken from a specific measurement";
-        v.push_back({"indoor", "wide elevation spread around the horizon, nearly balanced V and H", in});
-
-        Environment ur;
-        ur.model = EnvironmentModel::gaussian;
-        ur.name = "urban";
-        ur.xpr_db = 6;
-        ur.v_mean_deg = ur.h_mean_deg = 10;
-        ur.v_spread_deg = ur.h_spread_deg = 15;
-        ur.source = "values of the order Taga (IEEE Trans. VT-39, 1990) reports for urban areas, quoted from "
-                    "memory and not checked against the paper: mean elevation 10 deg, spread 15 deg, XPR 6 dB";
-        v.push_back({"urban", "street-level urban: power a little above the horizon, mostly vertical", ur});
-
-        Environment ru;
-        ru.model = EnvironmentModel::gaussian;
-        ru.name = "rural";
-        ru.xpr_db = 9;
-        ru.v_mean_deg = ru.h_mean_deg = 3;
-        ru.v_spread_deg = ru.h_spread_deg = 8;
-        ru.source = "illustrative values from memory (open areas: little scattering, narrow elevation spread, "
-                    "polarisation largely kept); not taken from a specific measurement";
-        v.push_back({"rural", "open country: power close to the horizon, strongly vertical", ru});
-        return v;
-    }();
-    return presets;
+Environment environment_of(const EnvironmentPreset& p) {
+    Environment e;
+    e.model = p.model;
+    e.name = p.name;
+    e.source = p.source;
+    e.xpr_db = p.xpr_db;
+    e.v_mean_deg = p.v_mean_deg;
+    e.v_spread_deg = p.v_spread_deg;
+    e.h_mean_deg = p.h_mean_deg;
+    e.h_spread_deg = p.h_spread_deg;
+    return e;
 }
+}  // namespace
+
+std::span<const EnvironmentPreset> environment_presets() { return preset_table; }
 
 Result<Environment> environment_preset(const std::string& name) {
     std::string known;
     for (const EnvironmentPreset& p : environment_presets()) {
-        if (name == p.name) return p.environment;
+        if (name == p.name) return environment_of(p);
         known += (known.empty() ? "" : ", ") + std::string(p.name);
     }
     return env_error("unknown environment \"" + name + "\"; known: " + known);
@@ -307,13 +318,102 @@ namespace ellipsa {
 
 double profile_xpr_db(const Environment& e) {
     if (e.model != EnvironmentModel::profile) return e.xpr_db;
+    const double mv = column_max(e.profile, true), mh = column_max(e.profile, false);
+    if (!(mh > 0)) return mv > 0 ? INFINITY : 0.0;
+    if (!(mv > 0)) return -INFINITY;
+    Environment scaled = e;
+    for (ProfilePoint& p : scaled.profile) p.p_v /= mv, p.p_h /= mh;
     auto total = [&](bool vertical) {
-        return simpson([&](double t) { return share_integrand(e, vertical, t); }, 0, pi, intervals_for(0, pi));
+        return simpson([&](double t) { return share_integrand(scaled, vertical, t); }, 0, pi, intervals_for(0, pi));
     };
     const double v = total(true), h = total(false);
     if (!(h > 0)) return v > 0 ? INFINITY : 0.0;
     if (!(v > 0)) return -INFINITY;
-    return 10 * std::log10(v / h);
+    return 10 * (std::log10(v / h) + std::log10(mv) - std::log10(mh));
+}
+
+namespace {
+// The Gaussian angles a choice gives, over the ones the environment has.
+bool apply_angles(const EnvironmentChoice& c, Environment& e) {
+    const std::optional<double>* from[] = {&c.v_mean_deg, &c.v_spread_deg, &c.h_mean_deg, &c.h_spread_deg};
+    double* to[] = {&e.v_mean_deg, &e.v_spread_deg, &e.h_mean_deg, &e.h_spread_deg};
+    bool changed = false;
+    for (int k = 0; k < 4; ++k)
+        if (*from[k]) {
+            changed = changed || **from[k] != *to[k];
+            *to[k] = **from[k];
+        }
+    return changed;
+}
+
+Result<ChosenEnvironment> choose_profile(const EnvironmentChoice& c) {
+    if (!c.profile) return env_error("a profile environment needs an elevation table (elevation_deg, p_v, p_h)");
+    ChosenEnvironment out;
+    Environment& e = out.environment;
+    e.model = EnvironmentModel::profile;
+    e.name = "user profile";
+    e.source = "user table " + c.profile_name;
+    e.profile = *c.profile;
+    e.profile_measure = c.profile_measure;
+    e.xpr_db = profile_xpr_db(e);  // from the columns on their own scales (needs a finite table: checked below)
+    out.xpr_from = XprOrigin::profile_table;
+    // Each column on its own scale: only their shapes matter once XPR is known.
+    const double mv = column_max(e.profile, true), mh = column_max(e.profile, false);
+    for (ProfilePoint& p : e.profile) {
+        if (mv > 0 && std::isfinite(mv)) p.p_v /= mv;
+        if (mh > 0 && std::isfinite(mh)) p.p_h /= mh;
+    }
+    return out;
+}
+}  // namespace
+
+Result<ChosenEnvironment> choose_environment(const EnvironmentChoice& c) {
+    const bool any_angle = c.v_mean_deg || c.v_spread_deg || c.h_mean_deg || c.h_spread_deg;
+    std::string model = c.model;
+    if (model.empty()) model = c.profile ? "profile" : any_angle ? "gaussian" : "uniform";
+    if (c.profile && model != "profile")
+        return env_error("an elevation table gives a user environment; it cannot be combined with the " + model +
+                         " environment");
+    if (model == "profile" && any_angle)
+        return env_error("mean elevations and spreads belong to Gaussian environments, not to a profile table");
+    ChosenEnvironment out;
+    Environment& e = out.environment;
+    if (model == "profile") {
+        auto p = choose_profile(c);
+        if (!p) return p.error();
+        out = std::move(*p);
+    } else if (model == "gaussian") {
+        const char* missing = !c.v_mean_deg     ? "the vertical mean elevation"
+                              : !c.v_spread_deg ? "the vertical spread"
+                              : !c.h_mean_deg   ? "the horizontal mean elevation"
+                              : !c.h_spread_deg ? "the horizontal spread"
+                                                : nullptr;
+        if (missing)
+            return env_error(std::string("a custom Gaussian environment needs both mean elevations and both spreads "
+                                         "(deg); ") + missing + " is missing (or start from a preset: indoor, urban, rural)");
+        e.model = EnvironmentModel::gaussian;
+        e.name = "custom";
+        e.source = "user parameters";
+        apply_angles(c, e);
+    } else {
+        auto p = environment_preset(model);
+        if (!p) return env_error(p.error().message + ", gaussian, profile");
+        e = *p;
+        out.xpr_from = XprOrigin::preset;
+        if (any_angle && e.model != EnvironmentModel::gaussian)
+            return env_error("mean elevations and spreads need a Gaussian environment (gaussian, indoor, urban, rural)");
+        if (apply_angles(c, e)) {
+            e.name += " (modified)";
+            e.source += "; changed by the user";
+        }
+    }
+    if (c.xpr_db) {
+        e.xpr_db = *c.xpr_db;
+        out.xpr_from = XprOrigin::user;
+    }
+    Status ok = validate(e);
+    if (!ok) return ok.error();
+    return out;
 }
 
 ElevationCurve elevation_curve(const Environment& e, int count) {

@@ -20,6 +20,8 @@
 // same cell weights as pattern/integrate.hpp, so that sum(P * cell solid angle) is exactly 1 on a
 // full sphere: the discretisation cannot bias MEG (a constant pattern gets exactly its value).
 #pragma once
+#include <optional>
+#include <span>
 #include <string>
 #include <vector>
 
@@ -63,17 +65,51 @@ struct Environment {
 };
 
 // Checks the parameters (finite means in [-90, 90], spreads > 0, a usable table, XPR not NaN).
+// A table column whose largest value lies outside [1e-290, 1e290] is refused (rescale it, as
+// choose_environment does): sums of such values underflow or overflow.
 Status validate(const Environment& e);
 
-// The named presets: "uniform", "indoor", "urban", "rural".
+// The named presets, as a table of data: one row per preset with the numbers and where they come
+// from. Only "uniform" is a definition; the Gaussian rows are typical values quoted from memory
+// (their `source` says so), good for comparing antennas with each other, not a measured site.
 struct EnvironmentPreset {
     const char* name;
     const char* description;
-    Environment environment;
+    EnvironmentModel model;
+    double xpr_db;
+    double v_mean_deg, v_spread_deg, h_mean_deg, h_spread_deg;  // Gaussian rows only
+    const char* source;
 };
-const std::vector<EnvironmentPreset>& environment_presets();
+std::span<const EnvironmentPreset> environment_presets();
 // The preset by name, or an Error listing the known ones.
 Result<Environment> environment_preset(const std::string& name);
+
+// The environment as a user chooses it (command-line options, the viewer's panel, a report
+// option): a preset or a model, with the values the user changed. Plain data; no text parsing.
+struct EnvironmentChoice {
+    // A preset name, "gaussian" (all four angles given) or "profile" (a table given); empty:
+    // "profile" when a table is given, "gaussian" when any angle is, "uniform" otherwise.
+    std::string model;
+    std::optional<double> xpr_db;  // overrides the preset's or table's XPR; may be +-inf
+    std::optional<double> v_mean_deg, v_spread_deg, h_mean_deg, h_spread_deg;
+    std::optional<std::vector<ProfilePoint>> profile;
+    std::string profile_name;  // where the table came from, for the source line ("prof.csv")
+    ProfileMeasure profile_measure = ProfileMeasure::per_solid_angle;
+};
+// Where the environment's XPR came from.
+enum class XprOrigin { model_default, user, preset, profile_table };
+const char* to_string(XprOrigin o);
+struct ChosenEnvironment {
+    Environment environment;
+    XprOrigin xpr_from = XprOrigin::model_default;
+};
+// The environment a choice stands for. A preset whose angles the user changed is named
+// "NAME (modified)"; a profile table is rescaled per column (each to a largest value of 1) and its
+// XPR taken from the column totals on their original scale in a way that cannot overflow (unless
+// the choice gives XPR). Errors: an unknown name, a combination that makes no sense (angles with
+// the uniform model, a table with another model, a Gaussian model missing an angle), and every
+// refusal of validate().
+Result<ChosenEnvironment> choose_environment(const EnvironmentChoice& c);
 
 // Unnormalised density toward a direction of the environment frame, given by theta (from the up
 // axis), for the vertical (vertical = true) or horizontal part. Cheap: one exp at most.
@@ -102,6 +138,8 @@ Result<SampledEnvironment> sample_environment(const Environment& e, const Grid& 
 
 // Ratio of the integrated p_v to p_h of a profile table (in its own measure), in dB: the XPR the
 // table implies when its two columns are on one absolute scale; +-inf when one column is zero.
+// Scale-safe: each column is integrated after dividing by its largest value, and the scales
+// enter as a difference of logarithms (1e308 in both columns gives 0 dB, not NaN).
 double profile_xpr_db(const Environment& e);
 
 // True when the environment cannot tell V from H: XPR 0 dB and the same V and H density shape.

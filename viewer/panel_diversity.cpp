@@ -99,7 +99,7 @@ void legend_swatch(ImU32 c, const char* label) {
 
 void draw_environment(DiversityPanelState& d) {
     DiversityChoice& c = d.choice;
-    const auto& names = diversity_choice_names();
+    const std::vector<std::string> names = diversity_choice_names();
     if (ImGui::BeginCombo("environment", c.preset.c_str())) {
         for (const std::string& n : names)
             if (ImGui::Selectable(n.c_str(), n == c.preset)) {

@@ -11,23 +11,14 @@
 #include "pattern/diversity.hpp"
 #include "pattern/reference.hpp"
 #include "pattern/rotate.hpp"
+#include "tests/unit/diversity_fixtures.hpp"
 
 using namespace ellipsa;
 
-
 int main() {
-    Environment e;
-    e.model = EnvironmentModel::gaussian;
-    e.v_mean_deg = 10;
-    e.v_spread_deg = 15;
-    e.h_mean_deg = 20;
-    e.h_spread_deg = 30;
-    e.xpr_db = 6;
-    ReferenceAntenna a;
-    a.kind = ReferenceKind::crossed_dipoles;
-    a.orientation = rotation_xyz_deg(30, 10, 0);
+    const Environment e = urbanish_environment();
     for (double step : {1.0, 0.5}) {
-        FarFieldSet s = synthesize(a, step, 1e9);
+        const FarFieldSet s = diversity_fixture(ReferenceKind::crossed_dipoles, rotation_xyz_deg(30, 10, 0), step);
         double m = 0;
         double ms = best_ms(5, [&] { m = mean_effective_gain(s, 0, e)->meg; });
         std::printf("MEG, %.1f-deg grid (%zu samples): %8.3f ms  (MEG %.3f dB; target < 10 ms)\n", step, s.grid.size(),
@@ -53,11 +44,8 @@ int main() {
         std::printf("resample-then-integrate (rotate_pattern + MEG), %.1f-deg grid: %8.2f ms each (%.0f x slower than "
                     "a shifted roll)\n",
                     step, ms / n_naive, (ms / n_naive) / (best_ms(3, [&] { (void)orientation_robustness(s, 0, e, sw); }) / 145));
-        ReferenceAntenna b;
-        b.kind = ReferenceKind::dipole;
-        b.orientation = rotation_xyz_deg(0, 50, 0);
-        FarFieldSet t = synthesize(b, step, 1e9);
-        FarFieldSet t2 = synthesize(b, step * 2, 1e9);
+        const FarFieldSet t = diversity_fixture(ReferenceKind::dipole, rotation_xyz_deg(0, 50, 0), step);
+        const FarFieldSet t2 = diversity_fixture(ReferenceKind::dipole, rotation_xyz_deg(0, 50, 0), step * 2);
         double c = 0;
         ms = best_ms(5, [&] { c = envelope_correlation(s, 0, t, 0, e)->ecc; });
         std::printf("ECC, common %.1f-deg grid: %8.3f ms  (ECC %.4f)\n", step, ms, c);

@@ -25,7 +25,7 @@ grep -Eq '"ecc": (0|[0-9.]+e-(1[2-9]|[2-9][0-9]))[,}]' out.txt && ok "z/x dipole
 expect_rc 0 "human output" "$E" diversity z.csv x.csv --environment indoor --orientations
 grep -q 'dBi' out.txt && grep -q 'diversity gain' out.txt && ok "human output has units" || bad "human output lacks units"
 expect_rc 2 "gaussian without all angles is bad usage" "$E" diversity z.csv --environment gaussian --v-mean 10
-grep -q -- '--v-spread' err.txt && ok "names the missing option" || bad "does not name the missing option: $(cat err.txt)"
+grep -q 'vertical spread is missing' err.txt && ok "names the missing angle" || bad "does not name the missing angle: $(cat err.txt)"
 expect_rc 2 "unknown environment is bad usage" "$E" diversity z.csv --environment moon
 expect_rc 2 "angles with the uniform environment are bad usage" "$E" diversity z.csv --environment uniform --v-mean 3
 expect_rc 2 "bad XPR is bad usage" "$E" diversity z.csv --xpr lots
@@ -55,5 +55,21 @@ expect_rc 0 "profile with byte-order mark and CRLF" "$E" diversity z.csv --profi
 expect_rc 0 "a sweep option implies --orientations" "$E" diversity z.csv --tilt-step 45 --json
 has orientations
 expect_rc 1 "missing file is bad input" "$E" diversity no-such.csv
+# Issue 13 item 13: a single phi cut is not a sphere; the reason says so (it said "zero everywhere").
+{ grep -v '^2' z.csv; grep -E '^[^,]+,[^,]+,90,' z.csv; } > cut.csv
+expect_rc 1 "a single phi cut has no MEG" "$E" diversity cut.csv
+grep -q 'single cut (only phi = 90 deg)' out.txt && ! grep -q 'zero everywhere' out.txt && ok "the reason is the single cut" || bad "single-cut reason: $(cat out.txt)"
+# Issue 13 item 14: extreme but valid table values. Each column is a shape (conventions.md, Taga 1990):
+# 1e308 in both columns is the same environment as 1 in both; 1e-320 against 1 is all vertical.
+printf 'elevation_deg,p_v,p_h\n-10,1,1\n10,1,1\n' > unit.csv
+printf 'elevation_deg,p_v,p_h\n-10,1e308,1e308\n10,1e308,1e308\n' > huge.csv
+printf 'elevation_deg,p_v,p_h\n-10,1,1e-320\n10,1,1e-320\n' > tiny.csv
+expect_rc 0 "profile of ones" "$E" diversity z.csv --profile unit.csv --json
+want=$(grep -o '"meg_db": [^,]*' out.txt | head -1)
+expect_rc 0 "profile of 1e308" "$E" diversity z.csv --profile huge.csv --json
+[[ "$(grep -o '"meg_db": [^,]*' out.txt | head -1)" == "$want" ]] && grep -q '"xpr_db": 0[,}]' out.txt && ok "1e308 columns: same MEG, XPR 0 dB" || bad "1e308 columns: $(grep -o '"\(meg\|xpr\)_db": [^,]*' out.txt | head -3) against $want"
+expect_rc 0 "profile with p_h 1e-320" "$E" diversity z.csv --profile tiny.csv --json
+grep -q '"meg_db": null' out.txt && bad "p_h 1e-320: MEG unavailable" || ok "p_h 1e-320: MEG given"
+grep -q '"weight_horizontal": 0[,}]' out.txt && ok "p_h 1e-320: horizontal weight 0" || bad "p_h 1e-320: $(grep -o '"weight_[a-z]*": [^,]*' out.txt)"
 echo "$pass passed, $fail failed"
 [[ $fail == 0 ]]

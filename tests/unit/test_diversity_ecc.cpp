@@ -4,54 +4,39 @@
 
 #include "pattern/diversity.hpp"
 #include "pattern/reference.hpp"
+#include "tests/unit/diversity_fixtures.hpp"
 
 using namespace ellipsa;
 
 namespace {
-FarFieldSet make(ReferenceKind k, Mat3 r = {}, double step = 1.0) {
-    ReferenceAntenna a;
-    a.kind = k;
-    a.orientation = r;
-    return synthesize(a, step, 1e9);
-}
 double ecc(const FarFieldSet& a, const FarFieldSet& b, const Environment& e) {
     auto c = envelope_correlation(a, 0, b, 0, e);
     REQUIRE(c);
     return c->ecc;
 }
-Environment urbanish() {
-    Environment e;
-    e.model = EnvironmentModel::gaussian;
-    e.v_mean_deg = 10;
-    e.v_spread_deg = 15;
-    e.h_mean_deg = 20;
-    e.h_spread_deg = 30;
-    e.xpr_db = 6;
-    return e;
-}
 }  // namespace
 
 TEST_CASE("ECC of identical patterns is 1", "[diversity][ecc]") {
     // conventions.md check (Cauchy-Schwarz equality).
-    FarFieldSet s = make(ReferenceKind::crossed_dipoles, rotation_xyz_deg(20, 30, 0));
+    FarFieldSet s = diversity_fixture(ReferenceKind::crossed_dipoles, rotation_xyz_deg(20, 30, 0));
     CHECK(ecc(s, s, Environment{}) == Approx(1.0).epsilon(1e-12));
-    CHECK(ecc(s, s, urbanish()) == Approx(1.0).epsilon(1e-12));
+    CHECK(ecc(s, s, urbanish_environment()) == Approx(1.0).epsilon(1e-12));
 }
 
 TEST_CASE("ECC of a z and an x dipole in a uniform environment is 0", "[diversity][ecc]") {
     // conventions.md check; also for every azimuth-uniform environment (the cross term integrates
     // cos(phi) over a full turn).
-    FarFieldSet z = make(ReferenceKind::dipole), x = make(ReferenceKind::dipole, rotation_y(90 * deg));
+    FarFieldSet z = diversity_fixture(ReferenceKind::dipole), x = diversity_fixture(ReferenceKind::dipole, rotation_y(90 * deg));
     CHECK(ecc(z, x, Environment{}) == Approx(0.0).margin(1e-12));
-    CHECK(ecc(z, x, urbanish()) == Approx(0.0).margin(1e-12));
+    CHECK(ecc(z, x, urbanish_environment()) == Approx(0.0).margin(1e-12));
     // A z dipole (E_theta only) and a horizontal loop (E_phi only) are orthogonal in any environment.
-    CHECK(ecc(z, make(ReferenceKind::small_loop), urbanish()) == Approx(0.0).margin(1e-15));
+    CHECK(ecc(z, diversity_fixture(ReferenceKind::small_loop), urbanish_environment()) == Approx(0.0).margin(1e-15));
 }
 
 TEST_CASE("ECC is symmetric in its arguments", "[diversity][ecc]") {
-    FarFieldSet a = make(ReferenceKind::crossed_dipoles, rotation_xyz_deg(20, 30, 0));
-    FarFieldSet b = make(ReferenceKind::dipole, rotation_xyz_deg(0, 50, 10));
-    const double ab = ecc(a, b, urbanish()), ba = ecc(b, a, urbanish());
+    FarFieldSet a = diversity_fixture(ReferenceKind::crossed_dipoles, rotation_xyz_deg(20, 30, 0));
+    FarFieldSet b = diversity_fixture(ReferenceKind::dipole, rotation_xyz_deg(0, 50, 10));
+    const double ab = ecc(a, b, urbanish_environment()), ba = ecc(b, a, urbanish_environment());
     CHECK(ab > 0.01);
     CHECK(ab == Approx(ba).epsilon(1e-12));
 }
@@ -60,19 +45,19 @@ TEST_CASE("short dipoles at an angle a: rho_e = cos^2 a in a uniform environment
     // Derived here from the short-dipole field, the transverse part of the moment (Balanis 4.2):
     // the integral of p1_perp . p2_perp over the sphere is (8 pi / 3) p1 . p2, so the
     // Vaughan-Andersen envelope correlation is (p1 . p2)^2 for unit moments.
-    FarFieldSet z = make(ReferenceKind::short_dipole);
+    FarFieldSet z = diversity_fixture(ReferenceKind::short_dipole);
     for (double a : {20.0, 45.0, 70.0}) {
-        FarFieldSet t = make(ReferenceKind::short_dipole, rotation_y(a * deg));
+        FarFieldSet t = diversity_fixture(ReferenceKind::short_dipole, rotation_y(a * deg));
         CHECK(ecc(z, t, Environment{}) == Approx(std::pow(std::cos(a * deg), 2)).margin(2e-4));
     }
 }
 
 TEST_CASE("ECC across different grids: the second pattern is resampled", "[diversity][ecc]") {
-    FarFieldSet a = make(ReferenceKind::crossed_dipoles, rotation_xyz_deg(20, 30, 0), 1.0);
-    FarFieldSet b = make(ReferenceKind::dipole, rotation_xyz_deg(0, 50, 10), 1.0);
-    FarFieldSet b2 = make(ReferenceKind::dipole, rotation_xyz_deg(0, 50, 10), 2.0);
-    auto same = envelope_correlation(a, 0, b, 0, urbanish());
-    auto res = envelope_correlation(a, 0, b2, 0, urbanish());
+    FarFieldSet a = diversity_fixture(ReferenceKind::crossed_dipoles, rotation_xyz_deg(20, 30, 0), 1.0);
+    FarFieldSet b = diversity_fixture(ReferenceKind::dipole, rotation_xyz_deg(0, 50, 10), 1.0);
+    FarFieldSet b2 = diversity_fixture(ReferenceKind::dipole, rotation_xyz_deg(0, 50, 10), 2.0);
+    auto same = envelope_correlation(a, 0, b, 0, urbanish_environment());
+    auto res = envelope_correlation(a, 0, b2, 0, urbanish_environment());
     REQUIRE(same);
     REQUIRE(res);
     CHECK(!same->resampled);
@@ -81,7 +66,7 @@ TEST_CASE("ECC across different grids: the second pattern is resampled", "[diver
 }
 
 TEST_CASE("ECC needs phase: magnitude-only data is refused with the reason", "[diversity][ecc]") {
-    FarFieldSet a = make(ReferenceKind::dipole), b = make(ReferenceKind::small_loop);
+    FarFieldSet a = diversity_fixture(ReferenceKind::dipole), b = diversity_fixture(ReferenceKind::small_loop);
     b.content = FieldContent::magnitude_only;
     auto c = envelope_correlation(a, 0, b, 0, Environment{});
     REQUIRE(!c);

@@ -6,6 +6,7 @@
 #include "pattern/environment.hpp"
 #include "pattern/integrate.hpp"
 #include "pattern/reference.hpp"
+#include "tests/unit/diversity_fixtures.hpp"
 
 using namespace ellipsa;
 
@@ -18,12 +19,7 @@ double grid_sum(const Grid& g, const std::vector<double>& p) {
 TEST_CASE("densities integrate to exactly 1 on the grid", "[diversity][environment]") {
     // Taga 1990: P_theta and P_phi each integrate to 1 over the sphere; done numerically with the
     // cell weights so a constant pattern gets exactly its value.
-    Environment e;
-    e.model = EnvironmentModel::gaussian;
-    e.v_mean_deg = 15;
-    e.v_spread_deg = 4;
-    e.h_mean_deg = -10;
-    e.h_spread_deg = 40;
+    const Environment e = taga_environment(15, 4, -10, 40, 0);
     for (double step : {0.5, 1.0, 5.0}) {
         Grid g = full_sphere_grid(step, step);
         auto s = sample_environment(e, g);
@@ -51,15 +47,8 @@ TEST_CASE("power shares of the continuous densities", "[diversity][environment]"
 }
 
 TEST_CASE("profile tables: per solid angle and per elevation", "[diversity][environment]") {
-    ReferenceAntenna a;
-    a.kind = ReferenceKind::crossed_dipoles;
-    a.orientation = rotation_xyz_deg(30, 10, 0);
-    FarFieldSet s = synthesize(a, 1.0, 1e9);
-    Environment gauss;
-    gauss.model = EnvironmentModel::gaussian;
-    gauss.v_mean_deg = gauss.h_mean_deg = 10;
-    gauss.v_spread_deg = gauss.h_spread_deg = 15;
-    gauss.xpr_db = 6;
+    const FarFieldSet s = diversity_fixture(ReferenceKind::crossed_dipoles, rotation_xyz_deg(30, 10, 0));
+    const Environment gauss = taga_environment(10, 15, 10, 15, 6);
     auto mg = mean_effective_gain(s, 0, gauss);
     REQUIRE(mg);
     // A table that tabulates the same Gaussian finely (per steradian) gives the same MEG.
@@ -109,15 +98,99 @@ TEST_CASE("environment parameters are checked", "[diversity][environment]") {
 
 TEST_CASE("presets carry values and a source", "[diversity][environment]") {
     for (const EnvironmentPreset& p : environment_presets()) {
-        CHECK(validate(p.environment));
-        CHECK(!p.environment.source.empty());
         auto q = environment_preset(p.name);
         REQUIRE(q);
+        CHECK(validate(*q));
         CHECK(q->name == p.name);
+        CHECK(q->xpr_db == p.xpr_db);
+        // Every row says where its numbers come from; the non-definitions say "from memory".
+        const std::string src = p.source;
+        CHECK(!src.empty());
+        if (p.model != EnvironmentModel::uniform) CHECK(src.find("from memory") != std::string::npos);
     }
     auto bad = environment_preset("moon");
     REQUIRE(!bad);
     CHECK(bad.error().message.find("urban") != std::string::npos);
+}
+
+TEST_CASE("choosing an environment: presets, changed angles, custom models and refusals", "[diversity][environment]") {
+    EnvironmentChoice c;
+    auto u = choose_environment(c);
+    REQUIRE(u);
+    CHECK(u->environment.model == EnvironmentModel::uniform);
+    CHECK(u->xpr_from == XprOrigin::preset);
+    c.model = "urban";
+    auto same = choose_environment(c);
+    REQUIRE(same);
+    CHECK(same->environment.name == "urban");
+    c.v_mean_deg = same->environment.v_mean_deg;  // the preset's own value: not a change
+    CHECK(choose_environment(c)->environment.name == "urban");
+    c.v_spread_deg = 25;
+    auto changed = choose_environment(c);
+    REQUIRE(changed);
+    CHECK(changed->environment.name == "urban (modified)");
+    CHECK(changed->environment.v_spread_deg == 25);
+    c.xpr_db = INFINITY;
+    CHECK(choose_environment(c)->xpr_from == XprOrigin::user);
+    c.v_spread_deg = 0;
+    CHECK(!choose_environment(c));  // a zero spread
+    EnvironmentChoice g;
+    g.model = "gaussian";
+    g.v_mean_deg = 10;
+    auto missing = choose_environment(g);
+    REQUIRE(!missing);
+    CHECK(missing.error().message.find("vertical spread") != std::string::npos);
+    EnvironmentChoice angles_on_uniform;
+    angles_on_uniform.model = "uniform";
+    angles_on_uniform.h_mean_deg = 3;
+    CHECK(!choose_environment(angles_on_uniform));
+    EnvironmentChoice table_with_preset;
+    table_with_preset.model = "urban";
+    table_with_preset.profile = std::vector<ProfilePoint>{{0, 1, 1}, {10, 1, 1}};
+    CHECK(!choose_environment(table_with_preset));
+}
+
+TEST_CASE("extreme but valid profile values give finite figures on any scale", "[diversity][environment]") {
+    // Issue 13 item 14: p_h = 1e-320 (a subnormal) gave MEG NaN and XPR +inf, 1e308 in both columns
+    // gave XPR NaN. Each column is a shape on its own scale; the XPR of the table is the ratio of
+    // the integrated columns (conventions.md, Taga 1990), here computed without overflow.
+    const FarFieldSet z = diversity_fixture(ReferenceKind::dipole, {}, 2.0);
+    auto table = [](double v, double h) {
+        EnvironmentChoice c;
+        c.profile = std::vector<ProfilePoint>{{-10, v, h}, {10, v, h}};
+        c.profile_name = "t.csv";
+        return choose_environment(c);
+    };
+    auto unit = table(1, 1), huge = table(1e308, 1e308), tiny = table(1, 1e-320);
+    REQUIRE(unit);
+    REQUIRE(huge);
+    REQUIRE(tiny);
+    CHECK(huge->environment.xpr_db == Approx(0).margin(1e-9));
+    // 1 against 1e-320 (stored as a subnormal, 1e-320 to about three digits): XPR about 3200 dB.
+    CHECK(tiny->environment.xpr_db == Approx(3200).epsilon(1e-3));
+    CHECK(tiny->environment.weight_horizontal() == 0.0);
+    CHECK(tiny->environment.weight_vertical() == 1.0);
+    auto m1 = mean_effective_gain(z, 0, unit->environment), m2 = mean_effective_gain(z, 0, huge->environment);
+    auto m3 = mean_effective_gain(z, 0, tiny->environment);
+    REQUIRE(m1);
+    REQUIRE(m2);
+    REQUIRE(m3);
+    CHECK(std::isfinite(m1->meg));
+    CHECK(m2->meg == Approx(m1->meg).epsilon(1e-12));
+    // XPR 0 dB halves the vertical dipole's take against the vertical-only case.
+    CHECK(m3->meg == Approx(2 * m1->meg).epsilon(1e-9));
+    // Built by hand without rescaling, such columns are refused with the reason, never NaN.
+    Environment raw;
+    raw.model = EnvironmentModel::profile;
+    raw.profile = {{-10, 1e308, 1e308}, {10, 1e308, 1e308}};
+    auto refused = mean_effective_gain(z, 0, raw);
+    REQUIRE(!refused);
+    CHECK(refused.error().message.find("rescale") != std::string::npos);
+    // A huge finite XPR gives the limiting weights, not inf/inf.
+    Environment big;
+    big.xpr_db = 5000;
+    CHECK(big.weight_vertical() == 1.0);
+    CHECK(big.weight_horizontal() == 0.0);
 }
 
 TEST_CASE("elevation profile files: good tables and clear errors", "[diversity][environment]") {
@@ -148,12 +221,7 @@ TEST_CASE("elevation profile files: good tables and clear errors", "[diversity][
 
 TEST_CASE("elevation curves for plots integrate to 1 over the sphere", "[diversity][environment]") {
     // Taga 1990: each density integrates to 1; over the sphere dOmega = 2 pi cos(el) d(el).
-    Environment g;
-    g.model = EnvironmentModel::gaussian;
-    g.v_mean_deg = 10;
-    g.v_spread_deg = 15;
-    g.h_mean_deg = 30;
-    g.h_spread_deg = 25;
+    const Environment g = taga_environment(10, 15, 30, 25, 0);
     const int n = 1800;
     ElevationCurve c = elevation_curve(g, n);
     REQUIRE(int(c.elevation_deg.size()) == n);

@@ -6,38 +6,20 @@
 #include "pattern/integrate.hpp"
 #include "pattern/reference.hpp"
 #include "pattern/rotate.hpp"
+#include "tests/unit/diversity_fixtures.hpp"
 
 using namespace ellipsa;
-
-namespace {
-Environment taga(double mv, double sv, double mh, double sh, double xpr_db) {
-    Environment e;
-    e.model = EnvironmentModel::gaussian;
-    e.v_mean_deg = mv;
-    e.v_spread_deg = sv;
-    e.h_mean_deg = mh;
-    e.h_spread_deg = sh;
-    e.xpr_db = xpr_db;
-    return e;
-}
-FarFieldSet make(ReferenceKind k, Mat3 r = {}, double step = 1.0) {
-    ReferenceAntenna a;
-    a.kind = k;
-    a.orientation = r;
-    return synthesize(a, step, 1e9);
-}
-}  // namespace
 
 TEST_CASE("MEG of a turned antenna: the direct integral equals synthesising it turned", "[diversity][orientation]") {
     // Re-orienting is E'(r) = R E(R^T r) (conventions.md); the closed-form antenna turned by R is the
     // exact answer. Integrating the original pattern against the turned environment is exact in
     // the continuum, so only the quadrature differs.
-    const Environment e = taga(10, 15, 25, 30, 6);
-    const FarFieldSet s = make(ReferenceKind::crossed_dipoles, rotation_xyz_deg(0, 20, 0));
+    const Environment e = taga_environment(10, 15, 25, 30, 6);
+    const FarFieldSet s = diversity_fixture(ReferenceKind::crossed_dipoles, rotation_xyz_deg(0, 20, 0));
     for (const Mat3& r : {rotation_xyz_deg(30, 0, 0), rotation_xyz_deg(50, 20, 70), rotation_xyz_deg(90, 45, 0)}) {
         auto direct = mean_effective_gain_rotated(s, 0, e, r);
         REQUIRE(direct);
-        auto exact = mean_effective_gain(make(ReferenceKind::crossed_dipoles, r * rotation_xyz_deg(0, 20, 0)), 0, e);
+        auto exact = mean_effective_gain(diversity_fixture(ReferenceKind::crossed_dipoles, r * rotation_xyz_deg(0, 20, 0)), 0, e);
         REQUIRE(exact);
         CHECK(to_db(direct->meg) == Approx(to_db(exact->meg)).margin(0.005));
         CHECK(to_db(*direct->meg_vertical) == Approx(to_db(*exact->meg_vertical)).margin(0.01));
@@ -53,7 +35,7 @@ TEST_CASE("MEG of a turned antenna: the direct integral equals synthesising it t
 
 TEST_CASE("uniform environment: every orientation gives efficiency / 2", "[diversity][orientation]") {
     // Taga 1990: MEG = eta / 2 in the isotropic environment whatever the orientation.
-    const FarFieldSet s = make(ReferenceKind::dipole);
+    const FarFieldSet s = diversity_fixture(ReferenceKind::dipole);
     const double eta = radiated_power(s.grid, s.frequencies[0]) / (4 * pi);  // 1 up to the grid quadrature
     auto o = orientation_robustness(s, 0, Environment{}, OrientationSweep{});
     REQUIRE(o);
@@ -65,8 +47,8 @@ TEST_CASE("uniform environment: every orientation gives efficiency / 2", "[diver
 }
 
 TEST_CASE("orientation sweep: roll by column shift equals the general rotation", "[diversity][orientation]") {
-    const Environment e = taga(5, 10, 15, 25, 4);
-    const FarFieldSet s = make(ReferenceKind::crossed_dipoles, rotation_xyz_deg(25, 0, 10), 2.0);
+    const Environment e = taga_environment(5, 10, 15, 25, 4);
+    const FarFieldSet s = diversity_fixture(ReferenceKind::crossed_dipoles, rotation_xyz_deg(25, 0, 10), 2.0);
     OrientationSweep sw;
     sw.tilt_step_deg = 30;
     sw.roll_step_deg = 30;
@@ -105,11 +87,11 @@ TEST_CASE("a vertical dipole laid down loses a vertical horizon field", "[divers
     // A short dipole radiates the transverse part of its moment (Balanis 4.2): lying horizontal it
     // sends only horizontal polarisation toward the horizon. In a vertical-only horizon
     // environment its MEG falls from 1.5 (standing) to nearly zero (tilt 90).
-    const Environment e = taga(0, 1, 0, 1, INFINITY);
+    const Environment e = taga_environment(0, 1, 0, 1, INFINITY);
     OrientationSweep sw;
     sw.tilt_step_deg = 90;
     sw.roll_step_deg = 90;
-    auto o = orientation_robustness(make(ReferenceKind::short_dipole, {}, 0.5), 0, e, sw);
+    auto o = orientation_robustness(diversity_fixture(ReferenceKind::short_dipole, {}, 0.5), 0, e, sw);
     REQUIRE(o);
     CHECK(o->best.tilt_deg == 0);
     CHECK(o->best.meg == Approx(1.5).epsilon(1e-3));
@@ -132,7 +114,7 @@ TEST_CASE("random-orientation statistics weight each tilt by its solid angle", "
     OrientationSweep sw;
     sw.tilt_step_deg = 1;
     sw.roll_step_deg = 90;
-    auto o = orientation_robustness(make(ReferenceKind::short_dipole, {}, 0.5), 0, e, sw);
+    auto o = orientation_robustness(diversity_fixture(ReferenceKind::short_dipole, {}, 0.5), 0, e, sw);
     REQUIRE(o);
     for (const TiltRow& r : o->by_tilt) {
         CHECK(r.mean == Approx(1.5 * std::pow(std::cos(r.tilt_deg * deg), 2)).margin(2e-3));
@@ -150,7 +132,7 @@ TEST_CASE("per-elevation tables stay right when turned, up to the environment's 
     c.model = EnvironmentModel::profile;
     c.profile_measure = ProfileMeasure::per_elevation;
     for (double el = -90; el <= 90 + 1e-9; el += 1) c.profile.push_back({el, std::cos(el * deg), std::cos(el * deg)});
-    const FarFieldSet s = make(ReferenceKind::crossed_dipoles, rotation_xyz_deg(20, 0, 0), 1.0);
+    const FarFieldSet s = diversity_fixture(ReferenceKind::crossed_dipoles, rotation_xyz_deg(20, 0, 0), 1.0);
     const double eta = radiated_power(s.grid, s.frequencies[0]) / (4 * pi);
     OrientationSweep sw;
     sw.tilt_step_deg = 30;

@@ -12,14 +12,11 @@ bool DiversityChoice::operator==(const DiversityChoice& o) const {
            sweep.roll_step_deg == o.sweep.roll_step_deg;
 }
 
-const std::vector<std::string>& diversity_choice_names() {
-    static const std::vector<std::string> names = [] {
-        std::vector<std::string> v;
-        for (const EnvironmentPreset& p : environment_presets()) v.push_back(p.name);
-        v.push_back("gaussian");
-        return v;
-    }();
-    return names;
+std::vector<std::string> diversity_choice_names() {
+    std::vector<std::string> v;
+    for (const EnvironmentPreset& p : environment_presets()) v.push_back(p.name);
+    v.push_back("gaussian");
+    return v;
 }
 
 DiversityChoice choice_from_preset(const std::string& name) {
@@ -39,49 +36,37 @@ DiversityChoice choice_from_preset(const std::string& name) {
     return c;
 }
 
-Result<Environment> make_environment(const DiversityChoice& c) {
-    Environment e;
-    if (c.preset == "gaussian") {
-        e.model = EnvironmentModel::gaussian;
-        e.name = "custom";
-        e.source = "user parameters";
-    } else {
-        auto p = environment_preset(c.preset);
-        if (!p) return p.error();
-        e = *p;
-    }
-    if (e.model == EnvironmentModel::gaussian) {
-        const bool changed = e.v_mean_deg != c.v_mean_deg || e.v_spread_deg != c.v_spread_deg ||
-                             e.h_mean_deg != c.h_mean_deg || e.h_spread_deg != c.h_spread_deg;
+EnvironmentChoice environment_choice(const DiversityChoice& c) {
+    EnvironmentChoice e;
+    e.model = c.preset;
+    e.xpr_db = c.vertical_only ? INFINITY : c.xpr_db;
+    if (c.preset != "uniform") {
         e.v_mean_deg = c.v_mean_deg;
         e.v_spread_deg = c.v_spread_deg;
         e.h_mean_deg = c.h_mean_deg;
         e.h_spread_deg = c.h_spread_deg;
-        if (changed && c.preset != "gaussian") {
-            e.name += " (modified)";
-            e.source += "; changed by the user";
-        }
     }
-    e.xpr_db = c.vertical_only ? INFINITY : c.xpr_db;
-    Status ok = validate(e);
-    if (!ok) return ok.error();
     return e;
 }
 
+Result<Environment> make_environment(const DiversityChoice& c) {
+    auto chosen = choose_environment(environment_choice(c));
+    if (!chosen) return chosen.error();
+    return chosen->environment;
+}
+
 namespace {
-PatternDiversity figures_of(const FarFieldSet& s, std::size_t f, const Environment& e, const DiversityChoice& c) {
+PatternDiversity figures_of(const FrequencyStudy& f) {
     PatternDiversity p;
-    auto m = mean_effective_gain(s, f, e);
-    if (m)
-        p.meg = *m;
+    if (f.meg)
+        p.meg = *f.meg;
     else
-        p.meg_error = m.error().message;
-    if (c.orientations) {
-        auto o = orientation_robustness(s, f, e, c.sweep);
-        if (o)
-            p.orientations = *o;
+        p.meg_error = f.meg.error().message;
+    if (f.orientations) {
+        if (*f.orientations)
+            p.orientations = **f.orientations;
         else
-            p.orientation_error = o.error().message;
+            p.orientation_error = f.orientations->error().message;
     }
     return p;
 }
@@ -97,18 +82,27 @@ DiversityFigures compute_diversity(const DiversityChoice& c, const FarFieldSet* 
     }
     d.environment = *e;
     d.curve = elevation_curve(*e, curve_points);
-    if (a && fa < a->frequencies.size()) d.a = figures_of(*a, fa, *e, c);
-    if (a && b && fb < b->frequencies.size()) {
-        d.has_b = true;
-        d.b = figures_of(*b, fb, *e, c);
-        auto r = envelope_correlation(*a, fa, *b, fb, *e);
-        if (r)
-            d.correlation = *r;
-        else
-            d.correlation_error = r.error().message;
-        if (d.a.meg && d.b.meg && d.a.meg->meg > 0 && d.b.meg->meg > 0)
-            d.meg_ratio_db = to_db(d.a.meg->meg / d.b.meg->meg);
+    if (!a || fa >= a->frequencies.size()) return d;
+    std::vector<StudyPattern> inputs{{a, "A", {fa}}};
+    if (b && fb < b->frequencies.size()) inputs.push_back({b, "B", {fb}});
+    DiversityOptions o;
+    o.orientations = c.orientations;
+    o.sweep = c.sweep;
+    auto st = study_diversity(*e, o, inputs);
+    if (!st) {
+        d.a.meg_error = st.error().message;
+        return d;
     }
+    d.a = figures_of(st->patterns[0].front());
+    if (st->pairs.empty()) return d;
+    d.has_b = true;
+    d.b = figures_of(st->patterns[1].front());
+    const PairStudy& q = st->pairs.front();
+    if (q.correlation)
+        d.correlation = *q.correlation;
+    else
+        d.correlation_error = q.correlation.error().message;
+    d.meg_ratio_db = q.meg_ratio_db;
     return d;
 }
 

@@ -1,12 +1,13 @@
 // What the viewer's diversity panel shows, computed without any UI: the environment the user
-// picked, and the figures of the shown patterns in it (pattern/diversity.hpp). The panel
-// (viewer/panel_diversity.cpp) only draws these values and edits the choice.
+// picked (pattern/environment.hpp choose_environment) and the figures of the shown patterns in it
+// from the one diversity study the command and the report use (pattern/diversity_study.hpp). The
+// panel (viewer/panel_diversity.cpp) only draws these values and edits the choice.
 #pragma once
 #include <optional>
 #include <string>
 #include <vector>
 
-#include "pattern/diversity.hpp"
+#include "pattern/diversity_study.hpp"
 #include "pattern/environment.hpp"
 
 namespace ellipsa::viewer {
@@ -23,9 +24,11 @@ struct DiversityChoice {
 };
 
 // The names the panel offers, in order.
-const std::vector<std::string>& diversity_choice_names();
+std::vector<std::string> diversity_choice_names();
 // Start a choice from a preset: its XPR and angles become the editable values.
 DiversityChoice choice_from_preset(const std::string& name);
+// The core's choice the panel's values stand for (angles only for Gaussian models).
+EnvironmentChoice environment_choice(const DiversityChoice& c);
 // The environment a choice stands for (the preset's own source text, or "user parameters").
 Result<Environment> make_environment(const DiversityChoice& c);
 
