@@ -3,10 +3,13 @@
 #include <imgui.h>
 
 #include <cmath>
+#include <algorithm>
 #include <cstdio>
-#include <ctime>
+#include <iterator>
 
+#include "viewer/exports_ui.hpp"
 #include "viewer/panels.hpp"
+#include "viewer/widgets.hpp"
 #include "viewer/scene/components.hpp"
 #include "viewer/scene/plot_math.hpp"
 
@@ -123,79 +126,94 @@ void plot_rect(ImDrawList* dl, ImVec2 p0, ImVec2 p1, const CutData& cd, double t
         }
     if (bf.left_deg || bf.right_deg) dl->AddLine(ImVec2(p0.x, y3), ImVec2(p1.x, y3), IM_COL32(150, 150, 150, 140), 1.0f);
 }
-}  // namespace
 
-Intents draw_cut_panel(AppState& s) {
-    Intents in;
-    ViewerSettings& st = s.settings;
-    const LoadedPattern* a = s.active_pattern();
-    if (!a) return in;
-    // Controls on the left, plot on the right.
-    const float controls_w = 228;
-    ImGui::BeginChild("cutcontrols", ImVec2(controls_w, 0), false, ImGuiWindowFlags_NoScrollbar);
+
+// The cut's kind, angle, style and components, on a copy of the settings; the export row.
+void cut_controls(const AppState& s, const FarFieldSet& a, float width, Intents& in) {
+    ViewerSettings st = s.settings;
     const char* kinds[] = {"\u03c6 = const (elevation cut)", "\u03b8 = const (conical cut)", "through the pinned direction"};
     ImGui::SetNextItemWidth(-1);
-    if (ImGui::Combo("##kind", &st.cut_kind, kinds, 3)) in.recut = true;
+    ImGui::Combo("##kind", &st.cut_kind, kinds, 3);
     if (st.cut_kind < 2) {
         float ang = float(st.cut_angle_deg);
         ImGui::SetNextItemWidth(-1);
-        if (st.cut_kind == 0 ? ImGui::SliderFloat("##ang", &ang, 0, 180, "\u03c6 = %.0f\u00b0")
-                             : ImGui::SliderFloat("##ang", &ang, 0, 180, "\u03b8 = %.0f\u00b0")) {
+        if (ImGui::SliderFloat("##ang", &ang, 0, 180, st.cut_kind == 0 ? "\u03c6 = %.0f\u00b0" : "\u03b8 = %.0f\u00b0",
+                               ImGuiSliderFlags_AlwaysClamp))
             st.cut_angle_deg = std::round(ang);
-            in.recut = true;
-        }
-    } else if (!s.pinned) {
-        ImGui::TextDisabled("click the surface to pin");
     } else {
-        ImGui::TextDisabled("along \u03c6-hat through the pin");
+        ImGui::TextDisabled(s.pinned ? "along \u03c6-hat through the pin" : "click the surface to pin");
     }
     ImGui::Checkbox("polar plot", &st.polar_plot);
     ImGui::SameLine();
     ImGui::TextDisabled("(P)");
-    static int fmt = 0;
-    const char* fmts[] = {"svg", "png", "pdf", "csv"};
-    if (ImGui::SmallButton("Export cut as")) {
-        char name[64];
-        std::time_t t = std::time(nullptr);
-        std::strftime(name, sizeof name, "ellipsa-cut-%Y%m%d-%H%M%S.", std::localtime(&t));
-        in.export_cut = std::string(name) + fmts[fmt];
-    }
+    if (ImGui::SmallButton("Export cut as"))
+        in.push_back(intent::ExportCut{timestamped_name("ellipsa-cut", cut_export_formats[s.cut_export_format]), false});
     if (ImGui::IsItemHovered()) ImGui::SetTooltip("Write this cut to the current folder, as with 'ellipsa cut'");
     ImGui::SameLine();
     ImGui::SetNextItemWidth(70);
-    ImGui::Combo("##fmt", &fmt, fmts, 4);
-    if (!s.cut_export_message.empty()) {
-        ImGui::PushTextWrapPos(0);
-        ImGui::TextDisabled("%s", s.cut_export_message.c_str());
-        ImGui::PopTextWrapPos();
-    }
+    int fmt = s.cut_export_format;
+    if (ImGui::Combo("##fmt", &fmt, cut_export_formats, int(std::size(cut_export_formats)))) in.push_back(intent::SetCutExportFormat{fmt});
+    append(in, export_outcome_line(s.cut_export, ExportTarget::cut));
     ImGui::Separator();
     ImGui::TextDisabled("Components");
     int shown = 0;
     for (Component c : all_components) {
         if (c == Component::vertical || c == Component::horizontal) continue;  // same as theta and phi here
-        if (!unavailable_reason(a->set, c).empty()) continue;
+        if (!unavailable_reason(a, c).empty()) continue;
         bool on = (st.cut_components >> unsigned(c)) & 1u;
-        if (shown++ % 2) ImGui::SameLine(controls_w * 0.5f);
+        if (shown++ % 2) ImGui::SameLine(width * 0.5f);
         const char* short_name = c == Component::co ? "Co-polar" : c == Component::cross ? "Cross-polar" : label_of(c);
-        if (ImGui::Checkbox(short_name, &on)) {
-            st.cut_components ^= 1u << unsigned(c);
-            in.recut = true;
-        }
+        if (ImGui::Checkbox(short_name, &on)) st.cut_components ^= 1u << unsigned(c);
     }
-    ImGui::EndChild();
-    ImGui::SameLine();
-    ImGui::BeginChild("cutplot", ImVec2(0, 0), false);
-    const CutData& cd = s.cut;
-    const ImVec2 o = ImGui::GetCursorScreenPos(), avail = ImGui::GetContentRegionAvail();
-    ImDrawList* dl = ImGui::GetWindowDrawList();
+    if (!(st == s.settings)) in.push_back(intent::ChangeSettings{st});
+}
+
+// Legend and beam figures to the right of the plot.
+void cut_legend(const AppState& s, const CutData& cd, ImDrawList* dl, float lx, float ly) {
+    const std::string title = cd.spec.kind == CutKind::great_circle ? std::string("through the pin") : cd.spec.label();
+    dl->AddText(ImVec2(lx, ly), ink, title.c_str());
+    ly += 20;
+    for (std::size_t k = 0; k < cd.curves.size(); ++k) {
+        const CutCurve& cv = cd.curves[k];
+        dl->AddLine(ImVec2(lx, ly + 8), ImVec2(lx + 22, ly + 8), curve_colors[k % 9], cv.pattern == 0 ? 2.5f : 1.5f);
+        const std::string name = std::string(label_of(cv.component)) + (s.compare_pattern() ? (cv.pattern == 0 ? " (A)" : " (B)") : "");
+        dl->AddText(ImVec2(lx + 28, ly), ink, name.c_str());
+        ly += 18;
+    }
+    ly += 6;
+    if (!cd.figures) {
+        dl->AddText(ImVec2(lx, ly), ink, "first curve: no power on this cut");
+        return;
+    }
+    const BeamFigures& bf = *cd.figures;
+    char b[128];
+    std::snprintf(b, sizeof b, "peak %.2f %s at %.1f\u00b0", bf.peak_db, cd.unit.c_str(), bf.peak_angle_deg);
+    dl->AddText(ImVec2(lx, ly), ink, b);
+    ly += 18;
+    if (bf.hpbw_deg) std::snprintf(b, sizeof b, s.settings.polar_plot ? "HPBW %.1f\u00b0 (circles)" : "HPBW %.1f\u00b0 (ticks)", *bf.hpbw_deg);
+    else std::snprintf(b, sizeof b, "HPBW: no -3 dB points");
+    dl->AddText(ImVec2(lx, ly), ink, b);
+    ly += 18;
+    if (bf.front_to_back_db) std::snprintf(b, sizeof b, "F/B %.2f dB", *bf.front_to_back_db);
+    else std::snprintf(b, sizeof b, "F/B n/a");
+    dl->AddText(ImVec2(lx, ly), ink, b);
+    ly += 18;
+    if (bf.sidelobe_db) {
+        std::snprintf(b, sizeof b, "side lobe %.2f dB", *bf.sidelobe_db);
+        dl->AddText(ImVec2(lx, ly), ink, b);
+    }
+}
+
+void cut_plot(const AppState& s, const CutData& cd) {
+    const ViewerSettings& st = s.settings;
     if (!cd.valid || cd.angle_deg.empty() || !cd.peak_db) {
         ImGui::TextDisabled(!cd.valid && st.cut_kind == 2 ? "Pin a direction to cut through it."
                             : !cd.valid                   ? "Choose at least one component."
                                                           : "No power on this cut: every chosen component is zero here.");
-        ImGui::EndChild();
-        return in;
+        return;
     }
+    const ImVec2 o = ImGui::GetCursorScreenPos(), avail = ImGui::GetContentRegionAvail();
+    ImDrawList* dl = ImGui::GetWindowDrawList();
     const double range = st.range_db, top = plot_top_db(*cd.peak_db, range);
     const float legend_w = std::max(150.0f, std::min(230.0f, avail.x - avail.y));
     const float plot_w = avail.x - legend_w, plot_h = avail.y;
@@ -205,46 +223,22 @@ Intents draw_cut_panel(AppState& s) {
     } else {
         plot_rect(dl, ImVec2(o.x + 40, o.y + 18), ImVec2(o.x + plot_w - 14, o.y + plot_h - 24), cd, top, range);
     }
-    // Legend and readouts.
-    float ly = o.y + 4;
-    const float lx = o.x + plot_w + 6;
-    const std::string title = cd.spec.kind == CutKind::great_circle ? std::string("through the pin") : cd.spec.label();
-    dl->AddText(ImVec2(lx, ly), ink, title.c_str());
-    ly += 20;
-    for (std::size_t k = 0; k < cd.curves.size(); ++k) {
-        const CutCurve& cv = cd.curves[k];
-        dl->AddLine(ImVec2(lx, ly + 8), ImVec2(lx + 22, ly + 8), curve_colors[k % 9], cv.pattern == 0 ? 2.5f : 1.5f);
-        std::string name = std::string(label_of(cv.component)) + (s.compare_pattern() ? (cv.pattern == 0 ? " (A)" : " (B)") : "");
-        dl->AddText(ImVec2(lx + 28, ly), ink, name.c_str());
-        ly += 18;
-    }
-    ly += 6;
-    char b[128];
-    if (!cd.figures) {
-        dl->AddText(ImVec2(lx, ly), ink, "first curve: no power on this cut");
-        ImGui::EndChild();
-        return in;
-    }
-    const BeamFigures& bf = *cd.figures;
-    std::snprintf(b, sizeof b, "peak %.2f %s at %.1f\u00b0", bf.peak_db, cd.unit.c_str(), bf.peak_angle_deg);
-    dl->AddText(ImVec2(lx, ly), ink, b);
-    ly += 18;
-    if (bf.hpbw_deg)
-        std::snprintf(b, sizeof b, st.polar_plot ? "HPBW %.1f\u00b0 (circles)" : "HPBW %.1f\u00b0 (ticks)", *bf.hpbw_deg);
-    else
-        std::snprintf(b, sizeof b, "HPBW: no -3 dB points");
-    dl->AddText(ImVec2(lx, ly), ink, b);
-    ly += 18;
-    if (bf.front_to_back_db)
-        std::snprintf(b, sizeof b, "F/B %.2f dB", *bf.front_to_back_db);
-    else
-        std::snprintf(b, sizeof b, "F/B n/a");
-    dl->AddText(ImVec2(lx, ly), ink, b);
-    ly += 18;
-    if (bf.sidelobe_db) {
-        std::snprintf(b, sizeof b, "side lobe %.2f dB", *bf.sidelobe_db);
-        dl->AddText(ImVec2(lx, ly), ink, b);
-    }
+    cut_legend(s, cd, dl, o.x + plot_w + 6, o.y + 4);
+}
+}  // namespace
+
+Intents draw_cut_panel(const AppState& s, const Derived& d) {
+    Intents in;
+    const LoadedPattern* a = s.active_pattern();
+    if (!a) return in;
+    // Controls on the left, plot on the right.
+    const float controls_w = 228;
+    ImGui::BeginChild("cutcontrols", ImVec2(controls_w, 0), false, ImGuiWindowFlags_NoScrollbar);
+    cut_controls(s, a->set, controls_w, in);
+    ImGui::EndChild();
+    ImGui::SameLine();
+    ImGui::BeginChild("cutplot", ImVec2(0, 0), false);
+    cut_plot(s, d.cut.value());
     ImGui::EndChild();
     return in;
 }

@@ -1,11 +1,15 @@
-#include "viewer/panel_diversity.hpp"
-
+// The diversity panel: pick a multipath environment, see the incoming-power profile over
+// elevation, the mean effective gain and polarisation balance of the shown patterns (A, and B
+// when comparing), their envelope correlation and diversity gain, and the orientation curve.
+// The figures come from Derived::diversity (viewer/scene/diversity_view.hpp computes them); this
+// file only draws them and edits a copy of the choice.
 #include <imgui.h>
 
 #include <algorithm>
-#include <chrono>
 #include <cmath>
 #include <cstdio>
+
+#include "viewer/panels.hpp"
 
 namespace ellipsa::viewer {
 
@@ -97,8 +101,8 @@ void legend_swatch(ImU32 c, const char* label) {
     ImGui::TextUnformatted(label);
 }
 
-void draw_environment(DiversityPanelState& d) {
-    DiversityChoice& c = d.choice;
+// The environment choice, edited on a copy (`c`); the profile plot of the figures.
+void draw_environment(DiversityChoice& c, const DiversityFigures& f) {
     const std::vector<std::string> names = diversity_choice_names();
     if (ImGui::BeginCombo("environment", c.preset.c_str())) {
         for (const std::string& n : names)
@@ -117,7 +121,7 @@ void draw_environment(DiversityPanelState& d) {
     }
     float xpr = float(c.xpr_db);
     ImGui::BeginDisabled(c.vertical_only);
-    if (ImGui::SliderFloat("XPR", &xpr, -10, 20, "%.1f dB")) c.xpr_db = std::round(double(xpr) * 10) / 10;
+    if (ImGui::SliderFloat("XPR", &xpr, -10, 20, "%.1f dB", ImGuiSliderFlags_AlwaysClamp)) c.xpr_db = std::round(double(xpr) * 10) / 10;
     ImGui::EndDisabled();
     ImGui::SameLine();
     ImGui::Checkbox("V only", &c.vertical_only);
@@ -126,14 +130,13 @@ void draw_environment(DiversityPanelState& d) {
     if (gaussian) {
         auto angle = [](const char* label, double& v, float lo, float hi) {
             float f = float(v);
-            if (ImGui::SliderFloat(label, &f, lo, hi, "%.1f deg")) v = std::round(double(f) * 10) / 10;
+            if (ImGui::SliderFloat(label, &f, lo, hi, "%.1f deg", ImGuiSliderFlags_AlwaysClamp)) v = std::round(double(f) * 10) / 10;
         };
         angle("V mean elevation", c.v_mean_deg, -45, 60);
         angle("V spread", c.v_spread_deg, 0.5, 60);
         angle("H mean elevation", c.h_mean_deg, -45, 60);
         angle("H spread", c.h_spread_deg, 0.5, 60);
     }
-    const DiversityFigures& f = d.figures;
     if (f.environment) {
         ImGui::PushTextWrapPos(0);
         ImGui::TextDisabled("%s", f.environment->source.c_str());
@@ -219,93 +222,72 @@ void draw_orientations(const char* tag, const PatternDiversity& f, const Orienta
               "MEG, dBi (mean; band: min..max over roll)", &lo, &hi);
 }
 
-bool needs_compute(const AppState& s, const DiversityPanelState& d) {
-    return !d.computed || d.sweep_pending || !(d.computed_for == d.choice) || d.generation != s.generation ||
-           d.active != s.active || d.compare != s.compare || d.freq != s.freq;
-}
-
-void compute(const AppState& s, DiversityPanelState& d) {
-    const LoadedPattern* a = s.active_pattern();
-    const LoadedPattern* b = s.compare_pattern();
-    // While a slider is held, the MEG follows it at once and the orientation sweep waits.
-    const bool dragging = ImGui::IsAnyItemActive();
-    DiversityChoice c = d.choice;
-    const bool defer = dragging && c.orientations;
-    if (defer) c.orientations = false;
-    const auto t0 = std::chrono::steady_clock::now();
-    DiversityFigures f = compute_diversity(c, a ? &a->set : nullptr, a ? s.freq : 0, b ? &b->set : nullptr,
-                                           b ? s.freq_for(*b) : 0);
-    if (defer) {  // keep the last sweep on screen
-        f.a.orientations = d.figures.a.orientations;
-        f.b.orientations = d.figures.b.orientations;
-    }
-    d.compute_ms = std::chrono::duration<double, std::milli>(std::chrono::steady_clock::now() - t0).count();
-    d.figures = std::move(f);
-    d.computed_for = d.choice;
-    d.generation = s.generation;
-    d.active = s.active;
-    d.compare = s.compare;
-    d.freq = s.freq;
-    d.computed = true;
-    d.sweep_pending = defer;
-}
-}  // namespace
-
-void draw_diversity_panel(const AppState& s, DiversityPanelState& d) {
-    if (!d.open) return;
-    // First shown over the right-hand panels, so the 3D view stays in sight.
-    const ImVec2 display = ImGui::GetIO().DisplaySize;
-    ImGui::SetNextWindowSize(ImVec2(440, std::max(300.0f, display.y - 60)), ImGuiCond_FirstUseEver);
-    ImGui::SetNextWindowPos(ImVec2(std::max(0.0f, display.x - 450), 30), ImGuiCond_FirstUseEver);
-    if (!ImGui::Begin("Diversity (multipath)", &d.open)) {
-        ImGui::End();
+void draw_correlation(const DiversityFigures& f) {
+    section("A with B");
+    if (!f.correlation) {
+        ImGui::TextWrapped("Correlation unavailable: %s", f.correlation_error.c_str());
         return;
     }
-    draw_environment(d);
-    if (needs_compute(s, d)) compute(s, d);
-    const DiversityFigures& f = d.figures;
+    char v[64];
+    std::snprintf(v, sizeof v, "%.4f", f.correlation->ecc);
+    row("envelope correlation", v);
+    std::snprintf(v, sizeof v, "%.2f dB", f.correlation->diversity_gain_db);
+    row("diversity gain", v);
+    if (ImGui::IsItemHovered())
+        ImGui::SetTooltip("Two-branch selection combining at 1 %% outage, Rayleigh fading, equal branch powers:\n"
+                          "10 sqrt(1 - ECC) dB (approximation used with Vaughan & Andersen 1987)");
+    if (f.meg_ratio_db) {
+        std::snprintf(v, sizeof v, "%.2f dB", *f.meg_ratio_db);
+        row("MEG ratio A / B", v);
+    }
+}
+
+// The figures of the shown patterns (the choice is edited on `c`).
+void draw_figures(const AppState& s, const DiversityView& v, DiversityChoice& c) {
+    const DiversityFigures& f = v.figures;
     const LoadedPattern* a = s.active_pattern();
-    const LoadedPattern* b = s.compare_pattern();
     if (!a) {
         ImGui::TextDisabled("Open a pattern to see its figures.");
-        ImGui::End();
         return;
     }
     draw_pattern("A", a, f.a);
-    if (f.has_b) draw_pattern("B", b, f.b);
     if (f.has_b) {
-        section("A with B");
-        if (f.correlation) {
-            char v[64];
-            std::snprintf(v, sizeof v, "%.4f", f.correlation->ecc);
-            row("envelope correlation", v);
-            std::snprintf(v, sizeof v, "%.2f dB", f.correlation->diversity_gain_db);
-            row("diversity gain", v);
-            if (ImGui::IsItemHovered())
-                ImGui::SetTooltip("Two-branch selection combining at 1 %% outage, Rayleigh fading, equal branch powers:\n"
-                                  "10 sqrt(1 - ECC) dB (approximation used with Vaughan & Andersen 1987)");
-            if (f.meg_ratio_db) {
-                std::snprintf(v, sizeof v, "%.2f dB", *f.meg_ratio_db);
-                row("MEG ratio A / B", v);
-            }
-        } else {
-            ImGui::TextWrapped("Correlation unavailable: %s", f.correlation_error.c_str());
-        }
+        draw_pattern("B", s.compare_pattern(), f.b);
+        draw_correlation(f);
     } else {
         ImGui::TextDisabled("Tick a B pattern to see the envelope correlation and diversity gain.");
     }
     section("Orientation");
-    ImGui::Checkbox("turn the antenna", &d.choice.orientations);
+    ImGui::Checkbox("turn the antenna", &c.orientations);
     if (ImGui::IsItemHovered())
         ImGui::SetTooltip("Roll about the antenna's own z axis, then tilt about the world's horizontal x axis:\n"
                           "R = R_x(tilt) R_z(roll), tilt 0..%g deg by %g, roll by %g deg",
-                          d.choice.sweep.tilt_max_deg, d.choice.sweep.tilt_step_deg, d.choice.sweep.roll_step_deg);
-    if (d.choice.orientations) {
-        draw_orientations("A", f.a, d.choice.sweep, d.sweep_pending);
-        if (f.has_b) draw_orientations("B", f.b, d.choice.sweep, d.sweep_pending);
+                          c.sweep.tilt_max_deg, c.sweep.tilt_step_deg, c.sweep.roll_step_deg);
+    if (c.orientations) {
+        draw_orientations("A", f.a, c.sweep, v.sweep_pending);
+        if (f.has_b) draw_orientations("B", f.b, c.sweep, v.sweep_pending);
     }
-    ImGui::TextDisabled("computed in %.0f ms", d.compute_ms);
+    ImGui::TextDisabled("computed in %.0f ms", v.compute_ms);
+}
+}  // namespace
+
+Intents draw_diversity_panel(const AppState& s, const Derived& d) {
+    Intents in;
+    if (!s.diversity_open) return in;
+    // First shown over the right-hand panels, so the 3D view stays in sight.
+    const ImVec2 display = ImGui::GetIO().DisplaySize;
+    ImGui::SetNextWindowSize(ImVec2(440, std::max(300.0f, display.y - 60)), ImGuiCond_FirstUseEver);
+    ImGui::SetNextWindowPos(ImVec2(std::max(0.0f, display.x - 450), 30), ImGuiCond_FirstUseEver);
+    bool open = true;
+    DiversityChoice c = s.diversity;
+    if (ImGui::Begin("Diversity (multipath)", &open)) {
+        draw_environment(c, d.diversity.value().figures);
+        draw_figures(s, d.diversity.value(), c);
+    }
     ImGui::End();
+    if (!open) in.push_back(intent::ShowDiversity{false});
+    if (!(c == s.diversity)) in.push_back(intent::ChangeDiversity{c});
+    return in;
 }
 
 }  // namespace ellipsa::viewer

@@ -1,36 +1,27 @@
-// The side panels of the viewer window. Each reads the AppState, draws its widgets and returns
-// what the user asked for; the analysis lives in pattern/ and viewer/scene/, never here.
+// The panels of the viewer window. Each takes the state and the derived data as const, draws
+// its widgets and returns what the user asked for as intents (viewer/state/intents.hpp); it
+// never writes the state, and the analysis lives in pattern/ and viewer/scene/, never here.
+// Text is made here, from numbers.
+//
+// Adding a panel: `Intents draw_xxx_panel(const AppState&, const Derived&)` in its own file,
+// listed in viewer/CMakeLists.txt, and one call in draw_panels() (viewer/frame.cpp). Edits of
+// the settings go out as ChangeSettings with an edited copy; new kinds of change as a new intent.
 #pragma once
-#include <string>
-#include <vector>
-
-#include "viewer/app_state.hpp"
-#include "viewer/scene/probe.hpp"
+#include "viewer/state/app_state.hpp"
+#include "viewer/state/derived.hpp"
+#include "viewer/state/intents.hpp"
 
 namespace ellipsa::viewer {
 
-struct Intents {
-    std::vector<std::string> open;  // files to load
-    std::string open_map;           // column-map file for them ("" = look beside each file)
-    int close = -1;                 // pattern index to close
-    bool cancel_load = false;       // stop the file being read
-    bool rebuild_surface = false;   // component, colouring, range or frequency changed
-    bool rebuild_glyphs = false;
-    bool recut = false;
-    bool reset_view = false;
-    bool export_view = false;
-    std::string export_cut;  // file name (format from the extension)
-    void merge(const Intents& o);
-};
-
-Intents draw_patterns_panel(AppState& s);
-Intents draw_surface_panel(AppState& s);
-void draw_probe_panel(AppState& s);
-Intents draw_polarisation_panel(AppState& s);
-Intents draw_cut_panel(AppState& s);
-void draw_help_overlay(AppState& s);
+Intents draw_patterns_panel(const AppState& s, const Derived& d);
+Intents draw_surface_panel(const AppState& s, const Derived& d);
+Intents draw_probe_panel(const AppState& s, const Derived& d);
+Intents draw_polarisation_panel(const AppState& s, const Derived& d);
+Intents draw_cut_panel(const AppState& s, const Derived& d);
+// A floating window, shown while s.diversity_open (its close button returns ShowDiversity{false}).
+Intents draw_diversity_panel(const AppState& s, const Derived& d);
+Intents draw_help_overlay(const AppState& s);
 // The first-run orientation: what each panel shows, dismissable (remembered in the settings).
-void draw_intro_overlay(AppState& s);
-
+Intents draw_intro_overlay(const AppState& s);
 
 }  // namespace ellipsa::viewer

@@ -5,7 +5,6 @@
 #include <cmath>
 #include <cstdio>
 
-#include "pattern/interpolate.hpp"
 #include "viewer/panels.hpp"
 #include "viewer/scene/glyphs.hpp"
 #include "viewer/scene/poincare.hpp"
@@ -94,7 +93,7 @@ void draw_poincare(ImDrawList* dl, ImVec2 c, float r, const std::vector<Poincare
 }
 }  // namespace
 
-Intents draw_polarisation_panel(AppState& s) {
+Intents draw_polarisation_panel(const AppState& s, const Derived& d) {
     Intents in;
     const LoadedPattern* a = s.active_pattern();
     if (!a) return in;
@@ -102,36 +101,35 @@ Intents draw_polarisation_panel(AppState& s) {
         ImGui::TextWrapped("Polarisation needs phase; this file is %s.", to_string(a->set.content));
         return in;
     }
-    const std::optional<Pick>& p = s.pinned ? s.pinned : s.hover;
+    const std::optional<DirectionProbe>& p = s.pinned ? d.pinned.value() : d.hover.value();
+    const PolarisationState* f = p && p->a.polarisation ? &*p->a.polarisation : nullptr;
     const float w = ImGui::GetContentRegionAvail().x;
     const float size = std::min(w * 0.5f - 6, 170.0f);
     ImDrawList* dl = ImGui::GetWindowDrawList();
     const ImVec2 o = ImGui::GetCursorScreenPos();
-    std::optional<FieldSample> f;
-    if (p) f = interpolate(a->set, s.freq, p->theta_deg, p->phi_deg);
     // Left: the ellipse to scale (major + minor axes from the field, on the unit circle of |E|).
     if (f)
         draw_ellipse(dl, ImVec2(o.x + size * 0.5f, o.y + size * 0.5f + 4), size * 0.42f, f->e_theta, f->e_phi);
     else
         dl->AddCircle(ImVec2(o.x + size * 0.5f, o.y + size * 0.5f + 4), size * 0.42f, faint, 64, 1.0f);
-    // Right: the Poincare sphere.
-    auto& pc = s.poincare;
-    if (pc.generation != s.generation || pc.active != s.active || pc.freq != s.freq || pc.within_db != s.settings.poincare_within_db) {
-        pc.points = poincare_cloud(a->set, s.freq, s.settings.poincare_within_db, 2000);
-        pc.generation = s.generation, pc.active = s.active, pc.freq = s.freq, pc.within_db = s.settings.poincare_within_db;
-    }
-    const std::vector<PoincarePoint>& cloud = pc.points;
+    // Right: the Poincare sphere with the states near the peak.
+    const std::vector<PoincarePoint>& cloud = d.poincare.value();
     PoincarePoint mark;
-    if (f) mark = poincare_point(stokes(f->e_theta, f->e_phi));
+    if (f) mark = poincare_point(f->stokes);
     draw_poincare(dl, ImVec2(o.x + w - size * 0.58f, o.y + size * 0.5f + 4), size * 0.38f, cloud, f ? &mark : nullptr);
     ImGui::Dummy(ImVec2(w, size + 8));
     ImGui::PushTextWrapPos(0);
-    ImGui::TextDisabled("%s", p ? (s.pinned ? "Left: the field at the pin, seen along propagation." : "Left: the field under the cursor, seen along propagation.")
-                                : "Left: pin a direction to see its ellipse.");
+    ImGui::TextDisabled("%s", !p ? "Left: pin a direction to see its ellipse."
+                              : s.pinned ? "Left: the field at the pin, seen along propagation."
+                                         : "Left: the field under the cursor, seen along propagation.");
     ImGui::PopTextWrapPos();
-    float within = float(s.settings.poincare_within_db);
+    ViewerSettings st = s.settings;
+    float within = float(st.poincare_within_db);
     ImGui::SetNextItemWidth(-150);
-    if (ImGui::SliderFloat("##within", &within, 0.5f, 20, "within %.1f dB of peak")) s.settings.poincare_within_db = within;
+    if (ImGui::SliderFloat("##within", &within, 0.5f, 20, "within %.1f dB of peak", ImGuiSliderFlags_AlwaysClamp)) {
+        st.poincare_within_db = within;
+        in.push_back(intent::ChangeSettings{st});
+    }
     ImGui::SameLine();
     ImGui::TextDisabled("%zu states", cloud.size());
     return in;

@@ -5,6 +5,7 @@
 
 #include <cstdlib>
 #include <cstring>
+#include <string>
 
 #define GLFW_INCLUDE_NONE
 #include <GLFW/glfw3.h>
@@ -140,6 +141,8 @@ void force_software_rendering() {
 }
 
 Result<std::unique_ptr<RenderContext>> create_window_context(const ContextRequest& r) {
+    if (!(r.width >= 1 && r.width <= 16384 && r.height >= 1 && r.height <= 16384))
+        return Error{"", 0, 0, "window size " + std::to_string(r.width) + " x " + std::to_string(r.height) + " is not usable"};
     if (r.software) force_software_rendering();
     const bool forced = r.software || software_forced_by_env();
     if (!glfwInit()) {

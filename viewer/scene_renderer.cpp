@@ -156,6 +156,52 @@ void SceneRenderer::draw_lines(const Lines& l, float width) {
     glDrawArrays(GL_LINES, 0, l.count);
 }
 
+// The surface (opaque or translucent, at the level of detail its size on screen needs), its
+// wireframe, the glyphs and the cut ring. The line program's matrices are already set.
+void SceneRenderer::draw_surface(const OrbitCamera& cam, int h, const glm::mat4& proj, const SceneStyle& st) {
+    glUseProgram(surface_program_);
+    glUniformMatrix4fv(s_view_, 1, GL_FALSE, glm::value_ptr(cam.view()));
+    glUniformMatrix4fv(s_proj_, 1, GL_FALSE, glm::value_ptr(proj));
+    glEnable(GL_POLYGON_OFFSET_FILL);
+    glPolygonOffset(1.0f, 1.0f);
+    // The surface is star-shaped about the origin with outward (counter-clockwise) triangles and
+    // the eye stays outside it, so the first surface met by any view ray faces the eye: back faces
+    // can be culled when the surface is opaque (this halves llvmpipe's rasterising work).
+    if (!st.translucent) glEnable(GL_CULL_FACE);
+    if (st.translucent) {
+        glEnable(GL_BLEND);
+        glBlendFunc(GL_SRC_ALPHA, GL_ONE_MINUS_SRC_ALPHA);
+        glDepthMask(GL_FALSE);
+        glUniform1f(s_alpha_, 0.45f);
+    } else {
+        glUniform1f(s_alpha_, 1.0f);
+    }
+    glBindVertexArray(surface_vao_);
+    // Level of detail: skip grid lines whose cells would be under a few pixels wide.
+    int level = 0;
+    const int stride = st.full_detail ? 1 : lod_stride(grid_step_deg_, h, cam.fov_deg, cam.distance, 3.0);
+    if (stride >= 4 && lod_count_[2]) level = 2;
+    else if (stride >= 2 && lod_count_[1]) level = 1;
+    last_stride_ = 1 << level;
+    glDrawElements(GL_TRIANGLES, lod_count_[level], GL_UNSIGNED_INT, reinterpret_cast<void*>(lod_offset_[level]));
+    glDepthMask(GL_TRUE);
+    glDisable(GL_CULL_FACE);
+    glDisable(GL_POLYGON_OFFSET_FILL);
+    glUseProgram(line_program_);
+    if (st.wireframe && wire_index_count_) {
+        glEnable(GL_BLEND);
+        glBlendFunc(GL_SRC_ALPHA, GL_ONE_MINUS_SRC_ALPHA);
+        glUniform4f(l_tint_, 0.15f, 0.15f, 0.18f, 0.35f);
+        glLineWidth(1.0f);
+        glBindVertexArray(wire_vao_);
+        glDrawElements(GL_LINES, wire_index_count_, GL_UNSIGNED_INT, nullptr);
+        glUniform4f(l_tint_, 0, 0, 0, 0);
+    }
+    glDisable(GL_BLEND);
+    if (st.glyphs) draw_lines(glyphs_, 1.6f);
+    if (st.cut_ring) draw_lines(ring_, 2.5f);
+}
+
 void SceneRenderer::draw(const OrbitCamera& cam, int x, int y, int w, int h, const SceneStyle& st, bool clear) {
     if (w <= 0 || h <= 0) return;
     const glm::mat4 view = cam.view(), proj = cam.projection(double(w) / h);
@@ -179,54 +225,7 @@ void SceneRenderer::draw(const OrbitCamera& cam, int x, int y, int w, int h, con
     glUniform4f(l_tint_, 0, 0, 0, 0);
     if (st.axes) draw_lines(axes_, 2.0f);
 
-    if (surface_index_count_) {
-        glUseProgram(surface_program_);
-        glUniformMatrix4fv(s_view_, 1, GL_FALSE, glm::value_ptr(view));
-        glUniformMatrix4fv(s_proj_, 1, GL_FALSE, glm::value_ptr(proj));
-        glEnable(GL_POLYGON_OFFSET_FILL);
-        glPolygonOffset(1.0f, 1.0f);
-        // The surface is star-shaped about the origin with outward (counter-clockwise) triangles and
-        // the eye stays outside it, so the first surface met by any view ray faces the eye: back faces
-        // can be culled when the surface is opaque (this halves llvmpipe's rasterising work).
-        if (!st.translucent) glEnable(GL_CULL_FACE);
-        if (st.translucent) {
-            glEnable(GL_BLEND);
-            glBlendFunc(GL_SRC_ALPHA, GL_ONE_MINUS_SRC_ALPHA);
-            glDepthMask(GL_FALSE);
-            glUniform1f(s_alpha_, 0.45f);
-        } else {
-            glUniform1f(s_alpha_, 1.0f);
-        }
-        glBindVertexArray(surface_vao_);
-        // Level of detail: skip grid lines whose cells would be under a few pixels wide.
-        int level = 0;
-        // ELLIPSA_FULL_DETAIL=1 always draws every grid line (for comparisons and benchmarks).
-        static const bool full_detail = [] {
-            const char* e = std::getenv("ELLIPSA_FULL_DETAIL");
-            return e && *e && *e != '0';
-        }();
-        const int stride = full_detail ? 1 : lod_stride(grid_step_deg_, h, cam.fov_deg, cam.distance, 3.0);
-        if (stride >= 4 && lod_count_[2]) level = 2;
-        else if (stride >= 2 && lod_count_[1]) level = 1;
-        last_stride_ = 1 << level;
-        glDrawElements(GL_TRIANGLES, lod_count_[level], GL_UNSIGNED_INT, reinterpret_cast<void*>(lod_offset_[level]));
-        glDepthMask(GL_TRUE);
-        glDisable(GL_CULL_FACE);
-        glDisable(GL_POLYGON_OFFSET_FILL);
-        glUseProgram(line_program_);
-        if (st.wireframe && wire_index_count_) {
-            glEnable(GL_BLEND);
-            glBlendFunc(GL_SRC_ALPHA, GL_ONE_MINUS_SRC_ALPHA);
-            glUniform4f(l_tint_, 0.15f, 0.15f, 0.18f, 0.35f);
-            glLineWidth(1.0f);
-            glBindVertexArray(wire_vao_);
-            glDrawElements(GL_LINES, wire_index_count_, GL_UNSIGNED_INT, nullptr);
-            glUniform4f(l_tint_, 0, 0, 0, 0);
-        }
-        glDisable(GL_BLEND);
-        if (st.glyphs) draw_lines(glyphs_, 1.6f);
-        if (st.cut_ring) draw_lines(ring_, 2.5f);
-    }
+    if (surface_index_count_) draw_surface(cam, h, proj, st);
     glBindVertexArray(0);
     glUseProgram(0);
     glDisable(GL_DEPTH_TEST);

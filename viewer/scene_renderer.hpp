@@ -19,6 +19,7 @@ struct SceneStyle {
     bool glyphs = true;
     bool cut_ring = true;
     bool axes = true;
+    bool full_detail = false;  // every grid line however small its cells (ELLIPSA_FULL_DETAIL=1; comparisons, benchmarks)
     Rgb background{0.97f, 0.97f, 0.96f};
 };
 
@@ -49,6 +50,7 @@ private:
         int count = 0;  // vertices
     };
     void upload_lines(Lines& l, const LineSet& set);
+    void draw_surface(const OrbitCamera& cam, int h, const glm::mat4& proj, const SceneStyle& st);
     void draw_lines(const Lines& l, float width);
 
     unsigned surface_program_ = 0, line_program_ = 0;

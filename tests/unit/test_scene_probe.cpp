@@ -1,8 +1,7 @@
-// The hover probe's figures against closed-form antennas.
+// The probe's values against closed-form antennas: numbers, which the panel formats.
 #include <catch2/catch.hpp>
 
 #include <cmath>
-#include <string>
 
 #include "pattern/reference.hpp"
 #include "viewer/scene/probe.hpp"
@@ -10,29 +9,26 @@
 using namespace ellipsa;
 using namespace ellipsa::viewer;
 
-namespace {
-std::string value_of(const std::vector<ProbeRow>& rows, const std::string& label) {
-    for (const ProbeRow& r : rows)
-        if (r.label == label) return r.value;
-    return "(missing)";
-}
-}  // namespace
-
 TEST_CASE("probe of a short dipole broadside: 1.76 dBi, linear, theta-polarised", "[scene][probe]") {
     // Balanis sec. 4.2: D = 1.5 (1.76 dBi) at theta = 90 deg, E along theta-hat only.
     ReferenceAntenna a;
     a.kind = ReferenceKind::short_dipole;
     FarFieldSet s = synthesize(a, 2, 1e9);
-    auto rows = probe_rows(s, 0, 90, 30);
-    CHECK(value_of(rows, "Total") == "1.76 dBi");
-    CHECK(value_of(rows, "E-theta") == "1.76 dBi");
-    CHECK(value_of(rows, "E-phi").find("no field") != std::string::npos);
-    // Linear: AR infinite, said in words, never a made-up number (conventions.md).
-    CHECK(value_of(rows, "Axial ratio") == "infinite (linear)");
-    CHECK(value_of(rows, "Sense") == "linear");
+    const ProbeValues p = probe(s, 0, 90, 30);
+    REQUIRE(p.inside);
+    CHECK(*p.db_of(Component::total) == Approx(1.761).margin(0.005));
+    CHECK(*p.db_of(Component::theta) == Approx(1.761).margin(0.005));
+    CHECK(std::isinf(*p.db_of(Component::phi)));  // no field: -inf, never a made-up floor
+    CHECK(*p.db_of(Component::phi) < 0);
+    // Linear: AR infinite (conventions.md), sense linear.
+    REQUIRE(p.polarisation);
+    CHECK(std::isinf(p.polarisation->axial_ratio));
+    CHECK(p.polarisation->sense == Sense::linear);
     // RHCP and LHCP each carry half: 1.76 - 3.01 = -1.25 dBic.
-    CHECK(value_of(rows, "RHCP") == "-1.25 dBic");
-    CHECK(value_of(rows, "Q/I U/I V/I") == "+1.00 +0.00 +0.00");
+    CHECK(*p.db_of(Component::rhcp) == Approx(-1.249).margin(0.005));
+    const Stokes& st = p.polarisation->stokes;
+    CHECK(st.q / st.i == Approx(1));
+    CHECK(st.v / st.i == Approx(0).margin(1e-12));
 }
 
 TEST_CASE("probe of crossed dipoles: circular on the axis, AR 1/|cos t| off it", "[scene][probe]") {
@@ -41,22 +37,22 @@ TEST_CASE("probe of crossed dipoles: circular on the axis, AR 1/|cos t| off it",
     a.kind = ReferenceKind::crossed_dipoles;
     a.phase_deg = -90;  // right-hand toward +z
     FarFieldSet s = synthesize(a, 2, 1e9);
-    auto on_axis = probe_rows(s, 0, 0, 0);
-    CHECK(value_of(on_axis, "Axial ratio") == "0.00 dB");
-    CHECK(value_of(on_axis, "Sense") == "right-hand");
-    auto at60 = probe_rows(s, 0, 60, 20);
-    CHECK(value_of(at60, "Axial ratio") == "6.02 dB");  // 20 log10(2)
-    auto below = probe_rows(s, 0, 180, 0);
-    CHECK(value_of(below, "Sense") == "left-hand");
+    const ProbeValues on_axis = probe(s, 0, 0, 0);
+    REQUIRE(on_axis.polarisation);
+    CHECK(20 * std::log10(on_axis.polarisation->axial_ratio) == Approx(0).margin(0.005));
+    CHECK(on_axis.polarisation->sense == Sense::right);
+    const ProbeValues at60 = probe(s, 0, 60, 20);
+    CHECK(20 * std::log10(at60.polarisation->axial_ratio) == Approx(6.02).margin(0.005));  // 20 log10(2)
+    CHECK(probe(s, 0, 180, 0).polarisation->sense == Sense::left);
 }
 
-TEST_CASE("probe without phase gives powers and says why polarisation is missing", "[scene][probe]") {
+TEST_CASE("probe without phase gives powers and no polarisation", "[scene][probe]") {
     ReferenceAntenna a;
     a.kind = ReferenceKind::dipole;
     FarFieldSet s = synthesize(a, 5, 1e9);
     s.content = FieldContent::magnitude_only;
-    auto rows = probe_rows(s, 0, 90, 0);
-    CHECK(value_of(rows, "Total") == "2.15 dBi");  // half-wave dipole, Balanis sec. 4.5: D = 1.64
-    CHECK(value_of(rows, "RHCP") == "(missing)");
-    CHECK(value_of(rows, "Polarisation").find("needs phase") != std::string::npos);
+    const ProbeValues p = probe(s, 0, 90, 0);
+    CHECK(*p.db_of(Component::total) == Approx(2.15).margin(0.005));  // half-wave dipole, Balanis sec. 4.5: D = 1.64
+    CHECK_FALSE(p.db_of(Component::rhcp));
+    CHECK_FALSE(p.polarisation);
 }

@@ -2,10 +2,11 @@
 
 #include <algorithm>
 #include <cmath>
-#include <type_traits>
 #include <cstdio>
 #include <cstdlib>
 #include <sstream>
+#include <string_view>
+#include <type_traits>
 
 namespace ellipsa::viewer {
 
@@ -33,6 +34,73 @@ bool to_double(const std::string& v, double& out) {
     out = d;
     return true;
 }
+
+// Every number and flag of the settings with its limits: the one list that the text form, the
+// parser and within_limits() use.
+template <class S, class F>
+void for_each_number(S& s, F&& f) {
+    f("range_db", s.range_db, 3.0, 120.0);
+    f("glyph_spacing_deg", s.glyph_spacing_deg, 3.0, 45.0);
+    f("cut_kind", s.cut_kind, 0.0, 2.0);
+    f("cut_angle_deg", s.cut_angle_deg, -360.0, 360.0);
+    f("cut_components", s.cut_components, 0.0, 511.0);
+    f("poincare_within_db", s.poincare_within_db, 0.1, 60.0);
+    f("window_width", s.window_width, 320.0, 16384.0);
+    f("window_height", s.window_height, 240.0, 16384.0);
+    f("left_panel_width", s.left_panel_width, 150.0, 2000.0);
+    f("right_panel_width", s.right_panel_width, 150.0, 2000.0);
+    f("cut_panel_height", s.cut_panel_height, 100.0, 2000.0);
+}
+template <class S, class F>
+void for_each_flag(S& s, F&& f) {
+    f("wireframe", s.wireframe);
+    f("translucent", s.translucent);
+    f("glyphs", s.glyphs);
+    f("polar_plot", s.polar_plot);
+    f("seen_intro", s.seen_intro);
+}
+
+// Written as "inside" so that NaN fails it; whole-number fields take whole numbers only.
+template <class T>
+bool number_fits(double d, double lo, double hi) {
+    return d >= lo && d <= hi && (std::is_floating_point_v<T> || d == std::floor(d));
+}
+
+// One "key = value" line into s; false (and why) when the key or value is not usable.
+bool parse_line(ViewerSettings& s, const std::string& k, const std::string& v, std::string& why) {
+    if (k == "component") return parse_component(v.c_str(), s.component) || (why = "unknown component '" + v + "'", false);
+    if (k == "color_by") return parse_color_by(v, s.color_by) || (why = "unknown colouring '" + v + "'", false);
+    if (k == "gain_map") {
+        ColorMap m;
+        if (parse_color_map(v, m) && is_sequential(m)) return s.gain_map = m, true;
+        return why = "'gain_map' expects viridis, cividis or magma, found '" + v + "'", false;
+    }
+    if (k == "recent") {
+        if (!v.empty() && s.recent_files.size() < ViewerSettings::max_recent) s.recent_files.push_back(v);
+        return true;
+    }
+    double d = 0;
+    const bool num = to_double(v, d);
+    bool known = false, ok = false;
+    for_each_number(s, [&](const char* name, auto& field, double lo, double hi) {
+        using T = std::remove_reference_t<decltype(field)>;
+        if (k != name) return;
+        known = true;
+        ok = num && number_fits<T>(d, lo, hi);
+        if (ok) field = static_cast<T>(d);
+        else why = "'" + k + "' expects " + (std::is_floating_point_v<T> ? "a number" : "a whole number") + " from " +
+                   number_text(lo) + " to " + number_text(hi) + ", found '" + v + "'";
+    });
+    for_each_flag(s, [&](const char* name, bool& field) {
+        if (k != name) return;
+        known = true;
+        ok = num && (d == 0 || d == 1);
+        if (ok) field = d != 0;
+        else why = "'" + k + "' expects 0 or 1, found '" + v + "'";
+    });
+    if (!known) why = "unknown key '" + k + "'";
+    return ok;
+}
 }  // namespace
 
 std::string format_settings(const ViewerSettings& s) {
@@ -41,22 +109,8 @@ std::string format_settings(const ViewerSettings& s) {
     o << "component = " << to_string(s.component) << "\n";
     o << "color_by = " << to_string(s.color_by) << "\n";
     o << "gain_map = " << to_string(s.gain_map) << "\n";
-    o << "range_db = " << s.range_db << "\n";
-    o << "wireframe = " << s.wireframe << "\n";
-    o << "translucent = " << s.translucent << "\n";
-    o << "glyphs = " << s.glyphs << "\n";
-    o << "glyph_spacing_deg = " << s.glyph_spacing_deg << "\n";
-    o << "polar_plot = " << s.polar_plot << "\n";
-    o << "cut_kind = " << s.cut_kind << "\n";
-    o << "cut_angle_deg = " << s.cut_angle_deg << "\n";
-    o << "cut_components = " << s.cut_components << "\n";
-    o << "poincare_within_db = " << s.poincare_within_db << "\n";
-    o << "seen_intro = " << s.seen_intro << "\n";
-    o << "window_width = " << s.window_width << "\n";
-    o << "window_height = " << s.window_height << "\n";
-    o << "left_panel_width = " << s.left_panel_width << "\n";
-    o << "right_panel_width = " << s.right_panel_width << "\n";
-    o << "cut_panel_height = " << s.cut_panel_height << "\n";
+    for_each_number(s, [&](const char* name, const auto& field, double, double) { o << name << " = " << field << "\n"; });
+    for_each_flag(s, [&](const char* name, bool field) { o << name << " = " << (field ? 1 : 0) << "\n"; });
     for (const std::string& f : s.recent_files) o << "recent = " << f << "\n";
     return o.str();
 }
@@ -64,9 +118,8 @@ std::string format_settings(const ViewerSettings& s) {
 ViewerSettings parse_settings(const std::string& text, std::vector<std::string>* warnings) {
     ViewerSettings s;
     std::istringstream in(text);
-    std::string line;
-    int n = 0;
-    std::size_t problems = 0;
+    std::string line, why;
+    std::size_t n = 0, problems = 0;
     auto warn = [&](const std::string& what) {
         if (warnings && ++problems <= max_settings_warnings) warnings->push_back("line " + std::to_string(n) + ": " + what);
     };
@@ -75,62 +128,25 @@ ViewerSettings parse_settings(const std::string& text, std::vector<std::string>*
         line = trim(line);
         if (line.empty() || line[0] == '#') continue;
         const auto eq = line.find('=');
-        if (eq == std::string::npos) {
-            warn("expected 'key = value', found '" + line + "'");
-            continue;
-        }
-        const std::string k = trim(line.substr(0, eq)), v = trim(line.substr(eq + 1));
-        double d = 0;
-        const bool num = to_double(v, d);
-        // Written as "inside" so that NaN fails it; whole-number fields take whole numbers only.
-        auto need_num = [&](auto& field, double lo, double hi) {
-            using T = std::remove_reference_t<decltype(field)>;
-            const bool whole = !std::is_floating_point_v<T>;
-            if (num && d >= lo && d <= hi && (!whole || d == std::floor(d)))
-                field = static_cast<T>(d);
-            else
-                warn("'" + k + "' expects " + (whole ? "a whole number" : "a number") + " from " + number_text(lo) + " to " +
-                     number_text(hi) + ", found '" + v + "'");
-        };
-        auto need_bool = [&](bool& field) {
-            if (!num || (d != 0 && d != 1))
-                warn("'" + k + "' expects 0 or 1, found '" + v + "'");
-            else
-                field = d != 0;
-        };
-        if (k == "component") {
-            if (!parse_component(v.c_str(), s.component)) warn("unknown component '" + v + "'");
-        } else if (k == "color_by") {
-            if (!parse_color_by(v, s.color_by)) warn("unknown colouring '" + v + "'");
-        } else if (k == "gain_map") {
-            if (!parse_color_map(v, s.gain_map) || !is_sequential(s.gain_map)) {
-                warn("'gain_map' expects viridis, cividis or magma, found '" + v + "'");
-                s.gain_map = ColorMap::viridis;
-            }
-        } else if (k == "range_db") need_num(s.range_db, 3, 120);
-        else if (k == "wireframe") need_bool(s.wireframe);
-        else if (k == "translucent") need_bool(s.translucent);
-        else if (k == "glyphs") need_bool(s.glyphs);
-        else if (k == "glyph_spacing_deg") need_num(s.glyph_spacing_deg, 3, 45);
-        else if (k == "polar_plot") need_bool(s.polar_plot);
-        else if (k == "cut_kind") need_num(s.cut_kind, 0, 2);
-        else if (k == "cut_angle_deg") need_num(s.cut_angle_deg, -360, 360);
-        else if (k == "cut_components") need_num(s.cut_components, 0, 511);
-        else if (k == "poincare_within_db") need_num(s.poincare_within_db, 0.1, 60);
-        else if (k == "seen_intro") need_bool(s.seen_intro);
-        else if (k == "window_width") need_num(s.window_width, 320, 16384);
-        else if (k == "window_height") need_num(s.window_height, 240, 16384);
-        else if (k == "left_panel_width") need_num(s.left_panel_width, 150, 2000);
-        else if (k == "right_panel_width") need_num(s.right_panel_width, 150, 2000);
-        else if (k == "cut_panel_height") need_num(s.cut_panel_height, 100, 2000);
-        else if (k == "recent") {
-            if (!v.empty() && s.recent_files.size() < ViewerSettings::max_recent) s.recent_files.push_back(v);
-        } else
-            warn("unknown key '" + k + "'");
+        if (eq == std::string::npos) warn("expected 'key = value', found '" + line + "'");
+        else if (!parse_line(s, trim(line.substr(0, eq)), trim(line.substr(eq + 1)), why)) warn(why);
     }
     if (warnings && problems > max_settings_warnings)
         warnings->push_back("and " + std::to_string(problems - max_settings_warnings) + " more problems, not listed");
     return s;
+}
+
+ViewerSettings within_limits(ViewerSettings proposed, const ViewerSettings& fallback) {
+    std::vector<double> kept;  // the fallback's numbers, in the list's order
+    for_each_number(fallback, [&](const char*, const auto& value, double, double) { kept.push_back(double(value)); });
+    std::size_t i = 0;
+    for_each_number(proposed, [&](const char*, auto& field, double lo, double hi) {
+        using T = std::remove_reference_t<decltype(field)>;
+        if (!number_fits<T>(double(field), lo, hi)) field = static_cast<T>(kept[i]);
+        ++i;
+    });
+    if (!is_sequential(proposed.gain_map)) proposed.gain_map = fallback.gain_map;
+    return proposed;
 }
 
 }  // namespace ellipsa::viewer

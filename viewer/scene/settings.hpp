@@ -34,6 +34,7 @@ struct ViewerSettings {
 
     // Put a path at the front of the recent list (removing an older copy).
     void remember_file(const std::string& path);
+    bool operator==(const ViewerSettings&) const = default;
 };
 
 std::string format_settings(const ViewerSettings& s);
@@ -43,5 +44,9 @@ std::string format_settings(const ViewerSettings& s);
 // max_settings_warnings problems, then one line that counts the rest.
 inline constexpr std::size_t max_settings_warnings = 20;
 ViewerSettings parse_settings(const std::string& text, std::vector<std::string>* warnings = nullptr);
+
+// `proposed` with every number outside its limits (or not finite, or not whole where it counts)
+// replaced by the value in `fallback`: the same limits the parser applies.
+ViewerSettings within_limits(ViewerSettings proposed, const ViewerSettings& fallback);
 
 }  // namespace ellipsa::viewer

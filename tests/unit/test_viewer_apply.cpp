@@ -1,0 +1,242 @@
+// apply(): the one function that changes the viewer's state. Closing patterns, A/B indices,
+// frequencies, components, pins, loads and exports, each as the intents a panel would return.
+#include <catch2/catch.hpp>
+
+#include <cmath>
+
+#include "pattern/reference.hpp"
+#include "viewer/state/apply.hpp"
+
+using namespace ellipsa;
+using namespace ellipsa::viewer;
+
+namespace {
+// A synthesised antenna at the given frequencies (the field scaled per frequency so the sets differ).
+FarFieldSet antenna(ReferenceKind kind, std::vector<double> freqs_hz, const std::string& name) {
+    ReferenceAntenna a;
+    a.kind = kind;
+    FarFieldSet s = synthesize(a, 10, freqs_hz.front());
+    s.name = name;
+    const FarField f0 = s.frequencies.front();
+    s.frequencies.clear();
+    for (std::size_t k = 0; k < freqs_hz.size(); ++k) {
+        FarField f = f0;
+        f.frequency_hz = freqs_hz[k];
+        for (cplx& v : f.e_theta) v *= double(k + 1);
+        for (cplx& v : f.e_phi) v *= double(k + 1);
+        s.frequencies.push_back(std::move(f));
+    }
+    return s;
+}
+
+// Three patterns p0, p1, p2 (ids 1, 2, 3), A = 0.
+AppState three() {
+    AppState s;
+    Intents in;
+    in.push_back(intent::AddPatterns{{antenna(ReferenceKind::short_dipole, {1e9}, "p0"),
+                                      antenna(ReferenceKind::small_loop, {1e9}, "p1"),
+                                      antenna(ReferenceKind::crossed_dipoles, {1e9}, "p2")},
+                                     "test"});
+    apply(s, std::move(in));
+    return s;
+}
+
+template <class... I>
+Effects run(AppState& s, I... intents) {
+    Intents in;
+    (in.push_back(std::move(intents)), ...);
+    return apply(s, std::move(in));
+}
+
+std::string name_of(const AppState& s, int i) { return s.patterns[std::size_t(i)].set.name; }
+}  // namespace
+
+TEST_CASE("adding patterns: ids, A and the note", "[viewer][apply]") {
+    AppState s = three();
+    REQUIRE(s.patterns.size() == 3);
+    CHECK(s.active == 0);
+    CHECK(s.compare == -1);
+    CHECK(s.patterns[0].id == 1);
+    CHECK(s.patterns[2].id == 3);
+    CHECK(s.note == "test");
+}
+
+TEST_CASE("closing patterns keeps A and B on the same patterns", "[viewer][apply]") {
+    SECTION("closing one before A and B shifts both") {
+        AppState s = three();
+        run(s, intent::SelectPattern{1}, intent::SetCompare{2});
+        run(s, intent::ClosePattern{0});
+        CHECK(name_of(s, s.active) == "p1");
+        CHECK(name_of(s, s.compare) == "p2");
+    }
+    SECTION("closing B drops it") {
+        AppState s = three();
+        run(s, intent::SelectPattern{2}, intent::SetCompare{0});
+        run(s, intent::ClosePattern{0});
+        CHECK(name_of(s, s.active) == "p2");
+        CHECK(s.compare == -1);
+    }
+    SECTION("closing A makes the one before it A; B stays on its pattern") {
+        AppState s = three();
+        run(s, intent::SelectPattern{1}, intent::SetCompare{2});
+        run(s, intent::ClosePattern{1});
+        CHECK(name_of(s, s.active) == "p0");
+        CHECK(name_of(s, s.compare) == "p2");
+    }
+    SECTION("closing the first pattern while it is A makes the next one A") {
+        AppState s = three();
+        run(s, intent::SetCompare{1});
+        run(s, intent::ClosePattern{0});
+        CHECK(name_of(s, s.active) == "p1");
+        CHECK(s.compare == -1);  // B was the new A
+    }
+    SECTION("closing every pattern leaves an empty, consistent state") {
+        AppState s = three();
+        run(s, intent::Hover{Direction{10, 20}}, intent::ClosePattern{2}, intent::ClosePattern{1}, intent::ClosePattern{0});
+        CHECK(s.patterns.empty());
+        CHECK(s.active_pattern() == nullptr);
+        CHECK(s.compare == -1);
+        CHECK_FALSE(s.hover);
+    }
+    SECTION("an index out of range changes nothing") {
+        AppState s = three();
+        run(s, intent::ClosePattern{3}, intent::ClosePattern{-1});
+        CHECK(s.patterns.size() == 3);
+    }
+    SECTION("closing B resets a difference colouring") {
+        AppState s = three();
+        ViewerSettings st = s.settings;
+        st.color_by = ColorBy::difference;
+        run(s, intent::SetCompare{1}, intent::ChangeSettings{st});
+        CHECK(s.settings.color_by == ColorBy::difference);
+        run(s, intent::ClosePattern{1});
+        CHECK(s.settings.color_by == ColorBy::component);
+    }
+}
+
+TEST_CASE("B is never A", "[viewer][apply]") {
+    AppState s = three();
+    run(s, intent::SetCompare{0});
+    CHECK(s.compare == -1);
+    run(s, intent::SetCompare{2}, intent::SelectPattern{2});
+    CHECK(s.active == 2);
+    CHECK(s.compare == -1);
+    run(s, intent::SetCompare{7});
+    CHECK(s.compare == -1);
+}
+
+TEST_CASE("frequencies: in range, stepped, and kept across patterns by nearest frequency", "[viewer][apply]") {
+    AppState s;
+    run(s, intent::AddPatterns{{antenna(ReferenceKind::short_dipole, {2.40e9, 2.45e9, 2.50e9}, "a"),
+                                antenna(ReferenceKind::small_loop, {2.44e9, 2.51e9}, "b")},
+                               ""});
+    run(s, intent::SetFrequency{2});
+    CHECK(s.freq == 2);
+    run(s, intent::SetFrequency{3});  // there is no fourth
+    CHECK(s.freq == 2);
+    run(s, intent::StepFrequency{1});
+    CHECK(s.freq == 2);
+    run(s, intent::StepFrequency{-5});
+    CHECK(s.freq == 0);
+    run(s, intent::SetFrequency{2}, intent::SelectPattern{1});  // 2.50 GHz: b's nearest is 2.51 GHz
+    CHECK(s.freq == 1);
+    run(s, intent::SetFrequency{0}, intent::NextPattern{});  // 2.44 GHz: a's nearest is 2.45 GHz
+    CHECK(s.active == 0);
+    CHECK(s.freq == 1);
+    CHECK(s.freq_for(s.patterns[1]) == 0);  // B at A's 2.45 GHz: 2.44 GHz
+}
+
+TEST_CASE("components: only ones the data can give", "[viewer][apply]") {
+    AppState s = three();
+    s.patterns[0].set.content = FieldContent::magnitude_only;  // no phase: no circular or Ludwig-3 parts
+    ViewerSettings st = s.settings;
+    st.component = Component::rhcp;
+    run(s, intent::ChangeSettings{st});
+    CHECK(s.settings.component == Component::total);
+    st.component = Component::phi;
+    run(s, intent::ChangeSettings{st});
+    CHECK(s.settings.component == Component::phi);
+    run(s, intent::StepComponent{1}, intent::StepComponent{1});  // vertical, horizontal
+    CHECK(s.settings.component == Component::horizontal);
+    run(s, intent::StepComponent{1});  // co, cross, rhcp, lhcp need phase: round to total
+    CHECK(s.settings.component == Component::total);
+    run(s, intent::StepComponent{-1});
+    CHECK(s.settings.component == Component::horizontal);
+    // A pattern with phase offers them again.
+    run(s, intent::SelectPattern{2}, intent::StepComponent{1});
+    CHECK(s.settings.component == Component::co);
+}
+
+TEST_CASE("colourings: the difference only with a B", "[viewer][apply]") {
+    AppState s = three();
+    run(s, intent::SelectPattern{2});  // crossed dipoles: every colouring but the difference
+    for (int k = 0; k < 4; ++k) run(s, intent::StepColorBy{});
+    CHECK(s.settings.color_by == ColorBy::component);  // wrapped past the difference
+    run(s, intent::SetCompare{0});
+    for (int k = 0; k < 4; ++k) run(s, intent::StepColorBy{});
+    CHECK(s.settings.color_by == ColorBy::difference);
+}
+
+TEST_CASE("settings edits keep every number within its limits", "[viewer][apply]") {
+    AppState s = three();
+    ViewerSettings st = s.settings;
+    st.range_db = NAN;  // ImGui's typed slider input can give anything
+    st.cut_panel_height = INFINITY;
+    st.glyph_spacing_deg = 20;
+    run(s, intent::ChangeSettings{st});
+    CHECK(s.settings.range_db == ViewerSettings{}.range_db);
+    CHECK(s.settings.cut_panel_height == ViewerSettings{}.cut_panel_height);
+    CHECK(s.settings.glyph_spacing_deg == 20);
+}
+
+TEST_CASE("pin, unpin and Esc", "[viewer][apply]") {
+    AppState s = three();
+    run(s, intent::Pin{Direction{45, -30}});
+    REQUIRE(s.pinned);
+    CHECK(s.pinned->phi_deg == 330);
+    run(s, intent::Unpin{});  // the probe panel's button
+    CHECK_FALSE(s.pinned);
+    run(s, intent::Pin{Direction{NAN, NAN}}, intent::Pin{Direction{190, 0}});
+    CHECK_FALSE(s.pinned);
+    run(s, intent::Pin{Direction{10, 10}}, intent::ShowHelp{true}, intent::Escape{});
+    CHECK_FALSE(s.show_help);  // Esc closes the help first
+    CHECK(s.pinned);
+    run(s, intent::Escape{});
+    CHECK_FALSE(s.pinned);
+}
+
+TEST_CASE("loading: files go out as effects, results come back as intents", "[viewer][apply]") {
+    AppState s = three();
+    const Effects fx = run(s, intent::OpenFiles{{"a.csv", "", "b.csv"}, "m.map"}, intent::CancelLoad{});
+    REQUIRE(fx.load.size() == 2);
+    CHECK(fx.load[1].path == "b.csv");
+    CHECK(fx.load[1].map == "m.map");
+    CHECK(fx.cancel_load);
+    run(s, intent::LoadFinished{"bad.csv", "/x/bad.csv", Error{"bad.csv", 3, 1, "expected a number"}});
+    CHECK(s.patterns.size() == 3);
+    CHECK(s.load_error == "bad.csv:3:1: expected a number");
+    run(s, intent::LoadFinished{"d.csv", "/x/d.csv", antenna(ReferenceKind::dipole, {1e9}, "d")});
+    CHECK(s.patterns.size() == 4);
+    CHECK(s.active == 3);
+    CHECK(s.patterns[3].path == "d.csv");
+    CHECK(s.load_error.empty());
+    CHECK(s.note.empty());
+    CHECK(s.settings.recent_files.front() == "/x/d.csv");
+}
+
+TEST_CASE("exports: asked for, answered, replaced only when asked", "[viewer][apply]") {
+    AppState s = three();
+    Effects fx = run(s, intent::ExportCut{"c.svg", false});
+    REQUIRE(fx.export_cut);
+    CHECK_FALSE(fx.export_cut->overwrite);
+    run(s, intent::ExportFinished{ExportTarget::cut, {ExportOutcome::Status::exists, "c.svg", ""}});
+    REQUIRE(s.cut_export);
+    CHECK(s.cut_export->status == ExportOutcome::Status::exists);
+    fx = run(s, intent::ExportCut{"c.svg", true});  // "Replace it"
+    CHECK(fx.export_cut->overwrite);
+    CHECK_FALSE(s.cut_export);  // the old message goes while the new export runs
+    run(s, intent::ExportFinished{ExportTarget::view, {ExportOutcome::Status::written, "/x/v.png", ""}},
+        intent::DismissExport{ExportTarget::cut});
+    CHECK(s.view_export->status == ExportOutcome::Status::written);
+    CHECK_FALSE(s.cut_export);
+}

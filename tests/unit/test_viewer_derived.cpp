@@ -1,0 +1,112 @@
+// Derived data: rebuilt exactly when its inputs change, so nothing shown is stale. The Unpin
+// button once reset only the pin and left the cut through it on screen; with one state channel
+// and keyed derived data, every way of unpinning recomputes the cut.
+#include <catch2/catch.hpp>
+
+#include <cmath>
+
+#include "pattern/reference.hpp"
+#include "viewer/state/apply.hpp"
+#include "viewer/state/derived.hpp"
+
+using namespace ellipsa;
+using namespace ellipsa::viewer;
+
+namespace {
+FarFieldSet dipole(const std::string& name, double scale = 1) {
+    ReferenceAntenna a;
+    a.kind = ReferenceKind::short_dipole;
+    FarFieldSet s = synthesize(a, 5, 1e9);
+    s.name = name;
+    for (cplx& v : s.frequencies[0].e_theta) v *= scale;
+    return s;
+}
+
+template <class... I>
+void run(AppState& s, I... intents) {
+    Intents in;
+    (in.push_back(std::move(intents)), ...);
+    apply(s, std::move(in));
+}
+
+// A state showing a short dipole, cut through a pin at (60, 0).
+AppState pinned_cut() {
+    AppState s;
+    ViewerSettings st;
+    st.cut_kind = 2;
+    run(s, intent::AddPatterns{{dipole("a"), dipole("b", 2)}, ""}, intent::ChangeSettings{st}, intent::Pin{Direction{60, 0}});
+    return s;
+}
+}  // namespace
+
+TEST_CASE("nothing is rebuilt when nothing changed", "[viewer][derived]") {
+    AppState s = pinned_cut();
+    Derived d;
+    const DerivedChanges first = refresh(d, s);
+    CHECK(first.surface);
+    CHECK(first.ring);
+    const DerivedChanges again = refresh(d, s);
+    CHECK_FALSE(again.surface);
+    CHECK_FALSE(again.glyphs);
+    CHECK_FALSE(again.ring);
+}
+
+TEST_CASE("every way of unpinning recomputes the cut through the pin", "[viewer][derived]") {
+    for (int way = 0; way < 2; ++way) {
+        AppState s = pinned_cut();
+        Derived d;
+        refresh(d, s);
+        REQUIRE(d.cut.value().valid);
+        REQUIRE(d.pinned.value());
+        if (way == 0) run(s, intent::Unpin{});  // the probe panel's button
+        else run(s, intent::Escape{});          // the key
+        const DerivedChanges c = refresh(d, s);
+        CHECK_FALSE(d.cut.value().valid);  // "Pin a direction to cut through it."
+        CHECK(c.ring);                     // and its ring leaves the surface
+        CHECK(d.ring.value().vertices.empty());
+        CHECK_FALSE(d.pinned.value());
+    }
+}
+
+TEST_CASE("the derived data follows A, B, the frequency and the component", "[viewer][derived]") {
+    AppState s = pinned_cut();
+    Derived d;
+    refresh(d, s);
+    const double peak_a = d.surface.value().mesh.peak_db;
+    CHECK(peak_a == Approx(1.76).margin(0.01));  // short dipole, D = 1.5 (Balanis sec. 4.2)
+    // B (twice the field: +6.02 dB, 20 log10 2) only changes the surface with the difference colouring.
+    run(s, intent::SetCompare{1});
+    DerivedChanges c = refresh(d, s);
+    CHECK_FALSE(c.surface);
+    REQUIRE(d.cut.value().curves.size() == 2);  // but the cut overlays B at once
+    CHECK(*d.cut.value().peak_db == Approx(peak_a + 6.02).margin(0.02));
+    // Selecting the other pattern as A rebuilds; closing a pattern that is not A does not.
+    run(s, intent::SelectPattern{1});
+    c = refresh(d, s);
+    CHECK(c.surface);
+    CHECK(d.surface.value().mesh.peak_db == Approx(peak_a + 6.02).margin(0.02));
+    run(s, intent::ClosePattern{0});
+    CHECK_FALSE(refresh(d, s).surface);
+    // Another component rebuilds the surface.
+    ViewerSettings st = s.settings;
+    st.component = Component::theta;
+    run(s, intent::ChangeSettings{st});
+    CHECK(refresh(d, s).surface);
+    // The probe follows the hover.
+    run(s, intent::Hover{Direction{90, 0}});
+    refresh(d, s);
+    REQUIRE(d.hover.value());
+    CHECK(*d.hover.value()->a.db_of(Component::total) == Approx(peak_a + 6.02).margin(0.02));
+}
+
+TEST_CASE("a closed pattern is never shown from the cache", "[viewer][derived]") {
+    AppState s = pinned_cut();
+    Derived d;
+    refresh(d, s);
+    run(s, intent::ClosePattern{0}, intent::ClosePattern{0});
+    const DerivedChanges c = refresh(d, s);
+    CHECK(c.surface);
+    CHECK(d.surface.value().mesh.vertices.empty());
+    CHECK_FALSE(d.cut.value().valid);
+    CHECK_FALSE(d.summary.value());
+}

@@ -1,0 +1,94 @@
+#include "viewer/exports_ui.hpp"
+
+#include <ctime>
+#include <filesystem>
+
+#include "exports/cut_figure.hpp"
+#include "exports/render.hpp"
+#include "io/atomic_write.hpp"
+#include "viewer/snapshot.hpp"
+
+namespace ellipsa::viewer {
+
+namespace {
+bool something_at(const std::string& path) {
+    std::error_code ec;
+    return std::filesystem::exists(std::filesystem::symlink_status(path, ec));
+}
+
+Result<std::string> cut_bytes(const AppState& s, const CutData& cut, exports::FileFormat format) {
+    const LoadedPattern* a = s.active_pattern();
+    std::vector<Component> comps;
+    for (const CutCurve& c : cut.curves)
+        if (c.pattern == 0) comps.push_back(c.component);
+    auto ca = exports::compute_cut(a->set, s.freq, cut.spec, comps);
+    if (!ca) return ca.error();
+    if (format == exports::FileFormat::csv) return exports::cut_csv(a->set, *ca);
+    exports::FigureOptions fo;
+    fo.style = s.settings.polar_plot ? exports::PlotStyle::polar : exports::PlotStyle::rect;
+    fo.range_db = s.settings.range_db;
+    exports::CutPlot plot = exports::make_cut_plot(a->set, *ca, fo);
+    if (const LoadedPattern* b = s.compare_pattern()) {
+        std::vector<Component> bc;
+        for (Component c : comps)
+            if (!exports::component_unavailable(b->set, c)) bc.push_back(c);
+        if (auto cb = exports::compute_cut(b->set, s.freq_for(*b), cut.spec, bc)) {
+            for (exports::PlotCurve& c : plot.curves) c.label = a->set.name + ": " + c.label;
+            exports::add_curves(plot, b->set, *cb, b->set.name + ": ");
+        }
+    }
+    return exports::render_image([&](cairo_t* cr, double w, double h) { exports::draw_cut_plot(cr, plot, w, h); }, format,
+                                 exports::RenderSize{}, plot.title);
+}
+}  // namespace
+
+ExportOutcome write_export(const std::string& path, bool overwrite, const std::function<Status()>& write) {
+    if (!overwrite && something_at(path)) return {ExportOutcome::Status::exists, path, ""};
+    const Status st = write();
+    if (st) {
+        std::error_code ec;
+        return {ExportOutcome::Status::written, std::filesystem::absolute(path, ec).string(), ""};
+    }
+    if (!overwrite && something_at(path)) return {ExportOutcome::Status::exists, path, ""};
+    return {ExportOutcome::Status::failed, path, st.error().format()};
+}
+
+ExportOutcome export_cut_file(const AppState& s, const CutData& cut, const std::string& path, bool overwrite) {
+    if (!s.active_pattern() || !cut.valid) return {ExportOutcome::Status::failed, path, "no cut is shown"};
+    const auto format = exports::format_from_path(path);
+    if (!format) return {ExportOutcome::Status::failed, path, path + ": expected a .svg, .pdf, .png or .csv file name"};
+    return write_export(path, overwrite, [&]() -> Status {
+        auto bytes = cut_bytes(s, cut, *format);
+        if (!bytes) return bytes.error();
+        return io::write_file_atomically(path, *bytes, overwrite);
+    });
+}
+
+ExportOutcome export_view_file(const AppState& s, const std::string& path, bool overwrite) {
+    const LoadedPattern* a = s.active_pattern();
+    if (!a) return {ExportOutcome::Status::failed, path, "no pattern is shown"};
+    SnapshotOptions so;
+    so.component = s.settings.component;
+    so.color_by = s.settings.color_by;
+    so.gain_map = s.settings.gain_map;
+    so.view_azimuth_deg = s.camera.azimuth_deg;
+    so.view_elevation_deg = s.camera.elevation_deg;
+    so.frequency_index = s.freq;
+    so.range_db = s.settings.range_db;
+    so.glyphs = s.settings.glyphs;
+    const LoadedPattern* b = s.compare_pattern();
+    so.compare = b ? &b->set : nullptr;
+    so.compare_frequency_index = b ? s.freq_for(*b) : 0;
+    return write_export(path, overwrite, [&] { return render_snapshot_png(a->set, so, path, overwrite); });
+}
+
+std::string timestamped_name(const std::string& stem, const std::string& extension) {
+    char b[64];
+    const std::time_t t = std::time(nullptr);
+    std::tm local{};
+    localtime_r(&t, &local);
+    std::strftime(b, sizeof b, "-%Y%m%d-%H%M%S.", &local);
+    return stem + b + extension;
+}
+
+}  // namespace ellipsa::viewer

@@ -1,0 +1,32 @@
+// Exports from the viewer, returned as outcomes (ExportOutcome in viewer/state/app_state.hpp):
+// the 3D view through the headless snapshot (the code behind `ellipsa render`) and the cut on
+// screen through the exports code (behind `ellipsa cut`: one Cairo drawing for SVG, PDF and
+// PNG; CSV of the plotted values), with B's curves overlaid when comparing. Without `overwrite`
+// an existing file (or link, even a dangling one) is never replaced: the outcome is `exists`
+// and the panel offers to replace it; a scripted run turns it into an error.
+#pragma once
+#include <functional>
+#include <string>
+
+#include "pattern/result.hpp"
+
+#include "viewer/scene/cut_view.hpp"
+#include "viewer/state/app_state.hpp"
+
+namespace ellipsa::viewer {
+
+// Write a file through `write` (which gets `overwrite` itself) unless something is already at
+// `path` and overwrite is off; a refusal by the writer (a file that appeared meanwhile) is
+// `exists` too.
+ExportOutcome write_export(const std::string& path, bool overwrite, const std::function<Status()>& write);
+
+ExportOutcome export_cut_file(const AppState& s, const CutData& cut, const std::string& path, bool overwrite);
+
+// Renders through its own headless context: a caller with a current window context releases it
+// first and makes it current again afterwards (GLVND allows one window-system API per thread).
+ExportOutcome export_view_file(const AppState& s, const std::string& path, bool overwrite);
+
+// A file name in the current folder for an export from the UI: "<stem>-YYYYmmdd-HHMMSS.<ext>".
+std::string timestamped_name(const std::string& stem, const std::string& extension);
+
+}  // namespace ellipsa::viewer

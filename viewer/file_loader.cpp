@@ -1,0 +1,74 @@
+#include "viewer/file_loader.hpp"
+
+#include <atomic>
+#include <filesystem>
+#include <optional>
+#include <thread>
+
+#include "viewer/pattern_files.hpp"
+
+namespace ellipsa::viewer {
+
+// One read. The worker touches only this object; poll() takes the result once `done` is set.
+struct FileLoader::Job {
+    std::string path, map;
+    std::atomic<double> progress{0};
+    std::atomic<bool> cancel{false}, done{false};
+    std::optional<Result<FarFieldSet>> result;
+    std::thread worker;
+    ~Job() {
+        cancel = true;
+        if (worker.joinable()) worker.join();
+    }
+};
+
+FileLoader::FileLoader() = default;
+FileLoader::~FileLoader() = default;
+
+void FileLoader::enqueue(std::string path, std::string map) { waiting_.emplace_back(std::move(path), std::move(map)); }
+
+void FileLoader::cancel_current() {
+    if (current_) current_->cancel = true;
+}
+
+bool FileLoader::idle() const { return !current_ && waiting_.empty(); }
+
+Intents FileLoader::poll() {
+    Intents out;
+    if (current_ && current_->done) {
+        current_->worker.join();
+        Job& j = *current_;
+        std::error_code ec;
+        const std::string abs = std::filesystem::absolute(j.path, ec).string();
+        if (j.cancel)
+            out.push_back(intent::LoadFinished{j.path, abs, Error{j.path, 0, 0, "loading cancelled"}});
+        else if (j.result)
+            out.push_back(intent::LoadFinished{j.path, abs, std::move(*j.result)});
+        current_.reset();
+    }
+    if (!current_ && !waiting_.empty()) {
+        current_ = std::make_unique<Job>();
+        current_->path = std::move(waiting_.front().first);
+        current_->map = std::move(waiting_.front().second);
+        waiting_.pop_front();
+        Job* raw = current_.get();
+        raw->worker = std::thread([raw] {
+            auto r = load_pattern_file(raw->path, raw->map, [raw](double f) {
+                raw->progress = f;
+                return !raw->cancel.load();
+            });
+            raw->result.emplace(std::move(r));
+            raw->done = true;
+        });
+    }
+    if (current_) {
+        out.push_back(intent::LoadStatus{LoadingView{current_->path, current_->progress.load(), waiting_.size()}});
+        reported_idle_ = false;
+    } else if (!reported_idle_) {
+        out.push_back(intent::LoadStatus{std::nullopt});
+        reported_idle_ = true;
+    }
+    return out;
+}
+
+}  // namespace ellipsa::viewer

@@ -1,0 +1,64 @@
+#include "viewer/scripted_run.hpp"
+
+#include <algorithm>
+#include <cstdint>
+#include <iostream>
+#include <vector>
+
+#define GLFW_INCLUDE_NONE
+#include <GLFW/glfw3.h>
+
+#include "io/atomic_write.hpp"
+#include "viewer/exports_ui.hpp"
+#include "viewer/gl.hpp"
+#include "viewer/snapshot.hpp"
+
+namespace ellipsa::viewer {
+
+namespace {
+// The back buffer as PNG bytes, top row first, opaque.
+std::string back_buffer_png(Window& w) {
+    int fbw = 0, fbh = 0;
+    glfwGetFramebufferSize(w.glfw(), &fbw, &fbh);
+    std::vector<std::uint8_t> px(std::size_t(fbw) * std::size_t(fbh) * 4), flipped(px.size());
+    glPixelStorei(GL_PACK_ALIGNMENT, 1);
+    glReadBuffer(GL_BACK);
+    glReadPixels(0, 0, fbw, fbh, GL_RGBA, GL_UNSIGNED_BYTE, px.data());
+    const std::size_t row = std::size_t(fbw) * 4;
+    for (int y = 0; y < fbh; ++y) std::copy_n(px.data() + std::size_t(fbh - 1 - y) * row, row, flipped.data() + std::size_t(y) * row);
+    for (std::size_t i = 3; i < flipped.size(); i += 4) flipped[i] = 255;
+    return encode_png(flipped, fbw, fbh);
+}
+
+// 0 when written; else the reason on stderr and 1.
+int report(const char* option, const ExportOutcome& o) {
+    if (o.status == ExportOutcome::Status::written) return 0;
+    if (o.status == ExportOutcome::Status::exists)
+        std::cerr << "ellipsa view: " << o.path << ": already exists; use --force to replace it\n";
+    else
+        std::cerr << "ellipsa view: " << option << ": " << o.error << "\n";
+    return 1;
+}
+}  // namespace
+
+void ScriptedRun::place_pointer(Window& w) const {
+    if (o_.has_cursor) glfwSetCursorPos(w.glfw(), o_.cursor_x, o_.cursor_y);
+}
+
+int ScriptedRun::finish(const AppState& s, const Derived& d, Window& w) const {
+    int code = 0;
+    if (!o_.export_cut.empty()) code |= report("--export-cut", export_cut_file(s, d.cut.value(), o_.export_cut, o_.force));
+    if (!o_.screenshot.empty()) {
+        const std::string png = back_buffer_png(w);
+        code |= report("--screenshot", write_export(o_.screenshot, o_.force, [&] { return io::write_file_atomically(o_.screenshot, png, o_.force); }));
+    }
+    if (!o_.export_view.empty()) {
+        // The snapshot renders through its own headless context (the path of `ellipsa render`).
+        glfwMakeContextCurrent(nullptr);
+        code |= report("--export-view", export_view_file(s, o_.export_view, o_.force));
+        w.context().make_current();
+    }
+    return code;
+}
+
+}  // namespace ellipsa::viewer

@@ -1,0 +1,81 @@
+// Everything the viewer window knows, in one value: the loaded patterns, what is shown, the
+// camera, the hovered and pinned directions, the persistent settings and what the panels show
+// besides (text being typed, messages, open windows). Pure data: no GL, no ImGui, no threads.
+//
+// One channel changes it: panels and the loop read a const AppState and return intents
+// (viewer/state/intents.hpp); apply() (viewer/state/apply.hpp) is the only code that writes it.
+// Whatever is computed from it (surface, cut, probe, ...) lives in Derived
+// (viewer/state/derived.hpp), rebuilt when its inputs change.
+#pragma once
+#include <cstddef>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "pattern/far_field.hpp"
+#include "viewer/scene/camera.hpp"
+#include "viewer/scene/diversity_view.hpp"
+#include "viewer/scene/settings.hpp"
+
+namespace ellipsa::viewer {
+
+struct LoadedPattern {
+    FarFieldSet set;
+    std::string path;  // empty for built-in patterns
+    int id = 0;        // unique in the window's life; derived data is keyed on it, not on the list position
+};
+
+// A direction on the sphere, degrees.
+struct Direction {
+    double theta_deg = 0, phi_deg = 0;
+    bool operator==(const Direction&) const = default;
+};
+
+// The file being read in the background, as the patterns panel shows it.
+struct LoadingView {
+    std::string path;
+    double progress = 0;      // 0..1
+    std::size_t waiting = 0;  // files queued behind it
+};
+
+// What became of an export (3D view or cut): the panel formats it, a scripted run turns it into
+// an exit code. `exists` means nothing was written because the file is there: the panel offers
+// to replace it.
+struct ExportOutcome {
+    enum class Status { written, exists, failed };
+    Status status = Status::failed;
+    std::string path;   // absolute when written; as asked otherwise
+    std::string error;  // when failed
+};
+enum class ExportTarget { view, cut };
+
+struct AppState {
+    std::vector<LoadedPattern> patterns;
+    int next_pattern_id = 1;
+    int active = 0;    // A (meaningless while there are no patterns)
+    int compare = -1;  // B for the difference view and the overlaid cuts; -1 none
+    std::size_t freq = 0;  // frequency index of A
+    ViewerSettings settings;
+    OrbitCamera camera;
+    std::optional<Direction> hover, pinned;
+
+    std::string path_input, map_input;  // the patterns panel's text fields
+    std::optional<LoadingView> loading;
+    std::string load_error;  // last failed load, shown until dismissed
+    std::string note;        // e.g. "built-in demo"
+    bool show_help = false, show_intro = false;
+    bool diversity_open = false;
+    DiversityChoice diversity;
+    int cut_export_format = 0;  // index into cut_export_formats
+    std::optional<ExportOutcome> view_export, cut_export;
+    bool quit = false;
+
+    const LoadedPattern* active_pattern() const;
+    const LoadedPattern* compare_pattern() const;  // none when B is unset or equals A
+    // The frequency index to use for pattern p: A's own, or the one nearest to A's frequency.
+    std::size_t freq_for(const LoadedPattern& p) const;
+};
+
+inline constexpr const char* cut_export_formats[] = {"svg", "png", "pdf", "csv"};
+
+}  // namespace ellipsa::viewer

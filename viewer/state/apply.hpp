@@ -1,0 +1,30 @@
+// apply(): the one function that changes the viewer's state. Pure: no I/O, no GL, no clock.
+// What needs the outside world (reading files, writing exports) comes back as Effects for the
+// loop to carry out; their outcomes return as intents (LoadFinished, ExportFinished).
+#pragma once
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "viewer/state/app_state.hpp"
+#include "viewer/state/intents.hpp"
+
+namespace ellipsa::viewer {
+
+struct Effects {
+    struct Load {
+        std::string path, map;
+    };
+    std::vector<Load> load;  // files to read, in order
+    bool cancel_load = false;
+    std::optional<intent::ExportView> export_view;
+    std::optional<intent::ExportCut> export_cut;
+};
+
+// Carry out the intents in order. Afterwards the state is consistent whatever came in: A and B
+// are valid indices (B never equals A), the frequency exists, and the shown component and
+// colouring are ones the active pattern (and B) can give. Cost: small, except adding patterns
+// (a move) and closing one (a list erase).
+Effects apply(AppState& s, Intents intents);
+
+}  // namespace ellipsa::viewer

@@ -1,0 +1,139 @@
+#include "viewer/state/derived.hpp"
+
+#include <chrono>
+
+#include "pattern/vec3.hpp"
+
+namespace ellipsa::viewer {
+
+namespace {
+
+double ms_since(std::chrono::steady_clock::time_point t0) {
+    return std::chrono::duration<double, std::milli>(std::chrono::steady_clock::now() - t0).count();
+}
+
+// A's and B's ids and frequencies (0 when absent).
+struct Shown {
+    const LoadedPattern* a = nullptr;
+    const LoadedPattern* b = nullptr;
+    int a_id = 0, b_id = 0;
+    std::size_t fa = 0, fb = 0;
+};
+Shown shown(const AppState& s) {
+    Shown w;
+    w.a = s.active_pattern();
+    w.b = w.a ? s.compare_pattern() : nullptr;
+    if (w.a) w.a_id = w.a->id, w.fa = s.freq;
+    if (w.b) w.b_id = w.b->id, w.fb = s.freq_for(*w.b);
+    return w;
+}
+
+SurfaceKey surface_key(const AppState& s, const Shown& w) {
+    const ViewerSettings& st = s.settings;
+    SurfaceKey k{w.a_id, w.fa, st.component, st.color_by, st.range_db, st.gain_map, 0, 0};
+    if (st.color_by == ColorBy::difference) k.b = w.b_id, k.fb = w.fb;
+    return k;
+}
+
+SurfaceView build_surface_view(const AppState& s, const Shown& w) {
+    SurfaceView v;
+    if (!w.a) return v;
+    const auto t0 = std::chrono::steady_clock::now();
+    SurfaceOptions o;
+    o.component = s.settings.component;
+    o.color_by = s.settings.color_by;
+    o.range_db = s.settings.range_db;
+    o.gain_map = s.settings.gain_map;
+    const bool diff = o.color_by == ColorBy::difference && w.b;
+    auto m = build_surface(w.a->set, w.fa, o, diff ? &w.b->set : nullptr, w.fb);
+    if (m) v.mesh = std::move(*m);
+    else v.error = m.error().message;
+    v.build_ms = ms_since(t0);
+    return v;
+}
+
+CutKey cut_key(const AppState& s, const Shown& w) {
+    const ViewerSettings& st = s.settings;
+    CutKey k{w.a_id, w.b_id, w.fa, w.fb, st.cut_kind, 0, std::nullopt, st.cut_components};
+    if (st.cut_kind == 2) k.pin = s.pinned;
+    else k.angle_deg = st.cut_angle_deg;
+    return k;
+}
+
+CutData build_cut_view(const AppState& s, const Shown& w) {
+    if (!w.a) return {};
+    const auto spec = cut_spec_for(s.settings, s.pinned ? std::optional(s.pinned->theta_deg) : std::nullopt,
+                                   s.pinned ? std::optional(s.pinned->phi_deg) : std::nullopt);
+    if (!spec) return {};
+    return build_cut_data(w.a->set, w.fa, w.b ? &w.b->set : nullptr, w.fb, *spec, s.settings.cut_components);
+}
+
+std::optional<DirectionProbe> probe_at(const Shown& w, const std::optional<Direction>& at) {
+    if (!w.a || !at) return std::nullopt;
+    DirectionProbe p{probe(w.a->set, w.fa, at->theta_deg, at->phi_deg), std::nullopt};
+    if (w.b) p.b = probe(w.b->set, w.fb, at->theta_deg, at->phi_deg);
+    return p;
+}
+
+// The diversity figures; while a slider is held the orientation sweep waits and the last one stays.
+void refresh_diversity(Derived& d, const AppState& s, const Shown& w, bool interacting) {
+    if (!s.diversity_open) return;
+    DiversityKey k{s.diversity, w.a_id, w.b_id, w.fa, w.fb};
+    const bool defer = interacting && k.choice.orientations;
+    if (defer) k.choice.orientations = false;
+    d.diversity.update(k, [&] {
+        const DiversityView& last = d.diversity.value();  // still the previous build here
+        DiversityView v;
+        const auto t0 = std::chrono::steady_clock::now();
+        v.figures = compute_diversity(k.choice, w.a ? &w.a->set : nullptr, w.fa, w.b ? &w.b->set : nullptr, w.fb);
+        v.compute_ms = ms_since(t0);
+        v.computed = true;
+        v.sweep_pending = defer;
+        if (defer) {
+            v.figures.a.orientations = last.figures.a.orientations;
+            v.figures.b.orientations = last.figures.b.orientations;
+        }
+        return v;
+    });
+}
+
+}  // namespace
+
+DerivedChanges refresh(Derived& d, const AppState& s, bool interacting) {
+    const Shown w = shown(s);
+    DerivedChanges c;
+    const SurfaceKey sk = surface_key(s, w);
+    c.surface = d.surface.update(sk, [&] { return build_surface_view(s, w); });
+    const SurfaceMesh& mesh = d.surface.value().mesh;
+    const GlyphKey gk{sk, s.settings.glyphs && w.a, s.settings.glyph_spacing_deg};
+    c.glyphs = d.glyphs.update(gk, [&] {
+        GlyphOptions g;
+        g.spacing_deg = gk.spacing_deg;
+        return gk.on ? build_glyphs(w.a->set, w.fa, mesh, g) : LineSet{};
+    });
+    const CutKey ck = cut_key(s, w);
+    d.cut.update(ck, [&] { return build_cut_view(s, w); });
+    c.ring = d.ring.update(RingKey{sk, ck}, [&] {
+        const CutData& cd = d.cut.value();
+        return cd.valid ? build_cut_ring(w.a->set, mesh, cd.theta_deg, cd.phi_deg, {0.10f, 0.10f, 0.12f}) : LineSet{};
+    });
+    d.hover.update(ProbeKey{w.a_id, w.b_id, w.fa, w.fb, s.hover}, [&] { return probe_at(w, s.hover); });
+    d.pinned.update(ProbeKey{w.a_id, w.b_id, w.fa, w.fb, s.pinned}, [&] { return probe_at(w, s.pinned); });
+    d.summary.update(SummaryKey{w.a_id, w.fa}, [&] { return w.a ? std::optional(summarize(w.a->set, w.fa)) : std::nullopt; });
+    const PoincareKey pk{w.a_id, w.fa, s.settings.poincare_within_db};
+    d.poincare.update(pk, [&] {
+        return w.a && w.a->set.has_phase() ? poincare_cloud(w.a->set, w.fa, pk.within_db, 2000) : std::vector<PoincarePoint>{};
+    });
+    refresh_diversity(d, s, w, interacting);
+    return c;
+}
+
+glm::dvec3 surface_point(const AppState& s, const Derived& d, const Direction& at) {
+    const LoadedPattern* a = s.active_pattern();
+    if (!a) return glm::dvec3(0);
+    const double r = surface_radius(a->set, d.surface.value().mesh, at.theta_deg, at.phi_deg);
+    const Vec3 u = direction(at.theta_deg * deg, at.phi_deg * deg);
+    return glm::dvec3(r * u.x, r * u.y, r * u.z);
+}
+
+}  // namespace ellipsa::viewer

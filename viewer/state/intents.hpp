@@ -1,0 +1,98 @@
+// Intents: every change to the viewer's state, as plain values. Panels, keys, the mouse, the
+// file loader and finished exports return them; apply() (viewer/state/apply.hpp) carries them
+// out in order. Adding one: a struct here, its name in the Intent variant, a handler in
+// apply.cpp and a unit test in tests/unit/test_viewer_apply.cpp.
+#pragma once
+#include <cstddef>
+#include <optional>
+#include <string>
+#include <variant>
+#include <vector>
+
+#include "pattern/far_field.hpp"
+#include "pattern/result.hpp"
+#include "viewer/state/app_state.hpp"
+
+namespace ellipsa::viewer {
+namespace intent {
+
+// --- Patterns and files ---
+struct OpenFiles {  // read these files (in the background, one after the other)
+    std::vector<std::string> paths;
+    std::string map;  // column-map file for them; "" looks beside each file
+};
+struct CancelLoad {};
+struct LoadStatus {  // from the loader: what is being read now (none: nothing)
+    std::optional<LoadingView> now;
+};
+struct LoadFinished {  // from the loader: a read ended
+    std::string path, absolute_path;
+    Result<FarFieldSet> result;
+};
+struct AddPatterns {  // built-in or example patterns (no file to remember)
+    std::vector<FarFieldSet> sets;
+    std::string note;
+};
+struct ClosePattern { int index = -1; };
+struct SelectPattern { int index = 0; };  // becomes A
+struct NextPattern {};                    // Tab
+struct SetCompare { int index = -1; };    // B; -1 none
+struct SetFrequency { std::size_t index = 0; };
+struct StepFrequency { int delta = 1; };
+struct EditPath { std::string text; };
+struct EditMap { std::string text; };
+struct DismissLoadError {};
+
+// --- What is shown ---
+// Any edit of the persistent settings: the panel edits a copy and returns it whole (one widget
+// is active per frame; the key handler folds its toggles into one copy). apply() then makes
+// the choices ones the patterns can give.
+struct ChangeSettings { ViewerSettings settings; };
+struct StepComponent { int delta = 1; };  // next (or previous) component the data can give
+struct StepColorBy {};                    // next colouring the data can give
+
+// --- The 3D view ---
+struct Orbit { double dx_px = 0, dy_px = 0; };
+struct Zoom { double steps = 0; };
+struct LookFrom { OrbitCamera::Preset preset = OrbitCamera::Preset::px; };
+struct SetView { double azimuth_deg = 0, elevation_deg = 0; };
+struct ResetView {};
+struct Hover { std::optional<Direction> at; };
+struct Pin { Direction at; };
+struct Unpin {};
+struct Escape {};  // closes the help if it is open, else unpins
+
+// --- Windows ---
+struct ShowHelp { bool on = true; };
+struct ShowIntro { bool on = true; };
+struct DismissIntro {};  // "Got it": hidden and remembered
+struct ShowDiversity { bool on = true; };
+struct ChangeDiversity { DiversityChoice choice; };
+
+// --- Exports and leaving ---
+struct SetCutExportFormat { int index = 0; };
+struct ExportView { std::string path; bool overwrite = false; };
+struct ExportCut { std::string path; bool overwrite = false; };
+struct ExportFinished { ExportTarget target = ExportTarget::view; ExportOutcome outcome; };
+struct DismissExport { ExportTarget target = ExportTarget::view; };
+struct Quit {};
+
+}  // namespace intent
+
+using Intent = std::variant<
+    intent::OpenFiles, intent::CancelLoad, intent::LoadStatus, intent::LoadFinished, intent::AddPatterns,
+    intent::ClosePattern, intent::SelectPattern, intent::NextPattern, intent::SetCompare, intent::SetFrequency,
+    intent::StepFrequency, intent::EditPath, intent::EditMap, intent::DismissLoadError, intent::ChangeSettings,
+    intent::StepComponent, intent::StepColorBy, intent::Orbit, intent::Zoom, intent::LookFrom, intent::SetView,
+    intent::ResetView, intent::Hover, intent::Pin, intent::Unpin, intent::Escape, intent::ShowHelp, intent::ShowIntro,
+    intent::DismissIntro, intent::ShowDiversity, intent::ChangeDiversity, intent::SetCutExportFormat,
+    intent::ExportView, intent::ExportCut, intent::ExportFinished, intent::DismissExport, intent::Quit>;
+
+using Intents = std::vector<Intent>;
+
+// Append b's intents to a, keeping their order.
+inline void append(Intents& a, Intents&& b) {
+    for (Intent& i : b) a.push_back(std::move(i));
+}
+
+}  // namespace ellipsa::viewer

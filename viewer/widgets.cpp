@@ -1,0 +1,59 @@
+#include "viewer/widgets.hpp"
+
+#include <imgui.h>
+
+#include <cmath>
+#include <cstdio>
+
+namespace ellipsa::viewer {
+
+void help_marker(const char* text) {
+    ImGui::SameLine();
+    ImGui::TextDisabled("(?)");
+    if (ImGui::IsItemHovered()) {
+        ImGui::BeginTooltip();
+        ImGui::PushTextWrapPos(ImGui::GetFontSize() * 28);
+        ImGui::TextUnformatted(text);
+        ImGui::PopTextWrapPos();
+        ImGui::EndTooltip();
+    }
+}
+
+void table_row(const char* label, const std::string& value, const char* tip) {
+    ImGui::TableNextRow();
+    ImGui::TableSetColumnIndex(0);
+    ImGui::TextDisabled("%s", label);
+    if (tip && ImGui::IsItemHovered()) ImGui::SetTooltip("%s", tip);
+    ImGui::TableSetColumnIndex(1);
+    ImGui::TextUnformatted(value.c_str());
+}
+
+Intents export_outcome_line(const std::optional<ExportOutcome>& o, ExportTarget target) {
+    Intents in;
+    if (!o) return in;
+    ImGui::PushTextWrapPos(0);
+    switch (o->status) {
+    case ExportOutcome::Status::written: ImGui::TextDisabled("Wrote %s", o->path.c_str()); break;
+    case ExportOutcome::Status::failed: ImGui::TextWrapped("Export failed: %s", o->error.c_str()); break;
+    case ExportOutcome::Status::exists:
+        ImGui::TextWrapped("%s is already there.", o->path.c_str());
+        if (ImGui::SmallButton("Replace it")) {
+            if (target == ExportTarget::view) in.push_back(intent::ExportView{o->path, true});
+            else in.push_back(intent::ExportCut{o->path, true});
+        }
+        ImGui::SameLine();
+        if (ImGui::SmallButton("Keep it")) in.push_back(intent::DismissExport{target});
+        break;
+    }
+    ImGui::PopTextWrapPos();
+    return in;
+}
+
+std::string db_text(double v, const std::string& unit) {
+    if (!std::isfinite(v)) return v < 0 ? "no field (-inf " + unit + ")" : "n/a";
+    char b[64];
+    std::snprintf(b, sizeof b, "%.2f %s", v, unit.c_str());
+    return b;
+}
+
+}  // namespace ellipsa::viewer

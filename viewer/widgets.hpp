@@ -1,0 +1,20 @@
+// Small widgets the panels share: a "(?)" help marker, a label/value table row, and the line
+// that reports an export (with the offer to replace a file that is already there).
+#pragma once
+#include <optional>
+#include <string>
+
+#include "viewer/state/app_state.hpp"
+#include "viewer/state/intents.hpp"
+
+namespace ellipsa::viewer {
+
+void help_marker(const char* text);
+// One row of a two-column table: a muted label (with a tooltip when given) and the value.
+void table_row(const char* label, const std::string& value, const char* tip = nullptr);
+// "Wrote ...", "Export failed: ...", or "... is already there. [Replace it] [Keep it]".
+Intents export_outcome_line(const std::optional<ExportOutcome>& outcome, ExportTarget target);
+// "1.23 dBi"; a zero field as "no field (-inf dBi)", anything else not finite as "n/a".
+std::string db_text(double value_db, const std::string& unit);
+
+}  // namespace ellipsa::viewer
