@@ -6,6 +6,7 @@
 
 #include "exports/fonts.hpp"
 #include "exports/palette.hpp"
+#include "exports/plot_pen.hpp"
 
 namespace ellipsa::exports {
 
@@ -38,118 +39,6 @@ double plot_top_db(const CutPlot& p) {
 }
 
 namespace {
-
-constexpr double kPi = 3.14159265358979323846;
-constexpr double kDeg = kPi / 180;
-
-// A number with a typographic minus sign and no "-0".
-std::string num(double v, int decimals) {
-    if (std::abs(v) < 0.5 * std::pow(10.0, -decimals)) v = 0;
-    char b[48];
-    std::snprintf(b, sizeof b, "%.*f", decimals, v);
-    std::string s = b;
-    if (!s.empty() && s[0] == '-') s = "\u2212" + s.substr(1);
-    return s;
-}
-std::string angle_text(double a_deg, int decimals) { return num(a_deg, decimals) + "°"; }
-
-struct Pen {
-    cairo_t* cr;
-    double u;  // layout unit: 1 at the reference size of 576 x 432 pt
-    double size = 10;
-
-    void font(FontWeight w, double s) {
-        size = s * u;
-        set_font(cr, w, size);
-    }
-    void colour(Rgb c, double alpha = 1) { cairo_set_source_rgba(cr, c.r, c.g, c.b, alpha); }
-    double width(const std::string& s) const {
-        cairo_text_extents_t e;
-        cairo_text_extents(cr, s.c_str(), &e);
-        return e.x_advance;
-    }
-    // halign: 0 left, 0.5 centre, 1 right; vcentre: y is the middle of the digits, not the baseline.
-    void text(const std::string& s, double x, double y, double halign = 0, bool vcentre = false) {
-        const double dx = -halign * width(s);
-        const double dy = vcentre ? 0.36 * size : 0;
-        cairo_move_to(cr, x + dx, y + dy);
-        cairo_show_text(cr, s.c_str());
-    }
-    void line(double x0, double y0, double x1, double y1) {
-        cairo_move_to(cr, x0, y0);
-        cairo_line_to(cr, x1, y1);
-        cairo_stroke(cr);
-    }
-    void dash(double on, double off) {
-        const double d[2] = {on * u, off * u};
-        cairo_set_dash(cr, d, 2, 0);
-    }
-    void solid() { cairo_set_dash(cr, nullptr, 0, 0); }
-    void curve_style(std::size_t i, double line_width) {
-        colour(curve_colour(i));
-        cairo_set_line_width(cr, line_width);
-        const Dash d = curve_dash(i);
-        if (d.count == 0) {
-            solid();
-        } else {
-            double v[4];
-            for (int k = 0; k < d.count; ++k) v[k] = d.d[k] * line_width;
-            cairo_set_dash(cr, v, d.count, 0);
-        }
-    }
-    // A white box behind a label so it stays readable over grid and curves.
-    void halo(const std::string& s, double x, double y, double halign, bool vcentre) {
-        const double w = width(s), pad = 1.2 * u;
-        const double left = x - halign * w - pad;
-        const double top = (vcentre ? y - 0.36 * size : y - 0.72 * size) - pad;
-        cairo_save(cr);
-        cairo_set_source_rgba(cr, 1, 1, 1, 0.85);
-        cairo_rectangle(cr, left, top, w + 2 * pad, 0.72 * size + 2 * pad);
-        cairo_fill(cr);
-        cairo_restore(cr);
-    }
-};
-
-// Make `s` fit in `w`: shrink the current font down to `min_size` (layout points), then cut the
-// text with an ellipsis. Leaves the font at the size it chose.
-std::string fit(Pen& pen, const std::string& s, double w, double min_size) {
-    double size = pen.size / pen.u;
-    while (pen.width(s) > w && size > min_size + 1e-9) {
-        size = std::max(min_size, size - 0.5);
-        pen.size = size * pen.u;
-        cairo_set_font_size(pen.cr, pen.size);
-    }
-    if (pen.width(s) <= w) return s;
-    // Cut at UTF-8 character boundaries.
-    std::string t = s;
-    while (!t.empty() && pen.width(t + "…") > w) {
-        t.pop_back();
-        while (!t.empty() && (static_cast<unsigned char>(t.back()) & 0xC0) == 0x80) t.pop_back();
-        if (!t.empty() && (static_cast<unsigned char>(t.back()) & 0xC0) == 0xC0) t.pop_back();
-    }
-    return t + "…";
-}
-
-// Word-wrap `s` into lines no wider than `w` with the current font.
-std::vector<std::string> wrap(Pen& pen, const std::string& s, double w) {
-    std::vector<std::string> out;
-    std::string cur;
-    std::size_t pos = 0;
-    while (pos < s.size()) {
-        std::size_t sp = s.find(' ', pos);
-        std::string word = s.substr(pos, sp == std::string::npos ? std::string::npos : sp - pos);
-        pos = sp == std::string::npos ? s.size() : sp + 1;
-        std::string trial = cur.empty() ? word : cur + " " + word;
-        if (!cur.empty() && pen.width(trial) > w) {
-            out.push_back(cur);
-            cur = word;
-        } else {
-            cur = trial;
-        }
-    }
-    if (!cur.empty()) out.push_back(cur);
-    return out;
-}
 
 // The top of the scale, then every whole multiple of `step` strictly between top and floor.
 std::vector<double> grid_levels(double top, double floor, double step) {
@@ -214,22 +103,6 @@ std::vector<std::pair<double, double>> no_data_ranges(const CutPlot& p) {
     return out;
 }
 constexpr Rgb no_data_grey{0.93, 0.93, 0.93};
-
-// ---------------------------------------------------------------------------------- header ---
-double draw_header(Pen& pen, const CutPlot& p, double w, double m) {
-    const double u = pen.u;
-    pen.colour(ink);
-    pen.font(FontWeight::bold, 13);
-    pen.text(fit(pen, p.title, w - 2 * m, 9.5), m, m + 11 * u);
-    pen.colour(ink_soft);
-    pen.font(FontWeight::regular, 9);
-    pen.text(fit(pen, p.subtitle, w - 2 * m, 7.5), m, m + 25 * u);
-    const double y = m + 32 * u;
-    cairo_set_line_width(pen.cr, 0.5 * u);
-    pen.colour(grid_major);
-    pen.line(m, y, w - m, y);
-    return y;
-}
 
 // ---------------------------------------------------------------------------------- legend ---
 void draw_legend(Pen& pen, const CutPlot& p, double x0, double y0, double x1, double y1) {
@@ -659,7 +532,7 @@ void draw_cut_plot(cairo_t* cr, const CutPlot& p, double w, double h) {
     cairo_rectangle(cr, 0, 0, w, h);
     cairo_fill(cr);
 
-    const double header = draw_header(pen, p, w, m);
+    const double header = draw_header(pen, p.title, p.subtitle, w, m);
     const double legend_w = std::clamp(0.33 * w, 150 * u, 230 * u);
     const double lx0 = w - m - legend_w;
     if (p.style == PlotStyle::polar)

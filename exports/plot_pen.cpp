@@ -1,0 +1,71 @@
+#include "exports/plot_pen.hpp"
+
+#include <cmath>
+#include <cstdio>
+
+namespace ellipsa::exports {
+
+std::string num(double v, int decimals) {
+    if (std::abs(v) < 0.5 * std::pow(10.0, -decimals)) v = 0;
+    char b[48];
+    std::snprintf(b, sizeof b, "%.*f", decimals, v);
+    std::string s = b;
+    if (!s.empty() && s[0] == '-') s = "\u2212" + s.substr(1);
+    return s;
+}
+std::string angle_text(double a_deg, int decimals) { return num(a_deg, decimals) + "°"; }
+
+std::string fit(Pen& pen, const std::string& s, double w, double min_size) {
+    double size = pen.size / pen.u;
+    while (pen.width(s) > w && size > min_size + 1e-9) {
+        size = std::max(min_size, size - 0.5);
+        pen.size = size * pen.u;
+        cairo_set_font_size(pen.cr, pen.size);
+    }
+    if (pen.width(s) <= w) return s;
+    // Cut at UTF-8 character boundaries.
+    std::string t = s;
+    while (!t.empty() && pen.width(t + "…") > w) {
+        t.pop_back();
+        while (!t.empty() && (static_cast<unsigned char>(t.back()) & 0xC0) == 0x80) t.pop_back();
+        if (!t.empty() && (static_cast<unsigned char>(t.back()) & 0xC0) == 0xC0) t.pop_back();
+    }
+    return t + "…";
+}
+
+std::vector<std::string> wrap(Pen& pen, const std::string& s, double w) {
+    std::vector<std::string> out;
+    std::string cur;
+    std::size_t pos = 0;
+    while (pos < s.size()) {
+        std::size_t sp = s.find(' ', pos);
+        std::string word = s.substr(pos, sp == std::string::npos ? std::string::npos : sp - pos);
+        pos = sp == std::string::npos ? s.size() : sp + 1;
+        std::string trial = cur.empty() ? word : cur + " " + word;
+        if (!cur.empty() && pen.width(trial) > w) {
+            out.push_back(cur);
+            cur = word;
+        } else {
+            cur = trial;
+        }
+    }
+    if (!cur.empty()) out.push_back(cur);
+    return out;
+}
+
+double draw_header(Pen& pen, const std::string& title, const std::string& subtitle, double w, double m) {
+    const double u = pen.u;
+    pen.colour(ink);
+    pen.font(FontWeight::bold, 13);
+    pen.text(fit(pen, title, w - 2 * m, 9.5), m, m + 11 * u);
+    pen.colour(ink_soft);
+    pen.font(FontWeight::regular, 9);
+    pen.text(fit(pen, subtitle, w - 2 * m, 7.5), m, m + 25 * u);
+    const double y = m + 32 * u;
+    cairo_set_line_width(pen.cr, 0.5 * u);
+    pen.colour(grid_major);
+    pen.line(m, y, w - m, y);
+    return y;
+}
+
+}  // namespace ellipsa::exports
