@@ -3,11 +3,13 @@
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
-#include <numeric>
 
 #include "cli/format.hpp"
+#include "exports/band_figure.hpp"
 
 namespace ellipsa::cli {
+
+using exports::edges_text;
 
 namespace {
 std::string number(double v, int decimals) {
@@ -15,15 +17,7 @@ std::string number(double v, int decimals) {
     std::snprintf(b, sizeof b, "%.*f", decimals, v);
     return b;
 }
-std::string frequency_text(double hz) { return format_frequency(hz); }
 }  // namespace
-
-std::string edges_text(const BandEdges& e) {
-    std::string s = frequency_text(e.lower_hz) + (e.lower_open ? " or below" : "") + " .. " + frequency_text(e.upper_hz) +
-                    (e.upper_open ? " or above" : "");
-    s += " (" + number(e.percent, 1) + " %" + (e.lower_open || e.upper_open ? " at least" : "") + ")";
-    return s;
-}
 
 void edges_json(JsonWriter& j, std::string_view key, const std::optional<BandEdges>& e) {
     j.key(key);
@@ -65,36 +59,6 @@ std::string circular_text(const CircularFigures& c) {
         s = "none (" + c.elevation.unavailable_reason + ")";
     }
     return s + "; AR <= 3 dB over " + number(100 * c.solid_angle->share, 1) + " % of the sphere";
-}
-
-BandSummary band_summary(const FarFieldSet& s, const std::vector<std::size_t>& which,
-                         const std::vector<PatternSummary>& rs, std::optional<std::pair<double, double>> dir) {
-    BandSummary b;
-    std::vector<std::size_t> order(which.size());
-    std::iota(order.begin(), order.end(), std::size_t(0));
-    std::stable_sort(order.begin(), order.end(), [&](std::size_t x, std::size_t y) { return rs[x].frequency_hz < rs[y].frequency_hz; });
-    std::vector<double> fr, pk;
-    for (std::size_t k : order) {
-        fr.push_back(rs[k].frequency_hz);
-        pk.push_back(rs[k].peak_db);
-    }
-    b.gain_1db = gain_bandwidth(fr, pk, 1.0);
-    b.gain_3db = gain_bandwidth(fr, pk, 3.0);
-    if (order.empty()) return b;
-    const PatternSummary& mid = rs[order[order.size() / 2]];
-    b.ar_theta_deg = dir ? dir->first : mid.peak.theta_deg;
-    b.ar_phi_deg = dir ? dir->second : mid.peak.phi_deg;
-    std::vector<double> ar;
-    for (std::size_t k : order) {
-        const ArReading a = axial_ratio_at(s, which[k], b.ar_theta_deg, b.ar_phi_deg);
-        if (!a.ar_db && b.ar_unavailable_reason.empty()) b.ar_unavailable_reason = a.unavailable_reason;
-        ar.push_back(a.ar_db ? *a.ar_db : std::nan(""));
-    }
-    b.ar = ar_bandwidth(fr, ar, ar_threshold_db);
-    if (!b.ar && b.ar_unavailable_reason.empty())
-        b.ar_unavailable_reason = fr.size() < 2 ? "needs two or more frequencies"
-                                                : "the axial ratio there exceeds 3 dB at every sampled frequency";
-    return b;
 }
 
 void band_summary_json(JsonWriter& j, const BandSummary& b) {

@@ -12,8 +12,6 @@
 
 namespace ellipsa::cli {
 
-// "2.41 .. 2.49 GHz (3.3 %)"; an open edge reads "2.4 GHz or below" / "or above".
-std::string edges_text(const BandEdges& e);
 // {"lower_hz", "upper_hz", "centre_hz", "percent", "lower_open", "upper_open", "interpolated"} or null.
 void edges_json(JsonWriter& j, std::string_view key, const std::optional<BandEdges>& e);
 
@@ -30,17 +28,6 @@ void circular_json(JsonWriter& j, const CircularFigures& c);
 // "89.9 deg (elevation plane), 89.9 deg (azimuth plane); AR <= 3 dB over 29.2 % of the sphere".
 std::string circular_text(const CircularFigures& c);
 
-// The band figures of a multi-frequency set from its summaries (any order): gain within 1 dB and
-// 3 dB of the largest peak, and the AR bandwidth at the direction given (default: the peak of the
-// middle frequency).
-struct BandSummary {
-    std::optional<BandEdges> gain_1db, gain_3db, ar;
-    double ar_theta_deg = 0, ar_phi_deg = 0;
-    std::string ar_unavailable_reason;  // when ar is missing
-};
-BandSummary band_summary(const FarFieldSet& s, const std::vector<std::size_t>& freq_indices,
-                         const std::vector<PatternSummary>& summaries,
-                         std::optional<std::pair<double, double>> direction_deg = std::nullopt);
 void band_summary_json(JsonWriter& j, const BandSummary& b);
 // Indented lines for the human summary.
 std::string band_summary_text(const BandSummary& b);

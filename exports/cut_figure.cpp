@@ -3,6 +3,8 @@
 #include <cmath>
 #include <cstdio>
 
+#include "exports/csv_text.hpp"
+
 namespace ellipsa::exports {
 
 std::optional<std::string> component_unavailable(const FarFieldSet& s, Component c) {
@@ -116,16 +118,6 @@ Result<CutData> compute_cut(const FarFieldSet& s, std::size_t fi, const CutSpec&
 }
 
 namespace {
-void append_number(std::string& out, double v) {
-    char buf[40];
-    if (std::isnan(v)) return;  // outside the sampled region: empty field
-    if (std::isinf(v)) {
-        out += v < 0 ? "-inf" : "inf";
-        return;
-    }
-    std::snprintf(buf, sizeof buf, "%.17g", v);
-    out += buf;
-}
 std::string lower(std::string s) {
     for (char& c : s) c = char(c >= 'A' && c <= 'Z' ? c - 'A' + 'a' : c);
     return s;
@@ -139,15 +131,15 @@ std::string cut_csv(const FarFieldSet& s, const CutData& c) {
     const CutSamples& x = c.samples;
     out.reserve(out.size() + x.angle_deg.size() * (3 + c.components.size()) * 20);
     for (std::size_t k = 0; k < x.angle_deg.size(); ++k) {
-        append_number(out, x.angle_deg[k]);
+        append_csv_number(out, x.angle_deg[k]);
         out += ',';
-        append_number(out, x.theta_deg[k]);
+        append_csv_number(out, x.theta_deg[k]);
         out += ',';
-        append_number(out, x.phi_deg[k]);
+        append_csv_number(out, x.phi_deg[k]);
         for (std::size_t i = 0; i < c.components.size(); ++i) {
             out += ',';
             const double p = c.power[i][k];
-            if (!std::isnan(p)) append_number(out, to_db(p));
+            if (!std::isnan(p)) append_csv_number(out, to_db(p));
         }
         out += '\n';
     }

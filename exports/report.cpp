@@ -7,6 +7,7 @@
 
 #include "exports/cut_figure.hpp"
 #include "exports/document.hpp"
+#include "exports/report_views.hpp"
 #include "io/atomic_write.hpp"
 #include "pattern/cut.hpp"
 #include "pattern/diversity_study.hpp"
@@ -180,15 +181,8 @@ struct Renderer {
     std::vector<ReportFile>& files;
 
     Status figure(const CutPlot& plot, const std::string& base, DocFigure& f) {
-        for (FileFormat fmt : {FileFormat::svg, FileFormat::png}) {
-            auto img = render_image([&](cairo_t* cr, double w, double h) { draw_cut_plot(cr, plot, w, h); }, fmt, o.size,
-                                    plot.title);
-            if (!img) return img.error();
-            const std::string name = base + "." + to_string(fmt);
-            files.push_back({name, std::move(*img)});
-            (fmt == FileFormat::svg ? f.vector_file : f.raster_file) = name;
-        }
-        return Ok{};
+        return add_figure_files([&](cairo_t* cr, double w, double h) { draw_cut_plot(cr, plot, w, h); }, plot.title, base,
+                                o.size, files, f);
     }
 };
 
@@ -267,6 +261,7 @@ Result<std::vector<ReportFile>> build_report(const std::vector<ReportInput>& inp
         doc.heading(3, "Figures");
         figures_tables(doc, labels, cols);
         if (!summaries[i].empty() && !summaries[i][0].unavailable_reason.empty()) doc.note(summaries[i][0].unavailable_reason);
+        if (Status st = band_section(doc, files, s, base, display_name(in), o); !st) return st.error();
 
         for (std::size_t j = 0; j < freqs[i].size(); ++j) {
             const std::size_t fi = freqs[i][j];

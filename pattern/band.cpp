@@ -146,4 +146,45 @@ std::optional<BandEdges> ar_bandwidth(const std::vector<double>& fr, const std::
     return band_edges(fr, ar_db, best, threshold_db, true);
 }
 
+BandSummary band_summary(const FarFieldSet& s, const std::vector<std::size_t>& which,
+                         const std::vector<PatternSummary>& rs, std::optional<std::pair<double, double>> dir) {
+    BandSummary b;
+    std::vector<std::size_t> order(which.size());
+    std::iota(order.begin(), order.end(), std::size_t(0));
+    std::stable_sort(order.begin(), order.end(), [&](std::size_t x, std::size_t y) { return rs[x].frequency_hz < rs[y].frequency_hz; });
+    std::vector<double> fr, pk;
+    for (std::size_t k : order) {
+        fr.push_back(rs[k].frequency_hz);
+        pk.push_back(rs[k].peak_db);
+    }
+    b.gain_1db = gain_bandwidth(fr, pk, 1.0);
+    b.gain_3db = gain_bandwidth(fr, pk, 3.0);
+    if (order.empty()) return b;
+    const PatternSummary& mid = rs[order[order.size() / 2]];
+    b.ar_theta_deg = dir ? dir->first : mid.peak.theta_deg;
+    b.ar_phi_deg = dir ? dir->second : mid.peak.phi_deg;
+    std::vector<double> ar;
+    for (std::size_t k : order) {
+        const ArReading a = axial_ratio_at(s, which[k], b.ar_theta_deg, b.ar_phi_deg);
+        if (!a.ar_db && b.ar_unavailable_reason.empty()) b.ar_unavailable_reason = a.unavailable_reason;
+        ar.push_back(a.ar_db ? *a.ar_db : std::nan(""));
+    }
+    b.ar = ar_bandwidth(fr, ar, ar_threshold_db);
+    if (!b.ar && b.ar_unavailable_reason.empty())
+        b.ar_unavailable_reason = fr.size() < 2 ? "needs two or more frequencies"
+                                                : "the axial ratio there exceeds 3 dB at every sampled frequency";
+    return b;
+}
+
+BandSummary band_summary(const FarFieldSet& s, const std::vector<FrequencyFigures>& band,
+                         std::optional<std::pair<double, double>> dir) {
+    std::vector<std::size_t> which;
+    std::vector<PatternSummary> rs;
+    for (const FrequencyFigures& f : band) {
+        which.push_back(f.freq_index);
+        rs.push_back(f.summary);
+    }
+    return band_summary(s, which, rs, dir);
+}
+
 }  // namespace ellipsa

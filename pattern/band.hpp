@@ -24,7 +24,7 @@ struct BandOptions {
     std::vector<Environment> environments;  // MEG in each (none: no MEG)
     // A direction (theta_deg, phi_deg) where the axial ratio is also read at every frequency.
     std::optional<std::pair<double, double>> direction_deg;
-    double ar_threshold_db = ar_threshold_db;  // for the AR beamwidth
+    double ar_threshold_db = ellipsa::ar_threshold_db;  // for the AR beamwidth
 };
 
 // An axial ratio read at one direction: ar_db is +inf for a linear field; nullopt with a
@@ -97,5 +97,21 @@ std::optional<BandEdges> gain_bandwidth(const std::vector<double>& frequency_hz,
 // +inf for linear). nullopt when no frequency meets the threshold.
 std::optional<BandEdges> ar_bandwidth(const std::vector<double>& frequency_hz, const std::vector<double>& ar_db,
                                       double threshold_db = ar_threshold_db);
+
+// The band figures of a multi-frequency set from its summaries (any order; freq_indices[k] is
+// the frequency of summaries[k]): the peak within 1 dB and 3 dB of its largest value, and the AR
+// bandwidth (AR <= 3 dB) at the direction given, by default the peak of the middle frequency.
+// Cost: one interpolation per frequency.
+struct BandSummary {
+    std::optional<BandEdges> gain_1db, gain_3db, ar;
+    double ar_theta_deg = 0, ar_phi_deg = 0;
+    std::string ar_unavailable_reason;  // when ar is missing
+};
+BandSummary band_summary(const FarFieldSet& s, const std::vector<std::size_t>& freq_indices,
+                         const std::vector<PatternSummary>& summaries,
+                         std::optional<std::pair<double, double>> direction_deg = std::nullopt);
+// The same from band_figures().
+BandSummary band_summary(const FarFieldSet& s, const std::vector<FrequencyFigures>& band,
+                         std::optional<std::pair<double, double>> direction_deg = std::nullopt);
 
 }  // namespace ellipsa

@@ -1,0 +1,23 @@
+// The report's sections beyond the cuts (issue 16's views): figures against frequency for a
+// pattern with several frequencies, the whole-sphere map and the sphere coverage per frequency.
+// Each adds document blocks and the files they refer to; build_report() calls them.
+#pragma once
+#include <string>
+#include <vector>
+
+#include "exports/document.hpp"
+#include "exports/render.hpp"
+#include "exports/report.hpp"
+
+namespace ellipsa::exports {
+
+// Render one drawing as SVG and PNG into `files` as base.svg and base.png, and name them in `f`.
+Status add_figure_files(const Drawing& draw, const std::string& title, const std::string& base, const RenderSize& size,
+                        std::vector<ReportFile>& files, DocFigure& f);
+
+// "Figures against frequency": the band plot, its CSV and the band edges, for a pattern with two
+// or more frequencies (nothing otherwise). base: the pattern's file name stem.
+Status band_section(Document& doc, std::vector<ReportFile>& files, const FarFieldSet& s, const std::string& base,
+                    const std::string& title, const ReportOptions& o);
+
+}  // namespace ellipsa::exports

@@ -1,0 +1,226 @@
+#include "exports/xy_plot.hpp"
+
+#include <algorithm>
+#include <cmath>
+
+#include "exports/palette.hpp"
+#include "exports/plot_pen.hpp"
+
+namespace ellipsa::exports {
+
+std::vector<double> nice_ticks(double lo, double hi, int target) {
+    std::vector<double> t;
+    if (!(hi > lo) || !std::isfinite(lo) || !std::isfinite(hi)) return t;
+    const double raw = (hi - lo) / std::max(1, target);
+    const double p = std::pow(10.0, std::floor(std::log10(raw)));
+    double step = p;
+    for (double m : {1.0, 2.0, 5.0, 10.0})
+        if (m * p >= raw * 0.999) {
+            step = m * p;
+            break;
+        }
+    // Whole multiples of the step (no accumulated rounding).
+    for (long k = long(std::ceil(lo / step - 1e-9)); double(k) * step <= hi + 1e-9 * step; ++k) t.push_back(double(k) * step);
+    return t;
+}
+
+namespace {
+
+// Decimals that show a tick step exactly (0 for steps of 1 and more).
+int decimals_for(const std::vector<double>& ticks) {
+    if (ticks.size() < 2) return 1;
+    const double step = ticks[1] - ticks[0];
+    return std::clamp(int(std::ceil(-std::log10(step) - 1e-9)), 0, 6);
+}
+
+struct Range {
+    double lo, hi;
+};
+
+Range y_range(const XyPanel& p) {
+    double lo = INFINITY, hi = -INFINITY;
+    for (const XySeries& s : p.series)
+        for (double v : s.y)
+            if (std::isfinite(v)) lo = std::min(lo, v), hi = std::max(hi, v);
+    for (double r : p.y_references) lo = std::min(lo, r), hi = std::max(hi, r);
+    if (!std::isfinite(lo)) lo = 0, hi = 1;
+    if (hi - lo < 1e-9) lo -= 0.5, hi += 0.5;
+    const std::vector<double> t = nice_ticks(lo, hi);
+    const double step = t.size() > 1 ? t[1] - t[0] : (hi - lo);
+    lo = std::floor(lo / step + 1e-9) * step;
+    hi = std::ceil(hi / step - 1e-9) * step;
+    if (hi <= lo) hi = lo + step;
+    return {p.y_min.value_or(lo), p.y_max.value_or(hi)};
+}
+
+Range x_range(const XyFigure& f) {
+    double lo = INFINITY, hi = -INFINITY;
+    for (const XyPanel& p : f.panels)
+        for (const XySeries& s : p.series)
+            for (double v : s.x)
+                if (std::isfinite(v)) lo = std::min(lo, v), hi = std::max(hi, v);
+    if (!std::isfinite(lo)) lo = 0, hi = 1;
+    const double pad = hi > lo ? 0.04 * (hi - lo) : std::max(std::abs(lo) * 0.01, 1.0);
+    return {f.x_min.value_or(lo - pad), f.x_max.value_or(hi + pad)};
+}
+
+struct Box {
+    double x0, y0, x1, y1;
+    Range xr, yr;
+    double X(double x) const { return x0 + (x1 - x0) * (x - xr.lo) / (xr.hi - xr.lo); }
+    double Y(double y) const { return y1 - (y1 - y0) * (y - yr.lo) / (yr.hi - yr.lo); }
+};
+
+// One series: thin lines between consecutive samples with values, then a marker at each sample.
+void draw_series(Pen& pen, const Box& b, const XySeries& s) {
+    cairo_t* cr = pen.cr;
+    const double u = pen.u;
+    if (s.lines) {
+        bool down = false;
+        for (std::size_t k = 0; k < s.x.size() && k < s.y.size(); ++k) {
+            if (!std::isfinite(s.y[k]) || !std::isfinite(s.x[k])) {
+                down = false;
+                continue;
+            }
+            const double x = b.X(s.x[k]), y = b.Y(std::clamp(s.y[k], b.yr.lo, b.yr.hi));
+            if (down)
+                cairo_line_to(cr, x, y);
+            else
+                cairo_move_to(cr, x, y);
+            down = true;
+        }
+        pen.curve_style(std::size_t(s.style), (s.points ? 0.9 : 1.5) * u);
+        cairo_stroke(cr);
+        pen.solid();
+    }
+    if (!s.points) return;
+    for (std::size_t k = 0; k < s.x.size() && k < s.y.size(); ++k) {
+        if (!std::isfinite(s.y[k]) || s.y[k] < b.yr.lo || s.y[k] > b.yr.hi) continue;
+        cairo_new_sub_path(cr);
+        cairo_arc(cr, b.X(s.x[k]), b.Y(s.y[k]), 2.1 * u, 0, 2 * kPi);
+    }
+    pen.colour(curve_colour(std::size_t(s.style)));
+    cairo_fill_preserve(cr);
+    pen.colour(ink);
+    cairo_set_line_width(cr, 0.4 * u);
+    cairo_stroke(cr);
+}
+
+// Frame, grid, y ticks and labels of one panel; x tick labels only when `x_labels`.
+void draw_frame(Pen& pen, const Box& b, const XyFigure& f, const XyPanel& p, bool x_labels) {
+    cairo_t* cr = pen.cr;
+    const double u = pen.u;
+    const std::vector<double> xt = nice_ticks(b.xr.lo / f.x_scale, b.xr.hi / f.x_scale, 6);
+    const std::vector<double> yt = nice_ticks(b.yr.lo, b.yr.hi, 4);
+    cairo_set_line_width(cr, 0.5 * u);
+    pen.colour(grid_major);
+    for (double v : xt) pen.line(b.X(v * f.x_scale), b.y0, b.X(v * f.x_scale), b.y1);
+    for (double v : yt) pen.line(b.x0, b.Y(v), b.x1, b.Y(v));
+    pen.colour(ink_soft);
+    cairo_set_line_width(cr, 0.8 * u);
+    cairo_rectangle(cr, b.x0, b.y0, b.x1 - b.x0, b.y1 - b.y0);
+    cairo_stroke(cr);
+    pen.colour(ink);
+    pen.font(FontWeight::regular, 7.4);
+    const int yd = decimals_for(yt), xd = decimals_for(xt);
+    for (double v : yt) pen.text(num(v, yd), b.x0 - 4 * u, b.Y(v), 1.0, true);
+    if (x_labels)
+        for (double v : xt) pen.text(num(v, xd), b.X(v * f.x_scale), b.y1 + 11 * u, 0.5);
+    // y label, rotated, left of the tick labels.
+    pen.font(FontWeight::regular, 8.0);
+    cairo_save(cr);
+    cairo_translate(cr, b.x0 - 34 * u, (b.y0 + b.y1) / 2);
+    cairo_rotate(cr, -kPi / 2);
+    const std::string yl = p.y_unit.empty() ? p.y_label : p.y_label + " (" + p.y_unit + ")";
+    pen.text(fit(pen, yl, b.y1 - b.y0, 6.0), 0, 0, 0.5);
+    cairo_restore(cr);
+}
+
+// References, markers and the panel's legend row (above the box).
+void draw_overlays(Pen& pen, const Box& b, const XyPanel& p) {
+    cairo_t* cr = pen.cr;
+    const double u = pen.u;
+    cairo_set_line_width(cr, 0.7 * u);
+    pen.colour(ink_soft);
+    pen.dash(1.0, 1.6);
+    for (double r : p.y_references)
+        if (r >= b.yr.lo && r <= b.yr.hi) pen.line(b.x0, b.Y(r), b.x1, b.Y(r));
+    pen.dash(3.0, 2.0);
+    pen.font(FontWeight::regular, 6.6);
+    for (const XyMarker& m : p.markers) {
+        if (m.x < b.xr.lo || m.x > b.xr.hi) continue;
+        pen.colour(ink_soft);
+        pen.line(b.X(m.x), b.y0, b.X(m.x), b.y1);
+        pen.text(m.label, b.X(m.x) + 2 * u, b.y0 + 8 * u);
+    }
+    pen.solid();
+    // Legend row: sample line and label per series.
+    double x = b.x0;
+    const double y = b.y0 - 5 * u;
+    pen.font(FontWeight::regular, 7.2);
+    for (const XySeries& s : p.series) {
+        if (x > b.x1 - 40 * u) break;
+        pen.curve_style(std::size_t(s.style), 1.4 * u);
+        pen.line(x, y - 2.5 * u, x + 14 * u, y - 2.5 * u);
+        pen.solid();
+        pen.colour(ink);
+        const std::string l = fit(pen, s.label, b.x1 - x - 20 * u, 5.5);
+        pen.text(l, x + 17 * u, y);
+        x += 17 * u + pen.width(l) + 10 * u;
+        pen.font(FontWeight::regular, 7.2);
+    }
+}
+
+}  // namespace
+
+void draw_xy_figure(cairo_t* cr, const XyFigure& f, double w, double h) {
+    cairo_save(cr);
+    Pen pen{cr, std::clamp(std::min(w / 576.0, h / 432.0), 0.4, 4.0)};
+    const double u = pen.u, m = 16 * u;
+    cairo_set_source_rgb(cr, 1, 1, 1);
+    cairo_rectangle(cr, 0, 0, w, h);
+    cairo_fill(cr);
+    const double top = draw_header(pen, f.title, f.subtitle, w, m) + 6 * u;
+    pen.font(FontWeight::regular, 6.8);
+    std::vector<std::string> notes;
+    for (const std::string& n : f.notes)
+        for (const std::string& l : wrap(pen, n, w - 2 * m)) notes.push_back(l);
+    const double bottom = h - m - 8.5 * u * double(notes.size()) - 24 * u;
+    const std::size_t np = std::max<std::size_t>(1, f.panels.size());
+    const double gap = 20 * u, ph = (bottom - top - gap * double(np)) / double(np);
+    const Range xr = x_range(f);
+    for (std::size_t i = 0; i < f.panels.size(); ++i) {
+        const XyPanel& p = f.panels[i];
+        const double y0 = top + gap + double(i) * (ph + gap);
+        const Box b{m + 46 * u, y0, w - m - 6 * u, y0 + ph, xr, y_range(p)};
+        draw_frame(pen, b, f, p, i + 1 == f.panels.size());
+        cairo_save(cr);
+        cairo_rectangle(cr, b.x0, b.y0 - 3 * u, b.x1 - b.x0, b.y1 - b.y0 + 6 * u);
+        cairo_clip(cr);
+        bool any = false;
+        for (const XySeries& s : p.series) {
+            draw_series(pen, b, s);
+            for (double v : s.y) any = any || std::isfinite(v);
+        }
+        cairo_restore(cr);
+        draw_overlays(pen, b, p);
+        if (!any && !p.empty_text.empty()) {
+            pen.colour(ink_soft);
+            pen.font(FontWeight::regular, 7.6);
+            pen.text(fit(pen, p.empty_text, b.x1 - b.x0 - 8 * u, 6.0), (b.x0 + b.x1) / 2, (b.y0 + b.y1) / 2, 0.5, true);
+        }
+    }
+    pen.colour(ink);
+    pen.font(FontWeight::regular, 8.0);
+    pen.text(f.x_unit.empty() ? f.x_label : f.x_label + " (" + f.x_unit + ")", (m + 46 * u + w - m) / 2, bottom + 22 * u, 0.5);
+    pen.colour(ink_soft);
+    pen.font(FontWeight::regular, 6.8);
+    double yn = bottom + 34 * u;
+    for (const std::string& l : notes) {
+        pen.text(l, m, yn);
+        yn += 8.5 * u;
+    }
+    cairo_restore(cr);
+}
+
+}  // namespace ellipsa::exports

@@ -1,0 +1,54 @@
+// Plots of figures against a number (frequency, level): one or more panels stacked over a shared
+// x axis, each with its own y axis, series drawn as points at the samples joined by thin lines
+// (only a visual aid), optional vertical markers (band edges) and horizontal reference lines.
+// The same look as the cut plots (exports/plot_pen.hpp); SVG, PDF and PNG all come from
+// draw_xy_figure() through exports/render.hpp.
+#pragma once
+#include <optional>
+#include <string>
+#include <vector>
+
+#include <cairo.h>
+
+namespace ellipsa::exports {
+
+struct XySeries {
+    std::string label;
+    std::vector<double> x, y;  // y NaN: no value there (the line breaks, no point)
+    int style = 0;             // colour and dash index (palette.hpp): the same index is the same look
+    bool points = true;        // a marker at every sample
+    bool lines = true;         // thin joining lines
+};
+
+struct XyMarker {
+    double x = 0;
+    std::string label;  // small text at the top of the line
+};
+
+struct XyPanel {
+    std::string y_label;  // "Peak gain"
+    std::string y_unit;   // "dBi"
+    std::vector<XySeries> series;
+    std::optional<double> y_min, y_max;  // default: the data range, padded to whole ticks
+    std::vector<XyMarker> markers;       // dashed vertical lines
+    std::vector<double> y_references;    // dotted horizontal lines (e.g. AR 3 dB)
+    std::string empty_text;              // shown when no series has a value
+};
+
+struct XyFigure {
+    std::string title, subtitle;
+    std::string x_label;  // "Frequency"
+    std::string x_unit;   // "MHz"
+    double x_scale = 1;   // x values are divided by this for the axis (Hz -> MHz: 1e6)
+    std::optional<double> x_min, x_max;  // in data units
+    std::vector<XyPanel> panels;
+    std::vector<std::string> notes;  // small print at the bottom
+};
+
+// Tick positions for [lo, hi]: steps of 1, 2 or 5 times a power of ten, about `target` of them.
+std::vector<double> nice_ticks(double lo, double hi, int target = 5);
+
+// Draw the figure into [0, width] x [0, height] (points). Costs a few path segments per sample.
+void draw_xy_figure(cairo_t* cr, const XyFigure& f, double width_pt, double height_pt);
+
+}  // namespace ellipsa::exports
