@@ -28,10 +28,19 @@ XySeries series(const BandSet& b, const std::string& what, int style, F y) {
     return s;
 }
 
+// A marker at x, or one more label on a marker already there (edges of two bands can coincide).
+void add_marker(XyPanel& p, double x, const std::string& label) {
+    for (XyMarker& m : p.markers)
+        if (std::abs(m.x - x) <= 1e-9 * std::abs(x)) {
+            m.label += ", " + label;
+            return;
+        }
+    p.markers.push_back({x, label});
+}
 void edge_markers(XyPanel& p, const std::optional<BandEdges>& e, const std::string& what) {
     if (!e) return;
-    p.markers.push_back({e->lower_hz, what + (e->lower_open ? " (open)" : "")});
-    p.markers.push_back({e->upper_hz, what + (e->upper_open ? " (open)" : "")});
+    add_marker(p, e->lower_hz, what + (e->lower_open ? " (open)" : ""));
+    add_marker(p, e->upper_hz, what + (e->upper_open ? " (open)" : ""));
 }
 
 std::string db_unit(const std::vector<BandSet>& sets) {
@@ -101,10 +110,11 @@ XyPanel panel(BandPanel kind, const std::vector<BandSet>& sets, const std::vecto
             add(0, "F/B", [](const FrequencyFigures& f) { return or_nan(f.summary.front_to_back_db); });
             break;
         case BandPanel::ar_beamwidth:
-            p.y_label = "AR ≤ " + num(r.options.ar_threshold_db, 1) + " dB width";
+            p.y_label = "AR width";
             p.y_unit = "°";
-            p.empty_text = "none: the axial ratio at the peak exceeds the threshold, or no phase";
-            add(0, "elevation plane", [](const FrequencyFigures& f) { return or_nan(f.ar_beamwidth_elevation.width_deg); });
+            p.empty_text = "none: the axial ratio at the peak exceeds " + num(r.options.ar_threshold_db, 1) + " dB, or no phase";
+            add(0, "AR ≤ " + num(r.options.ar_threshold_db, 1) + " dB, elevation plane",
+                [](const FrequencyFigures& f) { return or_nan(f.ar_beamwidth_elevation.width_deg); });
             add(1, "azimuth plane", [](const FrequencyFigures& f) { return or_nan(f.ar_beamwidth_azimuth.width_deg); });
             break;
         case BandPanel::correlation:

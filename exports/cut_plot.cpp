@@ -525,12 +525,8 @@ void draw_rect(Pen& pen, const CutPlot& p, double x0, double y0, double x1, doub
 
 void draw_cut_plot(cairo_t* cr, const CutPlot& p, double w, double h) {
     cairo_save(cr);
-    Pen pen{cr, std::clamp(std::min(w / 576.0, h / 432.0), 0.4, 4.0)};
+    Pen pen = begin_page(cr, w, h);
     const double u = pen.u, m = 16 * u;
-    // Opaque white page: print-friendly and readable in dark-themed viewers.
-    cairo_set_source_rgb(cr, 1, 1, 1);
-    cairo_rectangle(cr, 0, 0, w, h);
-    cairo_fill(cr);
 
     const double header = draw_header(pen, p.title, p.subtitle, w, m);
     const double legend_w = std::clamp(0.33 * w, 150 * u, 230 * u);

@@ -1,5 +1,6 @@
 #include "exports/plot_pen.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <cstdio>
 
@@ -14,6 +15,13 @@ std::string num(double v, int decimals) {
     return s;
 }
 std::string angle_text(double a_deg, int decimals) { return num(a_deg, decimals) + "°"; }
+
+Pen begin_page(cairo_t* cr, double w, double h) {
+    cairo_set_source_rgb(cr, 1, 1, 1);
+    cairo_rectangle(cr, 0, 0, w, h);
+    cairo_fill(cr);
+    return Pen{cr, std::clamp(std::min(w / 576.0, h / 432.0), 0.4, 4.0)};
+}
 
 std::string fit(Pen& pen, const std::string& s, double w, double min_size) {
     double size = pen.size / pen.u;

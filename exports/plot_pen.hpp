@@ -78,6 +78,9 @@ struct Pen {
     }
 };
 
+// Start a figure of w x h points: an opaque white page (print-friendly, readable in dark-themed
+// viewers) and a pen scaled to the figure (u = 1 at 576 x 432 pt, clamped to 0.4..4).
+Pen begin_page(cairo_t* cr, double w, double h);
 // Make `s` fit in `w`: shrink the current font down to `min_size` (layout points), then cut the
 // text with an ellipsis. Leaves the font at the size it chose.
 std::string fit(Pen& pen, const std::string& s, double w, double min_size);

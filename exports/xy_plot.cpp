@@ -151,7 +151,11 @@ void draw_overlays(Pen& pen, const Box& b, const XyPanel& p) {
         if (m.x < b.xr.lo || m.x > b.xr.hi) continue;
         pen.colour(ink_soft);
         pen.line(b.X(m.x), b.y0, b.X(m.x), b.y1);
-        pen.text(m.label, b.X(m.x) + 2 * u, b.y0 + 8 * u);
+        // The label beside the line, on the side with room.
+        const bool left = b.X(m.x) + 2 * u + pen.width(m.label) > b.x1;
+        pen.halo(m.label, b.X(m.x) + (left ? -2 : 2) * u, b.y0 + 8 * u, left ? 1.0 : 0.0, false);
+        pen.colour(ink_soft);
+        pen.text(m.label, b.X(m.x) + (left ? -2 : 2) * u, b.y0 + 8 * u, left ? 1.0 : 0.0);
     }
     pen.solid();
     // Legend row: sample line and label per series.
@@ -175,11 +179,8 @@ void draw_overlays(Pen& pen, const Box& b, const XyPanel& p) {
 
 void draw_xy_figure(cairo_t* cr, const XyFigure& f, double w, double h) {
     cairo_save(cr);
-    Pen pen{cr, std::clamp(std::min(w / 576.0, h / 432.0), 0.4, 4.0)};
+    Pen pen = begin_page(cr, w, h);
     const double u = pen.u, m = 16 * u;
-    cairo_set_source_rgb(cr, 1, 1, 1);
-    cairo_rectangle(cr, 0, 0, w, h);
-    cairo_fill(cr);
     const double top = draw_header(pen, f.title, f.subtitle, w, m) + 6 * u;
     pen.font(FontWeight::regular, 6.8);
     std::vector<std::string> notes;

@@ -1,0 +1,11 @@
+# Shared helpers for the command-line test scripts: source it, then call ok/bad/expect_rc and
+# finish with `finish`. Counts passes and failures; prints "N passed, M failed" at the end.
+pass=0; fail=0
+ok() { echo "ok   $1"; pass=$((pass+1)); }
+bad() { echo "FAIL $1"; fail=$((fail+1)); }
+expect_rc() {  # WANT LABEL CMD... (stdout to out.txt, stderr to err.txt)
+  local want=$1 label=$2; shift 2
+  "$@" >out.txt 2>err.txt; local rc=$?
+  if [[ $rc == "$want" ]]; then ok "$label (exit $rc)"; else bad "$label: exit $rc, expected $want; stderr: $(head -c 300 err.txt)"; fi
+}
+finish() { echo "$pass passed, $fail failed"; [[ $fail == 0 ]]; }
