@@ -44,7 +44,7 @@ Status split_pairs(const std::string& text, const char* option,
     return Ok{};
 }
 
-Status numbers(const std::string& text, const char* option, std::vector<std::pair<std::string, double>>& out) {
+Status numbers(const std::string& text, const char* option, std::vector<CsvAdjustment>& out) {
     std::vector<std::pair<std::string, std::string>> items;
     if (auto st = split_pairs(text, option, items); !st) return st;
     for (auto& [k, v] : items) {
@@ -52,19 +52,22 @@ Status numbers(const std::string& text, const char* option, std::vector<std::pai
         const double x = std::strtod(v.c_str(), &end);
         if (end == v.c_str() || *end != 0 || !std::isfinite(x))
             return Error{option, 0, 0, "expected a finite number after \"" + k + "=\", found \"" + v + "\""};
-        out.emplace_back(k, x);
+        out.push_back({k, x, {option, 0}});
     }
     return Ok{};
 }
 }  // namespace
 
+// Every entry names the option it came from, so the reader's refusals name it too.
 Result<CsvReadOptions> read_options(const LoadOptions& o) {
     CsvReadOptions ro;
     if (!o.map.empty()) {
         if (o.map[0] == '@') {
             if (auto st = read_csv_map_file(o.map.substr(1), ro); !st) return st.error();
-        } else if (auto st = split_pairs(o.map, "--map", ro.column_map); !st) {
-            return st.error();
+        } else {
+            std::vector<std::pair<std::string, std::string>> items;
+            if (auto st = split_pairs(o.map, "--map", items); !st) return st.error();
+            for (auto& [k, v] : items) ro.column_map.push_back({k, v, {"--map", 0}});
         }
     }
     if (!o.map_file.empty())
@@ -72,7 +75,7 @@ Result<CsvReadOptions> read_options(const LoadOptions& o) {
     if (!o.assume.empty()) {
         std::vector<std::pair<std::string, std::string>> items;
         if (auto st = split_pairs(o.assume, "--assume", items); !st) return st.error();
-        for (auto& [k, v] : items) ro.settings.push_back(CsvSetting{k, v, "--assume", 0});
+        for (auto& [k, v] : items) ro.settings.push_back(CsvSetting{k, v, {"--assume", 0}});
     }
     if (!o.scale.empty())
         if (auto st = numbers(o.scale, "--scale", ro.scale); !st) return st.error();

@@ -1,20 +1,18 @@
 // Internal to the CSV reader: what the metadata lines and the header row say about a file
-// (delimiter, column roles, family, units), and the number parser of the data rows.
+// (delimiter, column roles, family, units, settings given outside it), and the walk over the
+// text in windows of whole lines that every stage of the reader uses.
 // Not part of the importer API; far_field_csv.hpp is.
 #pragma once
 #include <array>
-#include <cmath>
 #include <cstddef>
-#include <cstdint>
 #include <cstring>
 #include <optional>
 #include <string>
 #include <string_view>
 #include <vector>
 
-#include <fast_float/fast_float.h>
-
 #include "importers/far_field_csv.hpp"
+#include "importers/text_source.hpp"
 
 namespace ellipsa::csv {
 
@@ -32,20 +30,70 @@ inline constexpr int c_ignore = -1;
 const char* column_name(int role);
 int column_role(std::string_view lower_name);  // -1 when unknown
 
+// Index of a metadata key of the file (quantity, ..., note) in a fixed table, or -1. With
+// `settings_too`, also the keys only settings may give (phase-unit).
+int metadata_key(std::string_view lower_key, bool settings_too = false);
+
+// Bytes a reader window holds, and the longest line the reader accepts (a longer "line" is
+// binary data or a file without line ends; refusing it bounds the work before a refusal).
+inline constexpr std::size_t window_bytes = std::size_t(256) << 10;
+inline constexpr std::size_t max_line_bytes = std::size_t(1) << 20;
+
 // A failure found while scanning, located by the byte offset of its line (line numbers are
-// counted only when an error is reported, so worker threads need not know them).
+// counted only when an error is reported, so worker threads need not know them). `io`: the
+// file could not be read as it was (it shrank, a read failed); such a failure outranks any
+// finding in the text.
 struct Failure {
     bool set = false;
     std::size_t line_offset = 0;
     long column = 0;  // 1-based byte column in the line; 0 when not tied to one
     std::string message;
+    bool io = false;
 };
+Error to_error(const TextSource& src, const std::string& file, const Failure& f);
+
+// Walk [begin, end) of `src` in windows that start at a line start and end after a '\n' (or at
+// `end`): f(window, offset_of_window) for each, false from f stops. A line longer than
+// max_line_bytes, or a read error, sets `failure` and stops. Returns false when stopped.
+// Cost: the bytes once (plus one copy from the page cache for a file) and a memrchr a window.
+template <class F>
+bool for_each_window(const TextSource& src, std::size_t begin, std::size_t end, std::vector<char>& buffer,
+                     Failure& failure, F&& f) {
+    std::size_t pos = begin, want = window_bytes;
+    while (pos < end) {
+        auto w = src.view(pos, std::min(want, end - pos), buffer);
+        if (!w) {
+            failure = {true, pos, 0, w.error().message, true};
+            return false;
+        }
+        std::size_t use = w->size();
+        if (pos + use < end) {
+            const void* nl = ::memrchr(w->data(), '\n', use);
+            if (!nl && want <= max_line_bytes) {
+                want = std::min(want * 4, max_line_bytes + 1);  // one long line: a larger window
+                continue;
+            }
+            if (!nl) {
+                failure = {true, pos, 0,
+                           "expected lines of at most " + std::to_string(max_line_bytes) +
+                               " bytes, found a longer one (a binary file, or no line ends?)"};
+                return false;
+            }
+            use = std::size_t(static_cast<const char*>(nl) - w->data()) + 1;
+        }
+        if (!f(w->substr(0, use), pos)) return false;
+        pos += use;
+        want = window_bytes;
+    }
+    return true;
+}
 
 struct Layout {
     char delimiter = ',';
     bool decimal_comma = false;     // allowed when the delimiter is not a comma
     std::size_t header_offset = 0;  // byte offset of the header line
     std::size_t data_offset = 0;    // first byte after the header line
+    long header_line = 0;           // 1-based line number of the header
     int cells = 0;                  // header cells (trailing empty ones dropped)
     std::vector<int> role;          // per header cell: Col or c_ignore
     std::vector<long> header_column;  // 1-based byte column of each header cell
@@ -70,150 +118,9 @@ struct Layout {
     std::array<double, c_count> offset{};
 };
 
-// Read the metadata lines and the header row. Errors carry file, line and column.
-Result<Layout> read_layout(std::string_view text, const std::string& file, const CsvReadOptions& o);
-
-// Line number (1-based) of the line starting at `offset`.
-long line_number_at(std::string_view text, std::size_t offset);
-Error to_error(std::string_view text, const std::string& file, const Failure& f);
-
-// Short printable form of some bytes for messages: at most 40 characters, control bytes as \xNN.
-std::string quote_found(std::string_view s);
-
-enum class NumberStatus { ok, not_a_number, nan };
-
-// The common short decimal ("-12.5", "0.12345678", "1.5e-3") by Clinger's fast path: when the
-// decimal significand fits in 53 bits and the power of ten is within 10^+-22, one IEEE multiply
-// or divide of two exact doubles is correctly rounded, so the result equals fast_float's. Returns
-// false (and leaves p) for anything else; the caller then uses fast_float.
-[[gnu::always_inline]] inline bool fast_decimal(const char*& p, const char* e, bool decimal_comma, double& v) {
-    static constexpr double pow10[23] = {1e0,  1e1,  1e2,  1e3,  1e4,  1e5,  1e6,  1e7,  1e8,  1e9,  1e10, 1e11,
-                                         1e12, 1e13, 1e14, 1e15, 1e16, 1e17, 1e18, 1e19, 1e20, 1e21, 1e22};
-    const char* q = p;
-    bool neg = false;
-    if (q < e && *q == '-') {
-        neg = true;
-        ++q;
-    }
-    std::uint64_t m = 0;
-    int digits = 0, frac = 0;
-    while (q < e && unsigned(*q - '0') < 10u) {
-        m = m * 10 + unsigned(*q - '0');
-        ++digits;
-        ++q;
-    }
-    if (q < e && (*q == '.' || (decimal_comma && *q == ','))) {
-        ++q;
-        const char* fb = q;
-        // Eight digits at a time (SWAR, as in fast_float) while they last.
-        while (e - q >= 8 && digits <= 11) {
-            std::uint64_t w;
-            std::memcpy(&w, q, 8);
-            if ((((w & 0xF0F0F0F0F0F0F0F0ull) | (((w + 0x0606060606060606ull) & 0xF0F0F0F0F0F0F0F0ull) >> 4)) !=
-                 0x3333333333333333ull))
-                break;
-            w -= 0x3030303030303030ull;
-            w = (w * 10) + (w >> 8);
-            w = (((w & 0x000000FF000000FFull) * 0x000F424000000064ull) +
-                 (((w >> 16) & 0x000000FF000000FFull) * 0x0000271000000001ull)) >> 32;
-            m = m * 100000000ull + std::uint32_t(w);
-            digits += 8;
-            q += 8;
-        }
-        while (q < e && unsigned(*q - '0') < 10u) {
-            m = m * 10 + unsigned(*q - '0');
-            ++digits;
-            ++q;
-        }
-        frac = int(q - fb);
-    }
-    if (digits == 0 || digits > 19) return false;
-    int e10 = 0;
-    if (q < e && (*q == 'e' || *q == 'E')) {
-        ++q;
-        bool eneg = false;
-        if (q < e && (*q == '+' || *q == '-')) {
-            eneg = *q == '-';
-            ++q;
-        }
-        const char* eb = q;
-        while (q < e && unsigned(*q - '0') < 10u && e10 < 1000) {
-            e10 = e10 * 10 + (*q - '0');
-            ++q;
-        }
-        if (q == eb || (q < e && unsigned(*q - '0') < 10u)) return false;
-        if (eneg) e10 = -e10;
-    }
-    e10 -= frac;
-    if (m > (std::uint64_t(1) << 53) || e10 < -22 || e10 > 22) return false;
-    const double d = double(m);
-    v = e10 < 0 ? d / pow10[-e10] : d * pow10[e10];
-    if (neg) v = -v;
-    p = q;
-    return true;
-}
-
-// Parse the number cell that starts at p (cell content runs to the delimiter or e). Leading
-// and trailing spaces, a leading '+', surrounding double quotes and (when allowed) a decimal
-// comma are accepted. On success returns the pointer at the delimiter or e.
-[[gnu::always_inline]] inline const char* parse_number_cell(const char* p, const char* e, char delim, bool decimal_comma, double& v,
-                                     NumberStatus& st) {
-    while (p < e && (*p == ' ' || (*p == '\t' && delim != '\t'))) ++p;
-    bool quoted = false;
-    if (p < e && *p == '"') {
-        quoted = true;
-        ++p;
-        while (p < e && *p == ' ') ++p;
-    }
-    if (p < e && *p == '+') ++p;
-    const char* fp = p;
-    if (fast_decimal(fp, e, decimal_comma, v)) {
-        const char* q = fp;
-        if (q < e && *q != delim) {
-            while (q < e && (*q == ' ' || (*q == '\t' && delim != '\t'))) ++q;
-            if (quoted && q < e && *q == '"') {
-                ++q;
-                while (q < e && (*q == ' ' || (*q == '\t' && delim != '\t'))) ++q;
-                quoted = false;
-            }
-        }
-        if (!quoted && (q == e || *q == delim)) {
-            st = NumberStatus::ok;
-            return q;
-        }
-    }
-    auto r = fast_float::from_chars(p, e, v);
-    if (r.ec != std::errc()) {
-        st = NumberStatus::not_a_number;
-        return p;
-    }
-    if (decimal_comma && r.ptr < e && *r.ptr == ',') {
-        r = fast_float::from_chars_advanced(p, e, v, fast_float::parse_options{fast_float::chars_format::general, ','});
-        if (r.ec != std::errc()) {
-            st = NumberStatus::not_a_number;
-            return p;
-        }
-    }
-    const char* q = r.ptr;
-    while (q < e && (*q == ' ' || (*q == '\t' && delim != '\t'))) ++q;
-    if (quoted) {
-        if (q < e && *q == '"')
-            ++q;
-        else {
-            st = NumberStatus::not_a_number;
-            return p;
-        }
-        while (q < e && (*q == ' ' || (*q == '\t' && delim != '\t'))) ++q;
-    }
-    if (q < e && *q != delim) {
-        st = NumberStatus::not_a_number;
-        return p;
-    }
-    st = std::isnan(v) ? NumberStatus::nan : NumberStatus::ok;
-    return q;
-}
-
-// Trim spaces, tabs and surrounding double quotes; lower-case ASCII.
-std::string normalise_name(std::string_view s);
+// Read the metadata lines and the header row, apply the column map, the settings, the scale and
+// the offset. Errors carry file, line and column (or the origin of an option). Cost: the lines
+// up to the header once; the first window is checked for NUL bytes before anything else.
+Result<Layout> read_layout(const TextSource& src, const std::string& file, const CsvReadOptions& o);
 
 }  // namespace ellipsa::csv

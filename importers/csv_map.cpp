@@ -1,82 +1,85 @@
-// Column-map files: a foreign layout described once, reused with --map-file.
+// Column-map files: a foreign layout described once, reused with a map file.
 //
 //   # comments and blank lines are skipped
 //   column: Source Name = schema_name      (or = ignore)
 //   scale: schema_name = factor
 //   offset: schema_name = value
 //   angle-unit: rad                          (any metadata key, and phase-unit)
-#include <cstdio>
-#include <fstream>
-#include <sstream>
+//
+// Every entry carries its file and line as its origin, so the reader's refusals (a repeated
+// key, a source column the data file lacks) point here.
+#include <cmath>
 
 #include "importers/csv_layout.hpp"
+#include "importers/csv_number.hpp"
 #include "importers/far_field_csv.hpp"
+#include "importers/text.hpp"
+#include "importers/text_source.hpp"
 
 namespace ellipsa {
 
 namespace {
-std::string_view trim(std::string_view s) {
-    while (!s.empty() && (s.front() == ' ' || s.front() == '\t')) s.remove_prefix(1);
-    while (!s.empty() && (s.back() == ' ' || s.back() == '\t' || s.back() == '\r')) s.remove_suffix(1);
-    return s;
+
+// "name = value" of a column, scale or offset line.
+Status map_entry(const std::string& key, std::string_view line, std::string_view value, const CsvOrigin& at,
+                 CsvReadOptions& o) {
+    using text::quote_found;
+    using text::trim;
+    const long vcol = long(value.data() - line.data()) + 1;
+    const std::size_t eq = value.rfind('=');
+    if (eq == std::string_view::npos || trim(value.substr(0, eq)).empty() || trim(value.substr(eq + 1)).empty())
+        return Error{at.name, at.line, vcol, "expected \"name = value\", found " + quote_found(value)};
+    const std::string_view a = trim(value.substr(0, eq)), b = trim(value.substr(eq + 1));
+    const long bcol = long(b.data() - line.data()) + 1;
+    if (key == "column") {
+        const std::string target = text::normalise_name(b);
+        if (target != "ignore" && csv::column_role(target) < 0)
+            return Error{at.name, at.line, bcol, "expected a schema column name or \"ignore\", found " + quote_found(b)};
+        o.column_map.push_back({std::string(a), target, at});
+        return Ok{};
+    }
+    if (csv::column_role(text::normalise_name(a)) < 0)
+        return Error{at.name, at.line, vcol, "expected a schema column name, found " + quote_found(a)};
+    double v;
+    csv::NumberStatus st;
+    const char* q = csv::parse_number_cell(b.data(), b.data() + b.size(), ';', false, v, st);
+    if (st != csv::NumberStatus::ok || q != b.data() + b.size() || !std::isfinite(v))
+        return Error{at.name, at.line, bcol, "expected a finite number, found " + quote_found(b)};
+    (key == "scale" ? o.scale : o.offset).push_back({std::string(a), v, at});
+    return Ok{};
 }
+
 }  // namespace
 
 Status parse_csv_map_text(std::string_view text, const std::string& file, CsvReadOptions& o) {
+    text::Lines lines(text);
+    std::string_view line;
     long line_no = 0;
-    std::size_t pos = 0;
-    if (text.size() >= 3 && text.substr(0, 3) == "\xEF\xBB\xBF") pos = 3;
-    while (pos < text.size()) {
-        std::size_t nl = text.find('\n', pos);
-        std::string_view line = text.substr(pos, nl == std::string_view::npos ? std::string_view::npos : nl - pos);
-        pos = nl == std::string_view::npos ? text.size() : nl + 1;
-        ++line_no;
-        std::string_view t = trim(line);
+    while (lines.next(line, line_no)) {
+        if (const std::size_t r = text::lone_cr(line); r != std::string_view::npos)
+            return Error{file, line_no, long(r) + 1, text::lone_cr_message};
+        const std::string_view t = text::trim(line);
         if (t.empty() || t.front() == '#') continue;
         const std::size_t colon = t.find(':');
         if (colon == std::string_view::npos)
-            return Error{file, line_no, 1, "expected \"key: value\" (column, scale, offset or a metadata key), found " +
-                                               csv::quote_found(t)};
-        const std::string key = csv::normalise_name(t.substr(0, colon));
-        const std::string_view value = trim(t.substr(colon + 1));
-        const long vcol = long(value.data() - line.data()) + 1;
+            return Error{file, line_no, long(t.data() - line.data()) + 1,
+                         "expected \"key: value\" (column, scale, offset or a metadata key), found " + text::quote_found(t)};
+        const std::string key = text::normalise_name(t.substr(0, colon));
+        const std::string_view value = text::trim(t.substr(colon + 1));
+        const CsvOrigin at{file, line_no};
         if (key == "column" || key == "scale" || key == "offset") {
-            const std::size_t eq = value.rfind('=');
-            if (eq == std::string_view::npos || trim(value.substr(0, eq)).empty() || trim(value.substr(eq + 1)).empty())
-                return Error{file, line_no, vcol, "expected \"name = value\", found " + csv::quote_found(value)};
-            const std::string_view a = trim(value.substr(0, eq)), b = trim(value.substr(eq + 1));
-            if (key == "column") {
-                const std::string target = csv::normalise_name(b);
-                if (target != "ignore" && csv::column_role(target) < 0)
-                    return Error{file, line_no, long(b.data() - line.data()) + 1,
-                                 "expected a schema column name or \"ignore\", found " + csv::quote_found(b)};
-                o.column_map.emplace_back(std::string(a), target);
-            } else {
-                if (csv::column_role(csv::normalise_name(a)) < 0)
-                    return Error{file, line_no, vcol, "expected a schema column name, found " + csv::quote_found(a)};
-                double v;
-                csv::NumberStatus st;
-                const char* q = csv::parse_number_cell(b.data(), b.data() + b.size(), ';', false, v, st);
-                if (st != csv::NumberStatus::ok || q != b.data() + b.size() || !std::isfinite(v))
-                    return Error{file, line_no, long(b.data() - line.data()) + 1,
-                                 "expected a finite number, found " + csv::quote_found(b)};
-                (key == "scale" ? o.scale : o.offset).emplace_back(std::string(a), v);
-            }
+            if (Status st = map_entry(key, line, value, at, o); !st) return st;
             continue;
         }
-        o.settings.push_back(CsvSetting{key, std::string(value), file, line_no});
+        o.settings.push_back(CsvSetting{key, std::string(value), at});
     }
     return Ok{};
 }
 
 Status read_csv_map_file(const std::string& path, CsvReadOptions& o) {
-    std::ifstream in(path, std::ios::binary);
-    if (!in) return Error{path, 0, 0, "cannot open the map file"};
-    std::ostringstream ss;
-    ss << in.rdbuf();
-    const std::string text = ss.str();
-    if (text.size() > (1u << 20)) return Error{path, 0, 0, "expected a small map file (under 1 MB)"};
-    return parse_csv_map_text(text, path, o);
+    auto text = read_small_file(path, std::size_t(1) << 20, "a map file");
+    if (!text) return text.error();
+    return parse_csv_map_text(*text, path, o);
 }
 
 }  // namespace ellipsa

@@ -1,27 +1,17 @@
 #include "importers/elevation_profile_csv.hpp"
 
-#include <cctype>
 #include <charconv>
 #include <cmath>
-#include <filesystem>
-#include <fstream>
-#include <sstream>
+
+#include "importers/text.hpp"
+#include "importers/text_source.hpp"
 
 namespace ellipsa {
 
 namespace {
 
-std::string_view trim(std::string_view s) {
-    while (!s.empty() && (s.front() == ' ' || s.front() == '\t')) s.remove_prefix(1);
-    while (!s.empty() && (s.back() == ' ' || s.back() == '\t' || s.back() == '\r')) s.remove_suffix(1);
-    return s;
-}
-
-std::string lower(std::string_view s) {
-    std::string o(s);
-    for (char& c : o) c = char(std::tolower(static_cast<unsigned char>(c)));
-    return o;
-}
+using text::quote_found;
+using text::trim;
 
 struct Cell {
     std::string_view text;
@@ -45,30 +35,28 @@ std::vector<Cell> split(std::string_view line) {
 
 }  // namespace
 
-Result<std::vector<ProfilePoint>> parse_elevation_profile(std::string_view text, const std::string& name) {
+Result<std::vector<ProfilePoint>> parse_elevation_profile(std::string_view content, const std::string& name) {
     std::vector<ProfilePoint> out;
     int col_el = -1, col_v = -1, col_h = -1;
     bool have_header = false;
     long line_no = 0, last_line = 0;
-    std::size_t pos = 0;
-    if (text.substr(0, 3) == "\xEF\xBB\xBF") pos = 3;  // a UTF-8 byte-order mark, as some spreadsheets write
-    while (pos < text.size()) {
-        std::size_t eol = text.find('\n', pos);
-        std::string_view line = text.substr(pos, eol == std::string_view::npos ? std::string_view::npos : eol - pos);
-        pos = eol == std::string_view::npos ? text.size() : eol + 1;
-        ++line_no;
+    text::Lines lines(content);
+    std::string_view line;
+    while (lines.next(line, line_no)) {
+        if (const std::size_t r = text::lone_cr(line); r != std::string_view::npos)
+            return Error{name, line_no, long(r) + 1, text::lone_cr_message};
         if (trim(line).empty() || trim(line).front() == '#') continue;
         std::vector<Cell> cells = split(line);
         if (!have_header) {
             for (std::size_t k = 0; k < cells.size(); ++k) {
-                const std::string c = lower(cells[k].text);
+                const std::string c = text::lower(cells[k].text);
                 int* slot = c == "elevation_deg" ? &col_el : c == "p_v" ? &col_v : c == "p_h" ? &col_h : nullptr;
                 if (!slot)
                     return Error{name, line_no, cells[k].column,
-                                 "expected a header naming elevation_deg, p_v and p_h, found column \"" +
-                                     std::string(cells[k].text) + "\""};
+                                 "expected a header naming elevation_deg, p_v and p_h, found column " +
+                                     quote_found(cells[k].text)};
                 if (*slot >= 0)
-                    return Error{name, line_no, cells[k].column, "column \"" + c + "\" appears twice in the header"};
+                    return Error{name, line_no, cells[k].column, "expected each column once, found " + quote_found(c) + " again"};
                 *slot = int(k);
             }
             const char* missing = col_el < 0 ? "elevation_deg" : col_v < 0 ? "p_v" : col_h < 0 ? "p_h" : nullptr;
@@ -91,11 +79,11 @@ Result<std::vector<ProfilePoint>> parse_elevation_profile(std::string_view text,
             auto r = std::from_chars(t.data(), t.data() + t.size(), v[q]);
             if (t.empty() || r.ec != std::errc() || r.ptr != t.data() + t.size() || !std::isfinite(v[q]))
                 return Error{name, line_no, c.column,
-                             std::string("expected ") + what[q] + ", found \"" + std::string(c.text) + "\""};
+                             std::string("expected ") + what[q] + ", found " + quote_found(c.text)};
         }
         const Cell& ce = cells[std::size_t(col_el)];
         if (v[0] < -90 || v[0] > 90)
-            return Error{name, line_no, ce.column, "expected an elevation in [-90, 90] deg, found " + std::string(ce.text)};
+            return Error{name, line_no, ce.column, "expected an elevation in [-90, 90] deg, found " + quote_found(ce.text)};
         if (!out.empty() && !(v[0] > out.back().elevation_deg))
             return Error{name, line_no, ce.column,
                          "elevations must increase strictly; this one does not exceed the one on line " +
@@ -104,7 +92,7 @@ Result<std::vector<ProfilePoint>> parse_elevation_profile(std::string_view text,
             if (v[q] < 0) {
                 const Cell& c = cells[std::size_t(cols[q])];
                 return Error{name, line_no, c.column,
-                             std::string("expected ") + what[q] + " >= 0, found " + std::string(c.text)};
+                             std::string("expected ") + what[q] + " >= 0, found " + quote_found(c.text)};
             }
         out.push_back({v[0], v[1], v[2]});
         last_line = line_no;
@@ -119,15 +107,9 @@ Result<std::vector<ProfilePoint>> parse_elevation_profile(std::string_view text,
 }
 
 Result<std::vector<ProfilePoint>> read_elevation_profile(const std::string& path) {
-    std::error_code ec;
-    if (std::filesystem::is_directory(path, ec))
-        return Error{path, 0, 0, "is a folder; expected an elevation profile file (elevation_deg,p_v,p_h)"};
-    std::ifstream in(path, std::ios::binary);
-    if (!in) return Error{path, 0, 0, "cannot open the elevation profile file"};
-    std::ostringstream ss;
-    ss << in.rdbuf();
-    if (in.bad()) return Error{path, 0, 0, "cannot read the elevation profile file"};
-    return parse_elevation_profile(ss.str(), path);
+    auto text = read_small_file(path, std::size_t(1) << 20, "an elevation profile file (elevation_deg,p_v,p_h)");
+    if (!text) return text.error();
+    return parse_elevation_profile(*text, path);
 }
 
 }  // namespace ellipsa

@@ -29,24 +29,51 @@ enum class CsvFamily {
 const char* to_string(CsvFamily f);
 bool parse_csv_family(std::string_view name, CsvFamily& out);
 
+// Where an option given outside the file came from, for messages: a map file and its line, or
+// whatever the caller calls it (the command line says "--map"). The reader repeats it as given
+// and adds no wording of its own; unnamed options are called "the column map", "the assumed
+// metadata", "the scale" and "the offset".
+struct CsvOrigin {
+    std::string name;  // a file, or the caller's word for it; may be empty
+    long line = 0;     // 1-based line in that file; 0 when not in a file
+};
+
+// Read source column `source` as schema column `target` ("ignore" skips it). Source names
+// compare case-insensitively, surrounding spaces and quotes ignored. Each source once.
+struct CsvColumnMapping {
+    std::string source, target;
+    CsvOrigin origin;
+    CsvColumnMapping(std::string source_, std::string target_, CsvOrigin origin_ = {})
+        : source(std::move(source_)), target(std::move(target_)), origin(std::move(origin_)) {}
+};
+
 // A metadata value given outside the file: same keys and values as the `# key: value` lines
 // (plus `phase-unit`, deg | rad, for foreign files whose phases and angles differ). It replaces
-// what the file says. `origin` names where it came from in messages ("--assume", a map file).
+// what the file says. Each key once, over all settings.
 struct CsvSetting {
     std::string key, value;
-    std::string origin;
-    long line = 0;
+    CsvOrigin origin;
+    CsvSetting(std::string key_, std::string value_, CsvOrigin origin_ = {})
+        : key(std::move(key_)), value(std::move(value_)), origin(std::move(origin_)) {}
+};
+
+// A factor (scale) or an addend (offset) for one schema column; each column once per list.
+struct CsvAdjustment {
+    std::string column;
+    double value = 0;
+    CsvOrigin origin;
+    CsvAdjustment(std::string column_, double value_, CsvOrigin origin_ = {})
+        : column(std::move(column_)), value(value_), origin(std::move(origin_)) {}
 };
 
 struct CsvReadOptions {
-    // Foreign layouts: source column name -> schema column name, or "ignore" to skip a column
-    // (source names compare case-insensitively, surrounding spaces and quotes ignored).
-    std::vector<std::pair<std::string, std::string>> column_map;
+    // Foreign layouts: which source column is which schema column.
+    std::vector<CsvColumnMapping> column_map;
     std::vector<CsvSetting> settings;
     // value = value_in_file * scale + offset for a schema column, applied before units are
     // converted (a dB column gets a dB offset, an angle column an offset in angle-unit).
-    std::vector<std::pair<std::string, double>> scale;
-    std::vector<std::pair<std::string, double>> offset;
+    std::vector<CsvAdjustment> scale;
+    std::vector<CsvAdjustment> offset;
     // Largest heap the final arrays may take; 0: what the system has available now.
     std::size_t memory_limit_bytes = 0;
     // Worker threads; 0: one per core (small inputs always use one).
@@ -58,17 +85,21 @@ struct CsvReadOptions {
 // The schema column names, in documentation order (theta, phi, ..., e_total_db).
 const std::vector<std::string>& csv_schema_columns();
 
-// Read a small column-map file (see docs/far-field-csv.md, "Map files") into `options`.
+// Read a small column-map file (see docs/far-field-csv.md, "Map files") into `options`; each
+// entry's origin is the file and its line. Only a regular file of at most 1 MB is read.
 Status read_csv_map_file(const std::string& path, CsvReadOptions& options);
 Status parse_csv_map_text(std::string_view text, const std::string& display_name, CsvReadOptions& options);
 
-// Read a file (memory-mapped; only regular files). The file name is used in messages.
+// Read a file: a regular file, read in windows (never memory-mapped, so a file that shrinks or
+// changes while it is read ends in an Error, not a signal). The file name is used in messages.
 // Costs two passes over the text, each split across the cores at line boundaries (pass 1: the
 // angle and frequency cells, to build and check the grid; pass 2: every cell, written straight
-// into the final arrays). Heap: the final arrays plus one byte per grid point; the file's pages
-// are dropped behind the reader. The size is checked against available memory first.
+// into the final arrays). Heap: the final arrays plus one byte per grid point plus a 256 KiB
+// window per thread. Before anything is allocated, the file size is checked against available
+// memory and the grid the angle values imply against the number of rows (a small file never
+// makes the reader allocate a large grid). Lines are at most 1 MiB.
 Result<FarFieldSet> read_far_field_csv(const std::string& path, const CsvReadOptions& options = {});
-// Parse text already in memory; `display_name` is used in messages.
+// Parse text already in memory; `display_name` is used in messages. Same rules and costs.
 Result<FarFieldSet> parse_far_field_csv(std::string_view text, const std::string& display_name,
                                         const CsvReadOptions& options = {});
 

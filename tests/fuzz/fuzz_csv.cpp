@@ -21,7 +21,7 @@ extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size
     o.memory_limit_bytes = 64u << 20;       // refuse huge grids quickly instead of allocating
     if (size > 0 && data[0] == 'M') {       // now and then, a foreign-layout read
         o.column_map = {{"Level", "e_total_db"}, {"Az", "azimuth"}, {"El", "elevation"}, {"x", "ignore"}};
-        o.settings = {{"angle-unit", "rad", "fuzz", 1}};
+        o.settings = {{"angle-unit", "rad", {"fuzz", 1}}};
     }
     auto r = parse_far_field_csv(text, "fuzz.csv", o);
     if (!r) {

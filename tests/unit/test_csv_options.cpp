@@ -75,7 +75,7 @@ TEST_CASE("angle-unit rad applies to angles and phases; phase-unit overrides pha
     CHECK(std::arg(at(s, 90, 180)) == Approx(pi / 3));
     CHECK(std::abs(at(s, 90, 180, true)) == Approx(0.5));  // -6.02 dB partial power = 1/4, amplitude 1/2
     CsvReadOptions o;
-    o.settings.push_back({"phase-unit", "deg", "--assume", 0});
+    o.settings.push_back({"phase-unit", "deg", {"--assume", 0}});
     s = load("# angle-unit: rad\ntheta,phi,e_theta_db,e_theta_phase,e_phi_db,e_phi_phase\n" + rows, o);
     CHECK(std::arg(at(s, 90, 180)) == Approx(pi / 3 * deg));
 }
@@ -155,7 +155,7 @@ TEST_CASE("a column map, scale and offset read a foreign layout", "[csv][options
     o.column_map = {{"Freq [GHz]", "frequency"}, {"theta [RAD]", "theta"},  {"Phi [deg]", "phi"},
                     {"Re Et [mV]", "e_theta_re"}, {"Im Et [mV]", "e_theta_im"}, {"Re Ep [mV]", "e_phi_re"},
                     {"Im Ep [mV]", "e_phi_im"}, {"Comment", "ignore"}};
-    o.settings = {{"frequency-unit", "GHz", "--assume", 0}};
+    o.settings = {{"frequency-unit", "GHz", {"--assume", 0}}};
     o.scale = {{"e_theta_re", 1e-3}, {"e_theta_im", 1e-3}, {"e_phi_re", 1e-3}, {"e_phi_im", 1e-3},
                {"theta", 180 / pi}};
     // theta arrives in rad; scaling by 180/pi makes it deg (angle-unit stays deg)

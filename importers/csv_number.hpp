@@ -1,0 +1,153 @@
+// Internal to the CSV reader and the side-file readers: the number parser of the data rows
+// (Clinger's fast path with eight digits at a time, fast_float for everything else).
+#pragma once
+#include <cmath>
+#include <cstdint>
+#include <cstring>
+
+#include <fast_float/fast_float.h>
+
+namespace ellipsa::csv {
+
+// ok; not a number (or an empty cell); NaN; a number beyond the double range (about 1.8e308)
+// written as digits, which would otherwise read as infinity.
+enum class NumberStatus { ok, not_a_number, nan, overflow };
+
+// The common short decimal ("-12.5", "0.12345678", "1.5e-3") by Clinger's fast path: when the
+// decimal significand fits in 53 bits and the power of ten is within 10^+-22, one IEEE multiply
+// or divide of two exact doubles is correctly rounded, so the result equals fast_float's. Returns
+// false (and leaves p) for anything else; the caller then uses fast_float.
+[[gnu::always_inline]] inline bool fast_decimal(const char*& p, const char* e, bool decimal_comma, double& v) {
+    static constexpr double pow10[23] = {1e0,  1e1,  1e2,  1e3,  1e4,  1e5,  1e6,  1e7,  1e8,  1e9,  1e10, 1e11,
+                                         1e12, 1e13, 1e14, 1e15, 1e16, 1e17, 1e18, 1e19, 1e20, 1e21, 1e22};
+    const char* q = p;
+    bool neg = false;
+    if (q < e && *q == '-') {
+        neg = true;
+        ++q;
+    }
+    std::uint64_t m = 0;
+    int digits = 0, frac = 0;
+    while (q < e && unsigned(*q - '0') < 10u) {
+        m = m * 10 + unsigned(*q - '0');
+        ++digits;
+        ++q;
+    }
+    if (q < e && (*q == '.' || (decimal_comma && *q == ','))) {
+        ++q;
+        const char* fb = q;
+        // Eight digits at a time (SWAR, as in fast_float) while they last.
+        while (e - q >= 8 && digits <= 11) {
+            std::uint64_t w;
+            std::memcpy(&w, q, 8);
+            if ((((w & 0xF0F0F0F0F0F0F0F0ull) | (((w + 0x0606060606060606ull) & 0xF0F0F0F0F0F0F0F0ull) >> 4)) !=
+                 0x3333333333333333ull))
+                break;
+            w -= 0x3030303030303030ull;
+            w = (w * 10) + (w >> 8);
+            w = (((w & 0x000000FF000000FFull) * 0x000F424000000064ull) +
+                 (((w >> 16) & 0x000000FF000000FFull) * 0x0000271000000001ull)) >> 32;
+            m = m * 100000000ull + std::uint32_t(w);
+            digits += 8;
+            q += 8;
+        }
+        while (q < e && unsigned(*q - '0') < 10u) {
+            m = m * 10 + unsigned(*q - '0');
+            ++digits;
+            ++q;
+        }
+        frac = int(q - fb);
+    }
+    if (digits == 0 || digits > 19) return false;
+    int e10 = 0;
+    if (q < e && (*q == 'e' || *q == 'E')) {
+        ++q;
+        bool eneg = false;
+        if (q < e && (*q == '+' || *q == '-')) {
+            eneg = *q == '-';
+            ++q;
+        }
+        const char* eb = q;
+        while (q < e && unsigned(*q - '0') < 10u && e10 < 1000) {
+            e10 = e10 * 10 + (*q - '0');
+            ++q;
+        }
+        if (q == eb || (q < e && unsigned(*q - '0') < 10u)) return false;
+        if (eneg) e10 = -e10;
+    }
+    e10 -= frac;
+    if (m > (std::uint64_t(1) << 53) || e10 < -22 || e10 > 22) return false;
+    const double d = double(m);
+    v = e10 < 0 ? d / pow10[-e10] : d * pow10[e10];
+    if (neg) v = -v;
+    p = q;
+    return true;
+}
+
+// Parse the number cell that starts at p (cell content runs to the delimiter or e). Leading
+// and trailing spaces, a leading '+', surrounding double quotes and (when allowed) a decimal
+// comma are accepted. On success returns the pointer at the delimiter or e.
+[[gnu::always_inline]] inline const char* parse_number_cell(const char* p, const char* e, char delim, bool decimal_comma, double& v,
+                                     NumberStatus& st) {
+    while (p < e && (*p == ' ' || (*p == '\t' && delim != '\t'))) ++p;
+    bool quoted = false;
+    if (p < e && *p == '"') {
+        quoted = true;
+        ++p;
+        while (p < e && *p == ' ') ++p;
+    }
+    if (p < e && *p == '+') ++p;
+    const char* fp = p;
+    if (fast_decimal(fp, e, decimal_comma, v)) {
+        const char* q = fp;
+        if (q < e && *q != delim) {
+            while (q < e && (*q == ' ' || (*q == '\t' && delim != '\t'))) ++q;
+            if (quoted && q < e && *q == '"') {
+                ++q;
+                while (q < e && (*q == ' ' || (*q == '\t' && delim != '\t'))) ++q;
+                quoted = false;
+            }
+        }
+        if (!quoted && (q == e || *q == delim)) {
+            st = NumberStatus::ok;
+            return q;
+        }
+    }
+    auto r = fast_float::from_chars(p, e, v);
+    if (r.ec != std::errc()) {
+        st = NumberStatus::not_a_number;
+        return p;
+    }
+    if (decimal_comma && r.ptr < e && *r.ptr == ',') {
+        r = fast_float::from_chars_advanced(p, e, v, fast_float::parse_options{fast_float::chars_format::general, ','});
+        if (r.ec != std::errc()) {
+            st = NumberStatus::not_a_number;
+            return p;
+        }
+    }
+    const char* q = r.ptr;
+    while (q < e && (*q == ' ' || (*q == '\t' && delim != '\t'))) ++q;
+    if (quoted) {
+        if (q < e && *q == '"')
+            ++q;
+        else {
+            st = NumberStatus::not_a_number;
+            return p;
+        }
+        while (q < e && (*q == ' ' || (*q == '\t' && delim != '\t'))) ++q;
+    }
+    if (q < e && *q != delim) {
+        st = NumberStatus::not_a_number;
+        return p;
+    }
+    st = std::isnan(v) ? NumberStatus::nan : NumberStatus::ok;
+    // Infinity is accepted only when it is spelled so ("inf", "-Infinity"); digits that
+    // overflow are refused.
+    if (std::isinf(v)) {
+        const char first = *p == '-' ? p[1] : *p;
+        if (first != 'i' && first != 'I') st = NumberStatus::overflow;
+    }
+    return q;
+}
+
+}  // namespace ellipsa::csv

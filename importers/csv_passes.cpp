@@ -1,0 +1,556 @@
+// The two passes of the CSV reader over the data rows (csv_passes.hpp). The hot loops: a row
+// walk with one SSE2 scan for the line end (and NUL bytes in pass 1), angle and frequency cells
+// parsed once per distinct text through a small cache, every other cell parsed straight into
+// its final place.
+#include "importers/csv_passes.hpp"
+
+#include <cmath>
+#if defined(__SSE2__)
+#include <emmintrin.h>
+#endif
+
+#include "importers/csv_number.hpp"
+#include "importers/text.hpp"
+#include "pattern/polarisation.hpp"
+
+namespace ellipsa::csv {
+
+namespace {
+
+constexpr double angle_tol_deg = 1e-6;  // range checks
+constexpr double max_field = 1e150;     // |field| above this is refused (its square must stay finite)
+constexpr double max_db = 3000;         // dB above this is refused
+constexpr double zero_db = -3000;       // dB at or below this (and -inf) is zero field
+
+// ---- The row walk ----
+
+// First '\n' or NUL byte in [p, end), or end. SSE2 (x86-64 baseline), 16 bytes a step.
+inline const char* find_newline_or_nul(const char* p, const char* end) {
+#if defined(__SSE2__)
+    const __m128i nl = _mm_set1_epi8('\n'), zero = _mm_setzero_si128();
+    while (end - p >= 16) {
+        const __m128i v = _mm_loadu_si128(reinterpret_cast<const __m128i*>(p));
+        const int m = _mm_movemask_epi8(_mm_or_si128(_mm_cmpeq_epi8(v, nl), _mm_cmpeq_epi8(v, zero)));
+        if (m) return p + __builtin_ctz(unsigned(m));
+        p += 16;
+    }
+#endif
+    while (p < end && *p != '\n' && *p != 0) ++p;
+    return p;
+}
+
+// A '#' line after the header: a comment, unless it holds a metadata key (refused: it would
+// otherwise be ignored silently). Returns false with the failure set.
+bool comment_after_header(Chunk& c, const char* line, const char* hash, const char* e, std::size_t line_offset) {
+    const char* colon = static_cast<const char*>(std::memchr(hash, ':', std::size_t(e - hash)));
+    if (!colon) return true;
+    const std::string key = text::normalise_name(std::string_view(hash + 1, std::size_t(colon - hash - 1)));
+    if (metadata_key(key) < 0) return true;
+    c.failure = {true, line_offset, long(hash - line) + 1,
+                 "expected metadata lines before the header row, found \"# " + key + ":\" after it"};
+    return false;
+}
+
+// Progress, cancelling, once every 4096 rows.
+void every_4096_rows(Context& ctx, const Chunk& c, std::size_t done, double progress_base, double progress_span) {
+    if (progress_span > 0 && ctx.options->progress) {
+        const double f = double(done - c.begin) / double(std::max<std::size_t>(1, c.end - c.begin));
+        if (!ctx.options->progress(progress_base + progress_span * f)) ctx.cancelled = true;
+    }
+}
+
+// Walk the lines of [c.begin, c.end), calling row(line_begin, line_end, line_offset) for each
+// data row. Blank lines and '#' lines are skipped (metadata keys after the header are refused
+// in pass 1, which also refuses NUL bytes).
+template <class Row>
+void for_each_row(Context& ctx, Chunk& c, bool first_pass, double progress_base, double progress_span, Row&& row) {
+    const char delim = ctx.L->delimiter;
+    std::size_t n = 0;
+    std::vector<char> buffer;
+    for_each_window(*ctx.source, c.begin, c.end, buffer, c.failure, [&](std::string_view w, std::size_t at) {
+        const char* const base = w.data();
+        const char* p = base;
+        const char* const end = base + w.size();
+        while (p < end) {
+            const char* nl;
+            if (first_pass) {
+                // Binary garbage: text never holds a NUL byte. One scan finds the line end and
+                // any NUL before it, while the bytes are being parsed anyway.
+                nl = find_newline_or_nul(p, end);
+                if (nl < end && *nl == 0) {
+                    c.failure = {true, at + std::size_t(p - base), long(nl - p) + 1,
+                                 "expected text, found a NUL byte (a binary file?)"};
+                    return false;
+                }
+                if (nl == end) nl = nullptr;
+            } else {
+                nl = static_cast<const char*>(std::memchr(p, '\n', std::size_t(end - p)));
+            }
+            const char* e = nl ? nl : end;
+            const char* next = nl ? nl + 1 : end;
+            if (e > p && e[-1] == '\r') --e;
+            const char* q = p;
+            while (q < e && (*q == ' ' || *q == '\t' || *q == delim)) ++q;
+            if (q < e && *q == '#') {
+                if (first_pass && !comment_after_header(c, p, q, e, at + std::size_t(p - base))) return false;
+            } else if (q < e) {
+                if (!row(p, e, at + std::size_t(p - base))) return false;
+                if ((++n & 4095) == 0) {
+                    if (ctx.cancelled.load(std::memory_order_relaxed)) return false;
+                    every_4096_rows(ctx, c, at + std::size_t(p - base), progress_base, progress_span);
+                }
+            }
+            p = next;
+        }
+        return true;
+    });
+}
+
+// ---- Cells ----
+
+inline void fail_cell(Chunk& c, std::size_t line_offset, const char* line, const char* cell, std::string msg) {
+    c.failure = {true, line_offset, long(cell - line) + 1, std::move(msg)};
+}
+
+// Why a number cell was refused: not a number (or empty), or beyond the double range.
+std::string number_problem(int role, NumberStatus st, const char* cell, const char* e, char delim) {
+    const char* ce = static_cast<const char*>(std::memchr(cell, delim, std::size_t(e - cell)));
+    if (!ce) ce = e;
+    const std::string_view t(cell, std::size_t(ce - cell));
+    const std::string what = std::string("expected a number in column \"") + column_name(role) + "\", found ";
+    if (st == NumberStatus::overflow) return what + text::quote_found(text::trim(t)) + ", beyond the range of numbers (about 1.8e308)";
+    return what + (t.empty() ? std::string("an empty cell") : text::quote_found(t));
+}
+
+// Past the delimiter after cell k (false, with a failure, when the row ends early).
+inline bool next_cell(Chunk& c, std::size_t line_offset, const char* line, const char* e, const char*& q, int k, int ncells) {
+    if (k < ncells - 1) {
+        if (q >= e) {
+            fail_cell(c, line_offset, line, q,
+                      "expected " + std::to_string(ncells) + " cells as in the header row, found " + std::to_string(k + 1));
+            return false;
+        }
+        ++q;
+    }
+    return true;
+}
+
+// ---- Angle and frequency cells, parsed once per distinct text ----
+
+// Angle and frequency cells repeat a few distinct texts over and over ("0", "90", "2.45e9").
+// Their raw bytes (up to 16, zero-padded: text holds no NUL) are a key into a small
+// direct-mapped cache per role, so each distinct text is parsed and checked once per thread.
+struct CellKey {
+    std::uint64_t a = 0, b = 0;
+    bool operator==(const CellKey& o) const { return a == o.a && b == o.b; }
+};
+
+// Key of the cell at p (up to the delimiter or e); false when it is empty or longer than 16.
+inline bool key_cell(const char* p, const char* e, char delim, CellKey& k, const char*& cell_end) {
+    const char* q = p;
+    const char* lim = e - p > 17 ? p + 17 : e;
+    while (q < lim && *q != delim) ++q;
+    const std::size_t n = std::size_t(q - p);
+    if (n == 0 || n > 16) return false;
+    if (e - p >= 16) {
+        // Two unaligned loads, then clear the bytes past the cell.
+        std::memcpy(&k.a, p, 8);
+        std::memcpy(&k.b, p + 8, 8);
+        if (n < 8) {
+            k.a &= (std::uint64_t(1) << (8 * n)) - 1;
+            k.b = 0;
+        } else if (n < 16) {
+            k.b &= n == 8 ? 0 : (std::uint64_t(1) << (8 * (n - 8))) - 1;
+        }
+    } else {
+        char buf[16] = {};
+        for (std::size_t i = 0; i < n; ++i) buf[i] = p[i];
+        std::memcpy(&k.a, buf, 8);
+        std::memcpy(&k.b, buf + 8, 8);
+    }
+    cell_end = q;
+    return true;
+}
+
+inline std::size_t key_slot(const CellKey& k) {
+    return std::size_t(((k.a * 0x9E3779B97F4A7C15ull) ^ (k.b * 0xC2B2AE3D27D4EB4Full)) >> 56);
+}
+
+// What an angle or frequency cell means once parsed: the value (deg, Hz) and, in pass 2, its
+// grid index (theta row, phi column, frequency) and whether it is the phi seam duplicate.
+struct AngleInfo {
+    double value = 0;
+    long index = 0;
+    bool alias = false;
+};
+
+struct AngleCache {
+    CellKey key[256];
+    bool used[256] = {};
+    AngleInfo info[256];
+};
+
+// Which part of the grid a role gives: 0 theta, 1 phi, 2 frequency; -1 a field column.
+inline int angle_slot(int role) {
+    switch (role) {
+        case c_theta:
+        case c_elevation: return 0;
+        case c_phi:
+        case c_azimuth: return 1;
+        case c_frequency: return 2;
+        default: return -1;
+    }
+}
+
+// Convert and check one angle/frequency value (after scale/offset); empty message when fine.
+std::string angle_value(const Layout& L, int role, double raw, double& out) {
+    using text::number;
+    switch (role) {
+        case c_theta: {
+            const double t = raw * L.angle_to_deg;
+            if (!(t >= -angle_tol_deg && t <= 180 + angle_tol_deg)) return "expected theta in [0, 180] deg, found " + number(t);
+            out = std::clamp(t, 0.0, 180.0);
+            return {};
+        }
+        case c_elevation: {
+            const double el = raw * L.angle_to_deg;
+            if (!(el >= -90 - angle_tol_deg && el <= 90 + angle_tol_deg))
+                return "expected elevation in [-90, 90] deg, found " + number(el);
+            out = std::clamp(90.0 - el, 0.0, 180.0);
+            return {};
+        }
+        case c_phi:
+        case c_azimuth: {
+            const double ph = raw * L.angle_to_deg;
+            if (!(ph >= -180 - angle_tol_deg && ph <= 360 + angle_tol_deg))
+                return std::string("expected ") + (role == c_phi ? "phi" : "azimuth") +
+                       " in [0, 360] or [-180, 180] deg, found " + number(ph);
+            out = ph;
+            return {};
+        }
+        default: {
+            const double f = raw * L.hz_per_unit;
+            if (std::isfinite(raw) && !std::isfinite(f))
+                return "expected a frequency within the range of numbers (about 1.8e308 Hz), found " + number(raw) +
+                       " times " + number(L.hz_per_unit) + " Hz, which overflows";
+            if (!(f >= 0) || !std::isfinite(f)) return "expected a frequency >= 0, found " + number(raw);
+            out = f;
+            return {};
+        }
+    }
+}
+
+// The angle or frequency cell at q (role r): from the cache when the same text was met before,
+// else parsed, scaled, checked and handed to fresh(value, info), which fills the cache entry
+// (false: the value is refused with `refusal`). Moves q to the delimiter or e. Returns the
+// cell's meaning, or null with the chunk's failure set.
+template <class Fresh>
+[[gnu::always_inline]] inline const AngleInfo* angle_cell(const Layout& L, AngleCache& cache, int r, const char*& q,
+                                                          const char* e, const char* line, std::size_t line_offset,
+                                                          Chunk& c, AngleInfo& scratch, const char* refusal,
+                                                          Fresh&& fresh) {
+    CellKey key;
+    const char* ce = nullptr;
+    const bool keyed = key_cell(q, e, L.delimiter, key, ce);
+    const std::size_t h = keyed ? key_slot(key) : 0;
+    if (keyed && cache.used[h] && cache.key[h] == key) {
+        q = ce;
+        return &cache.info[h];
+    }
+    NumberStatus st;
+    double x;
+    const char* cell = q;
+    q = parse_number_cell(q, e, L.delimiter, L.decimal_comma, x, st);
+    if (st != NumberStatus::ok) {
+        fail_cell(c, line_offset, line, cell, number_problem(r, st, cell, e, L.delimiter));
+        return nullptr;
+    }
+    if (L.transform) x = x * L.scale[std::size_t(r)] + L.offset[std::size_t(r)];
+    double y;
+    std::string msg = angle_value(L, r, x, y);
+    if (!msg.empty()) {
+        fail_cell(c, line_offset, line, cell, std::move(msg));
+        return nullptr;
+    }
+    AngleInfo& a = keyed ? cache.info[h] : scratch;
+    a.value = y;
+    if (!fresh(y, a)) {
+        fail_cell(c, line_offset, line, cell, refusal);
+        return nullptr;
+    }
+    if (keyed) {
+        cache.used[h] = true;
+        cache.key[h] = key;
+    }
+    return &a;
+}
+
+// ---- Pass 2: the grid place of a value, the field of a row, the store ----
+
+// Grid place of a parsed angle/frequency value; false when it is not on the first pass's grid.
+inline bool place_on_grid(const GridPlan& g, int slot, double x, AngleInfo& a) {
+    if (slot == 0) {
+        const double d = (x - g.theta0) / g.theta_step;
+        a.index = d > -0.5 ? long(d + 0.5) : -1;
+        return a.index >= 0 && a.index < g.grid.theta.count;
+    }
+    if (slot == 1) {
+        const double d = (x - g.phi0) / g.phi_step;
+        long ip = d > -0.5 ? long(d + 0.5) : -1;
+        if (ip < 0 || ip >= g.n_phi_distinct) return false;
+        a.alias = g.phi_seam && ip == g.n_phi_distinct - 1;
+        if (a.alias) ip = 0;
+        a.index = (ip + g.phi_shift) % g.grid.phi.count;
+        return true;
+    }
+    auto it = std::lower_bound(g.freqs.begin(), g.freqs.end(), x * (1 - 1e-9));
+    a.index = long(it - g.freqs.begin());
+    return std::size_t(a.index) < g.freqs.size() && std::abs(g.freqs[std::size_t(a.index)] - x) <= 1e-9 * std::max(1.0, x);
+}
+
+// 10^(db/20), with -inf and very low values as exact zero.
+inline bool db_amplitude(double db, double& a) {
+    if (db <= zero_db) {
+        a = 0;
+        return true;
+    }
+    if (!(db <= max_db)) return false;
+    a = std::exp(db * (2.302585092994045684 / 20.0));
+    return true;
+}
+
+// A field cell whose value is refused: its role and what was expected there.
+struct FieldProblem {
+    int role = -1;
+    const char* expected = nullptr;
+};
+
+// Amplitude and phase columns of a family to complex E_theta, E_phi (conventions.md).
+FieldProblem polar_field(const Layout& L, const double* v, double phi_deg, cplx& et, cplx& ep) {
+    const bool tp = L.family == CsvFamily::theta_phi_polar, circ = L.family == CsvFamily::circular_polar;
+    const int r1 = tp ? c_e_theta_db : circ ? c_e_rhcp_db : c_e_co_db;
+    const int p1 = tp ? c_e_theta_phase : circ ? c_e_rhcp_phase : c_e_co_phase;
+    const int r2 = tp ? c_e_phi_db : circ ? c_e_lhcp_db : c_e_cross_db;
+    const int p2 = tp ? c_e_phi_phase : circ ? c_e_lhcp_phase : c_e_cross_phase;
+    double a, b;
+    if (!db_amplitude(v[r1], a)) return {r1, "a dB value below 3000"};
+    if (!db_amplitude(v[r2], b)) return {r2, "a dB value below 3000"};
+    for (int r : {p1, p2})
+        if (!std::isfinite(v[r])) return {r, "a finite phase"};
+    const double sign = L.minus_iwt ? -1 : 1;
+    const cplx c1 = std::polar(a, sign * v[p1] * L.phase_to_rad), c2 = std::polar(b, sign * v[p2] * L.phase_to_rad);
+    if (tp) {
+        et = c1;
+        ep = c2;
+    } else if (circ) {
+        // Inverse of E_R = (Et + j Ep)/sqrt2, E_L = (Et - j Ep)/sqrt2 (conventions.md):
+        // Et = (E_R + E_L)/sqrt2, Ep = (E_R - E_L)/(j sqrt2) = -j (E_R - E_L)/sqrt2.
+        et = (c1 + c2) * inv_sqrt2;
+        ep = cplx(0, -1) * (c1 - c2) * inv_sqrt2;
+    } else {
+        const double pr = phi_deg * deg;
+        from_ludwig3(c1, c2, std::cos(pr), std::sin(pr), *L.ludwig3_reference, et, ep);
+    }
+    return {};
+}
+
+// E_theta, E_phi of one row from its field cells (v by role) and its phi.
+inline FieldProblem row_field(const Layout& L, const double* v, double phi_deg, cplx& et, cplx& ep) {
+    switch (L.family) {
+        case CsvFamily::complex:
+            for (int r : {c_e_theta_re, c_e_theta_im, c_e_phi_re, c_e_phi_im})
+                if (!(std::abs(v[r]) <= max_field)) return {r, "a finite field value below 1e150 in magnitude"};
+            et = cplx(v[c_e_theta_re], L.minus_iwt ? -v[c_e_theta_im] : v[c_e_theta_im]);
+            ep = cplx(v[c_e_phi_re], L.minus_iwt ? -v[c_e_phi_im] : v[c_e_phi_im]);
+            return {};
+        case CsvFamily::total_db: {
+            double a;
+            if (!db_amplitude(v[c_e_total_db], a)) return {c_e_total_db, "a dB value below 3000"};
+            et = a;
+            ep = 0;
+            return {};
+        }
+        case CsvFamily::magnitude_db: {
+            double a, b;
+            if (!db_amplitude(v[c_e_theta_db], a)) return {c_e_theta_db, "a dB value below 3000"};
+            if (!db_amplitude(v[c_e_phi_db], b)) return {c_e_phi_db, "a dB value below 3000"};
+            et = a;
+            ep = b;
+            return {};
+        }
+        default: return polar_field(L, v, phi_deg, et, ep);
+    }
+}
+
+// Write one point into the arrays; a second row for a point must agree with the first (to
+// 0.1 % of the larger field, or both below 1e-6). With several workers, the seen byte is the
+// lock: 0 absent, 1 being written, 2 present.
+bool store_point(Context& ctx, Chunk& c, std::size_t fk, std::size_t k, cplx et, cplx ep, std::size_t line_offset,
+                 const AngleInfo* const ang[3]) {
+    unsigned char& seen = (*ctx.seen)[fk][k];
+    FarField& ff = (*ctx.out)[fk];
+    if (!ctx.concurrent) {
+        if (seen == 0) {
+            ff.e_theta[k] = et;
+            ff.e_phi[k] = ep;
+            seen = 2;
+            return true;
+        }
+    } else {
+        std::atomic_ref<unsigned char> s(seen);
+        unsigned char expected = 0;
+        if (s.compare_exchange_strong(expected, 1, std::memory_order_acq_rel)) {
+            ff.e_theta[k] = et;
+            ff.e_phi[k] = ep;
+            s.store(2, std::memory_order_release);
+            return true;
+        }
+        // A second row for the same point: wait for the first writer, then compare.
+        while (s.load(std::memory_order_acquire) != 2) std::this_thread::yield();
+    }
+    const cplx a = ff.e_theta[k], b = ff.e_phi[k];
+    const double d = std::sqrt(std::norm(a - et) + std::norm(b - ep));
+    const double m = std::sqrt(std::max(std::norm(a) + std::norm(b), std::norm(et) + std::norm(ep)));
+    if (d <= 1e-3 * m || m <= 1e-6) return true;
+    c.failure = {true, line_offset, 1,
+                 "expected at most one value per grid point, found a second one that differs (theta " +
+                     text::number(ang[0]->value) + ", phi " + text::number(ang[1]->value) + " deg, " +
+                     format_frequency(ang[2]->value) + ")"};
+    return false;
+}
+
+// Only empty cells may follow the last one the header names.
+bool rest_is_empty(Chunk& c, const Layout& L, const char* line, const char* q, const char* e, std::size_t line_offset) {
+    const char* t = q;
+    while (t < e && (*t == ' ' || *t == '\t' || *t == L.delimiter)) ++t;
+    if (t == e) return true;
+    int extra = 0;
+    for (const char* s = q; s < e; ++s) extra += *s == L.delimiter;
+    fail_cell(c, line_offset, line, q,
+              "expected " + std::to_string(L.cells) + " cells as in the header row, found " + std::to_string(L.cells + extra));
+    return false;
+}
+
+constexpr const char* changed_message =
+    "expected the file to stay as it was while it is read, found a value the first reading did not see "
+    "(is it still being written? read it again once it is complete)";
+
+}  // namespace
+
+void pass1(Context& ctx, Chunk& c, bool report_progress) {
+    const Layout& L = *ctx.L;
+    AngleCache cache[3];
+    AngleInfo scratch;
+    DistinctValues* sets[3] = {&c.theta, &c.phi, &c.freq};
+    if (!L.frequency_column) c.freq.add(L.frequency_hz ? *L.frequency_hz : 0.0, c.begin);
+    const int upto = L.last_angle_cell;
+    for_each_row(ctx, c, true, 0.0, report_progress ? 0.35 : 0.0, [&](const char* p, const char* e, std::size_t off) {
+        const char* q = p;
+        for (int k = 0; k <= upto; ++k) {
+            const int r = L.role[std::size_t(k)];
+            const int slot = angle_slot(r);
+            if (slot < 0) {
+                const char* ce = static_cast<const char*>(std::memchr(q, L.delimiter, std::size_t(e - q)));
+                q = ce ? ce : e;
+            } else if (!angle_cell(L, cache[slot], r, q, e, p, off, c, scratch, "", [&](double x, AngleInfo&) {
+                           sets[slot]->add(x, off);
+                           if (slot == 1) {
+                               if (x < c.phi_min) c.phi_min = x, c.phi_min_offset = off;
+                               if (x > c.phi_max) c.phi_max = x, c.phi_max_offset = off;
+                           }
+                           return true;
+                       })) {
+                return false;
+            }
+            if (!next_cell(c, off, p, e, q, k, L.cells)) return false;
+        }
+        ++c.rows;
+        return true;
+    });
+}
+
+void pass2(Context& ctx, Chunk& c, bool report_progress) {
+    const Layout& L = *ctx.L;
+    const GridPlan& g = *ctx.plan;
+    const int ncells = L.cells;
+    AngleCache cache[3];
+    std::vector<const char*> cell_at(std::size_t(ncells) + 1);
+    double v[c_count];
+    AngleInfo fixed_f;  // without a frequency column: the one frequency
+    fixed_f.value = g.freqs.empty() ? 0.0 : g.freqs[0];
+    for_each_row(ctx, c, false, 0.35, report_progress ? 0.65 : 0.0, [&](const char* p, const char* e, std::size_t off) {
+        const AngleInfo* ang[3] = {nullptr, nullptr, L.frequency_column ? nullptr : &fixed_f};
+        AngleInfo fresh[3];
+        const char* q = p;
+        for (int k = 0; k < ncells; ++k) {
+            cell_at[std::size_t(k)] = q;
+            const int r = L.role[std::size_t(k)];
+            const int slot = r < 0 ? -1 : angle_slot(r);
+            if (r < 0) {
+                const char* ce = static_cast<const char*>(std::memchr(q, L.delimiter, std::size_t(e - q)));
+                q = ce ? ce : e;
+            } else if (slot < 0) {
+                NumberStatus st;
+                const char* cell = q;
+                q = parse_number_cell(q, e, L.delimiter, L.decimal_comma, v[r], st);
+                if (st != NumberStatus::ok) {
+                    fail_cell(c, off, p, cell, number_problem(r, st, cell, e, L.delimiter));
+                    return false;
+                }
+                if (L.transform) v[r] = v[r] * L.scale[std::size_t(r)] + L.offset[std::size_t(r)];
+            } else {
+                ang[slot] = angle_cell(L, cache[slot], r, q, e, p, off, c, fresh[slot], changed_message,
+                                       [&](double x, AngleInfo& a) { return place_on_grid(g, slot, x, a); });
+                if (!ang[slot]) return false;
+            }
+            if (!next_cell(c, off, p, e, q, k, ncells)) return false;
+        }
+        if (q < e && !rest_is_empty(c, L, p, q, e, off)) return false;
+        cplx et, ep;
+        if (const FieldProblem bad = row_field(L, v, ang[1]->value, et, ep); bad.expected) {
+            fail_cell(c, off, p, cell_at[std::size_t(L.column_of[std::size_t(bad.role)])],
+                      std::string("expected ") + bad.expected + " in column \"" + column_name(bad.role) + "\"");
+            return false;
+        }
+        const std::size_t fk = std::size_t(ang[2]->index);
+        const std::size_t k = std::size_t(ang[0]->index) * std::size_t(g.grid.phi.count) + std::size_t(ang[1]->index);
+        if (ang[1]->alias) {
+            c.aliases.push_back({fk, k, et, ep, off});
+            return true;
+        }
+        return store_point(ctx, c, fk, k, et, ep, off, ang);
+    });
+}
+
+std::vector<Chunk> split(const TextSource& src, std::size_t begin, int n) {
+    std::vector<Chunk> cs(std::size_t(std::max(1, n)));
+    const std::size_t size = src.size(), len = size - std::min(begin, size);
+    std::vector<char> buffer;
+    std::size_t a = std::min(begin, size);
+    for (std::size_t i = 0; i < cs.size(); ++i) {
+        std::size_t b = i + 1 == cs.size() ? size : begin + len * (i + 1) / cs.size();
+        if (b < a) b = a;
+        if (b < size) {
+            // The next line start; with no line end near, one chunk runs to the end (its walk
+            // reports the long line, or the read error).
+            auto w = src.view(b, max_line_bytes + 1, buffer);
+            const void* nl = w ? std::memchr(w->data(), '\n', w->size()) : nullptr;
+            b = nl ? b + std::size_t(static_cast<const char*>(nl) - w->data()) + 1 : size;
+        }
+        cs[i].begin = a;
+        cs[i].end = b;
+        a = b;
+    }
+    return cs;
+}
+
+const Failure* first_failure(const std::vector<Chunk>& cs) {
+    const Failure* best = nullptr;
+    for (const Chunk& c : cs)
+        if (c.failure.set && (!best || (c.failure.io && !best->io) ||
+                              (c.failure.io == best->io && c.failure.line_offset < best->line_offset)))
+            best = &c.failure;
+    return best;
+}
+
+}  // namespace ellipsa::csv
