@@ -32,6 +32,16 @@ std::optional<double> db_or_null(double linear, bool available) {
     return d;
 }
 
+// CLI11's range checks let NaN through: every angle and the frequency must be finite numbers
+// (usage errors, exit 2, as for the other commands). Null when they are.
+const char* bad_direction(const ProbeArgs& a) {
+    if (!(a.theta_deg >= 0 && a.theta_deg <= 180)) return "--theta: expected 0..180 deg";
+    if (!std::isfinite(a.phi_deg)) return "--phi: expected a finite angle in deg";
+    if (a.frequency_hz && !(std::isfinite(*a.frequency_hz) && *a.frequency_hz >= 0))
+        return "--frequency: expected a finite frequency in Hz";
+    return nullptr;
+}
+
 Registered add_probe(CLI::App& root) {
     auto a = std::make_shared<ProbeArgs>();
     CLI::App* sub = root.add_subcommand("probe", "Every component, axial ratio, tilt, sense and Stokes at one direction");
@@ -44,6 +54,10 @@ Registered add_probe(CLI::App& root) {
     sub->add_flag("--json", a->json, "Print one JSON object");
     add_load_options(sub, a->load);
     return {sub, [a]() -> int {
+                if (const char* why = bad_direction(*a)) {
+                    std::cerr << "ellipsa probe: " << why << "\n";
+                    return exit_usage;
+                }
                 auto s = load_pattern(a->file, a->load);
                 if (!s) {
                     std::cerr << "ellipsa probe: " << s.error().format() << "\n";

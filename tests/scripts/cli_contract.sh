@@ -26,6 +26,10 @@ grep -q '"axial_ratio_db": null' out.txt && ok "linear field: axial ratio null, 
 expect_rc 2 "unknown command is bad usage" "$E" frobnicate
 expect_rc 2 "missing required option is bad usage" "$E" probe d.csv --theta 10
 expect_rc 2 "theta out of range is bad usage" "$E" probe d.csv --theta 200 --phi 0
+# CLI11's range checks let NaN through; NaN angles and frequencies are bad usage too.
+expect_rc 2 "probe --phi nan is bad usage" "$E" probe d.csv --theta 10 --phi nan
+expect_rc 2 "probe --theta nan is bad usage" "$E" probe d.csv --theta nan --phi 0
+expect_rc 2 "probe --frequency nan is bad usage" "$E" probe d.csv --theta 10 --phi 0 --frequency nan
 expect_rc 1 "missing file is bad input" "$E" info no-such-file.csv
 printf 'theta,phi,e_theta_re,e_theta_im,e_phi_re,e_phi_im\n0,0,1,0,0,x\n' > bad.csv
 expect_rc 1 "non-numeric cell is bad input" "$E" info bad.csv
