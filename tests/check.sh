@@ -20,6 +20,7 @@ export UBSAN_OPTIONS=print_stacktrace=1:halt_on_error=1
 export LSAN_OPTIONS=suppressions=$ROOT/tests/lsan.supp:print_suppressions=0
 build-asan/tests/ellipsa_tests
 if [[ -x build-asan/tests/ellipsa_scene_tests ]]; then build-asan/tests/ellipsa_scene_tests; fi
+if [[ -x build-asan/tests/ellipsa_viewer_ui_tests ]]; then build-asan/tests/ellipsa_viewer_ui_tests; fi  # panels, no GPU
 
 echo "== 2. fuzzing the importer (${FUZZ_SECONDS} s) =="
 if [[ -x tests/fuzz/run.sh ]]; then

@@ -215,15 +215,19 @@ void cut_plot(const AppState& s, const CutData& cd) {
     const ImVec2 o = ImGui::GetCursorScreenPos(), avail = ImGui::GetContentRegionAvail();
     ImDrawList* dl = ImGui::GetWindowDrawList();
     const double range = st.range_db, top = plot_top_db(*cd.peak_db, range);
-    const float legend_w = std::max(150.0f, std::min(230.0f, avail.x - avail.y));
-    const float plot_w = avail.x - legend_w, plot_h = avail.y;
+    // The legend beside the plot, or below it when the panel is narrow.
+    const bool below = avail.x < 380;
+    const float legend_w = below ? 0 : std::max(150.0f, std::min(230.0f, avail.x - avail.y));
+    const float legend_h = below ? 20.0f + 18.0f * float(cd.curves.size()) + 6 + 4 * 18.0f : 0;
+    const float plot_w = avail.x - legend_w, plot_h = std::max(60.0f, avail.y - legend_h);
     if (st.polar_plot) {
         const float R = std::max(20.0f, std::min(plot_w, plot_h) * 0.5f - 24);
         plot_polar(dl, ImVec2(o.x + plot_w * 0.5f, o.y + plot_h * 0.5f), R, cd, top, range);
     } else {
         plot_rect(dl, ImVec2(o.x + 40, o.y + 18), ImVec2(o.x + plot_w - 14, o.y + plot_h - 24), cd, top, range);
     }
-    cut_legend(s, cd, dl, o.x + plot_w + 6, o.y + 4);
+    if (below) cut_legend(s, cd, dl, o.x + 4, o.y + plot_h + 4);
+    else cut_legend(s, cd, dl, o.x + plot_w + 6, o.y + 4);
 }
 }  // namespace
 
@@ -231,8 +235,8 @@ Intents draw_cut_panel(const AppState& s, const Derived& d) {
     Intents in;
     const LoadedPattern* a = s.active_pattern();
     if (!a) return in;
-    // Controls on the left, plot on the right.
-    const float controls_w = 228;
+    // Controls on the left, plot on the right (the controls narrower in a narrow panel).
+    const float controls_w = std::clamp(ImGui::GetContentRegionAvail().x * 0.42f, 160.0f, 228.0f);
     ImGui::BeginChild("cutcontrols", ImVec2(controls_w, 0), false, ImGuiWindowFlags_NoScrollbar);
     cut_controls(s, a->set, controls_w, in);
     ImGui::EndChild();

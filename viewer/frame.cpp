@@ -15,8 +15,9 @@ namespace ellipsa::viewer {
 
 Layout compute_layout(const ViewerSettings& s, ImVec2 display, float menu_h) {
     Layout L;
-    const float lw = std::min(s.left_panel_width, display.x * 0.35f);
-    const float rw = std::min(s.right_panel_width, display.x * 0.35f);
+    // Side panels take at most 28 % of the width each, so a small window keeps room for the view and the cut.
+    const float lw = std::min(s.left_panel_width, display.x * 0.28f);
+    const float rw = std::min(s.right_panel_width, display.x * 0.28f);
     const float ch = std::min(s.cut_panel_height, (display.y - menu_h) * 0.5f);
     L.left_pos = ImVec2(0, menu_h);
     L.left_size = ImVec2(lw, display.y - menu_h);
@@ -188,8 +189,12 @@ Intents draw_ui(const AppState& s, const Derived& d, const RendererInfo& rendere
 
 void draw_view_overlay(const AppState& s, const Derived& d, const Layout& L, const UiFonts& fonts, const RendererInfo& r) {
     const LoadedPattern* a = s.active_pattern();
-    if (!a) return;
     ImDrawList* bg = ImGui::GetBackgroundDrawList();
+    if (!a) {
+        bg->AddText(fonts.body, fonts.body->FontSize, ImVec2(L.view_pos.x + 12, L.view_pos.y + 12), IM_COL32(95, 100, 108, 255),
+                    "No pattern open: type a path in the Patterns panel, pick a recent file, or drop a CSV here.");
+        return;
+    }
     const ImU32 ink = IM_COL32(34, 38, 46, 255), muted = IM_COL32(95, 100, 108, 255);
     const SurfaceView& sv = d.surface.value();
     const ImVec2 o = L.view_pos, size = L.view_size;

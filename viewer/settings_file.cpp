@@ -20,6 +20,7 @@ SettingsPlace settings_place(bool create) {
         p.dir = (fs::path(x) / "ellipsa").string();
     else if (const char* h = std::getenv("HOME"); h && *h)
         p.dir = (fs::path(h) / ".config" / "ellipsa").string();
+    if (p.dir.empty()) p.problem = "neither XDG_CONFIG_HOME nor HOME is set";
     if (p.dir.empty() || !create) return p;
     std::error_code ec;
     fs::create_directories(p.dir, ec);

@@ -1,6 +1,8 @@
 // Viewer scene benchmark: prints figures, never fails on a slow machine.
 //   mesh rebuild on a component or colouring switch (target < 20 ms) for 1-degree and 0.5-degree grids,
-//   polarisation glyphs, one hover pick (ray against every triangle).
+//   polarisation glyphs, one hover pick (ray against every triangle), and the window's state
+//   machinery: refresh() of the derived data when nothing changed (every frame) and after a
+//   range change (surface, glyphs, cut ring rebuilt).
 #include <algorithm>
 #include <chrono>
 #include <cstdio>
@@ -12,6 +14,8 @@
 #include "viewer/scene/glyphs.hpp"
 #include "viewer/scene/picking.hpp"
 #include "viewer/scene/surface_mesh.hpp"
+#include "viewer/state/apply.hpp"
+#include "viewer/state/derived.hpp"
 
 using namespace ellipsa;
 using namespace ellipsa::viewer;
@@ -57,6 +61,19 @@ int main() {
         const Ray ray = ray_through_pixel(cam, 500, 330, 1000, 660);
         const double pms = median_ms(9, [&] { (void)pick_direction(m, ray); });
         std::printf("  %-44s %8.2f ms\n", "hover pick (ray vs all triangles)", pms);
+        AppState st;
+        apply(st, Intents{intent::AddPatterns{{s}, ""}, intent::Pin{Direction{40, 30}}});
+        Derived d;
+        refresh(d, st);
+        const double idle_ms = median_ms(101, [&] { (void)refresh(d, st); });
+        std::printf("  %-44s %8.2f us\n", "derived refresh, nothing changed (per frame)", idle_ms * 1000);
+        const double range_ms = median_ms(7, [&] {
+            ViewerSettings v = st.settings;
+            v.range_db = v.range_db == 30 ? 40 : 30;
+            apply(st, Intents{intent::ChangeSettings{v}});
+            (void)refresh(d, st);
+        });
+        std::printf("  %-44s %8.2f ms\n", "apply + refresh after a range change", range_ms);
     }
     return 0;
 }

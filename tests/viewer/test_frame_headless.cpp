@@ -1,0 +1,149 @@
+// The window's UI without a GPU: Dear ImGui runs on the CPU alone (no backend, no GL context),
+// so the panels, keys and mouse steps of a frame can be driven here. Each frame: input in,
+// draw_ui() returns intents, apply() changes the state, refresh() the derived data, as in
+// run_viewer(). Checked: odd states draw without asking for anything; a click on the surface
+// pins the direction under the pointer and the cut follows; Esc and W act through intents.
+#include <catch2/catch.hpp>
+
+#include <imgui.h>
+
+#include <algorithm>
+#include <cmath>
+
+#define GLFW_INCLUDE_NONE
+#include <GLFW/glfw3.h>
+
+#include "pattern/reference.hpp"
+#include "viewer/frame.hpp"
+#include "viewer/state/apply.hpp"
+
+using namespace ellipsa;
+using namespace ellipsa::viewer;
+
+namespace {
+// One ImGui context with our style and fonts, 1280 x 800, keys mapped as the GLFW backend maps them.
+struct Ui {
+    UiFonts fonts;
+    RendererInfo renderer;
+    Ui() {
+        ImGui::CreateContext();
+        ImGuiIO& io = ImGui::GetIO();
+        io.IniFilename = nullptr;
+        io.DisplaySize = ImVec2(1280, 800);
+        io.DeltaTime = 1.0f / 60;
+        io.KeyMap[ImGuiKey_Escape] = GLFW_KEY_ESCAPE;
+        io.KeyMap[ImGuiKey_Tab] = GLFW_KEY_TAB;
+        fonts = setup_ui_style(1.0f);
+        unsigned char* px = nullptr;
+        int w = 0, h = 0;
+        io.Fonts->GetTexDataAsRGBA32(&px, &w, &h);  // what a renderer backend would upload
+        renderer.renderer = "none (test)";
+    }
+    ~Ui() { ImGui::DestroyContext(); }
+    // One frame as run_viewer() runs it; returns the intents it produced.
+    Intents frame(AppState& s, Derived& d) {
+        ImGui::NewFrame();
+        Layout layout;
+        Intents in = draw_ui(s, d, renderer, layout);
+        draw_view_overlay(s, d, layout, fonts, renderer);
+        ImGui::Render();
+        const Intents seen = in;
+        apply(s, std::move(in));
+        refresh(d, s, ImGui::IsAnyItemActive());
+        return seen;
+    }
+    Layout layout(const AppState& s) {
+        // The menu bar is one line of the body font plus padding (as drawn).
+        return compute_layout(s.settings, ImGui::GetIO().DisplaySize, ImGui::GetFontSize() + 2 * ImGui::GetStyle().FramePadding.y);
+    }
+};
+
+FarFieldSet antenna(ReferenceKind kind, double scale = 1) {
+    ReferenceAntenna a;
+    a.kind = kind;
+    FarFieldSet s = synthesize(a, 5, 1e9);
+    s.name = to_string(kind);
+    for (FarField& f : s.frequencies) {
+        for (cplx& v : f.e_theta) v *= scale;
+        for (cplx& v : f.e_phi) v *= scale;
+    }
+    return s;
+}
+
+template <class T>
+bool has(const Intents& in) {
+    return std::any_of(in.begin(), in.end(), [](const Intent& i) { return std::holds_alternative<T>(i); });
+}
+}  // namespace
+
+TEST_CASE("every panel draws odd states without a GPU and asks for nothing by itself", "[viewer][ui]") {
+    Ui ui;
+    struct Case {
+        const char* name;
+        std::vector<FarFieldSet> sets;
+        Intents setup;
+    };
+    ViewerSettings cone0;  // theta = 0 cone of a z dipole: no power on the cut
+    cone0.cut_kind = 1;
+    cone0.cut_angle_deg = 0;
+    ViewerSettings through_pin;
+    through_pin.cut_kind = 2;
+    through_pin.color_by = ColorBy::difference;
+    FarFieldSet magnitude = antenna(ReferenceKind::dipole);
+    magnitude.content = FieldContent::magnitude_only;
+    std::vector<Case> cases;
+    cases.push_back({"no pattern", {}, {}});
+    cases.push_back({"all-zero pattern, pinned", {antenna(ReferenceKind::short_dipole, 0)}, {}});
+    cases.back().setup.push_back(intent::Pin{Direction{0, 0}});
+    cases.push_back({"cut with no power", {antenna(ReferenceKind::short_dipole)}, {}});
+    cases.back().setup.push_back(intent::ChangeSettings{cone0});
+    cases.push_back({"magnitude only", {magnitude}, {}});
+    cases.push_back({"A and B, difference, pinned, every window", {antenna(ReferenceKind::crossed_dipoles), antenna(ReferenceKind::small_loop)}, {}});
+    for (Intent i : Intents{intent::SetCompare{1}, intent::ChangeSettings{through_pin}, intent::Pin{Direction{30, 40}},
+                            intent::ShowHelp{true}, intent::ShowIntro{true}, intent::ShowDiversity{true},
+                            intent::ExportFinished{ExportTarget::cut, {ExportOutcome::Status::exists, "c.svg", ""}},
+                            intent::ExportFinished{ExportTarget::view, {ExportOutcome::Status::failed, "v.png", "disk full"}}})
+        cases.back().setup.push_back(std::move(i));
+    for (Case& c : cases) {
+        INFO(c.name);
+        AppState s;
+        if (!c.sets.empty()) apply(s, Intents{intent::AddPatterns{std::move(c.sets), ""}});
+        apply(s, std::move(c.setup));
+        Derived d;
+        refresh(d, s);
+        for (int k = 0; k < 3; ++k) CHECK(ui.frame(s, d).empty());
+    }
+}
+
+TEST_CASE("a click on the surface pins the direction under the pointer; Esc unpins; the cut follows", "[viewer][ui]") {
+    Ui ui;
+    AppState s;
+    ViewerSettings st;
+    st.cut_kind = 2;  // the cut through the pin
+    apply(s, Intents{intent::AddPatterns{{antenna(ReferenceKind::small_loop)}, ""}, intent::ChangeSettings{st}});
+    Derived d;
+    refresh(d, s);
+    ImGuiIO& io = ImGui::GetIO();
+    const Layout L = ui.layout(s);
+    io.MousePos = ImVec2(L.view_pos.x + L.view_size.x * 0.5f, L.view_pos.y + L.view_size.y * 0.5f);
+    ui.frame(s, d);
+    ui.frame(s, d);
+    REQUIRE(s.hover);  // the middle of the view is on the surface
+    CHECK_FALSE(d.cut.value().valid);
+    io.MouseDown[0] = true;
+    ui.frame(s, d);
+    io.MouseDown[0] = false;
+    CHECK(has<intent::Pin>(ui.frame(s, d)));
+    REQUIRE(s.pinned);
+    CHECK(d.cut.value().valid);
+    REQUIRE(d.pinned.value());
+    io.KeysDown[GLFW_KEY_ESCAPE] = true;
+    CHECK(has<intent::Escape>(ui.frame(s, d)));
+    io.KeysDown[GLFW_KEY_ESCAPE] = false;
+    CHECK_FALSE(s.pinned);
+    CHECK_FALSE(d.cut.value().valid);
+    io.KeysDown[GLFW_KEY_W] = true;
+    CHECK(has<intent::ChangeSettings>(ui.frame(s, d)));
+    io.KeysDown[GLFW_KEY_W] = false;
+    CHECK(s.settings.wireframe);
+}
