@@ -30,9 +30,6 @@ struct DiversityArgs {
 const char* orientation_definition =
     "antenna turned by roll about its own z axis, then tilted by tilt about the world's horizontal x axis "
     "(R = R_x(tilt) R_z(roll)); world up is +z; tilts 0 and 180 counted once";
-const char* diversity_gain_method =
-    "two-branch selection combining at 1 % outage, Rayleigh fading, equal branch powers: 10 sqrt(1 - ECC) dB "
-    "(approximation used with Vaughan & Andersen 1987; common practice)";
 
 std::optional<double> db(const std::optional<double>& v) {
     if (!v) return std::nullopt;
@@ -123,39 +120,63 @@ std::string different_frequencies_note(const PairStudy& q) {
 std::optional<double> ecc_of(const PairStudy& q) {
     return q.correlation ? std::optional<double>(q.correlation->ecc) : std::nullopt;
 }
-std::optional<double> gain_of(const PairStudy& q) {
-    return q.correlation ? std::optional<double>(q.correlation->diversity_gain_db) : std::nullopt;
+
+// The combining figures keyed by outage ("0.01"), each with its outage, gains and levels.
+void json_combining(JsonWriter& j, const PairStudy& q) {
+    j.key("combining");
+    if (!q.combining) {
+        j.null();
+        j.field("combining_unavailable_reason", q.combining.error().message);
+        return;
+    }
+    j.begin_object();
+    for (const OutageFigures& o : q.combining->outages) {
+        j.key(format_number(o.outage)).begin_object();
+        j.field("outage", o.outage);
+        j.field("selection_db", o.selection_gain_db).field("mrc_db", o.mrc_gain_db);
+        j.field("selection_effective_db", o.selection_effective_gain_db).field("mrc_effective_db", o.mrc_effective_gain_db);
+        j.field("selection_level_db", to_db(o.selection_level)).field("mrc_level_db", to_db(o.mrc_level));
+        j.field("branch1_level_db", to_db(o.branch1_level)).field("branch2_level_db", to_db(o.branch2_level));
+        j.field("ideal_level_db", to_db(o.ideal_level));
+        j.end_object();
+    }
+    j.end_object();
 }
 
 void json_pairs(JsonWriter& j, const std::vector<PairStudy>& pairs) {
     // Scalars for the first (or only) frequency; one value per frequency of FILE after them.
     const PairStudy& q0 = pairs.front();
     j.field("ecc", ecc_of(q0));
-    j.field("diversity_gain_db", gain_of(q0));
+    j.field("diversity_gain_db", q0.selection_gain_1pct_db);
+    json_combining(j, q0);
     j.key("ecc_per_frequency").begin_array();
     for (const PairStudy& q : pairs) j.value(ecc_of(q));
     j.end_array();
     j.key("diversity_gain_db_per_frequency").begin_array();
-    for (const PairStudy& q : pairs) j.value(gain_of(q));
+    for (const PairStudy& q : pairs) j.value(q.selection_gain_1pct_db);
     j.end_array();
     j.key("correlation").begin_array();
     for (const PairStudy& q : pairs) {
         j.begin_object();
         j.field("frequency_hz", q.frequency_hz).field("frequency2_hz", q.frequency2_hz);
+        j.field("ecc", ecc_of(q)).field("diversity_gain_db", q.selection_gain_1pct_db);
         if (q.correlation) {
-            j.field("ecc", q.correlation->ecc).field("diversity_gain_db", q.correlation->diversity_gain_db);
+            j.field("diversity_gain_approximation_db", q.correlation->approximate_gain_db);
             j.field("resampled", q.correlation->resampled).field("sampled_share", q.correlation->sampled_share);
         } else {
-            j.key("ecc").null();
-            j.key("diversity_gain_db").null();
-            j.field("unavailable_reason", q.correlation.error().message);
+            j.field("unavailable_reason", q.correlation.error().format());
         }
         j.field("meg_ratio_db", q.meg_ratio_db);
+        json_combining(j, q);
         if (q.frequencies_differ) j.field("note", different_frequencies_note(q));
         j.end_object();
     }
     j.end_array();
-    j.field("diversity_gain_method", diversity_gain_method);
+    j.field("diversity_gain_method", "exact selection combining at 1 % outage, apparent gain; " + std::string(combining_method));
+    j.field("diversity_gain_approximation_method", approximate_gain_method);
+    j.key("cautions").begin_array();
+    for (const char* c : outage_cautions) j.value(c);
+    j.end_array();
 }
 
 void write_json(const ChosenEnvironment& env, const std::vector<PatternResult>& ps, const DiversityStudy& st,
@@ -243,6 +264,20 @@ void human_frequency(const FrequencyStudy& r, const OrientationSweep& sw) {
         human_orientations(**r.orientations, sw);
 }
 
+void human_combining(const CombiningFigures& c) {
+    std::cout << "    at outage   level A   level B   selection (gain, effective)   max. ratio (gain, effective)\n";
+    for (const OutageFigures& o : c.outages) {
+        char buf[200];
+        std::snprintf(buf, sizeof buf, "    %7g %%  %8.2f  %8.2f   %7.2f (%5.2f, %5.2f)        %7.2f (%5.2f, %5.2f)\n",
+                      100 * o.outage, to_db(o.branch1_level), to_db(o.branch2_level), to_db(o.selection_level),
+                      o.selection_gain_db, o.selection_effective_gain_db, to_db(o.mrc_level), o.mrc_gain_db,
+                      o.mrc_effective_gain_db);
+        std::cout << buf;
+    }
+    std::cout << "                (levels in dBi, gains in dB: over the stronger branch, and over an ideal lossless\n"
+                 "                 antenna in the isotropic environment)\n";
+}
+
 void human_pairs(const std::vector<PatternResult>& ps, const std::vector<PairStudy>& pairs) {
     std::cout << "\ncorrelation  " << ps[0].path << " with " << ps[1].path << "\n";
     for (const PairStudy& q : pairs) {
@@ -252,12 +287,20 @@ void human_pairs(const std::vector<PatternResult>& ps, const std::vector<PairStu
             continue;
         }
         std::cout << "    ECC                 " << fmt(q.correlation->ecc, "", 4) << "\n";
-        std::cout << "    diversity gain      " << fmt(q.correlation->diversity_gain_db, "dB") << "\n";
         std::cout << "    MEG ratio           " << fmt(q.meg_ratio_db, "dB") << " (first / second)\n";
+        if (q.combining) {
+            std::cout << "    diversity gain      " << fmt(q.selection_gain_1pct_db, "dB")
+                      << " (exact selection combining at 1 % outage; 10 sqrt(1 - ECC) would say "
+                      << fmt(q.correlation->approximate_gain_db, "dB") << ")\n";
+            human_combining(*q.combining);
+        } else {
+            std::cout << "    diversity gain      unavailable: " << q.combining.error().message << "\n";
+        }
         if (q.correlation->resampled) std::cout << "    note: the second pattern was interpolated onto the first one's grid\n";
         if (q.frequencies_differ) std::cout << "    note: " << different_frequencies_note(q) << "\n";
     }
-    std::cout << "  diversity gain: " << diversity_gain_method << "\n";
+    std::cout << "  method: " << combining_method << "\n";
+    for (const char* c : outage_cautions) std::cout << "  caution: " << c << "\n";
 }
 
 void write_human(const ChosenEnvironment& env, const std::vector<PatternResult>& ps, const DiversityStudy& st,
@@ -288,6 +331,7 @@ int run(const DiversityArgs& a) {
     const ChosenEnvironment& env = std::get<ChosenEnvironment>(built);
     if (a.study.orientations)
         if (Status sv = validate(a.study.sweep); !sv) return fail(exit_usage, sv.error().message);
+    if (Status so = validate_outages(a.study.outages); !so) return fail(exit_usage, "--outage: " + so.error().message);
 
     std::vector<PatternResult> ps;
     for (const std::string& path : {a.file, a.file2}) {
@@ -327,6 +371,9 @@ Registered add_diversity(CLI::App& root) {
     sub->add_option("--roll-step", a->study.sweep.roll_step_deg,
                     "Orientation sweep: roll step, deg (default 15; a multiple of the grid's phi step is exact and fast)");
     sub->add_option("--frequency", a->study.frequency_hz, "Only this frequency, Hz (nearest within 0.5 %)");
+    sub->add_option("--outage", a->study.outages,
+                    "Outage probabilities of the combining figures, comma-separated fractions (default 0.01,0.1)")
+        ->delimiter(',');
     sub->add_flag("--json", a->json, "Print one JSON object instead of the human summary");
     add_load_options(sub, a->load);
     return {sub, [a, sub]() -> int {

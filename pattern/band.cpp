@@ -5,7 +5,7 @@
 #include <limits>
 #include <numeric>
 
-#include "pattern/diversity.hpp"
+#include "pattern/diversity_study.hpp"
 #include "pattern/interpolate.hpp"
 #include "pattern/polarisation.hpp"
 
@@ -79,13 +79,17 @@ std::vector<PairFrequencyFigures> band_pair_figures(const FarFieldSet& a, const 
         p.index_a = fa;
         p.index_b = fb;
         for (const Environment& e : environments) {
-            auto c = envelope_correlation(a, fa, b, fb, e);
+            // The one diversity study (pattern/diversity_study.hpp): ECC and the exact selection gain.
+            auto st = study_diversity(e, DiversityOptions{}, {{&a, a.name, {fa}}, {&b, b.name, {fb}}});
             PairFrequencyFigures::Entry en;
-            if (c) {
-                en.ecc = c->ecc;
-                en.diversity_gain_db = c->diversity_gain_db;
+            if (!st) {
+                en.unavailable_reason = st.error().message;
+            } else if (const PairStudy& q = st->pairs.front(); q.correlation) {
+                en.ecc = q.correlation->ecc;
+                en.diversity_gain_db = q.selection_gain_1pct_db;
+                if (!q.combining) en.unavailable_reason = "diversity gain: " + q.combining.error().message;
             } else {
-                en.unavailable_reason = c.error().message;
+                en.unavailable_reason = q.correlation.error().message;
             }
             p.per_environment.push_back(en);
         }

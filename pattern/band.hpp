@@ -60,7 +60,7 @@ struct PairFrequencyFigures {
     std::size_t index_a = 0, index_b = 0;  // frequencies of a and b (b's within 0.5 % of a's)
     struct Entry {
         std::optional<double> ecc;                // envelope correlation rho_e
-        std::optional<double> diversity_gain_db;  // selection combining, 1 % outage
+        std::optional<double> diversity_gain_db;  // exact selection combining, 1 % outage (pattern/combining.hpp)
         std::string unavailable_reason;
     };
     std::vector<Entry> per_environment;  // per BandOptions::environments

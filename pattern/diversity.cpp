@@ -476,7 +476,7 @@ Result<OrientationFigures> orientation_robustness(const FarFieldSet& s, std::siz
     return out;
 }
 
-double selection_diversity_gain_db(double ecc) { return 10.0 * std::sqrt(1.0 - std::clamp(ecc, 0.0, 1.0)); }
+double approximate_selection_gain_db(double ecc) { return 10.0 * std::sqrt(1.0 - std::clamp(ecc, 0.0, 1.0)); }
 
 Result<CorrelationFigures> envelope_correlation(const FarFieldSet& a, std::size_t fa, const FarFieldSet& b,
                                                 std::size_t fb, const Environment& e) {
@@ -544,7 +544,7 @@ Result<CorrelationFigures> envelope_correlation(const FarFieldSet& a, std::size_
         return fail(std::string("the ") + (d1 > 0 ? "second" : "first") +
                     " pattern receives no power in this environment, so the correlation is undefined");
     out.ecc = std::clamp(std::norm(num) / (d1 * d2), 0.0, 1.0);
-    out.diversity_gain_db = selection_diversity_gain_db(out.ecc);
+    out.approximate_gain_db = approximate_selection_gain_db(out.ecc);
     return out;
 }
 

@@ -4,9 +4,9 @@
 //     MEG = integral of [ w_v G_theta P_theta + w_h G_phi P_phi ] dOmega,  w_v = XPR/(1+XPR), w_h = 1/(1+XPR)
 //     split into its vertical (w_v ...) and horizontal (w_h ...) contributions.
 //   Envelope correlation (R. G. Vaughan, J. B. Andersen, IEEE Trans. VT-36, 1987, XPR-weighted as in
-//     conventions.md), and the apparent diversity gain of two-branch selection combining at 1 %
-//     outage, G ~ 10 sqrt(1 - rho_e) dB (the approximation used with Vaughan & Andersen's analysis;
-//     common practice; equal mean branch powers, Rayleigh fading).
+//     conventions.md). The exact diversity gains it implies are in pattern/combining.hpp; the
+//     approximation 10 sqrt(1 - rho_e) dB (equal branches, selection at 1 %; common practice)
+//     stays only as a labelled comparison.
 //   Polarisation balance: the shares of MEG taken in as vertical and horizontal, and the share of
 //     the incoming power (environment-weighted sphere) where G_theta and G_phi lie within 3 dB.
 //   Orientation robustness: MEG of the antenna turned through a set of orientations.
@@ -108,8 +108,8 @@ Result<OrientationFigures> orientation_robustness(const FarFieldSet& s, std::siz
                                                   const OrientationSweep& sweep);
 
 struct CorrelationFigures {
-    double ecc = 0;                // envelope correlation rho_e in [0, 1]
-    double diversity_gain_db = 0;  // 10 sqrt(1 - rho_e)
+    double ecc = 0;                  // envelope correlation rho_e in [0, 1]
+    double approximate_gain_db = 0;  // 10 sqrt(1 - rho_e): a comparison only (pattern/combining.hpp is exact)
     double sampled_share = 1;
     bool resampled = false;  // the second pattern was interpolated onto the first one's grid
 };
@@ -119,7 +119,8 @@ struct CorrelationFigures {
 Result<CorrelationFigures> envelope_correlation(const FarFieldSet& a, std::size_t fa, const FarFieldSet& b,
                                                 std::size_t fb, const Environment& e);
 
-// Two-branch selection combining, 1 % outage: 10 sqrt(1 - rho_e) dB (rho_e clamped to [0, 1]).
-double selection_diversity_gain_db(double ecc);
+// The approximation 10 sqrt(1 - rho_e) dB of two-branch selection combining at 1 % outage (equal
+// branches; common practice), kept for comparison with the exact figure (rho_e clamped to [0, 1]).
+double approximate_selection_gain_db(double ecc);
 
 }  // namespace ellipsa

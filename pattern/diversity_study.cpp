@@ -32,8 +32,25 @@ FrequencyStudy study_frequency(const FarFieldSet& s, std::size_t k, const Enviro
     return f;
 }
 
+Result<CombiningFigures> combining_of(PairStudy& q, const FrequencyStudy& f1, const FrequencyStudy& f2,
+                                      const std::vector<double>& outages) {
+    if (!q.correlation) return Error{"", 0, 0, "needs the envelope correlation, which is unavailable"};
+    if (!f1.meg || !f2.meg) return Error{"", 0, 0, "needs the MEG of both patterns, which is unavailable"};
+    const BranchPair b{f1.meg->meg, f2.meg->meg, q.correlation->ecc};
+    auto c = combine_two_branches(b, outages);
+    if (!c) return c;
+    for (const OutageFigures& o : c->outages)
+        if (o.outage == 0.01) q.selection_gain_1pct_db = o.selection_gain_db;
+    if (!q.selection_gain_1pct_db) {
+        auto one = combine_two_branches(b, {0.01});
+        if (one) q.selection_gain_1pct_db = one->outages.front().selection_gain_db;
+    }
+    return c;
+}
+
 PairStudy study_pair(const StudyPattern& p1, const FrequencyStudy& f1, const StudyPattern& p2,
-                     const std::vector<FrequencyStudy>& s2, const Environment& e) {
+                     const std::vector<FrequencyStudy>& s2, const Environment& e,
+                     const std::vector<double>& outages) {
     PairStudy q;
     q.index = f1.index;
     q.frequency_hz = f1.frequency_hz;
@@ -60,6 +77,7 @@ PairStudy study_pair(const StudyPattern& p1, const FrequencyStudy& f1, const Stu
     q.correlation = envelope_correlation(*p1.set, f1.index, *p2.set, partner->index, e);
     if (f1.meg && partner->meg && f1.meg->meg > 0 && partner->meg->meg > 0)
         q.meg_ratio_db = to_db(f1.meg->meg / partner->meg->meg);
+    q.combining = combining_of(q, f1, *partner, outages);
     return q;
 }
 
@@ -68,6 +86,7 @@ PairStudy study_pair(const StudyPattern& p1, const FrequencyStudy& f1, const Stu
 Result<DiversityStudy> study_diversity(const Environment& e, const DiversityOptions& o,
                                        const std::vector<StudyPattern>& patterns) {
     if (patterns.empty() || patterns.size() > 2) return Error{"", 0, 0, "a diversity study takes one or two patterns"};
+    if (Status ok = validate_outages(o.outages); !ok) return ok.error();
     DiversityStudy out;
     out.environment = e;
     for (const StudyPattern& p : patterns) {
@@ -79,7 +98,7 @@ Result<DiversityStudy> study_diversity(const Environment& e, const DiversityOpti
     }
     if (patterns.size() == 2)
         for (const FrequencyStudy& f1 : out.patterns[0])
-            out.pairs.push_back(study_pair(patterns[0], f1, patterns[1], out.patterns[1], e));
+            out.pairs.push_back(study_pair(patterns[0], f1, patterns[1], out.patterns[1], e, o.outages));
     return out;
 }
 

@@ -6,10 +6,12 @@
 // The environment comes from choose_environment() (pattern/environment.hpp); the figures from
 // pattern/diversity.hpp.
 #pragma once
+#include <iterator>
 #include <optional>
 #include <string>
 #include <vector>
 
+#include "pattern/combining.hpp"
 #include "pattern/diversity.hpp"
 #include "pattern/environment.hpp"
 #include "pattern/far_field.hpp"
@@ -23,6 +25,8 @@ struct DiversityOptions {
     // Only this frequency (nearest within 0.5 %, pattern/far_field.hpp find_frequency) of every
     // pattern that does not list its own; none: every frequency.
     std::optional<double> frequency_hz;
+    // Outage probabilities of the exact two-branch combining figures (pattern/combining.hpp).
+    std::vector<double> outages{std::begin(default_outages), std::end(default_outages)};
 };
 
 // One pattern to study.
@@ -51,6 +55,13 @@ struct PairStudy {
     bool frequencies_differ = false;
     Result<CorrelationFigures> correlation = Error{};
     std::optional<double> meg_ratio_db;  // first over second, when both MEG are available and above zero
+    // Rayleigh fading with the two MEG as mean branch powers and the ECC as power correlation:
+    // exact selection and maximal-ratio combining at each outage (an Error when MEG or ECC is
+    // unavailable or a MEG is zero).
+    Result<CombiningFigures> combining = Error{};
+    // The headline: the exact apparent selection-combining gain at 1 % outage, whatever outages
+    // were asked for.
+    std::optional<double> selection_gain_1pct_db;
 };
 
 struct DiversityStudy {
@@ -60,8 +71,9 @@ struct DiversityStudy {
 };
 
 // Cost: per pattern and frequency one pass over the grid for MEG (plus the orientation sweep when
-// asked); per pair one pass for the correlation. Errors: a pattern without the asked-for frequency
-// (the message lists what it holds), a null or empty pattern, more than two patterns.
+// asked); per pair one pass for the correlation and well under a millisecond for the combining
+// figures. Errors: a pattern without the asked-for frequency (the message lists what it holds), a
+// null or empty pattern, more than two patterns, outages outside (0, 1).
 Result<DiversityStudy> study_diversity(const Environment& e, const DiversityOptions& o,
                                        const std::vector<StudyPattern>& patterns);
 

@@ -231,11 +231,20 @@ void draw_correlation(const DiversityFigures& f) {
     char v[64];
     std::snprintf(v, sizeof v, "%.4f", f.correlation->ecc);
     row("envelope correlation", v);
-    std::snprintf(v, sizeof v, "%.2f dB", f.correlation->diversity_gain_db);
-    row("diversity gain", v);
-    if (ImGui::IsItemHovered())
-        ImGui::SetTooltip("Two-branch selection combining at 1 %% outage, Rayleigh fading, equal branch powers:\n"
-                          "10 sqrt(1 - ECC) dB (approximation used with Vaughan & Andersen 1987)");
+    if (f.combining) {
+        for (const OutageFigures& o : f.combining->outages) {
+            char label[48];
+            std::snprintf(label, sizeof label, "gain at %g %% outage", 100 * o.outage);
+            std::snprintf(v, sizeof v, "%.2f dB selection, %.2f dB max. ratio", o.selection_gain_db, o.mrc_gain_db);
+            row(label, v);
+        }
+        if (ImGui::IsItemHovered())
+            ImGui::SetTooltip("Exact two-branch combining in Rayleigh fading with the MEG of A and B as branch powers\n"
+                              "and the ECC as power correlation, over the stronger branch (docs/diversity.md).\n"
+                              "Statistical environments, not a site survey; add the receiver's own figures.");
+    } else {
+        ImGui::TextWrapped("Diversity gain unavailable: %s", f.combining_error.c_str());
+    }
     if (f.meg_ratio_db) {
         std::snprintf(v, sizeof v, "%.2f dB", *f.meg_ratio_db);
         row("MEG ratio A / B", v);

@@ -19,7 +19,8 @@ for k in environment patterns meg_db meg_vertical_db meg_horizontal_db vertical_
 # Taga 1990: a lossless antenna in the uniform environment has MEG -3.01 dB.
 grep -q '"meg_db": -3.01' out.txt && ok "uniform MEG is -3.01 dB" || bad "uniform MEG not -3.01 dB: $(head -c 400 out.txt)"
 expect_rc 0 "two files, preset, orientations" "$E" diversity z.csv x.csv --environment urban --orientations --json
-for k in ecc diversity_gain_db correlation orientations min_db median_db max_db worst by_tilt; do has $k; done
+for k in ecc diversity_gain_db combining selection_db mrc_db selection_effective_db mrc_effective_db diversity_gain_approximation_db cautions correlation orientations min_db median_db max_db worst by_tilt; do has $k; done
+grep -q '"0.1": {' out.txt && ok "combining keyed by outage" || bad "combining not keyed by outage"
 # conventions.md: a z and an x dipole are uncorrelated (in any azimuth-uniform environment).
 grep -Eq '"ecc": (0|[0-9.]+e-(1[2-9]|[2-9][0-9]))[,}]' out.txt && ok "z/x dipoles: ECC 0" || bad "z/x ECC not 0: $(grep -o '"ecc": [^,]*' out.txt)"
 expect_rc 0 "human output" "$E" diversity z.csv x.csv --environment indoor --orientations
@@ -29,6 +30,7 @@ grep -q 'vertical spread is missing' err.txt && ok "names the missing angle" || 
 expect_rc 2 "unknown environment is bad usage" "$E" diversity z.csv --environment moon
 expect_rc 2 "angles with the uniform environment are bad usage" "$E" diversity z.csv --environment uniform --v-mean 3
 expect_rc 2 "bad XPR is bad usage" "$E" diversity z.csv --xpr lots
+expect_rc 2 "an outage of 1 is bad usage" "$E" diversity z.csv x.csv --outage 0.01,1
 expect_rc 2 "zero spread is bad usage" "$E" diversity z.csv --environment urban --v-spread 0
 expect_rc 0 "XPR inf accepted" "$E" diversity z.csv --environment rural --xpr inf --json
 grep -q '"xpr_db": "inf"' out.txt && ok "infinite XPR echoed as \"inf\"" || bad "infinite XPR not echoed"

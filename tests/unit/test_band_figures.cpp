@@ -159,6 +159,9 @@ TEST_CASE("pair figures: a z dipole against an x dipole are uncorrelated at ever
     for (const auto& q : p) {
         REQUIRE(q.per_environment[0].ecc);
         CHECK(*q.per_environment[0].ecc == Approx(0).margin(1e-9));
-        CHECK(*q.per_environment[0].diversity_gain_db == Approx(10).margin(1e-6));
+        // Independent equal branches, selection at 1 % outage, exact: 10 log10(ln 0.9 / ln 0.99) = 10.205 dB
+        // (two-branch Rayleigh selection, Schwartz, Bennett & Stein 1966; pattern/combining.hpp).
+        // (The two MEG differ in the fourth digit on the grid, hence the margin.)
+        CHECK(*q.per_environment[0].diversity_gain_db == Approx(10 * std::log10(std::log(0.9) / std::log(0.99))).margin(1e-3));
     }
 }

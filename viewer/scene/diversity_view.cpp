@@ -103,6 +103,10 @@ DiversityFigures compute_diversity(const DiversityChoice& c, const FarFieldSet* 
     else
         d.correlation_error = q.correlation.error().message;
     d.meg_ratio_db = q.meg_ratio_db;
+    if (q.combining)
+        d.combining = *q.combining;
+    else
+        d.combining_error = q.combining.error().message;
     return d;
 }
 

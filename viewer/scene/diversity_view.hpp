@@ -47,6 +47,9 @@ struct DiversityFigures {
     std::optional<CorrelationFigures> correlation;
     std::string correlation_error;
     std::optional<double> meg_ratio_db;  // A over B
+    // Exact two-branch combining in Rayleigh fading at the default outages (pattern/combining.hpp).
+    std::optional<CombiningFigures> combining;
+    std::string combining_error;
 };
 
 // Cost: MEG and ECC one pass over the grid each; the orientation sweep about 50 ms on a
