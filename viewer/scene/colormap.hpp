@@ -1,36 +1,18 @@
-// Colour maps for the viewer and exports: what a number on the surface looks like.
-//
-// Sequential quantities (gain) use a perceptually uniform map (viridis, cividis, magma: van der
-// Walt and Smith, matplotlib 2015; cividis: Nunez, Anderton and Renslow, PLoS ONE 2018). Differences
-// use a diverging map centred on zero (ColorBrewer RdBu, Brewer 2003, blue for negative). Tilt uses a
-// cyclic map: a constant-lightness hue circle in CIELAB, so -90 deg and +90 deg meet. No rainbow maps.
-// Each map is a short table of published anchor colours interpolated linearly in sRGB; a lookup
-// costs a few multiplies and no allocation.
+// The colour maps live in the core (pattern/colormap.hpp) so that the exports draw maps with the
+// same colours as the viewer; the viewer's names for them.
 #pragma once
-#include <array>
-#include <string>
+#include "pattern/colormap.hpp"
 
 namespace ellipsa::viewer {
 
-struct Rgb {
-    float r = 0, g = 0, b = 0;  // sRGB, 0..1
-};
-
-enum class ColorMap { viridis, cividis, magma, diverging, cyclic };
-inline constexpr ColorMap all_color_maps[] = {ColorMap::viridis, ColorMap::cividis, ColorMap::magma,
-                                              ColorMap::diverging, ColorMap::cyclic};
-const char* to_string(ColorMap m);
-bool parse_color_map(const std::string& name, ColorMap& out);
-// True for the maps meant for sequential quantities (viridis, cividis, magma).
-bool is_sequential(ColorMap m);
-
-// Colour at t in [0, 1] (clamped; the cyclic map wraps instead, so t and t+1 give the same colour).
-// NaN gives a neutral grey.
-Rgb map_color(ColorMap m, double t);
-
-// CIELAB lightness L* (0..100) of an sRGB colour (D65), for tests and legends.
-double lightness(Rgb c);
-// sRGB colour of a CIELAB colour (D65), clipped to the gamut.
-Rgb lab_to_rgb(double l, double a, double b);
+using Rgb = ellipsa::ColorRgb;
+using ellipsa::all_color_maps;
+using ellipsa::ColorMap;
+using ellipsa::is_sequential;
+using ellipsa::lab_to_rgb;
+using ellipsa::lightness;
+using ellipsa::map_color;
+using ellipsa::parse_color_map;
+using ellipsa::to_string;
 
 }  // namespace ellipsa::viewer

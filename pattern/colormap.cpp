@@ -1,10 +1,10 @@
-#include "viewer/scene/colormap.hpp"
+#include "pattern/colormap.hpp"
 
 #include <algorithm>
 #include <cmath>
 #include <cstring>
 
-namespace ellipsa::viewer {
+namespace ellipsa {
 
 namespace {
 struct Anchor {
@@ -28,7 +28,7 @@ constexpr Anchor rdbu9[] = {{0x21, 0x66, 0xAC}, {0x43, 0x93, 0xC3}, {0x92, 0xC5,
                             {0xF4, 0xA5, 0x82}, {0xD6, 0x60, 0x4D}, {0xB2, 0x18, 0x2B}};
 
 template <std::size_t N>
-Rgb from_table(const Anchor (&t)[N], double x) {
+ColorRgb from_table(const Anchor (&t)[N], double x) {
     x = std::clamp(x, 0.0, 1.0) * double(N - 1);
     std::size_t i = std::min<std::size_t>(std::size_t(x), N - 2);
     const float f = float(x - double(i));
@@ -65,7 +65,7 @@ bool parse_color_map(const std::string& name, ColorMap& out) {
 
 bool is_sequential(ColorMap m) { return m == ColorMap::viridis || m == ColorMap::cividis || m == ColorMap::magma; }
 
-Rgb lab_to_rgb(double l, double a, double b) {
+ColorRgb lab_to_rgb(double l, double a, double b) {
     // CIE 1976 L*a*b* to XYZ (D65 white), then XYZ to linear sRGB (IEC 61966-2-1).
     const double fy = (l + 16) / 116, fx = fy + a / 500, fz = fy - b / 200;
     auto finv = [](double t) { return t > 6.0 / 29 ? t * t * t : 3 * (6.0 / 29) * (6.0 / 29) * (t - 4.0 / 29); };
@@ -76,12 +76,12 @@ Rgb lab_to_rgb(double l, double a, double b) {
     return {float(linear_to_srgb(r)), float(linear_to_srgb(g)), float(linear_to_srgb(bb))};
 }
 
-double lightness(Rgb c) {
+double lightness(ColorRgb c) {
     const double y = 0.2126729 * srgb_to_linear(c.r) + 0.7151522 * srgb_to_linear(c.g) + 0.0721750 * srgb_to_linear(c.b);
     return y > 216.0 / 24389 ? 116 * std::cbrt(y) - 16 : y * 24389.0 / 27;
 }
 
-Rgb map_color(ColorMap m, double t) {
+ColorRgb map_color(ColorMap m, double t) {
     if (std::isnan(t)) return {0.62f, 0.62f, 0.62f};
     switch (m) {
         case ColorMap::viridis: return from_table(viridis9, t);
@@ -91,8 +91,8 @@ Rgb map_color(ColorMap m, double t) {
         case ColorMap::cyclic: {
             // Constant lightness and chroma, hue going once round: L* 68, C* 38 stays inside sRGB.
             // Tabulated once (512 steps, linear in between): lab_to_rgb costs several pow() calls.
-            static const std::array<Rgb, 513> table = [] {
-                std::array<Rgb, 513> tb{};
+            static const std::array<ColorRgb, 513> table = [] {
+                std::array<ColorRgb, 513> tb{};
                 for (int k = 0; k <= 512; ++k) {
                     const double h = 2 * 3.14159265358979323846 * k / 512;
                     tb[std::size_t(k)] = lab_to_rgb(68, 38 * std::cos(h), 38 * std::sin(h));
@@ -102,11 +102,11 @@ Rgb map_color(ColorMap m, double t) {
             const double w = (t - std::floor(t)) * 512;
             const std::size_t i = std::min<std::size_t>(std::size_t(w), 511);
             const float f = float(w - double(i));
-            const Rgb &a = table[i], &b = table[i + 1];
+            const ColorRgb &a = table[i], &b = table[i + 1];
             return {a.r + f * (b.r - a.r), a.g + f * (b.g - a.g), a.b + f * (b.b - a.b)};
         }
     }
     return {};
 }
 
-}  // namespace ellipsa::viewer
+}  // namespace ellipsa
