@@ -76,4 +76,22 @@ double draw_header(Pen& pen, const std::string& title, const std::string& subtit
     return y;
 }
 
+Footnotes wrap_footnotes(Pen& pen, const std::vector<std::string>& notes, double width) {
+    pen.font(FontWeight::regular, 6.8);
+    Footnotes f;
+    for (const std::string& n : notes)
+        for (const std::string& l : wrap(pen, n, width)) f.lines.push_back(l);
+    f.height = 8.5 * pen.u * double(f.lines.size());
+    return f;
+}
+
+void draw_footnotes(Pen& pen, const Footnotes& f, double x, double y) {
+    pen.colour(ink_soft);
+    pen.font(FontWeight::regular, 6.8);
+    for (const std::string& l : f.lines) {
+        pen.text(l, x, y);
+        y += 8.5 * pen.u;
+    }
+}
+
 }  // namespace ellipsa::exports

@@ -86,6 +86,14 @@ Pen begin_page(cairo_t* cr, double w, double h);
 std::string fit(Pen& pen, const std::string& s, double w, double min_size);
 // Word-wrap `s` into lines no wider than `w` with the current font.
 std::vector<std::string> wrap(Pen& pen, const std::string& s, double w);
+// Small print at the foot of a figure: the notes wrapped to `width` (6.8 pt, 8.5 pt a line).
+struct Footnotes {
+    std::vector<std::string> lines;
+    double height = 0;  // in points at the pen's scale
+};
+Footnotes wrap_footnotes(Pen& pen, const std::vector<std::string>& notes, double width);
+// Draw them from baseline y down, in the soft ink.
+void draw_footnotes(Pen& pen, const Footnotes& f, double x, double y);
 // Title (bold) and subtitle at the top left, a rule under them; returns the rule's y.
 double draw_header(Pen& pen, const std::string& title, const std::string& subtitle, double w, double m);
 

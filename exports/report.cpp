@@ -297,6 +297,7 @@ Result<std::vector<ReportFile>> build_report(const std::vector<ReportInput>& inp
                 files.push_back({fbase + "-" + cd.tag + ".csv", cut_csv(s, *cut)});
                 figs.push_back(f);
             }
+            if (Status st = map_figure(files, s, fi, fbase, display_name(in), o, figs); !st) return st.error();
             if (o.snapshot) {
                 auto png = o.snapshot(s, fi);
                 if (png) {

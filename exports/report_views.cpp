@@ -1,6 +1,7 @@
 #include "exports/report_views.hpp"
 
 #include "exports/band_figure.hpp"
+#include "exports/map_plot.hpp"
 #include "exports/plot_pen.hpp"
 
 namespace ellipsa::exports {
@@ -53,6 +54,26 @@ Status band_section(Document& doc, std::vector<ReportFile>& files, const FarFiel
     doc.table(t);
     doc.note("The values plotted are in " + base + "-band.csv. The axial-ratio band is read at the peak direction of the "
              "middle frequency, the same direction at every frequency.");
+    return Ok{};
+}
+
+Status map_figure(std::vector<ReportFile>& files, const FarFieldSet& s, std::size_t fi, const std::string& base,
+                  const std::string& title, const ReportOptions& o, std::vector<DocFigure>& figs) {
+    MapRequest r;
+    r.title = title;
+    r.range_db = o.range_db;
+    auto plot = make_map_plot(s, fi, r);
+    if (!plot) return plot.error();
+    DocFigure f;
+    f.caption = "Whole-sphere map of the total power, " + format_frequency(s.frequencies[fi].frequency_hz) +
+                " (Hammer equal-area projection: area on the map is solid angle)";
+    f.alt = f.caption + " of " + title;
+    RenderSize size = o.size;
+    size.height_px = size.width_px * 3 / 5;
+    Status st = add_figure_files([&](cairo_t* cr, double w, double h) { draw_map_plot(cr, *plot, w, h); }, plot->title,
+                                 base + "-map", size, files, f);
+    if (!st) return st;
+    figs.push_back(f);
     return Ok{};
 }
 

@@ -20,4 +20,9 @@ Status add_figure_files(const Drawing& draw, const std::string& title, const std
 Status band_section(Document& doc, std::vector<ReportFile>& files, const FarFieldSet& s, const std::string& base,
                     const std::string& title, const ReportOptions& o);
 
+// The whole-sphere map of the total power at one frequency (Hammer's equal-area projection),
+// appended to `figs` with its files base-map.svg/png.
+Status map_figure(std::vector<ReportFile>& files, const FarFieldSet& s, std::size_t freq_index, const std::string& base,
+                  const std::string& title, const ReportOptions& o, std::vector<DocFigure>& figs);
+
 }  // namespace ellipsa::exports

@@ -182,11 +182,8 @@ void draw_xy_figure(cairo_t* cr, const XyFigure& f, double w, double h) {
     Pen pen = begin_page(cr, w, h);
     const double u = pen.u, m = 16 * u;
     const double top = draw_header(pen, f.title, f.subtitle, w, m) + 6 * u;
-    pen.font(FontWeight::regular, 6.8);
-    std::vector<std::string> notes;
-    for (const std::string& n : f.notes)
-        for (const std::string& l : wrap(pen, n, w - 2 * m)) notes.push_back(l);
-    const double bottom = h - m - 8.5 * u * double(notes.size()) - 24 * u;
+    const Footnotes notes = wrap_footnotes(pen, f.notes, w - 2 * m);
+    const double bottom = h - m - notes.height - 24 * u;
     const std::size_t np = std::max<std::size_t>(1, f.panels.size());
     const double gap = 20 * u, ph = (bottom - top - gap * double(np)) / double(np);
     const Range xr = x_range(f);
@@ -214,13 +211,7 @@ void draw_xy_figure(cairo_t* cr, const XyFigure& f, double w, double h) {
     pen.colour(ink);
     pen.font(FontWeight::regular, 8.0);
     pen.text(f.x_unit.empty() ? f.x_label : f.x_label + " (" + f.x_unit + ")", (m + 46 * u + w - m) / 2, bottom + 22 * u, 0.5);
-    pen.colour(ink_soft);
-    pen.font(FontWeight::regular, 6.8);
-    double yn = bottom + 34 * u;
-    for (const std::string& l : notes) {
-        pen.text(l, m, yn);
-        yn += 8.5 * u;
-    }
+    draw_footnotes(pen, notes, m, bottom + 34 * u);
     cairo_restore(cr);
 }
 

@@ -38,4 +38,28 @@ expect_rc 2 "band: --pair needs two files" "$E" band "$BAND" --out x.svg --pair
 expect_rc 2 "band: unknown extension" "$E" band "$BAND" --out x.txt
 [[ ! -e x.svg ]] && ok "nothing written on usage errors" || bad "x.svg written despite errors"
 
+# ---- map
+TS=$SRC/examples/turnstile.csv
+expect_rc 0 "map to SVG (Hammer, total)" "$E" map "$TS" --frequency 2.45e9 --out m.svg
+xmllint --noout m.svg 2>/dev/null && ok "map SVG well-formed" || bad "map SVG not well-formed"
+expect_rc 0 "map of the axial ratio to PNG, theta/phi" "$E" map "$TS" --frequency 2.45e9 --show axial-ratio --projection theta-phi --out m.png --size 800x480
+python3 -c "import struct,sys; d=open('m.png','rb').read(24); w,h=struct.unpack('>II', d[16:24]); sys.exit(0 if (w,h)==(800,480) else 1)" \
+  && ok "map PNG is 800x480" || bad "map PNG size"
+expect_rc 0 "map of A minus B to PDF" "$E" map "$TS" --frequency 2.45e9 --minus "$TS" --projection az-el --out m.pdf
+pdfinfo m.pdf >/dev/null 2>&1 && ok "map PDF opens" || bad "map PDF"
+expect_rc 0 "map values to CSV" "$E" map "$TS" --frequency 2.45e9 --show tilt --out m.csv
+python3 - m.csv <<'PY' && ok "map CSV: one row per sample, tilt within (-90, 90]" || bad "map CSV content"
+import csv, math, sys
+rows = list(csv.reader(open(sys.argv[1])))
+assert rows[0][-1] == "tilt_deg" and len(rows) == 1 + 37 * 72
+vals = [float(r[-1]) for r in rows[1:] if r[-1]]
+assert all(-90 < v <= 90 for v in vals)
+PY
+expect_rc 2 "map: unknown quantity" "$E" map "$TS" --show colour --out x.svg
+expect_rc 2 "map: bad levels" "$E" map "$TS" --levels 3,abc --out x.svg
+expect_rc 2 "map: bad bar" "$E" map "$TS" --bar 5,1 --out x.svg
+expect_rc 2 "map: unknown projection" "$E" map "$TS" --projection mercator --out x.svg
+expect_rc 1 "map: refuses to replace" "$E" map "$TS" --out m.csv
+[[ ! -e x.svg ]] && ok "map: nothing written on usage errors" || bad "map: x.svg written"
+
 finish
