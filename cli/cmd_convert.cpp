@@ -16,6 +16,7 @@ struct ConvertArgs {
     std::string in, out;
     std::string family;
     std::string ludwig3_reference;
+    bool force = false;
     LoadOptions load;
 };
 
@@ -40,6 +41,7 @@ Registered add_convert(CLI::App& root) {
     sub->add_option("--ludwig3-reference", a->ludwig3_reference,
                     "Reference for ludwig3-db-phase: x | y (default: the input's, else x)")
         ->check(CLI::IsMember({"x", "y"}));
+    sub->add_flag("--force", a->force, "Replace OUT if it exists");
     add_load_options(sub, a->load);
     return {sub, [a]() -> int {
                 if (same_file(a->in, a->out) || a->in == a->out) {
@@ -57,6 +59,7 @@ Registered add_convert(CLI::App& root) {
                 if (!a->family.empty()) parse_csv_family(a->family, w.family);
                 if (a->ludwig3_reference == "x") w.ludwig3_reference = Ludwig3Reference::x;
                 if (a->ludwig3_reference == "y") w.ludwig3_reference = Ludwig3Reference::y;
+                w.overwrite = a->force;
                 Status st = write_far_field_csv(*s, a->out, w);
                 if (!st) {
                     std::cerr << "ellipsa convert: " << st.error().format() << "\n";

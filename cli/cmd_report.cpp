@@ -4,7 +4,6 @@
 #include <cmath>
 #include <cstdio>
 #include <ctime>
-#include <filesystem>
 #include <iostream>
 #include <memory>
 #include <optional>
@@ -97,15 +96,6 @@ int run_report(const ReportArgs& a) {
     o.snapshot_note = "3D views are not included: this build has no viewer (ELLIPSA_VIEWER=OFF).";
 #endif
 
-    // --force replaces a report folder, never some other folder that happens to be named.
-    {
-        std::error_code ec;
-        const std::filesystem::path out(a.out);
-        if (a.force && std::filesystem::is_directory(out, ec) && !std::filesystem::is_empty(out, ec) &&
-            !std::filesystem::exists(out / "index.html", ec) && !std::filesystem::exists(out / "report.md", ec))
-            return fail(exit_bad_input, a.out + ": exists and does not look like a report folder (no index.html or "
-                                        "report.md); not replacing it, even with --force");
-    }
     std::vector<ReportInput> inputs;
     for (const std::string& f : a.files) {
         auto s = load_pattern(f, a.load);
@@ -114,7 +104,13 @@ int run_report(const ReportArgs& a) {
     }
     auto files = build_report(inputs, o);
     if (!files) return fail(exit_bad_input, files.error().format());
-    Status st = io::publish_folder(a.out, [&](const std::string& dir) { return write_report_files(dir, *files); }, a.force);
+    // --force replaces only a folder ellipsa made, and never one that holds what the report reads.
+    std::vector<std::string> read = a.files;
+    for (const std::string& f : {a.load.map_file, a.load.map.rfind('@', 0) == 0 ? a.load.map.substr(1) : std::string(),
+                                 a.environment.profile})
+        if (!f.empty()) read.push_back(f);
+    Status st = io::publish_folder(
+        a.out, [&](const std::string& dir) { return write_report_files(dir, *files); }, a.force, read);
     if (!st) return fail(exit_bad_input, st.error().format());
     std::cout << "wrote " << a.out << "/index.html and report.md with " << files->size() - 2 << " figure and data files\n";
     return exit_ok;

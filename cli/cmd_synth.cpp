@@ -20,6 +20,7 @@ struct SynthArgs {
     double frequency_hz = 2.45e9;
     std::string name;
     std::string out;
+    bool force = false;
 };
 }  // namespace
 
@@ -47,6 +48,7 @@ Registered add_synth(CLI::App& root) {
         ->check(CLI::PositiveNumber);
     sub->add_option("--name", a->name, "Name stored in the file (default: the kind)");
     sub->add_option("--out", a->out, "Output CSV file")->required();
+    sub->add_flag("--force", a->force, "Replace the output file if it exists");
     return {sub, [a]() -> int {
                 const double n = 180.0 / a->step_deg;
                 if (std::abs(n - std::round(n)) > 1e-9) {
@@ -64,7 +66,9 @@ Registered add_synth(CLI::App& root) {
                 if (a->rx != 0 || a->ry != 0 || a->rz != 0)
                     s.source += ", turned " + std::to_string(a->rx) + "/" + std::to_string(a->ry) + "/" +
                                 std::to_string(a->rz) + " deg about x/y/z";
-                Status st = write_far_field_csv(s, a->out);
+                CsvWriteOptions w;
+                w.overwrite = a->force;
+                Status st = write_far_field_csv(s, a->out, w);
                 if (!st) {
                     std::cerr << "ellipsa synth: " << st.error().format() << "\n";
                     return exit_bad_input;

@@ -15,6 +15,7 @@ reports stale blocks without writing (exit 1 if any).
 """
 import os
 import re
+import shutil
 import subprocess
 import sys
 
@@ -35,7 +36,17 @@ def run(cmd):
 
 def main():
     check = "--check" in sys.argv
-    os.makedirs(os.path.join(ROOT, "out", "docs"), exist_ok=True)
+    work = os.path.join(ROOT, "out", "docs")
+    # A fresh work folder each run: commands that write refuse to replace a file without --force,
+    # as a user's first run would find nothing there either.
+    if os.path.isdir(work):
+        for name in os.listdir(work):
+            p = os.path.join(work, name)
+            if os.path.islink(p) or not os.path.isdir(p):
+                os.remove(p)
+            else:
+                shutil.rmtree(p)
+    os.makedirs(work, exist_ok=True)
     # commands refer to examples/ relative to the repo: give the work folder a link to it
     link = os.path.join(ROOT, "out", "docs", "examples")
     if not os.path.exists(link):

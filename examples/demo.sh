@@ -29,7 +29,7 @@ if [[ -n "${DISPLAY:-}${WAYLAND_DISPLAY:-}" ]]; then
 fi
 
 OUT=out/demo
-mkdir -p "$OUT"
+rm -rf "$OUT" && mkdir -p "$OUT"  # the demo's own output, written afresh each run
 echo "No display: writing the scenario's figures headless to $OUT/"
 for f in "${FILES[@]}"; do
   "$E" diversity "$f" --environment indoor --orientations --frequency 2.45e9

@@ -107,7 +107,9 @@ struct CsvWriteOptions {
     CsvFamily family = CsvFamily::complex;
     // Reference for the Ludwig-3 family; unset: the set's own.
     std::optional<Ludwig3Reference> ludwig3_reference;
-    bool overwrite = true;  // false: refuse when the target exists
+    // true: replace an existing file (keeping its permission bits); false: refuse when anything
+    // is at the target (io/atomic_write.hpp: decided atomically with the write).
+    bool overwrite = false;
 };
 // The family that keeps everything a set holds: complex, theta-phi-db or total-db.
 CsvFamily natural_family(const FarFieldSet& s);

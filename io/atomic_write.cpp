@@ -1,46 +1,77 @@
 #include "io/atomic_write.hpp"
 
 #include <cerrno>
-#include <cstdio>
 #include <cstring>
 #include <fcntl.h>
 #include <sys/stat.h>
 #include <unistd.h>
 
+#include "io/place.hpp"
+
 namespace ellipsa::io {
 
-Status write_file_atomically(const std::string& path, std::string_view content, bool overwrite) {
-    struct stat st {};
-    if (!overwrite && ::stat(path.c_str(), &st) == 0)
-        return Error{path, 0, 0, "already exists; use --force to replace it"};
-    std::string tmp = path + ".tmp-XXXXXX";
-    int fd = ::mkstemp(tmp.data());
-    if (fd < 0) return Error{path, 0, 0, std::string("cannot create a temporary file beside it: ") + std::strerror(errno)};
+namespace {
+
+std::string reason(int e) { return std::strerror(e); }
+
+// A fresh temporary file beside `path`, created with 0666 so the umask applies as it would to
+// the file itself; its name in `tmp`. -1 with errno on failure.
+int create_temporary(const std::string& path, std::string& tmp) {
+    for (int attempt = 0; attempt < 100; ++attempt) {
+        tmp = detail::temporary_name(path);
+        const int fd = ::open(tmp.c_str(), O_WRONLY | O_CREAT | O_EXCL | O_CLOEXEC, 0666);
+        if (fd >= 0 || errno != EEXIST) return fd;
+    }
+    return -1;
+}
+
+int write_all(int fd, std::string_view content) {
     const char* p = content.data();
     std::size_t left = content.size();
     while (left > 0) {
-        ssize_t w = ::write(fd, p, left);
-        if (w < 0) {
-            if (errno == EINTR) continue;
-            int e = errno;
-            ::close(fd);
-            ::unlink(tmp.c_str());
-            return Error{path, 0, 0, std::string("write failed: ") + std::strerror(e)};
-        }
+        const ssize_t w = ::write(fd, p, left);
+        if (w < 0 && errno == EINTR) continue;
+        if (w < 0) return errno;
         p += w;
         left -= std::size_t(w);
     }
-    ::fchmod(fd, 0644);
-    if (::fsync(fd) != 0 || ::close(fd) != 0) {
-        int e = errno;
+    return 0;
+}
+
+// The replaced file's permission bits, owner and group (best effort: only root may give a file
+// away).
+void keep_mode_of(int fd, const struct stat& old) {
+    ::fchmod(fd, old.st_mode & 07777);
+    struct stat now {};
+    if (::fstat(fd, &now) == 0 && (now.st_uid != old.st_uid || now.st_gid != old.st_gid))
+        if (::fchown(fd, old.st_uid, old.st_gid) == 0) ::fchmod(fd, old.st_mode & 07777);
+}
+
+}  // namespace
+
+Status write_file_atomically(const std::string& path, std::string_view content, bool overwrite) {
+    struct stat old {};
+    // Refuse early what the last step would refuse anyway (no need to write a large file first).
+    if (!overwrite && ::lstat(path.c_str(), &old) == 0) return Error{path, 0, 0, detail::exists_message};
+    const bool replacing = overwrite && ::stat(path.c_str(), &old) == 0 && S_ISREG(old.st_mode);
+    std::string tmp;
+    const int fd = create_temporary(path, tmp);
+    if (fd < 0) return Error{path, 0, 0, "cannot create a temporary file beside it: " + reason(errno)};
+    int e = write_all(fd, content);
+    if (e == 0 && replacing) keep_mode_of(fd, old);
+    if (e == 0 && ::fsync(fd) != 0) e = errno;
+    if (::close(fd) != 0 && e == 0) e = errno;
+    if (e != 0) {
         ::unlink(tmp.c_str());
-        return Error{path, 0, 0, std::string("write failed: ") + std::strerror(e)};
+        return Error{path, 0, 0, "write failed: " + reason(e)};
     }
-    if (::rename(tmp.c_str(), path.c_str()) != 0) {
-        int e = errno;
+    e = overwrite ? (::rename(tmp.c_str(), path.c_str()) == 0 ? 0 : errno) : detail::rename_no_replace(tmp, path, false);
+    if (e != 0) {
         ::unlink(tmp.c_str());
-        return Error{path, 0, 0, std::string("cannot rename the temporary file into place: ") + std::strerror(e)};
+        if (e == EEXIST) return Error{path, 0, 0, detail::exists_message};
+        return Error{path, 0, 0, "cannot move the temporary file into place: " + reason(e)};
     }
+    detail::sync_parent(path);
     return Ok{};
 }
 

@@ -16,6 +16,7 @@ Usage: check_combining_scipy.py ELLIPSA WORKDIR
 import json
 import math
 import os
+import shutil
 import subprocess
 import sys
 
@@ -25,7 +26,8 @@ from scipy.optimize import brentq
 from scipy.stats import ncx2
 
 exe, work = sys.argv[1], sys.argv[2]
-os.makedirs(work, exist_ok=True)
+shutil.rmtree(work, ignore_errors=True)  # a fresh folder: writes never replace without --force
+os.makedirs(work)
 failures = 0
 OUTAGES = [0.01, 0.1, 0.001]
 

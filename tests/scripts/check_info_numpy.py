@@ -7,6 +7,7 @@ elevation cut found with numpy interpolation. Usage: check_info_numpy.py ELLIPSA
 import json
 import math
 import os
+import shutil
 import subprocess
 import sys
 
@@ -14,7 +15,8 @@ import numpy as np
 from scipy.integrate import simpson
 
 exe, work = sys.argv[1], sys.argv[2]
-os.makedirs(work, exist_ok=True)
+shutil.rmtree(work, ignore_errors=True)  # a fresh folder: writes never replace without --force
+os.makedirs(work)
 failures = 0
 
 

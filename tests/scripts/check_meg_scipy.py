@@ -16,6 +16,7 @@ Usage: check_meg_scipy.py ELLIPSA WORKDIR
 import json
 import math
 import os
+import shutil
 import subprocess
 import sys
 
@@ -24,7 +25,8 @@ from scipy.integrate import dblquad, quad
 from scipy.special import j1
 
 exe, work = sys.argv[1], sys.argv[2]
-os.makedirs(work, exist_ok=True)
+shutil.rmtree(work, ignore_errors=True)  # a fresh folder: writes never replace without --force
+os.makedirs(work)
 failures = 0
 
 

@@ -2,7 +2,7 @@
 # The command-line contract scripts depend on: exit codes, --help, --version and the JSON keys of
 # info and probe. Usage: cli_contract.sh ELLIPSA WORKDIR
 set -uo pipefail
-E=$1; W=$2; mkdir -p "$W"; cd "$W"
+E=$1; W=$2; rm -rf "$W"; mkdir -p "$W"; cd "$W"
 pass=0; fail=0
 ok() { echo "ok   $1"; pass=$((pass+1)); }
 bad() { echo "FAIL $1"; fail=$((fail+1)); }

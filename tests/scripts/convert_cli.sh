@@ -2,7 +2,7 @@
 # ellipsa convert: every family round-trips through the command, foreign layouts convert with the
 # import options, and convert never writes over its input. Usage: convert_cli.sh ELLIPSA WORKDIR SOURCE_DIR
 set -uo pipefail
-E=$1; W=$2; SRC=$3; mkdir -p "$W"; cd "$W"
+E=$1; W=$2; SRC=$3; rm -rf "$W"; mkdir -p "$W"; cd "$W"
 pass=0; fail=0
 ok() { echo "ok   $1"; pass=$((pass+1)); }
 bad() { echo "FAIL $1"; fail=$((fail+1)); }
@@ -60,5 +60,39 @@ R3="$SRC/tests/data/csv/foreign/range3.csv"; M3="$SRC/tests/data/csv/foreign/ran
 printf 'column: Sample = ignore\nscale: e_total_db 2\n' > broken.map
 "$E" info "$R3" --map-file broken.map 2>err.txt; rc=$?
 [[ $rc == 1 ]] && grep -q 'broken.map:2:8: expected "name = value"' err.txt && ok "map file errors name file:line:column" || bad "map file error: $rc $(cat err.txt)"
+# Nothing is replaced without --force; a replaced file keeps its mode; new files follow the umask.
+cp x.csv keep.csv
+"$E" synth short-dipole --step 10 --out x.csv 2>err.txt; rc=$?
+[[ $rc == 1 ]] && grep -q 'x.csv: already exists; use --force' err.txt && cmp -s x.csv keep.csv \
+  && ok "synth refuses to replace a file without --force (exit 1)" || bad "synth overwrite: exit $rc $(cat err.txt)"
+"$E" convert "$R3" r3.csv --map-file "$M3" 2>err.txt; rc=$?
+[[ $rc == 1 ]] && grep -q 'r3.csv: already exists; use --force' err.txt \
+  && ok "convert refuses to replace a file without --force (exit 1)" || bad "convert overwrite: exit $rc $(cat err.txt)"
+chmod 600 x.csv
+"$E" synth short-dipole --step 10 --out x.csv --force && ! cmp -s x.csv keep.csv && [[ $(stat -c %a x.csv) == 600 ]] \
+  && ok "synth --force replaces and keeps the file's mode 600" || bad "synth --force: $(stat -c %a x.csv)"
+"$E" convert "$R3" r3.csv --map-file "$M3" --force && ok "convert --force replaces" || bad "convert --force"
+(umask 077 && "$E" synth short-dipole --step 10 --out private.csv) && [[ $(stat -c %a private.csv) == 600 ]] \
+  && ok "a new file follows the umask (077: mode 600)" || bad "umask: $(stat -c %a private.csv)"
+ln -sf nowhere.csv dangling.csv
+"$E" synth short-dipole --step 10 --out dangling.csv 2>err.txt; rc=$?
+[[ $rc == 1 && -L dangling.csv ]] && ok "a dangling link at the target is not replaced" || bad "dangling link: exit $rc"
+# Repeated keys are refused, naming where they came from; side files must be regular files.
+"$E" info "$R3" --map-file "$M3" --assume "angle-unit=deg,angle-unit=rad" 2>err.txt; rc=$?
+[[ $rc == 1 ]] && grep -q -- '--assume: expected metadata "angle-unit" once, found it again (first from --assume)' err.txt \
+  && ok "a repeated --assume key is refused" || bad "--assume repeat: $rc $(cat err.txt)"
+"$E" info "$R3" --map-file "$M3" --assume "quantity=directivity" 2>err.txt; rc=$?
+[[ $rc == 1 ]] && grep -q -- '--assume: expected metadata "quantity" once, found it again (first from .*range3.map:' err.txt \
+  && ok "a key in both the map file and --assume is refused" || bad "map/assume repeat: $rc $(cat err.txt)"
+"$E" info "$R3" --map "Sample=ignore,Sample=theta" 2>err.txt; rc=$?
+[[ $rc == 1 ]] && grep -q -- '--map: expected each source column once, found "Sample" again' err.txt \
+  && ok "a repeated --map source is refused as such" || bad "--map repeat: $rc $(cat err.txt)"
+timeout 20 "$E" info "$R3" --map-file /dev/zero 2>err.txt; rc=$?
+[[ $rc == 1 ]] && grep -q 'expected a map file (a regular file)' err.txt && ok "--map-file /dev/zero is refused at once" || bad "/dev/zero map: $rc"
+mkfifo fifo.map
+timeout 20 "$E" info "$R3" --map-file fifo.map 2>err.txt; rc=$?
+[[ $rc == 1 ]] && ok "--map-file FIFO is refused without blocking" || bad "FIFO map: $rc"
+timeout 20 "$E" info "$R3" --map-file . 2>err.txt; rc=$?
+[[ $rc == 1 ]] && grep -q 'found a folder' err.txt && ok "--map-file on a folder is refused" || bad "folder map: $rc"
 echo "$pass passed, $fail failed"
 [[ $fail == 0 ]]

@@ -2,7 +2,7 @@
 # The diversity command's contract: exit codes, JSON keys, clear messages for bad environments and
 # profile tables. Usage: diversity_cli.sh ELLIPSA WORKDIR
 set -uo pipefail
-E=$1; W=$2; mkdir -p "$W"; cd "$W"
+E=$1; W=$2; rm -rf "$W"; mkdir -p "$W"; cd "$W"
 pass=0; fail=0
 ok() { echo "ok   $1"; pass=$((pass+1)); }
 bad() { echo "FAIL $1"; fail=$((fail+1)); }

@@ -60,6 +60,19 @@ expect_rc 0 "--force replaces the folder" "$E" report a.csv --out rep --force "$
 mkdir -p notreport && echo "my notes" > notreport/notes.txt
 expect_rc 1 "--force refuses a folder that is not a report" "$E" report a.csv --out notreport --force "${OPTS[@]}"
 [[ $(cat notreport/notes.txt) == "my notes" ]] && ok "the other folder is untouched" || bad "notreport changed"
+# Not even one that merely holds an index.html and report.md (it used to be deleted whole, .git too).
+mkdir -p site/.git && echo page > site/index.html && echo text > site/report.md && echo "my notes" > site/notes.txt
+expect_rc 1 "--force refuses a folder ellipsa did not make" "$E" report a.csv --out site --force "${OPTS[@]}"
+grep -q 'not made by ellipsa' err.txt && [[ -d site/.git && $(cat site/notes.txt) == "my notes" && $(cat site/index.html) == page ]] \
+  && ok "the user's folder, its notes and .git are untouched" || bad "site changed: $(cat err.txt)"
+[[ -f rep/.ellipsa-folder ]] && ok "a report folder carries ellipsa's marker" || bad "no marker in rep"
+# Nor a report folder that holds the report's own input.
+cp a.csv rep/a.csv
+expect_rc 1 "--force refuses a folder holding an input" "$E" report rep/a.csv --out rep --force "${OPTS[@]}"
+grep -q 'an input of this run' err.txt && [[ -f rep/a.csv ]] && ok "the input is kept" || bad "input folder: $(cat err.txt)"
+rm rep/a.csv
+(umask 077 && "$E" report a.csv --out private "${OPTS[@]}" >/dev/null) && [[ $(stat -c %a private) == 700 && $(stat -c %a private/index.html) == 600 ]] \
+  && ok "a new report folder follows the umask (077: 700, files 600)" || bad "umask: $(stat -c %a private) $(stat -c %a private/index.html)"
 
 # A regular file where the folder's parent should be.
 echo keep > plain
