@@ -12,7 +12,7 @@ mkdir -p "$I"
 export XDG_CONFIG_HOME=$(mktemp -d)  # a first run: default settings, not the developer's own
 trap 'rm -rf "$XDG_CONFIG_HOME"' EXIT
 xvfb-run -a -s "-screen 0 1280x800x24" "$E" view "$X/printed-dipole.csv" "$X/turnstile.csv" "$X/small-loop.csv" \
-  --size 1280x800 --frames 20 --screenshot "$I/viewer-overview.png"
+  --size 1280x800 --frames 20 --screenshot "$I/viewer-overview.png" --force
 "$E" render "$X/small-loop.csv" --frequency 2.45e9 --color-by axial-ratio --glyphs --size 1000x750 \
   --out "$I/viewer-polarisation.png" --force
 "$E" cut "$X/small-loop.csv" --frequency 2.45e9 --through-peak \
