@@ -262,6 +262,8 @@ Result<std::vector<ReportFile>> build_report(const std::vector<ReportInput>& inp
         figures_tables(doc, labels, cols);
         if (!summaries[i].empty() && !summaries[i][0].unavailable_reason.empty()) doc.note(summaries[i][0].unavailable_reason);
         if (Status st = band_section(doc, files, s, base, display_name(in), o); !st) return st.error();
+        if (Status st = coverage_section(doc, files, s, freqs[i][freqs[i].size() / 2], base, display_name(in), o); !st)
+            return st.error();
 
         for (std::size_t j = 0; j < freqs[i].size(); ++j) {
             const std::size_t fi = freqs[i][j];

@@ -1,6 +1,8 @@
 #include "exports/report_views.hpp"
 
 #include "exports/band_figure.hpp"
+#include "exports/coverage_figure.hpp"
+#include "exports/cut_figure.hpp"
 #include "exports/map_plot.hpp"
 #include "exports/plot_pen.hpp"
 
@@ -74,6 +76,40 @@ Status map_figure(std::vector<ReportFile>& files, const FarFieldSet& s, std::siz
                                  base + "-map", size, files, f);
     if (!st) return st;
     figs.push_back(f);
+    return Ok{};
+}
+
+Status coverage_section(Document& doc, std::vector<ReportFile>& files, const FarFieldSet& s, std::size_t fi,
+                        const std::string& base, const std::string& title, const ReportOptions& o) {
+    CoverageRequest r;
+    r.components.clear();
+    for (Component c : {Component::total, Component::vertical, Component::horizontal, Component::rhcp, Component::lhcp})
+        if (!component_unavailable(s, c)) r.components.push_back(c);
+    r.title = title;
+    auto series = coverage_series({&s}, {""}, {fi}, r);
+    if (!series) return series.error();
+    const std::string f_text = format_frequency(s.frequencies[fi].frequency_hz);
+    doc.heading(3, "Sphere coverage at " + f_text);
+    DocTable t;
+    t.header = {"Share of the sphere at or above"};
+    for (double l : r.levels_db) t.header.push_back(num(l, 0) + " " + (*series)[0].unit);
+    for (const CoverageSeries& cs : *series) {
+        std::vector<std::string> row{cs.label};
+        for (double l : r.levels_db) row.push_back(num(100 * share_at_or_above(cs.curve, l), 1) + " %");
+        t.rows.push_back(row);
+    }
+    doc.table(t);
+    const XyFigure fig = make_coverage_figure(*series, r, f_text + ", whole sphere");
+    DocFigure f;
+    f.caption = "Share of the sphere where each component reaches a level, " + f_text;
+    f.alt = f.caption + ", " + title;
+    Status st = add_figure_files([&](cairo_t* cr, double w, double h) { draw_xy_figure(cr, fig, w, h); }, fig.title,
+                                 base + "-coverage", o.size, files, f);
+    if (!st) return st;
+    files.push_back({base + "-coverage.csv", coverage_csv(*series)});
+    doc.figures({f});
+    doc.note("Each grid sample counts with its cell's exact solid angle (as every integral here). RHCP and LHCP are in "
+             "dBic. The curves' values are in " + base + "-coverage.csv.");
     return Ok{};
 }
 

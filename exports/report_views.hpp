@@ -25,4 +25,9 @@ Status band_section(Document& doc, std::vector<ReportFile>& files, const FarFiel
 Status map_figure(std::vector<ReportFile>& files, const FarFieldSet& s, std::size_t freq_index, const std::string& base,
                   const std::string& title, const ReportOptions& o, std::vector<DocFigure>& figs);
 
+// "Sphere coverage" at one frequency: the share of the sphere at or above 0, -3, -6 and -10 dB
+// per component (total, vertical, horizontal, and RHCP, LHCP with phase) as a table and curves.
+Status coverage_section(Document& doc, std::vector<ReportFile>& files, const FarFieldSet& s, std::size_t freq_index,
+                        const std::string& base, const std::string& title, const ReportOptions& o);
+
 }  // namespace ellipsa::exports

@@ -136,7 +136,39 @@ void draw_frame(Pen& pen, const Box& b, const XyFigure& f, const XyPanel& p, boo
     cairo_restore(cr);
 }
 
-// References, markers and the panel's legend row (above the box).
+// The legend above a panel: a sample line and the label per series, in as many rows as it
+// takes (rows go up from the box). Returns the number of rows; draws only when `draw`.
+int draw_legend(Pen& pen, const Box& b, const std::vector<XySeries>& series, bool draw) {
+    const double u = pen.u, row_h = 11 * u;
+    pen.font(FontWeight::regular, 7.2);
+    // Lay out first (rows top-down), then draw with the last row just above the box.
+    std::vector<std::pair<int, double>> at;  // (row, x) per series
+    int row = 0;
+    double x = b.x0;
+    for (const XySeries& s : series) {
+        const double wdt = 17 * u + std::min(pen.width(s.label), b.x1 - b.x0 - 30 * u) + 10 * u;
+        if (x > b.x0 && x + wdt > b.x1) {
+            ++row;
+            x = b.x0;
+        }
+        at.emplace_back(row, x);
+        x += wdt;
+    }
+    const int rows = series.empty() ? 0 : row + 1;
+    if (!draw) return rows;
+    for (std::size_t i = 0; i < series.size(); ++i) {
+        const double y = b.y0 - 5 * u - row_h * double(rows - 1 - at[i].first), x0 = at[i].second;
+        pen.curve_style(std::size_t(series[i].style), 1.4 * u);
+        pen.line(x0, y - 2.5 * u, x0 + 14 * u, y - 2.5 * u);
+        pen.solid();
+        pen.colour(ink);
+        pen.font(FontWeight::regular, 7.2);
+        pen.text(fit(pen, series[i].label, b.x1 - b.x0 - 30 * u, 5.5), x0 + 17 * u, y);
+    }
+    return rows;
+}
+
+// References, markers and the panel's legend (above the box).
 void draw_overlays(Pen& pen, const Box& b, const XyPanel& p) {
     cairo_t* cr = pen.cr;
     const double u = pen.u;
@@ -158,21 +190,7 @@ void draw_overlays(Pen& pen, const Box& b, const XyPanel& p) {
         pen.text(m.label, b.X(m.x) + (left ? -2 : 2) * u, b.y0 + 8 * u, left ? 1.0 : 0.0);
     }
     pen.solid();
-    // Legend row: sample line and label per series.
-    double x = b.x0;
-    const double y = b.y0 - 5 * u;
-    pen.font(FontWeight::regular, 7.2);
-    for (const XySeries& s : p.series) {
-        if (x > b.x1 - 40 * u) break;
-        pen.curve_style(std::size_t(s.style), 1.4 * u);
-        pen.line(x, y - 2.5 * u, x + 14 * u, y - 2.5 * u);
-        pen.solid();
-        pen.colour(ink);
-        const std::string l = fit(pen, s.label, b.x1 - x - 20 * u, 5.5);
-        pen.text(l, x + 17 * u, y);
-        x += 17 * u + pen.width(l) + 10 * u;
-        pen.font(FontWeight::regular, 7.2);
-    }
+    draw_legend(pen, b, p.series, true);
 }
 
 }  // namespace
@@ -185,12 +203,22 @@ void draw_xy_figure(cairo_t* cr, const XyFigure& f, double w, double h) {
     const Footnotes notes = wrap_footnotes(pen, f.notes, w - 2 * m);
     const double bottom = h - m - notes.height - 24 * u;
     const std::size_t np = std::max<std::size_t>(1, f.panels.size());
-    const double gap = 20 * u, ph = (bottom - top - gap * double(np)) / double(np);
+    // Each panel's gap above it holds its legend rows.
     const Range xr = x_range(f);
+    std::vector<double> gaps;
+    double gap_sum = 0;
+    for (const XyPanel& p : f.panels) {
+        const Box probe{m + 46 * u, 0, w - m - 6 * u, 1, xr, {0, 1}};
+        gaps.push_back(9 * u + 11 * u * double(std::max(1, draw_legend(pen, probe, p.series, false))));
+        gap_sum += gaps.back();
+    }
+    const double ph = (bottom - top - gap_sum) / double(np);
+    double y0 = top;
     for (std::size_t i = 0; i < f.panels.size(); ++i) {
         const XyPanel& p = f.panels[i];
-        const double y0 = top + gap + double(i) * (ph + gap);
+        y0 += gaps[i];
         const Box b{m + 46 * u, y0, w - m - 6 * u, y0 + ph, xr, y_range(p)};
+        y0 += ph;
         draw_frame(pen, b, f, p, i + 1 == f.panels.size());
         cairo_save(cr);
         cairo_rectangle(cr, b.x0, b.y0 - 3 * u, b.x1 - b.x0, b.y1 - b.y0 + 6 * u);

@@ -62,4 +62,34 @@ expect_rc 2 "map: unknown projection" "$E" map "$TS" --projection mercator --out
 expect_rc 1 "map: refuses to replace" "$E" map "$TS" --out m.csv
 [[ ! -e x.svg ]] && ok "map: nothing written on usage errors" || bad "map: x.svg written"
 
+# ---- coverage
+PD=$SRC/examples/printed-dipole.csv; SL=$SRC/examples/small-loop.csv
+expect_rc 0 "coverage table, one file" "$E" coverage "$PD" --frequency 2.45e9
+grep -q "Vertical" out.txt && grep -q "share of the sphere at or above" out.txt && ok "coverage prints per component" || bad "coverage table"
+expect_rc 0 "coverage of two files near the horizon, JSON" "$E" coverage "$PD" "$SL" --frequency 2.45e9 --horizon 30 --out c.json
+python3 - c.json <<'PY' && ok "coverage JSON: best of both covers at least each" || bad "coverage JSON"
+import json, math, sys
+d = json.load(open(sys.argv[1]))
+assert abs(d["band"]["solid_angle_sr"] - 2 * math.pi) < 1e-9  # |elevation| <= 30: 4 pi sin 30
+s = {x["pattern"]: x for x in d["series"]}
+for k in range(len(s["A"]["at_levels"])):
+    best = s["best of both"]["at_levels"][k]["share"]
+    assert best >= s["A"]["at_levels"][k]["share"] - 1e-12 and best >= s["B"]["at_levels"][k]["share"] - 1e-12
+PY
+expect_rc 0 "coverage curves to SVG" "$E" coverage "$PD" --frequency 2.45e9 --out c.svg
+xmllint --noout c.svg 2>/dev/null && ok "coverage SVG well-formed" || bad "coverage SVG"
+expect_rc 0 "coverage curves to CSV" "$E" coverage "$PD" --frequency 2.45e9 --components total --out c.csv
+python3 - c.csv <<'PY' && ok "coverage CSV: shares rise as the level falls" || bad "coverage CSV"
+import csv, sys
+rows = list(csv.reader(open(sys.argv[1])))[1:]
+sh = [float(r[1]) for r in rows]
+assert all(b >= a for a, b in zip(sh, sh[1:])) and sh[0] == 0 and sh[-1] > 0.99
+assert rows[1][0] == "3.9"
+PY
+expect_rc 2 "coverage: three files" "$E" coverage "$PD" "$PD" "$PD"
+expect_rc 2 "coverage: bad elevation" "$E" coverage "$PD" --elevation 40,10
+expect_rc 2 "coverage: horizon and elevation" "$E" coverage "$PD" --horizon 30 --elevation -10,10
+expect_rc 2 "coverage: bad levels" "$E" coverage "$PD" --levels 0,x
+expect_rc 2 "coverage: unknown component" "$E" coverage "$PD" --components total,colour
+
 finish

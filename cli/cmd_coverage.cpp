@@ -1,0 +1,218 @@
+// ellipsa coverage: the share of the sphere (or of an elevation band) where a component is at
+// least a level, per component and, for two patterns, the best of both; figures at chosen levels
+// on stdout, and the curves as SVG, PNG, PDF, CSV or JSON.
+#include <cmath>
+#include <cstdio>
+#include <filesystem>
+#include <iostream>
+#include <memory>
+#include <optional>
+
+#include "cli/commands.hpp"
+#include "cli/json.hpp"
+#include "cli/load.hpp"
+#include "exports/coverage_figure.hpp"
+#include "exports/cut_figure.hpp"
+#include "exports/render.hpp"
+#include "io/atomic_write.hpp"
+
+namespace ellipsa::cli {
+
+namespace {
+
+using namespace ellipsa::exports;
+
+struct CoverageArgs {
+    std::vector<std::string> files;
+    std::string out, components, levels = "0,-3,-6,-10", elevation, title, size = "1200x900";
+    std::optional<double> frequency_hz, horizon_deg;
+    double dpi = 150;
+    bool force = false;
+    LoadOptions load;
+};
+
+int fail(int code, const std::string& msg) {
+    std::cerr << "ellipsa coverage: " << msg << "\n";
+    return code;
+}
+
+std::optional<std::vector<double>> numbers(const std::string& text) {
+    std::vector<double> out;
+    std::size_t pos = 0;
+    while (pos <= text.size()) {
+        const std::size_t c = text.find(',', pos);
+        const std::string item = text.substr(pos, c == std::string::npos ? std::string::npos : c - pos);
+        char* end = nullptr;
+        const double v = std::strtod(item.c_str(), &end);
+        if (item.empty() || *end != '\0' || !std::isfinite(v)) return std::nullopt;
+        out.push_back(v);
+        if (c == std::string::npos) break;
+        pos = c + 1;
+    }
+    return out;
+}
+
+Result<CoverageRequest> request_of(const CoverageArgs& a) {
+    CoverageRequest r;
+    r.title = a.title;
+    auto lv = numbers(a.levels);
+    if (!lv) return Error{"", 0, 0, "--levels: expected levels in dB separated by commas; found \"" + a.levels + "\""};
+    r.levels_db = *lv;
+    if (a.horizon_deg && !a.elevation.empty()) return Error{"", 0, 0, "choose --horizon or --elevation, not both"};
+    if (a.horizon_deg) {
+        if (!(*a.horizon_deg > 0 && *a.horizon_deg <= 90)) return Error{"", 0, 0, "--horizon: expected 0 < degrees <= 90"};
+        r.band = horizon_band(*a.horizon_deg);
+    }
+    if (!a.elevation.empty()) {
+        auto e = numbers(a.elevation);
+        if (!e || e->size() != 2 || !((*e)[0] < (*e)[1]) || (*e)[0] < -90 || (*e)[1] > 90)
+            return Error{"", 0, 0, "--elevation: expected MIN,MAX in degrees, -90 <= MIN < MAX <= 90; found \"" + a.elevation + "\""};
+        r.band = {(*e)[0], (*e)[1]};
+    }
+    if (!a.components.empty()) {
+        auto c = parse_component_list(a.components);
+        if (!c) return Error{"", 0, 0, "--components: " + c.error().message};
+        r.components = *c;
+    }
+    return r;
+}
+
+// Default components: for one pattern total, vertical and horizontal (and RHCP, LHCP with
+// phase), as far as the data can give them; for two patterns the total alone (three curves).
+std::vector<Component> default_components(const std::vector<FarFieldSet>& sets) {
+    std::vector<Component> out;
+    if (sets.size() > 1) return {Component::total};
+    for (Component c : {Component::total, Component::vertical, Component::horizontal, Component::rhcp, Component::lhcp}) {
+        bool ok = true;
+        for (const FarFieldSet& s : sets) ok = ok && !component_unavailable(s, c);
+        if (ok) out.push_back(c);
+    }
+    return out;
+}
+
+std::string percent(double share) {
+    char b[32];
+    std::snprintf(b, sizeof b, "%6.1f %%", 100 * share);
+    return b;
+}
+
+void print_table(const std::vector<CoverageSeries>& series, const CoverageRequest& r, const std::string& what) {
+    std::cout << "share of the " << what << " at or above each level:\n";
+    std::printf("  %-40s", "");
+    for (double l : r.levels_db) std::printf(" %7.1f %s", l, series.empty() ? "dB" : series[0].unit.c_str());
+    std::printf("\n");
+    for (const CoverageSeries& s : series) {
+        std::string label = s.label.size() > 40 ? s.label.substr(0, 39) + "~" : s.label;
+        std::printf("  %-40s", label.c_str());
+        for (double l : r.levels_db) std::printf(" %12s", percent(share_at_or_above(s.curve, l)).c_str());
+        std::printf("\n");
+    }
+    std::cout << std::flush;
+}
+
+std::string coverage_json(const std::vector<CoverageSeries>& series, const CoverageRequest& r, double frequency_hz) {
+    JsonWriter j;
+    j.begin_object().field("frequency_hz", frequency_hz);
+    j.key("band").begin_object().field("elevation_min_deg", std::max(-90.0, r.band.min_deg));
+    j.field("elevation_max_deg", std::min(90.0, r.band.max_deg));
+    j.field("solid_angle_sr", series.empty() ? 0.0 : series[0].curve.band_solid_angle_sr).end_object();
+    j.key("series").begin_array();
+    for (const CoverageSeries& s : series) {
+        j.begin_object().field("label", s.label).field("component", to_string(s.component));
+        j.key("pattern");
+        if (s.pattern < 0)
+            j.value("best of both");
+        else
+            j.value(std::string(1, char('A' + s.pattern)));
+        j.field("unit", s.unit).field("sampled_share", s.curve.sampled_share);
+        j.key("at_levels").begin_array();
+        for (double l : r.levels_db)
+            j.begin_object().field("level_db", l).field("share", share_at_or_above(s.curve, l)).end_object();
+        j.end_array().end_object();
+    }
+    j.end_array().end_object();
+    return j.str() + "\n";
+}
+
+int run_coverage(const CoverageArgs& a) {
+    if (a.files.size() > 2) return fail(exit_usage, "give one pattern file, or two for the best of both");
+    auto req = request_of(a);
+    if (!req) return fail(exit_usage, req.error().message);
+    const bool json = std::string_view(a.out).ends_with(".json");
+    const auto format = format_from_path(a.out);
+    if (!a.out.empty() && !format && !json)
+        return fail(exit_usage, "--out " + a.out + ": expected a file name ending in .svg, .png, .pdf, .csv or .json");
+    auto size = parse_size(a.size, a.dpi);
+    if (!size) return fail(exit_usage, size.error().format());
+    std::error_code ec;
+    if (!a.out.empty() && !a.force && std::filesystem::exists(a.out, ec))
+        return fail(exit_bad_input, a.out + ": already exists; use --force to replace it");
+    std::vector<FarFieldSet> sets;
+    std::vector<std::size_t> fi;
+    for (const std::string& f : a.files) {
+        auto s = load_pattern(f, a.load);
+        if (!s) return fail(exit_bad_input, s.error().format());
+        auto k = sets.empty() ? pick_frequency(*s, a.frequency_hz, f)
+                              : find_frequency(*s, sets[0].frequencies[fi[0]].frequency_hz, f);
+        if (!k) return fail(exit_bad_input, k.error().format());
+        if (s->name.empty()) s->name = f;
+        sets.push_back(std::move(*s));
+        fi.push_back(*k);
+    }
+    if (a.components.empty()) req->components = default_components(sets);
+    std::vector<const FarFieldSet*> ptrs;
+    std::vector<std::string> labels;
+    for (std::size_t i = 0; i < sets.size(); ++i) {
+        ptrs.push_back(&sets[i]);
+        labels.push_back(sets.size() > 1 ? std::string(1, char('A' + i)) + ". " + sets[i].name : "");
+    }
+    auto series = coverage_series(ptrs, labels, fi, *req);
+    if (!series) return fail(exit_bad_input, series.error().message);
+    const double f_hz = sets[0].frequencies[fi[0]].frequency_hz;
+    const std::string what = describe_band(req->band);
+    char sampled[32];
+    std::snprintf(sampled, sizeof sampled, "%.1f %%", 100 * (*series)[0].curve.sampled_share);
+    std::cout << a.files[0] << (sets.size() > 1 ? " and " + a.files[1] : "") << ", " << format_frequency(f_hz) << ", " << what
+              << " (" << sampled << " of it sampled)\n";
+    print_table(*series, *req, what == "whole sphere" ? "sphere" : "band");
+    if (a.out.empty()) return exit_ok;
+    std::string bytes;
+    if (json) {
+        bytes = coverage_json(*series, *req, f_hz);
+    } else if (*format == FileFormat::csv) {
+        bytes = coverage_csv(*series);
+    } else {
+        const XyFigure fig = make_coverage_figure(*series, *req, format_frequency(f_hz) + ", " + what);
+        auto img = render_image([&](cairo_t* cr, double w, double h) { draw_xy_figure(cr, fig, w, h); }, *format, *size, fig.title);
+        if (!img) return fail(exit_bad_input, img.error().message);
+        bytes = std::move(*img);
+    }
+    if (Status st = io::write_file_atomically(a.out, bytes, a.force); !st) return fail(exit_bad_input, st.error().format());
+    std::cout << "wrote " << a.out << "\n";
+    return exit_ok;
+}
+
+Registered add_coverage(CLI::App& root) {
+    auto a = std::make_shared<CoverageArgs>();
+    CLI::App* sub = root.add_subcommand(
+        "coverage", "Share of the sphere (or an elevation band) where each component reaches a level; best of two patterns");
+    sub->add_option("FILE", a->files, "Far-field CSV file, or two for the best of both in every direction")->required();
+    sub->add_option("--out", a->out, "Also write the curves: .svg, .png, .pdf (plot), .csv or .json (values)");
+    sub->add_option("--components", a->components,
+                    "Comma-separated components (default total, vertical, horizontal, and rhcp, lhcp with phase; total for two files)");
+    sub->add_option("--levels", a->levels, "Levels for the table, dB, comma-separated (default 0,-3,-6,-10)");
+    sub->add_option("--horizon", a->horizon_deg, "Only directions within this many degrees of the horizon");
+    sub->add_option("--elevation", a->elevation, "Only elevations MIN,MAX in degrees (-90..90)");
+    sub->add_option("--frequency", a->frequency_hz, "Frequency, Hz (nearest within 0.5 %; default the first)");
+    sub->add_option("--title", a->title, "Figure title");
+    sub->add_option("--size", a->size, "Image size WIDTHxHEIGHT in pixels (default 1200x900)");
+    sub->add_option("--dpi", a->dpi, "Dots per inch (default 150)");
+    sub->add_flag("--force", a->force, "Replace the output file if it exists");
+    add_load_options(sub, a->load);
+    return {sub, [a]() -> int { return run_coverage(*a); }};
+}
+const CommandRegistration registration(76, add_coverage);
+
+}  // namespace
+
+}  // namespace ellipsa::cli
