@@ -11,6 +11,7 @@
 #include "cli/commands.hpp"
 #include "cli/json.hpp"
 #include "cli/load.hpp"
+#include "cli/number_list.hpp"
 #include "exports/coverage_figure.hpp"
 #include "exports/cut_figure.hpp"
 #include "exports/render.hpp"
@@ -36,26 +37,10 @@ int fail(int code, const std::string& msg) {
     return code;
 }
 
-std::optional<std::vector<double>> numbers(const std::string& text) {
-    std::vector<double> out;
-    std::size_t pos = 0;
-    while (pos <= text.size()) {
-        const std::size_t c = text.find(',', pos);
-        const std::string item = text.substr(pos, c == std::string::npos ? std::string::npos : c - pos);
-        char* end = nullptr;
-        const double v = std::strtod(item.c_str(), &end);
-        if (item.empty() || *end != '\0' || !std::isfinite(v)) return std::nullopt;
-        out.push_back(v);
-        if (c == std::string::npos) break;
-        pos = c + 1;
-    }
-    return out;
-}
-
 Result<CoverageRequest> request_of(const CoverageArgs& a) {
     CoverageRequest r;
     r.title = a.title;
-    auto lv = numbers(a.levels);
+    auto lv = parse_number_list(a.levels);
     if (!lv) return Error{"", 0, 0, "--levels: expected levels in dB separated by commas; found \"" + a.levels + "\""};
     r.levels_db = *lv;
     if (a.horizon_deg && !a.elevation.empty()) return Error{"", 0, 0, "choose --horizon or --elevation, not both"};
@@ -64,7 +49,7 @@ Result<CoverageRequest> request_of(const CoverageArgs& a) {
         r.band = horizon_band(*a.horizon_deg);
     }
     if (!a.elevation.empty()) {
-        auto e = numbers(a.elevation);
+        auto e = parse_number_list(a.elevation);
         if (!e || e->size() != 2 || !((*e)[0] < (*e)[1]) || (*e)[0] < -90 || (*e)[1] > 90)
             return Error{"", 0, 0, "--elevation: expected MIN,MAX in degrees, -90 <= MIN < MAX <= 90; found \"" + a.elevation + "\""};
         r.band = {(*e)[0], (*e)[1]};

@@ -9,6 +9,7 @@
 
 #include "cli/commands.hpp"
 #include "cli/load.hpp"
+#include "cli/number_list.hpp"
 #include "exports/map_plot.hpp"
 #include "exports/render.hpp"
 #include "io/atomic_write.hpp"
@@ -33,29 +34,6 @@ int fail(int code, const std::string& msg) {
     return code;
 }
 
-// "1,2.5,-3" -> numbers; "none" -> empty.
-std::optional<std::vector<double>> parse_numbers(const std::string& text) {
-    std::vector<double> out;
-    if (text == "none") return out;
-    std::size_t pos = 0;
-    while (pos <= text.size()) {
-        const std::size_t c = text.find(',', pos);
-        const std::string item = text.substr(pos, c == std::string::npos ? std::string::npos : c - pos);
-        std::size_t used = 0;
-        double v = 0;
-        try {
-            v = std::stod(item, &used);
-        } catch (...) {
-            return std::nullopt;
-        }
-        if (used != item.size() || !std::isfinite(v)) return std::nullopt;
-        out.push_back(v);
-        if (c == std::string::npos) break;
-        pos = c + 1;
-    }
-    return out;
-}
-
 Result<MapRequest> request_of(const MapArgs& a) {
     MapRequest r;
     r.title = a.title;
@@ -75,11 +53,11 @@ Result<MapRequest> request_of(const MapArgs& a) {
     if (!parse_color_map(a.colormap, r.sequential) || !is_sequential(r.sequential))
         return Error{"", 0, 0, "--colormap: expected viridis, cividis or magma; found \"" + a.colormap + "\""};
     if (!a.levels.empty()) {
-        r.levels = parse_numbers(a.levels);
+        r.levels = parse_number_list(a.levels, true);
         if (!r.levels) return Error{"", 0, 0, "--levels: expected numbers separated by commas, or none; found \"" + a.levels + "\""};
     }
     if (!a.scale.empty()) {
-        const auto s = parse_numbers(a.scale);
+        const auto s = parse_number_list(a.scale);
         if (!s || s->size() != 2 || !((*s)[0] < (*s)[1]))
             return Error{"", 0, 0, "--bar: expected MIN,MAX with MIN < MAX; found \"" + a.scale + "\""};
         r.scale_min = (*s)[0];
