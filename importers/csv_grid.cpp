@@ -183,13 +183,21 @@ Status check_grid_size(const GridPlan& g, std::size_t rows, FieldContent content
     for (int it = 0; it < g.grid.theta.count; ++it)
         needed += one_sample_pole(g.grid, it, content) ? 1 : g.grid.phi.count;
     needed *= nf;
-    // A grid the rows cannot fill is refused here when its arrays would be large against the
-    // input; a small one is allocated so the completeness check can name the missing points.
-    if (needed > (long double)rows && points > 4.0L * (long double)rows + 4096)
+    // Arrays large against the input are refused before they are allocated: a grid the rows
+    // cannot fill (a small one is allocated so that the completeness check names the missing
+    // points), or one where few rows stand for many points. A grid with rows off the poles has
+    // fewer than 3 points a row; only rings at the poles, each given by one sample, can have more.
+    const bool large = points > 4.0L * (long double)rows + 4096;
+    if (large && needed > (long double)rows)
         return Error{file, 0, 0,
                      "expected a value at every point of the grid (" + grid_text(g.grid, g.freqs.size()) + ": " +
                          number(double(points)) + " points, at least " + number(double(needed)) +
                          " rows), found only " + std::to_string(rows) + " data rows"};
+    if (large)
+        return Error{file, 0, 0,
+                     "expected at most 4 grid points per data row, found " + number(double(points)) + " points (" +
+                         grid_text(g.grid, g.freqs.size()) + ") from " + std::to_string(rows) +
+                         " rows: rows only at the poles, each standing for a ring of many phi values"};
     if (points > 4e9L) return Error{file, 0, 0, "expected at most 4e9 grid points, found " + number(double(points))};
     const long double need = points * (2 * sizeof(cplx) + 1);
     const std::size_t limit = o.memory_limit_bytes ? o.memory_limit_bytes : available_memory_bytes();

@@ -20,9 +20,11 @@ using SeenPoints = std::vector<std::vector<unsigned char>>;  // per frequency, p
 Result<GridPlan> plan_grid(const std::vector<Chunk>& chunks, const Layout& L, const TextSource& src,
                            const std::string& file);
 
-// Refuses a grid that `rows` data rows cannot fill when its arrays would be large (a small file
-// with N distinct values of each angle and frequency implies N^3 points), and arrays larger
-// than options.memory_limit_bytes (or the memory available). Cost: none.
+// Before allocation: refuses more than 4 points a row (plus 4096) when `rows` data rows cannot
+// fill the grid (a small file with N distinct values of each angle and frequency implies N^3
+// points) or when only pole rows stand for many phi; refuses arrays larger than
+// options.memory_limit_bytes (or the memory available). So the heap a read takes is bounded by
+// its input. Cost: none.
 Status check_grid_size(const GridPlan& g, std::size_t rows, FieldContent content, const CsvReadOptions& o,
                        const std::string& file);
 

@@ -1,7 +1,7 @@
 #!/usr/bin/env bash
 # ./dev check: the quality gates beyond ./dev test.
 #   1. AddressSanitizer + UndefinedBehaviorSanitizer build; core, importer and scene tests under it
-#   2. the importer fuzz target for a bounded time on its corpus
+#   2. the readers' fuzz targets (CSV, map file, profile, viewer settings) within FUZZ_SECONDS
 #   3. a headless viewer run under LeakSanitizer (errors from our code fail the gate), and the
 #      viewer robustness script under the sanitizers
 #   4. static analysis (cppcheck)
@@ -22,7 +22,7 @@ build-asan/tests/ellipsa_tests
 if [[ -x build-asan/tests/ellipsa_scene_tests ]]; then build-asan/tests/ellipsa_scene_tests; fi
 if [[ -x build-asan/tests/ellipsa_viewer_ui_tests ]]; then build-asan/tests/ellipsa_viewer_ui_tests; fi  # panels, no GPU
 
-echo "== 2. fuzzing the importer (${FUZZ_SECONDS} s) =="
+echo "== 2. fuzzing the readers (${FUZZ_SECONDS} s in all) =="
 if [[ -x tests/fuzz/run.sh ]]; then
   FUZZ_SECONDS=$FUZZ_SECONDS tests/fuzz/run.sh
 else

@@ -103,6 +103,17 @@ TEST_CASE("a tiny file whose values imply a huge grid is refused before allocati
     Error e = refuse_text(s);
     CHECK(e.line == 0);
     CHECK_THAT(e.message, Contains("8000000 points") && Contains("found only 200 data rows"));
+    // Complete, but only at the poles: 200 rows, one per frequency at theta 0 or 180, each with
+    // its own phi, would stand for 200 x 200 x 200 points.
+    s = "frequency,theta,phi,e_theta_re,e_theta_im,e_phi_re,e_phi_im\n";
+    for (int i = 0; i < n; ++i)
+        for (int pole : {0, 180}) {
+            char b[160];
+            std::snprintf(b, sizeof b, "%d,%d,%.17g,1,0,0,0\n", 1000 + i, pole, 359.0 * i / (n - 1));
+            s += b;
+        }
+    e = refuse_text(s);
+    CHECK_THAT(e.message, Contains("expected at most 4 grid points per data row") && Contains("from 400 rows"));
     // A small grid with a point missing is still allocated, so the missing point is named.
     e = refuse_text(header + "0,0,1,0,0,0\n0,90,1,0,0,0\n90,0,1,0,0,0\n");
     CHECK_THAT(e.message, Contains("found 1 missing: theta 90, phi 90 deg"));
