@@ -1,5 +1,10 @@
 // ellipsa render: a 3D snapshot of a pattern as PNG, through the headless EGL context (works with
-// no display at all).
+// no display at all), or the gain surface itself as a 3D file (.glb, .ply; no GL needed).
+#include <algorithm>
+#include <cctype>
+#include <cmath>
+#include <cstdio>
+#include <cstring>
 #include <filesystem>
 #include <iostream>
 #include <memory>
@@ -7,6 +12,10 @@
 
 #include "cli/commands.hpp"
 #include "cli/load.hpp"
+#include "cli/version.hpp"
+#include "exports/mesh_file.hpp"
+#include "io/atomic_write.hpp"
+#include "viewer/scene/surface_mesh.hpp"
 #include "viewer/snapshot.hpp"
 
 namespace ellipsa::cli {
@@ -32,11 +41,44 @@ bool parse_pair(const std::string& s, char sep, double& a, double& b) {
     }
 }
 
+bool ends_with(const std::string& s, const char* tail) {
+    const std::size_t n = std::strlen(tail);
+    return s.size() >= n && std::equal(s.end() - long(n), s.end(), tail, [](char a, char b) { return std::tolower(a) == b; });
+}
+
+// The surface the view shows (viewer/scene/surface_mesh), written as glTF binary or PLY.
+Status write_mesh_file(const FarFieldSet& s, const viewer::SnapshotOptions& o, const std::string& path, bool overwrite) {
+    viewer::SurfaceOptions so;
+    so.component = o.component;
+    so.color_by = o.color_by;
+    so.range_db = o.range_db;
+    so.gain_map = o.gain_map;
+    auto mesh = viewer::build_surface(s, o.frequency_index, so);
+    if (!mesh) return mesh.error();
+    exports::MeshView m;
+    m.vertices = mesh->vertices.data();
+    m.vertex_count = mesh->vertices.size() / viewer::surface_floats_per_vertex;
+    m.stride = viewer::surface_floats_per_vertex;
+    m.indices = mesh->triangles.data();
+    m.index_count = mesh->triangles.size();
+    exports::MeshFileInfo info;
+    info.name = (s.name.empty() ? std::string("pattern") : s.name) + ", " + format_frequency(s.frequencies[o.frequency_index].frequency_hz);
+    info.generator = version_text().substr(0, version_text().find('\n'));
+    char c[256];
+    std::snprintf(c, sizeof c, "; radius: %s from %.1f (centre) to %.1f %s (radius 1); colour: %s %g..%g %s; +z up",
+                  to_string(o.component), mesh->floor_db, mesh->peak_db, mesh->unit.c_str(), mesh->bar.title.c_str(),
+                  mesh->bar.min, mesh->bar.max, mesh->bar.unit.c_str());
+    info.comment = info.name + c;
+    const std::string bytes = ends_with(path, ".glb") ? exports::to_glb(m, info) : exports::to_ply(m, info);
+    return io::write_file_atomically(path, bytes, overwrite);
+}
+
 Registered add_render(CLI::App& root) {
     auto a = std::make_shared<RenderArgs>();
     CLI::App* sub = root.add_subcommand("render", "Write a 3D snapshot of a pattern (PNG, with colour bar); needs no display");
     sub->add_option("FILE", a->file, "Far-field CSV file")->required();
-    sub->add_option("--out", a->out, "Output PNG file")->required();
+    sub->add_option("--out", a->out, "Output file: .png (a snapshot), .glb (glTF 2.0 binary) or .ply (the surface as a 3D file)")
+        ->required();
     sub->add_option("--component", a->component,
                     "Radius from: total, theta, phi, vertical, horizontal, co, cross, rhcp, lhcp (default total)");
     sub->add_option("--color-by", a->color_by,
@@ -100,6 +142,14 @@ Registered add_render(CLI::App& root) {
                     return exit_bad_input;
                 }
                 o.frequency_index = *k;
+                if (ends_with(a->out, ".glb") || ends_with(a->out, ".ply")) {
+                    if (Status st = write_mesh_file(*s, o, a->out, a->force); !st) {
+                        std::cerr << "ellipsa render: " << st.error().format() << "\n";
+                        return exit_bad_input;
+                    }
+                    std::cout << "wrote " << a->out << " (the surface: radius 1 at the peak, +z up; glTF files +y up)\n";
+                    return exit_ok;
+                }
                 if (Status st = viewer::render_snapshot_png(*s, o, a->out, a->force); !st) {
                     std::cerr << "ellipsa render: " << st.error().format() << "\n";
                     return exit_bad_input;
