@@ -3,6 +3,9 @@
 #   docs/images/viewer-overview.png      the viewer under Xvfb with the three demo antennas
 #   docs/images/viewer-polarisation.png  a headless 3D snapshot coloured by axial ratio, with ellipses
 #   docs/images/small-loop-cut.png       a cut plot through the small loop's peak
+#   docs/images/turnstile-band.png       the turnstile's figures against frequency
+#   docs/images/turnstile-ar-map.png     the turnstile's axial ratio on Hammer's equal-area map
+#   docs/images/coverage-horizon.png     coverage near the horizon: dipole, loop, best of both
 set -euo pipefail
 cd "$(dirname "$0")/.."
 E=build/ellipsa
@@ -17,4 +20,9 @@ xvfb-run -a -s "-screen 0 1280x800x24" "$E" view "$X/printed-dipole.csv" "$X/tur
   --out "$I/viewer-polarisation.png" --force
 "$E" cut "$X/small-loop.csv" --frequency 2.45e9 --through-peak \
   --components total,vertical,horizontal,rhcp,lhcp --size 1000x750 --out "$I/small-loop-cut.png" --force
-echo "screenshots: wrote $I/viewer-overview.png, viewer-polarisation.png, small-loop-cut.png"
+"$E" band "$X/turnstile.csv" --show gain,efficiency,axial-ratio,ar-beamwidth --size 1000x800 \
+  --out "$I/turnstile-band.png" --force
+"$E" map "$X/turnstile.csv" --frequency 2.45e9 --show axial-ratio --size 1000x600 --out "$I/turnstile-ar-map.png" --force
+"$E" coverage "$X/printed-dipole.csv" "$X/small-loop.csv" --frequency 2.45e9 --horizon 30 --size 1000x750 \
+  --out "$I/coverage-horizon.png" --force
+echo "screenshots: wrote $I/viewer-overview.png, viewer-polarisation.png, small-loop-cut.png, turnstile-band.png, turnstile-ar-map.png, coverage-horizon.png"

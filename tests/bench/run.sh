@@ -15,6 +15,10 @@ echo "-- exports (time per cut figure, SVG/PNG/PDF from one drawing path) --"
 "$B/tests/bench_export" || echo "bench_export failed"
 
 echo
+echo "-- figures against frequency, maps, coverage (band plot over 100 frequencies: target < 1 s after loading) --"
+"$B/tests/bench_views" || echo "bench_views failed"
+
+echo
 echo "-- diversity (MEG, orientation sweep, envelope correlation) --"
 "$B/tests/bench_diversity" || echo "bench_diversity failed"
 
