@@ -104,7 +104,7 @@ int run_cut(const CutArgs& a) {
             std::cout << "  " << to_string(cut->components[i]) << ": no power on this cut\n";
             continue;
         }
-        const std::string u = component_unit(*s, cut->components[i]);
+        const std::string u = db_unit(s->quantity, cut->components[i]);
         char buf[96];
         std::snprintf(buf, sizeof buf, " at %s = %.1f deg", spec.angle_name(), b.peak_angle_deg);
         std::cout << "  " << to_string(cut->components[i]) << ": peak " << fmt(b.peak_db, u.c_str()) << buf << ", HPBW "

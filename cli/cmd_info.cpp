@@ -78,7 +78,7 @@ void write_json(const FarFieldSet& s, const std::vector<std::size_t>& which, con
 void write_human(const std::string& path, const FarFieldSet& s, const std::vector<std::size_t>& which,
                  const std::vector<PatternSummary>& rs) {
     const char* q = to_string(s.quantity);
-    const char* u = db_unit(q);
+    const char* u = db_unit(s.quantity, Component::total);
     std::cout << path << ": " << (s.name.empty() ? "(no name)" : s.name) << "\n";
     if (!s.source.empty()) std::cout << "  source       " << s.source << "\n";
     std::cout << "  quantity     " << q

@@ -114,8 +114,8 @@ Registered add_probe(CLI::App& root) {
                     std::cout << j.str() << "\n";
                     return exit_ok;
                 }
-                const char* u = db_unit(to_string(s->quantity));
-                const char* uc = db_unit(to_string(s->quantity), true);
+                const char* u = db_unit(s->quantity, Component::total);
+                const char* uc = db_unit(s->quantity, Component::rhcp);
                 auto line = [](const char* label, const std::string& v) { std::printf("  %-22s %s\n", label, v.c_str()); };
                 const char* np = "unavailable (needs phase)";
                 std::printf("%s at theta %g, phi %g deg, %s\n", a->file.c_str(), a->theta_deg, a->phi_deg,

@@ -2,7 +2,6 @@
 
 #include <cmath>
 #include <cstdio>
-#include <cstring>
 
 namespace ellipsa::cli {
 
@@ -21,11 +20,6 @@ std::string fmt(double v, const char* unit, int decimals) {
 
 std::string fmt(const std::optional<double>& v, const char* unit, int decimals, const char* missing) {
     return v ? fmt(*v, unit, decimals) : std::string(missing);
-}
-
-const char* db_unit(const char* quantity, bool circular) {
-    if (std::strcmp(quantity, "relative") == 0) return "dB";
-    return circular ? "dBic" : "dBi";
 }
 
 }  // namespace ellipsa::cli

@@ -9,7 +9,5 @@ namespace ellipsa::cli {
 std::string fmt(const std::optional<double>& v, const char* unit, int decimals = 2,
                 const char* missing = "unavailable");
 std::string fmt(double v, const char* unit, int decimals = 2);
-// The dB unit of a quantity: dBi for gain and directivity, dB for relative data.
-const char* db_unit(const char* quantity, bool circular = false);
 
 }  // namespace ellipsa::cli

@@ -43,7 +43,7 @@ void edge_markers(XyPanel& p, const std::optional<BandEdges>& e, const std::stri
     add_marker(p, e->upper_hz, what + (e->upper_open ? " (open)" : ""));
 }
 
-std::string db_unit(const std::vector<BandSet>& sets) {
+std::string band_db_unit(const std::vector<BandSet>& sets) {
     for (const BandSet& b : sets)
         if (b.set->quantity == Quantity::relative) return "dB";
     return "dBi";
@@ -59,7 +59,7 @@ XyPanel panel(BandPanel kind, const std::vector<BandSet>& sets, const std::vecto
     switch (kind) {
         case BandPanel::gain:
             p.y_label = "Peak";
-            p.y_unit = db_unit(sets);
+            p.y_unit = band_db_unit(sets);
             add(0, "peak", [](const FrequencyFigures& f) { return f.summary.peak_db; });
             add(1, "directivity", [](const FrequencyFigures& f) { return or_nan(f.summary.directivity_dbi); });
             if (n == 1) {

@@ -20,14 +20,14 @@ Result<std::vector<CoverageSeries>> coverage_series(const std::vector<const FarF
         for (std::size_t i = 0; i < sets.size(); ++i) {
             if (auto why = component_unavailable(*sets[i], c)) return Error{"", 0, 0, labels[i] + ": " + *why};
             values.push_back(component_power_samples(*sets[i], fi[i], c));
-            const std::string name = component_label(c, sets[i]->ludwig3_reference);
-            out.push_back({labels[i].empty() ? name : labels[i] + " " + name, c, int(i), component_unit(*sets[i], c),
+            const std::string name = long_label(c, sets[i]->ludwig3_reference);
+            out.push_back({labels[i].empty() ? name : labels[i] + " " + name, c, int(i), db_unit(sets[i]->quantity, c),
                            coverage_curve(sets[i]->grid, values.back(), r.band)});
         }
         if (sets.size() == 2) {
             const std::vector<double> b_on_a = component_power_on_grid(*sets[1], fi[1], c, sets[0]->grid);
-            out.push_back({"best of both, " + component_label(c, sets[0]->ludwig3_reference), c, -1,
-                           component_unit(*sets[0], c), coverage_curve(sets[0]->grid, best_of(values[0], b_on_a), r.band)});
+            out.push_back({"best of both, " + long_label(c, sets[0]->ludwig3_reference), c, -1,
+                           db_unit(sets[0]->quantity, c), coverage_curve(sets[0]->grid, best_of(values[0], b_on_a), r.band)});
         }
     }
     return out;

@@ -1,42 +1,12 @@
 #include "exports/cut_figure.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <cstdio>
 
 #include "exports/csv_text.hpp"
 
 namespace ellipsa::exports {
-
-std::optional<std::string> component_unavailable(const FarFieldSet& s, Component c) {
-    if (s.content == FieldContent::total_only && c != Component::total)
-        return std::string("component \"") + to_string(c) +
-               "\" needs E_theta and E_phi separately, but the data hold only the total power";
-    if (needs_phase(c) && !s.has_phase())
-        return std::string("component \"") + to_string(c) + "\" needs the phase between E_theta and E_phi, but the data are " +
-               to_string(s.content) + " (no phase); use total, theta, phi, vertical or horizontal";
-    return std::nullopt;
-}
-
-std::string component_label(Component c, Ludwig3Reference ref) {
-    const std::string l3 = ref == Ludwig3Reference::x ? " (Ludwig-3, x ref.)" : " (Ludwig-3, y ref.)";
-    switch (c) {
-        case Component::total: return "Total";
-        case Component::theta: return "θ component";
-        case Component::phi: return "φ component";
-        case Component::vertical: return "Vertical";
-        case Component::horizontal: return "Horizontal";
-        case Component::co: return "Co-polar" + l3;
-        case Component::cross: return "Cross-polar" + l3;
-        case Component::rhcp: return "RHCP";
-        case Component::lhcp: return "LHCP";
-    }
-    return "?";
-}
-
-std::string component_unit(const FarFieldSet& s, Component c) {
-    if (s.quantity == Quantity::relative) return "dB";
-    return c == Component::rhcp || c == Component::lhcp ? "dBic" : "dBi";
-}
 
 Result<std::vector<Component>> parse_component_list(const std::string& text) {
     std::vector<Component> out;
@@ -126,7 +96,7 @@ std::string lower(std::string s) {
 
 std::string cut_csv(const FarFieldSet& s, const CutData& c) {
     std::string out = "angle_deg,theta_deg,phi_deg";
-    for (Component comp : c.components) out += std::string(",") + to_string(comp) + "_" + lower(component_unit(s, comp));
+    for (Component comp : c.components) out += std::string(",") + to_string(comp) + "_" + lower(db_unit(s.quantity, comp));
     out += "\n";
     const CutSamples& x = c.samples;
     out.reserve(out.size() + x.angle_deg.size() * (3 + c.components.size()) * 20);
@@ -148,19 +118,10 @@ std::string cut_csv(const FarFieldSet& s, const CutData& c) {
 
 namespace {
 
-std::string quantity_label(Quantity q) {
-    switch (q) {
-        case Quantity::gain: return "Gain";
-        case Quantity::directivity: return "Directivity";
-        case Quantity::relative: return "Relative power";
-    }
-    return "Power";
-}
-
 PlotCurve curve_of(const FarFieldSet& s, const CutData& c, std::size_t i, const std::string& prefix) {
     PlotCurve pc;
-    pc.label = prefix + component_label(c.components[i], s.ludwig3_reference);
-    pc.unit = component_unit(s, c.components[i]);
+    pc.label = prefix + long_label(c.components[i], s.ludwig3_reference);
+    pc.unit = db_unit(s.quantity, c.components[i]);
     pc.angle_deg = c.samples.angle_deg;
     pc.value_db.resize(c.power[i].size());
     for (std::size_t k = 0; k < pc.value_db.size(); ++k) pc.value_db[k] = std::isnan(c.power[i][k]) ? NAN : to_db(c.power[i][k]);
@@ -181,9 +142,14 @@ CutPlot make_cut_plot(const FarFieldSet& s, const CutData& c, const FigureOption
     p.title = o.title.empty() ? (s.name.empty() ? std::string("Far-field cut") : s.name) : o.title;
     const double f = s.frequencies[c.freq_index].frequency_hz;
     p.value_label = quantity_label(s.quantity);
-    bool lin = false, circ = false;
-    for (Component k : c.components) (k == Component::rhcp || k == Component::lhcp ? circ : lin) = true;
-    p.value_unit = s.quantity == Quantity::relative ? "dB" : lin && circ ? "dBi, dBic" : circ ? "dBic" : "dBi";
+    // The distinct units of the plotted components, linear parts first: "dBi", "dBic", "dBi, dBic" or "dB".
+    std::vector<std::string> units;
+    for (bool circular : {false, true})
+        for (Component k : c.components)
+            if (is_circular(k) == circular && std::find(units.begin(), units.end(), db_unit(s.quantity, k)) == units.end())
+                units.push_back(db_unit(s.quantity, k));
+    p.value_unit.clear();
+    for (const std::string& u : units) p.value_unit += (p.value_unit.empty() ? "" : ", ") + u;
     p.subtitle = describe_cut(c.spec) + "  ·  " + format_frequency(f) + "  ·  " + p.value_label + " (" + p.value_unit + ")";
     switch (c.spec.kind) {
         case CutKind::phi_const: {

@@ -10,18 +10,11 @@
 #include "exports/cut_plot.hpp"
 #include "pattern/cut.hpp"
 #include "pattern/far_field.hpp"
-#include "pattern/polarisation.hpp"
+#include "pattern/components.hpp"
 #include "pattern/result.hpp"
 
 namespace ellipsa::exports {
 
-// Why a set cannot give a component honestly (circular and Ludwig-3 parts need the phase
-// between E_theta and E_phi; total-only data has no theta/phi split); nullopt when it can.
-std::optional<std::string> component_unavailable(const FarFieldSet& s, Component c);
-// Legend text: "Total", "θ component", "RHCP", "Co-polar (Ludwig-3 x)", ...
-std::string component_label(Component c, Ludwig3Reference ref);
-// "dBi", "dBic" (circular components) or "dB" (relative data).
-std::string component_unit(const FarFieldSet& s, Component c);
 // Parse "total,rhcp,lhcp"; the Error names the unknown entry and lists the known names.
 Result<std::vector<Component>> parse_component_list(const std::string& text);
 

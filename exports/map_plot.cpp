@@ -22,12 +22,12 @@ std::string lower(std::string s) {
 
 // Label, unit, colour map, bar ends and default contour levels of a map.
 void set_scale(MapPlot& p, const FarFieldSet& s, const MapRequest& r, double peak_db) {
-    const std::string comp = component_label(r.component, s.ludwig3_reference);
+    const std::string comp = long_label(r.component, s.ludwig3_reference);
     std::vector<double> levels;
     switch (r.quantity) {
         case MapQuantity::component: {
             p.bar_label = comp;
-            p.unit = component_unit(s, r.component);
+            p.unit = db_unit(s.quantity, r.component);
             p.map = r.sequential;
             p.hi = std::ceil(peak_db - 1e-9);
             p.lo = p.hi - r.range_db;
@@ -83,7 +83,7 @@ Result<MapPlot> make_map_plot(const FarFieldSet& s, std::size_t fi, const MapReq
     if (pk.value > 0)
         p.mark = MapMark{pk.theta_deg, pk.phi_deg,
                          (r.quantity == MapQuantity::component ? "peak " : "peak of the total, ") + num(to_db(pk.value), 2) +
-                             " " + component_unit(s, marked)};
+                             " " + db_unit(s.quantity, marked)};
     std::string cl;
     for (const MapPlot::Contour& c : p.contours) cl += (cl.empty() ? "" : ", ") + num(c.level, 1) + " " + p.unit;
     if (!cl.empty())

@@ -189,7 +189,7 @@ struct Renderer {
 std::string components_text(const std::vector<Component>& comps, Ludwig3Reference ref) {
     std::string s;
     for (std::size_t i = 0; i < comps.size(); ++i)
-        s += (i == 0 ? "" : i + 1 == comps.size() ? " and " : ", ") + component_label(comps[i], ref);
+        s += (i == 0 ? "" : i + 1 == comps.size() ? " and " : ", ") + long_label(comps[i], ref);
     return s;
 }
 

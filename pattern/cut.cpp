@@ -134,16 +134,20 @@ CutSamples sample_cut(const FarFieldSet& s, std::size_t fi, const CutSpec& spec,
 }
 
 std::vector<double> cut_power(const FarFieldSet& s, const CutSamples& c, Component comp) {
-    std::vector<double> out(c.angle_deg.size(), std::numeric_limits<double>::quiet_NaN());
-    for (std::size_t k = 0; k < out.size(); ++k) {
-        if (!c.valid[k]) continue;
-        if (comp == Component::total) {
-            out[k] = std::norm(c.e_theta[k]) + std::norm(c.e_phi[k]);
-        } else {
-            PolarisationState st = decompose(c.e_theta[k], c.e_phi[k], c.phi_deg[k] * deg, s.ludwig3_reference);
-            out[k] = component_power(st, comp);
+    const std::size_t n = c.angle_deg.size();
+    std::vector<double> out(n), cos_p, sin_p;
+    if (comp == Component::co || comp == Component::cross) {
+        cos_p.resize(n);
+        sin_p.resize(n);
+        for (std::size_t k = 0; k < n; ++k) {
+            cos_p[k] = std::cos(c.phi_deg[k] * deg);
+            sin_p[k] = std::sin(c.phi_deg[k] * deg);
         }
     }
+    component_power_many(n, c.e_theta.data(), c.e_phi.data(), cos_p.data(), sin_p.data(), s.ludwig3_reference, comp,
+                         out.data());
+    for (std::size_t k = 0; k < n; ++k)
+        if (!c.valid[k]) out[k] = std::numeric_limits<double>::quiet_NaN();
     return out;
 }
 

@@ -13,6 +13,7 @@
 #include <vector>
 
 #include "pattern/far_field.hpp"
+#include "pattern/components.hpp"
 #include "pattern/polarisation.hpp"
 
 namespace ellipsa {

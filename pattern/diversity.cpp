@@ -40,13 +40,6 @@ Status check_solid_angle(const Grid& g) {
     return Ok{};
 }
 
-bool same_grid(const Grid& a, const Grid& b) {
-    auto eq = [](double x, double y) { return std::abs(x - y) <= 1e-9 * std::max(1.0, std::abs(x)); };
-    return a.theta.count == b.theta.count && a.phi.count == b.phi.count && eq(a.theta.start_deg, b.theta.start_deg) &&
-           eq(a.theta.step_deg, b.theta.step_deg) && eq(a.phi.start_deg, b.phi.start_deg) &&
-           eq(a.phi.step_deg, b.phi.step_deg);
-}
-
 // Per-sample partial gains of one frequency, already scaled to gain.
 struct PartialGains {
     std::vector<double> gtt, gpp, gtp;  // |E_theta|^2, |E_phi|^2, Re(E_theta conj(E_phi))

@@ -1,5 +1,6 @@
 #include "pattern/far_field.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <cstdio>
 #include <limits>
@@ -27,6 +28,13 @@ const char* to_string(FieldContent c) {
 bool Grid::phi_wraps() const { return std::abs(phi.count * phi.step_deg - 360.0) < 1e-6 * 360.0; }
 bool Grid::has_north_pole() const { return std::abs(theta.start_deg) < 1e-9; }
 bool Grid::has_south_pole() const { return std::abs(theta.last_deg() - 180.0) < 1e-9; }
+
+bool same_grid(const Grid& a, const Grid& b) {
+    auto eq = [](double x, double y) { return std::abs(x - y) <= 1e-9 * std::max(1.0, std::abs(x)); };
+    return a.theta.count == b.theta.count && a.phi.count == b.phi.count && eq(a.theta.start_deg, b.theta.start_deg) &&
+           eq(a.theta.step_deg, b.theta.step_deg) && eq(a.phi.start_deg, b.phi.start_deg) &&
+           eq(a.phi.step_deg, b.phi.step_deg);
+}
 
 Grid full_sphere_grid(double theta_step_deg, double phi_step_deg) {
     Grid g;

@@ -53,6 +53,13 @@ struct Grid {
     bool has_south_pole() const;
 };
 
+// True when two grids sample the same directions: equal counts, and starts and steps equal to a
+// relative 1e-9 (|x - y| <= 1e-9 max(1, |x|)). Angles that went through text (a file's "0.1"
+// steps summed, or a step computed as span / (count - 1)) differ in their last bits; exact
+// equality would call such grids different and send the caller to interpolation for nothing.
+// At 1e-9 the sample directions agree to well under 1e-6 deg over a whole turn.
+bool same_grid(const Grid& a, const Grid& b);
+
 // Build a full-sphere grid with the given steps: theta 0..180 inclusive, phi 0..360 exclusive.
 // The steps must divide 180 and 360 (callers check; the result is rounded to whole counts).
 Grid full_sphere_grid(double theta_step_deg, double phi_step_deg);

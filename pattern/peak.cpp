@@ -3,18 +3,11 @@
 #include <algorithm>
 #include <cmath>
 #include <limits>
+#include <vector>
 
 namespace ellipsa {
 
 namespace {
-
-double sample_power(const FarFieldSet& s, const FarField& f, int it, int ip, Component c) {
-    const std::size_t k = s.grid.index(it, ip);
-    if (c == Component::total) return std::norm(f.e_theta[k]) + std::norm(f.e_phi[k]);
-    PolarisationState st =
-        decompose(f.e_theta[k], f.e_phi[k], s.grid.phi.value_deg(ip) * deg, s.ludwig3_reference);
-    return component_power(st, c);
-}
 
 // Parabola through (-1, ym), (0, y0), (1, yp): offset of the vertex in [-0.5, 0.5] and the rise.
 bool parabola(double ym, double y0, double yp, double& offset, double& rise) {
@@ -31,12 +24,14 @@ bool parabola(double ym, double y0, double yp, double& offset, double& rise) {
 
 Peak find_peak(const FarFieldSet& s, std::size_t fi, Component c) {
     const Grid& g = s.grid;
-    const FarField& f = s.frequencies[fi];
+    std::vector<double> power(g.size());
+    component_power_grid(s, fi, c, power.data());
+    auto sample_power = [&](int it, int ip) { return power[g.index(it, ip)]; };
     Peak pk;
     double best = -1;
     for (int i = 0; i < g.theta.count; ++i)
         for (int j = 0; j < g.phi.count; ++j) {
-            double v = sample_power(s, f, i, j, c);
+            double v = sample_power(i, j);
             // Ties within rounding keep the first sample (lowest theta, then phi), so symmetric
             // patterns report the same peak on every machine.
             if (v > best * (1 + 1e-9) || (best <= 0 && v > best)) {
@@ -65,16 +60,16 @@ Peak find_peak(const FarFieldSet& s, std::size_t fi, Component c) {
     };
     double ym = std::numeric_limits<double>::quiet_NaN(), yp = ym;
     if (it > 0)
-        ym = to_db(sample_power(s, f, it - 1, ip, c));
+        ym = to_db(sample_power(it - 1, ip));
     else if (g.has_north_pole() && nt > 1) {
         int jo = opposite_column(ip);
-        if (jo >= 0) ym = to_db(sample_power(s, f, 1, jo, c));
+        if (jo >= 0) ym = to_db(sample_power(1, jo));
     }
     if (it < nt - 1)
-        yp = to_db(sample_power(s, f, it + 1, ip, c));
+        yp = to_db(sample_power(it + 1, ip));
     else if (g.has_south_pole() && nt > 1) {
         int jo = opposite_column(ip);
-        if (jo >= 0) yp = to_db(sample_power(s, f, nt - 2, jo, c));
+        if (jo >= 0) yp = to_db(sample_power(nt - 2, jo));
     }
     double off, rise;
     if (parabola(ym, y0, yp, off, rise)) {
@@ -99,8 +94,8 @@ Peak find_peak(const FarFieldSet& s, std::size_t fi, Component c) {
             jp = (ip + 1) % np;
         }
         if (jm >= 0 && jp < np) {
-            double zm = to_db(sample_power(s, f, it, jm, c));
-            double zp = to_db(sample_power(s, f, it, jp, c));
+            double zm = to_db(sample_power(it, jm));
+            double zp = to_db(sample_power(it, jp));
             if (parabola(zm, y0, zp, off, rise)) {
                 pk.phi_deg = wrap360(pk.phi_deg + off * g.phi.step_deg);
                 rise_total += rise;

@@ -4,7 +4,7 @@
 #include <functional>
 
 #include "pattern/far_field.hpp"
-#include "pattern/polarisation.hpp"
+#include "pattern/components.hpp"
 
 namespace ellipsa {
 

@@ -13,6 +13,7 @@
 #include <limits>
 #include <vector>
 
+#include "pattern/components.hpp"
 #include "pattern/far_field.hpp"
 
 namespace ellipsa {
@@ -77,55 +78,7 @@ struct PolarisationState {
 
 PolarisationState decompose(cplx et, cplx ep, double phi_rad, Ludwig3Reference ref);
 
-// The components the tool can show, one name each (used by CLI, viewer and exports).
-enum class Component { total, theta, phi, vertical, horizontal, co, cross, rhcp, lhcp };
-inline constexpr Component all_components[] = {Component::total, Component::theta,  Component::phi,
-                                               Component::vertical, Component::horizontal,
-                                               Component::co, Component::cross, Component::rhcp,
-                                               Component::lhcp};
-const char* to_string(Component c);
-// Parse a component name ("total", "theta", "rhcp", ...); returns false when unknown.
-bool parse_component(const char* name, Component& out);
-// True when the component needs phase: circular parts and Ludwig-3 co/cross mix E_theta and E_phi coherently.
-bool needs_phase(Component c);
 // Linear power of a component from a decomposed state.
 double component_power(const PolarisationState& s, Component c);
-
-// Batch kernel over many directions (structure of arrays in and out). The direction enters only
-// through cos(phi) and sin(phi) for Ludwig-3 (on a grid they are per column; from a direction
-// vector they are x/rho and y/rho), so the kernel needs no trigonometry but one atan2 per
-// direction for the tilt; no allocation.
-struct DecompositionArrays {
-    double* total;
-    double* theta;
-    double* phi;
-    double* rhcp;
-    double* lhcp;
-    double* co;
-    double* cross;
-    double* axial_ratio;  // linear, +inf for linear fields
-    double* tilt_deg;
-    double* stokes_i;
-    double* stokes_q;
-    double* stokes_u;
-    double* stokes_v;
-};
-// Output storage for decompose_many: all thirteen arrays in one allocation, each start staggered
-// by a few cache lines. Thirteen separately allocated large arrays all begin on a page boundary,
-// and their stores then alias in the cache (4K aliasing): the kernel ran 2.5x slower that way.
-class DecompositionBuffer {
-public:
-    explicit DecompositionBuffer(std::size_t n);
-    const DecompositionArrays& arrays() const { return arrays_; }
-    std::size_t size() const { return n_; }
-
-private:
-    std::size_t n_;
-    std::vector<double> storage_;
-    DecompositionArrays arrays_{};
-};
-
-void decompose_many(std::size_t n, const cplx* e_theta, const cplx* e_phi, const double* cos_phi,
-                    const double* sin_phi, Ludwig3Reference ref, const DecompositionArrays& out);
 
 }  // namespace ellipsa

@@ -159,10 +159,10 @@ void cut_controls(const AppState& s, const FarFieldSet& a, float width, Intents&
     int shown = 0;
     for (Component c : all_components) {
         if (c == Component::vertical || c == Component::horizontal) continue;  // same as theta and phi here
-        if (!unavailable_reason(a, c).empty()) continue;
+        if (component_unavailable(a, c)) continue;
         bool on = (st.cut_components >> unsigned(c)) & 1u;
         if (shown++ % 2) ImGui::SameLine(width * 0.5f);
-        const char* short_name = c == Component::co ? "Co-polar" : c == Component::cross ? "Cross-polar" : label_of(c);
+        const char* short_name = short_label(c);
         if (ImGui::Checkbox(short_name, &on)) st.cut_components ^= 1u << unsigned(c);
     }
     if (!(st == s.settings)) in.push_back(intent::ChangeSettings{st});
@@ -176,7 +176,7 @@ void cut_legend(const AppState& s, const CutData& cd, ImDrawList* dl, float lx, 
     for (std::size_t k = 0; k < cd.curves.size(); ++k) {
         const CutCurve& cv = cd.curves[k];
         dl->AddLine(ImVec2(lx, ly + 8), ImVec2(lx + 22, ly + 8), curve_colors[k % 9], cv.pattern == 0 ? 2.5f : 1.5f);
-        const std::string name = std::string(label_of(cv.component)) + (s.compare_pattern() ? (cv.pattern == 0 ? " (A)" : " (B)") : "");
+        const std::string name = std::string(short_label(cv.component)) + (s.compare_pattern() ? (cv.pattern == 0 ? " (A)" : " (B)") : "");
         dl->AddText(ImVec2(lx + 28, ly), ink, name.c_str());
         ly += 18;
     }

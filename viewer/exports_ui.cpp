@@ -31,7 +31,7 @@ Result<std::string> cut_bytes(const AppState& s, const CutData& cut, exports::Fi
     if (const LoadedPattern* b = s.compare_pattern()) {
         std::vector<Component> bc;
         for (Component c : comps)
-            if (!exports::component_unavailable(b->set, c)) bc.push_back(c);
+            if (!component_unavailable(b->set, c)) bc.push_back(c);
         if (auto cb = exports::compute_cut(b->set, s.freq_for(*b), cut.spec, bc)) {
             for (exports::PlotCurve& c : plot.curves) c.label = a->set.name + ": " + c.label;
             exports::add_curves(plot, b->set, *cb, b->set.name + ": ");

@@ -202,7 +202,7 @@ void draw_view_overlay(const AppState& s, const Derived& d, const Layout& L, con
     if (const LoadedPattern* b = s.compare_pattern(); b && s.settings.color_by == ColorBy::difference) title += "  minus  " + b->set.name;
     bg->AddText(fonts.title, fonts.title->FontSize, ImVec2(o.x + 12, o.y + 8), ink, title.c_str());
     char line[200];
-    std::snprintf(line, sizeof line, "radius: %s, peak %.2f %s, range %g dB", label_of(s.settings.component), sv.mesh.peak_db,
+    std::snprintf(line, sizeof line, "radius: %s, peak %.2f %s, range %g dB", short_label(s.settings.component), sv.mesh.peak_db,
                   sv.mesh.unit.c_str(), s.settings.range_db);
     bg->AddText(fonts.small, fonts.small->FontSize, ImVec2(o.x + 12, o.y + 32), muted, line);
     if (!sv.error.empty()) bg->AddText(fonts.body, fonts.body->FontSize, ImVec2(o.x + 12, o.y + 52), IM_COL32(150, 40, 20, 255), sv.error.c_str());

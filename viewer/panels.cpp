@@ -170,10 +170,11 @@ namespace {
 void surface_choices(const AppState& s, ViewerSettings& st) {
     const LoadedPattern* a = s.active_pattern();
     ImGui::SetNextItemWidth(-90);
-    if (ImGui::BeginCombo("Radius", label_of(st.component))) {
+    const Ludwig3Reference l3 = a ? a->set.ludwig3_reference : Ludwig3Reference::x;
+    if (ImGui::BeginCombo("Radius", long_label(st.component, l3).c_str())) {
         for (Component c : all_components) {
-            const std::string why = a ? unavailable_reason(a->set, c) : "";
-            if (ImGui::Selectable(label_of(c), c == st.component, why.empty() ? 0 : ImGuiSelectableFlags_Disabled)) st.component = c;
+            const std::string why = a ? component_unavailable(a->set, c).value_or("") : "";
+            if (ImGui::Selectable(long_label(c, l3).c_str(), c == st.component, why.empty() ? 0 : ImGuiSelectableFlags_Disabled)) st.component = c;
             if (!why.empty() && ImGui::IsItemHovered(ImGuiHoveredFlags_AllowWhenDisabled)) ImGui::SetTooltip("%s", why.c_str());
         }
         ImGui::EndCombo();
@@ -182,7 +183,7 @@ void surface_choices(const AppState& s, ViewerSettings& st) {
     ImGui::SetNextItemWidth(-90);
     if (ImGui::BeginCombo("Colour", label_of(st.color_by))) {
         for (ColorBy c : all_color_by) {
-            std::string why = a ? unavailable_reason(a->set, c) : "";
+            std::string why = a ? color_by_unavailable(a->set, c).value_or("") : "";
             if (c == ColorBy::difference && !s.compare_pattern()) why = "Tick B beside a second pattern first";
             if (ImGui::Selectable(label_of(c), c == st.color_by, why.empty() ? 0 : ImGuiSelectableFlags_Disabled)) st.color_by = c;
             if (!why.empty() && ImGui::IsItemHovered(ImGuiHoveredFlags_AllowWhenDisabled)) ImGui::SetTooltip("%s", why.c_str());
@@ -291,7 +292,7 @@ void compare_rows(const AppState& s, const DirectionProbe& p) {
     const Component c = s.settings.component;
     const std::optional<double> va = p.a.db_of(c), vb = p.b->db_of(c);
     if (!vb) return;
-    table_row((std::string("B: ") + label_of(c)).c_str(), db_text(*vb, db_unit(b->set.quantity, c)), "The same component of the compared pattern B");
+    table_row((std::string("B: ") + short_label(c)).c_str(), db_text(*vb, db_unit(b->set.quantity, c)), "The same component of the compared pattern B");
     if (va && std::isfinite(*va) && std::isfinite(*vb)) {
         char d[48];
         std::snprintf(d, sizeof d, "%+.2f dB", *va - *vb);
@@ -310,7 +311,7 @@ void probe_table(const AppState& s, const char* title, const DirectionProbe& p) 
         table_row("", "outside the sampled region");
     } else {
         for (const ComponentValue& v : p.a.components)
-            table_row(label_of(v.component), db_text(v.db, db_unit(a->set.quantity, v.component)), definition(v.component));
+            table_row(short_label(v.component), db_text(v.db, db_unit(a->set.quantity, v.component)), definition(v.component));
         if (p.a.polarisation) polarisation_rows(*p.a.polarisation);
         else table_row("Polarisation", "needs phase (file is " + std::string(to_string(a->set.content)) + ")");
         compare_rows(s, p);

@@ -100,7 +100,7 @@ Result<std::vector<std::uint8_t>> render_snapshot_rgba(const FarFieldSet& s, con
                                     format_frequency(s.frequencies[o.frequency_index].frequency_hz);
     dl->AddText(fonts.title, fonts.title->FontSize, ImVec2(16 * scale, 12 * scale), ink, title.c_str());
     char line[256];
-    std::snprintf(line, sizeof line, "radius: %s, %.4g %s at the peak, %g dB dynamic range", label_of(o.component),
+    std::snprintf(line, sizeof line, "radius: %s, %.4g %s at the peak, %g dB dynamic range", short_label(o.component),
                   mesh->peak_db, mesh->unit.c_str(), o.range_db);
     dl->AddText(fonts.small, fonts.small->FontSize, ImVec2(16 * scale, 12 * scale + fonts.title->FontSize * 1.35f), muted, line);
     std::snprintf(line, sizeof line, "view from azimuth %g\u00b0, elevation %g\u00b0", o.view_azimuth_deg, o.view_elevation_deg);

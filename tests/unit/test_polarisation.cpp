@@ -1,6 +1,9 @@
 // Polarisation decomposition against IEEE Std 145-2013 definitions and Balanis sec. 2.12.
 #include <catch2/catch.hpp>
 
+#include <algorithm>
+
+#include "pattern/components.hpp"
 #include "pattern/polarisation.hpp"
 #include "pattern/reference.hpp"
 
@@ -105,10 +108,11 @@ TEST_CASE("Ludwig-3 co-polar of an x-polarised aperture field is the x component
         }
 }
 
-TEST_CASE("the batch kernel agrees with the per-sample decomposition", "[polarisation]") {
+TEST_CASE("the component power kernels agree with the per-sample decomposition", "[polarisation][components]") {
+    // The batch kernel and the grid form against decompose() (the definitions in conventions.md).
     const std::size_t n = 64;
     std::vector<cplx> et(n), ep(n);
-    std::vector<double> ph(n), cph(n), sph(n);
+    std::vector<double> ph(n), cph(n), sph(n), out(n);
     for (std::size_t k = 0; k < n; ++k) {
         et[k] = std::polar(1.0 + 0.1 * double(k % 7), 0.3 * double(k));
         ep[k] = std::polar(0.5 + 0.05 * double(k % 5), -0.17 * double(k));
@@ -116,22 +120,74 @@ TEST_CASE("the batch kernel agrees with the per-sample decomposition", "[polaris
         cph[k] = std::cos(ph[k]);
         sph[k] = std::sin(ph[k]);
     }
-    std::vector<double> b[13];
-    for (auto& v : b) v.resize(n);
-    DecompositionArrays o{b[0].data(), b[1].data(), b[2].data(), b[3].data(),  b[4].data(),
-                          b[5].data(), b[6].data(), b[7].data(), b[8].data(),  b[9].data(),
-                          b[10].data(), b[11].data(), b[12].data()};
-    for (auto ref : {Ludwig3Reference::x, Ludwig3Reference::y}) {
-        decompose_many(n, et.data(), ep.data(), cph.data(), sph.data(), ref, o);
-        for (std::size_t k = 0; k < n; ++k) {
-            PolarisationState s = decompose(et[k], ep[k], ph[k], ref);
-            CHECK(o.total[k] == Approx(s.total));
-            CHECK(o.rhcp[k] == Approx(s.rhcp).margin(1e-12));
-            CHECK(o.lhcp[k] == Approx(s.lhcp).margin(1e-12));
-            CHECK(o.co[k] == Approx(s.co).margin(1e-12));
-            CHECK(o.cross[k] == Approx(s.cross).margin(1e-12));
-            CHECK(o.axial_ratio[k] == Approx(s.axial_ratio));
-            CHECK(o.tilt_deg[k] == Approx(s.tilt_deg).margin(1e-9));
+    for (auto ref : {Ludwig3Reference::x, Ludwig3Reference::y})
+        for (Component c : all_components) {
+            component_power_many(n, et.data(), ep.data(), cph.data(), sph.data(), ref, c, out.data());
+            for (std::size_t k = 0; k < n; ++k) {
+                const double want = component_power(decompose(et[k], ep[k], ph[k], ref), c);
+                CHECK(out[k] == Approx(want).margin(1e-12));
+                CHECK(component_power(et[k], ep[k], cph[k], sph[k], ref, c) == Approx(want).margin(1e-12));
+            }
         }
+    ReferenceAntenna a;
+    a.kind = ReferenceKind::crossed_dipoles;
+    a.phase_deg = 60;
+    FarFieldSet s = synthesize(a, 15, 1e9);
+    s.ludwig3_reference = Ludwig3Reference::y;
+    std::vector<double> grid(s.grid.size(), -1.0);
+    for (Component c : all_components) {
+        component_power_grid(s, 0, c, grid.data());
+        for (int i = 0; i < s.grid.theta.count; ++i)
+            for (int j = 0; j < s.grid.phi.count; ++j) {
+                const std::size_t k = s.grid.index(i, j);
+                const double want = component_power(
+                    decompose(s.frequencies[0].e_theta[k], s.frequencies[0].e_phi[k], s.grid.phi.value_deg(j) * deg,
+                              s.ludwig3_reference), c);
+                CHECK(grid[k] == Approx(want).margin(1e-12));
+            }
     }
+    // A row range writes those rows only.
+    std::fill(grid.begin(), grid.end(), -1.0);
+    component_power_grid(s, 0, Component::co, grid.data(), 2, 4);
+    CHECK(grid[s.grid.index(1, 3)] == -1.0);
+    CHECK(grid[s.grid.index(2, 3)] >= 0);
+    CHECK(grid[s.grid.index(3, 0)] >= 0);
+    CHECK(grid[s.grid.index(4, 0)] == -1.0);
+}
+
+TEST_CASE("component facts: names, labels, units and availability", "[components]") {
+    for (Component c : all_components) {
+        Component back;
+        REQUIRE(parse_component(to_string(c), back));
+        CHECK(back == c);
+        CHECK(std::string(short_label(c)).size() > 0);
+    }
+    // conventions.md: partial gains in dBi, circular ones in dBic; relative data has no isotropic reference.
+    CHECK(std::string(db_unit(Quantity::gain, Component::rhcp)) == "dBic");
+    CHECK(std::string(db_unit(Quantity::directivity, Component::co)) == "dBi");
+    CHECK(std::string(db_unit(Quantity::relative, Component::lhcp)) == "dB");
+    CHECK(long_label(Component::co, Ludwig3Reference::y) == "Co-polar (Ludwig-3, y ref.)");
+    FarFieldSet s = synthesize(ReferenceAntenna{}, 30, 1e9);
+    for (Component c : all_components) CHECK_FALSE(component_unavailable(s, c));
+    CHECK_FALSE(polarisation_unavailable(s));
+    s.content = FieldContent::magnitude_only;
+    CHECK(component_unavailable(s, Component::rhcp)->find("phase") != std::string::npos);
+    CHECK_FALSE(component_unavailable(s, Component::vertical));
+    CHECK(polarisation_unavailable(s));
+    s.content = FieldContent::total_only;
+    CHECK(component_unavailable(s, Component::theta)->find("total power") != std::string::npos);
+    CHECK_FALSE(component_unavailable(s, Component::total));
+    s.frequencies.clear();
+    CHECK(component_unavailable(s, Component::total));
+}
+
+TEST_CASE("grid equality forgives the last bits of text-read angles", "[components]") {
+    Grid a = full_sphere_grid(0.1, 0.1), b = a;
+    b.theta.step_deg = 180.0 / 1800 * (1 + 1e-13);  // a step summed from text
+    CHECK(same_grid(a, b));
+    b.theta.step_deg = 0.1001;
+    CHECK_FALSE(same_grid(a, b));
+    b = a;
+    b.phi.count -= 1;
+    CHECK_FALSE(same_grid(a, b));
 }

@@ -21,7 +21,7 @@ namespace {
 void add_curves(CutData& cd, const FarFieldSet& p, int which, const CutSamples& c, unsigned components) {
     for (Component comp : all_components) {
         if (!((components >> unsigned(comp)) & 1u)) continue;
-        if (!unavailable_reason(p, comp).empty()) continue;
+        if (component_unavailable(p, comp)) continue;
         CutCurve cv{comp, which, {}};
         for (double v : cut_power(p, c, comp)) cv.db.push_back(std::isnan(v) ? v : to_db(v));
         cd.curves.push_back(std::move(cv));

@@ -20,7 +20,7 @@ ProbeValues probe(const FarFieldSet& set, std::size_t k, double th, double ph) {
     p.inside = true;
     const PolarisationState st = decompose(f->e_theta, f->e_phi, ph * deg, set.ludwig3_reference);
     for (Component c : all_components)
-        if (unavailable_reason(set, c).empty()) p.components.push_back({c, to_db(component_power(st, c))});
+        if (!component_unavailable(set, c)) p.components.push_back({c, to_db(component_power(st, c))});
     if (set.has_phase()) p.polarisation = st;
     return p;
 }

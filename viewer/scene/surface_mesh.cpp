@@ -12,30 +12,19 @@ namespace ellipsa::viewer {
 namespace {
 double db_of(double linear) { return linear > 0 ? 10 * std::log10(linear) : -std::numeric_limits<double>::infinity(); }
 
-std::string quantity_word(Quantity q) {
-    switch (q) {
-        case Quantity::gain: return "gain";
-        case Quantity::directivity: return "directivity";
-        case Quantity::relative: return "power";
-    }
-    return "";
-}
-
 // The B pattern's component power at A's grid directions.
 std::vector<double> other_power_on_grid(const FarFieldSet& a, const FarFieldSet& b, std::size_t kb, Component c) {
-    const bool same_grid = a.grid.theta.start_deg == b.grid.theta.start_deg &&
-                           a.grid.theta.step_deg == b.grid.theta.step_deg && a.grid.theta.count == b.grid.theta.count &&
-                           a.grid.phi.start_deg == b.grid.phi.start_deg && a.grid.phi.step_deg == b.grid.phi.step_deg &&
-                           a.grid.phi.count == b.grid.phi.count;
-    if (same_grid) return component_power_grid(b, kb, c);
     std::vector<double> out(a.grid.size(), std::numeric_limits<double>::quiet_NaN());
+    if (same_grid(a.grid, b.grid)) {
+        component_power_grid(b, kb, c, out.data());
+        return out;
+    }
     for (int i = 0; i < a.grid.theta.count; ++i)
         for (int j = 0; j < a.grid.phi.count; ++j) {
             const double t = a.grid.theta.value_deg(i), p = a.grid.phi.value_deg(j);
             auto f = interpolate(b, kb, t, p);
             if (!f) continue;
-            PolarisationState st = decompose(f->e_theta, f->e_phi, p * deg, b.ludwig3_reference);
-            out[a.grid.index(i, j)] = component_power(st, c);
+            out[a.grid.index(i, j)] = component_power(f->e_theta, f->e_phi, std::cos(p * deg), std::sin(p * deg), b.ludwig3_reference, c);
         }
     return out;
 }
@@ -44,12 +33,11 @@ std::vector<double> other_power_on_grid(const FarFieldSet& a, const FarFieldSet&
 Result<SurfaceMesh> build_surface(const FarFieldSet& s, std::size_t k, const SurfaceOptions& o,
                                   const FarFieldSet* other, std::size_t kb) {
     if (k >= s.frequencies.size()) return Error{s.source, 0, 0, "frequency index out of range"};
-    if (std::string why = unavailable_reason(s, o.component); !why.empty()) return Error{s.source, 0, 0, why};
-    if (std::string why = unavailable_reason(s, o.color_by); !why.empty()) return Error{s.source, 0, 0, why};
+    if (auto why = component_unavailable(s, o.component)) return Error{s.source, 0, 0, *why};
+    if (auto why = color_by_unavailable(s, o.color_by)) return Error{s.source, 0, 0, *why};
     if (o.color_by == ColorBy::difference) {
         if (!other) return Error{s.source, 0, 0, "A minus B needs a second pattern chosen as B"};
-        if (std::string why = unavailable_reason(*other, o.component); !why.empty())
-            return Error{other->source, 0, 0, why};
+        if (auto why = component_unavailable(*other, o.component)) return Error{other->source, 0, 0, *why};
         if (kb >= other->frequencies.size()) return Error{other->source, 0, 0, "frequency index out of range"};
     }
     if (!(o.range_db > 0)) return Error{"", 0, 0, "dynamic range must be positive"};
@@ -73,28 +61,9 @@ Result<SurfaceMesh> build_surface(const FarFieldSet& s, std::size_t k, const Sur
 
     // Component in dB and its peak.
     std::vector<double> value_db(ns);
-    parallel_blocks(ns, min_block, [&](std::size_t a, std::size_t b) {
-        for (std::size_t n = a; n < b; ++n) {
-            const cplx et = f.e_theta[n], ep = f.e_phi[n];
-            double v = 0;
-            switch (o.component) {
-                case Component::total: v = std::norm(et) + std::norm(ep); break;
-                case Component::theta:
-                case Component::vertical: v = std::norm(et); break;
-                case Component::phi:
-                case Component::horizontal: v = std::norm(ep); break;
-                case Component::rhcp: v = std::norm(rhcp(et, ep)); break;
-                case Component::lhcp: v = std::norm(lhcp(et, ep)); break;
-                case Component::co:
-                case Component::cross: {
-                    const std::size_t j = n % std::size_t(np);
-                    CoCross cc = ludwig3(et, ep, cos_p[j], sin_p[j], s.ludwig3_reference);
-                    v = std::norm(o.component == Component::co ? cc.co : cc.cross);
-                    break;
-                }
-            }
-            value_db[n] = db_of(v);
-        }
+    parallel_blocks(std::size_t(nt), std::max<std::size_t>(1, min_block / np_u), [&](std::size_t ia, std::size_t ib) {
+        component_power_grid(s, k, o.component, value_db.data(), int(ia), int(ib));
+        for (std::size_t n = ia * np_u; n < ib * np_u; ++n) value_db[n] = db_of(value_db[n]);
     });
     double peak = -std::numeric_limits<double>::infinity();
     for (double v : value_db) peak = std::max(peak, v);
@@ -105,11 +74,11 @@ Result<SurfaceMesh> build_surface(const FarFieldSet& s, std::size_t k, const Sur
     // Colour values in [0, 1] (NaN: no value, grey) and the colour bar.
     std::vector<double> t(ns);
     ColorBar& bar = m.bar;
-    const std::string comp_name = label_of(o.component);
+    const std::string comp_name = short_label(o.component);
     std::vector<double> pb;
     if (o.color_by == ColorBy::difference) pb = other_power_on_grid(s, *other, kb, o.component);
     switch (o.color_by) {
-        case ColorBy::component: bar = {o.gain_map, m.floor_db, m.peak_db, comp_name + " " + quantity_word(s.quantity), m.unit}; break;
+        case ColorBy::component: bar = {o.gain_map, m.floor_db, m.peak_db, std::string(quantity_label(s.quantity)) + ": " + comp_name, m.unit}; break;
         case ColorBy::axial_ratio: bar = {o.gain_map, 0, o.axial_ratio_max_db, "Axial ratio", "dB"}; break;
         case ColorBy::circular_balance: bar = {ColorMap::diverging, -o.balance_range_db, o.balance_range_db, "RHCP minus LHCP", "dB"}; break;
         case ColorBy::tilt: bar = {ColorMap::cyclic, -90, 90, "Tilt from theta toward phi", "deg"}; break;

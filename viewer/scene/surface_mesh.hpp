@@ -36,7 +36,7 @@ struct SurfaceOptions {
 struct ColorBar {
     ColorMap map = ColorMap::viridis;
     double min = 0, max = 1;
-    std::string title;  // "Total gain", "Axial ratio"
+    std::string title;  // "Gain: Total", "Axial ratio"
     std::string unit;   // "dBi", "dB", "deg"
 };
 

@@ -88,8 +88,8 @@ void normalise(AppState& s) {
     const FarFieldSet& a = s.patterns[std::size_t(s.active)].set;
     if (s.freq >= a.frequencies.size()) s.freq = 0;
     ViewerSettings& st = s.settings;
-    if (!unavailable_reason(a, st.component).empty()) st.component = Component::total;
-    if (!unavailable_reason(a, st.color_by).empty()) st.color_by = ColorBy::component;
+    if (component_unavailable(a, st.component)) st.component = Component::total;
+    if (color_by_unavailable(a, st.color_by)) st.color_by = ColorBy::component;
     if (st.color_by == ColorBy::difference && !s.compare_pattern()) st.color_by = ColorBy::component;
     s.cut_export_format = std::clamp(s.cut_export_format, 0, int(std::size(cut_export_formats)) - 1);
 }
@@ -149,13 +149,13 @@ struct Apply {
         const LoadedPattern* a = s.active_pattern();
         if (!a) return;
         s.settings.component = step_choice(all_components, s.settings.component, i.delta,
-                                           [&](Component c) { return unavailable_reason(a->set, c).empty(); });
+                                           [&](Component c) { return !component_unavailable(a->set, c); });
     }
     void operator()(intent::StepColorBy&) {
         const LoadedPattern* a = s.active_pattern();
         if (!a) return;
         s.settings.color_by = step_choice(all_color_by, s.settings.color_by, 1, [&](ColorBy c) {
-            return unavailable_reason(a->set, c).empty() && (c != ColorBy::difference || s.compare_pattern());
+            return !color_by_unavailable(a->set, c) && (c != ColorBy::difference || s.compare_pattern());
         });
     }
     void operator()(intent::Orbit& i) {
