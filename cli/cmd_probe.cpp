@@ -42,6 +42,75 @@ const char* bad_direction(const ProbeArgs& a) {
     return nullptr;
 }
 
+// What the set can give at this direction: parts (theta/phi) and phase-bound figures.
+struct Available {
+    bool ph, parts;
+    std::optional<double> ar_db;
+    const char* sense;
+};
+
+Available available(const FarFieldSet& s, const PolarisationState& p) {
+    Available v{s.has_phase(), s.content != FieldContent::total_only, std::nullopt, nullptr};
+    if (v.ph && std::isfinite(p.axial_ratio)) v.ar_db = 20 * std::log10(p.axial_ratio);
+    v.sense = v.ph && p.sense != Sense::none ? to_string(p.sense) : nullptr;
+    return v;
+}
+
+void print_json(const ProbeArgs& a, const FarFieldSet& s, std::size_t fi, Ludwig3Reference ref,
+                const PolarisationState& p) {
+    const Available v = available(s, p);
+    JsonWriter j;
+    j.begin_object();
+    j.field("frequency_hz", s.frequencies[fi].frequency_hz);
+    j.field("theta_deg", a.theta_deg).field("phi_deg", a.phi_deg);
+    j.field("quantity", to_string(s.quantity));
+    j.field("total_db", db_or_null(p.total, true));
+    j.field("theta_db", db_or_null(p.theta, v.parts)).field("phi_db", db_or_null(p.phi, v.parts));
+    j.field("vertical_db", db_or_null(p.theta, v.parts)).field("horizontal_db", db_or_null(p.phi, v.parts));
+    j.field("rhcp_db", db_or_null(p.rhcp, v.ph)).field("lhcp_db", db_or_null(p.lhcp, v.ph));
+    j.field("co_db", db_or_null(p.co, v.ph)).field("cross_db", db_or_null(p.cross, v.ph));
+    j.field("ludwig3_reference", ref == Ludwig3Reference::x ? "x" : "y");
+    j.field("axial_ratio_db", v.ar_db);
+    j.key("tilt_deg");
+    if (v.ph && p.sense != Sense::none) j.value(p.tilt_deg); else j.null();
+    j.key("sense");
+    if (v.sense) j.value(v.sense); else j.null();
+    j.key("stokes").begin_array();
+    j.value(p.stokes.i);
+    if (v.parts) j.value(p.stokes.q); else j.null();
+    if (v.ph) j.value(p.stokes.u).value(p.stokes.v); else j.null().null();
+    j.end_array();
+    j.end_object();
+    std::cout << j.str() << "\n";
+}
+
+void print_text(const ProbeArgs& a, const FarFieldSet& s, std::size_t fi, Ludwig3Reference ref,
+                const PolarisationState& p) {
+    const Available v = available(s, p);
+    const bool ph = v.ph;
+    const char* u = db_unit(s.quantity, Component::total);
+    const char* uc = db_unit(s.quantity, Component::rhcp);
+    auto line = [](const char* label, const std::string& text) { std::printf("  %-22s %s\n", label, text.c_str()); };
+    const char* np = "unavailable (needs phase)";
+    std::printf("%s at theta %g, phi %g deg, %s\n", a.file.c_str(), a.theta_deg, a.phi_deg,
+                format_frequency(s.frequencies[fi].frequency_hz).c_str());
+    line("total", fmt(to_db(p.total), u));
+    if (v.parts) {
+        line("theta (vertical)", fmt(to_db(p.theta), u));
+        line("phi (horizontal)", fmt(to_db(p.phi), u));
+    }
+    line("RHCP", ph ? fmt(to_db(p.rhcp), uc) : np);
+    line("LHCP", ph ? fmt(to_db(p.lhcp), uc) : np);
+    line(ref == Ludwig3Reference::x ? "co (Ludwig-3, x ref)" : "co (Ludwig-3, y ref)", ph ? fmt(to_db(p.co), u) : np);
+    line("cross (Ludwig-3)", ph ? fmt(to_db(p.cross), u) : np);
+    line("axial ratio", !ph ? np : v.ar_db ? fmt(v.ar_db, "dB") : std::string("infinite (linear)"));
+    line("tilt", ph ? fmt(p.tilt_deg, "deg", 1) : np);
+    line("sense", v.sense ? v.sense : np);
+    char buf[160];
+    std::snprintf(buf, sizeof buf, "I %.6g, Q %.6g, U %.6g, V %.6g", p.stokes.i, p.stokes.q, p.stokes.u, p.stokes.v);
+    line("Stokes (linear)", ph ? std::string(buf) : np);
+}
+
 Registered add_probe(CLI::App& root) {
     auto a = std::make_shared<ProbeArgs>();
     CLI::App* sub = root.add_subcommand("probe", "Every component, axial ratio, tilt, sense and Stokes at one direction");
@@ -83,59 +152,8 @@ Registered add_probe(CLI::App& root) {
                 if (a->ludwig3 == "x") ref = Ludwig3Reference::x;
                 if (a->ludwig3 == "y") ref = Ludwig3Reference::y;
                 const PolarisationState p = decompose(f->e_theta, f->e_phi, a->phi_deg * deg, ref);
-                const bool ph = s->has_phase();
-                const bool parts = s->content != FieldContent::total_only;
-                std::optional<double> ar_db;
-                if (ph && std::isfinite(p.axial_ratio)) ar_db = 20 * std::log10(p.axial_ratio);
-                const char* sense = ph && p.sense != Sense::none ? to_string(p.sense) : nullptr;
-                if (a->json) {
-                    JsonWriter j;
-                    j.begin_object();
-                    j.field("frequency_hz", s->frequencies[*fi].frequency_hz);
-                    j.field("theta_deg", a->theta_deg).field("phi_deg", a->phi_deg);
-                    j.field("quantity", to_string(s->quantity));
-                    j.field("total_db", db_or_null(p.total, true));
-                    j.field("theta_db", db_or_null(p.theta, parts)).field("phi_db", db_or_null(p.phi, parts));
-                    j.field("vertical_db", db_or_null(p.theta, parts)).field("horizontal_db", db_or_null(p.phi, parts));
-                    j.field("rhcp_db", db_or_null(p.rhcp, ph)).field("lhcp_db", db_or_null(p.lhcp, ph));
-                    j.field("co_db", db_or_null(p.co, ph)).field("cross_db", db_or_null(p.cross, ph));
-                    j.field("ludwig3_reference", ref == Ludwig3Reference::x ? "x" : "y");
-                    j.field("axial_ratio_db", ar_db);
-                    j.key("tilt_deg");
-                    if (ph && p.sense != Sense::none) j.value(p.tilt_deg); else j.null();
-                    j.key("sense");
-                    if (sense) j.value(sense); else j.null();
-                    j.key("stokes").begin_array();
-                    j.value(p.stokes.i);
-                    if (parts) j.value(p.stokes.q); else j.null();
-                    if (ph) j.value(p.stokes.u).value(p.stokes.v); else j.null().null();
-                    j.end_array();
-                    j.end_object();
-                    std::cout << j.str() << "\n";
-                    return exit_ok;
-                }
-                const char* u = db_unit(s->quantity, Component::total);
-                const char* uc = db_unit(s->quantity, Component::rhcp);
-                auto line = [](const char* label, const std::string& v) { std::printf("  %-22s %s\n", label, v.c_str()); };
-                const char* np = "unavailable (needs phase)";
-                std::printf("%s at theta %g, phi %g deg, %s\n", a->file.c_str(), a->theta_deg, a->phi_deg,
-                            format_frequency(s->frequencies[*fi].frequency_hz).c_str());
-                line("total", fmt(to_db(p.total), u));
-                if (parts) {
-                    line("theta (vertical)", fmt(to_db(p.theta), u));
-                    line("phi (horizontal)", fmt(to_db(p.phi), u));
-                }
-                line("RHCP", ph ? fmt(to_db(p.rhcp), uc) : np);
-                line("LHCP", ph ? fmt(to_db(p.lhcp), uc) : np);
-                line(ref == Ludwig3Reference::x ? "co (Ludwig-3, x ref)" : "co (Ludwig-3, y ref)", ph ? fmt(to_db(p.co), u) : np);
-                line("cross (Ludwig-3)", ph ? fmt(to_db(p.cross), u) : np);
-                line("axial ratio", !ph ? np : ar_db ? fmt(ar_db, "dB") : std::string("infinite (linear)"));
-                line("tilt", ph ? fmt(p.tilt_deg, "deg", 1) : np);
-                line("sense", sense ? sense : np);
-                char buf[160];
-                std::snprintf(buf, sizeof buf, "I %.6g, Q %.6g, U %.6g, V %.6g", p.stokes.i, p.stokes.q, p.stokes.u,
-                              p.stokes.v);
-                line("Stokes (linear)", ph ? std::string(buf) : np);
+                if (a->json) print_json(*a, *s, *fi, ref, p);
+                else print_text(*a, *s, *fi, ref, p);
                 return exit_ok;
             }};
 }
