@@ -57,7 +57,7 @@ Error to_error(const TextSource& src, const std::string& file, const Failure& f)
 // max_line_bytes, or a read error, sets `failure` and stops. Returns false when stopped.
 // Cost: the bytes once (plus one copy from the page cache for a file) and a memrchr a window.
 template <class F>
-bool for_each_window(const TextSource& src, std::size_t begin, std::size_t end, std::vector<char>& buffer,
+[[gnu::always_inline]] inline bool for_each_window(const TextSource& src, std::size_t begin, std::size_t end, std::vector<char>& buffer,
                      Failure& failure, F&& f) {
     std::size_t pos = begin, want = window_bytes;
     while (pos < end) {

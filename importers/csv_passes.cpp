@@ -63,11 +63,13 @@ void every_4096_rows(Context& ctx, const Chunk& c, std::size_t done, double prog
 // data row. Blank lines and '#' lines are skipped (metadata keys after the header are refused
 // in pass 1, which also refuses NUL bytes).
 template <class Row>
-void for_each_row(Context& ctx, Chunk& c, bool first_pass, double progress_base, double progress_span, Row&& row) {
+[[gnu::always_inline]] inline void for_each_row(Context& ctx, Chunk& c, bool first_pass, double progress_base,
+                                                double progress_span, Row&& row) {
     const char delim = ctx.L->delimiter;
     std::size_t n = 0;
     std::vector<char> buffer;
-    for_each_window(*ctx.source, c.begin, c.end, buffer, c.failure, [&](std::string_view w, std::size_t at) {
+    for_each_window(*ctx.source, c.begin, c.end, buffer, c.failure, [&](std::string_view w, std::size_t at)
+                                                                        __attribute__((always_inline)) {
         const char* const base = w.data();
         const char* p = base;
         const char* const end = base + w.size();
@@ -355,7 +357,7 @@ FieldProblem polar_field(const Layout& L, const double* v, double phi_deg, cplx&
 }
 
 // E_theta, E_phi of one row from its field cells (v by role) and its phi.
-inline FieldProblem row_field(const Layout& L, const double* v, double phi_deg, cplx& et, cplx& ep) {
+[[gnu::always_inline]] inline FieldProblem row_field(const Layout& L, const double* v, double phi_deg, cplx& et, cplx& ep) {
     switch (L.family) {
         case CsvFamily::complex:
             for (int r : {c_e_theta_re, c_e_theta_im, c_e_phi_re, c_e_phi_im})
@@ -385,7 +387,7 @@ inline FieldProblem row_field(const Layout& L, const double* v, double phi_deg, 
 // Write one point into the arrays; a second row for a point must agree with the first (to
 // 0.1 % of the larger field, or both below 1e-6). With several workers, the seen byte is the
 // lock: 0 absent, 1 being written, 2 present.
-bool store_point(Context& ctx, Chunk& c, std::size_t fk, std::size_t k, cplx et, cplx ep, std::size_t line_offset,
+[[gnu::always_inline]] inline bool store_point(Context& ctx, Chunk& c, std::size_t fk, std::size_t k, cplx et, cplx ep, std::size_t line_offset,
                  const AngleInfo* const ang[3]) {
     unsigned char& seen = (*ctx.seen)[fk][k];
     FarField& ff = (*ctx.out)[fk];
@@ -444,7 +446,7 @@ void pass1(Context& ctx, Chunk& c, bool report_progress) {
     DistinctValues* sets[3] = {&c.theta, &c.phi, &c.freq};
     if (!L.frequency_column) c.freq.add(L.frequency_hz ? *L.frequency_hz : 0.0, c.begin);
     const int upto = L.last_angle_cell;
-    for_each_row(ctx, c, true, 0.0, report_progress ? 0.35 : 0.0, [&](const char* p, const char* e, std::size_t off) {
+    for_each_row(ctx, c, true, 0.0, report_progress ? 0.35 : 0.0, [&](const char* p, const char* e, std::size_t off) __attribute__((always_inline)) {
         const char* q = p;
         for (int k = 0; k <= upto; ++k) {
             const int r = L.role[std::size_t(k)];
@@ -478,7 +480,7 @@ void pass2(Context& ctx, Chunk& c, bool report_progress) {
     double v[c_count];
     AngleInfo fixed_f;  // without a frequency column: the one frequency
     fixed_f.value = g.freqs.empty() ? 0.0 : g.freqs[0];
-    for_each_row(ctx, c, false, 0.35, report_progress ? 0.65 : 0.0, [&](const char* p, const char* e, std::size_t off) {
+    for_each_row(ctx, c, false, 0.35, report_progress ? 0.65 : 0.0, [&](const char* p, const char* e, std::size_t off) __attribute__((always_inline)) {
         const AngleInfo* ang[3] = {nullptr, nullptr, L.frequency_column ? nullptr : &fixed_f};
         AngleInfo fresh[3];
         const char* q = p;
@@ -491,13 +493,15 @@ void pass2(Context& ctx, Chunk& c, bool report_progress) {
                 q = ce ? ce : e;
             } else if (slot < 0) {
                 NumberStatus st;
+                double x;
                 const char* cell = q;
-                q = parse_number_cell(q, e, L.delimiter, L.decimal_comma, v[r], st);
+                q = parse_number_cell(q, e, L.delimiter, L.decimal_comma, x, st);
                 if (st != NumberStatus::ok) {
                     fail_cell(c, off, p, cell, number_problem(r, st, cell, e, L.delimiter));
                     return false;
                 }
-                if (L.transform) v[r] = v[r] * L.scale[std::size_t(r)] + L.offset[std::size_t(r)];
+                if (L.transform) x = x * L.scale[std::size_t(r)] + L.offset[std::size_t(r)];
+                v[r] = x;
             } else {
                 ang[slot] = angle_cell(L, cache[slot], r, q, e, p, off, c, fresh[slot], changed_message,
                                        [&](double x, AngleInfo& a) { return place_on_grid(g, slot, x, a); });
