@@ -124,6 +124,21 @@ std::string number_problem(int role, NumberStatus st, const char* cell, const ch
     return what + (t.empty() ? std::string("an empty cell") : text::quote_found(t));
 }
 
+// The number cell at q of role r, scaled and offset; moves q to the delimiter or e. False, with
+// the chunk's failure set, when it is not a number or overflows.
+[[gnu::always_inline]] inline bool number_cell(const Layout& L, int r, const char*& q, const char* e, const char* line,
+                                               std::size_t line_offset, Chunk& c, double& x) {
+    NumberStatus st;
+    const char* cell = q;
+    q = parse_number_cell(q, e, L.delimiter, L.decimal_comma, x, st);
+    if (st != NumberStatus::ok) {
+        fail_cell(c, line_offset, line, cell, number_problem(r, st, cell, e, L.delimiter));
+        return false;
+    }
+    if (L.transform) x = x * L.scale[std::size_t(r)] + L.offset[std::size_t(r)];
+    return true;
+}
+
 // Past the delimiter after cell k (false, with a failure, when the row ends early).
 inline bool next_cell(Chunk& c, std::size_t line_offset, const char* line, const char* e, const char*& q, int k, int ncells) {
     if (k < ncells - 1) {
@@ -259,15 +274,9 @@ template <class Fresh>
         q = ce;
         return &cache.info[h];
     }
-    NumberStatus st;
     double x;
     const char* cell = q;
-    q = parse_number_cell(q, e, L.delimiter, L.decimal_comma, x, st);
-    if (st != NumberStatus::ok) {
-        fail_cell(c, line_offset, line, cell, number_problem(r, st, cell, e, L.delimiter));
-        return nullptr;
-    }
-    if (L.transform) x = x * L.scale[std::size_t(r)] + L.offset[std::size_t(r)];
+    if (!number_cell(L, r, q, e, line, line_offset, c, x)) return nullptr;
     double y;
     std::string msg = angle_value(L, r, x, y);
     if (!msg.empty()) {
@@ -492,15 +501,8 @@ void pass2(Context& ctx, Chunk& c, bool report_progress) {
                 const char* ce = static_cast<const char*>(std::memchr(q, L.delimiter, std::size_t(e - q)));
                 q = ce ? ce : e;
             } else if (slot < 0) {
-                NumberStatus st;
                 double x;
-                const char* cell = q;
-                q = parse_number_cell(q, e, L.delimiter, L.decimal_comma, x, st);
-                if (st != NumberStatus::ok) {
-                    fail_cell(c, off, p, cell, number_problem(r, st, cell, e, L.delimiter));
-                    return false;
-                }
-                if (L.transform) x = x * L.scale[std::size_t(r)] + L.offset[std::size_t(r)];
+                if (!number_cell(L, r, q, e, p, off, c, x)) return false;
                 v[r] = x;
             } else {
                 ang[slot] = angle_cell(L, cache[slot], r, q, e, p, off, c, fresh[slot], changed_message,

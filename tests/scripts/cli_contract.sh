@@ -2,15 +2,8 @@
 # The command-line contract scripts depend on: exit codes, --help, --version and the JSON keys of
 # info and probe. Usage: cli_contract.sh ELLIPSA WORKDIR
 set -uo pipefail
+source "$(dirname "$0")/checks.sh"  # ok, bad, expect_rc, finish
 E=$1; W=$2; rm -rf "$W"; mkdir -p "$W"; cd "$W"
-pass=0; fail=0
-ok() { echo "ok   $1"; pass=$((pass+1)); }
-bad() { echo "FAIL $1"; fail=$((fail+1)); }
-expect_rc() {  # WANT LABEL CMD...
-  local want=$1 label=$2; shift 2
-  "$@" >out.txt 2>err.txt; local rc=$?
-  if [[ $rc == "$want" ]]; then ok "$label (exit $rc)"; else bad "$label: exit $rc, expected $want; stderr: $(head -c 300 err.txt)"; fi
-}
 expect_rc 0 "synth writes a file" "$E" synth dipole --length 1.25 --step 1 --out d.csv
 expect_rc 0 "info --json" "$E" info d.csv --json
 for k in quantity frequencies_hz coverage results frequency_hz peak_db peak_theta_deg peak_phi_deg \
@@ -37,5 +30,4 @@ grep -q 'bad.csv:2:' err.txt && ok "message names file and line" || bad "message
 expect_rc 0 "--version" "$E" --version
 grep -q 'OpenGL' out.txt && ok "--version names the GL renderer" || bad "--version lacks renderer line"
 for c in synth info probe; do expect_rc 0 "$c --help" "$E" "$c" --help; done
-echo "$pass passed, $fail failed"
-[[ $fail == 0 ]]
+finish

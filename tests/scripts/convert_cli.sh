@@ -2,10 +2,8 @@
 # ellipsa convert: every family round-trips through the command, foreign layouts convert with the
 # import options, and convert never writes over its input. Usage: convert_cli.sh ELLIPSA WORKDIR SOURCE_DIR
 set -uo pipefail
+source "$(dirname "$0")/checks.sh"  # ok, bad, expect_rc, finish
 E=$1; W=$2; SRC=$3; rm -rf "$W"; mkdir -p "$W"; cd "$W"
-pass=0; fail=0
-ok() { echo "ok   $1"; pass=$((pass+1)); }
-bad() { echo "FAIL $1"; fail=$((fail+1)); }
 "$E" synth crossed-dipoles --step 5 --out x.csv || bad "synth"
 ref=$("$E" info x.csv --json)
 for fam in complex theta-phi-db-phase circular-db-phase ludwig3-db-phase; do
@@ -94,5 +92,4 @@ timeout 20 "$E" info "$R3" --map-file fifo.map 2>err.txt; rc=$?
 [[ $rc == 1 ]] && ok "--map-file FIFO is refused without blocking" || bad "FIFO map: $rc"
 timeout 20 "$E" info "$R3" --map-file . 2>err.txt; rc=$?
 [[ $rc == 1 ]] && grep -q 'found a folder' err.txt && ok "--map-file on a folder is refused" || bad "folder map: $rc"
-echo "$pass passed, $fail failed"
-[[ $fail == 0 ]]
+finish

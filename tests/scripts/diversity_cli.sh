@@ -2,15 +2,8 @@
 # The diversity command's contract: exit codes, JSON keys, clear messages for bad environments and
 # profile tables. Usage: diversity_cli.sh ELLIPSA WORKDIR
 set -uo pipefail
+source "$(dirname "$0")/checks.sh"  # ok, bad, expect_rc, finish
 E=$1; W=$2; rm -rf "$W"; mkdir -p "$W"; cd "$W"
-pass=0; fail=0
-ok() { echo "ok   $1"; pass=$((pass+1)); }
-bad() { echo "FAIL $1"; fail=$((fail+1)); }
-expect_rc() {  # WANT LABEL CMD...
-  local want=$1 label=$2; shift 2
-  "$@" >out.txt 2>err.txt; local rc=$?
-  if [[ $rc == "$want" ]]; then ok "$label (exit $rc)"; else bad "$label: exit $rc, expected $want; stderr: $(head -c 300 err.txt)"; fi
-}
 has() { grep -q "\"$1\":" out.txt && ok "JSON has $1" || bad "JSON lacks $1"; }
 expect_rc 0 "synth z dipole" "$E" synth dipole --step 2 --out z.csv
 expect_rc 0 "synth x dipole" "$E" synth dipole --step 2 --rotate-y 90 --out x.csv
@@ -73,5 +66,4 @@ expect_rc 0 "profile of 1e308" "$E" diversity z.csv --profile huge.csv --json
 expect_rc 0 "profile with p_h 1e-320" "$E" diversity z.csv --profile tiny.csv --json
 grep -q '"meg_db": null' out.txt && bad "p_h 1e-320: MEG unavailable" || ok "p_h 1e-320: MEG given"
 grep -q '"weight_horizontal": 0[,}]' out.txt && ok "p_h 1e-320: horizontal weight 0" || bad "p_h 1e-320: $(grep -o '"weight_[a-z]*": [^,]*' out.txt)"
-echo "$pass passed, $fail failed"
-[[ $fail == 0 ]]
+finish

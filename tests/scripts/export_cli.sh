@@ -6,15 +6,8 @@
 # folder) exits 1 and leaves existing files untouched.
 # Usage: export_cli.sh ELLIPSA WORKDIR
 set -uo pipefail
+source "$(dirname "$0")/checks.sh"  # ok, bad, expect_rc, finish
 E=$1; W=$2; rm -rf "$W"; mkdir -p "$W"; chmod 755 "$W"; cd "$W"
-pass=0; fail=0
-ok() { echo "ok   $1"; pass=$((pass+1)); }
-bad() { echo "FAIL $1"; fail=$((fail+1)); }
-expect_rc() {  # WANT LABEL CMD...
-  local want=$1 label=$2; shift 2
-  "$@" >out.txt 2>err.txt; local rc=$?
-  if [[ $rc == "$want" ]]; then ok "$label (exit $rc)"; else bad "$label: exit $rc, expected $want; stderr: $(head -c 300 err.txt)"; fi
-}
 # Cairo writes colours as percentages; these are the first three Okabe-Ito curve colours.
 C1='stroke:rgb(0%,44.705882%,69.803922%)'
 C2='stroke:rgb(83.529412%,36.862745%,0%)'
@@ -124,5 +117,4 @@ fi
 chmod 755 ro
 
 for c in cut; do expect_rc 0 "$c --help" "$E" "$c" --help; done
-echo "$pass passed, $fail failed"
-[[ $fail == 0 ]]
+finish

@@ -5,15 +5,8 @@
 # non-root user) exit 1 and leave the existing folder untouched, with no temporary folder left.
 # Usage: report_cli.sh ELLIPSA WORKDIR
 set -uo pipefail
+source "$(dirname "$0")/checks.sh"  # ok, bad, expect_rc, finish
 E=$1; W=$2; rm -rf "$W"; mkdir -p "$W"; chmod 755 "$W"; cd "$W"
-pass=0; fail=0
-ok() { echo "ok   $1"; pass=$((pass+1)); }
-bad() { echo "FAIL $1"; fail=$((fail+1)); }
-expect_rc() {  # WANT LABEL CMD...
-  local want=$1 label=$2; shift 2
-  "$@" >out.txt 2>err.txt; local rc=$?
-  if [[ $rc == "$want" ]]; then ok "$label (exit $rc)"; else bad "$label: exit $rc, expected $want; stderr: $(head -c 300 err.txt)"; fi
-}
 OPTS=(--size 480x360 --dpi 60)
 expect_rc 0 "synth dipole" "$E" synth dipole --length 1 --step 3 --name "Full-wave dipole" --out a.csv
 expect_rc 0 "synth turnstile" "$E" synth crossed-dipoles --step 3 --rotate-x 35 --rotate-z 30 --name "Turnstile" --out b.csv
@@ -106,5 +99,4 @@ expect_rc 2 "no output folder is bad usage" "$E" report a.csv
 expect_rc 1 "missing input is bad input" "$E" report a.csv nope.csv --out rep2
 [[ ! -e rep2 ]] && ok "nothing created when an input is missing" || bad "rep2 created"
 expect_rc 0 "report --help" "$E" report --help
-echo "$pass passed, $fail failed"
-[[ $fail == 0 ]]
+finish
