@@ -20,6 +20,7 @@ struct ViewArgs {
     int compare = 0;
     bool wireframe = false, translucent = false;
     bool diversity = false;
+    bool band = false;
     bool force = false;
 };
 
@@ -60,6 +61,7 @@ Registered add_view(CLI::App& root) {
     sub->add_option("--cut-style", a->cut_style, "Start with a polar or rect cut plot")->check(CLI::IsMember({"polar", "rect"}));
     sub->add_flag("--translucent", a->translucent, "Start with a translucent surface");
     sub->add_flag("--diversity", a->diversity, "Start with the diversity panel open (MEG, ECC, orientation curve)");
+    sub->add_flag("--band", a->band, "Start with the figures-against-frequency panel open");
     sub->add_flag("--force", a->force, "Replace the files of --screenshot, --export-view and --export-cut if they exist");
     return {sub, [a]() -> int {
                 viewer::ViewerOptions o;
@@ -117,6 +119,7 @@ Registered add_view(CLI::App& root) {
                 o.translucent = a->translucent;
                 if (!a->cut_style.empty()) o.cut_style = a->cut_style == "rect" ? 1 : 0;
                 o.diversity_panel = a->diversity;
+                o.band_panel = a->band;
                 if (!a->pin.empty()) {
                     if (!parse_pair(a->pin, o.pin_theta_deg, o.pin_phi_deg) || o.pin_theta_deg < 0 || o.pin_theta_deg > 180) {
                         std::cerr << "ellipsa view: --pin expects THETA,PHI in degrees (finite) with THETA in [0, 180], found '" << a->pin << "'\n";

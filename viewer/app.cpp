@@ -105,6 +105,7 @@ Intents start_options(const ViewerOptions& o, const AppState& s) {
     if (o.has_view) in.push_back(intent::SetView{o.view_azimuth_deg, o.view_elevation_deg});
     if (o.has_pin) in.push_back(intent::Pin{Direction{o.pin_theta_deg, o.pin_phi_deg}});
     if (o.diversity_panel) in.push_back(intent::ShowDiversity{true});
+    if (o.band_panel) in.push_back(intent::ShowBand{true});
     if (o.save_settings && !s.settings.seen_intro) in.push_back(intent::ShowIntro{true});  // first interactive run
     return in;
 }

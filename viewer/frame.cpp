@@ -50,6 +50,7 @@ void view_menu(const AppState& s, Intents& in) {
     ImGui::MenuItem("Polarisation ellipses", "G", &st.glyphs);
     ImGui::MenuItem("Polar cut plot", "P", &st.polar_plot);
     if (ImGui::MenuItem("Diversity (MEG, ECC, orientation)", nullptr, s.diversity_open)) in.push_back(intent::ShowDiversity{!s.diversity_open});
+    if (ImGui::MenuItem("Figures against frequency", nullptr, s.band_open)) in.push_back(intent::ShowBand{!s.band_open});
     if (ImGui::MenuItem("Reset view", "R")) in.push_back(intent::ResetView{});
     ImGui::Separator();
     const ImGuiSliderFlags clamp = ImGuiSliderFlags_AlwaysClamp;
@@ -107,6 +108,7 @@ Intents draw_panels(const AppState& s, const Derived& d, const Layout& L) {
     tiled(in, "Polarisation", ImVec2(rp.x, rp.y + rs.y * 0.56f), ImVec2(rs.x, rs.y * 0.44f), [&] { return draw_polarisation_panel(s, d); });
     tiled(in, "Cut", L.cut_pos, L.cut_size, [&] { return draw_cut_panel(s, d); });
     append(in, draw_diversity_panel(s, d));
+    append(in, draw_band_panel(s, d));
     append(in, draw_help_overlay(s));
     append(in, draw_intro_overlay(s));
     return in;

@@ -20,6 +20,8 @@ Intents draw_polarisation_panel(const AppState& s, const Derived& d);
 Intents draw_cut_panel(const AppState& s, const Derived& d);
 // A floating window, shown while s.diversity_open (its close button returns ShowDiversity{false}).
 Intents draw_diversity_panel(const AppState& s, const Derived& d);
+// A floating window, shown while s.band_open: one figure of A against frequency; a click picks the frequency.
+Intents draw_band_panel(const AppState& s, const Derived& d);
 Intents draw_help_overlay(const AppState& s);
 // The first-run orientation: what each panel shows, dismissable (remembered in the settings).
 Intents draw_intro_overlay(const AppState& s);

@@ -6,6 +6,7 @@
 
 #include "pattern/reference.hpp"
 #include "viewer/state/apply.hpp"
+#include "viewer/state/derived.hpp"
 
 using namespace ellipsa;
 using namespace ellipsa::viewer;
@@ -239,4 +240,16 @@ TEST_CASE("exports: asked for, answered, replaced only when asked", "[viewer][ap
         intent::DismissExport{ExportTarget::cut});
     CHECK(s.view_export->status == ExportOutcome::Status::written);
     CHECK_FALSE(s.cut_export);
+}
+
+TEST_CASE("the band panel: opened, closed, and only known figures chosen", "[viewer][apply]") {
+    AppState s;
+    run(s, intent::ShowBand{true});
+    CHECK(s.band_open);
+    run(s, intent::SetBandQuantity{4});
+    CHECK(s.band_quantity == 4);
+    run(s, intent::SetBandQuantity{band_quantity_count}, intent::SetBandQuantity{-1});  // no such figures
+    CHECK(s.band_quantity == 4);
+    run(s, intent::ShowBand{false});
+    CHECK_FALSE(s.band_open);
 }

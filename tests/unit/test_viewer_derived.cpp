@@ -110,3 +110,24 @@ TEST_CASE("a closed pattern is never shown from the cache", "[viewer][derived]")
     CHECK_FALSE(d.cut.value().valid);
     CHECK_FALSE(d.summary.value());
 }
+
+TEST_CASE("figures against frequency: only while the panel is open, once per pattern", "[viewer][derived]") {
+    AppState s;
+    FarFieldSet two = dipole("two");
+    two.frequencies.push_back(two.frequencies[0]);
+    two.frequencies[1].frequency_hz = 2e9;
+    run(s, intent::AddPatterns{{two}, ""});
+    Derived d;
+    refresh(d, s);
+    CHECK(d.band.value().figures.empty());  // closed: nothing computed
+    run(s, intent::ShowBand{true});
+    refresh(d, s);
+    REQUIRE(d.band.value().figures.size() == 2);
+    CHECK(d.band.value().frequency_hz == std::vector<double>{1e9, 2e9});
+    // The same figures as summarize() (pattern/band.hpp builds on it) and the band value table.
+    CHECK(band_value(d.band.value().figures[0], 0) == summarize(s.patterns[0].set, 0).peak_db);
+    const double ms = d.band.value().compute_ms;
+    run(s, intent::SetFrequency{1});  // the frequency moves the cursor, not the figures
+    refresh(d, s);
+    CHECK(d.band.value().compute_ms == ms);
+}

@@ -65,6 +65,8 @@ struct AppState {
     std::string note;        // e.g. "built-in demo"
     bool show_help = false, show_intro = false;
     bool diversity_open = false;
+    bool band_open = false;  // figures against frequency
+    int band_quantity = 0;   // index into band_quantities (viewer/state/derived.hpp)
     DiversityChoice diversity;
     int cut_export_format = 0;  // index into cut_export_formats
     std::optional<ExportOutcome> view_export, cut_export;

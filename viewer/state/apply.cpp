@@ -7,6 +7,7 @@
 
 #include "pattern/vec3.hpp"
 #include "viewer/scene/components.hpp"
+#include "viewer/state/derived.hpp"
 
 namespace ellipsa::viewer {
 
@@ -192,6 +193,10 @@ struct Apply {
     }
     void operator()(intent::ShowDiversity& i) { s.diversity_open = i.on; }
     void operator()(intent::ChangeDiversity& i) { s.diversity = std::move(i.choice); }
+    void operator()(intent::ShowBand& i) { s.band_open = i.on; }
+    void operator()(intent::SetBandQuantity& i) {
+        if (i.index >= 0 && i.index < band_quantity_count) s.band_quantity = i.index;
+    }
     void operator()(intent::SetCutExportFormat& i) { s.cut_export_format = i.index; }
     void operator()(intent::ExportView& i) {
         s.view_export.reset();

@@ -1,10 +1,28 @@
 #include "viewer/state/derived.hpp"
 
 #include <chrono>
+#include <cmath>
 
 #include "pattern/vec3.hpp"
 
 namespace ellipsa::viewer {
+
+double band_value(const FrequencyFigures& f, int q) {
+    const double nan = std::nan("");
+    auto v = [&](const std::optional<double>& x) { return x ? *x : nan; };
+    switch (q) {
+        case 0: return f.summary.peak_db;
+        case 1: return v(f.summary.directivity_dbi);
+        case 2: return f.summary.power.radiation_efficiency ? 100 * *f.summary.power.radiation_efficiency : nan;
+        case 3: return !f.meg.empty() && f.meg[0].meg ? to_db(*f.meg[0].meg) : nan;
+        case 4: return v(f.summary.axial_ratio_db);
+        case 5: return v(f.summary.hpbw_elevation_deg);
+        case 6: return v(f.summary.hpbw_azimuth_deg);
+        case 7: return v(f.summary.front_to_back_db);
+        case 8: return v(f.ar_beamwidth_elevation.width_deg);
+        default: return nan;
+    }
+}
 
 namespace {
 
@@ -75,6 +93,22 @@ std::optional<DirectionProbe> probe_at(const Shown& w, const std::optional<Direc
     return p;
 }
 
+void refresh_band(Derived& d, const AppState& s, const Shown& w) {
+    if (!s.band_open) return;
+    d.band.update(BandKey{w.a_id}, [&] {
+        BandView v;
+        if (!w.a) return v;
+        const auto t0 = std::chrono::steady_clock::now();
+        BandOptions o;
+        if (auto e = environment_preset("uniform")) o.environments.push_back(*e);
+        v.figures = band_figures(w.a->set, o);
+        for (const FrequencyFigures& f : v.figures) v.frequency_hz.push_back(w.a->set.frequencies[f.freq_index].frequency_hz);
+        v.summary = band_summary(w.a->set, v.figures);
+        v.compute_ms = ms_since(t0);
+        return v;
+    });
+}
+
 // The diversity figures; while a slider is held the orientation sweep waits and the last one stays.
 void refresh_diversity(Derived& d, const AppState& s, const Shown& w, bool interacting) {
     if (!s.diversity_open) return;
@@ -125,6 +159,7 @@ DerivedChanges refresh(Derived& d, const AppState& s, bool interacting) {
         return w.a && w.a->set.has_phase() ? poincare_cloud(w.a->set, w.fa, pk.within_db, 2000) : std::vector<PoincarePoint>{};
     });
     refresh_diversity(d, s, w, interacting);
+    refresh_band(d, s, w);
     return c;
 }
 

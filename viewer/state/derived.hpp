@@ -14,6 +14,7 @@
 
 #include "pattern/summary.hpp"
 #include "viewer/scene/cut_view.hpp"
+#include "pattern/band.hpp"
 #include "viewer/scene/diversity_view.hpp"
 #include "viewer/scene/glyphs.hpp"
 #include "viewer/scene/poincare.hpp"
@@ -80,6 +81,33 @@ struct DiversityKey {
     bool operator==(const DiversityKey&) const = default;
 };
 
+struct BandKey {
+    int a = 0;
+    bool operator==(const BandKey&) const = default;
+};
+
+// The figures the band panel can plot against frequency, by index (AppState::band_quantity).
+struct BandQuantity {
+    const char* label;  // menu text
+    const char* unit;   // axis unit
+};
+inline constexpr BandQuantity band_quantities[] = {
+    {"Peak", "dBi, or dB for relative data"},          {"Directivity", "dBi"},        {"Radiation efficiency", "%"},
+    {"MEG, uniform", "dB"},  {"Axial ratio at the peak", "dB"}, {"HPBW, elevation plane", "deg"},
+    {"HPBW, azimuth plane", "deg"}, {"Front-to-back", "dB"}, {"AR beamwidth (3 dB)", "deg"}};
+inline constexpr int band_quantity_count = int(sizeof band_quantities / sizeof band_quantities[0]);
+// The value of quantity q at one frequency (NaN: none there).
+double band_value(const FrequencyFigures& f, int q);
+
+// Figures against frequency of A (pattern/band.hpp): every frequency, MEG in the uniform
+// environment, the band edges.
+struct BandView {
+    std::vector<FrequencyFigures> figures;  // ascending frequency
+    std::vector<double> frequency_hz;       // of each entry
+    BandSummary summary;
+    double compute_ms = 0;
+};
+
 struct SurfaceView {
     SurfaceMesh mesh;    // no vertices when nothing is shown
     std::string error;   // why the surface cannot be shown ("" when it is)
@@ -106,6 +134,7 @@ struct Derived {
     Keyed<SummaryKey, std::optional<PatternSummary>> summary;
     Keyed<PoincareKey, std::vector<PoincarePoint>> poincare;
     Keyed<DiversityKey, DiversityView> diversity;  // only while the diversity panel is open
+    Keyed<BandKey, BandView> band;                 // only while the band panel is open
 };
 
 // What the GPU must take again after a refresh.

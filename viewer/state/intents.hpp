@@ -68,6 +68,8 @@ struct ShowIntro { bool on = true; };
 struct DismissIntro {};  // "Got it": hidden and remembered
 struct ShowDiversity { bool on = true; };
 struct ChangeDiversity { DiversityChoice choice; };
+struct ShowBand { bool on = true; };            // figures against frequency
+struct SetBandQuantity { int index = 0; };      // which figure the band panel plots
 
 // --- Exports and leaving ---
 struct SetCutExportFormat { int index = 0; };
@@ -85,7 +87,7 @@ using Intent = std::variant<
     intent::StepFrequency, intent::EditPath, intent::EditMap, intent::DismissLoadError, intent::ChangeSettings,
     intent::StepComponent, intent::StepColorBy, intent::Orbit, intent::Zoom, intent::LookFrom, intent::SetView,
     intent::ResetView, intent::Hover, intent::Pin, intent::Unpin, intent::Escape, intent::ShowHelp, intent::ShowIntro,
-    intent::DismissIntro, intent::ShowDiversity, intent::ChangeDiversity, intent::SetCutExportFormat,
+    intent::DismissIntro, intent::ShowDiversity, intent::ChangeDiversity, intent::ShowBand, intent::SetBandQuantity, intent::SetCutExportFormat,
     intent::ExportView, intent::ExportCut, intent::ExportFinished, intent::DismissExport, intent::Quit>;
 
 using Intents = std::vector<Intent>;
