@@ -4,6 +4,7 @@
 #include <cmath>
 #include <numeric>
 
+#include "pattern/components.hpp"
 #include "pattern/integrate.hpp"
 #include "pattern/interpolate.hpp"
 
@@ -58,16 +59,8 @@ double share_at_or_above(const CoverageCurve& c, double level_db) {
 }
 
 std::vector<double> component_power_samples(const FarFieldSet& s, std::size_t fi, Component c) {
-    const Grid& g = s.grid;
-    const FarField& f = s.frequencies.at(fi);
-    std::vector<double> out(g.size());
-    for (int j = 0; j < g.phi.count; ++j) {
-        const double p = g.phi.value_deg(j) * deg;
-        for (int i = 0; i < g.theta.count; ++i) {
-            const std::size_t n = g.index(i, j);
-            out[n] = component_power(decompose(f.e_theta[n], f.e_phi[n], p, s.ludwig3_reference), c);
-        }
-    }
+    std::vector<double> out(s.grid.size());
+    component_power_grid(s, fi, c, out.data());
     return out;
 }
 

@@ -42,8 +42,8 @@ CoverageCurve coverage_curve(const Grid& g, const std::vector<double>& values, E
 // Share of the band where the value is at least level_db (exact on the step function).
 double share_at_or_above(const CoverageCurve& c, double level_db);
 
-// Linear power of a component at every grid sample of one frequency (from the core's batch
-// decomposition). The caller checks that the data can give the component.
+// Linear power of a component at every grid sample of one frequency, as a new array
+// (component_power_grid of pattern/components.hpp). The caller checks that the data can give it.
 std::vector<double> component_power_samples(const FarFieldSet& s, std::size_t freq_index, Component c);
 
 // The same component of `b` at every grid sample of `a`'s grid (b interpolated on the Cartesian
