@@ -1,10 +1,5 @@
 // ellipsa render: a 3D snapshot of a pattern as PNG, through the headless EGL context (works with
 // no display at all), or the gain surface itself as a 3D file (.glb, .ply; no GL needed).
-#include <algorithm>
-#include <cctype>
-#include <cmath>
-#include <cstdio>
-#include <cstring>
 #include <filesystem>
 #include <iostream>
 #include <memory>
@@ -12,10 +7,8 @@
 
 #include "cli/commands.hpp"
 #include "cli/load.hpp"
-#include "cli/version.hpp"
-#include "exports/mesh_file.hpp"
-#include "io/atomic_write.hpp"
 #include "viewer/scene/surface_mesh.hpp"
+#include "viewer/exports_ui.hpp"
 #include "viewer/snapshot.hpp"
 
 namespace ellipsa::cli {
@@ -41,11 +34,6 @@ bool parse_pair(const std::string& s, char sep, double& a, double& b) {
     }
 }
 
-bool ends_with(const std::string& s, const char* tail) {
-    const std::size_t n = std::strlen(tail);
-    return s.size() >= n && std::equal(s.end() - long(n), s.end(), tail, [](char a, char b) { return std::tolower(a) == b; });
-}
-
 // The surface the view shows (viewer/scene/surface_mesh), written as glTF binary or PLY.
 Status write_mesh_file(const FarFieldSet& s, const viewer::SnapshotOptions& o, const std::string& path, bool overwrite) {
     viewer::SurfaceOptions so;
@@ -55,22 +43,7 @@ Status write_mesh_file(const FarFieldSet& s, const viewer::SnapshotOptions& o, c
     so.gain_map = o.gain_map;
     auto mesh = viewer::build_surface(s, o.frequency_index, so);
     if (!mesh) return mesh.error();
-    exports::MeshView m;
-    m.vertices = mesh->vertices.data();
-    m.vertex_count = mesh->vertices.size() / viewer::surface_floats_per_vertex;
-    m.stride = viewer::surface_floats_per_vertex;
-    m.indices = mesh->triangles.data();
-    m.index_count = mesh->triangles.size();
-    exports::MeshFileInfo info;
-    info.name = (s.name.empty() ? std::string("pattern") : s.name) + ", " + format_frequency(s.frequencies[o.frequency_index].frequency_hz);
-    info.generator = version_text().substr(0, version_text().find('\n'));
-    char c[256];
-    std::snprintf(c, sizeof c, "; radius: %s from %.1f (centre) to %.1f %s (radius 1); colour: %s %g..%g %s; +z up",
-                  to_string(o.component), mesh->floor_db, mesh->peak_db, mesh->unit.c_str(), mesh->bar.title.c_str(),
-                  mesh->bar.min, mesh->bar.max, mesh->bar.unit.c_str());
-    info.comment = info.name + c;
-    const std::string bytes = ends_with(path, ".glb") ? exports::to_glb(m, info) : exports::to_ply(m, info);
-    return io::write_file_atomically(path, bytes, overwrite);
+    return viewer::write_surface_file(s, o.frequency_index, o.component, *mesh, path, overwrite);
 }
 
 Registered add_render(CLI::App& root) {
@@ -142,7 +115,7 @@ Registered add_render(CLI::App& root) {
                     return exit_bad_input;
                 }
                 o.frequency_index = *k;
-                if (ends_with(a->out, ".glb") || ends_with(a->out, ".ply")) {
+                if (viewer::is_surface_file(a->out)) {
                     if (Status st = write_mesh_file(*s, o, a->out, a->force); !st) {
                         std::cerr << "ellipsa render: " << st.error().format() << "\n";
                         return exit_bad_input;

@@ -121,7 +121,10 @@ Intents run_exports(const Effects& fx, const AppState& s, const Derived& d, Wind
     Intents out;
     if (fx.export_cut)
         out.push_back(intent::ExportFinished{ExportTarget::cut, export_cut_file(s, d.cut.value(), fx.export_cut->path, fx.export_cut->overwrite)});
-    if (fx.export_view) {
+    if (fx.export_view && is_surface_file(fx.export_view->path)) {  // the surface itself: no GL needed
+        out.push_back(intent::ExportFinished{
+            ExportTarget::view, export_surface_file(s, d.surface.value().mesh, fx.export_view->path, fx.export_view->overwrite)});
+    } else if (fx.export_view) {
         glfwMakeContextCurrent(nullptr);  // the snapshot has its own headless context
         out.push_back(intent::ExportFinished{ExportTarget::view, export_view_file(s, fx.export_view->path, fx.export_view->overwrite)});
         w.context().make_current();

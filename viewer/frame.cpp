@@ -38,6 +38,8 @@ void file_menu(const AppState& s, Intents& in) {
     if (s.settings.recent_files.empty()) ImGui::MenuItem("(no recent files)", nullptr, false, false);
     ImGui::Separator();
     if (ImGui::MenuItem("Export 3D view as PNG", "Ctrl+E")) in.push_back(intent::ExportView{timestamped_name("ellipsa-view", "png"), false});
+    if (ImGui::MenuItem("Export 3D surface as glTF (.glb)")) in.push_back(intent::ExportView{timestamped_name("ellipsa-surface", "glb"), false});
+    if (ImGui::MenuItem("Export 3D surface as PLY")) in.push_back(intent::ExportView{timestamped_name("ellipsa-surface", "ply"), false});
     if (ImGui::MenuItem("Quit")) in.push_back(intent::Quit{});
     ImGui::EndMenu();
 }

@@ -52,7 +52,9 @@ int ScriptedRun::finish(const AppState& s, const Derived& d, Window& w) const {
         const std::string png = back_buffer_png(w);
         code |= report("--screenshot", write_export(o_.screenshot, o_.force, [&] { return io::write_file_atomically(o_.screenshot, png, o_.force); }));
     }
-    if (!o_.export_view.empty()) {
+    if (!o_.export_view.empty() && is_surface_file(o_.export_view)) {  // the surface as a 3D file: no GL needed
+        code |= report("--export-view", export_surface_file(s, d.surface.value().mesh, o_.export_view, o_.force));
+    } else if (!o_.export_view.empty()) {
         // The snapshot renders through its own headless context (the path of `ellipsa render`).
         glfwMakeContextCurrent(nullptr);
         code |= report("--export-view", export_view_file(s, o_.export_view, o_.force));
