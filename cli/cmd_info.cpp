@@ -9,6 +9,7 @@
 #include "cli/format.hpp"
 #include "cli/json.hpp"
 #include "cli/load.hpp"
+#include "exports/figure_text.hpp"
 #include "pattern/integrate.hpp"
 #include "pattern/summary.hpp"
 
@@ -49,12 +50,16 @@ void write_json(const FarFieldSet& s, const std::vector<std::size_t>& which, con
     for (const PatternSummary& r : rs) {
         j.begin_object();
         j.field("frequency_hz", r.frequency_hz);
-        j.field("peak_db", r.peak_db).field("peak_theta_deg", r.peak.theta_deg).field("peak_phi_deg", r.peak.phi_deg);
+        // A zero field has no peak direction: null, with zero_field true (docs/guide.md, JSON keys).
+        std::optional<double> pt, pp;
+        if (!r.zero_field) pt = r.peak.theta_deg, pp = r.peak.phi_deg;
+        j.field("peak_db", r.peak_db).field("peak_theta_deg", pt).field("peak_phi_deg", pp);
+        j.field("zero_field", r.zero_field);
         j.field("directivity_dbi", r.directivity_dbi);
         j.field("radiation_efficiency", r.power.radiation_efficiency);
         j.field("hpbw_elevation_deg", r.hpbw_elevation_deg);
         j.field("hpbw_azimuth_deg", r.hpbw_azimuth_deg);
-        j.field("front_to_back_db", r.front_to_back_db);
+        j.field("front_to_back_db", r.front_to_back_db).field("front_to_back_above_db", r.front_to_back_above_db);
         j.field("sidelobe_elevation_db", r.sidelobe_elevation_db);
         j.field("axial_ratio_db", r.axial_ratio_db);
         j.key("sense");
@@ -66,6 +71,9 @@ void write_json(const FarFieldSet& s, const std::vector<std::size_t>& which, con
         if (r.power.directivity_sampled_only) d_sampled = to_db(*r.power.directivity_sampled_only);
         j.field("directivity_sampled_region_only_dbi", d_sampled);
         if (!r.unavailable_reason.empty()) j.field("unavailable_reason", r.unavailable_reason);
+        j.key("warnings").begin_array();
+        if (r.efficiency_above_100) j.value(exports::efficiency_warning_text(*r.power.radiation_efficiency));
+        j.end_array();
         circular_json(j, circular_figures(s, which[std::size_t(&r - rs.data())], r));  // issue 16: AR beamwidth
         j.end_object();
     }
@@ -95,8 +103,11 @@ void write_human(const std::string& path, const FarFieldSet& s, const std::vecto
     std::cout << "  coverage     " << buf << "\n";
     for (const PatternSummary& r : rs) {
         std::cout << "\n  " << format_frequency(r.frequency_hz) << "\n";
-        std::snprintf(buf, sizeof buf, " at theta %.1f, phi %.1f deg", r.peak.theta_deg, r.peak.phi_deg);
-        std::cout << "    peak                  " << fmt(r.peak_db, u) << buf << "\n";
+        std::cout << "    peak                  " << exports::peak_text(r, u, "deg") << "\n";
+        if (r.zero_field) {
+            std::cout << "    every sample is zero: no peak direction, beam or polarisation figures\n";
+            continue;
+        }
         if (r.directivity_dbi)
             std::cout << "    directivity           " << fmt(r.directivity_dbi, "dBi") << "\n";
         else if (r.power.directivity_sampled_only)
@@ -108,19 +119,18 @@ void write_human(const std::string& path, const FarFieldSet& s, const std::vecto
                       : s.quantity == Quantity::gain ? std::string("unavailable (partial sphere)")
                                                      : std::string("unavailable (needs absolute gain data)"))
                   << "\n";
+        if (r.efficiency_above_100) std::cout << "    warning: " << exports::efficiency_warning_text(*r.power.radiation_efficiency) << "\n";
         std::cout << "    HPBW elevation        "
                   << fmt(r.hpbw_elevation_deg, "deg", 1, "none (no half-power points on this cut)") << "\n";
         std::cout << "    HPBW azimuth          "
                   << fmt(r.hpbw_azimuth_deg, "deg", 1, "none (no half-power points: omnidirectional)") << "\n";
-        std::cout << "    front-to-back         " << fmt(r.front_to_back_db, "dB", 2, "unavailable") << "\n";
-        std::cout << "    polarisation at peak  ";
-        if (!r.sense)
-            std::cout << "unavailable (" << r.unavailable_reason << ")\n";
-        else if (*r.sense == Sense::linear)
-            std::cout << "linear (axial ratio infinite)\n";
-        else
-            std::cout << to_string(*r.sense) << "-hand, axial ratio " << fmt(r.axial_ratio_db, "dB")
-                      << (r.axial_ratio_db && *r.axial_ratio_db > 30 ? " (nearly linear)" : "") << "\n";
+        std::cout << "    front-to-back         "
+                  << (r.front_to_back_above_db ? "above " + fmt(*r.front_to_back_above_db, "dB", 0) + " (the back direction is a null)"
+                                               : fmt(r.front_to_back_db, "dB", 2, "unavailable (the back direction lies outside the data)"))
+                  << "\n";
+        std::cout << "    polarisation at peak  "
+                  << (r.sense ? exports::polarisation_text(*r.sense, r.axial_ratio_db) : "unavailable (" + r.unavailable_reason + ")")
+                  << "\n";
         // issue 16: AR beamwidth around the peak and the AR <= 3 dB share of the sphere.
         std::cout << "    AR beamwidth (3 dB)   " << circular_text(circular_figures(s, which[std::size_t(&r - rs.data())], r)) << "\n";
     }

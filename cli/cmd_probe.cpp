@@ -9,6 +9,7 @@
 #include "cli/format.hpp"
 #include "cli/json.hpp"
 #include "cli/load.hpp"
+#include "exports/figure_text.hpp"
 #include "pattern/interpolate.hpp"
 #include "pattern/polarisation.hpp"
 
@@ -51,7 +52,7 @@ struct Available {
 
 Available available(const FarFieldSet& s, const PolarisationState& p) {
     Available v{s.has_phase(), s.content != FieldContent::total_only, std::nullopt, nullptr};
-    if (v.ph && std::isfinite(p.axial_ratio)) v.ar_db = 20 * std::log10(p.axial_ratio);
+    if (v.ph) v.ar_db = p.axial_ratio_db;  // as reported: none when linear (40 dB and up) or zero
     v.sense = v.ph && p.sense != Sense::none ? to_string(p.sense) : nullptr;
     return v;
 }
@@ -72,7 +73,7 @@ void print_json(const ProbeArgs& a, const FarFieldSet& s, std::size_t fi, Ludwig
     j.field("ludwig3_reference", ref == Ludwig3Reference::x ? "x" : "y");
     j.field("axial_ratio_db", v.ar_db);
     j.key("tilt_deg");
-    if (v.ph && p.sense != Sense::none) j.value(p.tilt_deg); else j.null();
+    if (v.ph && p.sense != Sense::none) j.value(p.tilt_deg); else j.null();  // NaN (near circular): null
     j.key("sense");
     if (v.sense) j.value(v.sense); else j.null();
     j.key("stokes").begin_array();
@@ -103,11 +104,14 @@ void print_text(const ProbeArgs& a, const FarFieldSet& s, std::size_t fi, Ludwig
     line("LHCP", ph ? fmt(to_db(p.lhcp), uc) : np);
     line(ref == Ludwig3Reference::x ? "co (Ludwig-3, x ref)" : "co (Ludwig-3, y ref)", ph ? fmt(to_db(p.co), u) : np);
     line("cross (Ludwig-3)", ph ? fmt(to_db(p.cross), u) : np);
-    line("axial ratio", !ph ? np : v.ar_db ? fmt(v.ar_db, "dB") : std::string("infinite (linear)"));
-    line("tilt", ph ? fmt(p.tilt_deg, "deg", 1) : np);
-    line("sense", v.sense ? v.sense : np);
+    line("axial ratio", ph ? exports::axial_ratio_text(p.sense, p.axial_ratio_db) : np);
+    line("tilt", ph ? exports::tilt_text(p.tilt_deg, p.sense, "deg") : np);
+    line("sense", ph ? exports::sense_text(p.sense) : np);
+    // Rounding residue (below 1e-12 of I) prints as 0, never as "-0" or "-1e-17".
+    auto clean = [&](double x) { return std::abs(x) <= 1e-12 * p.stokes.i ? 0.0 : x; };
     char buf[160];
-    std::snprintf(buf, sizeof buf, "I %.6g, Q %.6g, U %.6g, V %.6g", p.stokes.i, p.stokes.q, p.stokes.u, p.stokes.v);
+    std::snprintf(buf, sizeof buf, "I %.6g, Q %.6g, U %.6g, V %.6g", p.stokes.i, clean(p.stokes.q), clean(p.stokes.u),
+                  clean(p.stokes.v));
     line("Stokes (linear)", ph ? std::string(buf) : np);
 }
 

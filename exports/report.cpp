@@ -7,6 +7,7 @@
 
 #include "exports/cut_figure.hpp"
 #include "exports/document.hpp"
+#include "exports/figure_text.hpp"
 #include "exports/report_views.hpp"
 #include "io/atomic_write.hpp"
 #include "pattern/cut.hpp"
@@ -25,12 +26,6 @@ std::vector<Component> report_components(const FarFieldSet& s, const PatternSumm
 
 namespace {
 
-std::string fixed(double v, int decimals) {
-    if (std::abs(v) < 0.5 * std::pow(10.0, -decimals)) v = 0;
-    char b[48];
-    std::snprintf(b, sizeof b, "%.*f", decimals, v);
-    return b;
-}
 std::string opt(const std::optional<double>& v, int decimals, const std::string& unit, const std::string& missing) {
     return v ? fixed(*v, decimals) + unit : missing;
 }
@@ -99,8 +94,10 @@ std::vector<std::pair<std::string, std::string>> figure_rows(const FarFieldSet& 
                                                             const ReportOptions& o) {
     std::vector<std::pair<std::string, std::string>> v;
     v.emplace_back(std::string(quantity_word(s.quantity)) + (s.quantity == Quantity::relative ? " (dB)" : " (dBi)"),
-                   fixed(r.peak_db, 2));
-    v.emplace_back("Peak direction", "θ " + fixed(r.peak.theta_deg, 1) + "°, φ " + fixed(r.peak.phi_deg, 1) + "°");
+                   r.zero_field ? std::string("none (zero field)") : fixed(r.peak_db, db_decimals));
+    v.emplace_back("Peak direction", r.zero_field ? std::string("none (zero field)")
+                                                  : "θ " + fixed(r.peak.theta_deg, angle_decimals) + "°, φ " +
+                                                        fixed(r.peak.phi_deg, angle_decimals) + "°");
     std::string d;
     if (r.directivity_dbi)
         d = fixed(*r.directivity_dbi, 2);
@@ -111,26 +108,19 @@ std::vector<std::pair<std::string, std::string>> figure_rows(const FarFieldSet& 
         d = "unavailable";
     v.emplace_back("Directivity (dBi)", d);
     v.emplace_back("Radiation efficiency (%)",
-                   r.power.radiation_efficiency ? fixed(100 * *r.power.radiation_efficiency, 1)
+                   r.power.radiation_efficiency ? fixed(100 * *r.power.radiation_efficiency, percent_decimals) +
+                                                      (r.efficiency_above_100 ? " (" + efficiency_warning_text(*r.power.radiation_efficiency) + ")" : "")
                    : s.quantity == Quantity::gain ? std::string("unavailable (partial sphere)")
                                                   : std::string("unavailable (needs absolute gain data)"));
     v.emplace_back("HPBW, elevation plane through the peak (°)", opt(r.hpbw_elevation_deg, 1, "", "none (no half-power points)"));
     v.emplace_back("HPBW, azimuth-like plane through the peak (°)",
                    opt(r.hpbw_azimuth_deg, 1, "", "none (no half-power points: omnidirectional)"));
-    // Beyond 60 dB the back direction is a numerical null, not a measurable figure.
-    v.emplace_back("Front-to-back (dB)", !r.front_to_back_db        ? std::string("unavailable (back outside the data, or zero)")
-                                         : *r.front_to_back_db > 60 ? std::string("> 60")
-                                                                    : fixed(*r.front_to_back_db, 2));
-    std::string ar;
-    if (!r.sense)
-        ar = "unavailable (no phase in the data)";
-    else if (*r.sense == Sense::linear)
-        ar = "linear (infinite)";
-    else if (*r.sense == Sense::none)
-        ar = "zero field";
-    else
-        ar = opt(r.axial_ratio_db, 2, "", "?") + (*r.sense == Sense::right ? " (right-hand)" : " (left-hand)");
-    v.emplace_back("Axial ratio at the peak (dB)", ar);
+    // Beyond null_ratio_bound_db the back direction is a null, not a measurable level.
+    v.emplace_back("Front-to-back (dB)", r.front_to_back_above_db ? "above " + fixed(*r.front_to_back_above_db, 0) + " (the back is a null)"
+                                         : r.front_to_back_db     ? fixed(*r.front_to_back_db, db_decimals)
+                                                                  : std::string("unavailable (back outside the data)"));
+    v.emplace_back("Polarisation at the peak", r.sense ? polarisation_text(*r.sense, r.axial_ratio_db)
+                                                       : "unavailable (" + r.unavailable_reason + ")");
     if (o.environment) {
         // The one diversity study (pattern/diversity_study.hpp), as `ellipsa diversity` computes it.
         auto st = study_diversity(*o.environment, DiversityOptions{}, {StudyPattern{&s, s.name, {fi}}});

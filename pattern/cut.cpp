@@ -9,6 +9,17 @@
 
 namespace ellipsa {
 
+RatioDb ratio_db(double num, double den) {
+    RatioDb r;
+    if (!(num > 0) || !(den >= 0)) return r;
+    const double d = to_db(num) - to_db(den);  // +inf for a zero denominator
+    if (d > null_ratio_bound_db)
+        r.above_db = null_ratio_bound_db;
+    else
+        r.db = d;
+    return r;
+}
+
 CutSpec CutSpec::phi_cut(double phi_deg) {
     CutSpec c;
     c.kind = CutKind::phi_const;

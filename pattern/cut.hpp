@@ -18,6 +18,17 @@
 
 namespace ellipsa {
 
+// Ratios against a null (front-to-back, cross-polar discrimination, any ratio whose denominator
+// can be an exact zero): beyond null_ratio_bound_db the denominator is a null of the pattern or
+// of rounding, not a level anyone measures, so the ratio is reported only as "above 60 dB".
+inline constexpr double null_ratio_bound_db = 60;
+struct RatioDb {
+    std::optional<double> db;        // the ratio, when at most null_ratio_bound_db
+    std::optional<double> above_db;  // null_ratio_bound_db, when the ratio exceeds it (or the denominator is zero)
+};
+// The ratio of two linear powers in dB. Nothing when the numerator is not positive or either is NaN.
+RatioDb ratio_db(double numerator, double denominator);
+
 enum class CutKind { phi_const, theta_const, great_circle };
 
 struct CutSpec {

@@ -29,16 +29,26 @@ void from_ludwig3(cplx co, cplx cross, double c, double s, Ludwig3Reference ref,
 
 double axial_ratio(cplx et, cplx ep) { return axial_ratio_from_circular(std::norm(rhcp(et, ep)), std::norm(lhcp(et, ep))); }
 
+std::optional<double> reported_axial_ratio_db(double ar) {
+    if (!(ar < linear_axial_ratio)) return std::nullopt;  // linear, or NaN for a zero field
+    return 20 * std::log10(ar);
+}
+
 double tilt_deg(const Stokes& s) {
-    if (s.q == 0 && s.u == 0) return 0.0;  // circular or zero: tilt undefined, report 0
+    // Degree of linear polarisation sqrt(Q^2 + U^2) / I = (AR^2 - 1) / (AR^2 + 1) (Born & Wolf sec. 1.4).
+    constexpr double a2 = circular_axial_ratio * circular_axial_ratio, min_linear = (a2 - 1) / (a2 + 1);
+    if (!(s.i > 0) || s.q * s.q + s.u * s.u < min_linear * min_linear * s.i * s.i)
+        return std::numeric_limits<double>::quiet_NaN();
     double t = 0.5 * std::atan2(s.u, s.q) / deg;
     if (t <= -90.0) t += 180.0;
     return t;
 }
 
 Sense sense_of(const Stokes& s) {
+    // |V| / I = 2 AR / (AR^2 + 1): at or below that of linear_axial_ratio the field is linear.
+    constexpr double max_v = 2 * linear_axial_ratio / (linear_axial_ratio * linear_axial_ratio + 1);
     if (!(s.i > 0)) return Sense::none;
-    if (std::abs(s.v) <= linear_threshold * s.i) return Sense::linear;
+    if (std::abs(s.v) <= max_v * s.i) return Sense::linear;
     return s.v > 0 ? Sense::right : Sense::left;
 }
 
@@ -63,6 +73,10 @@ PolarisationState decompose(cplx et, cplx ep, double phi_rad, Ludwig3Reference r
     p.stokes.v = p.rhcp - p.lhcp;  // same value, without the cancellation in 2 Im(Et Ep*)
     p.tilt_deg = tilt_deg(p.stokes);
     p.sense = sense_of(p.stokes);
+    if (p.sense == Sense::right || p.sense == Sense::left) {
+        p.axial_ratio_db = reported_axial_ratio_db(p.axial_ratio);
+        if (!p.axial_ratio_db) p.sense = Sense::linear;  // the two forms of the threshold agree up to rounding
+    }
     return p;
 }
 

@@ -11,6 +11,7 @@
 #pragma once
 #include <cstddef>
 #include <limits>
+#include <optional>
 #include <vector>
 
 #include "pattern/components.hpp"
@@ -21,9 +22,22 @@ namespace ellipsa {
 enum class Sense { right, left, linear, none };  // none: zero field
 const char* to_string(Sense s);
 
-// Below this |V|/I a field is reported as linear (AR infinite). Double-precision rounding of a
-// truly linear field leaves |V|/I near 1e-16; this keeps a margin for data written to 15+ digits.
+// Below this |V|/I the axial ratio is exactly infinite. Double-precision rounding of a truly
+// linear field leaves |V|/I near 1e-16; this keeps a margin for data written to 15+ digits.
 inline constexpr double linear_threshold = 1e-12;
+
+// The thresholds that decide what a polarisation is reported as (conventions.md, "Honest
+// figures"); every output (text, JSON, viewer, glyphs, report) goes through sense_of(),
+// reported_axial_ratio_db() and tilt_deg(), which apply them.
+// - At or above linear_axial_ratio_db (40 dB: the minor axis is under 1 % of the major) the field
+//   is linear: sense "linear", no left or right, no axial-ratio number. The sense of such a field
+//   is decided by rounding and measurement noise, not by the antenna.
+// - Below circular_axial_ratio_db (0.1 dB: the axes differ by under 1.2 %) the tilt is undefined:
+//   the orientation of a near-circle is decided by noise.
+inline constexpr double linear_axial_ratio_db = 40.0;
+inline constexpr double linear_axial_ratio = 100.0;  // 10^(40/20)
+inline constexpr double circular_axial_ratio_db = 0.1;
+inline constexpr double circular_axial_ratio = 1.0115794542598986;  // 10^(0.1/20)
 
 struct Stokes {
     double i = 0, q = 0, u = 0, v = 0;
@@ -62,17 +76,23 @@ inline double axial_ratio_from_circular(double rhcp_power, double lhcp_power) {
     return s * s / av;
 }
 double axial_ratio(cplx et, cplx ep);
-// Tilt of the major axis from theta-hat toward phi-hat, degrees in (-90, 90]; 0 for zero field.
+// The axial ratio in dB as reported: nullopt for a linear field (at or above
+// linear_axial_ratio_db) and for a zero field (NaN in).
+std::optional<double> reported_axial_ratio_db(double axial_ratio);
+// Tilt of the major axis from theta-hat toward phi-hat, degrees in (-90, 90]; NaN where it is
+// undefined: a zero field, or an axial ratio below circular_axial_ratio_db.
 double tilt_deg(const Stokes& s);
+// none for a zero field, linear at or above linear_axial_ratio_db, else right (V > 0) or left.
 Sense sense_of(const Stokes& s);
 
 // Everything about one sample. Powers are linear in the set's quantity.
 struct PolarisationState {
     cplx e_theta, e_phi, e_rhcp, e_lhcp, e_co, e_cross;
     double total = 0, theta = 0, phi = 0, rhcp = 0, lhcp = 0, co = 0, cross = 0;
-    double axial_ratio = 0;  // linear; +inf when linear, NaN when zero field
-    double tilt_deg = 0;
-    Sense sense = Sense::none;
+    double axial_ratio = 0;                // linear, as measured; +inf when exactly linear, NaN for a zero field
+    std::optional<double> axial_ratio_db;  // as reported: only for right- and left-hand fields
+    double tilt_deg = 0;                   // NaN where undefined (zero field, near circular)
+    Sense sense = Sense::none;             // as reported (thresholds above)
     Stokes stokes;
 };
 

@@ -1,6 +1,7 @@
 #include "pattern/summary.hpp"
 
 #include <cmath>
+#include <limits>
 
 #include "pattern/cut.hpp"
 #include "pattern/interpolate.hpp"
@@ -13,7 +14,15 @@ PatternSummary summarize(const FarFieldSet& s, std::size_t fi) {
     r.peak = find_peak(s, fi, Component::total);
     r.peak_db = to_db(r.peak.value);
     r.power = power_figures(s, fi, r.peak.value);
+    r.tilt_deg = std::numeric_limits<double>::quiet_NaN();
+    if (!(r.peak.value > 0)) {  // a zero field has no direction, sense or tilt (conventions.md)
+        r.zero_field = true;
+        if (auto why = polarisation_unavailable(s)) r.unavailable_reason = *why;
+        else r.sense = Sense::none;
+        return r;
+    }
     if (r.power.directivity) r.directivity_dbi = to_db(*r.power.directivity);
+    r.efficiency_above_100 = r.power.radiation_efficiency && *r.power.radiation_efficiency > 1 + efficiency_tolerance;
 
     const Vec3 pd = direction(r.peak.theta_deg * deg, r.peak.phi_deg * deg);
     const double step = default_cut_step(s.grid);
@@ -28,22 +37,18 @@ PatternSummary summarize(const FarFieldSet& s, std::size_t fi) {
         BeamFigures b = beam_figures(c.angle_deg, cut_power(s, c, Component::total), nearest_cut_sample(c, pd));
         r.hpbw_azimuth_deg = b.hpbw_deg;
     }
-    auto back = interpolate(s, fi, 180.0 - r.peak.theta_deg, r.peak.phi_deg + 180.0);
-    if (back) {
-        const double u = power(back->e_theta, back->e_phi);
-        if (u > 0) r.front_to_back_db = r.peak_db - to_db(u);
+    if (auto back = interpolate(s, fi, 180.0 - r.peak.theta_deg, r.peak.phi_deg + 180.0)) {
+        const RatioDb fb = ratio_db(r.peak.value, power(back->e_theta, back->e_phi));
+        r.front_to_back_db = fb.db;
+        r.front_to_back_above_db = fb.above_db;
     }
-    if (s.has_phase()) {
-        auto f = interpolate(s, fi, r.peak.theta_deg, r.peak.phi_deg);
-        if (f) {
-            const PolarisationState st = decompose(f->e_theta, f->e_phi, r.peak.phi_deg * deg, s.ludwig3_reference);
-            r.sense = st.sense;
-            const double ar = st.axial_ratio;
-            if (std::isfinite(ar)) r.axial_ratio_db = 20 * std::log10(ar);
-        }
-    } else {
-        r.unavailable_reason = std::string("the data are ") + to_string(s.content) +
-                               ": axial ratio and sense need the phase between E_theta and E_phi";
+    if (auto why = polarisation_unavailable(s)) {
+        r.unavailable_reason = *why;
+    } else if (auto f = interpolate(s, fi, r.peak.theta_deg, r.peak.phi_deg)) {
+        const PolarisationState st = decompose(f->e_theta, f->e_phi, r.peak.phi_deg * deg, s.ludwig3_reference);
+        r.sense = st.sense;
+        r.axial_ratio_db = st.axial_ratio_db;
+        r.tilt_deg = st.tilt_deg;
     }
     return r;
 }

@@ -11,18 +11,26 @@
 
 namespace ellipsa {
 
+// Above this radiation efficiency (1 %: well beyond the integration error of any grid the tool
+// reads) efficiency from absolute gain data is a data problem: flagged, the figures still given.
+inline constexpr double efficiency_tolerance = 0.01;
+
 struct PatternSummary {
     double frequency_hz = 0;
-    Peak peak;                       // total power
-    double peak_db = 0;              // 10 log10 of the refined peak (dBi for gain/directivity)
+    bool zero_field = false;         // every sample is zero: no peak direction, beam or polarisation figures
+    Peak peak;                       // total power (direction meaningless when zero_field)
+    double peak_db = 0;              // 10 log10 of the refined peak (dBi for gain/directivity); -inf when zero_field
     PowerFigures power;              // radiated power, coverage, directivity, efficiency
     std::optional<double> directivity_dbi;
+    bool efficiency_above_100 = false;  // radiation efficiency above 1 + efficiency_tolerance: a data problem
     std::optional<double> hpbw_elevation_deg;  // phi = const cut through the peak
     std::optional<double> hpbw_azimuth_deg;    // orthogonal great circle through the peak
-    std::optional<double> front_to_back_db;    // peak against the antipode
+    std::optional<double> front_to_back_db;    // peak against the antipode, when at most null_ratio_bound_db
+    std::optional<double> front_to_back_above_db;  // null_ratio_bound_db when the back is a null (ratio beyond it)
     std::optional<double> sidelobe_elevation_db;
-    std::optional<double> axial_ratio_db;      // at the peak; nullopt when linear or no phase
-    std::optional<Sense> sense;                // at the peak; nullopt without phase
+    std::optional<double> axial_ratio_db;      // at the peak, as reported: none when linear, zero or without phase
+    std::optional<Sense> sense;                // at the peak, as reported; nullopt without phase
+    double tilt_deg = 0;                       // at the peak; NaN where undefined (near circular, zero, no phase)
     std::string unavailable_reason;            // why phase-dependent figures are missing, if they are
 };
 

@@ -6,6 +6,7 @@
 #include <cstdio>
 #include <filesystem>
 
+#include "exports/figure_text.hpp"
 #include "viewer/exports_ui.hpp"
 #include "viewer/scene/components.hpp"
 #include "viewer/widgets.hpp"
@@ -110,28 +111,25 @@ void pattern_table(const AppState& s, Intents& in) {
 }
 
 std::string polarisation_at_peak(const PatternSummary& sm) {
-    if (!sm.sense) return "n/a";
-    if (*sm.sense == Sense::linear) return "linear (AR infinite)";
-    if (*sm.sense == Sense::none) return "no field";
-    if (sm.axial_ratio_db && *sm.axial_ratio_db > 40)  // as the glyphs and the pinned ellipse
-        return "nearly linear, AR " + opt_text(sm.axial_ratio_db, "dB", "?");
-    return std::string(to_string(*sm.sense)) + "-hand, AR " + opt_text(sm.axial_ratio_db, "dB", "?");
+    return sm.sense ? exports::polarisation_text(*sm.sense, sm.axial_ratio_db) : std::string("n/a");
 }
 
 void headline_figures(const LoadedPattern& a, const PatternSummary& sm) {
     if (!ImGui::BeginTable("figures", 2, ImGuiTableFlags_SizingStretchProp)) return;
-    const char* u = a.set.quantity == Quantity::relative ? "dB" : "dBi";
+    const char* u = db_unit(a.set.quantity, Component::total);
     char b[96];
-    std::snprintf(b, sizeof b, "%.2f %s  (\u03b8 %.0f\u00b0, \u03c6 %.0f\u00b0)", sm.peak_db, u, sm.peak.theta_deg, sm.peak.phi_deg);
-    table_row("Peak", b, "Largest total value and its direction");
+    table_row("Peak", exports::peak_text(sm, u, "\u00b0"), "Largest total value and its direction");
     table_row("Directivity", opt_text(sm.directivity_dbi, "dBi", "needs the full sphere"), "4 pi U_max / P over the whole sphere");
     if (sm.power.radiation_efficiency) {
         std::snprintf(b, sizeof b, "%.1f %%", 100 * *sm.power.radiation_efficiency);
         table_row("Efficiency", b, "Radiated power over 4 pi, from absolute gain data");
+        if (sm.efficiency_above_100) table_row("Warning", "efficiency above 100 %", exports::efficiency_warning_text(*sm.power.radiation_efficiency).c_str());
     }
     table_row("HPBW elev.", opt_text(sm.hpbw_elevation_deg, "\u00b0", "none"), "Half-power beamwidth on the phi = const cut through the peak");
     table_row("HPBW azim.", opt_text(sm.hpbw_azimuth_deg, "\u00b0", "none (omni)"), "Half-power beamwidth across it");
-    table_row("Front/back", opt_text(sm.front_to_back_db, "dB", "n/a"), "Peak against the opposite direction");
+    table_row("Front/back", sm.front_to_back_above_db ? "above " + exports::fixed(*sm.front_to_back_above_db, 0) + " dB (null)"
+                                                      : opt_text(sm.front_to_back_db, "dB", "n/a"),
+              "Peak against the opposite direction");
     table_row("Pol. at peak", polarisation_at_peak(sm), "Sense and axial ratio at the peak (IEEE Std 145)");
     ImGui::EndTable();
 }
@@ -214,9 +212,9 @@ void surface_style(ViewerSettings& st) {
     ImGui::SameLine(ImGui::GetContentRegionAvail().x * 0.5f);
     ImGui::Checkbox("Translucent", &st.translucent);
     ImGui::Checkbox("Polarisation ellipses", &st.glyphs);
-    help_marker("Small ellipses on the surface: their shape and tilt are the field's, orange turns right-hand, blue "
-                "left-hand, black is linear (AR above 40 dB). The arrowhead shows the sense of rotation seen along the "
-                "direction of propagation.");
+    help_marker(("Small ellipses on the surface: their shape and tilt are the field's, orange turns right-hand, blue "
+                 "left-hand, black is linear (AR " + exports::fixed(linear_axial_ratio_db, 0) + " dB and above). The arrowhead "
+                 "shows the sense of rotation seen along the direction of propagation.").c_str());
     if (!st.glyphs) return;
     float sp = float(st.glyph_spacing_deg);
     ImGui::SetNextItemWidth(-90);
@@ -268,15 +266,13 @@ const char* definition(Component c) {
 }
 
 void polarisation_rows(const PolarisationState& st) {
-    const double ar = st.axial_ratio;
-    table_row("Axial ratio",
-              std::isinf(ar) ? "infinite (linear)" : std::isnan(ar) ? "n/a (no field)" : db_text(20 * std::log10(ar), "dB"),
-              "Major over minor axis of the polarisation ellipse, in dB; 0 dB is circular, infinite is linear");
-    char b[96];
-    std::snprintf(b, sizeof b, "%.1f\u00b0", st.tilt_deg);
-    table_row("Tilt", b, "Angle of the ellipse's major axis from theta-hat toward phi-hat, degrees in (-90, 90]");
-    table_row("Sense", st.sense == Sense::right ? "right-hand" : st.sense == Sense::left ? "left-hand" : st.sense == Sense::linear ? "linear" : "no field",
+    table_row("Axial ratio", exports::axial_ratio_text(st.sense, st.axial_ratio_db),
+              "Major over minor axis of the polarisation ellipse, in dB; 0 dB is circular; linear at 40 dB and above");
+    table_row("Tilt", exports::tilt_text(st.tilt_deg, st.sense, "\u00b0"),
+              "Angle of the ellipse's major axis from theta-hat toward phi-hat, degrees in (-90, 90]");
+    table_row("Sense", exports::sense_text(st.sense),
               "Right-hand: the field turns clockwise seen along the direction of propagation (IEEE Std 145)");
+    char b[96];
     const Stokes& S = st.stokes;
     if (!(S.i > 0)) return;
     std::snprintf(b, sizeof b, "%.4g", S.i);

@@ -24,10 +24,10 @@ void draw_ellipse(ImDrawList* dl, ImVec2 c, float r, cplx et, cplx ep) {
     const std::vector<PlanePoint> path = ellipse_path(et, ep, 96);
     if (path.empty()) return;
     const Stokes st = stokes(et, ep);
-    // As on the surface glyphs: above 40 dB axial ratio the ellipse is drawn as linear (black, no arrow).
-    const double ar = axial_ratio(et, ep);
-    const bool linear = !(20 * std::log10(ar) < 40);
-    const ImU32 col = linear ? ink : (st.v > 0 ? right_col : left_col);
+    // The core's sense (linear from linear_axial_ratio_db up), as on the surface glyphs: black, no arrow.
+    const Sense sense = sense_of(st);
+    const bool linear = sense != Sense::right && sense != Sense::left;
+    const ImU32 col = linear ? ink : (sense == Sense::right ? right_col : left_col);
     std::vector<ImVec2> pts;
     for (const PlanePoint& p : path) pts.push_back(ImVec2(c.x + r * float(p.x), c.y - r * float(p.y)));
     dl->AddPolyline(pts.data(), int(pts.size()), col, ImDrawFlags_Closed, 2.0f);

@@ -106,7 +106,7 @@ TEST_CASE("report: files, self-contained HTML, same figures in HTML and Markdown
         CHECK((doc->find("| 2.15 |") != std::string::npos || doc->find(">2.15<") != std::string::npos));
         CHECK(doc->find("78.0") != std::string::npos);
         CHECK(doc->find("1.76") != std::string::npos);
-        CHECK(doc->find("0.00 (right-hand)") != std::string::npos);
+        CHECK(doc->find("right-hand, axial ratio 0.00 dB") != std::string::npos);
         CHECK(doc->find("Comparison") != std::string::npos);
         // Uniform environment, XPR 0 dB: MEG = efficiency / 2 = -3.01 dB for a lossless antenna
         // (Taga 1990; conventions.md), for both antennas.

@@ -58,10 +58,9 @@ LineSet build_glyphs(const FarFieldSet& s, std::size_t k, const SurfaceMesh& m, 
             if (!f) continue;
             const std::vector<PlanePoint> path = ellipse_path(f->e_theta, f->e_phi, o.points);
             if (path.empty()) continue;
-            const Stokes st = stokes(f->e_theta, f->e_phi);
-            const double ar = axial_ratio(f->e_theta, f->e_phi);
-            const bool linear = !(20 * std::log10(ar) < o.linear_ar_db);
-            const Rgb col = linear ? o.linear : (st.v > 0 ? o.right : o.left);
+            const Sense sense = sense_of(stokes(f->e_theta, f->e_phi));  // the core's thresholds
+            const bool linear = sense != Sense::right && sense != Sense::left;
+            const Rgb col = linear ? o.linear : (sense == Sense::right ? o.right : o.left);
             const Vec3 d = direction(th * deg, ph * deg);
             const Vec3 c0 = (radius + 0.015) * d;
             const Vec3 tx = phi_hat(ph * deg), ty = theta_hat(th * deg, ph * deg);

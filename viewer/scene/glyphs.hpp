@@ -35,11 +35,10 @@ double signed_area2(const std::vector<PlanePoint>& path);
 
 // Glyph line segments over the sphere: an ellipse at every sampled direction whose shown component
 // is above the surface floor, lifted a little off the surface, with a short arrowhead showing
-// the sense. Colour: right-hand, left-hand or linear (axial ratio above linear_ar_db).
+// the sense. Colour: right-hand, left-hand or linear (the core's sense_of: linear_axial_ratio_db and up).
 struct GlyphOptions {
     double spacing_deg = 15;  // between glyph centres along theta, and about the same along phi
     double size = 0.06;       // major semi-axis in view units (the peak radius is 1)
-    double linear_ar_db = 40; // axial ratios above this are drawn as linear
     int points = 24;          // per ellipse
     Rgb right{0.84f, 0.37f, 0.0f};   // Okabe-Ito vermillion
     Rgb left{0.0f, 0.30f, 0.55f};    // dark blue

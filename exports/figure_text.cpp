@@ -1,0 +1,67 @@
+#include "exports/figure_text.hpp"
+
+#include <cmath>
+#include <cstdio>
+
+namespace ellipsa::exports {
+
+std::string fixed(double v, int decimals) {
+    if (std::isnan(v)) return "n/a";
+    if (std::isinf(v)) return v < 0 ? "-inf" : "inf";
+    if (std::abs(v) < 0.5 * std::pow(10.0, -decimals)) v = 0;  // no "-0.0"
+    char b[64];
+    std::snprintf(b, sizeof b, "%.*f", decimals, v);
+    return b;
+}
+
+std::string with_unit(double v, int decimals, const std::string& unit) {
+    const bool tight = unit.empty() || unit == "\u00b0";
+    return fixed(v, decimals) + (tight ? "" : " ") + unit;
+}
+
+const char* sense_text(Sense s) {
+    switch (s) {
+        case Sense::right: return "right-hand";
+        case Sense::left: return "left-hand";
+        case Sense::linear: return "linear";
+        case Sense::none: return "zero field";
+    }
+    return "zero field";
+}
+
+std::string axial_ratio_text(Sense s, const std::optional<double>& ar_db) {
+    if (s == Sense::none) return "none (zero field)";
+    if (s == Sense::linear || !ar_db) return "above " + fixed(linear_axial_ratio_db, 0) + " dB (linear)";
+    return with_unit(*ar_db, db_decimals, "dB");
+}
+
+std::string polarisation_text(Sense s, const std::optional<double>& ar_db) {
+    if (s == Sense::none) return "zero field (no polarisation)";
+    if (s == Sense::linear || !ar_db) return "linear (axial ratio above " + fixed(linear_axial_ratio_db, 0) + " dB)";
+    return std::string(sense_text(s)) + ", axial ratio " + with_unit(*ar_db, db_decimals, "dB");
+}
+
+std::string tilt_text(double tilt_deg, Sense s, const std::string& deg) {
+    if (s == Sense::none) return "none (zero field)";
+    if (std::isnan(tilt_deg))
+        return "undefined (near circular: axial ratio below " + fixed(circular_axial_ratio_db, 1) + " dB)";
+    return with_unit(tilt_deg, angle_decimals, deg);
+}
+
+std::string peak_text(const PatternSummary& r, const char* unit, const std::string& deg) {
+    if (r.zero_field) return "none (zero field)";
+    const bool greek = deg != "deg";
+    return with_unit(r.peak_db, db_decimals, unit) + " at " + (greek ? "\u03b8 " : "theta ") +
+           fixed(r.peak.theta_deg, angle_decimals) + (greek ? "\u00b0, \u03c6 " : ", phi ") +
+           with_unit(r.peak.phi_deg, angle_decimals, deg);
+}
+
+std::string efficiency_warning_text(double efficiency) {
+    return "radiation efficiency " + with_unit(100 * efficiency, percent_decimals, "%") +
+           " is above 100 %, which no passive antenna reaches: the data are probably not absolute gain "
+           "(directivity or relative power read as gain), or scaled wrongly (a --scale or --offset, or field "
+           "values read as power), or in dB against another reference (dBm, dBuV/m or a "
+           "range's uncalibrated level are not gain). The figures below are computed as given.";
+}
+
+}  // namespace ellipsa::exports

@@ -1,0 +1,39 @@
+// Words and numbers for the core's figures, made once at the edge and shared by every output that
+// shows them as text: the command line (info, probe, cut), the report and the viewer's panels.
+// The core decides (pattern/polarisation.hpp, summary.hpp); this only says it, with one rounding:
+// powers and ratios in dB to 2 decimals, angles to 1 decimal, percentages to 1 decimal.
+#pragma once
+#include <optional>
+#include <string>
+
+#include "pattern/polarisation.hpp"
+#include "pattern/summary.hpp"
+
+namespace ellipsa::exports {
+
+inline constexpr int db_decimals = 2, angle_decimals = 1, percent_decimals = 1;
+
+// v with `decimals` decimals, never "-0.0" (values that round to zero print as zero); "n/a" for
+// NaN, "inf" / "-inf" for infinities.
+std::string fixed(double v, int decimals);
+// fixed(v, decimals) followed by " unit" (no space before a degree sign).
+std::string with_unit(double v, int decimals, const std::string& unit);
+
+// "right-hand", "left-hand", "linear", "zero field".
+const char* sense_text(Sense s);
+// The axial ratio as reported: "3.01 dB", "above 40 dB (linear)", "none (zero field)".
+std::string axial_ratio_text(Sense s, const std::optional<double>& axial_ratio_db);
+// "right-hand, axial ratio 3.01 dB", "linear (axial ratio above 40 dB)", "zero field (no polarisation)".
+std::string polarisation_text(Sense s, const std::optional<double>& axial_ratio_db);
+// The tilt as reported: "12.3 <deg>", "undefined (near circular: axial ratio below 0.1 dB)",
+// "none (zero field)". `deg` is the degree unit: "deg" or "°".
+std::string tilt_text(double tilt_deg, Sense s, const std::string& deg);
+
+// The peak of a summary: "5.16 dBi at theta 90.0, phi 0.0 deg" (`deg` "deg") or with Greek
+// letters and degree signs (`deg` "°"); "none (zero field)" when every sample is zero.
+std::string peak_text(const PatternSummary& r, const char* unit, const std::string& deg);
+
+// Why an efficiency above 100 % cannot be right, with the likely causes (one sentence each).
+std::string efficiency_warning_text(double efficiency);
+
+}  // namespace ellipsa::exports
