@@ -10,6 +10,7 @@
 #include <string>
 #include <vector>
 
+#include "pattern/mounting.hpp"
 #include "pattern/result.hpp"
 #include "pattern/vec3.hpp"
 
@@ -68,6 +69,13 @@ struct FarField {
     double frequency_hz = 0;  // 0 when unknown
     std::vector<cplx> e_theta;
     std::vector<cplx> e_phi;
+    // Interpolation takes the linear phase 2 pi r.c of this point c (in wavelengths) out of the
+    // samples before blending them and puts it back after (pattern/phase_centre.hpp): zero until
+    // the phase centre is estimated. It never changes a sample, only values between samples.
+    Vec3 interpolation_centre_wl{};
+    // How far the phase reference was moved on request (--phase-centre), in wavelengths in the
+    // world frame: the fields are those of the file times exp(-j 2 pi r.shift). Zero: not moved.
+    Vec3 reference_shift_wl{};
 };
 
 struct FarFieldSet {
@@ -78,6 +86,13 @@ struct FarFieldSet {
     FieldContent content = FieldContent::complex;
     Ludwig3Reference ludwig3_reference = Ludwig3Reference::x;
     bool time_convention_converted = false;  // true when the file used exp(-i w t) and was conjugated
+    // The mounting frame (pattern/mounting.hpp). `mounting` has been applied to the fields, which
+    // then describe the installed antenna in the world frame (identity: the file's own frame);
+    // `file_mounting` is what the file's metadata declares, kept so that a writer can record it
+    // while the fields are still in the file's frame.
+    Mounting mounting;
+    bool mounting_resampled = false;  // true when applying it interpolated (the grid did not map onto itself)
+    Mounting file_mounting;
     Grid grid;
     std::vector<FarField> frequencies;
 

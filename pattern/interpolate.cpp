@@ -64,14 +64,27 @@ std::optional<FieldSample> interpolate(const FarFieldSet& s, std::size_t fi, dou
     if (!grid_stencil(g, theta_deg, phi_deg, st)) return std::nullopt;
     const FarField& f = s.frequencies[fi];
     if (s.content == FieldContent::complex) {
+        // The linear phase of the phase centre c turns fast between samples when c is far from
+        // the reference; blend the samples without it and put it back at the asked direction.
+        const Vec3 c = f.interpolation_centre_wl;
+        const bool centred = c.x != 0 || c.y != 0 || c.z != 0;
+        auto unturn = [&](Vec3 r) { return std::polar(1.0, -2 * pi * dot(r, c)); };
         CVec3 e{};
         for (int a = 0; a < 2; ++a)
             for (int b = 0; b < 2; ++b) {
                 double w = st.w[a][b];
                 if (w == 0) continue;
-                e = e + w * cartesian_at(g, f, st.i_theta[a], st.i_phi[b]);
+                const int i = st.i_theta[a], j = st.i_phi[b];
+                cplx cw = w;
+                if (centred) cw *= unturn(direction(g.theta.value_deg(i) * deg, g.phi.value_deg(j) * deg));
+                const CVec3 v = cartesian_at(g, f, i, j);
+                e = e + CVec3{cw * v.x, cw * v.y, cw * v.z};
             }
         const double t = theta_deg * deg, p = phi_deg * deg;
+        if (centred) {
+            const cplx back = std::conj(unturn(direction(t, p)));
+            e = CVec3{back * e.x, back * e.y, back * e.z};
+        }
         FieldSample out{dot(e, theta_hat(t, p)), dot(e, phi_hat(p))};
         // Going through Cartesian and back leaves rounding residue of about 1e-16 |E| in a
         // component that is zero in the data (E_phi of a dipole); clear it rather than report

@@ -3,8 +3,11 @@
 // Complex data are interpolated on the Cartesian field vector (Ex, Ey, Ez), bilinearly in the
 // grid's (theta, phi) index space, then projected back on theta-hat and phi-hat at the asked
 // direction. That keeps the result right near the poles, where the theta/phi basis turns with phi,
-// and across the phi seam. Magnitude-only and total-only data carry no phase: their partial
-// powers are interpolated instead, and returned as real amplitudes.
+// and across the phi seam. The linear phase of the frequency's interpolation centre (its phase
+// centre, far_field.hpp and pattern/phase_centre.hpp) is taken out of the samples before blending
+// and put back after, so a phase reference far from the antenna costs no level between samples;
+// grid samples themselves come back unchanged. Magnitude-only and total-only data carry no phase:
+// their partial powers are interpolated instead, and returned as real amplitudes.
 #pragma once
 #include <optional>
 

@@ -1,0 +1,219 @@
+#include "pattern/phase_centre.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <queue>
+#include <utility>
+#include <vector>
+
+#include "pattern/integrate.hpp"
+#include "pattern/interpolate.hpp"
+
+namespace ellipsa {
+
+namespace {
+
+// Co-polar field u(r)^H E(r) at every sample (u: the peak's polarisation carried to r).
+void copolar_field(const Grid& g, const FarField& f, std::vector<cplx>& co) {
+    std::size_t best = 0;
+    double best_p = -1;
+    for (std::size_t k = 0; k < g.size(); ++k) {
+        const double p = power(f.e_theta[k], f.e_phi[k]);
+        if (p > best_p) best_p = p, best = k;
+    }
+    const int pc = g.phi.count;
+    const CVec3 e0 = cartesian_at(g, f, int(best / std::size_t(pc)), int(best % std::size_t(pc)));
+    const double n0 = std::sqrt(std::norm(e0.x) + std::norm(e0.y) + std::norm(e0.z));
+    co.assign(g.size(), cplx(0, 0));
+    if (!(n0 > 0)) return;
+    const CVec3 p = (1.0 / n0) * e0;
+    for (int i = 0; i < g.theta.count; ++i) {
+        const double t = g.theta.value_deg(i) * deg;
+        for (int j = 0; j < pc; ++j) {
+            const double ph = g.phi.value_deg(j) * deg;
+            const Vec3 r = direction(t, ph);
+            const cplx pr = dot(p, r);
+            const CVec3 u{p.x - pr * r.x, p.y - pr * r.y, p.z - pr * r.z};
+            const double nu = std::sqrt(std::norm(u.x) + std::norm(u.y) + std::norm(u.z));
+            if (!(nu > 1e-9)) continue;  // the reference polarisation points along r: no co-polar part
+            const CVec3 e = cartesian_at(g, f, i, j);
+            co[g.index(i, j)] = (std::conj(u.x) * e.x + std::conj(u.y) * e.y + std::conj(u.z) * e.z) / nu;
+        }
+    }
+}
+
+double wrap_pi(double a) { return a - 2 * pi * std::round(a / (2 * pi)); }
+
+// Quality-guided unwrapping from the co-polar peak over the samples within the region's level.
+// psi: unwrapped phase (rad) where in_region is set.
+void unwrap_region(const Grid& g, const std::vector<cplx>& co, std::vector<double>& psi,
+                   std::vector<unsigned char>& in_region) {
+    std::size_t peak = 0;
+    for (std::size_t k = 1; k < co.size(); ++k)
+        if (std::norm(co[k]) > std::norm(co[peak])) peak = k;
+    const double floor = std::norm(co[peak]) * std::pow(10.0, -phase_centre_region_db / 10);
+    psi.assign(co.size(), 0.0);
+    in_region.assign(co.size(), 0);
+    if (!(std::norm(co[peak]) > 0)) return;
+    std::priority_queue<std::pair<double, std::size_t>> heap;
+    psi[peak] = std::arg(co[peak]);
+    in_region[peak] = 1;
+    heap.emplace(std::norm(co[peak]), peak);
+    const int nt = g.theta.count, np = g.phi.count;
+    const bool wraps = g.phi_wraps();
+    while (!heap.empty()) {
+        const std::size_t k = heap.top().second;
+        heap.pop();
+        const int i = int(k / std::size_t(np)), j = int(k % std::size_t(np));
+        const int di[4] = {-1, 1, 0, 0}, dj[4] = {0, 0, -1, 1};
+        for (int n = 0; n < 4; ++n) {
+            const int a = i + di[n];
+            int b = j + dj[n];
+            if (a < 0 || a >= nt) continue;
+            if (b < 0 || b >= np) {
+                if (!wraps) continue;
+                b = (b + np) % np;
+            }
+            const std::size_t m = g.index(a, b);
+            if (in_region[m] || !(std::norm(co[m]) >= floor)) continue;
+            psi[m] = psi[k] + wrap_pi(std::arg(co[m]) - psi[k]);
+            in_region[m] = 1;
+            heap.emplace(std::norm(co[m]), m);
+        }
+    }
+}
+
+// Symmetric 3x3 eigen-decomposition by Jacobi rotations: a = V diag(w) V^T.
+void eigen_symmetric(double a[3][3], double w[3], double v[3][3]) {
+    for (int i = 0; i < 3; ++i)
+        for (int j = 0; j < 3; ++j) v[i][j] = i == j ? 1 : 0;
+    for (int sweep = 0; sweep < 50; ++sweep) {
+        const double off = a[0][1] * a[0][1] + a[0][2] * a[0][2] + a[1][2] * a[1][2];
+        if (off < 1e-30 * (a[0][0] * a[0][0] + a[1][1] * a[1][1] + a[2][2] * a[2][2]) || off == 0) break;
+        for (int p = 0; p < 2; ++p)
+            for (int q = p + 1; q < 3; ++q) {
+                if (a[p][q] == 0) continue;
+                const double theta = (a[q][q] - a[p][p]) / (2 * a[p][q]);
+                const double t = (theta >= 0 ? 1 : -1) / (std::abs(theta) + std::sqrt(theta * theta + 1));
+                const double c = 1 / std::sqrt(t * t + 1), s = t * c;
+                for (int k = 0; k < 3; ++k) {  // columns p, q
+                    const double akp = a[k][p], akq = a[k][q];
+                    a[k][p] = c * akp - s * akq;
+                    a[k][q] = s * akp + c * akq;
+                }
+                for (int k = 0; k < 3; ++k) {  // rows p, q
+                    const double apk = a[p][k], aqk = a[q][k];
+                    a[p][k] = c * apk - s * aqk;
+                    a[q][k] = s * apk + c * aqk;
+                }
+                for (int k = 0; k < 3; ++k) {
+                    const double vkp = v[k][p], vkq = v[k][q];
+                    v[k][p] = c * vkp - s * vkq;
+                    v[k][q] = s * vkp + c * vkq;
+                }
+            }
+    }
+    for (int i = 0; i < 3; ++i) w[i] = a[i][i];
+}
+
+// Weighted least squares psi ~ psi0 + a . r over the region, centred on the weighted mean
+// direction so that psi0 and a separate; a = 2 pi d / lambda.
+PhaseCentre fit_linear_phase(const Grid& g, const std::vector<cplx>& co, const std::vector<double>& psi,
+                             const std::vector<unsigned char>& in_region) {
+    const CellWeights cw = cell_weights(g);
+    const int np = g.phi.count;
+    std::vector<std::pair<std::size_t, double>> pts;  // (sample, weight)
+    double sw = 0, spsi = 0;
+    Vec3 sr{};
+    for (std::size_t k = 0; k < co.size(); ++k) {
+        if (!in_region[k]) continue;
+        const double w = std::norm(co[k]) * cw.theta[k / std::size_t(np)] * cw.phi[k % std::size_t(np)];
+        pts.emplace_back(k, w);
+        sw += w;
+        spsi += w * psi[k];
+    }
+    PhaseCentre out;
+    out.samples = pts.size();
+    if (!(sw > 0)) return out;
+    auto dir = [&](std::size_t k) {
+        return direction(g.theta.value_deg(int(k / std::size_t(np))) * deg, g.phi.value_deg(int(k % std::size_t(np))) * deg);
+    };
+    for (auto [k, w] : pts) sr = sr + w * dir(k);
+    const Vec3 rm = (1 / sw) * sr;
+    const double pm = spsi / sw;
+    double c[3][3] = {}, b[3] = {};
+    for (auto [k, w] : pts) {
+        const Vec3 d = dir(k) - rm;
+        const double x[3] = {d.x, d.y, d.z};
+        for (int i = 0; i < 3; ++i) {
+            b[i] += w * x[i] * (psi[k] - pm);
+            for (int j = 0; j < 3; ++j) c[i][j] += w * x[i] * x[j];
+        }
+    }
+    double ev[3], v[3][3];
+    eigen_symmetric(c, ev, v);
+    const double top = std::max({ev[0], ev[1], ev[2]});
+    double a[3] = {0, 0, 0};
+    for (int e = 0; e < 3; ++e) {
+        if (!(ev[e] > 1e-9 * top)) {
+            ++out.unresolved_axes;
+            continue;
+        }
+        const double proj = (v[0][e] * b[0] + v[1][e] * b[1] + v[2][e] * b[2]) / ev[e];
+        for (int i = 0; i < 3; ++i) a[i] += proj * v[i][e];
+    }
+    const Vec3 av{a[0], a[1], a[2]};
+    const double psi0 = pm - dot(av, rm);
+    double ss = 0;
+    for (auto [k, w] : pts) {
+        const double r = psi[k] - psi0 - dot(av, dir(k));
+        ss += w * r * r;
+    }
+    out.centre_wl = (1 / (2 * pi)) * av;
+    out.constant_deg = wrap_pi(psi0) / deg;
+    out.residual_deg = std::sqrt(ss / sw) / deg;
+    return out;
+}
+
+}  // namespace
+
+Result<PhaseCentre> estimate_phase_centre(const FarFieldSet& s, std::size_t fi) {
+    if (!s.has_phase())
+        return Error{"", 0, 0, std::string("the phase centre needs the phase of the field; the data are ") +
+                                   to_string(s.content)};
+    if (fi >= s.frequencies.size() || s.grid.size() == 0) return Error{"", 0, 0, "no samples at this frequency"};
+    std::vector<cplx> co;
+    copolar_field(s.grid, s.frequencies[fi], co);
+    std::vector<double> psi;
+    std::vector<unsigned char> in_region;
+    unwrap_region(s.grid, co, psi, in_region);
+    PhaseCentre pc = fit_linear_phase(s.grid, co, psi, in_region);
+    if (pc.samples < 4)
+        return Error{"", 0, 0, "the main beam holds fewer than 4 samples (or the field is zero): too few to fit a phase centre"};
+    if (pc.unresolved_axes == 3) return Error{"", 0, 0, "the main beam's samples do not resolve any direction"};
+    return pc;
+}
+
+void move_phase_reference(const Grid& g, FarField& f, Vec3 c_wl) {
+    for (int i = 0; i < g.theta.count; ++i) {
+        const double t = g.theta.value_deg(i) * deg;
+        for (int j = 0; j < g.phi.count; ++j) {
+            const cplx turn = std::polar(1.0, -2 * pi * dot(direction(t, g.phi.value_deg(j) * deg), c_wl));
+            const std::size_t k = g.index(i, j);
+            f.e_theta[k] *= turn;
+            f.e_phi[k] *= turn;
+        }
+    }
+    f.interpolation_centre_wl = f.interpolation_centre_wl - c_wl;
+    f.reference_shift_wl = f.reference_shift_wl + c_wl;
+}
+
+void set_interpolation_centres(FarFieldSet& s) {
+    if (!s.has_phase()) return;
+    for (std::size_t k = 0; k < s.frequencies.size(); ++k) {
+        auto pc = estimate_phase_centre(s, k);
+        s.frequencies[k].interpolation_centre_wl = pc ? pc->centre_wl : Vec3{};
+    }
+}
+
+}  // namespace ellipsa
