@@ -63,6 +63,12 @@ inline Mat3 operator*(const Mat3& a, const Mat3& b) {
             c.m[i][j] = a.m[i][0] * b.m[0][j] + a.m[i][1] * b.m[1][j] + a.m[i][2] * b.m[2][j];
     return c;
 }
+inline Mat3 transposed(const Mat3& a) {
+    Mat3 t;
+    for (int i = 0; i < 3; ++i)
+        for (int j = 0; j < 3; ++j) t.m[i][j] = a.m[j][i];
+    return t;
+}
 // Right-handed rotations about the axes by an angle in radians.
 Mat3 rotation_x(double angle_rad);
 Mat3 rotation_y(double angle_rad);
