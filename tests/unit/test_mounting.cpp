@@ -143,8 +143,9 @@ TEST_CASE("a dipole along -z read with up = -z, or along x turned z:90, exactly"
     REQUIRE(y);
     CHECK(!y->mounting_resampled);
     CHECK(worst_difference(*y, make(ReferenceKind::dipole, to_y)) < 1e-13);
-    for (const EnvironmentPreset& p : environment_presets()) {
-        auto mz = mean_effective_gain(z, 0, p.environment), mf = mean_effective_gain(*flipped, 0, p.environment);
+    for (const EnvironmentPreset& preset : environment_presets()) {
+        const Environment env = *environment_preset(preset.name);
+        auto mz = mean_effective_gain(z, 0, env), mf = mean_effective_gain(*flipped, 0, env);
         CHECK(to_db(mf->meg) == Approx(to_db(mz->meg)).margin(1e-12));
     }
 }
@@ -173,13 +174,14 @@ TEST_CASE("a dipole along x read with up = +x is the vertical dipole", "[mountin
         }
         CHECK(worst_db < 0.01);
         CHECK(worst_h < 1e-6);  // horizontal part below -60 dB: resampling residue only
-        for (const EnvironmentPreset& p : environment_presets()) {
-            auto mz = mean_effective_gain(z, 0, p.environment), mu = mean_effective_gain(*up, 0, p.environment);
+        for (const EnvironmentPreset& preset : environment_presets()) {
+            const Environment env = *environment_preset(preset.name);
+            auto mz = mean_effective_gain(z, 0, env), mu = mean_effective_gain(*up, 0, env);
             REQUIRE(mz);
             REQUIRE(mu);
             CHECK(to_db(mu->meg) == Approx(to_db(mz->meg)).margin(0.002));
-            auto oz = orientation_robustness(z, 0, p.environment, OrientationSweep{});
-            auto ou = orientation_robustness(*up, 0, p.environment, OrientationSweep{});
+            auto oz = orientation_robustness(z, 0, env, OrientationSweep{});
+            auto ou = orientation_robustness(*up, 0, env, OrientationSweep{});
             REQUIRE(oz);
             REQUIRE(ou);
             REQUIRE(oz->samples.size() == ou->samples.size());
@@ -207,8 +209,9 @@ TEST_CASE("a mounting that misses the grid resamples by interpolation", "[mounti
     CHECK(up->mounting_resampled);
     const FarFieldSet z = make(ReferenceKind::dipole);
     CHECK(worst_difference(*up, z) < 2e-3);
-    for (const EnvironmentPreset& p : environment_presets()) {
-        auto mz = mean_effective_gain(z, 0, p.environment), mu = mean_effective_gain(*up, 0, p.environment);
+    for (const EnvironmentPreset& preset : environment_presets()) {
+        const Environment env = *environment_preset(preset.name);
+        auto mz = mean_effective_gain(z, 0, env), mu = mean_effective_gain(*up, 0, env);
         CHECK(to_db(mu->meg) == Approx(to_db(mz->meg)).margin(0.01));
     }
 }
