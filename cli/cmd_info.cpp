@@ -61,6 +61,18 @@ void write_json(const FarFieldSet& s, const std::vector<std::size_t>& which, con
         j.field("hpbw_azimuth_deg", r.hpbw_azimuth_deg);
         j.field("front_to_back_db", r.front_to_back_db).field("front_to_back_above_db", r.front_to_back_above_db);
         j.field("sidelobe_elevation_db", r.sidelobe_elevation_db);
+        // Why a figure is missing (null when it is given), and the ripple of an omnidirectional cut.
+        auto reason = [&](const char* key, const std::optional<std::string>& why) {
+            j.key(key);
+            if (r.zero_field) j.value("zero_field");
+            else if (why) j.value(*why);
+            else j.null();
+        };
+        reason("hpbw_elevation_reason", exports::beamwidth_reason(r.elevation));
+        reason("hpbw_azimuth_reason", exports::beamwidth_reason(r.azimuth));
+        j.field("elevation_ripple_db", r.elevation.ripple_db).field("azimuth_ripple_db", r.azimuth.ripple_db);
+        reason("sidelobe_elevation_reason",
+               r.sidelobe_elevation_db ? std::nullopt : std::optional<std::string>("no_side_lobe"));
         j.field("axial_ratio_db", r.axial_ratio_db);
         j.key("sense");
         if (r.sense && *r.sense != Sense::none)
@@ -120,14 +132,10 @@ void write_human(const std::string& path, const FarFieldSet& s, const std::vecto
                                                      : std::string("unavailable (needs absolute gain data)"))
                   << "\n";
         if (r.efficiency_above_100) std::cout << "    warning: " << exports::efficiency_warning_text(*r.power.radiation_efficiency) << "\n";
-        std::cout << "    HPBW elevation        "
-                  << fmt(r.hpbw_elevation_deg, "deg", 1, "none (no half-power points on this cut)") << "\n";
-        std::cout << "    HPBW azimuth          "
-                  << fmt(r.hpbw_azimuth_deg, "deg", 1, "none (no half-power points: omnidirectional)") << "\n";
-        std::cout << "    front-to-back         "
-                  << (r.front_to_back_above_db ? "above " + fmt(*r.front_to_back_above_db, "dB", 0) + " (the back direction is a null)"
-                                               : fmt(r.front_to_back_db, "dB", 2, "unavailable (the back direction lies outside the data)"))
-                  << "\n";
+        std::cout << "    HPBW elevation        " << exports::beamwidth_text(r.elevation, "theta", "deg") << "\n";
+        std::cout << "    HPBW azimuth          " << exports::beamwidth_text(r.azimuth, "angle", "deg") << "\n";
+        std::cout << "    side lobe elevation   " << exports::sidelobe_text(r.elevation) << "\n";
+        std::cout << "    front-to-back         " << exports::front_to_back_text(r.front_to_back_db, r.front_to_back_above_db) << "\n";
         std::cout << "    polarisation at peak  "
                   << (r.sense ? exports::polarisation_text(*r.sense, r.axial_ratio_db) : "unavailable (" + r.unavailable_reason + ")")
                   << "\n";

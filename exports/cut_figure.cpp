@@ -82,7 +82,7 @@ Result<CutData> compute_cut(const FarFieldSet& s, std::size_t fi, const CutSpec&
             if ((!tie && p[k] > b) || (tie && d.samples.angle_deg[k] >= 0 && d.samples.angle_deg[std::size_t(best)] < 0))
                 best = int(k);
         }
-        d.beams.push_back(beam_figures(d.samples.angle_deg, p, best));
+        d.beams.push_back(beam_figures(d.samples.angle_deg, p, best, spec.kind == CutKind::phi_const));
     }
     return d;
 }

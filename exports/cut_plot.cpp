@@ -65,10 +65,15 @@ std::string peak_text(const CutPlot& p, const PlotCurve& c) {
 }
 std::string beam_text(const PlotCurve& c) {
     if (!c.beam) return "";
-    std::string s = "HPBW " + (c.beam->hpbw_deg ? angle_text(*c.beam->hpbw_deg, 1) : std::string("none"));
-    // Beyond 60 dB a front-to-back ratio is a numerical null, not a measurable figure.
-    const auto& fb = c.beam->front_to_back_db;
-    s += "   F/B " + (!fb ? std::string("n/a") : *fb > 60 ? std::string("> 60 dB") : num(*fb, 1) + " dB");
+    const BeamFigures& b = *c.beam;
+    std::string s = "HPBW " + (b.hpbw_deg                            ? angle_text(*b.hpbw_deg, 1)
+                               : b.shape == BeamShape::omnidirectional ? std::string("none (omnidirectional)")
+                                                                       : std::string("none"));
+    // Beyond null_ratio_bound_db the back is a null, not a measurable level (the core decides).
+    const auto& fb = b.front_to_back_db;
+    s += "   F/B " + (b.front_to_back_above_db ? "> " + num(*b.front_to_back_above_db, 0) + " dB"
+                      : !fb                    ? std::string("n/a")
+                                               : num(*fb, 1) + " dB");
     return s;
 }
 

@@ -56,6 +56,43 @@ std::string peak_text(const PatternSummary& r, const char* unit, const std::stri
            with_unit(r.peak.phi_deg, angle_decimals, deg);
 }
 
+std::string beamwidth_text(const BeamFigures& b, const std::string& angle, const std::string& deg) {
+    switch (b.shape) {
+        case BeamShape::beam: return with_unit(*b.hpbw_deg, angle_decimals, deg);
+        case BeamShape::no_power: return "none (no power on this cut)";
+        case BeamShape::omnidirectional:
+            return "none: omnidirectional (ripple " + with_unit(b.ripple_db.value_or(0), db_decimals, "dB") + ")";
+        case BeamShape::wider_than_180:
+            return "none: no beam (above half power over " + with_unit(b.half_power_span_deg.value_or(0), angle_decimals, deg) +
+                   " of this cut)";
+        case BeamShape::edges_outside_data: {
+            const bool lo = b.left == EdgeStatus::outside_data, hi = b.right == EdgeStatus::outside_data;
+            const std::string side = lo && hi ? "on both sides" : lo ? "toward lower " + angle : "toward higher " + angle;
+            return "none: the beam's edge lies outside the sampled range (" + side + ")";
+        }
+    }
+    return "none";
+}
+
+std::optional<std::string> beamwidth_reason(const BeamFigures& b) {
+    if (b.shape == BeamShape::beam) return std::nullopt;
+    if (b.shape != BeamShape::edges_outside_data) return std::string(to_string(b.shape));
+    const bool lo = b.left == EdgeStatus::outside_data, hi = b.right == EdgeStatus::outside_data;
+    return std::string(lo && hi ? "edges_outside_data_both_sides" : lo ? "edge_outside_data_lower_angle" : "edge_outside_data_higher_angle");
+}
+
+std::string sidelobe_text(const BeamFigures& b) {
+    if (b.shape == BeamShape::no_power) return "none (no power on this cut)";
+    if (!b.sidelobe_db) return "none (no other lobe stands out by " + fixed(lobe_prominence_db, 0) + " dB)";
+    return with_unit(*b.sidelobe_db, db_decimals, "dB");
+}
+
+std::string front_to_back_text(const std::optional<double>& db, const std::optional<double>& above_db) {
+    if (above_db) return "above " + with_unit(*above_db, 0, "dB") + " (the back is a null)";
+    if (db) return with_unit(*db, db_decimals, "dB");
+    return "unavailable (the back direction lies outside the data)";
+}
+
 std::string efficiency_warning_text(double efficiency) {
     return "radiation efficiency " + with_unit(100 * efficiency, percent_decimals, "%") +
            " is above 100 %, which no passive antenna reaches: the data are probably not absolute gain "

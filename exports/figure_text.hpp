@@ -6,6 +6,7 @@
 #include <optional>
 #include <string>
 
+#include "pattern/cut.hpp"
 #include "pattern/polarisation.hpp"
 #include "pattern/summary.hpp"
 
@@ -32,6 +33,20 @@ std::string tilt_text(double tilt_deg, Sense s, const std::string& deg);
 // The peak of a summary: "5.16 dBi at theta 90.0, phi 0.0 deg" (`deg` "deg") or with Greek
 // letters and degree signs (`deg` "°"); "none (zero field)" when every sample is zero.
 std::string peak_text(const PatternSummary& r, const char* unit, const std::string& deg);
+
+// The half-power beamwidth of a cut as reported: "78.1 <deg>"; or why there is none:
+// "none: omnidirectional (ripple 0.35 dB)", "none: no beam (above half power over 283.6 <deg>)",
+// "none: the beam's edge lies outside the sampled range (toward lower theta)". `angle` names the
+// cut's angle ("theta", "phi", "angle").
+std::string beamwidth_text(const BeamFigures& b, const std::string& angle, const std::string& deg);
+// Its JSON reason code: null (nullopt) when the HPBW exists, else "omnidirectional",
+// "wider_than_180_deg", "edge_outside_data_lower_angle", "edge_outside_data_higher_angle",
+// "edges_outside_data_both_sides", "no_power".
+std::optional<std::string> beamwidth_reason(const BeamFigures& b);
+// The side-lobe level: "-13.26 dB", or "none (no other lobe stands out by 3 dB)".
+std::string sidelobe_text(const BeamFigures& b);
+// Front-to-back: "12.30 dB", "above 60 dB (the back is a null)", "unavailable (outside the data)".
+std::string front_to_back_text(const std::optional<double>& db, const std::optional<double>& above_db);
 
 // Why an efficiency above 100 % cannot be right, with the likely causes (one sentence each).
 std::string efficiency_warning_text(double efficiency);

@@ -162,40 +162,129 @@ std::vector<double> cut_power(const FarFieldSet& s, const CutSamples& c, Compone
     return out;
 }
 
-BeamFigures beam_figures(const std::vector<double>& angle_deg, const std::vector<double>& power, int start) {
-    BeamFigures b;
-    const int n = int(power.size());
-    if (n < 3) return b;
-    const double step = angle_deg.size() > 1 ? angle_deg[1] - angle_deg[0] : 1.0;
-    auto at = [&](int k) { return power[std::size_t(((k % n) + n) % n)]; };
-    auto ok = [&](int k) { return std::isfinite(at(k)); };
+const char* to_string(BeamShape b) {
+    switch (b) {
+        case BeamShape::no_power: return "no_power";
+        case BeamShape::beam: return "beam";
+        case BeamShape::omnidirectional: return "omnidirectional";
+        case BeamShape::wider_than_180: return "wider_than_180_deg";
+        case BeamShape::edges_outside_data: return "edges_outside_data";
+    }
+    return "no_power";
+}
 
+namespace {
+
+// A closed cut in dB: NaN outside the data, -inf for zero power; indices wrap.
+struct Loop {
+    std::vector<double> y;
+    int n = 0;
+    int wrap(int k) const { return ((k % n) + n) % n; }
+    double at(int k) const { return y[std::size_t(wrap(k))]; }
+    bool ok(int k) const { return !std::isnan(at(k)); }
+};
+
+// The half-power crossing walking from the peak sample k in direction dir (offset in samples).
+struct Edge {
+    EdgeStatus status = EdgeStatus::never_falls;
+    double offset = 0;
+};
+Edge half_power_edge(const Loop& L, int k, int dir, double level_db) {
+    for (int m = 1; m < L.n; ++m) {
+        const int j = k + dir * m;
+        if (!L.ok(j)) return {EdgeStatus::outside_data, 0};
+        const double yj = L.at(j);
+        // A pattern that just touches half power (1 + cos^2 t) counts as crossing it there.
+        if (yj <= level_db + 1e-9) {
+            const double yprev = L.at(j - dir);
+            const double frac = std::isfinite(yj) && yprev > yj ? std::clamp((yprev - level_db) / (yprev - yj), 0.0, 1.0) : 1.0;
+            return {EdgeStatus::found, dir * (m - 1 + frac)};
+        }
+    }
+    return {};
+}
+
+// A local maximum (a plateau [first, last] whose neighbours are both lower) and its prominence:
+// the drop to the lowest sample before a higher one (or the end of the data) on each side, the
+// smaller of the two; reach_lo / reach_hi: how far (in samples) the lobe's base extends.
+struct Lobe {
+    int first = 0, last = 0;
+    double prominence_db = 0;
+    int reach_lo = 0, reach_hi = 0;
+};
+std::vector<Lobe> local_maxima(const Loop& L) {
+    std::vector<Lobe> out;
+    for (int i = 0; i < L.n; ++i) {
+        if (!L.ok(i) || !std::isfinite(L.at(i)) || !L.ok(i - 1) || !(L.at(i - 1) < L.at(i))) continue;
+        int j = i;
+        while (j - i < L.n - 1 && L.ok(j + 1) && L.at(j + 1) == L.at(i)) ++j;
+        if (L.ok(j + 1) && L.at(j + 1) < L.at(i)) out.push_back({i, j, 0, 0, 0});
+    }
+    return out;
+}
+void measure_prominence(const Loop& L, Lobe& b) {
+    const double top = L.at(b.first);
+    double lo_min = top, hi_min = top;
+    int m = 1;
+    for (; m < L.n && L.ok(b.first - m) && !(L.at(b.first - m) > top); ++m)
+        if (L.at(b.first - m) < lo_min) lo_min = L.at(b.first - m), b.reach_lo = m;
+    for (m = 1; m < L.n && L.ok(b.last + m) && !(L.at(b.last + m) > top); ++m)
+        if (L.at(b.last + m) < hi_min) hi_min = L.at(b.last + m), b.reach_hi = m;
+    b.prominence_db = top - std::max(lo_min, hi_min);  // +inf against an exact null
+}
+
+// The highest lobe other than the main one (containing sample k) and, with mirrored halves, other
+// than the main beam's mirror image. Candidates are tried from the highest down.
+void side_lobes(const Loop& L, int k, const std::vector<double>& angle_deg, bool mirrored, BeamFigures& b) {
+    std::vector<Lobe> lobes = local_maxima(L);
+    std::sort(lobes.begin(), lobes.end(), [&](const Lobe& x, const Lobe& y) { return L.at(x.first) > L.at(y.first); });
+    const double step = angle_deg[1] - angle_deg[0];
+    const int mirror_k = L.wrap(int(std::lround((-b.peak_angle_deg - angle_deg[0]) / step)));
+    auto covers = [&](int lo, int len, int idx) { return L.wrap(idx - lo) <= len; };
+    for (Lobe& c : lobes) {
+        if (covers(c.first, c.last - c.first, k)) continue;  // the main lobe itself
+        measure_prominence(L, c);
+        if (!(c.prominence_db >= lobe_prominence_db)) continue;
+        const double rel = L.at(c.first) - b.peak_db;
+        if (mirrored && rel >= -half_power_db &&
+            covers(c.first - c.reach_lo, c.last + c.reach_hi - (c.first - c.reach_lo), mirror_k)) {
+            b.mirror_beam = true;
+            continue;
+        }
+        b.sidelobe_db = std::min(rel, 0.0);
+        return;
+    }
+}
+
+}  // namespace
+
+BeamFigures beam_figures(const std::vector<double>& angle_deg, const std::vector<double>& power, int start,
+                         bool mirrored_halves) {
+    BeamFigures b;
+    Loop L;
+    L.n = int(power.size());
+    if (L.n < 3) return b;
+    L.y.resize(power.size());
+    for (std::size_t i = 0; i < power.size(); ++i) L.y[i] = std::isnan(power[i]) ? power[i] : to_db(power[i]);
+    const double step = angle_deg[1] - angle_deg[0];
     int k = start;
-    if (k < 0 || k >= n || !ok(k)) {
+    if (k < 0 || k >= L.n || !L.ok(k)) {
         k = -1;
-        double best = -1;
-        for (int i = 0; i < n; ++i)
-            if (ok(i) && power[std::size_t(i)] > best) {
-                best = power[std::size_t(i)];
-                k = i;
-            }
+        for (int i = 0; i < L.n; ++i)
+            if (L.ok(i) && (k < 0 || L.at(i) > L.at(k))) k = i;
         if (k < 0) return b;
     }
     // Climb to the local maximum (within one loop).
-    for (int guard = 0; guard < n; ++guard) {
-        if (ok(k + 1) && at(k + 1) > at(k))
-            ++k;
-        else if (ok(k - 1) && at(k - 1) > at(k))
-            --k;
-        else
-            break;
+    for (int guard = 0; guard < L.n; ++guard) {
+        if (L.ok(k + 1) && L.at(k + 1) > L.at(k)) ++k;
+        else if (L.ok(k - 1) && L.at(k - 1) > L.at(k)) --k;
+        else break;
     }
-    k = ((k % n) + n) % n;
-    const double p0 = at(k);
-    if (!(p0 > 0)) return b;
-    double peak_db = to_db(p0), peak_off = 0;
-    if (ok(k - 1) && ok(k + 1) && at(k - 1) > 0 && at(k + 1) > 0) {
-        const double ym = to_db(at(k - 1)), yp = to_db(at(k + 1)), den = ym - 2 * peak_db + yp;
+    k = L.wrap(k);
+    if (!std::isfinite(L.at(k))) return b;  // no positive sample
+    double peak_db = L.at(k), peak_off = 0;
+    if (L.ok(k - 1) && L.ok(k + 1) && std::isfinite(L.at(k - 1)) && std::isfinite(L.at(k + 1))) {
+        const double ym = L.at(k - 1), yp = L.at(k + 1), den = ym - 2 * peak_db + yp;
         if (den < 0) {
             peak_off = std::clamp(0.5 * (ym - yp) / den, -0.5, 0.5);
             peak_db += -0.5 * den * peak_off * peak_off;
@@ -203,59 +292,37 @@ BeamFigures beam_figures(const std::vector<double>& angle_deg, const std::vector
     }
     b.peak_angle_deg = angle_deg[std::size_t(k)] + peak_off * step;
     b.peak_db = peak_db;
-    const double level_db = peak_db - 10.0 * std::log10(2.0);  // -3.0103 dB
 
-    // Walk outward to the half-power crossing; interpolate linearly in dB.
-    auto crossing = [&](int dir) -> std::optional<double> {
-        for (int m = 1; m < n; ++m) {
-            const int j = k + dir * m;
-            if (!ok(j)) return std::nullopt;
-            const double yj = to_db(at(j));
-            // A pattern that just touches half power (1 + cos^2 t) counts as crossing it there.
-            if (yj <= level_db + 1e-9) {
-                const double yprev = to_db(at(j - dir));
-                const double frac =
-                    std::isfinite(yj) && yprev > yj ? std::clamp((yprev - level_db) / (yprev - yj), 0.0, 1.0) : 1.0;
-                return dir * (m - 1 + frac) * step;  // offset from the peak sample
-            }
+    const Edge r = half_power_edge(L, k, +1, peak_db - half_power_db), l = half_power_edge(L, k, -1, peak_db - half_power_db);
+    b.left = l.status;
+    b.right = r.status;
+    if (l.status == EdgeStatus::found) b.left_deg = angle_deg[std::size_t(k)] + l.offset * step;
+    if (r.status == EdgeStatus::found) b.right_deg = angle_deg[std::size_t(k)] + r.offset * step;
+    if (l.status == EdgeStatus::outside_data || r.status == EdgeStatus::outside_data) {
+        b.shape = BeamShape::edges_outside_data;
+    } else if (l.status == EdgeStatus::found && r.status == EdgeStatus::found) {
+        const double span = (r.offset - l.offset) * step;
+        if (span <= 180.0 + 1e-9) {
+            b.shape = BeamShape::beam;
+            b.hpbw_deg = span;
+        } else {
+            b.shape = BeamShape::wider_than_180;
+            b.half_power_span_deg = span;
         }
-        return std::nullopt;
-    };
-    auto r = crossing(+1), l = crossing(-1);
-    if (r && l && (*r - *l) < 360.0) {
-        b.hpbw_deg = *r - *l;
-        b.left_deg = angle_deg[std::size_t(k)] + *l;
-        b.right_deg = angle_deg[std::size_t(k)] + *r;
+    } else {
+        b.shape = BeamShape::omnidirectional;
+        double lowest = L.at(k);
+        for (double v : L.y)
+            if (!std::isnan(v)) lowest = std::min(lowest, v);
+        b.ripple_db = L.at(k) - lowest;
     }
     // Front-to-back on this cut: the sample half-way round.
-    if (n % 2 == 0 && ok(k + n / 2)) {
-        const double back = at(k + n / 2);
-        if (back > 0) b.front_to_back_db = to_db(p0) - to_db(back);
+    if (L.n % 2 == 0 && L.ok(k + L.n / 2)) {
+        const RatioDb fb = ratio_db(power[std::size_t(k)], power[std::size_t(L.wrap(k + L.n / 2))]);
+        b.front_to_back_db = fb.db;
+        b.front_to_back_above_db = fb.above_db;
     }
-    // First nulls: walk outward while the power keeps falling.
-    auto null_at = [&](int dir) -> std::optional<int> {
-        int j = k;
-        for (int m = 1; m < n; ++m) {
-            const int nxt = j + dir;
-            if (!ok(nxt)) return std::nullopt;
-            if (at(nxt) > at(j)) return j;
-            j = nxt;
-        }
-        return std::nullopt;
-    };
-    auto nr = null_at(+1), nl = null_at(-1);
-    if (nr && nl) {
-        const int span = *nr - *nl;  // main lobe from nl to nr (unwrapped indices)
-        if (span < n - 2) {
-            double best = -1;
-            for (int j = *nr + 1; j < *nl + n; ++j) {
-                if (!ok(j) || !ok(j - 1) || !ok(j + 1)) continue;
-                const double v = at(j);
-                if (v >= at(j - 1) && v > at(j + 1) && v > best) best = v;
-            }
-            if (best > 0) b.sidelobe_db = to_db(best) - to_db(p0);
-        }
-    }
+    side_lobes(L, k, angle_deg, mirrored_halves, b);
     return b;
 }
 

@@ -64,18 +64,49 @@ double default_cut_step(const Grid& g);
 // Linear power of one component along a cut (NaN where invalid).
 std::vector<double> cut_power(const FarFieldSet& s, const CutSamples& c, Component comp);
 
+// A lobe is a local maximum that stands out by at least lobe_prominence_db from the lowest point
+// between it and any higher sample on each side (its topographic prominence, as
+// scipy.signal.peak_prominences defines it): ripple and interpolation dips are not lobes.
+inline constexpr double lobe_prominence_db = 3.0;
+// The half-power level below the peak, 10 log10 2.
+inline constexpr double half_power_db = 3.0102999566398120;
+
+// Why a half-power crossing is missing on one side of the peak.
+enum class EdgeStatus {
+    found,         // the -3.0103 dB crossing
+    outside_data,  // the cut leaves the sampled region before the power falls 3 dB
+    never_falls    // the power stays above half all the way round the cut
+};
+enum class BeamShape {
+    no_power,            // no positive sample on the cut
+    beam,                // both crossings, at most 180 deg apart: hpbw_deg
+    omnidirectional,     // never 3 dB below the peak on a closed cut: ripple_db
+    wider_than_180,      // crossings more than 180 deg apart: no beam (half_power_span_deg)
+    edges_outside_data   // a crossing lies outside the sampled range (left / right say which)
+};
+const char* to_string(BeamShape b);  // "beam", "omnidirectional", "wider_than_180_deg", ...
+
 struct BeamFigures {
+    BeamShape shape = BeamShape::no_power;
     double peak_angle_deg = 0;
     double peak_db = 0;
-    std::optional<double> hpbw_deg;           // width between the -3.0103 dB crossings
-    std::optional<double> left_deg, right_deg;  // the crossings (angles on the cut)
-    std::optional<double> front_to_back_db;   // peak against the sample 180 deg further round
-    std::optional<double> sidelobe_db;        // highest maximum outside the first nulls, relative (<= 0)
+    std::optional<double> hpbw_deg;             // only for BeamShape::beam
+    std::optional<double> left_deg, right_deg;  // the crossings that exist (angles on the cut)
+    EdgeStatus left = EdgeStatus::never_falls, right = EdgeStatus::never_falls;  // toward lower / higher angles
+    std::optional<double> ripple_db;            // omnidirectional: peak minus the lowest sample
+    std::optional<double> half_power_span_deg;  // wider_than_180: the angle between the crossings
+    std::optional<double> front_to_back_db;     // peak against the sample 180 deg round, up to null_ratio_bound_db
+    std::optional<double> front_to_back_above_db;  // null_ratio_bound_db when that sample is a null
+    std::optional<double> sidelobe_db;          // highest lobe other than the main beam (and its mirror), relative (<= 0)
+    bool mirror_beam = false;                   // a mirror image of the main beam was found and not counted
 };
 
 // Beam figures of a closed cut. power: linear, NaN where invalid. start_index: where to begin the
-// climb to the main lobe (-1: the largest sample).
+// climb to the main lobe (-1: the largest sample). mirrored_halves: angles a and -a are mirror
+// images about the axis (phi = const cuts); a lobe there within half power of the peak is the
+// main beam's mirror (an axially symmetric pattern crosses its main beam twice), not a side lobe.
+// Cost: O(n) for the peak and crossings, O(n) per candidate lobe tried (the highest first).
 BeamFigures beam_figures(const std::vector<double>& angle_deg, const std::vector<double>& power,
-                         int start_index = -1);
+                         int start_index = -1, bool mirrored_halves = false);
 
 }  // namespace ellipsa

@@ -28,14 +28,14 @@ PatternSummary summarize(const FarFieldSet& s, std::size_t fi) {
     const double step = default_cut_step(s.grid);
     {
         CutSamples c = sample_cut(s, fi, CutSpec::phi_cut(r.peak.phi_deg), step);
-        BeamFigures b = beam_figures(c.angle_deg, cut_power(s, c, Component::total), nearest_cut_sample(c, pd));
-        r.hpbw_elevation_deg = b.hpbw_deg;
-        r.sidelobe_elevation_db = b.sidelobe_db;
+        r.elevation = beam_figures(c.angle_deg, cut_power(s, c, Component::total), nearest_cut_sample(c, pd), true);
+        r.hpbw_elevation_deg = r.elevation.hpbw_deg;
+        r.sidelobe_elevation_db = r.elevation.sidelobe_db;
     }
     {
         CutSamples c = sample_cut(s, fi, CutSpec::through(r.peak.theta_deg, r.peak.phi_deg, true), step);
-        BeamFigures b = beam_figures(c.angle_deg, cut_power(s, c, Component::total), nearest_cut_sample(c, pd));
-        r.hpbw_azimuth_deg = b.hpbw_deg;
+        r.azimuth = beam_figures(c.angle_deg, cut_power(s, c, Component::total), nearest_cut_sample(c, pd));
+        r.hpbw_azimuth_deg = r.azimuth.hpbw_deg;
     }
     if (auto back = interpolate(s, fi, 180.0 - r.peak.theta_deg, r.peak.phi_deg + 180.0)) {
         const RatioDb fb = ratio_db(r.peak.value, power(back->e_theta, back->e_phi));

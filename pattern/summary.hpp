@@ -4,6 +4,7 @@
 #include <optional>
 #include <string>
 
+#include "pattern/cut.hpp"
 #include "pattern/far_field.hpp"
 #include "pattern/integrate.hpp"
 #include "pattern/peak.hpp"
@@ -23,6 +24,8 @@ struct PatternSummary {
     PowerFigures power;              // radiated power, coverage, directivity, efficiency
     std::optional<double> directivity_dbi;
     bool efficiency_above_100 = false;  // radiation efficiency above 1 + efficiency_tolerance: a data problem
+    BeamFigures elevation;                     // the phi = const cut through the peak (mirror halves)
+    BeamFigures azimuth;                       // the great circle through the peak along phi-hat
     std::optional<double> hpbw_elevation_deg;  // phi = const cut through the peak
     std::optional<double> hpbw_azimuth_deg;    // orthogonal great circle through the peak
     std::optional<double> front_to_back_db;    // peak against the antipode, when at most null_ratio_bound_db

@@ -2,6 +2,8 @@
 // pattern) overlaid, a legend, dB grid labels, -3 dB markers and the HPBW / front-to-back readout.
 #include <imgui.h>
 
+#include "exports/figure_text.hpp"
+
 #include <cmath>
 #include <algorithm>
 #include <cstdio>
@@ -191,17 +193,12 @@ void cut_legend(const AppState& s, const CutData& cd, ImDrawList* dl, float lx, 
     dl->AddText(ImVec2(lx, ly), ink, b);
     ly += 18;
     if (bf.hpbw_deg) std::snprintf(b, sizeof b, s.settings.polar_plot ? "HPBW %.1f\u00b0 (circles)" : "HPBW %.1f\u00b0 (ticks)", *bf.hpbw_deg);
-    else std::snprintf(b, sizeof b, "HPBW: no -3 dB points");
+    else std::snprintf(b, sizeof b, "HPBW %s", exports::beamwidth_text(bf, cd.spec.angle_name(), "\u00b0").c_str());
     dl->AddText(ImVec2(lx, ly), ink, b);
     ly += 18;
-    if (bf.front_to_back_db) std::snprintf(b, sizeof b, "F/B %.2f dB", *bf.front_to_back_db);
-    else std::snprintf(b, sizeof b, "F/B n/a");
-    dl->AddText(ImVec2(lx, ly), ink, b);
+    dl->AddText(ImVec2(lx, ly), ink, ("F/B " + exports::front_to_back_text(bf.front_to_back_db, bf.front_to_back_above_db)).c_str());
     ly += 18;
-    if (bf.sidelobe_db) {
-        std::snprintf(b, sizeof b, "side lobe %.2f dB", *bf.sidelobe_db);
-        dl->AddText(ImVec2(lx, ly), ink, b);
-    }
+    dl->AddText(ImVec2(lx, ly), ink, ("side lobe " + exports::sidelobe_text(bf)).c_str());
 }
 
 void cut_plot(const AppState& s, const CutData& cd) {

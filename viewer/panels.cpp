@@ -125,8 +125,9 @@ void headline_figures(const LoadedPattern& a, const PatternSummary& sm) {
         table_row("Efficiency", b, "Radiated power over 4 pi, from absolute gain data");
         if (sm.efficiency_above_100) table_row("Warning", "efficiency above 100 %", exports::efficiency_warning_text(*sm.power.radiation_efficiency).c_str());
     }
-    table_row("HPBW elev.", opt_text(sm.hpbw_elevation_deg, "\u00b0", "none"), "Half-power beamwidth on the phi = const cut through the peak");
-    table_row("HPBW azim.", opt_text(sm.hpbw_azimuth_deg, "\u00b0", "none (omni)"), "Half-power beamwidth across it");
+    table_row("HPBW elev.", exports::beamwidth_text(sm.elevation, "\u03b8", "\u00b0"), "Half-power beamwidth on the phi = const cut through the peak");
+    table_row("HPBW azim.", exports::beamwidth_text(sm.azimuth, "angle", "\u00b0"), "Half-power beamwidth across it");
+    table_row("Side lobe", exports::sidelobe_text(sm.elevation), "Highest lobe outside the main beam on the elevation cut (3 dB prominence)");
     table_row("Front/back", sm.front_to_back_above_db ? "above " + exports::fixed(*sm.front_to_back_above_db, 0) + " dB (null)"
                                                       : opt_text(sm.front_to_back_db, "dB", "n/a"),
               "Peak against the opposite direction");

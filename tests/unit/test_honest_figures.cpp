@@ -136,3 +136,110 @@ TEST_CASE("numbers that round to zero never print as -0", "[honest][text]") {
     CHECK(exports::fixed(-0.006, 2) == "-0.01");
     CHECK(exports::fixed(std::nan(""), 2) == "n/a");
 }
+
+namespace {
+// Power of a closed cut sampled every step_deg (angles -180..180), from a function of the angle.
+struct Cut {
+    std::vector<double> angle_deg, power;
+};
+Cut cut_of(double step_deg, const std::function<double(double)>& p) {
+    Cut c;
+    const int n = int(std::lround(360 / step_deg));
+    for (int k = 0; k < n; ++k) {
+        c.angle_deg.push_back(-180 + k * step_deg);
+        c.power.push_back(p(-180 + k * step_deg));
+    }
+    return c;
+}
+// Uniform array factor |sin(N psi / 2) / (N sin(psi / 2))|^2, psi = k d cos(t) + beta (Balanis sec. 6.3).
+double array_factor(int n, double d_wl, double beta, double t_deg) {
+    const double psi = 2 * pi * d_wl * std::cos(t_deg * deg) + beta;
+    const double den = n * std::sin(psi / 2);
+    if (std::abs(den) < 1e-12) return 1.0;
+    const double a = std::sin(n * psi / 2) / den;
+    return a * a;
+}
+}  // namespace
+
+TEST_CASE("uniform broadside array: first side lobe -13.26 dB, its mirror is the main beam", "[honest][beam]") {
+    // Balanis sec. 6.3: a uniform N-element array's first side lobe is -13.26 dB for large N
+    // (N = 50, d = lambda/2 along z). The phi = const cut crosses the broadside beam at theta = +-90.
+    const Cut c = cut_of(0.05, [](double a) { return array_factor(50, 0.5, 0, std::abs(a)); });
+    const BeamFigures b = beam_figures(c.angle_deg, c.power, -1, true);
+    CHECK(b.mirror_beam);
+    REQUIRE(b.sidelobe_db);
+    CHECK(*b.sidelobe_db == Approx(-13.26).margin(0.03));
+    REQUIRE(b.hpbw_deg);
+    CHECK(*b.hpbw_deg == Approx(2.03).margin(0.03));  // Balanis eq. 6-22a: 2 (90 - acos(1.391 / (pi N d)))
+}
+
+TEST_CASE("end-fire array with ripple from its phase reference: no side lobe at 0 dB", "[honest][beam]") {
+    // Ordinary end-fire (beta = -k d), N = 10, d = lambda/4: side lobes about -13 dB (Balanis sec. 6.4).
+    // A sampled, interpolated pattern with its phase reference off the origin dips between grid
+    // points; modelled here as a 0.5 dB ripple on the main lobe. Ripple is not a lobe.
+    const Cut c = cut_of(0.25, [](double a) {
+        const double ripple = std::pow(10.0, -0.25 * (1 - std::cos(a * deg * 90)) / 10);  // 0..0.5 dB dips every 4 deg
+        return array_factor(10, 0.25, -pi / 2, std::abs(a)) * ripple;
+    });
+    const BeamFigures b = beam_figures(c.angle_deg, c.power, -1, true);
+    REQUIRE(b.sidelobe_db);
+    CHECK(*b.sidelobe_db < -11);
+    CHECK(*b.sidelobe_db > -14.5);
+}
+
+TEST_CASE("Gaussian beam with ripple: HPBW as the closed form, no side lobe", "[honest][beam]") {
+    // exp(-4 ln2 (a / 40)^2) has HPBW 40 deg exactly; a 0.3 dB ripple on top moves no half-power point
+    // by more than a fraction of a degree and makes no lobe (prominence below 3 dB).
+    const Cut c = cut_of(0.25, [](double a) {
+        return std::exp(-4 * std::log(2.0) * (a / 40) * (a / 40)) * std::pow(10.0, -0.15 * (1 + std::sin(a * deg * 45)) / 10) + 1e-6;
+    });
+    const BeamFigures b = beam_figures(c.angle_deg, c.power);
+    REQUIRE(b.hpbw_deg);
+    CHECK(*b.hpbw_deg == Approx(40).margin(1.0));
+    CHECK_FALSE(b.sidelobe_db);
+}
+
+TEST_CASE("omnidirectional, wider than 180 deg, and edges outside the data", "[honest][beam]") {
+    // An azimuth cut of a z dipole is constant: omnidirectional, ripple 0 (Balanis sec. 4.2).
+    const Cut omni = cut_of(1, [](double) { return 1.5; });
+    BeamFigures b = beam_figures(omni.angle_deg, omni.power);
+    CHECK(b.shape == BeamShape::omnidirectional);
+    CHECK_FALSE(b.hpbw_deg);
+    REQUIRE(b.ripple_db);
+    CHECK(*b.ripple_db == Approx(0).margin(1e-12));
+    CHECK(exports::beamwidth_reason(b) == std::optional<std::string>("omnidirectional"));
+    // 1 + 0.9 cos a in power never falls 3 dB... except near the back: crossings at
+    // acos((0.5 * 1.9 - 1) / 0.9) = 93.2 deg each side, 186.4 deg apart: no beam.
+    const Cut wide = cut_of(0.1, [](double a) { return 1 + 0.9 * std::cos(a * deg); });
+    b = beam_figures(wide.angle_deg, wide.power);
+    CHECK(b.shape == BeamShape::wider_than_180);
+    CHECK_FALSE(b.hpbw_deg);
+    REQUIRE(b.half_power_span_deg);
+    CHECK(*b.half_power_span_deg == Approx(2 * std::acos((0.5 * 1.9 - 1) / 0.9) / deg).margin(0.2));
+    // A partial range (data from -30 to 60 deg only) of a flat beam: the edges lie outside the data.
+    Cut part = cut_of(1, [](double a) { return a >= -30 && a <= 60 ? 1.0 + 0.001 * a : std::nan(""); });
+    b = beam_figures(part.angle_deg, part.power);
+    CHECK(b.shape == BeamShape::edges_outside_data);
+    CHECK(b.left == EdgeStatus::outside_data);
+    CHECK(b.right == EdgeStatus::outside_data);
+    CHECK(exports::beamwidth_text(b, "phi", "deg") == "none: the beam's edge lies outside the sampled range (on both sides)");
+}
+
+TEST_CASE("a partial azimuth range is not called omnidirectional", "[honest][summary]") {
+    // issue 13 item 12: a single phi cut (phi = 0 only) of a half-wave dipole: the azimuth-like cut
+    // through the peak leaves the data at once.
+    FarFieldSet d = synthesize(ReferenceAntenna{}, 2, 1e9);
+    FarFieldSet one = d;
+    one.grid.phi.count = 1;
+    one.frequencies[0].e_theta.clear();
+    one.frequencies[0].e_phi.clear();
+    for (int i = 0; i < d.grid.theta.count; ++i) {
+        one.frequencies[0].e_theta.push_back(d.frequencies[0].e_theta[d.grid.index(i, 0)]);
+        one.frequencies[0].e_phi.push_back(d.frequencies[0].e_phi[d.grid.index(i, 0)]);
+    }
+    const PatternSummary r = summarize(one, 0);
+    CHECK(r.azimuth.shape == BeamShape::edges_outside_data);
+    CHECK_FALSE(r.hpbw_azimuth_deg);
+    REQUIRE(r.hpbw_elevation_deg);
+    CHECK(*r.hpbw_elevation_deg == Approx(78.1).margin(0.3));  // Balanis sec. 4.6
+}

@@ -54,7 +54,7 @@ CutData build_cut_data(const FarFieldSet& a, std::size_t fa, const FarFieldSet* 
     if (std::none_of(first.begin(), first.end(), [](double v) { return std::isfinite(v); })) return cd;  // nothing to measure
     std::vector<double> lin;
     for (double v : first) lin.push_back(std::isnan(v) ? v : std::pow(10.0, v / 10));
-    cd.figures = beam_figures(cd.angle_deg, lin);
+    cd.figures = beam_figures(cd.angle_deg, lin, -1, spec.kind == CutKind::phi_const);
     return cd;
 }
 
