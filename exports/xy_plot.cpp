@@ -37,6 +37,18 @@ struct Range {
     double lo, hi;
 };
 
+// A log-y panel as a linear one in log10 units (draw_frame labels its decades).
+XyPanel in_decades(const XyPanel& p) {
+    XyPanel q = p;
+    auto lg = [](double v) { return v > 0 ? std::log10(v) : NAN; };
+    for (XySeries& s : q.series)
+        for (double& v : s.y) v = lg(v);
+    for (double& r : q.y_references) r = lg(r);
+    if (q.y_min) q.y_min = lg(*q.y_min);
+    if (q.y_max) q.y_max = lg(*q.y_max);
+    return q;
+}
+
 Range y_range(const XyPanel& p) {
     double lo = INFINITY, hi = -INFINITY;
     for (const XySeries& s : p.series)
@@ -45,6 +57,7 @@ Range y_range(const XyPanel& p) {
     for (double r : p.y_references) lo = std::min(lo, r), hi = std::max(hi, r);
     if (!std::isfinite(lo)) lo = 0, hi = 1;
     if (hi - lo < 1e-9) lo -= 0.5, hi += 0.5;
+    if (p.log_y) return {p.y_min.value_or(std::floor(lo + 1e-9)), p.y_max.value_or(std::ceil(hi - 1e-9))};
     const std::vector<double> t = nice_ticks(lo, hi);
     const double step = t.size() > 1 ? t[1] - t[0] : (hi - lo);
     lo = std::floor(lo / step + 1e-9) * step;
@@ -71,6 +84,14 @@ struct Box {
     double Y(double y) const { return y1 - (y1 - y0) * (y - yr.lo) / (yr.hi - yr.lo); }
 };
 
+// The dash pattern of curve_dash(index) at a line width.
+void dash_as(Pen& pen, int index, double line_width) {
+    const Dash d = curve_dash(std::size_t(index));
+    double v[4];
+    for (int k = 0; k < d.count; ++k) v[k] = d.d[k] * line_width;
+    cairo_set_dash(pen.cr, d.count ? v : nullptr, d.count, 0);
+}
+
 // One series: thin lines between consecutive samples with values, then a marker at each sample.
 void draw_series(Pen& pen, const Box& b, const XySeries& s) {
     cairo_t* cr = pen.cr;
@@ -89,7 +110,8 @@ void draw_series(Pen& pen, const Box& b, const XySeries& s) {
                 cairo_move_to(cr, x, y);
             down = true;
         }
-        pen.curve_style(std::size_t(s.style), (s.points ? 0.9 : 1.5) * u);
+        pen.curve_style(std::size_t(s.style), (s.points ? 0.9 : 1.5) * u * s.width);
+        if (s.dash >= 0) dash_as(pen, s.dash, (s.points ? 0.9 : 1.5) * u * s.width);
         cairo_stroke(cr);
         pen.solid();
     }
@@ -111,7 +133,11 @@ void draw_frame(Pen& pen, const Box& b, const XyFigure& f, const XyPanel& p, boo
     cairo_t* cr = pen.cr;
     const double u = pen.u;
     const std::vector<double> xt = nice_ticks(b.xr.lo / f.x_scale, b.xr.hi / f.x_scale, 6);
-    const std::vector<double> yt = nice_ticks(b.yr.lo, b.yr.hi, 4);
+    std::vector<double> yt = nice_ticks(b.yr.lo, b.yr.hi, 4);
+    if (p.log_y) {
+        yt.clear();
+        for (double k = std::ceil(b.yr.lo - 1e-9); k <= b.yr.hi + 1e-9; ++k) yt.push_back(k);
+    }
     cairo_set_line_width(cr, 0.5 * u);
     pen.colour(grid_major);
     for (double v : xt) pen.line(b.X(v * f.x_scale), b.y0, b.X(v * f.x_scale), b.y1);
@@ -123,7 +149,8 @@ void draw_frame(Pen& pen, const Box& b, const XyFigure& f, const XyPanel& p, boo
     pen.colour(ink);
     pen.font(FontWeight::regular, 7.4);
     const int yd = decimals_for(yt), xd = decimals_for(xt);
-    for (double v : yt) pen.text(num(v, yd), b.x0 - 4 * u, b.Y(v), 1.0, true);
+    for (double v : yt)
+        pen.text(p.log_y ? num(std::pow(10.0, v), std::max(0, int(-v))) : num(v, yd), b.x0 - 4 * u, b.Y(v), 1.0, true);
     if (x_labels)
         for (double v : xt) pen.text(num(v, xd), b.X(v * f.x_scale), b.y1 + 11 * u, 0.5);
     // y label, rotated, left of the tick labels.
@@ -146,6 +173,10 @@ int draw_legend(Pen& pen, const Box& b, const std::vector<XySeries>& series, boo
     int row = 0;
     double x = b.x0;
     for (const XySeries& s : series) {
+        if (s.label.empty()) {  // not in the legend
+            at.emplace_back(-1, 0.0);
+            continue;
+        }
         const double wdt = 17 * u + std::min(pen.width(s.label), b.x1 - b.x0 - 30 * u) + 10 * u;
         if (x > b.x0 && x + wdt > b.x1) {
             ++row;
@@ -157,8 +188,10 @@ int draw_legend(Pen& pen, const Box& b, const std::vector<XySeries>& series, boo
     const int rows = series.empty() ? 0 : row + 1;
     if (!draw) return rows;
     for (std::size_t i = 0; i < series.size(); ++i) {
+        if (at[i].first < 0) continue;
         const double y = b.y0 - 5 * u - row_h * double(rows - 1 - at[i].first), x0 = at[i].second;
         pen.curve_style(std::size_t(series[i].style), 1.4 * u);
+        if (series[i].dash >= 0) dash_as(pen, series[i].dash, 1.4 * u);
         pen.line(x0, y - 2.5 * u, x0 + 14 * u, y - 2.5 * u);
         pen.solid();
         pen.colour(ink);
@@ -215,7 +248,7 @@ void draw_xy_figure(cairo_t* cr, const XyFigure& f, double w, double h) {
     const double ph = (bottom - top - gap_sum) / double(np);
     double y0 = top;
     for (std::size_t i = 0; i < f.panels.size(); ++i) {
-        const XyPanel& p = f.panels[i];
+        const XyPanel p = f.panels[i].log_y ? in_decades(f.panels[i]) : f.panels[i];
         y0 += gaps[i];
         const Box b{m + 46 * u, y0, w - m - 6 * u, y0 + ph, xr, y_range(p)};
         y0 += ph;

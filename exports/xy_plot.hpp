@@ -16,8 +16,11 @@ struct XySeries {
     std::string label;
     std::vector<double> x, y;  // y NaN: no value there (the line breaks, no point)
     int style = 0;             // colour and dash index (palette.hpp): the same index is the same look
+    int dash = -1;             // a dash pattern of its own (palette.hpp curve_dash index); -1: the style's
+    double width = 1;          // line width factor
     bool points = true;        // a marker at every sample
     bool lines = true;         // thin joining lines
+    // An empty label keeps the series out of the legend (a note can explain it instead).
 };
 
 struct XyMarker {
@@ -33,6 +36,9 @@ struct XyPanel {
     std::vector<XyMarker> markers;       // dashed vertical lines
     std::vector<double> y_references;    // dotted horizontal lines (e.g. AR 3 dB)
     std::string empty_text;              // shown when no series has a value
+    // A logarithmic y axis with ticks at whole decades (values <= 0 have no place on it); y_min,
+    // y_max and the references stay in data units. For probabilities down to 1e-6 (fading CDFs).
+    bool log_y = false;
 };
 
 struct XyFigure {

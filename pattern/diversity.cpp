@@ -40,6 +40,30 @@ Status check_solid_angle(const Grid& g) {
     return Ok{};
 }
 
+}  // namespace
+
+Result<FarField> resample_field(const FarFieldSet& s, std::size_t fi, const Grid& g) {
+    FarField out;
+    out.frequency_hz = s.frequencies[fi].frequency_hz;
+    out.e_theta.resize(g.size());
+    out.e_phi.resize(g.size());
+    for (int i = 0; i < g.theta.count; ++i)
+        for (int j = 0; j < g.phi.count; ++j) {
+            const double td = g.theta.value_deg(i), pd = g.phi.value_deg(j);
+            auto v = interpolate(s, fi, td, pd);
+            if (!v) {
+                char buf[200];
+                std::snprintf(buf, sizeof buf, "does not cover the grid (no data at theta %g, phi %g deg)", td, pd);
+                return fail(buf);
+            }
+            out.e_theta[g.index(i, j)] = v->e_theta;
+            out.e_phi[g.index(i, j)] = v->e_phi;
+        }
+    return out;
+}
+
+namespace {
+
 // Per-sample partial gains of one frequency, already scaled to gain.
 struct PartialGains {
     std::vector<double> gtt, gpp, gtp;  // |E_theta|^2, |E_phi|^2, Re(E_theta conj(E_phi))
@@ -486,33 +510,16 @@ Result<CorrelationFigures> envelope_correlation(const FarFieldSet& a, std::size_
     CorrelationFigures out;
     out.sampled_share = env->sampled_share;
     const FarField& f1 = a.frequencies[fa];
-    std::vector<cplx> bt, bp;
-    const cplx* et2;
-    const cplx* ep2;
-    if (same_grid(a.grid, b.grid)) {
-        et2 = b.frequencies[fb].e_theta.data();
-        ep2 = b.frequencies[fb].e_phi.data();
-    } else {
+    FarField resampled;
+    const cplx* et2 = b.frequencies[fb].e_theta.data();
+    const cplx* ep2 = b.frequencies[fb].e_phi.data();
+    if (!same_grid(a.grid, b.grid)) {
+        auto r = resample_field(b, fb, g);
+        if (!r) return Error{"", 0, 0, "the second pattern " + r.error().message};
+        resampled = std::move(*r);
         out.resampled = true;
-        bt.resize(g.size());
-        bp.resize(g.size());
-        for (int i = 0; i < g.theta.count; ++i)
-            for (int j = 0; j < g.phi.count; ++j) {
-                const double td = g.theta.value_deg(i), pd = g.phi.value_deg(j);
-                auto v = interpolate(b, fb, td, pd);
-                if (!v) {
-                    char buf[200];
-                    std::snprintf(buf, sizeof buf,
-                                  "the second pattern does not cover the first one's grid (no data at theta %g, phi "
-                                  "%g deg)",
-                                  td, pd);
-                    return fail(buf);
-                }
-                bt[g.index(i, j)] = v->e_theta;
-                bp[g.index(i, j)] = v->e_phi;
-            }
-        et2 = bt.data();
-        ep2 = bp.data();
+        et2 = resampled.e_theta.data();
+        ep2 = resampled.e_phi.data();
     }
     const CellWeights w = cell_weights(g);
     cplx num = 0;

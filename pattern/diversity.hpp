@@ -119,6 +119,11 @@ struct CorrelationFigures {
 Result<CorrelationFigures> envelope_correlation(const FarFieldSet& a, std::size_t fa, const FarFieldSet& b,
                                                 std::size_t fb, const Environment& e);
 
+// Frequency fi of s interpolated (Cartesian, pattern/interpolate.hpp) onto the samples of g.
+// Error (without a subject: "does not cover the grid (no data at theta .., phi .. deg)") when g
+// reaches outside s's data. Cost: one interpolation per sample of g.
+Result<FarField> resample_field(const FarFieldSet& s, std::size_t fi, const Grid& g);
+
 // The approximation 10 sqrt(1 - rho_e) dB of two-branch selection combining at 1 % outage (equal
 // branches; common practice), kept for comparison with the exact figure (rho_e clamped to [0, 1]).
 double approximate_selection_gain_db(double ecc);

@@ -23,6 +23,10 @@ echo "-- diversity (MEG, orientation sweep, envelope correlation) --"
 "$B/tests/bench_diversity" || echo "bench_diversity failed"
 
 echo
+echo "-- fading (random-field simulation, exact combining) --"
+"$B/tests/bench_fading" || echo "bench_fading failed"
+
+echo
 echo "-- CSV importer (1M rows, 16 frequencies, ~70 MB; MB/s target >= 300; peak memory target < 2x arrays) --"
 BENCH_DIR=${BENCH_DIR:-$B/bench-data}
 mkdir -p "$BENCH_DIR"

@@ -1,5 +1,7 @@
 #!/usr/bin/python3
-"""Independent cross-check of the exact combining figures of `ellipsa diversity A B --json` with scipy.
+"""Independent cross-check of the exact combining and Rician figures with scipy.
+
+Part 1, `ellipsa diversity A B --json`:
 
 For pairs of antennas (closed-form dipoles and crossed dipoles from `ellipsa synth`, turned so their
 envelope correlation runs from 0 to about 0.9) in two environments, the script takes the two MEG and the
@@ -11,6 +13,10 @@ ECC that ellipsa reports and recomputes every combining figure on its own:
   levels by scipy.optimize.brentq; gains over the stronger branch and over an ideal lossless antenna in
   the isotropic environment (MEG 0.5; Kildal & Rosengren, IEEE Commun. Mag. 42(12), 2004).
 ellipsa sums a series of its own (pattern/combining.hpp), so the two share no code.
+Part 2, `ellipsa fading FILE --k-factor K --json`: the closed-form Rician levels of each antenna
+(conventions.md: P(|a|^2 <= x) = 1 - Q1(sqrt(2K), sqrt(2(K+1)x/Omega)), with the antenna's own K and
+mean Omega that ellipsa reports) against scipy: Q1(a, b) = scipy.stats.ncx2.sf(b^2, 2, a^2), levels by
+brentq. ellipsa's Marcum Q1 is its own Poisson-mixture sum (pattern/marcum.hpp).
 Usage: check_combining_scipy.py ELLIPSA WORKDIR
 """
 import json
@@ -99,6 +105,29 @@ for env in ["uniform", "urban"]:
             check(f"{tag} selection level at {p}", c["selection_level_db"], db(sc), 1e-4)
             check(f"{tag} maximal-ratio level at {p}", c["mrc_level_db"], db(mr), 1e-4)
         check(f"{tag} headline = selection gain at 1 %", out["diversity_gain_db"], out["combining"]["0.01"]["selection_db"], 1e-12)
+
+# Part 2: Rician levels through Marcum's Q-function.
+for k_arg, pol, where in [("10", "vertical", "90,20"), ("3dB", "slant+45", "60,0"), ("30dB", "rhcp", "10,0"),
+                          ("0.5", "horizontal", "90,0")]:
+    for name in ["z", "c"]:
+        out = json.loads(run("fading", os.path.join(work, name + ".csv"), "--environment", "urban", "--samples", "2000",
+                             "--k-factor", k_arg, "--polarisation", pol, "--dominant", where, "--json",
+                             "--outage", "0.001,0.01,0.1,0.5"))
+        p0 = out["patterns"][0]
+        k, omega = p0["k_factor"], 10 ** (p0["analytic_mean_db"] / 10)
+        for key, lv in p0["analytic_levels_db"].items():
+            p = float(key)
+            if k > 0:
+                cdf = lambda x: ncx2.cdf(2 * (k + 1) * x / omega, 2, 2 * k)
+                want = brentq(lambda x: cdf(x) - p, 1e-9 * omega, 3 * omega, xtol=1e-18, rtol=1e-13, maxiter=500)
+            else:
+                want = -omega * math.log1p(-p)
+            check(f"Rician {name} K={k_arg} {pol} from {where}: own K {k:.4g}, level at {p}", lv, db(want), 1e-6)
+        # Q1 itself at the level: 1 - Q1(sqrt(2K), sqrt(2(K+1)x/Omega)) = p, scipy's sf against ellipsa's level.
+        if k > 0:
+            x = 10 ** (p0["analytic_levels_db"]["0.01"] / 10)
+            q1 = ncx2.sf(2 * (k + 1) * x / omega, 2, 2 * k)
+            check(f"Rician {name} K={k_arg}: scipy Q1 at ellipsa's 1 % level", 1 - q1, 0.01, 1e-9)
 
 print(f"{failures} failed")
 sys.exit(1 if failures else 0)
