@@ -44,7 +44,7 @@ public:
 
 private:
     static std::uint64_t rotl(std::uint64_t x, int k) { return (x << k) | (x >> (64 - k)); }
-    std::uint64_t s_[4];
+    std::uint64_t s_[4] = {};
 };
 
 // Walker's alias table over weights w_i >= 0 (not all zero): draw() returns i with probability
