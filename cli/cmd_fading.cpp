@@ -56,7 +56,7 @@ bool parse_k_factor(std::string text, double& k) {
     for (const char* suffix : {"dB", "db"}) {
         const std::size_t at = text.rfind(suffix);
         if (at != std::string::npos && at + 2 == text.size()) {
-            text = text.substr(0, at);
+            text.resize(at);
             db = true;
         }
     }
