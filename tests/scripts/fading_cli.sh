@@ -2,15 +2,8 @@
 # The fading command's contract: JSON keys, exit codes, reproducible seeds, plot files, refusals.
 # Usage: fading_cli.sh ELLIPSA WORKDIR
 set -uo pipefail
-E=$1; W=$2; mkdir -p "$W"; cd "$W"; rm -f ./*.csv ./*.svg ./*.png ./*.pdf ./*.txt
-pass=0; fail=0
-ok() { echo "ok   $1"; pass=$((pass+1)); }
-bad() { echo "FAIL $1"; fail=$((fail+1)); }
-expect_rc() {  # WANT LABEL CMD...
-  local want=$1 label=$2; shift 2
-  "$@" >out.txt 2>err.txt; local rc=$?
-  if [[ $rc == "$want" ]]; then ok "$label (exit $rc)"; else bad "$label: exit $rc, expected $want; stderr: $(head -c 300 err.txt)"; fi
-}
+source "$(dirname "$0")/checks.sh"  # ok, bad, expect_rc, finish
+E=$1; W=$2; rm -rf "$W"; mkdir -p "$W"; cd "$W"
 py() { /usr/bin/python3 -c "import json,sys; d=json.load(open('out.txt')); $1"; }
 expect_rc 0 "synth z dipole" "$E" synth dipole --step 2 --out z.csv
 expect_rc 0 "synth crossed dipoles" "$E" synth crossed-dipoles --rotate-x 30 --step 2 --out c.csv
@@ -50,5 +43,4 @@ expect_rc 2 "a K-factor that is not a number" "$E" fading z.csv --k-factor lots
 expect_rc 2 "a dominant wave without K" "$E" fading z.csv --dominant 90,0
 expect_rc 2 "a bad plot extension" "$E" fading z.csv --plot cdf.txt
 expect_rc 1 "missing file" "$E" fading nope.csv
-echo "$pass passed, $fail failed"
-[[ $fail == 0 ]]
+finish
