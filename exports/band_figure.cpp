@@ -49,6 +49,27 @@ std::string band_db_unit(const std::vector<BandSet>& sets) {
     return "dBi";
 }
 
+// ECC (0..1) or the diversity gain (dB) of every pair in every environment.
+void pair_panel(XyPanel& p, bool ecc, const std::vector<BandPair>& pairs, const BandRequest& r) {
+    p.y_label = ecc ? "ECC" : "Diversity gain";
+    p.y_unit = ecc ? "" : "dB";
+    if (ecc) p.y_min = 0, p.y_max = 1;
+    p.empty_text = pairs.empty() ? "needs two patterns" : "unavailable: needs complex data on both";
+    int style = 0;
+    for (const BandPair& pr : pairs)
+        for (std::size_t e = 0; e < r.options.environments.size(); ++e) {
+            XySeries s;
+            s.label = pr.label + ", " + r.options.environments[e].name;
+            s.style = style++;
+            for (const PairFrequencyFigures& f : pr.figures) {
+                s.x.push_back(f.frequency_hz);
+                const auto& en = f.per_environment[e];
+                s.y.push_back(or_nan(ecc ? en.ecc : en.diversity_gain_db));
+            }
+            p.series.push_back(std::move(s));
+        }
+}
+
 // One panel for one quantity over all sets (and pairs).
 XyPanel panel(BandPanel kind, const std::vector<BandSet>& sets, const std::vector<BandPair>& pairs, const BandRequest& r) {
     XyPanel p;
@@ -118,27 +139,7 @@ XyPanel panel(BandPanel kind, const std::vector<BandSet>& sets, const std::vecto
             add(1, "azimuth plane", [](const FrequencyFigures& f) { return or_nan(f.ar_beamwidth_azimuth.width_deg); });
             break;
         case BandPanel::correlation:
-        case BandPanel::diversity_gain: {
-            const bool ecc = kind == BandPanel::correlation;
-            p.y_label = ecc ? "ECC" : "Diversity gain";
-            p.y_unit = ecc ? "" : "dB";
-            if (ecc) p.y_min = 0, p.y_max = 1;
-            p.empty_text = pairs.empty() ? "needs two patterns" : "unavailable: needs complex data on both";
-            int style = 0;
-            for (const BandPair& pr : pairs)
-                for (std::size_t e = 0; e < r.options.environments.size(); ++e) {
-                    XySeries s;
-                    s.label = pr.label + ", " + r.options.environments[e].name;
-                    s.style = style++;
-                    for (const PairFrequencyFigures& f : pr.figures) {
-                        s.x.push_back(f.frequency_hz);
-                        const auto& en = f.per_environment[e];
-                        s.y.push_back(or_nan(ecc ? en.ecc : en.diversity_gain_db));
-                    }
-                    p.series.push_back(std::move(s));
-                }
-            break;
-        }
+        case BandPanel::diversity_gain: pair_panel(p, kind == BandPanel::correlation, pairs, r); break;
     }
     return p;
 }
