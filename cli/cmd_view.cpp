@@ -20,7 +20,7 @@ struct ViewArgs {
     int compare = 0;
     bool wireframe = false, translucent = false;
     bool diversity = false;
-    bool band = false;
+    bool band = false, map = false;
     bool force = false;
 };
 
@@ -62,6 +62,7 @@ Registered add_view(CLI::App& root) {
     sub->add_flag("--translucent", a->translucent, "Start with a translucent surface");
     sub->add_flag("--diversity", a->diversity, "Start with the diversity panel open (MEG, ECC, orientation curve)");
     sub->add_flag("--band", a->band, "Start with the figures-against-frequency panel open");
+    sub->add_flag("--map", a->map, "Start with the 2D map (equal-area) open");
     sub->add_flag("--force", a->force, "Replace the files of --screenshot, --export-view and --export-cut if they exist");
     return {sub, [a]() -> int {
                 viewer::ViewerOptions o;
@@ -120,6 +121,7 @@ Registered add_view(CLI::App& root) {
                 if (!a->cut_style.empty()) o.cut_style = a->cut_style == "rect" ? 1 : 0;
                 o.diversity_panel = a->diversity;
                 o.band_panel = a->band;
+                o.map_panel = a->map;
                 if (!a->pin.empty()) {
                     if (!parse_pair(a->pin, o.pin_theta_deg, o.pin_phi_deg) || o.pin_theta_deg < 0 || o.pin_theta_deg > 180) {
                         std::cerr << "ellipsa view: --pin expects THETA,PHI in degrees (finite) with THETA in [0, 180], found '" << a->pin << "'\n";

@@ -106,6 +106,7 @@ Intents start_options(const ViewerOptions& o, const AppState& s) {
     if (o.has_pin) in.push_back(intent::Pin{Direction{o.pin_theta_deg, o.pin_phi_deg}});
     if (o.diversity_panel) in.push_back(intent::ShowDiversity{true});
     if (o.band_panel) in.push_back(intent::ShowBand{true});
+    if (o.map_panel) in.push_back(intent::ShowMap{true});
     if (o.save_settings && !s.settings.seen_intro) in.push_back(intent::ShowIntro{true});  // first interactive run
     return in;
 }

@@ -28,6 +28,7 @@ struct ViewerOptions {
     std::string export_cut;           // with frames: write the cut shown in the last frame (.svg/.png/.pdf/.csv)
     bool diversity_panel = false;     // start with the diversity panel open
     bool band_panel = false;          // start with the figures-against-frequency panel open
+    bool map_panel = false;           // start with the 2D map open
     bool force = false;               // the files above may replace existing ones
 };
 

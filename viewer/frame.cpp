@@ -53,6 +53,7 @@ void view_menu(const AppState& s, Intents& in) {
     ImGui::MenuItem("Polar cut plot", "P", &st.polar_plot);
     if (ImGui::MenuItem("Diversity (MEG, ECC, orientation)", nullptr, s.diversity_open)) in.push_back(intent::ShowDiversity{!s.diversity_open});
     if (ImGui::MenuItem("Figures against frequency", nullptr, s.band_open)) in.push_back(intent::ShowBand{!s.band_open});
+    if (ImGui::MenuItem("2D map (equal-area)", nullptr, s.map_open)) in.push_back(intent::ShowMap{!s.map_open});
     if (ImGui::MenuItem("Reset view", "R")) in.push_back(intent::ResetView{});
     ImGui::Separator();
     const ImGuiSliderFlags clamp = ImGuiSliderFlags_AlwaysClamp;
@@ -188,6 +189,7 @@ Intents draw_ui(const AppState& s, const Derived& d, const RendererInfo& rendere
     append(in, draw_panels(s, d, layout));
     append(in, read_keys(s));
     append(in, read_mouse(s, d, layout));
+    append(in, draw_map_panel(s, d));
     return in;
 }
 

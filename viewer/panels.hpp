@@ -22,6 +22,10 @@ Intents draw_cut_panel(const AppState& s, const Derived& d);
 Intents draw_diversity_panel(const AppState& s, const Derived& d);
 // A floating window, shown while s.band_open: one figure of A against frequency; a click picks the frequency.
 Intents draw_band_panel(const AppState& s, const Derived& d);
+// A floating window, shown while s.map_open: the surface's colouring on a whole-sphere map
+// (Hammer equal-area, theta/phi or azimuth/elevation); hovering probes, a click pins. Drawn after
+// the 3D view's mouse handling, so its hover is the one that stands.
+Intents draw_map_panel(const AppState& s, const Derived& d);
 Intents draw_help_overlay(const AppState& s);
 // The first-run orientation: what each panel shows, dismissable (remembered in the settings).
 Intents draw_intro_overlay(const AppState& s);

@@ -253,3 +253,14 @@ TEST_CASE("the band panel: opened, closed, and only known figures chosen", "[vie
     run(s, intent::ShowBand{false});
     CHECK_FALSE(s.band_open);
 }
+
+TEST_CASE("the map panel: opened, closed, and only the three projections", "[viewer][apply]") {
+    AppState s;
+    run(s, intent::ShowMap{true}, intent::SetMapProjection{2});
+    CHECK(s.map_open);
+    CHECK(s.map_projection == 2);
+    run(s, intent::SetMapProjection{3}, intent::SetMapProjection{-1});
+    CHECK(s.map_projection == 2);
+    run(s, intent::ShowMap{false});
+    CHECK_FALSE(s.map_open);
+}

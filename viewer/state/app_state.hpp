@@ -67,6 +67,8 @@ struct AppState {
     bool diversity_open = false;
     bool band_open = false;  // figures against frequency
     int band_quantity = 0;   // index into band_quantities (viewer/state/derived.hpp)
+    bool map_open = false;   // the 2D map of the surface's colouring
+    int map_projection = 0;  // MapProjection: 0 Hammer (equal-area), 1 theta/phi, 2 azimuth/elevation
     DiversityChoice diversity;
     int cut_export_format = 0;  // index into cut_export_formats
     std::optional<ExportOutcome> view_export, cut_export;

@@ -194,6 +194,10 @@ struct Apply {
     void operator()(intent::ShowDiversity& i) { s.diversity_open = i.on; }
     void operator()(intent::ChangeDiversity& i) { s.diversity = std::move(i.choice); }
     void operator()(intent::ShowBand& i) { s.band_open = i.on; }
+    void operator()(intent::ShowMap& i) { s.map_open = i.on; }
+    void operator()(intent::SetMapProjection& i) {
+        if (i.index >= 0 && i.index <= 2) s.map_projection = i.index;
+    }
     void operator()(intent::SetBandQuantity& i) {
         if (i.index >= 0 && i.index < band_quantity_count) s.band_quantity = i.index;
     }
