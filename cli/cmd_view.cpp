@@ -5,6 +5,9 @@
 #include "cli/commands.hpp"
 #include "viewer/app.hpp"
 #include "viewer/scene/components.hpp"
+#include "viewer/state/app_state.hpp"
+#include <iterator>
+#include <optional>
 #include <cmath>
 #include <cstdio>
 #include <filesystem>
@@ -22,6 +25,8 @@ struct ViewArgs {
     bool diversity = false;
     bool band = false, map = false;
     bool force = false;
+    std::optional<double> frequency_hz;
+    std::string tab;
 };
 
 // "A,B" with two finite numbers (sscanf alone takes "nan" and "inf").
@@ -63,6 +68,9 @@ Registered add_view(CLI::App& root) {
     sub->add_flag("--diversity", a->diversity, "Start with the diversity panel open (MEG, ECC, orientation curve)");
     sub->add_flag("--band", a->band, "Start with the figures-against-frequency panel open");
     sub->add_flag("--map", a->map, "Start with the 2D map (equal-area) open");
+    sub->add_option("--frequency", a->frequency_hz, "Start at this frequency, Hz (the first file's nearest within 0.5 %)");
+    sub->add_option("--tab", a->tab, "Start with this panel in front: patterns, surface (left column of a narrow window), cut, probe, polarisation (plot strip of a narrow window), diversity, band, map")
+        ->check(CLI::IsMember(std::vector<std::string>(std::begin(viewer::tab_names), std::end(viewer::tab_names))));
     sub->add_flag("--force", a->force, "Replace the files of --screenshot, --export-view and --export-cut if they exist");
     return {sub, [a]() -> int {
                 viewer::ViewerOptions o;
@@ -122,6 +130,12 @@ Registered add_view(CLI::App& root) {
                 o.diversity_panel = a->diversity;
                 o.band_panel = a->band;
                 o.map_panel = a->map;
+                if (a->frequency_hz && !(std::isfinite(*a->frequency_hz) && *a->frequency_hz > 0)) {
+                    std::cerr << "ellipsa view: --frequency expects a positive frequency in Hz, found " << *a->frequency_hz << "\n";
+                    return exit_usage;
+                }
+                o.frequency_hz = a->frequency_hz;
+                o.tab = a->tab;
                 if (!a->pin.empty()) {
                     if (!parse_pair(a->pin, o.pin_theta_deg, o.pin_phi_deg) || o.pin_theta_deg < 0 || o.pin_theta_deg > 180) {
                         std::cerr << "ellipsa view: --pin expects THETA,PHI in degrees (finite) with THETA in [0, 180], found '" << a->pin << "'\n";

@@ -107,8 +107,16 @@ Intents start_options(const ViewerOptions& o, const AppState& s) {
     if (o.diversity_panel) in.push_back(intent::ShowDiversity{true});
     if (o.band_panel) in.push_back(intent::ShowBand{true});
     if (o.map_panel) in.push_back(intent::ShowMap{true});
+    if (auto t = parse_tab(o.tab)) in.push_back(intent::SelectTab{*t});
     if (o.save_settings && !s.settings.seen_intro) in.push_back(intent::ShowIntro{true});  // first interactive run
     return in;
+}
+
+// --frequency: the first file's frequency within 0.5 % of the one asked for.
+Result<std::size_t> start_frequency(double hz, const AppState& s) {
+    const LoadedPattern* a = s.active_pattern();
+    if (!a) return Error{"", 0, 0, "no pattern is open to choose a frequency of"};
+    return find_frequency(a->set, hz, a->path.empty() ? a->set.name : a->path);
 }
 
 // --- Effects and derived data ---
@@ -242,6 +250,14 @@ int run_viewer(const ViewerOptions& opt) {
     FileLoader loader;
     load_start_files(opt, s, loader, stop);
     apply(s, start_options(opt, s));
+    if (opt.frequency_hz) {
+        const Result<std::size_t> f = start_frequency(*opt.frequency_hz, s);
+        if (!f) {
+            std::cerr << "ellipsa view: --frequency: " << f.error().format() << "\n";
+            return 1;
+        }
+        apply(s, Intents{intent::SetFrequency{*f}});
+    }
     Derived d;
     upload(w.scene(), d, refresh(d, s));
 

@@ -1,5 +1,6 @@
 // The interactive viewer: one GLFW window with the 3D view, the cut plot and the side panels.
 #pragma once
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -30,6 +31,8 @@ struct ViewerOptions {
     bool band_panel = false;          // start with the figures-against-frequency panel open
     bool map_panel = false;           // start with the 2D map open
     bool force = false;               // the files above may replace existing ones
+    std::optional<double> frequency_hz;  // start at this frequency of the first file (within 0.5 %)
+    std::string tab;                  // start with this tab in front (tab_names), "" as before
 };
 
 // Runs until the window closes (or `frames` frames). Returns a process exit code (0 ok,

@@ -6,6 +6,7 @@
 #define GLFW_INCLUDE_NONE
 #include <GLFW/glfw3.h>
 
+#include "exports/figure_text.hpp"
 #include "viewer/exports_ui.hpp"
 #include "viewer/overlay.hpp"
 #include "viewer/panels.hpp"
@@ -15,18 +16,32 @@ namespace ellipsa::viewer {
 
 Layout compute_layout(const ViewerSettings& s, ImVec2 display, float menu_h) {
     Layout L;
-    // Side panels take at most 28 % of the width each, so a small window keeps room for the view and the cut.
-    const float lw = std::min(s.left_panel_width, display.x * 0.28f);
-    const float rw = std::min(s.right_panel_width, display.x * 0.28f);
-    const float ch = std::min(s.cut_panel_height, (display.y - menu_h) * 0.5f);
+    const float H = std::max(0.0f, display.y - menu_h);
+    L.narrow = display.x < narrow_width || display.y < narrow_height;
+    // Side panels take at most 28 % of the width each (a narrow window's left column a little more,
+    // as it is the only one), so the view and the plot strip keep their room.
+    const float lw = L.narrow ? std::min(s.left_panel_width, std::max(240.0f, display.x * 0.34f))
+                              : std::min(s.left_panel_width, display.x * 0.28f);
+    const float rw = L.narrow ? 0.0f : std::min(s.right_panel_width, display.x * 0.28f);
+    const float ch = std::min(s.cut_panel_height, H * 0.5f);
     L.left_pos = ImVec2(0, menu_h);
-    L.left_size = ImVec2(lw, display.y - menu_h);
-    L.right_pos = ImVec2(display.x - rw, menu_h);
-    L.right_size = ImVec2(rw, display.y - menu_h);
-    L.cut_pos = ImVec2(lw, display.y - ch);
-    L.cut_size = ImVec2(display.x - lw - rw, ch);
-    L.view_pos = ImVec2(lw, menu_h);
-    L.view_size = ImVec2(display.x - lw - rw, display.y - menu_h - ch);
+    L.left_size = ImVec2(lw, H);
+    if (!L.narrow) {
+        const float ph = std::clamp(s.polarisation_panel_height, std::min(200.0f, H * 0.5f), std::max(H * 0.5f, H - 160));
+        L.polar_pos = ImVec2(display.x - rw, menu_h);
+        L.polar_size = ImVec2(rw, ph);
+        L.probe_pos = ImVec2(display.x - rw, menu_h + ph);
+        L.probe_size = ImVec2(rw, H - ph);
+    }
+    L.strip_pos = ImVec2(lw, display.y - ch);
+    L.strip_size = ImVec2(display.x - lw - rw, ch);
+    L.area_pos = ImVec2(lw, menu_h);
+    L.area_size = ImVec2(display.x - lw - rw, H - ch);
+    const float header = 2.6f * menu_h, key = std::min(5.2f * menu_h, L.area_size.x * 0.3f);
+    L.view_pos = ImVec2(L.area_pos.x, L.area_pos.y + header);
+    L.view_size = ImVec2(std::max(0.0f, L.area_size.x - key), std::max(0.0f, L.area_size.y - header));
+    L.key_pos = ImVec2(L.view_pos.x + L.view_size.x, L.view_pos.y);
+    L.key_size = ImVec2(L.area_size.x - L.view_size.x, L.view_size.y);
     return L;
 }
 
@@ -86,32 +101,119 @@ Intents draw_menu(const AppState& s, const RendererInfo& renderer, float& menu_h
 }
 
 namespace {
-bool begin_panel(const char* name, ImVec2 pos, ImVec2 size) {
+bool begin_panel(const char* name, ImVec2 pos, ImVec2 size, ImGuiWindowFlags extra = 0) {
     ImGui::SetNextWindowPos(pos, ImGuiCond_Always);
     ImGui::SetNextWindowSize(size, ImGuiCond_Always);
     ImGui::SetNextWindowBgAlpha(0.0f);  // the framebuffer is cleared to the panel colour
     return ImGui::Begin(name, nullptr, ImGuiWindowFlags_NoMove | ImGuiWindowFlags_NoResize | ImGuiWindowFlags_NoCollapse |
-                                           ImGuiWindowFlags_NoBringToFrontOnFocus);
+                                           ImGuiWindowFlags_NoBringToFrontOnFocus | extra);
 }
 
 // One tiled panel: placed, drawn when visible, its intents appended.
 template <class Draw>
 void tiled(Intents& in, const char* name, ImVec2 pos, ImVec2 size, Draw&& draw) {
-    if (begin_panel(name, pos, size)) append(in, draw());
+    if (size.x > 0 && size.y > 0 && begin_panel(name, pos, size)) append(in, draw());
+    if (size.x > 0 && size.y > 0) ImGui::End();
+}
+
+// One tab of a tabbed panel: what it shows and whether it can be closed (a docked tool).
+struct TabEntry {
+    Tab tab;
+    const char* label;
+    bool closable;
+    Intents (*draw)(const AppState&, const Derived&);
+};
+
+// The intent that closes a docked tool.
+Intent close_tool(Tab t) {
+    if (t == Tab::diversity) return intent::ShowDiversity{false};
+    if (t == Tab::map) return intent::ShowMap{false};
+    return intent::ShowBand{false};
+}
+
+// A row of tab buttons (the shown one highlighted; tools with a close button), then the shown
+// tab's panel below them. Selection is state: a click returns SelectTab.
+void tab_row(const std::vector<TabEntry>& tabs, Tab shown, Intents& in) {
+    const ImGuiStyle& st = ImGui::GetStyle();
+    for (std::size_t k = 0; k < tabs.size(); ++k) {
+        const TabEntry& t = tabs[k];
+        if (k) ImGui::SameLine(0, 2);
+        const bool on = t.tab == shown;
+        ImGui::PushStyleColor(ImGuiCol_Button, st.Colors[on ? ImGuiCol_TabActive : ImGuiCol_Tab]);
+        ImGui::PushStyleColor(ImGuiCol_Text, st.Colors[on ? ImGuiCol_Text : ImGuiCol_TextDisabled]);
+        if (ImGui::Button(t.label) && !on) in.push_back(intent::SelectTab{t.tab});
+        ImGui::PopStyleColor(2);
+        if (!t.closable) continue;
+        ImGui::SameLine(0, 0);
+        ImGui::PushID(t.label);
+        if (ImGui::SmallButton("x")) in.push_back(close_tool(t.tab));
+        if (ImGui::IsItemHovered()) ImGui::SetTooltip("Close %s", t.label);
+        ImGui::PopID();
+    }
+}
+
+void tabbed(Intents& in, const char* id, ImVec2 pos, ImVec2 size, const std::vector<TabEntry>& tabs, Tab shown,
+            const AppState& s, const Derived& d) {
+    if (size.x <= 0 || size.y <= 0) return;
+    if (begin_panel(id, pos, size, ImGuiWindowFlags_NoTitleBar | ImGuiWindowFlags_NoScrollbar)) {
+        tab_row(tabs, shown, in);
+        ImGui::Separator();
+        const TabEntry* t = &tabs.front();
+        for (const TabEntry& e : tabs)
+            if (e.tab == shown) t = &e;
+        ImGui::BeginChild(t->label, ImVec2(0, 0), false);
+        append(in, t->draw(s, d));
+        ImGui::EndChild();
+    }
     ImGui::End();
+}
+
+// A handle along the bottom edge of the current panel: dragging it changes the panel's height
+// (the polarisation panel over the probe).
+void height_handle(const AppState& s, float height, Intents& in) {
+    const ImVec2 wp = ImGui::GetWindowPos(), ws = ImGui::GetWindowSize();
+    ImGui::SetCursorScreenPos(ImVec2(wp.x, wp.y + ws.y - 7));
+    ImGui::InvisibleButton("##height", ImVec2(ws.x, 7));
+    const bool hot = ImGui::IsItemHovered() || ImGui::IsItemActive();
+    if (hot) ImGui::SetMouseCursor(ImGuiMouseCursor_ResizeNS);
+    ImGui::GetWindowDrawList()->AddLine(ImVec2(wp.x + ws.x * 0.4f, wp.y + ws.y - 3), ImVec2(wp.x + ws.x * 0.6f, wp.y + ws.y - 3),
+                                        hot ? IM_COL32(90, 95, 105, 255) : IM_COL32(180, 182, 180, 255), 2.0f);
+    const float dy = ImGui::GetIO().MouseDelta.y;
+    if (ImGui::IsItemActive() && dy != 0) {
+        ViewerSettings st = s.settings;
+        st.polarisation_panel_height = height + dy;
+        in.push_back(intent::ChangeSettings{st});
+    }
 }
 }  // namespace
 
 Intents draw_panels(const AppState& s, const Derived& d, const Layout& L) {
     Intents in;
-    const ImVec2 lp = L.left_pos, ls = L.left_size, rp = L.right_pos, rs = L.right_size;
-    tiled(in, "Patterns", lp, ImVec2(ls.x, ls.y * 0.52f), [&] { return draw_patterns_panel(s, d); });
-    tiled(in, "Surface", ImVec2(lp.x, lp.y + ls.y * 0.52f), ImVec2(ls.x, ls.y * 0.48f), [&] { return draw_surface_panel(s, d); });
-    tiled(in, "Probe", rp, ImVec2(rs.x, rs.y * 0.56f), [&] { return draw_probe_panel(s, d); });
-    tiled(in, "Polarisation", ImVec2(rp.x, rp.y + rs.y * 0.56f), ImVec2(rs.x, rs.y * 0.44f), [&] { return draw_polarisation_panel(s, d); });
-    tiled(in, "Cut", L.cut_pos, L.cut_size, [&] { return draw_cut_panel(s, d); });
-    append(in, draw_diversity_panel(s, d));
-    append(in, draw_band_panel(s, d));
+    const ImVec2 lp = L.left_pos, ls = L.left_size;
+    std::vector<TabEntry> strip = {{Tab::cut, "Cut", false, draw_cut_panel}};
+    if (L.narrow) {
+        tabbed(in, "##left", lp, ls, {{Tab::patterns, "Patterns", false, draw_patterns_panel}, {Tab::surface, "Surface", false, draw_surface_panel}},
+               s.left_tab, s, d);
+        strip.push_back({Tab::probe, "Probe", false, draw_probe_panel});
+        strip.push_back({Tab::polarisation, "Polarisation", false, draw_polarisation_panel});
+    } else {
+        tiled(in, "Patterns", lp, ImVec2(ls.x, ls.y * 0.52f), [&] { return draw_patterns_panel(s, d); });
+        tiled(in, "Surface", ImVec2(lp.x, lp.y + ls.y * 0.52f), ImVec2(ls.x, ls.y * 0.48f), [&] { return draw_surface_panel(s, d); });
+        tiled(in, "Polarisation", L.polar_pos, L.polar_size, [&] {
+            Intents p = draw_polarisation_panel(s, d);
+            height_handle(s, L.polar_size.y, p);
+            return p;
+        });
+        tiled(in, "Probe", L.probe_pos, L.probe_size, [&] { return draw_probe_panel(s, d); });
+    }
+    if (s.diversity_open) strip.push_back({Tab::diversity, "Diversity", true, draw_diversity_panel});
+    if (s.band_open) strip.push_back({Tab::band, "Band", true, draw_band_panel});
+    if (s.map_open) strip.push_back({Tab::map, "Map", true, draw_map_panel});
+    // A tab that this layout does not have (the probe in a wide window) shows the cut.
+    Tab shown = Tab::cut;
+    for (const TabEntry& t : strip)
+        if (t.tab == s.strip_tab) shown = t.tab;
+    tabbed(in, "##strip", L.strip_pos, L.strip_size, strip, shown, s, d);
     append(in, draw_help_overlay(s));
     append(in, draw_intro_overlay(s));
     return in;
@@ -188,41 +290,68 @@ Intents draw_ui(const AppState& s, const Derived& d, const RendererInfo& rendere
     layout = compute_layout(s.settings, ImGui::GetIO().DisplaySize, menu_h);
     append(in, draw_panels(s, d, layout));
     append(in, read_keys(s));
-    append(in, read_mouse(s, d, layout));
-    append(in, draw_map_panel(s, d));
+    // A panel that probes (the map) gave its own Hover: it stands over the 3D view's.
+    const bool panel_hover = std::any_of(in.begin(), in.end(), [](const Intent& i) { return std::holds_alternative<intent::Hover>(i); });
+    for (Intent& i : read_mouse(s, d, layout))
+        if (!panel_hover || !std::holds_alternative<intent::Hover>(i)) in.push_back(std::move(i));
     return in;
 }
 
-void draw_view_overlay(const AppState& s, const Derived& d, const Layout& L, const UiFonts& fonts, const RendererInfo& r) {
+// The caption under the title: what sets the radius, its peak (rounded as every figure is), the range.
+std::string view_caption(const AppState& s, const Derived& d) {
+    const SurfaceView& sv = d.surface.value();
+    const std::string comp = short_label(s.settings.component);
+    const std::string range = "range " + exports::fixed(s.settings.range_db, 0) + " dB";
+    if (const std::optional<double>& p = d.peak_db.value())
+        return "radius: " + comp + ", peak " + exports::with_unit(*p, exports::db_decimals, sv.mesh.unit) + ", " + range;
+    return "radius: " + comp + ", no power (every sample of it is zero)";
+}
+
+void draw_view_overlay(const AppState& s, const Derived& d, const Layout& L, const UiFonts& fonts, const RendererInfo&) {
     const LoadedPattern* a = s.active_pattern();
     ImDrawList* bg = ImGui::GetBackgroundDrawList();
+    const ImVec2 o = L.area_pos;
+    const ImU32 ink = IM_COL32(34, 38, 46, 255), muted = IM_COL32(95, 100, 108, 255);
     if (!a) {
-        bg->AddText(fonts.body, fonts.body->FontSize, ImVec2(L.view_pos.x + 12, L.view_pos.y + 12), IM_COL32(95, 100, 108, 255),
-                    "No pattern open: type a path in the Patterns panel, pick a recent file, or drop a CSV here.");
+        bg->AddText(fonts.body, fonts.body->FontSize, ImVec2(o.x + 12, o.y + 12), muted,
+                    "No pattern open: type a path in the Patterns panel, pick a recent file, or drop a CSV here.", nullptr,
+                    L.area_size.x - 24);
         return;
     }
-    const ImU32 ink = IM_COL32(34, 38, 46, 255), muted = IM_COL32(95, 100, 108, 255);
+    // The header and the key strip on the scene's background colour (the scene, drawn before the
+    // UI, clears its own rectangle to it), so the view reads as one.
+    const ImU32 view_bg = IM_COL32(251, 251, 250, 255);
+    bg->AddRectFilled(o, ImVec2(o.x + L.area_size.x, L.view_pos.y), view_bg);
+    bg->AddRectFilled(L.key_pos, ImVec2(L.key_pos.x + L.key_size.x, L.key_pos.y + L.key_size.y), view_bg);
     const SurfaceView& sv = d.surface.value();
-    const ImVec2 o = L.view_pos, size = L.view_size;
     std::string title = a->set.name;
     if (const LoadedPattern* b = s.compare_pattern(); b && s.settings.color_by == ColorBy::difference) title += "  minus  " + b->set.name;
-    bg->AddText(fonts.title, fonts.title->FontSize, ImVec2(o.x + 12, o.y + 8), ink, title.c_str());
-    char line[200];
-    std::snprintf(line, sizeof line, "radius: %s, peak %.2f %s, range %g dB", short_label(s.settings.component), sv.mesh.peak_db,
-                  sv.mesh.unit.c_str(), s.settings.range_db);
-    bg->AddText(fonts.small, fonts.small->FontSize, ImVec2(o.x + 12, o.y + 32), muted, line);
-    if (!sv.error.empty()) bg->AddText(fonts.body, fonts.body->FontSize, ImVec2(o.x + 12, o.y + 52), IM_COL32(150, 40, 20, 255), sv.error.c_str());
-    const float bh = std::min(size.y * 0.55f, 320.0f);
-    draw_color_bar(bg, ImVec2(o.x + size.x - 64, o.y + (size.y - bh) * 0.5f + 10), ImVec2(16, bh), sv.mesh.bar, fonts.small, fonts.small);
-    draw_axis_labels(bg, s.camera, o, size, 1.3, fonts.small);
-    const std::string rl = "OpenGL: " + r.renderer + (r.software ? ", Mesa software" : ", hardware");
-    bg->AddText(fonts.small, fonts.small->FontSize, ImVec2(o.x + 12, o.y + size.y - fonts.small->FontSize - 6), muted, rl.c_str());
+    const float wrap = L.area_size.x - 24;
+    bg->PushClipRect(o, ImVec2(o.x + L.area_size.x, o.y + L.area_size.y));
+    bg->AddText(fonts.title, fonts.title->FontSize, ImVec2(o.x + 12, o.y + 6), ink, title.c_str());
+    bg->AddText(fonts.small, fonts.small->FontSize, ImVec2(o.x + 12, o.y + 8 + fonts.title->FontSize), muted, view_caption(s, d).c_str(),
+                nullptr, wrap);
+    if (!sv.error.empty())
+        bg->AddText(fonts.body, fonts.body->FontSize, ImVec2(L.view_pos.x + 12, L.view_pos.y + 4), IM_COL32(150, 40, 20, 255),
+                    sv.error.c_str(), nullptr, L.view_size.x - 24);
+    // The key strip: the colour bar on top, the ellipse key under it.
+    const float kx = L.key_pos.x + 10, kw = L.key_size.x - 14;
+    const float key_h = s.settings.glyphs && a->set.has_phase() ? 4 * fonts.small->FontSize * 1.35f + 10 : 0;
+    const float title_h = color_bar_title_height(sv.mesh.bar, fonts.small, kw);
+    const float bar_h = std::max(40.0f, std::min(320.0f, L.key_size.y - title_h - key_h - 16));
+    if (!sv.mesh.vertices.empty())
+        draw_color_bar(bg, ImVec2(kx, L.key_pos.y + title_h + 4), ImVec2(14, bar_h), sv.mesh.bar, fonts.small, fonts.small, kw);
+    if (key_h > 0) draw_ellipse_key(bg, ImVec2(kx, L.key_pos.y + L.key_size.y - key_h), fonts.small, ink);
+    bg->PopClipRect();
+    bg->PushClipRect(L.view_pos, ImVec2(L.view_pos.x + L.view_size.x, L.view_pos.y + L.view_size.y));
+    draw_axis_labels(bg, s.camera, L.view_pos, L.view_size, 1.3, fonts.small);
     auto mark = [&](const Direction& at, ImU32 col) {
-        const Projected q = project(s.camera, surface_point(s, d, at), size.x, size.y);
-        if (q.visible) bg->AddCircle(ImVec2(o.x + float(q.x), o.y + float(q.y)), 6, col, 16, 2.0f);
+        const Projected q = project(s.camera, surface_point(s, d, at), L.view_size.x, L.view_size.y);
+        if (q.visible) bg->AddCircle(ImVec2(L.view_pos.x + float(q.x), L.view_pos.y + float(q.y)), 6, col, 16, 2.0f);
     };
     if (s.hover) mark(*s.hover, IM_COL32(255, 255, 255, 230));
     if (s.pinned) mark(*s.pinned, IM_COL32(20, 20, 20, 255));
+    bg->PopClipRect();
 }
 
 }  // namespace ellipsa::viewer

@@ -3,6 +3,8 @@
 #include <cmath>
 #include <cstdio>
 
+#include "viewer/scene/glyphs.hpp"
+
 namespace ellipsa::viewer {
 
 namespace {
@@ -15,16 +17,20 @@ double nice_step(double span, int target) {
 }
 }  // namespace
 
-void draw_color_bar(ImDrawList* dl, ImVec2 pos, ImVec2 size, const ColorBar& bar, ImFont* font, ImFont* title_font) {
-    const ImU32 ink = IM_COL32(34, 38, 46, 255);
-    // Title on two lines, right-aligned to the tick labels: "Total gain" / "dBi".
+float color_bar_title_height(const ColorBar& bar, ImFont* title_font, float title_width) {
     ImFont* tf = title_font ? title_font : ImGui::GetFont();
-    const float tsize = tf->FontSize;
-    const float right = pos.x + size.x + 8 + tf->CalcTextSizeA(tsize, 1e9f, 0, "-25.5").x;
-    const std::string unit = "(" + bar.unit + ")";
-    const float w1 = tf->CalcTextSizeA(tsize, 1e9f, 0, bar.title.c_str()).x, w2 = tf->CalcTextSizeA(tsize, 1e9f, 0, unit.c_str()).x;
-    dl->AddText(tf, tsize, ImVec2(right - w1, pos.y - tsize * 2.9f), ink, bar.title.c_str());
-    dl->AddText(tf, tsize, ImVec2(right - w2, pos.y - tsize * 1.6f), ink, unit.c_str());
+    const std::string title = bar.title + " (" + bar.unit + ")";
+    return tf->CalcTextSizeA(tf->FontSize, 1e9f, title_width, title.c_str()).y + tf->FontSize * 0.5f;
+}
+
+void draw_color_bar(ImDrawList* dl, ImVec2 pos, ImVec2 size, const ColorBar& bar, ImFont* font, ImFont* title_font,
+                    float title_width) {
+    const ImU32 ink = IM_COL32(34, 38, 46, 255);
+    // Title and unit above the strip, wrapped to the width given: "Gain: Total (dBi)".
+    ImFont* tf = title_font ? title_font : ImGui::GetFont();
+    const std::string title = bar.title + " (" + bar.unit + ")";
+    const float th = color_bar_title_height(bar, tf, title_width);
+    dl->AddText(tf, tf->FontSize, ImVec2(pos.x, pos.y - th), ink, title.c_str(), nullptr, title_width);
     // Gradient in 64 bands, top = max.
     const int bands = 64;
     for (int b = 0; b < bands; ++b) {
@@ -46,6 +52,34 @@ void draw_color_bar(ImDrawList* dl, ImVec2 pos, ImVec2 size, const ColorBar& bar
         std::snprintf(buf, sizeof buf, "%g", std::abs(v) < 1e-9 * span ? 0.0 : v);
         dl->AddText(f, f->FontSize, ImVec2(pos.x + size.x + 8, y - f->FontSize * 0.5f), ink, buf);
     }
+}
+
+float draw_ellipse_key(ImDrawList* dl, ImVec2 pos, ImFont* font, ImU32 text_colour) {
+    ImFont* f = font ? font : ImGui::GetFont();
+    const float line = f->FontSize * 1.35f, rx = f->FontSize * 0.55f, ry = f->FontSize * 0.3f;
+    const GlyphOptions g;
+    const struct {
+        Rgb colour;
+        const char* name;
+        bool flat;
+    } entries[] = {{g.right, "right-hand", false}, {g.left, "left-hand", false}, {g.linear, "linear", true}};
+    dl->AddText(f, f->FontSize, pos, text_colour, "Ellipses");
+    float y = pos.y + line;
+    for (const auto& e : entries) {
+        const ImVec2 c(pos.x + rx + 1, y + f->FontSize * 0.5f);
+        if (e.flat) dl->AddLine(ImVec2(c.x - rx, c.y + ry), ImVec2(c.x + rx, c.y - ry), to_u32(e.colour), 2.0f);
+        else {
+            ImVec2 pts[24];  // a tilted ellipse (ImGui 1.86 has no ellipse primitive)
+            for (int k = 0; k < 24; ++k) {
+                const float t = 6.2831853f * float(k) / 24, x = rx * std::cos(t), yy = ry * std::sin(t);
+                pts[k] = ImVec2(c.x + 0.94f * x + 0.34f * yy, c.y - 0.34f * x + 0.94f * yy);
+            }
+            dl->AddPolyline(pts, 24, to_u32(e.colour), ImDrawFlags_Closed, 2.0f);
+        }
+        dl->AddText(f, f->FontSize, ImVec2(pos.x + 2 * rx + 7, y), text_colour, e.name);
+        y += line;
+    }
+    return y - pos.y;
 }
 
 void draw_axis_labels(ImDrawList* dl, const OrbitCamera& cam, ImVec2 origin, ImVec2 size, double length, ImFont* font) {

@@ -12,8 +12,15 @@
 namespace ellipsa::viewer {
 
 // A vertical colour bar in the rectangle [pos, pos + size] (the gradient strip; labels go to its
-// right): title above, unit in the title, 5 to 7 tick labels.
-void draw_color_bar(ImDrawList* dl, ImVec2 pos, ImVec2 size, const ColorBar& bar, ImFont* font, ImFont* title_font);
+// right): the title and unit above it, left-aligned with the strip and wrapped at title_width
+// pixels; 5 to 7 tick labels. Returns the height the title takes above pos.y.
+float color_bar_title_height(const ColorBar& bar, ImFont* title_font, float title_width);
+void draw_color_bar(ImDrawList* dl, ImVec2 pos, ImVec2 size, const ColorBar& bar, ImFont* font, ImFont* title_font,
+                    float title_width);
+
+// The key to the polarisation ellipses on the surface: a small ellipse in each colour with its
+// name (right-hand, left-hand, linear), top-left at pos, one entry a line. Returns its height.
+float draw_ellipse_key(ImDrawList* dl, ImVec2 pos, ImFont* font, ImU32 text_colour);
 
 // Labels "x", "y", "z" (with theta/phi hints) at the tips of the axes of the given length,
 // projected with the camera into the view rectangle [origin, origin + size].

@@ -31,7 +31,7 @@ std::optional<std::size_t> draw_plot(const AppState& s, const BandView& v, int q
         if (std::isfinite(y.back())) lo = std::min(lo, y.back()), hi = std::max(hi, y.back());
     }
     const ImVec2 avail = ImGui::GetContentRegionAvail();
-    const ImVec2 size(std::max(200.0f, avail.x), std::clamp(avail.y - 70, 120.0f, 360.0f));
+    const ImVec2 size(std::max(200.0f, avail.x), std::clamp(avail.y - 4, 100.0f, 360.0f));
     const ImVec2 at = ImGui::GetCursorScreenPos();
     ImGui::InvisibleButton("band plot", size);
     const bool clicked = ImGui::IsItemClicked();
@@ -85,34 +85,37 @@ void edges_line(const char* label, const std::optional<BandEdges>& e, const std:
 
 Intents draw_band_panel(const AppState& s, const Derived& d) {
     Intents in;
-    if (!s.band_open) return in;
-    const ImVec2 display = ImGui::GetIO().DisplaySize;
-    ImGui::SetNextWindowSize(ImVec2(520, 420), ImGuiCond_FirstUseEver);
-    ImGui::SetNextWindowPos(ImVec2(std::max(0.0f, display.x - 540), std::max(30.0f, display.y - 450)), ImGuiCond_FirstUseEver);
-    bool open = true;
-    if (ImGui::Begin("Figures against frequency", &open)) {
-        const BandView& v = d.band.value();
-        if (!s.active_pattern() || v.figures.size() < 2) {
-            ImGui::TextWrapped("Needs a pattern with two or more frequencies.");
-        } else {
-            int q = s.band_quantity;
-            ImGui::SetNextItemWidth(260);
-            if (ImGui::BeginCombo("figure", band_quantities[q].label)) {
-                for (int k = 0; k < band_quantity_count; ++k)
-                    if (ImGui::Selectable(band_quantities[k].label, k == q)) in.push_back(intent::SetBandQuantity{k});
-                ImGui::EndCombo();
-            }
-            ImGui::SameLine();
-            ImGui::TextDisabled("(%s)", band_quantities[q].unit);
-            if (auto f = draw_plot(s, v, q)) in.push_back(intent::SetFrequency{*f});
-            ImGui::TextWrapped("Points: the sampled frequencies (lines only join them); click to show one. Band edges: "
-                               "interpolated linearly between samples.");
-            edges_line("Peak within 1 dB", v.summary.gain_1db, "unavailable");
-            edges_line("AR <= 3 dB", v.summary.ar, "none (" + v.summary.ar_unavailable_reason + ")");
-        }
+    const BandView& v = d.band.value();
+    if (!s.active_pattern() || v.figures.size() < 2) {
+        ImGui::TextWrapped("Needs a pattern with two or more frequencies.");
+        return in;
     }
-    ImGui::End();
-    if (!open) in.push_back(intent::ShowBand{false});
+    int q = s.band_quantity;
+    ImGui::SetNextItemWidth(std::min(260.0f, ImGui::GetContentRegionAvail().x * 0.6f));
+    if (ImGui::BeginCombo("##figure", band_quantities[q].label)) {
+        for (int k = 0; k < band_quantity_count; ++k)
+            if (ImGui::Selectable(band_quantities[k].label, k == q)) in.push_back(intent::SetBandQuantity{k});
+        ImGui::EndCombo();
+    }
+    ImGui::SameLine();
+    ImGui::PushTextWrapPos(0);
+    ImGui::TextDisabled("(%s)", band_quantities[q].unit);
+    ImGui::PopTextWrapPos();
+    // The plot, and the notes beside it in a wide strip or under it in a narrow one.
+    const ImVec2 avail = ImGui::GetContentRegionAvail();
+    const bool beside = avail.x >= 560;
+    ImGui::BeginChild("bandplot", ImVec2(beside ? avail.x * 0.62f : 0, beside ? 0 : std::max(140.0f, avail.y - 80)), false);
+    if (auto f = draw_plot(s, v, q)) in.push_back(intent::SetFrequency{*f});
+    ImGui::EndChild();
+    if (beside) ImGui::SameLine();
+    ImGui::BeginChild("bandnotes", ImVec2(0, 0), false);
+    edges_line("Peak within 1 dB", v.summary.gain_1db, "unavailable");
+    edges_line("AR <= 3 dB", v.summary.ar, "none (" + v.summary.ar_unavailable_reason + ")");
+    ImGui::PushTextWrapPos(0);
+    ImGui::TextDisabled("Points: the sampled frequencies (lines only join them); click to show one. Band edges: "
+                        "interpolated linearly between samples.");
+    ImGui::PopTextWrapPos();
+    ImGui::EndChild();
     return in;
 }
 

@@ -38,9 +38,13 @@ void section(const std::string& title) {
 }
 
 void row(const char* label, const std::string& value) {
+    // The value column starts at 170 px or 45 % of a narrow panel, and long values wrap in it.
+    const float x = std::min(170.0f, ImGui::GetContentRegionAvail().x * 0.45f);
     ImGui::TextDisabled("%s", label);
-    ImGui::SameLine(170);
+    ImGui::SameLine(x);
+    ImGui::PushTextWrapPos(0);
     ImGui::TextUnformatted(value.c_str());
+    ImGui::PopTextWrapPos();
 }
 
 struct Series {
@@ -53,11 +57,16 @@ struct Series {
 void line_plot(const char* id, const std::vector<double>& x, const std::vector<Series>& series, double x0, double x1,
                double xtick, double y0, double y1, const char* xlabel, const char* ylabel,
                const std::vector<double>* band_lo = nullptr, const std::vector<double>* band_hi = nullptr) {
-    const float w = std::max(160.0f, ImGui::GetContentRegionAvail().x), h = 130;
+    // The y label above the frame and the x label under the tick labels, both clear of the curves.
+    const float w = std::max(160.0f, ImGui::GetContentRegionAvail().x), line = ImGui::GetTextLineHeight(), h = 110 + line;
     const ImVec2 o = ImGui::GetCursorScreenPos();
-    ImGui::InvisibleButton(id, ImVec2(w, h + 34));
+    ImGui::InvisibleButton(id, ImVec2(w, h + 2 * line + 6));
     ImDrawList* dl = ImGui::GetWindowDrawList();
-    const ImVec2 p0(o.x + 44, o.y + 4), p1(o.x + w - 8, o.y + h);
+    char ylo[16], yhi[16];
+    std::snprintf(ylo, sizeof ylo, "%.3g", y0);
+    std::snprintf(yhi, sizeof yhi, "%.3g", y1);
+    const float margin = std::max(ImGui::CalcTextSize(ylo).x, ImGui::CalcTextSize(yhi).x) + 10;
+    const ImVec2 p0(o.x + margin, o.y + line + 4), p1(o.x + w - 8, o.y + h);
     auto X = [&](double v) { return p0.x + float((v - x0) / (x1 - x0)) * (p1.x - p0.x); };
     auto Y = [&](double v) {
         const double t = y1 > y0 ? (v - y0) / (y1 - y0) : 0.5;
@@ -78,8 +87,8 @@ void line_plot(const char* id, const std::vector<double>& x, const std::vector<S
         dl->AddText(ImVec2(p0.x - ts.x - 4, Y(v) - ts.y * 0.5f), muted, b);
     }
     const ImVec2 xs = ImGui::CalcTextSize(xlabel);
-    dl->AddText(ImVec2(0.5f * (p0.x + p1.x) - xs.x * 0.5f, p1.y + 16), muted, xlabel);
-    dl->AddText(ImVec2(p0.x + 4, p0.y + 2), muted, ylabel);
+    dl->AddText(ImVec2(0.5f * (p0.x + p1.x) - xs.x * 0.5f, p1.y + line + 4), muted, xlabel);
+    dl->AddText(ImVec2(o.x + 4, o.y), muted, ylabel);
     if (band_lo && band_hi && band_lo->size() == x.size() && band_hi->size() == x.size())
         for (std::size_t k = 0; k + 1 < x.size(); ++k)
             dl->AddQuadFilled(ImVec2(X(x[k]), Y((*band_lo)[k])), ImVec2(X(x[k + 1]), Y((*band_lo)[k + 1])),
@@ -104,6 +113,8 @@ void legend_swatch(ImU32 c, const char* label) {
 // The environment choice, edited on a copy (`c`); the profile plot of the figures.
 void draw_environment(DiversityChoice& c, const DiversityFigures& f) {
     const std::vector<std::string> names = diversity_choice_names();
+    const float label_w = ImGui::CalcTextSize("environment").x + ImGui::GetStyle().ItemInnerSpacing.x + 4;
+    ImGui::SetNextItemWidth(std::max(80.0f, ImGui::GetContentRegionAvail().x - label_w));
     if (ImGui::BeginCombo("environment", c.preset.c_str())) {
         for (const std::string& n : names)
             if (ImGui::Selectable(n.c_str(), n == c.preset)) {
@@ -120,6 +131,8 @@ void draw_environment(DiversityChoice& c, const DiversityFigures& f) {
         ImGui::EndCombo();
     }
     float xpr = float(c.xpr_db);
+    const float v_only_w = ImGui::CalcTextSize("XPR  V only").x + ImGui::GetFrameHeight() + 24;
+    ImGui::SetNextItemWidth(std::max(80.0f, ImGui::GetContentRegionAvail().x - v_only_w));
     ImGui::BeginDisabled(c.vertical_only);
     if (ImGui::SliderFloat("XPR", &xpr, -10, 20, "%.1f dB", ImGuiSliderFlags_AlwaysClamp)) c.xpr_db = std::round(double(xpr) * 10) / 10;
     ImGui::EndDisabled();
@@ -130,6 +143,7 @@ void draw_environment(DiversityChoice& c, const DiversityFigures& f) {
     if (gaussian) {
         auto angle = [](const char* label, double& v, float lo, float hi) {
             float f = float(v);
+            ImGui::SetNextItemWidth(std::max(80.0f, ImGui::GetContentRegionAvail().x - ImGui::CalcTextSize("V mean elevation").x - 12));
             if (ImGui::SliderFloat(label, &f, lo, hi, "%.1f deg", ImGuiSliderFlags_AlwaysClamp)) v = std::round(double(f) * 10) / 10;
         };
         angle("V mean elevation", c.v_mean_deg, -45, 60);
@@ -282,19 +296,19 @@ void draw_figures(const AppState& s, const DiversityView& v, DiversityChoice& c)
 
 Intents draw_diversity_panel(const AppState& s, const Derived& d) {
     Intents in;
-    if (!s.diversity_open) return in;
-    // First shown over the right-hand panels, so the 3D view stays in sight.
-    const ImVec2 display = ImGui::GetIO().DisplaySize;
-    ImGui::SetNextWindowSize(ImVec2(440, std::max(300.0f, display.y - 60)), ImGuiCond_FirstUseEver);
-    ImGui::SetNextWindowPos(ImVec2(std::max(0.0f, display.x - 450), 30), ImGuiCond_FirstUseEver);
-    bool open = true;
     DiversityChoice c = s.diversity;
-    if (ImGui::Begin("Diversity (multipath)", &open)) {
-        draw_environment(c, d.diversity.value().figures);
-        draw_figures(s, d.diversity.value(), c);
+    // Side by side when the strip is wide enough: the environment on the left, the figures on the right.
+    const ImVec2 avail = ImGui::GetContentRegionAvail();
+    const bool two = avail.x >= 620;
+    ImGui::BeginChild("environment", ImVec2(two ? avail.x * 0.46f : 0, two ? 0 : 0), false);
+    draw_environment(c, d.diversity.value().figures);
+    if (two) ImGui::EndChild();
+    if (two) {
+        ImGui::SameLine();
+        ImGui::BeginChild("figures", ImVec2(0, 0), false);
     }
-    ImGui::End();
-    if (!open) in.push_back(intent::ShowDiversity{false});
+    draw_figures(s, d.diversity.value(), c);
+    ImGui::EndChild();
     if (!(c == s.diversity)) in.push_back(intent::ChangeDiversity{c});
     return in;
 }

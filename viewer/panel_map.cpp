@@ -69,24 +69,22 @@ void mark(ImDrawList* dl, const MapArea& a, MapProjection pr, const std::optiona
 
 Intents draw_map_panel(const AppState& s, const Derived& d) {
     Intents in;
-    if (!s.map_open) return in;
-    ImGui::SetNextWindowSize(ImVec2(560, 360), ImGuiCond_FirstUseEver);
-    ImGui::SetNextWindowPos(ImVec2(300, 60), ImGuiCond_FirstUseEver);
-    bool open = true;
-    if (ImGui::Begin("2D map", &open)) {
+    {
         const LoadedPattern* p = s.active_pattern();
         const SurfaceMesh& m = d.surface.value().mesh;
         if (!p || m.vertices.empty() || m.cols < p->set.grid.phi.count) {
             ImGui::TextWrapped("No surface to map.");
         } else {
             int proj = s.map_projection;
-            ImGui::SetNextItemWidth(200);
-            if (ImGui::Combo("projection", &proj, projection_names, 3)) in.push_back(intent::SetMapProjection{proj});
+            ImGui::SetNextItemWidth(std::min(200.0f, ImGui::GetContentRegionAvail().x * 0.45f));
+            if (ImGui::Combo("##projection", &proj, projection_names, 3)) in.push_back(intent::SetMapProjection{proj});
             ImGui::SameLine();
+            ImGui::PushTextWrapPos(0);
             ImGui::TextDisabled("colour: %s (%s)", m.bar.title.c_str(), m.bar.unit.c_str());
+            ImGui::PopTextWrapPos();
             const MapProjection pr = projection_of(s.map_projection);
             const ImVec2 avail = ImGui::GetContentRegionAvail();
-            const float mw = std::max(160.0f, std::min(avail.x, 2 * (avail.y - 24)));
+            const float mw = std::max(160.0f, std::min(avail.x, 2 * (avail.y - 2 * ImGui::GetTextLineHeightWithSpacing())));
             const ImVec2 at = ImGui::GetCursorScreenPos();
             ImGui::InvisibleButton("map", ImVec2(mw, mw / 2));
             const MapArea a{at, ImVec2(at.x + mw, at.y + mw / 2), map_bounds(pr)};
@@ -103,11 +101,11 @@ Intents draw_map_panel(const AppState& s, const Derived& d) {
                 if (dir) in.push_back(intent::Hover{Direction{dir->first, dir->second}});
                 if (dir && ImGui::IsItemClicked()) in.push_back(intent::Pin{Direction{dir->first, dir->second}});
             }
+            ImGui::PushTextWrapPos(0);
             ImGui::TextDisabled("Each grid sample's cell in the surface's colour; grey: outside the data. Hover to probe, click to pin.");
+            ImGui::PopTextWrapPos();
         }
     }
-    ImGui::End();
-    if (!open) in.push_back(intent::ShowMap{false});
     return in;
 }
 

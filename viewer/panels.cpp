@@ -14,11 +14,11 @@
 namespace ellipsa::viewer {
 
 namespace {
+// A figure with the project's one rounding (exports/figure_text.hpp): dB to 2 decimals, angles to 1.
 std::string opt_text(const std::optional<double>& v, const char* unit, const char* none) {
     if (!v) return none;
-    char b[64];
-    std::snprintf(b, sizeof b, "%.2f %s", *v, unit);
-    return b;
+    const bool angle = std::string(unit) == "\u00b0";
+    return exports::with_unit(*v, angle ? exports::angle_decimals : exports::db_decimals, unit);
 }
 
 // A text field bound to a state string: returns the edited text when it changed.
@@ -115,10 +115,18 @@ std::string polarisation_at_peak(const PatternSummary& sm) {
 }
 
 void headline_figures(const LoadedPattern& a, const PatternSummary& sm) {
-    if (!ImGui::BeginTable("figures", 2, ImGuiTableFlags_SizingStretchProp)) return;
+    if (!begin_figure_table("figures")) return;
     const char* u = db_unit(a.set.quantity, Component::total);
     char b[96];
-    table_row("Peak", exports::peak_text(sm, u, "\u00b0"), "Largest total value and its direction");
+    // The peak and its direction on two rows, so a narrow panel never breaks a number.
+    if (sm.zero_field) {
+        table_row("Peak", exports::peak_text(sm, u, "\u00b0"), "Largest total value and its direction");
+    } else {
+        table_row("Peak", exports::with_unit(sm.peak_db, exports::db_decimals, u), "Largest total value (refined between samples)");
+        table_row("  toward", "\u03b8 " + exports::with_unit(sm.peak.theta_deg, exports::angle_decimals, "\u00b0") + ", \u03c6 " +
+                                  exports::with_unit(sm.peak.phi_deg, exports::angle_decimals, "\u00b0"),
+                  "Direction of the peak");
+    }
     table_row("Directivity", opt_text(sm.directivity_dbi, "dBi", "needs the full sphere"), "4 pi U_max / P over the whole sphere");
     if (sm.power.radiation_efficiency) {
         std::snprintf(b, sizeof b, "%.1f %%", 100 * *sm.power.radiation_efficiency);
@@ -300,7 +308,7 @@ void compare_rows(const AppState& s, const DirectionProbe& p) {
 void probe_table(const AppState& s, const char* title, const DirectionProbe& p) {
     const LoadedPattern* a = s.active_pattern();
     ImGui::TextUnformatted(title);
-    if (!ImGui::BeginTable(title, 2, ImGuiTableFlags_SizingStretchProp | ImGuiTableFlags_RowBg)) return;
+    if (!begin_figure_table(title, true)) return;
     char b[96];
     std::snprintf(b, sizeof b, "\u03b8 %.1f\u00b0   \u03c6 %.1f\u00b0", p.a.theta_deg, p.a.phi_deg);
     table_row("Direction", b);

@@ -4,7 +4,10 @@
 // Text is made here, from numbers.
 //
 // Adding a panel: `Intents draw_xxx_panel(const AppState&, const Derived&)` in its own file,
-// listed in viewer/CMakeLists.txt, and one call in draw_panels() (viewer/frame.cpp). Edits of
+// listed in viewer/CMakeLists.txt, and one entry in draw_panels() (viewer/frame.cpp): a docked
+// tool is a closable tab of the plot strip (an `xxx_open` flag, a Tab and a ShowXxx intent that
+// brings it to the front). A panel draws into the space it is given (GetContentRegionAvail) and
+// lays itself out for both a wide strip (about 700 px) and a narrow one (about 500 px). Edits of
 // the settings go out as ChangeSettings with an edited copy; new kinds of change as a new intent.
 #pragma once
 #include "viewer/state/app_state.hpp"
@@ -18,13 +21,13 @@ Intents draw_surface_panel(const AppState& s, const Derived& d);
 Intents draw_probe_panel(const AppState& s, const Derived& d);
 Intents draw_polarisation_panel(const AppState& s, const Derived& d);
 Intents draw_cut_panel(const AppState& s, const Derived& d);
-// A floating window, shown while s.diversity_open (its close button returns ShowDiversity{false}).
+// A docked tool, a tab of the plot strip while s.diversity_open (its close button returns ShowDiversity{false}).
 Intents draw_diversity_panel(const AppState& s, const Derived& d);
-// A floating window, shown while s.band_open: one figure of A against frequency; a click picks the frequency.
+// A docked tool while s.band_open: one figure of A against frequency; a click picks the frequency.
 Intents draw_band_panel(const AppState& s, const Derived& d);
-// A floating window, shown while s.map_open: the surface's colouring on a whole-sphere map
-// (Hammer equal-area, theta/phi or azimuth/elevation); hovering probes, a click pins. Drawn after
-// the 3D view's mouse handling, so its hover is the one that stands.
+// A docked tool while s.map_open: the surface's colouring on a whole-sphere map
+// (Hammer equal-area, theta/phi or azimuth/elevation); hovering probes, a click pins (its Hover
+// stands over the 3D view's: draw_ui() drops the view's when a panel gave one).
 Intents draw_map_panel(const AppState& s, const Derived& d);
 Intents draw_help_overlay(const AppState& s);
 // The first-run orientation: what each panel shows, dismissable (remembered in the settings).

@@ -2,6 +2,7 @@
 // Poincare sphere with the states of every direction within X dB of the peak.
 #include <imgui.h>
 
+#include <algorithm>
 #include <cmath>
 #include <cstdio>
 
@@ -67,14 +68,6 @@ void draw_poincare(ImDrawList* dl, ImVec2 c, float r, const std::vector<Poincare
     curve([](double t, double& x, double& y, double& z) { x = std::cos(t), y = std::sin(t), z = 0; }, grid, faint);
     curve([](double t, double& x, double& y, double& z) { x = std::cos(t), y = 0, z = std::sin(t); }, faint, faint);
     curve([](double t, double& x, double& y, double& z) { x = 0, y = std::cos(t), z = std::sin(t); }, faint, faint);
-    auto label = [&](double x, double y, double z, const char* text) {
-        SpherePoint2 p = view_sphere_point(x, y, z, az, el);
-        dl->AddText(ImVec2(c.x + r * float(p.x) + 3, c.y - r * float(p.y) - 7), IM_COL32(95, 100, 108, 255), text);
-    };
-    label(0, 0, 1.12, "RHCP");
-    label(0, 0, -1.22, "LHCP");
-    label(1.15, 0, 0, "\u03b8 lin.");
-    label(0, 1.15, 0, "45\u00b0");
     // Back points first, then front points.
     for (int pass = 0; pass < 2; ++pass)
         for (const PoincarePoint& q : cloud) {
@@ -84,6 +77,21 @@ void draw_poincare(ImDrawList* dl, ImVec2 c, float r, const std::vector<Poincare
             const ImVec2 at(c.x + r * float(p.x), c.y - r * float(p.y));
             dl->AddRectFilled(ImVec2(at.x - 1.5f, at.y - 1.5f), ImVec2(at.x + 1.5f, at.y + 1.5f), col);
         }
+    // Labels outside the disc, so no state is ever drawn under one: the poles above and below it,
+    // the two linear references beside it at the height of their points.
+    const ImU32 muted = IM_COL32(95, 100, 108, 255);
+    auto outside = [&](double x, double y, double z, const char* text) {
+        const SpherePoint2 p = view_sphere_point(x, y, z, az, el);
+        const ImVec2 ts = ImGui::CalcTextSize(text);
+        const float dx = float(p.x), dy = float(p.y), len = std::max(1e-3f, std::sqrt(dx * dx + dy * dy));
+        // Out along the point's screen direction to just past the rim, the text centred there.
+        const float rr = r + 4 + 0.5f * std::abs(dx / len) * ts.x + 0.5f * std::abs(dy / len) * ts.y;
+        dl->AddText(ImVec2(c.x + rr * dx / len - ts.x * 0.5f, c.y - rr * dy / len - ts.y * 0.5f), muted, text);
+    };
+    outside(0, 0, 1, "RHCP");
+    outside(0, 0, -1, "LHCP");
+    outside(1, 0, 0, "\u03b8 linear");
+    outside(0, 1, 0, "+45\u00b0");
     if (mark) {
         SpherePoint2 p = view_sphere_point(mark->s1, mark->s2, mark->s3, az, el);
         ImVec2 q(c.x + r * float(p.x), c.y - r * float(p.y));
@@ -103,35 +111,41 @@ Intents draw_polarisation_panel(const AppState& s, const Derived& d) {
     }
     const std::optional<DirectionProbe>& p = s.pinned ? d.pinned.value() : d.hover.value();
     const PolarisationState* f = p && p->a.polarisation ? &*p->a.polarisation : nullptr;
-    const float w = ImGui::GetContentRegionAvail().x;
-    const float size = std::min(w * 0.5f - 6, 170.0f);
+    // The Poincare sphere as large as the panel allows (drag the handle under the panel, or the View
+    // menu, to give it more room); the field's ellipse as an inset at the top left.
+    const ImVec2 avail = ImGui::GetContentRegionAvail();
+    const float line = ImGui::GetTextLineHeightWithSpacing();
+    const float label_w = ImGui::CalcTextSize("\u03b8 linear").x + 8;
+    const float r = std::max(30.0f, std::min(avail.x * 0.5f - label_w, (avail.y - 3.2f * line) * 0.5f - line));
+    const float inset = std::clamp(avail.x * 0.26f, 50.0f, 110.0f);
     ImDrawList* dl = ImGui::GetWindowDrawList();
     const ImVec2 o = ImGui::GetCursorScreenPos();
-    // Left: the ellipse to scale (major + minor axes from the field, on the unit circle of |E|).
-    if (f)
-        draw_ellipse(dl, ImVec2(o.x + size * 0.5f, o.y + size * 0.5f + 4), size * 0.42f, f->e_theta, f->e_phi);
-    else
-        dl->AddCircle(ImVec2(o.x + size * 0.5f, o.y + size * 0.5f + 4), size * 0.42f, faint, 64, 1.0f);
-    // Right: the Poincare sphere with the states near the peak.
+    const ImVec2 centre(o.x + avail.x * 0.5f + inset * 0.25f, o.y + line + r + 2);
     const std::vector<PoincarePoint>& cloud = d.poincare.value();
     PoincarePoint mark;
     if (f) mark = poincare_point(f->stokes);
-    draw_poincare(dl, ImVec2(o.x + w - size * 0.58f, o.y + size * 0.5f + 4), size * 0.38f, cloud, f ? &mark : nullptr);
-    ImGui::Dummy(ImVec2(w, size + 8));
+    draw_poincare(dl, centre, r, cloud, f ? &mark : nullptr);
+    const ImVec2 ec(o.x + inset * 0.5f, o.y + inset * 0.5f + 2);
+    if (f) draw_ellipse(dl, ec, inset * 0.38f, f->e_theta, f->e_phi);
+    else dl->AddCircle(ec, inset * 0.38f, faint, 64, 1.0f);
+    ImGui::Dummy(ImVec2(avail.x, 2 * r + 2 * line + 6));
     ImGui::PushTextWrapPos(0);
-    ImGui::TextDisabled("%s", !p ? "Left: pin a direction to see its ellipse."
-                              : s.pinned ? "Left: the field at the pin, seen along propagation."
-                                         : "Left: the field under the cursor, seen along propagation.");
+    ImGui::TextDisabled("%s", !p ? "Top left: pin a direction to see its ellipse."
+                              : s.pinned ? "Top left: the field at the pin, seen along propagation."
+                                         : "Top left: the field under the cursor, seen along propagation.");
     ImGui::PopTextWrapPos();
+    // The sphere's states: every direction within this many dB of the peak (a drag field, so no
+    // handle sits over the value).
     ViewerSettings st = s.settings;
     float within = float(st.poincare_within_db);
-    ImGui::SetNextItemWidth(-150);
-    if (ImGui::SliderFloat("##within", &within, 0.5f, 20, "within %.1f dB of peak", ImGuiSliderFlags_AlwaysClamp)) {
+    ImGui::TextDisabled("Sphere: the %zu sampled directions within", cloud.size());
+    ImGui::SetNextItemWidth(70);
+    if (ImGui::DragFloat("##within", &within, 0.05f, 0.5f, 20, "%.1f dB", ImGuiSliderFlags_AlwaysClamp)) {
         st.poincare_within_db = within;
         in.push_back(intent::ChangeSettings{st});
     }
     ImGui::SameLine();
-    ImGui::TextDisabled("%zu states", cloud.size());
+    ImGui::TextDisabled("of the peak");
     return in;
 }
 

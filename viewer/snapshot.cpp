@@ -107,7 +107,7 @@ Result<std::vector<std::uint8_t>> render_snapshot_rgba(const FarFieldSet& s, con
     dl->AddText(fonts.small, fonts.small->FontSize, ImVec2(16 * scale, o.height - fonts.small->FontSize * 1.8f), muted, line);
     draw_axis_labels(dl, cam, ImVec2(0, 0), ImVec2(float(view_w), float(o.height)), 1.3, fonts.small);
     const ImVec2 bar_pos(view_w + 18 * scale, o.height * 0.22f), bar_size(20 * scale, o.height * 0.56f);
-    draw_color_bar(dl, bar_pos, bar_size, mesh->bar, fonts.small, fonts.small);
+    draw_color_bar(dl, bar_pos, bar_size, mesh->bar, fonts.small, fonts.small, bar_strip - 28 * scale);
     ImGui::Render();
     target.bind();
     glViewport(0, 0, o.width, o.height);

@@ -25,7 +25,16 @@ void table_row(const char* label, const std::string& value, const char* tip) {
     ImGui::TextDisabled("%s", label);
     if (tip && ImGui::IsItemHovered()) ImGui::SetTooltip("%s", tip);
     ImGui::TableSetColumnIndex(1);
+    ImGui::PushTextWrapPos(0);  // a long value wraps inside its column instead of running off the panel
     ImGui::TextUnformatted(value.c_str());
+    ImGui::PopTextWrapPos();
+}
+
+bool begin_figure_table(const char* id, bool row_bg) {
+    if (!ImGui::BeginTable(id, 2, row_bg ? ImGuiTableFlags_RowBg : 0)) return false;
+    ImGui::TableSetupColumn("label", ImGuiTableColumnFlags_WidthFixed);
+    ImGui::TableSetupColumn("value", ImGuiTableColumnFlags_WidthStretch);
+    return true;
 }
 
 Intents export_outcome_line(const std::optional<ExportOutcome>& o, ExportTarget target) {

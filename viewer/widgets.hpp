@@ -10,7 +10,10 @@
 namespace ellipsa::viewer {
 
 void help_marker(const char* text);
-// One row of a two-column table: a muted label (with a tooltip when given) and the value.
+// A two-column table of labels (as wide as the widest) and values (the rest, wrapped). End it
+// with ImGui::EndTable() when it returns true.
+bool begin_figure_table(const char* id, bool row_bg = false);
+// One row of a two-column table: a muted label (with a tooltip when given) and the value, wrapped.
 void table_row(const char* label, const std::string& value, const char* tip = nullptr);
 // "Wrote ...", "Export failed: ...", or "... is already there. [Replace it] [Keep it]".
 Intents export_outcome_line(const std::optional<ExportOutcome>& outcome, ExportTarget target);

@@ -264,3 +264,31 @@ TEST_CASE("the map panel: opened, closed, and only the three projections", "[vie
     run(s, intent::ShowMap{false});
     CHECK_FALSE(s.map_open);
 }
+
+TEST_CASE("tabs: a docked tool opens in front, closing it brings the cut back, names parse", "[viewer][apply]") {
+    AppState s;
+    CHECK(s.strip_tab == Tab::cut);
+    CHECK(s.left_tab == Tab::patterns);
+    run(s, intent::ShowDiversity{true});
+    CHECK(s.diversity_open);
+    CHECK(s.strip_tab == Tab::diversity);
+    run(s, intent::ShowBand{true});
+    CHECK(s.strip_tab == Tab::band);
+    run(s, intent::SelectTab{Tab::diversity});
+    CHECK(s.strip_tab == Tab::diversity);
+    run(s, intent::ShowBand{false});  // not in front: the front tab stays
+    CHECK(s.strip_tab == Tab::diversity);
+    run(s, intent::ShowDiversity{false});  // in front: the cut comes back
+    CHECK(s.strip_tab == Tab::cut);
+    run(s, intent::SelectTab{Tab::band});  // selecting a closed tool opens it
+    CHECK(s.band_open);
+    CHECK(s.strip_tab == Tab::band);
+    run(s, intent::SelectTab{Tab::surface});  // the left column's tabs are its own
+    CHECK(s.left_tab == Tab::surface);
+    CHECK(s.strip_tab == Tab::band);
+    run(s, intent::ShowMap{true});
+    CHECK(s.strip_tab == Tab::map);
+    CHECK(parse_tab("polarisation") == Tab::polarisation);
+    CHECK(parse_tab("Cut") == std::nullopt);
+    CHECK(parse_tab("") == std::nullopt);
+}

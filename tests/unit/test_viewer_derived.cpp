@@ -131,3 +131,21 @@ TEST_CASE("figures against frequency: only while the panel is open, once per pat
     refresh(d, s);
     CHECK(d.band.value().compute_ms == ms);
 }
+
+TEST_CASE("the caption's peak is the refined peak of the shown component, none for a zero pattern", "[viewer][derived]") {
+    AppState s;
+    run(s, intent::AddPatterns{{dipole("a"), dipole("zero", 0)}, ""});
+    Derived d;
+    refresh(d, s);
+    REQUIRE(d.peak_db.value());
+    // The same number the headline figures give (summarize() refines the same peak), so the
+    // caption and the Patterns panel round it alike.
+    REQUIRE(d.summary.value());
+    CHECK(*d.peak_db.value() == Approx(d.summary.value()->peak_db).margin(1e-12));
+    // Short dipole directivity 1.5 = 1.76 dBi (Balanis, Antenna Theory, 4th ed., sec. 4.2); the
+    // 5-degree grid holds the peak at theta = 90 exactly.
+    CHECK(*d.peak_db.value() == Approx(10 * std::log10(1.5)).margin(0.01));
+    run(s, intent::SelectPattern{1});
+    refresh(d, s);
+    CHECK_FALSE(d.peak_db.value());
+}

@@ -156,3 +156,58 @@ TEST_CASE("a click on the surface pins the direction under the pointer; Esc unpi
     io.KeysDown[GLFW_KEY_W] = false;
     CHECK(s.settings.wireframe);
 }
+
+TEST_CASE("the layout at 1280x800 and 800x600: panels tile the window, the scene is clear of header and key", "[viewer][ui]") {
+    Ui ui;
+    ImGuiIO& io = ImGui::GetIO();
+    const ViewerSettings st;
+    const float menu = 21;
+    auto inside = [](ImVec2 p, ImVec2 s, ImVec2 outer_p, ImVec2 outer_s) {
+        return p.x >= outer_p.x - 0.5f && p.y >= outer_p.y - 0.5f && p.x + s.x <= outer_p.x + outer_s.x + 0.5f &&
+               p.y + s.y <= outer_p.y + outer_s.y + 0.5f;
+    };
+    for (ImVec2 display : {ImVec2(1280, 800), ImVec2(800, 600), ImVec2(1024, 768)}) {
+        INFO(display.x << "x" << display.y);
+        const Layout L = compute_layout(st, display, menu);
+        CHECK(L.narrow == (display.x < narrow_width || display.y < narrow_height));
+        // Columns side by side, every one down to the bottom of the window.
+        CHECK(L.left_pos.x == 0);
+        CHECK(L.area_pos.x == Approx(L.left_size.x));
+        CHECK(L.strip_pos.x == Approx(L.area_pos.x));
+        CHECK(L.area_pos.y + L.area_size.y == Approx(L.strip_pos.y));
+        CHECK(L.strip_pos.y + L.strip_size.y == Approx(display.y));
+        CHECK(L.left_size.y == Approx(display.y - menu));
+        // The plot strip keeps room for a cut (at least 250 x 250 px) at both sizes.
+        CHECK(L.strip_size.x >= 250);
+        CHECK(L.strip_size.y >= 250);
+        // The scene and the key strip inside the view's rectangle, side by side, under the header.
+        CHECK(inside(L.view_pos, L.view_size, L.area_pos, L.area_size));
+        CHECK(inside(L.key_pos, L.key_size, L.area_pos, L.area_size));
+        CHECK(L.view_pos.x + L.view_size.x <= L.key_pos.x + 0.5f);
+        CHECK(L.view_pos.y >= L.area_pos.y + 2 * menu);
+        CHECK(L.key_size.x >= 80);
+        if (L.narrow) {
+            CHECK(L.polar_size.x == 0);
+            CHECK(L.area_pos.x + L.area_size.x == Approx(display.x));
+        } else {
+            CHECK(L.polar_pos.y + L.polar_size.y == Approx(L.probe_pos.y));
+            CHECK(L.probe_pos.y + L.probe_size.y == Approx(display.y));
+            CHECK(L.area_pos.x + L.area_size.x == Approx(L.polar_pos.x));
+        }
+    }
+    // Every tab draws at 800 x 600 (the narrow layout), without asking for anything by itself.
+    io.DisplaySize = ImVec2(800, 600);
+    AppState s;
+    apply(s, Intents{intent::AddPatterns{{antenna(ReferenceKind::crossed_dipoles), antenna(ReferenceKind::small_loop)}, ""},
+                     intent::SetCompare{1}, intent::ShowDiversity{true}, intent::ShowBand{true}, intent::ShowMap{true}});
+    Derived d;
+    refresh(d, s);
+    for (Tab t : {Tab::patterns, Tab::surface, Tab::cut, Tab::probe, Tab::polarisation, Tab::diversity, Tab::band, Tab::map}) {
+        INFO(tab_names[int(t)]);
+        apply(s, Intents{intent::SelectTab{t}});
+        refresh(d, s);
+        for (int k = 0; k < 2; ++k) CHECK(ui.frame(s, d).empty());
+        CHECK((in_left_column(t) ? s.left_tab : s.strip_tab) == t);
+    }
+    io.DisplaySize = ImVec2(1280, 800);
+}

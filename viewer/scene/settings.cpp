@@ -50,6 +50,7 @@ void for_each_number(S& s, F&& f) {
     f("left_panel_width", s.left_panel_width, 150.0, 2000.0);
     f("right_panel_width", s.right_panel_width, 150.0, 2000.0);
     f("cut_panel_height", s.cut_panel_height, 100.0, 2000.0);
+    f("polarisation_panel_height", s.polarisation_panel_height, 150.0, 2000.0);
 }
 template <class S, class F>
 void for_each_flag(S& s, F&& f) {

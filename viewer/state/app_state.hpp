@@ -49,6 +49,16 @@ struct ExportOutcome {
 };
 enum class ExportTarget { view, cut };
 
+// The tabbed places of the window. The plot strip under the 3D view holds the cut and the docked
+// tools (diversity, band, map), and in a narrow window the probe and the polarisation panel too; in a
+// narrow window Patterns and Surface share the left column as tabs.
+enum class Tab { patterns, surface, cut, probe, polarisation, diversity, band, map };
+inline constexpr const char* tab_names[] = {"patterns", "surface", "cut", "probe", "polarisation", "diversity", "band", "map"};
+// The tab for a name of tab_names (as `view --tab` takes it); nullopt for any other name.
+std::optional<Tab> parse_tab(const std::string& name);
+// Patterns and Surface live in the left column; every other tab in the plot strip.
+inline bool in_left_column(Tab t) { return t == Tab::patterns || t == Tab::surface; }
+
 struct AppState {
     std::vector<LoadedPattern> patterns;
     int next_pattern_id = 1;
@@ -66,6 +76,8 @@ struct AppState {
     bool show_help = false, show_intro = false;
     bool diversity_open = false;
     bool band_open = false;  // figures against frequency
+    Tab left_tab = Tab::patterns;  // shown in the left column when it holds tabs
+    Tab strip_tab = Tab::cut;      // shown in the plot strip
     int band_quantity = 0;   // index into band_quantities (viewer/state/derived.hpp)
     bool map_open = false;   // the 2D map of the surface's colouring
     int map_projection = 0;  // MapProjection: 0 Hammer (equal-area), 1 theta/phi, 2 azimuth/elevation

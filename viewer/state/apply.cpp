@@ -26,6 +26,12 @@ std::size_t AppState::freq_for(const LoadedPattern& p) const {
     return p.set.nearest_frequency(a->set.frequencies[freq].frequency_hz);
 }
 
+std::optional<Tab> parse_tab(const std::string& name) {
+    for (std::size_t k = 0; k < std::size(tab_names); ++k)
+        if (name == tab_names[k]) return Tab(k);
+    return std::nullopt;
+}
+
 namespace {
 
 bool finite(const Direction& d) { return std::isfinite(d.theta_deg) && std::isfinite(d.phi_deg); }
@@ -191,15 +197,27 @@ struct Apply {
         s.show_intro = false;
         s.settings.seen_intro = true;
     }
-    void operator()(intent::ShowDiversity& i) { s.diversity_open = i.on; }
+    void operator()(intent::ShowDiversity& i) { show_tool(s.diversity_open, Tab::diversity, i.on); }
     void operator()(intent::ChangeDiversity& i) { s.diversity = std::move(i.choice); }
-    void operator()(intent::ShowBand& i) { s.band_open = i.on; }
-    void operator()(intent::ShowMap& i) { s.map_open = i.on; }
+    void operator()(intent::ShowBand& i) { show_tool(s.band_open, Tab::band, i.on); }
+    void operator()(intent::ShowMap& i) { show_tool(s.map_open, Tab::map, i.on); }
     void operator()(intent::SetMapProjection& i) {
         if (i.index >= 0 && i.index <= 2) s.map_projection = i.index;
     }
     void operator()(intent::SetBandQuantity& i) {
         if (i.index >= 0 && i.index < band_quantity_count) s.band_quantity = i.index;
+    }
+    void operator()(intent::SelectTab& i) {
+        if (i.tab == Tab::diversity) s.diversity_open = true;
+        if (i.tab == Tab::band) s.band_open = true;
+        if (i.tab == Tab::map) s.map_open = true;
+        (in_left_column(i.tab) ? s.left_tab : s.strip_tab) = i.tab;
+    }
+    // A docked tool opens in front of the strip; closing the one in front brings the cut back.
+    void show_tool(bool& open, Tab tab, bool on) {
+        open = on;
+        if (on) s.strip_tab = tab;
+        else if (s.strip_tab == tab) s.strip_tab = Tab::cut;
     }
     void operator()(intent::SetCutExportFormat& i) { s.cut_export_format = i.index; }
     void operator()(intent::ExportView& i) {

@@ -3,6 +3,7 @@
 #include <chrono>
 #include <cmath>
 
+#include "pattern/peak.hpp"
 #include "pattern/vec3.hpp"
 
 namespace ellipsa::viewer {
@@ -154,6 +155,12 @@ DerivedChanges refresh(Derived& d, const AppState& s, bool interacting) {
     d.hover.update(ProbeKey{w.a_id, w.b_id, w.fa, w.fb, s.hover}, [&] { return probe_at(w, s.hover); });
     d.pinned.update(ProbeKey{w.a_id, w.b_id, w.fa, w.fb, s.pinned}, [&] { return probe_at(w, s.pinned); });
     d.summary.update(SummaryKey{w.a_id, w.fa}, [&] { return w.a ? std::optional(summarize(w.a->set, w.fa)) : std::nullopt; });
+    const PeakKey peak_key{w.a_id, w.fa, s.settings.component};
+    d.peak_db.update(peak_key, [&]() -> std::optional<double> {
+        if (!w.a || component_unavailable(w.a->set, peak_key.component)) return std::nullopt;
+        const Peak p = find_peak(w.a->set, w.fa, peak_key.component);
+        return p.value > 0 ? std::optional(to_db(p.value)) : std::nullopt;
+    });
     const PoincareKey pk{w.a_id, w.fa, s.settings.poincare_within_db};
     d.poincare.update(pk, [&] {
         return w.a && w.a->set.has_phase() ? poincare_cloud(w.a->set, w.fa, pk.within_db, 2000) : std::vector<PoincarePoint>{};

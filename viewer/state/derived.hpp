@@ -68,6 +68,12 @@ struct SummaryKey {
     std::size_t fa = 0;
     bool operator==(const SummaryKey&) const = default;
 };
+struct PeakKey {
+    int a = 0;
+    std::size_t fa = 0;
+    Component component = Component::total;
+    bool operator==(const PeakKey&) const = default;
+};
 struct PoincareKey {
     int a = 0;
     std::size_t fa = 0;
@@ -132,6 +138,10 @@ struct Derived {
     Keyed<RingKey, LineSet> ring;  // the cut drawn on the surface
     Keyed<ProbeKey, std::optional<DirectionProbe>> hover, pinned;
     Keyed<SummaryKey, std::optional<PatternSummary>> summary;
+    // The shown component's refined peak in dB (pattern/peak.hpp), the number the view's caption
+    // gives (the same as the figures' peak for the total); none without a pattern or when every
+    // sample of the component is zero.
+    Keyed<PeakKey, std::optional<double>> peak_db;
     Keyed<PoincareKey, std::vector<PoincarePoint>> poincare;
     Keyed<DiversityKey, DiversityView> diversity;  // only while the diversity panel is open
     Keyed<BandKey, BandView> band;                 // only while the band panel is open

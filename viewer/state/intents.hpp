@@ -72,6 +72,7 @@ struct ShowBand { bool on = true; };            // figures against frequency
 struct SetBandQuantity { int index = 0; };      // which figure the band panel plots
 struct ShowMap { bool on = true; };             // the 2D map beside the 3D view
 struct SetMapProjection { int index = 0; };     // 0 Hammer, 1 theta/phi, 2 azimuth/elevation
+struct SelectTab { Tab tab = Tab::cut; };       // bring a tab to the front (opens a closed tool)
 
 // --- Exports and leaving ---
 struct SetCutExportFormat { int index = 0; };
@@ -89,7 +90,7 @@ using Intent = std::variant<
     intent::StepFrequency, intent::EditPath, intent::EditMap, intent::DismissLoadError, intent::ChangeSettings,
     intent::StepComponent, intent::StepColorBy, intent::Orbit, intent::Zoom, intent::LookFrom, intent::SetView,
     intent::ResetView, intent::Hover, intent::Pin, intent::Unpin, intent::Escape, intent::ShowHelp, intent::ShowIntro,
-    intent::DismissIntro, intent::ShowDiversity, intent::ChangeDiversity, intent::ShowBand, intent::SetBandQuantity, intent::ShowMap, intent::SetMapProjection, intent::SetCutExportFormat,
+    intent::DismissIntro, intent::ShowDiversity, intent::ChangeDiversity, intent::ShowBand, intent::SetBandQuantity, intent::SelectTab, intent::ShowMap, intent::SetMapProjection, intent::SetCutExportFormat,
     intent::ExportView, intent::ExportCut, intent::ExportFinished, intent::DismissExport, intent::Quit>;
 
 using Intents = std::vector<Intent>;
