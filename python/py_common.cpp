@@ -1,0 +1,36 @@
+#include "python/py_common.hpp"
+
+namespace ellipsa::python {
+
+void raise(const Error& e) {
+    py::object type = py::module_::import("ellipsa").attr("Error");
+    py::object inst = type(e.format());
+    inst.attr("file") = e.file.empty() ? py::object(py::none()) : py::object(py::str(e.file));
+    inst.attr("line") = e.line > 0 ? py::object(py::int_(e.line)) : py::object(py::none());
+    inst.attr("column") = e.column > 0 ? py::object(py::int_(e.column)) : py::object(py::none());
+    inst.attr("message") = e.message;
+    PyErr_SetObject(type.ptr(), inst.ptr());
+    throw py::error_already_set();
+}
+
+std::size_t frequency_index(const FarFieldSet& s, int index, const std::optional<double>& frequency_hz) {
+    if (frequency_hz) return take(find_frequency(s, *frequency_hz, s.source));
+    if (index < 0 || std::size_t(index) >= s.frequencies.size())
+        throw py::index_error("frequency index " + std::to_string(index) + " outside 0.." +
+                              std::to_string(int(s.frequencies.size()) - 1));
+    return std::size_t(index);
+}
+
+Component component_named(const std::string& name) {
+    Component c;
+    if (parse_component(name.c_str(), c)) return c;
+    std::string known;
+    for (Component k : all_components) known += std::string(known.empty() ? "" : ", ") + to_string(k);
+    throw py::value_error("unknown component \"" + name + "\"; expected one of " + known);
+}
+
+void check_component(const FarFieldSet& s, Component c) {
+    if (auto why = component_unavailable(s, c)) raise(Error{s.source, 0, 0, std::string(to_string(c)) + ": " + *why});
+}
+
+}  // namespace ellipsa::python

@@ -1,0 +1,120 @@
+// Pattern.info(), Pattern.summary() (the figures of `ellipsa info`, through the command's own JSON)
+// and Pattern.cut() (the core's cuts and beam figures).
+#include "cli/info_json.hpp"
+#include "exports/cut_figure.hpp"
+#include "exports/figure_text.hpp"
+#include "pattern/summary.hpp"
+#include "python/py_common.hpp"
+
+namespace ellipsa::python {
+
+namespace {
+
+// The figures exactly as `ellipsa info --json` gives them (the same code writes the same JSON,
+// parsed here): unavailable values are None, with the reason keys beside them.
+py::dict info(const Pattern& p, std::optional<double> frequency_hz) {
+    std::vector<std::size_t> which;
+    if (frequency_hz)
+        which.push_back(frequency_index(p.set, 0, frequency_hz));
+    else
+        for (std::size_t k = 0; k < p.set.frequencies.size(); ++k) which.push_back(k);
+    std::string text;
+    {
+        py::gil_scoped_release unlocked;
+        std::vector<PatternSummary> rs;
+        for (std::size_t k : which) rs.push_back(summarize(p.set, k));
+        text = cli::info_json(p.set, which, rs);
+    }
+    return py::module_::import("json").attr("loads")(text);
+}
+
+py::dict summary(const Pattern& p, int index, std::optional<double> frequency_hz) {
+    const std::size_t fi = frequency_index(p.set, index, frequency_hz);
+    std::string text;
+    {
+        py::gil_scoped_release unlocked;
+        cli::JsonWriter j;
+        j.begin_object();
+        cli::summary_json(j, p.set, fi, summarize(p.set, fi));
+        j.end_object();
+        text = j.str();
+    }
+    return py::module_::import("json").attr("loads")(text);
+}
+
+py::dict beam_dict(const BeamFigures& b) {
+    py::dict d;
+    d["shape"] = to_string(b.shape);
+    d["peak_angle_deg"] = b.peak_angle_deg, d["peak_db"] = b.peak_db;
+    d["hpbw_deg"] = opt(b.hpbw_deg), d["hpbw_reason"] = opt(exports::beamwidth_reason(b));
+    d["left_deg"] = opt(b.left_deg), d["right_deg"] = opt(b.right_deg);
+    d["ripple_db"] = opt(b.ripple_db), d["half_power_span_deg"] = opt(b.half_power_span_deg);
+    d["front_to_back_db"] = opt(b.front_to_back_db), d["front_to_back_above_db"] = opt(b.front_to_back_above_db);
+    d["sidelobe_db"] = opt(b.sidelobe_db), d["mirror_beam"] = b.mirror_beam;
+    return d;
+}
+
+CutSpec cut_spec(const Pattern& p, std::size_t fi, std::optional<double> phi_deg, std::optional<double> theta_deg,
+                 std::optional<std::array<double, 2>> through, bool along_phi) {
+    if (int(phi_deg.has_value()) + int(theta_deg.has_value()) + int(through.has_value()) > 1)
+        throw py::value_error("choose one cut: phi_deg, theta_deg or through");
+    if (theta_deg) {
+        if (!(*theta_deg >= 0 && *theta_deg <= 180)) throw py::value_error("theta_deg: expected 0..180 deg");
+        return CutSpec::theta_cut(*theta_deg);
+    }
+    if (through) return CutSpec::through((*through)[0], (*through)[1], along_phi);
+    if (phi_deg) return CutSpec::phi_cut(*phi_deg);
+    // Neither: the elevation cut through the peak of the total power, as `ellipsa cut --through-peak`.
+    return CutSpec::phi_cut(std::round(find_peak(p.set, fi, Component::total).phi_deg * 10) / 10);
+}
+
+py::dict cut(const Pattern& p, std::optional<double> phi_deg, std::optional<double> theta_deg,
+             std::optional<std::array<double, 2>> through, bool along_phi, const std::vector<std::string>& components,
+             int index, std::optional<double> frequency_hz, std::optional<double> step_deg) {
+    const std::size_t fi = frequency_index(p.set, index, frequency_hz);
+    std::vector<Component> comps;
+    for (const std::string& c : components) comps.push_back(component_named(c));
+    const CutSpec spec = cut_spec(p, fi, phi_deg, theta_deg, through, along_phi);
+    const exports::CutData c = take(exports::compute_cut(p.set, fi, spec, comps, step_deg.value_or(0)));
+    py::dict d, power, beams;
+    d["label"] = spec.label(), d["angle_name"] = spec.angle_name(), d["step_deg"] = c.samples.step_deg;
+    d["frequency_hz"] = p.set.frequencies[fi].frequency_hz;
+    d["angle_deg"] = copy(c.samples.angle_deg), d["theta_deg"] = copy(c.samples.theta_deg);
+    d["phi_deg"] = copy(c.samples.phi_deg);
+    d["e_theta"] = copy(c.samples.e_theta), d["e_phi"] = copy(c.samples.e_phi);
+    py::array_t<bool> valid(py::ssize_t(c.samples.valid.size()));
+    for (std::size_t k = 0; k < c.samples.valid.size(); ++k) valid.mutable_data()[k] = c.samples.valid[k] != 0;
+    d["valid"] = valid;
+    for (std::size_t k = 0; k < comps.size(); ++k) {
+        power[to_string(comps[k])] = copy(c.power[k]);
+        beams[to_string(comps[k])] = beam_dict(c.beams[k]);
+    }
+    d["power"] = power, d["beam"] = beams;
+    return d;
+}
+
+}  // namespace
+
+void bind_figures(py::module_& m) {
+    py::class_<Pattern, PatternPtr> p = py::reinterpret_borrow<py::class_<Pattern, PatternPtr>>(m.attr("Pattern"));
+    p.def("info", &info, py::kw_only(), py::arg("frequency_hz") = py::none(),
+          "Everything `ellipsa info --json` prints for this pattern, as a dict (the same code writes it): the\n"
+          "description, the grid, one entry of \"results\" per frequency (or only frequency_hz) and, for\n"
+          "several frequencies, the \"band\" summary. Unavailable figures are None.");
+    p.def("summary", &summary, py::arg("index") = 0, py::kw_only(), py::arg("frequency_hz") = py::none(),
+          "The headline figures of one frequency, as `ellipsa info --json` gives them in \"results\": peak_db,\n"
+          "peak_theta_deg, peak_phi_deg, directivity_dbi, radiation_efficiency, hpbw_elevation_deg,\n"
+          "hpbw_azimuth_deg, front_to_back_db, sidelobe_elevation_db, axial_ratio_db, sense, ar_beamwidth_deg, ...\n"
+          "(None when unavailable; the *_reason keys say why).");
+    p.def("cut", &cut, py::arg("phi_deg") = py::none(), py::arg("theta_deg") = py::none(), py::kw_only(),
+          py::arg("through") = py::none(), py::arg("along_phi") = false,
+          py::arg("components") = std::vector<std::string>{"total"}, py::arg("index") = 0,
+          py::arg("frequency_hz") = py::none(), py::arg("step_deg") = py::none(),
+          "One cut, as `ellipsa cut`: phi_deg (the great circle through both poles, angle = theta from -180\n"
+          "to 180), theta_deg (a cone, angle = phi), or through=(theta_deg, phi_deg) (the great circle through\n"
+          "that direction along theta-hat, or along phi-hat with along_phi=True); none of them: the elevation\n"
+          "cut through the peak. Returns a dict of arrays angle_deg, theta_deg, phi_deg, e_theta, e_phi, valid;\n"
+          "power[component] (linear, NaN outside the data) and beam[component] (HPBW, front-to-back, side lobe).");
+}
+
+}  // namespace ellipsa::python
