@@ -50,43 +50,6 @@ std::string describe_cut(const CutSpec& spec) {
     return buf;
 }
 
-Result<CutData> compute_cut(const FarFieldSet& s, std::size_t fi, const CutSpec& spec,
-                            const std::vector<Component>& components, double step_deg) {
-    if (fi >= s.frequencies.size()) return Error{"", 0, 0, "frequency index out of range"};
-    if (spec.kind == CutKind::theta_const && !(spec.theta_deg >= 0 && spec.theta_deg <= 180))
-        return Error{"--theta", 0, 0, "expected a polar angle from 0 to 180 deg"};
-    for (Component c : components)
-        if (auto why = component_unavailable(s, c)) return Error{"", 0, 0, *why};
-    CutData d;
-    d.spec = spec;
-    d.freq_index = fi;
-    d.components = components;
-    d.samples = sample_cut(s, fi, spec, step_deg > 0 ? step_deg : default_cut_step(s.grid));
-    bool any = false;
-    for (unsigned char v : d.samples.valid) any = any || v;
-    if (!any) return Error{"", 0, 0, "the " + spec.label() + " cut lies entirely outside the sampled region"};
-    for (Component c : components) {
-        d.power.push_back(cut_power(s, d.samples, c));
-        // Start the climb at the largest sample; between equal maxima (a symmetric pattern) take
-        // the one at a non-negative angle, in the cut's own half-plane rather than phi + 180.
-        const std::vector<double>& p = d.power.back();
-        int best = -1;
-        for (std::size_t k = 0; k < p.size(); ++k) {
-            if (!(p[k] > 0)) continue;
-            if (best < 0) {
-                best = int(k);
-                continue;
-            }
-            const double b = p[std::size_t(best)];
-            const bool tie = std::abs(p[k] - b) <= 1e-9 * b;
-            if ((!tie && p[k] > b) || (tie && d.samples.angle_deg[k] >= 0 && d.samples.angle_deg[std::size_t(best)] < 0))
-                best = int(k);
-        }
-        d.beams.push_back(beam_figures(d.samples.angle_deg, p, best, spec.kind == CutKind::phi_const));
-    }
-    return d;
-}
-
 namespace {
 std::string lower(std::string s) {
     for (char& c : s) c = char(c >= 'A' && c <= 'Z' ? c - 'A' + 'a' : c);

@@ -21,19 +21,8 @@ Result<std::vector<Component>> parse_component_list(const std::string& text);
 // "Elevation cut, φ = 0°", "Azimuth cut, θ = 90°", "Great circle through θ = 45.0°, φ = 0.0°".
 std::string describe_cut(const CutSpec& spec);
 
-struct CutData {
-    CutSpec spec;
-    std::size_t freq_index = 0;
-    CutSamples samples;
-    std::vector<Component> components;
-    std::vector<std::vector<double>> power;  // linear, per component, NaN outside the data
-    std::vector<BeamFigures> beams;          // per component
-};
-
-// Sample the cut and compute each component. step_deg <= 0 uses default_cut_step(grid).
-// Errors: frequency index out of range, a component the data cannot give, theta outside 0..180.
-Result<CutData> compute_cut(const FarFieldSet& s, std::size_t freq_index, const CutSpec& spec,
-                            const std::vector<Component>& components, double step_deg = 0);
+// The cut every figure and CSV is made from: the core's one cut value (pattern/cut.hpp).
+using CutData = ComponentCut;
 
 // The plotted values: a header line, then one row per cut sample:
 //   angle_deg,theta_deg,phi_deg,<component>_<unit>,...

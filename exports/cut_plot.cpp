@@ -22,40 +22,16 @@ bool parse_plot_style(std::string_view name, PlotStyle& out) {
     return false;
 }
 
-double grid_step_db(double range_db) {
-    if (range_db <= 20) return 5;
-    if (range_db <= 60) return 10;
-    return 20;
-}
-
-double plot_top_db(const CutPlot& p) {
-    if (p.top_db) return *p.top_db;
+DbScale plot_scale(const CutPlot& p) {
+    if (p.top_db) return db_scale_at(*p.top_db, p.range_db);
     double hi = -INFINITY;
     for (const PlotCurve& c : p.curves)
         for (double v : c.value_db)
             if (std::isfinite(v)) hi = std::max(hi, v);
-    if (!std::isfinite(hi)) return 0;
-    return 5 * std::ceil(hi / 5 - 1e-9);
+    return db_scale(hi, p.range_db);
 }
 
 namespace {
-
-// The top of the scale, then every whole multiple of `step` strictly between top and floor.
-std::vector<double> grid_levels(double top, double floor, double step) {
-    std::vector<double> v{top};
-    for (double x = std::floor((top - 1e-9) / step) * step; x > floor + 1e-9; x -= step)
-        if (top - x > 0.25 * step) v.push_back(x);
-    return v;
-}
-
-struct Scale {
-    double top, floor;
-    // 0 at the floor, 1 at the top; values below the floor (and -inf) sit on the floor.
-    double fraction(double db) const {
-        const double v = std::clamp(db, floor, top);
-        return (v - floor) / (top - floor);
-    }
-};
 
 // The peak readout of a curve, "2.15 dBi at θ = 90.0°".
 std::string peak_text(const CutPlot& p, const PlotCurve& c) {
@@ -154,9 +130,9 @@ void draw_legend(Pen& pen, const CutPlot& p, double x0, double y0, double x1, do
     if (!no_data_ranges(p).empty())
         for (auto& l : wrap(pen, "Grey: outside the sampled region (no data).", wrap_w)) lines.push_back(l);
     if (p.style == PlotStyle::polar) {
-        const double top = plot_top_db(p), range = std::max(p.range_db, 1.0);
-        for (auto& l : wrap(pen, "Radius: " + p.value_label + ", " + num(top - range, 0) + " (centre) to " + num(top, 0) +
-                                     " (rim) " + p.value_unit + "; " + num(grid_step_db(range), 0) + " dB per ring.",
+        const DbScale sc = plot_scale(p);
+        for (auto& l : wrap(pen, "Radius: " + p.value_label + ", " + num(sc.floor_db(), 0) + " (centre) to " + num(sc.top_db, 0) +
+                                     " (rim) " + p.value_unit + "; " + num(sc.step_db, 0) + " dB per ring.",
                             wrap_w))
             lines.push_back(l);
     }
@@ -175,7 +151,7 @@ void draw_legend(Pen& pen, const CutPlot& p, double x0, double y0, double x1, do
 
 // A curve's samples as (angle, fraction) with the loop closed.
 template <class Emit>
-void walk_curve(const PlotCurve& c, const Scale& sc, Emit emit) {
+void walk_curve(const PlotCurve& c, const DbScale& sc, Emit emit) {
     const std::size_t n = c.angle_deg.size();
     for (std::size_t k = 0; k <= n && n > 0; ++k) {
         const std::size_t j = k % n;
@@ -212,7 +188,7 @@ struct PolarGeom {
 };
 
 // Interpolated fraction of a curve at an angle (for label placement); -1 when unknown.
-double fraction_at(const PlotCurve& c, const Scale& sc, double a_deg) {
+double fraction_at(const PlotCurve& c, const DbScale& sc, double a_deg) {
     const std::size_t n = c.angle_deg.size();
     if (n < 2) return -1;
     const double step = c.angle_deg[1] - c.angle_deg[0];
@@ -229,8 +205,7 @@ double fraction_at(const PlotCurve& c, const Scale& sc, double a_deg) {
 void draw_polar(Pen& pen, const CutPlot& p, double x0, double y0, double x1, double y1) {
     cairo_t* cr = pen.cr;
     const double u = pen.u;
-    const double top = plot_top_db(p), range = std::max(p.range_db, 1.0), step = grid_step_db(range);
-    const Scale sc{top, top - range};
+    const DbScale sc = plot_scale(p);
     const double bottom_caption = p.negative_side.empty() ? 10 * u : 14 * u;
     const double margin = 24 * u;
     const double r = std::max(10.0, std::min(x1 - x0, y1 - y0 - bottom_caption) / 2 - margin);
@@ -269,7 +244,7 @@ void draw_polar(Pen& pen, const CutPlot& p, double x0, double y0, double x1, dou
         pen.line(g.cx, g.cy, xb, yb);
     }
     // Rings at whole multiples of the grid step; the rim is the top of the scale.
-    const std::vector<double> rings = grid_levels(top, top - range, step);
+    const std::vector<double> rings = sc.rings();
     for (std::size_t i = 1; i < rings.size(); ++i) {
         cairo_new_sub_path(cr);
         cairo_arc(cr, g.cx, g.cy, r * sc.fraction(rings[i]), 0, 2 * kPi);
@@ -398,8 +373,7 @@ void draw_polar(Pen& pen, const CutPlot& p, double x0, double y0, double x1, dou
 void draw_rect(Pen& pen, const CutPlot& p, double x0, double y0, double x1, double y1) {
     cairo_t* cr = pen.cr;
     const double u = pen.u;
-    const double top = plot_top_db(p), range = std::max(p.range_db, 1.0), step = grid_step_db(range);
-    const Scale sc{top, top - range};
+    const DbScale sc = plot_scale(p);
     const double a_min = p.layout == AngleLayout::signed_half ? -180 : 0, a_max = a_min + 360;
     const double bx0 = x0 + 40 * u, bx1 = x1 - 14 * u, by0 = y0 + 10 * u;
     const double by1 = y1 - (p.negative_side.empty() ? 30 : 40) * u;
@@ -424,8 +398,8 @@ void draw_rect(Pen& pen, const CutPlot& p, double x0, double y0, double x1, doub
     pen.colour(grid_major);
     cairo_set_line_width(cr, 0.5 * u);
     for (double a = a_min + 30; a < a_max; a += 30) pen.line(X(a), by0, X(a), by1);
-    std::vector<double> rings = grid_levels(top, top - range, step);
-    rings.push_back(top - range);  // the bottom of the frame
+    std::vector<double> rings = sc.rings();
+    rings.push_back(sc.floor_db());  // the bottom of the frame
     for (double v : rings) pen.line(bx0, Y(sc.fraction(v)), bx1, Y(sc.fraction(v)));
     // Frame and ticks.
     pen.colour(ink_soft);

@@ -17,6 +17,7 @@
 #include <cairo.h>
 
 #include "pattern/cut.hpp"
+#include "pattern/db_scale.hpp"
 
 namespace ellipsa::exports {
 
@@ -46,16 +47,15 @@ struct CutPlot {
     std::string value_unit = "dBi";
     std::string negative_side, positive_side;  // signed layout: what the two halves are ("φ = 180°")
     double range_db = 40;
-    std::optional<double> top_db;  // default: the highest value, rounded up to 5 dB
+    std::optional<double> top_db;  // default: the highest value, rounded up (db_scale)
     std::vector<PlotCurve> curves;
     int marked_curve = 0;  // the curve that gets -3 dB markers (-1: none)
     std::vector<std::string> notes;  // small print under the legend
 };
 
-// The dB value at the rim / top of the axis (top_db or the highest value rounded up to 5 dB).
-double plot_top_db(const CutPlot& p);
-// dB between grid lines for a range (5, 10 or 20).
-double grid_step_db(double range_db);
+// The figure's dB scale: the core's one rule (pattern/db_scale.hpp) for top_db, or the highest
+// value of every curve, and range_db.
+DbScale plot_scale(const CutPlot& p);
 
 // Draw the whole figure into the rectangle [0, width] x [0, height] in user units of points
 // (1/72 in). Costs a few hundred path segments per curve; no allocation beyond Cairo's own.

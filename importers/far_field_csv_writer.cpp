@@ -5,6 +5,8 @@
 #include <charconv>
 #include <cmath>
 #include <cstring>
+#include <optional>
+#include <string_view>
 
 #include "io/atomic_write.hpp"
 #include "importers/far_field_csv.hpp"
@@ -82,8 +84,9 @@ void put_meta(std::string& out, const char* key, const std::string& value) {
 
 }  // namespace
 
-Result<std::string> format_far_field_csv(const FarFieldSet& s, const CsvWriteOptions& o) {
-    const CsvFamily fam = o.family;
+namespace {
+
+std::optional<Error> write_refusal(const FarFieldSet& s, CsvFamily fam) {
     const bool needs_phase = fam == CsvFamily::complex || fam == CsvFamily::theta_phi_polar ||
                              fam == CsvFamily::circular_polar || fam == CsvFamily::ludwig3_polar;
     if (needs_phase && !s.has_phase())
@@ -92,14 +95,14 @@ Result<std::string> format_far_field_csv(const FarFieldSet& s, const CsvWriteOpt
     if (fam == CsvFamily::magnitude_db && s.content == FieldContent::total_only)
         return Error{"", 0, 0, "expected theta and phi parts for the theta-phi-db family, found total-only data "
                                "(write total-db instead)"};
-    const Grid& g = s.grid;
     for (const FarField& f : s.frequencies)
-        if (f.e_theta.size() != g.size() || f.e_phi.size() != g.size())
+        if (f.e_theta.size() != s.grid.size() || f.e_phi.size() != s.grid.size())
             return Error{"", 0, 0, "expected field arrays of the grid's size"};
-    const Ludwig3Reference ref = o.ludwig3_reference ? *o.ludwig3_reference : s.ludwig3_reference;
+    return std::nullopt;
+}
 
-    std::string out;
-    out.reserve(g.size() * s.frequencies.size() * (fam == CsvFamily::total_db ? 40 : 100) + 512);
+// The metadata lines and the header line.
+void put_head(std::string& out, const FarFieldSet& s, CsvFamily fam, Ludwig3Reference ref) {
     out += "# ellipsa far-field CSV, schema version 1\n";
     out += std::string("# quantity: ") + to_string(s.quantity) + "\n";
     out += "# time-convention: +jwt\n";
@@ -118,6 +121,62 @@ Result<std::string> format_far_field_csv(const FarFieldSet& s, const CsvWriteOpt
         case CsvFamily::magnitude_db: out += "e_theta_db,e_phi_db\n"; break;
         case CsvFamily::total_db: out += "e_total_db\n"; break;
     }
+}
+
+// Two fields as dB and phase: "a_db,a_phase,b_db,b_phase".
+void put_polar_pair(std::string& out, cplx a, cplx b) {
+    put_db(out, std::norm(a));
+    out += ',';
+    put_phase_deg(out, a);
+    out += ',';
+    put_db(out, std::norm(b));
+    out += ',';
+    put_phase_deg(out, b);
+}
+
+// The value cells of one sample in the family's columns.
+void put_values(std::string& out, CsvFamily fam, cplx et, cplx ep, double cos_phi, double sin_phi, Ludwig3Reference ref) {
+    switch (fam) {
+        case CsvFamily::complex:
+            put_number(out, et.real());
+            out += ',';
+            put_number(out, et.imag());
+            out += ',';
+            put_number(out, ep.real());
+            out += ',';
+            put_number(out, ep.imag());
+            break;
+        case CsvFamily::theta_phi_polar: put_polar_pair(out, et, ep); break;
+        case CsvFamily::circular_polar: put_polar_pair(out, rhcp(et, ep), lhcp(et, ep)); break;
+        case CsvFamily::ludwig3_polar: {
+            const CoCross cc = ludwig3(et, ep, cos_phi, sin_phi, ref);
+            put_polar_pair(out, cc.co, cc.cross);
+            break;
+        }
+        case CsvFamily::magnitude_db:
+            put_db(out, std::norm(et));
+            out += ',';
+            put_db(out, std::norm(ep));
+            break;
+        case CsvFamily::total_db: put_db(out, std::norm(et) + std::norm(ep)); break;
+    }
+}
+
+std::string_view number_text(char (&buf)[32], double v) {
+    auto r = std::to_chars(buf, buf + sizeof buf, v);
+    return std::string_view(buf, std::size_t(r.ptr - buf));
+}
+
+}  // namespace
+
+Result<std::string> format_far_field_csv(const FarFieldSet& s, const CsvWriteOptions& o) {
+    const CsvFamily fam = o.family;
+    if (auto refused = write_refusal(s, fam)) return *refused;
+    const Grid& g = s.grid;
+    const Ludwig3Reference ref = o.ludwig3_reference ? *o.ludwig3_reference : s.ludwig3_reference;
+    std::string out;
+    out.reserve(g.size() * s.frequencies.size() * (fam == CsvFamily::total_db ? 40 : 100) + 512);
+    put_head(out, s, fam, ref);
     std::vector<double> cos_phi(std::size_t(g.phi.count)), sin_phi(std::size_t(g.phi.count)), phi_deg(std::size_t(g.phi.count));
     for (int j = 0; j < g.phi.count; ++j) {
         phi_deg[std::size_t(j)] = wrap360(g.phi.value_deg(j));
@@ -125,70 +184,19 @@ Result<std::string> format_far_field_csv(const FarFieldSet& s, const CsvWriteOpt
         sin_phi[std::size_t(j)] = std::sin(phi_deg[std::size_t(j)] * deg);
     }
     for (const FarField& f : s.frequencies) {
-        char fbuf[32];
-        auto fr = std::to_chars(fbuf, fbuf + sizeof fbuf, f.frequency_hz);
-        const std::string_view ftext(fbuf, std::size_t(fr.ptr - fbuf));
+        char fbuf[32], tbuf[32];
+        const std::string_view ftext = number_text(fbuf, f.frequency_hz);
         for (int i = 0; i < g.theta.count; ++i) {
-            char tbuf[32];
-            auto tr = std::to_chars(tbuf, tbuf + sizeof tbuf, g.theta.value_deg(i));
-            const std::string_view ttext(tbuf, std::size_t(tr.ptr - tbuf));
+            const std::string_view ttext = number_text(tbuf, g.theta.value_deg(i));
             for (int j = 0; j < g.phi.count; ++j) {
-                const std::size_t k = g.index(i, j);
-                const cplx et = f.e_theta[k], ep = f.e_phi[k];
+                const std::size_t k = g.index(i, j), jj = std::size_t(j);
                 out += ftext;
                 out += ',';
                 out += ttext;
                 out += ',';
-                put_number(out, phi_deg[std::size_t(j)]);
+                put_number(out, phi_deg[jj]);
                 out += ',';
-                switch (fam) {
-                    case CsvFamily::complex:
-                        put_number(out, et.real());
-                        out += ',';
-                        put_number(out, et.imag());
-                        out += ',';
-                        put_number(out, ep.real());
-                        out += ',';
-                        put_number(out, ep.imag());
-                        break;
-                    case CsvFamily::theta_phi_polar:
-                        put_db(out, std::norm(et));
-                        out += ',';
-                        put_phase_deg(out, et);
-                        out += ',';
-                        put_db(out, std::norm(ep));
-                        out += ',';
-                        put_phase_deg(out, ep);
-                        break;
-                    case CsvFamily::circular_polar: {
-                        const cplx r = rhcp(et, ep), l = lhcp(et, ep);
-                        put_db(out, std::norm(r));
-                        out += ',';
-                        put_phase_deg(out, r);
-                        out += ',';
-                        put_db(out, std::norm(l));
-                        out += ',';
-                        put_phase_deg(out, l);
-                        break;
-                    }
-                    case CsvFamily::ludwig3_polar: {
-                        const CoCross cc = ludwig3(et, ep, cos_phi[std::size_t(j)], sin_phi[std::size_t(j)], ref);
-                        put_db(out, std::norm(cc.co));
-                        out += ',';
-                        put_phase_deg(out, cc.co);
-                        out += ',';
-                        put_db(out, std::norm(cc.cross));
-                        out += ',';
-                        put_phase_deg(out, cc.cross);
-                        break;
-                    }
-                    case CsvFamily::magnitude_db:
-                        put_db(out, std::norm(et));
-                        out += ',';
-                        put_db(out, std::norm(ep));
-                        break;
-                    case CsvFamily::total_db: put_db(out, std::norm(et) + std::norm(ep)); break;
-                }
+                put_values(out, fam, f.e_theta[k], f.e_phi[k], cos_phi[jj], sin_phi[jj], ref);
                 out += '\n';
             }
         }

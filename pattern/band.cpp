@@ -5,6 +5,7 @@
 #include <limits>
 #include <numeric>
 
+#include "pattern/components.hpp"
 #include "pattern/diversity_study.hpp"
 #include "pattern/interpolate.hpp"
 #include "pattern/polarisation.hpp"
@@ -27,9 +28,8 @@ std::vector<std::size_t> ascending(const FarFieldSet& s) {
 
 ArReading axial_ratio_at(const FarFieldSet& s, std::size_t fi, double theta_deg, double phi_deg) {
     ArReading r;
-    if (!s.has_phase()) {
-        r.unavailable_reason = std::string("the data are ") + to_string(s.content) +
-                               ": the axial ratio needs the phase between E_theta and E_phi";
+    if (auto why = polarisation_unavailable(s)) {
+        r.unavailable_reason = *why;
         return r;
     }
     const auto f = interpolate(s, fi, theta_deg, phi_deg);

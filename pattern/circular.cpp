@@ -3,6 +3,7 @@
 #include <cmath>
 #include <cstdio>
 
+#include "pattern/components.hpp"
 #include "pattern/integrate.hpp"
 #include "pattern/polarisation.hpp"
 
@@ -53,9 +54,8 @@ Crossing walk(const CutSamples& c, const std::vector<double>& m, int k0, int dir
 ArBeamwidth ar_beamwidth(const FarFieldSet& s, const CutSamples& c, int k0, double threshold_db) {
     ArBeamwidth r;
     r.threshold_db = threshold_db;
-    if (!s.has_phase()) {
-        r.unavailable_reason = std::string("the data are ") + to_string(s.content) +
-                               ": the axial ratio needs the phase between E_theta and E_phi";
+    if (auto why = polarisation_unavailable(s)) {
+        r.unavailable_reason = *why;
         return r;
     }
     const int n = int(c.angle_deg.size());

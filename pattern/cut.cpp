@@ -326,4 +326,45 @@ BeamFigures beam_figures(const std::vector<double>& angle_deg, const std::vector
     return b;
 }
 
+namespace {
+// Where the climb to the main lobe starts: the largest sample, the one at a non-negative angle
+// between equal maxima; -1 when no sample is positive.
+int climb_start(const std::vector<double>& p, const std::vector<double>& angle_deg) {
+    int best = -1;
+    for (std::size_t k = 0; k < p.size(); ++k) {
+        if (!(p[k] > 0)) continue;
+        if (best < 0) {
+            best = int(k);
+            continue;
+        }
+        const double b = p[std::size_t(best)];
+        const bool tie = std::abs(p[k] - b) <= 1e-9 * b;
+        if ((!tie && p[k] > b) || (tie && angle_deg[k] >= 0 && angle_deg[std::size_t(best)] < 0)) best = int(k);
+    }
+    return best;
+}
+}  // namespace
+
+Result<ComponentCut> compute_cut(const FarFieldSet& s, std::size_t fi, const CutSpec& spec,
+                                 const std::vector<Component>& components, double step_deg) {
+    if (fi >= s.frequencies.size()) return Error{"", 0, 0, "frequency index out of range"};
+    if (spec.kind == CutKind::theta_const && !(spec.theta_deg >= 0 && spec.theta_deg <= 180))
+        return Error{"", 0, 0, "a conical cut needs a polar angle theta from 0 to 180 deg"};
+    for (Component c : components)
+        if (auto why = component_unavailable(s, c)) return Error{"", 0, 0, *why};
+    ComponentCut d;
+    d.spec = spec;
+    d.freq_index = fi;
+    d.components = components;
+    d.samples = sample_cut(s, fi, spec, step_deg > 0 ? step_deg : default_cut_step(s.grid));
+    if (std::none_of(d.samples.valid.begin(), d.samples.valid.end(), [](unsigned char v) { return v != 0; }))
+        return Error{"", 0, 0, "the " + spec.label() + " cut lies entirely outside the sampled region"};
+    for (Component c : components) {
+        d.power.push_back(cut_power(s, d.samples, c));
+        const std::vector<double>& p = d.power.back();
+        d.beams.push_back(beam_figures(d.samples.angle_deg, p, climb_start(p, d.samples.angle_deg), spec.kind == CutKind::phi_const));
+    }
+    return d;
+}
+
 }  // namespace ellipsa

@@ -15,6 +15,7 @@
 #include "pattern/far_field.hpp"
 #include "pattern/components.hpp"
 #include "pattern/polarisation.hpp"
+#include "pattern/result.hpp"
 
 namespace ellipsa {
 
@@ -108,5 +109,25 @@ struct BeamFigures {
 // Cost: O(n) for the peak and crossings, O(n) per candidate lobe tried (the highest first).
 BeamFigures beam_figures(const std::vector<double>& angle_deg, const std::vector<double>& power,
                          int start_index = -1, bool mirrored_halves = false);
+
+// A cut of several components, as every front end shows and writes it (the viewer's cut panel,
+// its export, `ellipsa cut`, the report): one value from which the screen and the files draw.
+struct ComponentCut {
+    CutSpec spec;
+    std::size_t freq_index = 0;
+    CutSamples samples;
+    std::vector<Component> components;
+    std::vector<std::vector<double>> power;  // linear, per component, NaN outside the data
+    std::vector<BeamFigures> beams;          // per component; BeamShape::no_power for a zero curve
+};
+
+// Sample the cut and compute each component with its beam figures. step_deg <= 0 uses
+// default_cut_step(grid). The climb to the main lobe starts at the largest sample; between
+// equal maxima (a symmetric pattern) at the one with a non-negative angle, in the cut's own
+// half-plane rather than phi + 180. Errors: frequency index out of range, theta of a conical
+// cut outside 0..180, a component the data cannot give (component_unavailable's words), a cut
+// entirely outside the sampled region. Cost: one sample_cut and one pass per component.
+Result<ComponentCut> compute_cut(const FarFieldSet& s, std::size_t freq_index, const CutSpec& spec,
+                                 const std::vector<Component>& components, double step_deg = 0);
 
 }  // namespace ellipsa

@@ -75,7 +75,7 @@ py::dict cut(const Pattern& p, std::optional<double> phi_deg, std::optional<doub
     std::vector<Component> comps;
     for (const std::string& c : components) comps.push_back(component_named(c));
     const CutSpec spec = cut_spec(p, fi, phi_deg, theta_deg, through, along_phi);
-    const exports::CutData c = take(exports::compute_cut(p.set, fi, spec, comps, step_deg.value_or(0)));
+    const ComponentCut c = take(compute_cut(p.set, fi, spec, comps, step_deg.value_or(0)));
     py::dict d, power, beams;
     d["label"] = spec.label(), d["angle_name"] = spec.angle_name(), d["step_deg"] = c.samples.step_deg;
     d["frequency_hz"] = p.set.frequencies[fi].frequency_hz;

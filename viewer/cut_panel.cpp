@@ -13,7 +13,7 @@
 #include "viewer/panels.hpp"
 #include "viewer/widgets.hpp"
 #include "viewer/scene/components.hpp"
-#include "viewer/scene/plot_math.hpp"
+#include "pattern/db_scale.hpp"
 
 namespace ellipsa::viewer {
 
@@ -24,9 +24,10 @@ const ImU32 curve_colors[] = {IM_COL32(0, 114, 178, 255), IM_COL32(213, 94, 0, 2
                               IM_COL32(90, 90, 90, 255),   IM_COL32(240, 228, 66, 255), IM_COL32(0, 0, 0, 255)};
 const ImU32 ink = IM_COL32(34, 38, 46, 255), grid = IM_COL32(205, 206, 203, 255), muted = IM_COL32(95, 100, 108, 255);
 
-void plot_polar(ImDrawList* dl, ImVec2 c, float R, const CutData& cd, double top, double range) {
-    for (double lv : db_grid_levels(top, range)) {
-        const float r = R * float(polar_radius(lv, top, range));
+void plot_polar(ImDrawList* dl, ImVec2 c, float R, const CutData& cd, const DbScale& sc) {
+    const std::vector<double> rings = sc.rings();
+    for (double lv : rings) {
+        const float r = R * float(sc.fraction(lv));
         dl->AddCircle(c, r, grid, 72, 1.0f);
         if (r < 14) continue;
         char b[16];
@@ -66,26 +67,28 @@ void plot_polar(ImDrawList* dl, ImVec2 c, float R, const CutData& cd, double top
                 flush();
                 continue;
             }
-            pts.push_back(at(cd.angle_deg[j], R * float(polar_radius(v, top, range))));
+            pts.push_back(at(cd.angle_deg[j], R * float(sc.fraction(v))));
         }
         flush();
     }
     // -3 dB markers of the first curve.
-    if (!cd.figures) return;
-    const BeamFigures& bf = *cd.figures;
+    if (!cd.figures()) return;
+    const BeamFigures& bf = *cd.figures();
     for (const std::optional<double>& x : {bf.left_deg, bf.right_deg})
         if (x) {
-            const ImVec2 p = at(*x, R * float(polar_radius(bf.peak_db - 3.0103, top, range)));
+            const ImVec2 p = at(*x, R * float(sc.fraction(bf.peak_db - half_power_db)));
             dl->AddLine(c, p, IM_COL32(120, 120, 120, 200), 1.0f);
             dl->AddCircle(p, 4, ink, 12, 1.5f);
         }
 }
 
-void plot_rect(ImDrawList* dl, ImVec2 p0, ImVec2 p1, const CutData& cd, double top, double range) {
+void plot_rect(ImDrawList* dl, ImVec2 p0, ImVec2 p1, const CutData& cd, const DbScale& sc) {
     const double a0 = cd.angle_deg.front(), a1 = cd.angle_deg.front() + 360;
     auto X = [&](double a) { return p0.x + float((a - a0) / (a1 - a0)) * (p1.x - p0.x); };
-    auto Y = [&](double db) { return p1.y - float(polar_radius(db, top, range)) * (p1.y - p0.y); };
-    for (double lv : db_grid_levels(top, range)) {
+    auto Y = [&](double db) { return p1.y - float(sc.fraction(db)) * (p1.y - p0.y); };
+    std::vector<double> lines = sc.rings();
+    lines.push_back(sc.floor_db());
+    for (double lv : lines) {
         dl->AddLine(ImVec2(p0.x, Y(lv)), ImVec2(p1.x, Y(lv)), grid);
         char b[16];
         std::snprintf(b, sizeof b, "%g", lv);
@@ -118,9 +121,9 @@ void plot_rect(ImDrawList* dl, ImVec2 p0, ImVec2 p1, const CutData& cd, double t
         }
         flush();
     }
-    if (!cd.figures) return;
-    const BeamFigures& bf = *cd.figures;
-    const float y3 = Y(bf.peak_db - 3.0103);
+    if (!cd.figures()) return;
+    const BeamFigures& bf = *cd.figures();
+    const float y3 = Y(bf.peak_db - half_power_db);
     for (const std::optional<double>& x : {bf.left_deg, bf.right_deg})
         if (x && std::isfinite(*x)) {
             const double a = a0 + std::fmod(std::fmod(*x - a0, 360.0) + 360.0, 360.0);  // into [a0, a0 + 360)
@@ -143,7 +146,7 @@ void cut_controls(const AppState& s, const FarFieldSet& a, float width, Intents&
                                ImGuiSliderFlags_AlwaysClamp))
             st.cut_angle_deg = std::round(ang);
     } else {
-        ImGui::TextDisabled(s.pinned ? "along \u03c6-hat through the pin" : "click the surface to pin");
+        ImGui::TextDisabled(s.pinned ? "along \u03b8-hat (the meridian) through the pin" : "click the surface to pin");
     }
     ImGui::Checkbox("polar plot", &st.polar_plot);
     ImGui::SameLine();
@@ -183,11 +186,11 @@ void cut_legend(const AppState& s, const CutData& cd, ImDrawList* dl, float lx, 
         ly += 18;
     }
     ly += 6;
-    if (!cd.figures) {
+    if (!cd.figures()) {
         dl->AddText(ImVec2(lx, ly), ink, "first curve: no power on this cut");
         return;
     }
-    const BeamFigures& bf = *cd.figures;
+    const BeamFigures& bf = *cd.figures();
     char b[128];
     std::snprintf(b, sizeof b, "peak %.2f %s at %.1f\u00b0", bf.peak_db, cd.unit.c_str(), bf.peak_angle_deg);
     dl->AddText(ImVec2(lx, ly), ink, b);
@@ -204,6 +207,10 @@ void cut_legend(const AppState& s, const CutData& cd, ImDrawList* dl, float lx, 
 void cut_plot(const AppState& s, const CutData& cd) {
     const ViewerSettings& st = s.settings;
     if (!cd.valid || cd.angle_deg.empty() || !cd.peak_db) {
+        if (!cd.why.empty()) {
+            ImGui::TextWrapped("No cut: %s.", cd.why.c_str());
+            return;
+        }
         ImGui::TextDisabled(!cd.valid && st.cut_kind == 2 ? "Pin a direction to cut through it."
                             : !cd.valid                   ? "Choose at least one component."
                                                           : "No power on this cut: every chosen component is zero here.");
@@ -211,7 +218,7 @@ void cut_plot(const AppState& s, const CutData& cd) {
     }
     const ImVec2 o = ImGui::GetCursorScreenPos(), avail = ImGui::GetContentRegionAvail();
     ImDrawList* dl = ImGui::GetWindowDrawList();
-    const double range = st.range_db, top = plot_top_db(*cd.peak_db, range);
+    const DbScale sc = db_scale(*cd.peak_db, st.range_db);
     // The legend beside the plot, or below it when the panel is narrow.
     const bool below = avail.x < 380;
     const float legend_w = below ? 0 : std::max(150.0f, std::min(230.0f, avail.x - avail.y));
@@ -219,9 +226,9 @@ void cut_plot(const AppState& s, const CutData& cd) {
     const float plot_w = avail.x - legend_w, plot_h = std::max(60.0f, avail.y - legend_h);
     if (st.polar_plot) {
         const float R = std::max(20.0f, std::min(plot_w, plot_h) * 0.5f - 24);
-        plot_polar(dl, ImVec2(o.x + plot_w * 0.5f, o.y + plot_h * 0.5f), R, cd, top, range);
+        plot_polar(dl, ImVec2(o.x + plot_w * 0.5f, o.y + plot_h * 0.5f), R, cd, sc);
     } else {
-        plot_rect(dl, ImVec2(o.x + 40, o.y + 18), ImVec2(o.x + plot_w - 14, o.y + plot_h - 24), cd, top, range);
+        plot_rect(dl, ImVec2(o.x + 40, o.y + 18), ImVec2(o.x + plot_w - 14, o.y + plot_h - 24), cd, sc);
     }
     if (below) cut_legend(s, cd, dl, o.x + 4, o.y + plot_h + 4);
     else cut_legend(s, cd, dl, o.x + plot_w + 6, o.y + 4);

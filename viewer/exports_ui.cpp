@@ -19,26 +19,18 @@ bool something_at(const std::string& path) {
     return std::filesystem::exists(std::filesystem::symlink_status(path, ec));
 }
 
+// The file from the cut on screen: the same core values (CutData::a, b), not a second computation.
 Result<std::string> cut_bytes(const AppState& s, const CutData& cut, exports::FileFormat format) {
     const LoadedPattern* a = s.active_pattern();
-    std::vector<Component> comps;
-    for (const CutCurve& c : cut.curves)
-        if (c.pattern == 0) comps.push_back(c.component);
-    auto ca = exports::compute_cut(a->set, s.freq, cut.spec, comps);
-    if (!ca) return ca.error();
-    if (format == exports::FileFormat::csv) return exports::cut_csv(a->set, *ca);
+    if (format == exports::FileFormat::csv) return exports::cut_csv(a->set, *cut.a);
     exports::FigureOptions fo;
     fo.style = s.settings.polar_plot ? exports::PlotStyle::polar : exports::PlotStyle::rect;
     fo.range_db = s.settings.range_db;
-    exports::CutPlot plot = exports::make_cut_plot(a->set, *ca, fo);
-    if (const LoadedPattern* b = s.compare_pattern()) {
-        std::vector<Component> bc;
-        for (Component c : comps)
-            if (!component_unavailable(b->set, c)) bc.push_back(c);
-        if (auto cb = exports::compute_cut(b->set, s.freq_for(*b), cut.spec, bc)) {
-            for (exports::PlotCurve& c : plot.curves) c.label = a->set.name + ": " + c.label;
-            exports::add_curves(plot, b->set, *cb, b->set.name + ": ");
-        }
+    exports::CutPlot plot = exports::make_cut_plot(a->set, *cut.a, fo);
+    const LoadedPattern* b = s.compare_pattern();
+    if (b && cut.b) {
+        for (exports::PlotCurve& c : plot.curves) c.label = a->set.name + ": " + c.label;
+        exports::add_curves(plot, b->set, *cut.b, b->set.name + ": ");
     }
     return exports::render_image([&](cairo_t* cr, double w, double h) { exports::draw_cut_plot(cr, plot, w, h); }, format,
                                  exports::RenderSize{}, plot.title);
@@ -57,7 +49,7 @@ ExportOutcome write_export(const std::string& path, bool overwrite, const std::f
 }
 
 ExportOutcome export_cut_file(const AppState& s, const CutData& cut, const std::string& path, bool overwrite) {
-    if (!s.active_pattern() || !cut.valid) return {ExportOutcome::Status::failed, path, "no cut is shown"};
+    if (!s.active_pattern() || !cut.a) return {ExportOutcome::Status::failed, path, "no cut is shown"};
     const auto format = exports::format_from_path(path);
     if (!format) return {ExportOutcome::Status::failed, path, path + ": expected a .svg, .pdf, .png or .csv file name"};
     return write_export(path, overwrite, [&]() -> Status {

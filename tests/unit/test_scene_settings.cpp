@@ -4,7 +4,6 @@
 
 #include <cmath>
 
-#include "viewer/scene/plot_math.hpp"
 #include "viewer/scene/settings.hpp"
 
 using namespace ellipsa;
@@ -59,23 +58,6 @@ TEST_CASE("the recent-file list keeps the newest first, once, at most ten", "[sc
     CHECK(std::count(s.recent_files.begin(), s.recent_files.end(), "/f7") == 1);
 }
 
-TEST_CASE("cut plot dB grid: readable steps and levels", "[scene][plot]") {
-    // Common practice: 3 to 8 grid rings, steps of 3, 5, 10 or 20 dB.
-    CHECK(db_grid_step(20) == 3);
-    CHECK(db_grid_step(30) == 5);
-    CHECK(db_grid_step(60) == 10);
-    auto lv = db_grid_levels(5, 30);
-    REQUIRE(lv.size() == 7);
-    CHECK(lv.front() == 5);
-    CHECK(lv.back() == -25);
-    CHECK(plot_top_db(1.76, 30) == 5);
-    CHECK(plot_top_db(-3.2, 30) == 0);
-    CHECK(polar_radius(5, 5, 30) == 1);
-    CHECK(polar_radius(-10, 5, 30) == Approx(0.5));
-    CHECK(polar_radius(-100, 5, 30) == 0);
-    CHECK(std::isnan(polar_radius(NAN, 5, 30)));
-}
-
 TEST_CASE("settings values must be finite, in range and whole where they count", "[scene][settings]") {
     // NaN passes a check written as `d < lo || d > hi`; every such value must keep its default.
     std::vector<std::string> w;
@@ -109,14 +91,3 @@ TEST_CASE("a settings text full of problems reports a bounded list", "[scene][se
     CHECK(w.back() == "and 4980 more problems, not listed");
 }
 
-TEST_CASE("cut plot dB grid levels stay bounded for any top", "[scene][plot]") {
-    // A cut with no power once started the plot at -1e300, where `v -= 5` no longer changes v:
-    // the loop never ended and grew without bound.
-    CHECK(db_grid_levels(-1e300, 30).size() == 7);
-    CHECK(db_grid_levels(1e300, 30).size() == 7);
-    CHECK(db_grid_levels(-INFINITY, 30).empty());
-    CHECK(db_grid_levels(NAN, 30).empty());
-    CHECK(db_grid_levels(0, NAN).empty());
-    CHECK(db_grid_levels(0, 0).empty());
-    CHECK(db_grid_levels(0, 1e300).size() <= std::size_t(max_db_grid_levels));
-}

@@ -18,12 +18,17 @@ std::optional<CutSpec> cut_spec_for(const ViewerSettings& s, const std::optional
 }
 
 namespace {
-void add_curves(CutData& cd, const FarFieldSet& p, int which, const CutSamples& c, unsigned components) {
-    for (Component comp : all_components) {
-        if (!((components >> unsigned(comp)) & 1u)) continue;
-        if (component_unavailable(p, comp)) continue;
-        CutCurve cv{comp, which, {}};
-        for (double v : cut_power(p, c, comp)) cv.db.push_back(std::isnan(v) ? v : to_db(v));
+std::vector<Component> available(const FarFieldSet& p, unsigned components) {
+    std::vector<Component> out;
+    for (Component comp : all_components)
+        if (((components >> unsigned(comp)) & 1u) && !component_unavailable(p, comp)) out.push_back(comp);
+    return out;
+}
+void add_curves(CutData& cd, const ComponentCut& c, int which) {
+    for (std::size_t i = 0; i < c.components.size(); ++i) {
+        CutCurve cv{c.components[i], which, {}, c.beams[i]};
+        cv.db.reserve(c.power[i].size());
+        for (double v : c.power[i]) cv.db.push_back(std::isnan(v) ? v : to_db(v));
         cd.curves.push_back(std::move(cv));
     }
 }
@@ -34,27 +39,28 @@ CutData build_cut_data(const FarFieldSet& a, std::size_t fa, const FarFieldSet* 
     CutData cd;
     cd.spec = spec;
     const double step = std::max(0.25, default_cut_step(a.grid));
-    CutSamples cs = sample_cut(a, fa, spec, step);
-    cd.angle_deg = cs.angle_deg;
-    cd.theta_deg = cs.theta_deg;
-    cd.phi_deg = cs.phi_deg;
-    cd.unit = db_unit(a.quantity, Component::total);
-    add_curves(cd, a, 0, cs, components);
-    if (b) {
-        CutSamples cb = sample_cut(*b, fb, spec, step);
-        if (cb.angle_deg.size() == cs.angle_deg.size()) add_curves(cd, *b, 1, cb, components);
+    const std::vector<Component> ca = available(a, components);
+    if (ca.empty()) return cd;
+    auto cut_a = compute_cut(a, fa, spec, ca, step);
+    if (!cut_a) {
+        cd.why = cut_a.error().message;
+        return cd;
     }
-    if (cd.curves.empty()) return cd;
+    cd.a = std::move(*cut_a);
+    cd.angle_deg = cd.a->samples.angle_deg;
+    add_curves(cd, *cd.a, 0);
+    if (b) {
+        auto cut_b = compute_cut(*b, fb, spec, available(*b, components), cd.a->samples.step_deg);
+        if (cut_b && cut_b->samples.angle_deg.size() == cd.angle_deg.size()) {
+            cd.b = std::move(*cut_b);
+            add_curves(cd, *cd.b, 1);
+        }
+    }
     cd.valid = true;
     cd.unit = db_unit(a.quantity, cd.curves[0].component);
     for (const CutCurve& cv : cd.curves)
         for (double v : cv.db)
             if (std::isfinite(v)) cd.peak_db = cd.peak_db ? std::max(*cd.peak_db, v) : v;
-    const std::vector<double>& first = cd.curves[0].db;
-    if (std::none_of(first.begin(), first.end(), [](double v) { return std::isfinite(v); })) return cd;  // nothing to measure
-    std::vector<double> lin;
-    for (double v : first) lin.push_back(std::isnan(v) ? v : std::pow(10.0, v / 10));
-    cd.figures = beam_figures(cd.angle_deg, lin, -1, spec.kind == CutKind::phi_const);
     return cd;
 }
 

@@ -30,8 +30,10 @@ std::vector<double> other_power_on_grid(const FarFieldSet& a, const FarFieldSet&
 }
 }  // namespace
 
-Result<SurfaceMesh> build_surface(const FarFieldSet& s, std::size_t k, const SurfaceOptions& o,
-                                  const FarFieldSet* other, std::size_t kb) {
+namespace {
+
+std::optional<Error> surface_refusal(const FarFieldSet& s, std::size_t k, const SurfaceOptions& o, const FarFieldSet* other,
+                                     std::size_t kb) {
     if (k >= s.frequencies.size()) return Error{s.source, 0, 0, "frequency index out of range"};
     if (auto why = component_unavailable(s, o.component)) return Error{s.source, 0, 0, *why};
     if (auto why = color_by_unavailable(s, o.color_by)) return Error{s.source, 0, 0, *why};
@@ -41,95 +43,115 @@ Result<SurfaceMesh> build_surface(const FarFieldSet& s, std::size_t k, const Sur
         if (kb >= other->frequencies.size()) return Error{other->source, 0, 0, "frequency index out of range"};
     }
     if (!(o.range_db > 0)) return Error{"", 0, 0, "dynamic range must be positive"};
+    return std::nullopt;
+}
 
-    const Grid& g = s.grid;
-    const int nt = g.theta.count, np = g.phi.count;
-    const bool wraps = g.phi_wraps();
-    SurfaceMesh m;
-    m.rows = nt;
-    m.cols = np + (wraps ? 1 : 0);
-    m.unit = db_unit(s.quantity, o.component);
+constexpr std::size_t min_block = 20000;
 
-    // Trigonometry once per row and column, not per sample.
-    const std::size_t nt_u = static_cast<std::size_t>(nt), np_u = static_cast<std::size_t>(np);
-    std::vector<double> sin_t(nt_u), cos_t(nt_u), sin_p(np_u), cos_p(np_u);
-    for (int i = 0; i < nt; ++i) sin_t[std::size_t(i)] = std::sin(g.theta.value_deg(i) * deg), cos_t[std::size_t(i)] = std::cos(g.theta.value_deg(i) * deg);
-    for (int j = 0; j < np; ++j) sin_p[std::size_t(j)] = std::sin(g.phi.value_deg(j) * deg), cos_p[std::size_t(j)] = std::cos(g.phi.value_deg(j) * deg);
-    const FarField& f = s.frequencies[k];
-    const std::size_t ns = g.size();
-    constexpr std::size_t min_block = 20000;
+// Trigonometry once per row and column, not per sample.
+struct GridTrig {
+    std::vector<double> sin_t, cos_t, sin_p, cos_p;
+    explicit GridTrig(const Grid& g) {
+        for (int i = 0; i < g.theta.count; ++i) {
+            sin_t.push_back(std::sin(g.theta.value_deg(i) * deg));
+            cos_t.push_back(std::cos(g.theta.value_deg(i) * deg));
+        }
+        for (int j = 0; j < g.phi.count; ++j) {
+            sin_p.push_back(std::sin(g.phi.value_deg(j) * deg));
+            cos_p.push_back(std::cos(g.phi.value_deg(j) * deg));
+        }
+    }
+    Vec3 radial(std::size_t i, std::size_t j) const { return {sin_t[i] * cos_p[j], sin_t[i] * sin_p[j], cos_t[i]}; }
+};
 
-    // Component in dB and its peak.
-    std::vector<double> value_db(ns);
-    parallel_blocks(std::size_t(nt), std::max<std::size_t>(1, min_block / np_u), [&](std::size_t ia, std::size_t ib) {
-        component_power_grid(s, k, o.component, value_db.data(), int(ia), int(ib));
-        for (std::size_t n = ia * np_u; n < ib * np_u; ++n) value_db[n] = db_of(value_db[n]);
+// The shown component in dB over the grid; its peak (0 for an all-zero component: flat at the origin).
+std::vector<double> component_db(const FarFieldSet& s, std::size_t k, Component c, double& peak) {
+    const std::size_t np = std::size_t(s.grid.phi.count);
+    std::vector<double> value_db(s.grid.size());
+    parallel_blocks(std::size_t(s.grid.theta.count), std::max<std::size_t>(1, min_block / np), [&](std::size_t ia, std::size_t ib) {
+        component_power_grid(s, k, c, value_db.data(), int(ia), int(ib));
+        for (std::size_t n = ia * np; n < ib * np; ++n) value_db[n] = db_of(value_db[n]);
     });
-    double peak = -std::numeric_limits<double>::infinity();
+    peak = -std::numeric_limits<double>::infinity();
     for (double v : value_db) peak = std::max(peak, v);
-    if (!std::isfinite(peak)) peak = 0;  // an all-zero component: flat at the origin
-    m.peak_db = peak;
-    m.floor_db = peak - o.range_db;
+    if (!std::isfinite(peak)) peak = 0;
+    return value_db;
+}
 
-    // Colour values in [0, 1] (NaN: no value, grey) and the colour bar.
-    std::vector<double> t(ns);
-    ColorBar& bar = m.bar;
+ColorBar colour_bar(const FarFieldSet& s, const SurfaceOptions& o, const SurfaceMesh& m) {
     const std::string comp_name = short_label(o.component);
+    switch (o.color_by) {
+        case ColorBy::component: return {o.gain_map, m.floor_db, m.peak_db, std::string(quantity_label(s.quantity)) + ": " + comp_name, m.unit};
+        case ColorBy::axial_ratio: return {o.gain_map, 0, o.axial_ratio_max_db, "Axial ratio", "dB"};
+        case ColorBy::circular_balance: return {ColorMap::diverging, -o.balance_range_db, o.balance_range_db, "RHCP minus LHCP", "dB"};
+        case ColorBy::tilt: return {ColorMap::cyclic, -90, 90, "Tilt from theta toward phi", "deg"};
+        case ColorBy::difference: return {ColorMap::diverging, -o.difference_range_db, o.difference_range_db, comp_name + ": A minus B", "dB"};
+    }
+    return {};
+}
+
+// One sample's colour value in [0, 1] (NaN: no value, grey).
+double colour_value(const SurfaceOptions& o, const SurfaceMesh& m, cplx et, cplx ep, double value_db, double other_power) {
+    switch (o.color_by) {
+        case ColorBy::component: return radius_from_db(value_db, m.peak_db, o.range_db);
+        case ColorBy::axial_ratio: {
+            const double ar = axial_ratio_from_circular(std::norm(rhcp(et, ep)), std::norm(lhcp(et, ep)));
+            return std::isnan(ar) ? ar : std::min(20 * std::log10(ar), o.axial_ratio_max_db) / o.axial_ratio_max_db;
+        }
+        case ColorBy::circular_balance: {
+            const double r = std::norm(rhcp(et, ep)), l = std::norm(lhcp(et, ep));
+            return (r > 0 || l > 0) ? 0.5 + 0.5 * std::clamp(10 * std::log10(std::max(r, 1e-300) / std::max(l, 1e-300)) / o.balance_range_db, -1.0, 1.0)
+                                    : std::numeric_limits<double>::quiet_NaN();
+        }
+        case ColorBy::tilt: return (tilt_deg(stokes(et, ep)) + 90) / 180;
+        case ColorBy::difference: {
+            const double d = value_db - db_of(other_power);
+            // Where A is below the floor the difference is not shown (grey), nor where B is unknown.
+            return (value_db > m.floor_db && std::isfinite(d)) ? 0.5 + 0.5 * std::clamp(d / o.difference_range_db, -1.0, 1.0)
+                                                               : std::numeric_limits<double>::quiet_NaN();
+        }
+    }
+    return std::numeric_limits<double>::quiet_NaN();
+}
+
+std::vector<double> colour_values(const FarFieldSet& s, std::size_t k, const SurfaceOptions& o, const SurfaceMesh& m,
+                                  const std::vector<double>& value_db, const FarFieldSet* other, std::size_t kb) {
+    const FarField& f = s.frequencies[k];
     std::vector<double> pb;
     if (o.color_by == ColorBy::difference) pb = other_power_on_grid(s, *other, kb, o.component);
-    switch (o.color_by) {
-        case ColorBy::component: bar = {o.gain_map, m.floor_db, m.peak_db, std::string(quantity_label(s.quantity)) + ": " + comp_name, m.unit}; break;
-        case ColorBy::axial_ratio: bar = {o.gain_map, 0, o.axial_ratio_max_db, "Axial ratio", "dB"}; break;
-        case ColorBy::circular_balance: bar = {ColorMap::diverging, -o.balance_range_db, o.balance_range_db, "RHCP minus LHCP", "dB"}; break;
-        case ColorBy::tilt: bar = {ColorMap::cyclic, -90, 90, "Tilt from theta toward phi", "deg"}; break;
-        case ColorBy::difference: bar = {ColorMap::diverging, -o.difference_range_db, o.difference_range_db, comp_name + ": A minus B", "dB"}; break;
-    }
-    parallel_blocks(ns, min_block, [&](std::size_t a, std::size_t b) {
-        for (std::size_t n = a; n < b; ++n) {
-            const cplx et = f.e_theta[n], ep = f.e_phi[n];
-            switch (o.color_by) {
-                case ColorBy::component: t[n] = radius_from_db(value_db[n], peak, o.range_db); break;
-                case ColorBy::axial_ratio: {
-                    const double ar = axial_ratio_from_circular(std::norm(rhcp(et, ep)), std::norm(lhcp(et, ep)));
-                    t[n] = std::isnan(ar) ? ar : std::min(20 * std::log10(ar), o.axial_ratio_max_db) / o.axial_ratio_max_db;
-                    break;
-                }
-                case ColorBy::circular_balance: {
-                    const double r = std::norm(rhcp(et, ep)), l = std::norm(lhcp(et, ep));
-                    t[n] = (r > 0 || l > 0) ? 0.5 + 0.5 * std::clamp(10 * std::log10(std::max(r, 1e-300) / std::max(l, 1e-300)) / o.balance_range_db, -1.0, 1.0)
-                                            : std::numeric_limits<double>::quiet_NaN();
-                    break;
-                }
-                case ColorBy::tilt: t[n] = (tilt_deg(stokes(et, ep)) + 90) / 180; break;
-                case ColorBy::difference: {
-                    const double d = value_db[n] - db_of(pb[n]);
-                    // Where A is below the floor the difference is not shown (grey), nor where B is unknown.
-                    t[n] = (value_db[n] > m.floor_db && std::isfinite(d)) ? 0.5 + 0.5 * std::clamp(d / o.difference_range_db, -1.0, 1.0)
-                                                                          : std::numeric_limits<double>::quiet_NaN();
-                    break;
-                }
-            }
-        }
+    std::vector<double> t(value_db.size());
+    parallel_blocks(t.size(), min_block, [&](std::size_t a, std::size_t b) {
+        for (std::size_t n = a; n < b; ++n) t[n] = colour_value(o, m, f.e_theta[n], f.e_phi[n], value_db[n], pb.empty() ? 0.0 : pb[n]);
     });
+    return t;
+}
 
-    // Positions, radii and colours.
-    m.radius.resize(ns);
-    m.vertices.resize(std::size_t(nt) * m.cols * surface_floats_per_vertex);
-    const std::size_t cols = std::size_t(m.cols);
-    parallel_blocks(std::size_t(nt), std::max<std::size_t>(1, min_block / cols), [&](std::size_t ia, std::size_t ib) {
+// Positions, radii and colours.
+void fill_vertices(SurfaceMesh& m, const Grid& g, const GridTrig& tr, const std::vector<double>& value_db,
+                   const std::vector<double>& t, double range_db) {
+    const std::size_t np = std::size_t(g.phi.count), cols = std::size_t(m.cols);
+    m.radius.resize(g.size());
+    m.vertices.resize(std::size_t(m.rows) * cols * surface_floats_per_vertex);
+    parallel_blocks(std::size_t(m.rows), std::max<std::size_t>(1, min_block / cols), [&](std::size_t ia, std::size_t ib) {
         for (std::size_t i = ia; i < ib; ++i)
             for (std::size_t j = 0; j < cols; ++j) {
-                const std::size_t jj = j % std::size_t(np), n = i * std::size_t(np) + jj;
-                const double r = radius_from_db(value_db[n], peak, o.range_db);
+                const std::size_t jj = j % np, n = i * np + jj;
+                const double r = radius_from_db(value_db[n], m.peak_db, range_db);
                 m.radius[n] = float(r);
                 float* v = &m.vertices[(i * cols + j) * surface_floats_per_vertex];
-                v[0] = float(r * sin_t[i] * cos_p[jj]), v[1] = float(r * sin_t[i] * sin_p[jj]), v[2] = float(r * cos_t[i]);
-                const Rgb c = map_color(bar.map, t[n]);
+                const Vec3 u = tr.radial(i, jj);
+                v[0] = float(r * u.x), v[1] = float(r * u.y), v[2] = float(r * u.z);
+                const Rgb c = map_color(m.bar.map, t[n]);
                 v[6] = c.r, v[7] = c.g, v[8] = c.b;
             }
     });
-    // Normals from central differences on the grid (one-sided at the edges); where the surface
-    // degenerates (poles, the origin) the radial direction stands in.
+}
+
+// Normals from central differences on the grid (one-sided at the edges); where the surface
+// degenerates (poles, the origin) the radial direction stands in.
+void fill_normals(SurfaceMesh& m, const GridTrig& tr, int np, bool wraps) {
+    const int nt = m.rows;
+    const std::size_t cols = std::size_t(m.cols);
     auto P = [&](int i, int j) {
         const float* v = &m.vertices[(std::size_t(i) * cols + std::size_t(j)) * surface_floats_per_vertex];
         return Vec3{v[0], v[1], v[2]};
@@ -138,17 +160,10 @@ Result<SurfaceMesh> build_surface(const FarFieldSet& s, std::size_t k, const Sur
         for (int i = int(ia); i < int(ib); ++i) {
             const int i0 = std::max(i - 1, 0), i1 = std::min(i + 1, nt - 1);
             for (int j = 0; j < m.cols; ++j) {
-                int j0, j1;
-                if (wraps) {
-                    j0 = (j % np + np - 1) % np;
-                    j1 = (j % np + 1) % np;
-                } else {
-                    j0 = std::max(j - 1, 0);
-                    j1 = std::min(j + 1, m.cols - 1);
-                }
+                const int j0 = wraps ? (j % np + np - 1) % np : std::max(j - 1, 0);
+                const int j1 = wraps ? (j % np + 1) % np : std::min(j + 1, m.cols - 1);
                 Vec3 nrm = cross(P(i1, j) - P(i0, j), P(i, j1) - P(i, j0));
-                const std::size_t jj = std::size_t(j % np);
-                const Vec3 radial{sin_t[std::size_t(i)] * cos_p[jj], sin_t[std::size_t(i)] * sin_p[jj], cos_t[std::size_t(i)]};
+                const Vec3 radial = tr.radial(std::size_t(i), std::size_t(j % np));
                 if (norm(nrm) < 1e-12) nrm = radial;
                 nrm = normalized(nrm);
                 if (dot(nrm, radial) < 0) nrm = -1.0 * nrm;
@@ -157,7 +172,11 @@ Result<SurfaceMesh> build_surface(const FarFieldSet& s, std::size_t k, const Sur
             }
         }
     });
-    // Triangles: two per grid cell.
+}
+
+// Triangles: two per grid cell.
+void fill_triangles(SurfaceMesh& m) {
+    const int nt = m.rows;
     m.triangles.resize(std::size_t(std::max(nt - 1, 0)) * std::size_t(std::max(m.cols - 1, 0)) * 6);
     const std::size_t bands = std::size_t(std::max(nt - 1, 0)), per_band = std::size_t(std::max(m.cols - 1, 0)) * 6;
     parallel_blocks(bands, std::max<std::size_t>(1, 4 * min_block / std::max<std::size_t>(per_band, 1)), [&](std::size_t ia, std::size_t ib) {
@@ -170,37 +189,64 @@ Result<SurfaceMesh> build_surface(const FarFieldSet& s, std::size_t k, const Sur
             }
         }
     });
-    // Coarser levels of detail over the same vertices.
-    auto coarse = [&](int k, std::vector<std::uint32_t>& out) {
-        std::vector<int> rows_k, cols_k;
-        for (int i = 0; i < nt; i += k) rows_k.push_back(i);
-        if (rows_k.back() != nt - 1) rows_k.push_back(nt - 1);
-        for (int j = 0; j < m.cols; j += k) cols_k.push_back(j);
-        if (cols_k.back() != m.cols - 1) cols_k.push_back(m.cols - 1);
-        out.resize((rows_k.size() - 1) * (cols_k.size() - 1) * 6);
-        std::uint32_t* w = out.data();
-        for (std::size_t a = 0; a + 1 < rows_k.size(); ++a)
-            for (std::size_t b = 0; b + 1 < cols_k.size(); ++b) {
-                const std::uint32_t v00 = std::uint32_t(rows_k[a] * m.cols + cols_k[b]), v01 = std::uint32_t(rows_k[a] * m.cols + cols_k[b + 1]);
-                const std::uint32_t v10 = std::uint32_t(rows_k[a + 1] * m.cols + cols_k[b]), v11 = std::uint32_t(rows_k[a + 1] * m.cols + cols_k[b + 1]);
-                w[0] = v00, w[1] = v10, w[2] = v01, w[3] = v01, w[4] = v10, w[5] = v11;
-                w += 6;
-            }
-    };
-    m.grid_step_deg = std::min(g.theta.step_deg, g.phi.step_deg);
-    if (nt > 8 && m.cols > 8) {
-        coarse(2, m.triangles_stride2);
-        coarse(4, m.triangles_stride4);
-    }
-    // Wireframe: meridians and parallels every wire_step_deg (nearest grid lines).
-    const int step = std::max(1, int(std::lround(o.wire_step_deg / std::max(g.theta.step_deg, 1e-9))));
-    const int pstep = std::max(1, int(std::lround(o.wire_step_deg / std::max(g.phi.step_deg, 1e-9))));
-    for (int i = 0; i < nt; i += step)
+}
+
+// A coarser level of detail over the same vertices: every k-th grid line, the last row and column kept.
+std::vector<std::uint32_t> coarse_triangles(const SurfaceMesh& m, int k) {
+    std::vector<int> rows_k, cols_k;
+    for (int i = 0; i < m.rows; i += k) rows_k.push_back(i);
+    if (rows_k.back() != m.rows - 1) rows_k.push_back(m.rows - 1);
+    for (int j = 0; j < m.cols; j += k) cols_k.push_back(j);
+    if (cols_k.back() != m.cols - 1) cols_k.push_back(m.cols - 1);
+    std::vector<std::uint32_t> out((rows_k.size() - 1) * (cols_k.size() - 1) * 6);
+    std::uint32_t* w = out.data();
+    for (std::size_t a = 0; a + 1 < rows_k.size(); ++a)
+        for (std::size_t b = 0; b + 1 < cols_k.size(); ++b) {
+            const std::uint32_t v00 = std::uint32_t(rows_k[a] * m.cols + cols_k[b]), v01 = std::uint32_t(rows_k[a] * m.cols + cols_k[b + 1]);
+            const std::uint32_t v10 = std::uint32_t(rows_k[a + 1] * m.cols + cols_k[b]), v11 = std::uint32_t(rows_k[a + 1] * m.cols + cols_k[b + 1]);
+            w[0] = v00, w[1] = v10, w[2] = v01, w[3] = v01, w[4] = v10, w[5] = v11;
+            w += 6;
+        }
+    return out;
+}
+
+// Wireframe: meridians and parallels every wire_step_deg (nearest grid lines).
+void fill_wire(SurfaceMesh& m, const Grid& g, int wire_step_deg) {
+    const int step = std::max(1, int(std::lround(wire_step_deg / std::max(g.theta.step_deg, 1e-9))));
+    const int pstep = std::max(1, int(std::lround(wire_step_deg / std::max(g.phi.step_deg, 1e-9))));
+    for (int i = 0; i < m.rows; i += step)
         for (int j = 0; j + 1 < m.cols; ++j)
             m.wire_lines.insert(m.wire_lines.end(), {std::uint32_t(i * m.cols + j), std::uint32_t(i * m.cols + j + 1)});
     for (int j = 0; j < m.cols; j += pstep)
-        for (int i = 0; i + 1 < nt; ++i)
+        for (int i = 0; i + 1 < m.rows; ++i)
             m.wire_lines.insert(m.wire_lines.end(), {std::uint32_t(i * m.cols + j), std::uint32_t((i + 1) * m.cols + j)});
+}
+
+}  // namespace
+
+Result<SurfaceMesh> build_surface(const FarFieldSet& s, std::size_t k, const SurfaceOptions& o,
+                                  const FarFieldSet* other, std::size_t kb) {
+    if (auto refused = surface_refusal(s, k, o, other, kb)) return *refused;
+    const Grid& g = s.grid;
+    const bool wraps = g.phi_wraps();
+    SurfaceMesh m;
+    m.rows = g.theta.count;
+    m.cols = g.phi.count + (wraps ? 1 : 0);
+    m.unit = db_unit(s.quantity, o.component);
+    const GridTrig trig(g);
+    const std::vector<double> value_db = component_db(s, k, o.component, m.peak_db);
+    m.floor_db = m.peak_db - o.range_db;
+    m.bar = colour_bar(s, o, m);
+    const std::vector<double> t = colour_values(s, k, o, m, value_db, other, kb);
+    fill_vertices(m, g, trig, value_db, t, o.range_db);
+    fill_normals(m, trig, g.phi.count, wraps);
+    fill_triangles(m);
+    m.grid_step_deg = std::min(g.theta.step_deg, g.phi.step_deg);
+    if (m.rows > 8 && m.cols > 8) {
+        m.triangles_stride2 = coarse_triangles(m, 2);
+        m.triangles_stride4 = coarse_triangles(m, 4);
+    }
+    fill_wire(m, g, o.wire_step_deg);
     return m;
 }
 

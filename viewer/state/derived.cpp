@@ -150,7 +150,7 @@ DerivedChanges refresh(Derived& d, const AppState& s, bool interacting) {
     d.cut.update(ck, [&] { return build_cut_view(s, w); });
     c.ring = d.ring.update(RingKey{sk, ck}, [&] {
         const CutData& cd = d.cut.value();
-        return cd.valid ? build_cut_ring(w.a->set, mesh, cd.theta_deg, cd.phi_deg, {0.10f, 0.10f, 0.12f}) : LineSet{};
+        return cd.a ? build_cut_ring(w.a->set, mesh, cd.a->samples.theta_deg, cd.a->samples.phi_deg, {0.10f, 0.10f, 0.12f}) : LineSet{};
     });
     d.hover.update(ProbeKey{w.a_id, w.b_id, w.fa, w.fb, s.hover}, [&] { return probe_at(w, s.hover); });
     d.pinned.update(ProbeKey{w.a_id, w.b_id, w.fa, w.fb, s.pinned}, [&] { return probe_at(w, s.pinned); });
