@@ -197,7 +197,9 @@ Registered add_band(CLI::App& root) {
     CLI::App* sub = root.add_subcommand(
         "band", "Figures against frequency (gain, efficiency, MEG, axial ratio, HPBW, ECC) as a plot, CSV or JSON");
     sub->add_option("FILE", a->files, "Far-field CSV files (one or more; several are overlaid)")->required();
-    sub->add_option("--out", a->out, "Output file: .svg, .png, .pdf (the plot), .csv or .json (the values)")->required();
+    sub->add_option("--out", a->out, "Output file: .svg, .png, .pdf (the plot), .csv or .json (the values)")
+        ->required()
+        ->type_name("FILE");
     sub->add_option("--show", a->show,
                     "Panels, comma-separated: gain, efficiency, meg, axial-ratio, hpbw, front-to-back, ar-beamwidth, "
                     "ecc, diversity-gain (default gain,efficiency,axial-ratio,hpbw; ecc added with --pair)");

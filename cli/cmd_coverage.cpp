@@ -182,7 +182,8 @@ Registered add_coverage(CLI::App& root) {
     CLI::App* sub = root.add_subcommand(
         "coverage", "Share of the sphere (or an elevation band) where each component reaches a level; best of two patterns");
     sub->add_option("FILE", a->files, "Far-field CSV file, or two for the best of both in every direction")->required();
-    sub->add_option("--out", a->out, "Also write the curves: .svg, .png, .pdf (plot), .csv or .json (values)");
+    sub->add_option("--out", a->out, "Also write the curves: .svg, .png, .pdf (plot), .csv or .json (values)")
+        ->type_name("FILE");
     sub->add_option("--components", a->components,
                     "Comma-separated components (default total, vertical, horizontal, and rhcp, lhcp with phase; total for two files)");
     sub->add_option("--levels", a->levels, "Levels for the table, dB, comma-separated (default 0,-3,-6,-10)");

@@ -135,7 +135,7 @@ Registered add_cut(CLI::App& root) {
     sub->add_option("--step", a->step_deg, "Cut sample step, deg (default: a quarter of the grid step)")
         ->check(CLI::Range(0.01, 10.0));
     sub->add_flag("--force", a->force, "Replace the output file if it exists");
-    sub->add_option("--out", a->out, "Output file: .svg, .png, .pdf or .csv")->required();
+    sub->add_option("--out", a->out, "Output file: .svg, .png, .pdf or .csv")->required()->type_name("FILE");
     add_load_options(sub, a->load);
     return {sub, [a]() -> int { return run_cut(*a); }};
 }

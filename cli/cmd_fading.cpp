@@ -349,13 +349,14 @@ Registered add_fading(CLI::App& root) {
     sub->add_option("--polarisation", a->polarisation,
                     "Its polarisation: vertical (default), horizontal, slant+45, slant-45, rhcp, lhcp");
     sub->add_option("--partner", a->partner,
-                    "Its polarisation is the field this link-partner antenna file sends toward us from the --dominant direction");
+                    "Its polarisation is the field this link-partner antenna file sends toward us from the --dominant direction")
+        ->type_name("FILE");
     sub->add_flag("--random-orientation", a->random_orientation,
                   "Turn the antennas (together) to a random orientation in each realisation, uniform over all");
     sub->add_option("--tilt-max", a->tilt_max_deg,
                     "With a random orientation: keep the up axis within this tilt of vertical, deg (implies --random-orientation)");
     sub->add_option("--threads", a->sim.threads, "Threads (the result does not depend on it)");
-    sub->add_option("--plot", a->plot, "Write the distribution curves: .svg, .png, .pdf or .csv");
+    sub->add_option("--plot", a->plot, "Write the distribution curves: .svg, .png, .pdf or .csv")->type_name("FILE");
     sub->add_option("--size", a->size, "Plot size WIDTHxHEIGHT in pixels (default 1200x900)");
     sub->add_option("--dpi", a->dpi, "Plot dots per inch (default 150)");
     sub->add_flag("--force", a->force, "Replace the plot file if it exists");

@@ -114,11 +114,14 @@ Registered add_map(CLI::App& root) {
     CLI::App* sub = root.add_subcommand(
         "map", "Whole-sphere map (equal-area Hammer or rectangular) of a component, axial ratio, balance, tilt or A minus B");
     sub->add_option("FILE", a->file, "Far-field CSV file")->required();
-    sub->add_option("--out", a->out, "Output file: .svg, .png, .pdf (the map) or .csv (the mapped values)")->required();
+    sub->add_option("--out", a->out, "Output file: .svg, .png, .pdf (the map) or .csv (the mapped values)")
+        ->required()
+        ->type_name("FILE");
     sub->add_option("--show", a->show,
                     "What to map: a component (total, theta, phi, vertical, horizontal, co, cross, rhcp, lhcp) or "
                     "axial-ratio, rhcp-minus-lhcp, v-minus-h, tilt (default total)");
-    sub->add_option("--minus", a->minus, "Second pattern B: map the shown component of FILE minus B (dB)");
+    sub->add_option("--minus", a->minus, "Second pattern B: map the shown component of FILE minus B (dB)")
+        ->type_name("FILE");
     sub->add_option("--projection", a->projection, "hammer (equal-area, default), theta-phi or az-el");
     sub->add_option("--levels", a->levels, "Contour levels in the map's unit, comma-separated, or none");
     sub->add_option("--bar", a->scale, "Colour bar ends MIN,MAX in the map's unit");

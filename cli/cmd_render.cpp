@@ -51,7 +51,8 @@ Registered add_render(CLI::App& root) {
     CLI::App* sub = root.add_subcommand("render", "Write a 3D snapshot of a pattern (PNG, with colour bar); needs no display");
     sub->add_option("FILE", a->file, "Far-field CSV file")->required();
     sub->add_option("--out", a->out, "Output file: .png (a snapshot), .glb (glTF 2.0 binary) or .ply (the surface as a 3D file)")
-        ->required();
+        ->required()
+        ->type_name("FILE");
     sub->add_option("--component", a->component,
                     "Radius from: total, theta, phi, vertical, horizontal, co, cross, rhcp, lhcp (default total)");
     sub->add_option("--color-by", a->color_by,

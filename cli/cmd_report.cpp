@@ -121,7 +121,7 @@ Registered add_report(CLI::App& root) {
     CLI::App* sub = root.add_subcommand(
         "report", "Write a report folder (index.html + report.md): figures, principal cuts, comparison");
     sub->add_option("FILE", a->files, "Far-field CSV files (one or more)")->required();
-    sub->add_option("--out", a->out, "Output folder (created; replaced only with --force)")->required();
+    sub->add_option("--out", a->out, "Output folder (created; replaced only with --force)")->required()->type_name("FOLDER");
     sub->add_option("--frequency", a->frequency_hz, "Only this frequency, Hz (nearest within 0.5 %; default all)");
     sub->add_option("--title", a->title, "Report title");
     sub->add_option("--size", a->size, "Cut figure size WIDTHxHEIGHT in pixels (default 1200x900)");

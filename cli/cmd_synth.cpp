@@ -47,7 +47,7 @@ Registered add_synth(CLI::App& root) {
     sub->add_option("--frequency", a->frequency_hz, "Frequency written to the file, Hz (default 2.45e9)")
         ->check(CLI::PositiveNumber);
     sub->add_option("--name", a->name, "Name stored in the file (default: the kind)");
-    sub->add_option("--out", a->out, "Output CSV file")->required();
+    sub->add_option("--out", a->out, "Output CSV file")->required()->type_name("FILE");
     sub->add_flag("--force", a->force, "Replace the output file if it exists");
     return {sub, [a]() -> int {
                 const double n = 180.0 / a->step_deg;

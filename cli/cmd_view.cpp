@@ -51,7 +51,7 @@ Registered add_view(CLI::App& root) {
     sub->add_flag("--software", a->software, "Force Mesa's software renderer (llvmpipe)");
     sub->add_option("--size", a->size, "Window size WxH in pixels (default: as last time, first 1280x800)");
     sub->add_option("--frames", a->frames, "Run this many frames and exit")->check(CLI::Range(1, 1000000));
-    sub->add_option("--screenshot", a->screenshot, "With --frames: write the last frame to this PNG");
+    sub->add_option("--screenshot", a->screenshot, "With --frames: write the last frame to this PNG")->type_name("FILE");
     sub->add_flag("--frame-stats", a->frame_stats,
                   "Print one JSON line {\"frames\", \"median_ms\", \"p95_ms\"} at exit (vsync off)");
     sub->add_option("--component", a->component, "Start with this component as the radius (total, theta, ..., rhcp, lhcp)");
@@ -61,8 +61,10 @@ Registered add_view(CLI::App& root) {
     sub->add_option("--view", a->view, "Start looking from AZ,EL (deg)");
     sub->add_flag("--wireframe", a->wireframe, "Start with the wireframe on");
     sub->add_option("--cursor", a->cursor, "With --frames: hold the mouse pointer at X,Y window pixels (probe screenshots)");
-    sub->add_option("--export-view", a->export_view, "With --frames: export the 3D view of the last frame as PNG (as Ctrl+E)");
-    sub->add_option("--export-cut", a->export_cut, "With --frames: write the cut of the last frame (.svg, .png, .pdf or .csv)");
+    sub->add_option("--export-view", a->export_view, "With --frames: export the 3D view of the last frame as PNG (as Ctrl+E)")
+        ->type_name("FILE");
+    sub->add_option("--export-cut", a->export_cut, "With --frames: write the cut of the last frame (.svg, .png, .pdf or .csv)")
+        ->type_name("FILE");
     sub->add_option("--cut-style", a->cut_style, "Start with a polar or rect cut plot")->check(CLI::IsMember({"polar", "rect"}));
     sub->add_flag("--translucent", a->translucent, "Start with a translucent surface");
     sub->add_flag("--diversity", a->diversity, "Start with the diversity panel open (MEG, ECC, orientation curve)");

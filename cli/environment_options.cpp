@@ -20,7 +20,8 @@ void add_environment_options(CLI::App* sub, EnvironmentOptions& o) {
     sub->add_option("--h-spread", o.h_spread, "Gaussian: spread of the horizontal part, deg");
     sub->add_option("--profile", o.profile,
                     "User environment: CSV table elevation_deg,p_v,p_h (interpolated; zero outside its "
-                    "elevations; XPR from the column totals unless --xpr is given)");
+                    "elevations; XPR from the column totals unless --xpr is given)")
+        ->type_name("FILE");
     sub->add_option("--profile-measure", o.profile_measure,
                     "How the table's values are meant: solid-angle (per steradian, default) or elevation "
                     "(per unit elevation, summed over azimuth)")

@@ -12,7 +12,8 @@ void add_load_options(CLI::App* sub, LoadOptions& o) {
     sub->add_option("--map", o.map,
                     "Read a foreign column layout: \"SourceName=schema_name,...\" (schema_name may be "
                     "\"ignore\"; @FILE reads a map file; see docs/far-field-csv.md)");
-    sub->add_option("--map-file", o.map_file, "Read a foreign column layout from a map file (docs/far-field-csv.md)");
+    sub->add_option("--map-file", o.map_file, "Read a foreign column layout from a map file (docs/far-field-csv.md)")
+        ->type_name("FILE");
     sub->add_option("--assume", o.assume,
                     "Metadata the file lacks or gets wrong, \"key=value,...\": quantity, time-convention, "
                     "angle-unit, phase-unit, frequency-unit, frequency, ludwig3-reference, name, source, note");

@@ -4,6 +4,7 @@
 #include <iostream>
 #include <vector>
 
+#include "cli/cli_docs.hpp"
 #include "cli/commands.hpp"
 #include "cli/version.hpp"
 
@@ -22,6 +23,9 @@ int main(int argc, char** argv) {
     app.require_subcommand(0, 1);
     bool show_version = false;
     app.add_flag("--version", show_version, "Print the version and which OpenGL renderer would be used");
+    // Hidden (empty group): the build writes the manual pages and completions with it (cli/cli_docs.hpp).
+    std::string docs_dir;
+    app.add_option("--write-cli-docs", docs_dir, "Write manual pages and shell completions into DIR")->group("");
 
     std::vector<CommandEntry> entries = command_registry();
     std::sort(entries.begin(), entries.end(), [](const CommandEntry& a, const CommandEntry& b) { return a.order < b.order; });
@@ -38,6 +42,7 @@ int main(int argc, char** argv) {
         std::cerr << "Run 'ellipsa --help' (or 'ellipsa COMMAND --help') for usage.\n";
         return exit_usage;
     }
+    if (!docs_dir.empty()) return write_cli_documents(app, docs_dir);
     if (show_version) {
         std::cout << version_text();
         return exit_ok;

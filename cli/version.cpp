@@ -7,7 +7,7 @@
 namespace ellipsa::cli {
 
 std::string version_text() {
-    std::string s = "ellipsa 0.1.0\n";
+    std::string s = "ellipsa " ELLIPSA_VERSION "\n";  // project(VERSION) in CMakeLists.txt
 #ifdef ELLIPSA_HAVE_VIEWER
     s += "OpenGL: " + viewer::probe_renderer_line() + "\n";
 #else

@@ -47,6 +47,12 @@ std::vector<std::string> example_files() {
     namespace fs = std::filesystem;
     std::vector<fs::path> dirs;
     if (const char* e = std::getenv("ELLIPSA_EXAMPLES"); e && *e) dirs.emplace_back(e);
+#ifdef ELLIPSA_EXAMPLES_FROM_BINDIR
+    // An installed copy: the examples' folder beside the executable's (packaging/CMakeLists.txt).
+    std::error_code exe_ec;
+    const fs::path exe = fs::read_symlink("/proc/self/exe", exe_ec);
+    if (!exe_ec) dirs.push_back((exe.parent_path() / ELLIPSA_EXAMPLES_FROM_BINDIR).lexically_normal());
+#endif
 #ifdef ELLIPSA_SOURCE_DIR
     dirs.emplace_back(fs::path(ELLIPSA_SOURCE_DIR) / "examples");
 #endif

@@ -20,8 +20,9 @@ Result<FarFieldSet> load_pattern_file(const std::string& path, const std::string
 // The map file that load_pattern_file would pick for `path` ("" when none).
 std::string map_file_beside(const std::string& path);
 
-// The example CSV files shipped in examples/ (next to the executable's source tree or in
-// $ELLIPSA_EXAMPLES), sorted by name; empty when there are none.
+// The example CSV files shipped in examples/, sorted by name, from the first folder that has
+// any: $ELLIPSA_EXAMPLES, the installed examples beside the executable's folder
+// (../share/ellipsa/examples), the source tree's examples/. Empty when there are none.
 std::vector<std::string> example_files();
 
 // Patterns to open with no FILE: the example files that load, or else the built-in demo.

@@ -16,7 +16,8 @@ namespace ellipsa::viewer {
 SettingsPlace settings_place(bool create) {
     namespace fs = std::filesystem;
     SettingsPlace p;
-    if (const char* x = std::getenv("XDG_CONFIG_HOME"); x && *x)
+    // The XDG Base Directory Specification: a relative XDG_CONFIG_HOME is invalid and ignored.
+    if (const char* x = std::getenv("XDG_CONFIG_HOME"); x && *x == '/')
         p.dir = (fs::path(x) / "ellipsa").string();
     else if (const char* h = std::getenv("HOME"); h && *h)
         p.dir = (fs::path(h) / ".config" / "ellipsa").string();

@@ -1,5 +1,6 @@
 // Reading and writing the viewer's settings (viewer.conf) and ImGui's window layout (imgui.ini)
-// in $XDG_CONFIG_HOME/ellipsa/ (or ~/.config/ellipsa/). Failures never stop the viewer: a folder
+// in $XDG_CONFIG_HOME/ellipsa/ (or ~/.config/ellipsa/ when it is unset, empty or relative, as the
+// XDG Base Directory Specification says). Failures never stop the viewer: a folder
 // that cannot be made means the viewer runs without saving and says so once; a settings file
 // that is not a regular file of sane size (a FIFO, a link to /dev/zero, a huge file) is not
 // read, with a warning.

@@ -1,0 +1,78 @@
+#!/usr/bin/env bash
+# The installed copy works: `cmake --install` into a scratch prefix (MODE tree), or the Debian
+# package from CPack unpacked with dpkg -x (MODE deb). From there: --version, one analysis that
+# must print what the build tree prints, a manual page for ellipsa and every command that man -l
+# renders with every option --help lists, completions for bash (driven here), zsh and fish, the
+# desktop entry and the icon. Usage: install_check.sh MODE BUILD_DIR WORKDIR SOURCE_DIR
+set -uo pipefail
+source "$(dirname "$0")/checks.sh"  # ok, bad, expect_rc, finish
+MODE=$1; B=$2; W=$3; SRC=$4; rm -rf "$W"; mkdir -p "$W"; cd "$W"
+E=$B/ellipsa
+
+if [[ $MODE == tree ]]; then
+  cmake --install "$B" --prefix "$W/root" >install.log 2>&1 || { bad "cmake --install: $(tail -5 install.log)"; finish; exit; }
+  P=$W/root
+else
+  cpack -G DEB -B "$W/pkg" --config "$B/CPackConfig.cmake" >cpack.log 2>&1 || { bad "cpack: $(tail -5 cpack.log)"; finish; exit; }
+  deb=$(ls "$W"/pkg/ellipsa_*.deb)
+  ok "package $(basename "$deb") ($(du -k "$deb" | cut -f1) KiB)"
+  dpkg-deb -f "$deb" Depends >depends.txt
+  # Runtime dependencies: from dpkg-shlibdeps (the C++ runtime, GL, GLFW, Cairo) and the explicit Mesa drivers.
+  for p in libc6 libstdc++6 libglfw3 libcairo2 libgl1-mesa-dri; do
+    grep -q "\b$p\b" depends.txt && ok "Depends names $p" || bad "Depends lacks $p: $(cat depends.txt)"
+  done
+  dpkg-deb -x "$deb" "$W/root" || bad "dpkg-deb -x"
+  P=$W/root/usr
+fi
+
+# Files in their GNUInstallDirs places.
+for f in bin/ellipsa share/man/man1/ellipsa.1 share/bash-completion/completions/ellipsa \
+         share/zsh/vendor-completions/_ellipsa share/fish/vendor_completions.d/ellipsa.fish \
+         share/applications/ellipsa.desktop share/icons/hicolor/scalable/apps/ellipsa.svg \
+         share/ellipsa/examples/turnstile.csv share/doc/ellipsa/README.md share/doc/ellipsa/docs/guide.md; do
+  [[ -s $P/$f ]] && ok "installed $f" || bad "missing $f"
+done
+IE=$P/bin/ellipsa
+
+# --version and one analysis from the installed copy, the same as the build tree's.
+expect_rc 0 "installed ellipsa --version" "$IE" --version
+[[ $(head -1 out.txt) == "$("$E" --version | head -1)" ]] && ok "version line: $(head -1 out.txt)" || bad "version: $(head -1 out.txt)"
+(cd "$P/share/ellipsa/examples" && "$IE" info turnstile.csv --json) >installed.json 2>err.txt || bad "installed info: $(cat err.txt)"
+(cd "$SRC/examples" && "$E" info turnstile.csv --json) >built.json
+[[ -s installed.json ]] && cmp -s installed.json built.json && ok "info on the installed example = build tree's" || bad "info differs"
+
+# A page for ellipsa and every command --help lists; man -l renders each with every long option of --help.
+cmds=$("$E" --help | awk '/^Subcommands:/{s=1; next} s && /^  [a-z]/{print $1}')
+[[ $(wc -w <<<"$cmds") -ge 10 ]] && ok "--help lists $(wc -w <<<"$cmds") commands" || bad "commands from --help: $cmds"
+for c in "" $cmds; do
+  page=$P/share/man/man1/ellipsa${c:+-$c}.1
+  help=$("$E" $c --help)
+  text=$(MANWIDTH=200 LC_ALL=C man -l "$page" 2>man_err.txt | col -b)
+  missing=""
+  for o in $(grep -oE -- '--[a-z0-9][a-z0-9-]*' <<<"$help" | sort -u); do
+    grep -qF -- "$o" <<<"$text" || missing+=" $o"
+  done
+  if [[ -n $text && -z $missing && ! -s man_err.txt ]]; then ok "man -l ellipsa${c:+-$c}.1: every option of --help"
+  else bad "man -l ellipsa${c:+-$c}.1: missing$missing $(head -c 200 man_err.txt)"; fi
+done
+
+# bash completion: commands, then a command's options and an option's choices.
+complete_bash() {  # WORDS... -> the completions, one per line
+  bash -c 'source "$1"; shift; COMP_WORDS=("$@"); COMP_CWORD=$(($# - 1)); _ellipsa; printf "%s\n" "${COMPREPLY[@]}"' \
+    _ "$P/share/bash-completion/completions/ellipsa" "$@"
+}
+[[ $(complete_bash ellipsa di) == diversity ]] && ok "bash: ellipsa di<Tab> -> diversity" || bad "bash: ellipsa di: $(complete_bash ellipsa di)"
+complete_bash ellipsa cut x.csv --thr | grep -qx -- --through-peak && ok "bash: cut --thr<Tab> -> --through-peak" || bad "bash: cut option"
+[[ $(complete_bash ellipsa convert a.csv --family cir) == circular-db-phase ]] && ok "bash: convert --family cir<Tab>" || bad "bash: --family choices"
+for sh in zsh fish; do
+  f=$P/share/zsh/vendor-completions/_ellipsa; [[ $sh == fish ]] && f=$P/share/fish/vendor_completions.d/ellipsa.fish
+  if command -v $sh >/dev/null; then $sh -n "$f" && ok "$sh -n completion" || bad "$sh completion syntax"
+  else grep -q "synth" "$f" && ok "$sh completion written ($sh not installed: syntax not checked)" || bad "$sh completion"; fi
+done
+
+# The menu entry opens the viewer with the files given; the icon is well-formed SVG.
+desk=$P/share/applications/ellipsa.desktop
+grep -qx "Exec=ellipsa view %F" "$desk" && grep -q "^MimeType=.*text/csv;" "$desk" && ok "desktop entry: view %F, text/csv" || bad "desktop entry"
+if command -v desktop-file-validate >/dev/null; then desktop-file-validate "$desk" && ok "desktop-file-validate" || bad "desktop-file-validate"; fi
+xmllint --noout "$P/share/icons/hicolor/scalable/apps/ellipsa.svg" && ok "icon is well-formed SVG" || bad "icon SVG"
+finish
