@@ -41,6 +41,20 @@ expect_rc 0 "installed ellipsa --version" "$IE" --version
 (cd "$SRC/examples" && "$E" info turnstile.csv --json) >built.json
 [[ -s installed.json ]] && cmp -s installed.json built.json && ok "info on the installed example = build tree's" || bad "info differs"
 
+# The Python module, when it was built: imported from the installed copy, the same figures as the command.
+if ls "$P"/lib/python3/dist-packages/ellipsa*.so >/dev/null 2>&1; then
+  if PYTHONPATH=$P/lib/python3/dist-packages /usr/bin/python3 - "$P" installed.json <<'PY'
+import json, sys
+import ellipsa
+prefix, cli = sys.argv[1], json.load(open(sys.argv[2]))
+assert ellipsa.__file__.startswith(prefix), ellipsa.__file__
+got = ellipsa.read(prefix + "/share/ellipsa/examples/turnstile.csv").info()
+assert got["results"][0]["peak_db"] == cli["results"][0]["peak_db"], (got["results"][0], cli["results"][0])
+PY
+  then ok "import ellipsa from the installed copy: info as the command's"; else bad "installed Python module"; fi
+  [[ $MODE == tree ]] || { grep -q "python3-numpy" depends.txt && ok "Depends names python3-numpy" || bad "Depends lacks python3-numpy"; }
+fi
+
 # A page for ellipsa and every command --help lists; man -l renders each with every long option of --help.
 cmds=$("$E" --help | awk '/^Subcommands:/{s=1; next} s && /^  [a-z]/{print $1}')
 [[ $(wc -w <<<"$cmds") -ge 10 ]] && ok "--help lists $(wc -w <<<"$cmds") commands" || bad "commands from --help: $cmds"
