@@ -648,9 +648,239 @@ def check_coverage():
                       boundary_share(state, weights) + 1e-9)
 
 
+def read_examples_csv(path):
+    """The schema's complex family with a frequency column (MHz), by a reader of our own."""
+    with open(path, encoding="utf-8") as f:
+        meta = [ln for ln in f if ln.startswith("#")]
+    unit = [m.split(":", 1)[1].strip() for m in meta if m.lower().startswith("# frequency-unit")]
+    scale = {"Hz": 1, "kHz": 1e3, "MHz": 1e6, "GHz": 1e9}[unit[0] if unit else "Hz"]
+    d = cr.read_csv_simple(path)
+    return d, scale
+
+
+def examples_grid(d, fcol, scale):
+    """{frequency Hz: (theta list, phi list, E_theta grid, E_phi grid)}, rows sorted by theta, phi."""
+    out = {}
+    for f in np.unique(d[fcol]):
+        m = d[fcol] == f
+        t, p = d["theta"][m], d["phi"][m] % 360
+        order = np.lexsort((p, t))
+        ut, up = np.unique(t), np.unique(p)
+        et = d["et"][m][order].reshape(len(ut), len(up))
+        ep = d["ep"][m][order].reshape(len(ut), len(up))
+        out[f * scale] = (ut, up, et, ep)
+    return out
+
+
+def read_range_example(path):
+    """examples/measured-loop-range.csv in its own layout (semicolons, decimal commas, azimuth
+    -180..180 with the seam repeated, elevation from the horizon, dB and degrees per part):
+    theta = 90 - elevation, phi = azimuth mod 360 (conventions.md), E = 10^(dB/20) exp(j phase)."""
+    raw = cr.read_csv_simple(path, delimiter=";", decimal_comma=True)
+    d = {"frequency": raw["freq [mhz]"], "theta": 90 - raw["elev [deg]"], "phi": raw["azim [deg]"] % 360}
+    d["et"] = 10 ** (raw["vert gain [dbi]"] / 20) * np.exp(1j * np.radians(raw["vert phase [deg]"]))
+    d["ep"] = 10 ** (raw["horiz gain [dbi]"] / 20) * np.exp(1j * np.radians(raw["horiz phase [deg]"]))
+    keep = raw["azim [deg]"] < 180  # the seam column repeats -180
+    return {k: v[keep] for k, v in d.items()}
+
+
+def grid_meg(t, p, et, ep, env):
+    """MEG on the file's grid: the cell rule with the densities normalised analytically
+    (taga_norm), so this does not share ellipsa's numerical normalisation."""
+    w = cr.cell_solid_angles(t, len(p))
+    tt = np.repeat(t[:, None], len(p), 1)
+    wv, wh = env.weights()
+    return float((w * (wv * abs(et) ** 2 * env.density("v", tt) + wh * abs(ep) ** 2 * env.density("h", tt))).sum())
+
+
+def check_example_file(path, grids, partial=False):
+    base = os.path.basename(path)
+    args = [path] + (["--map-file", f"{SRC}/examples/measured-loop.map"] if partial else [])
+    info = run_json("info", *args)
+    envs = {"uniform": cr.Environment(0.0), "indoor": cr.Environment(1.0, (0, 30), (0, 30))}
+    megs = {k: run_json("diversity", *args, "--environment", k) for k in envs} if not partial else {}
+    for res in info["results"]:
+        f = res["frequency_hz"]
+        t, p, et, ep = grids[min(grids, key=lambda g: abs(g - f))]
+        u = abs(et) ** 2 + abs(ep) ** 2
+        w = cr.cell_solid_angles(t, len(p))
+        tag = f"example {base} {f / 1e9:.3f} GHz"
+        # the peak is refined between samples (pattern/peak.hpp, a parabola in dB): never below the
+        # largest sample, and above it by at most what noise on a 5-degree grid can add
+        check(f"{tag} peak dBi: the largest sample or a little above", res["peak_db"],
+              min(max(res["peak_db"], cr.db(u.max())), cr.db(u.max()) + 0.05), 1e-9)
+        i, j = np.unravel_index(np.argmax(u), u.shape)
+        ar = cr.axial_ratio(et[i, j], ep[i, j])
+        if partial:
+            check(f"{tag} coverage (half sphere: cells clipped at the horizon)", info["coverage"], float(w.sum() / (4 * math.pi)), 1e-9)
+            check_equal(f"{tag} directivity unavailable from half a sphere", res["directivity_dbi"], None)
+            # with the refined peak (above): this checks the integral over the half sphere
+            check(f"{tag} directivity assuming nothing outside", res["directivity_sampled_region_only_dbi"],
+                  cr.db(4 * math.pi * 10 ** (res["peak_db"] / 10) / (u * w).sum()), 1e-6)
+            continue
+        d, eta = cr.directivity_and_efficiency(u, w)
+        check(f"{tag} directivity dBi (cell rule)", res["directivity_dbi"], cr.db(d), 1e-6)
+        check(f"{tag} radiation efficiency", res["radiation_efficiency"], eta, 1e-7)
+        if ar < 1e2:
+            check(f"{tag} axial ratio at the peak", res["axial_ratio_db"], 20 * math.log10(ar), 1e-4)
+        for k, env in envs.items():
+            r = [x for x in megs[k]["patterns"][0]["results"] if abs(x["frequency_hz"] - f) < 1][0]
+            check(f"{tag} MEG {k} (cell rule, analytic normalisation)", r["meg_db"], cr.db(grid_meg(t, p, et, ep, env)), 0.005)
+
+
+def check_examples():
+    print("== examples: the bundled files through a reader of our own")
+    for name in ("printed-dipole.csv", "turnstile.csv", "small-loop.csv"):
+        path = f"{SRC}/examples/{name}"
+        d, scale = read_examples_csv(path)
+        d["et"] = d["e_theta_re"] + 1j * d["e_theta_im"]
+        d["ep"] = d["e_phi_re"] + 1j * d["e_phi_im"]
+        check_example_file(path, examples_grid(d, "frequency", scale))
+    # the README's claims: the turnstile is right-hand circular toward the ceiling at 2.45 GHz
+    r = run_json("probe", f"{SRC}/examples/turnstile.csv", "--theta", "0", "--phi", "0", "--frequency", "2.45e9")
+    check_equal("example turnstile.csv right-hand toward +z at 2.45 GHz (README)", r["sense"], "right")
+    path = f"{SRC}/examples/measured-loop-range.csv"
+    grids = examples_grid(read_range_example(path), "frequency", 1e6)
+    check_example_file(path, grids, partial=True)
+    t, p, et, ep = grids[2.45e9]
+    for ti, pi in ((3, 10), (10, 60), (17, 37)):
+        r = run_json("probe", path, "--map-file", f"{SRC}/examples/measured-loop.map", "--theta", str(t[ti]),
+                     "--phi", str(p[pi]), "--frequency", "2.45e9")
+        er, el = cr.circular(et[ti, pi], ep[ti, pi])
+        tag = f"example range file probe ({t[ti]}, {p[pi]})"
+        check(f"{tag} vertical dBi", r["vertical_db"], cr.db(abs(et[ti, pi]) ** 2), 1e-9)
+        check(f"{tag} horizontal dBi", r["horizontal_db"], cr.db(abs(ep[ti, pi]) ** 2), 1e-9)
+        check(f"{tag} rhcp dBic", r["rhcp_db"], cr.db(abs(er) ** 2), 1e-9)
+        check(f"{tag} lhcp dBic", r["lhcp_db"], cr.db(abs(el) ** 2), 1e-9)
+
+
+
+def check_orientations():
+    """The orientation sweep against MEG of the turned closed form, R = R_x(tilt) R_z(roll) and
+    E'(r) = R E(R^T r) (conventions.md, the mounting frame; docs/diversity.md for the set)."""
+    print("== orientations: MEG of the turned antenna, and the mean over all orientations")
+    label, opts, env = ENVS[-1]
+    for name in ("rhcp_tilt", "endfire", "bigloop_x"):
+        r = run_json("diversity", FILES[name], *opts, "--orientations", "--tilt-step", "30", "--roll-step", "60")
+        o = r["patterns"][0]["orientations"]
+        for tilt, roll, got in o["samples"][:: max(1, len(o["samples"]) // 8)]:
+            rot = cr.rotation_about("x", tilt) @ cr.rotation_about("z", roll)
+            want = cr.meg(cr.Rotated(ANT[name][0], rot), env)[0]
+            check(f"orientation {name} tilt {tilt} roll {roll} MEG dB", got, cr.db(want), TOL_MEG_DB)
+        # averaged over every orientation, each direction sees the polarisation-averaged gain, so
+        # the mean MEG is efficiency / 2 in any environment (Taga 1990's isotropic result)
+        r = run_json("diversity", FILES[name], *opts, "--orientations", "--tilt-step", "5", "--tilt-max", "180",
+                     "--roll-step", "10")
+        eta = ANT[name][1]
+        check(f"orientation {name} mean over all orientations = efficiency / 2 (dB)",
+              r["patterns"][0]["orientations"]["random_orientation_mean_db"], cr.db(eta / 2), 0.002)
+
+
+def profile_environment(measure):
+    """A user elevation table (docs/diversity.md): p_v a raised cosine around 15 deg elevation,
+    p_h a broader one around 0 deg, every 1 deg from -90 to 90."""
+    el = np.arange(-90, 91, 1.0)
+    pv = np.where(abs(el - 15) < 40, np.cos((el - 15) / 40 * math.pi / 2) ** 2, 0.0)
+    ph = np.where(abs(el) < 70, np.cos(el / 70 * math.pi / 2) ** 2, 0.0) * 0.5
+    path = f"{WORK}/profile_{measure}.csv"
+    with open(path, "w", encoding="utf-8") as f:
+        f.write("elevation_deg,p_v,p_h\n")
+        for row in zip(el, pv, ph):
+            f.write(",".join(repr(float(v)) for v in row) + "\n")
+    return path, el, pv, ph
+
+
+def check_profile():
+    """MEG in a tabulated environment: per steradian ('solid-angle') the table is the density;
+    per unit elevation summed over azimuth ('elevation') the density per steradian is the table
+    over cos(elevation). XPR is the ratio of the two columns' integrated power."""
+    print("== profile environments: tables per steradian and per elevation")
+    tt, pp, ww = cr.sphere_quadrature(400, 360)
+    elev = 90 - tt
+    for measure in ("solid-angle", "elevation"):
+        path, el, pv, ph = profile_environment(measure)
+        fv = np.interp(elev, el, pv)
+        fh = np.interp(elev, el, ph)
+        if measure == "elevation":
+            fv, fh = fv / np.cos(np.radians(elev)), fh / np.cos(np.radians(elev))
+        sv, sh = (fv * ww).sum(), (fh * ww).sum()
+        for name in ("rhcp_tilt", "half_x", "loop_z"):
+            r = run_json("diversity", FILES[name], "--environment", "profile", "--profile", path,
+                         "--profile-measure", measure)
+            et, ep = ANT[name][0].field_tp(tt, pp)
+            xpr = sv / sh
+            wv, wh = xpr / (1 + xpr), 1 / (1 + xpr)
+            m = wv * (abs(et) ** 2 * fv / sv * ww).sum() + wh * (abs(ep) ** 2 * fh / sh * ww).sum()
+            check(f"profile {measure} XPR dB from the column totals", r["environment"]["xpr_db"], cr.db(xpr), 0.01)
+            check(f"profile {measure} {name} MEG dB", r["patterns"][0]["meg_db"], cr.db(float(m)), TOL_MEG_DB)
+
+
+
+def write_family(name, family, convention="+jwt", ref="x", angles="theta"):
+    """The same closed form in another field family of docs/far-field-csv.md, converted here with
+    conventions.md's own formulas: circular E_R, E_L; Ludwig-3 co/cross; dB = 10 log10 of the
+    partial power and the phase in degrees. With -iwt every phase is written negated."""
+    et, ep = clean(*ANT[name][0].field_tp(TT, PP))
+    sign = -1 if convention == "-iwt" else 1
+    if family == "circular":
+        a, b = cr.circular(et, ep)
+        cols = ("e_rhcp_db", "e_rhcp_phase", "e_lhcp_db", "e_lhcp_phase")
+    elif family == "ludwig3":
+        a, b = cr.ludwig3(et, ep, PP, ref) if False else _ludwig3_grid(et, ep, ref)
+        cols = ("e_co_db", "e_co_phase", "e_cross_db", "e_cross_phase")
+    else:
+        a, b = et, ep
+        cols = ("e_theta_db", "e_theta_phase", "e_phi_db", "e_phi_phase")
+    if angles == "theta":
+        head, ang = "theta,phi", (TT, np.where(PP >= 180, PP - 360, PP))  # phi written in [-180, 180)
+    else:
+        head, ang = "azimuth,elevation", (PP, 90 - TT)
+    path = f"{WORK}/{name}_{family}_{convention[1:]}_{ref}_{angles}.csv"
+    with open(path, "w", encoding="utf-8") as f:
+        f.write(f"# quantity: gain\n# time-convention: {convention}\n# ludwig3-reference: {ref}\n")
+        f.write(f"{head},{','.join(cols)}\n")
+        with np.errstate(divide="ignore"):
+            vals = [ang[0], ang[1], 20 * np.log10(abs(a)), sign * np.degrees(np.angle(a)),
+                    20 * np.log10(abs(b)), sign * np.degrees(np.angle(b))]
+        for row in zip(*(v.ravel() for v in vals)):
+            f.write(",".join("-inf" if v == -math.inf else repr(float(v)) for v in row) + "\n")
+    return path
+
+
+def _ludwig3_grid(et, ep, ref):
+    s, c = np.sin(np.radians(PP)), np.cos(np.radians(PP))
+    if ref == "x":
+        return et * c - ep * s, et * s + ep * c
+    return et * s + ep * c, et * c - ep * s
+
+
+def check_families():
+    """Every field family and angle layout of the schema reads as the same physical field."""
+    print("== field families: circular, Ludwig-3, dB/phase, -iwt, azimuth/elevation")
+    variants = [("circular", "+jwt", "x", "theta"), ("circular", "-iwt", "x", "theta"),
+                ("ludwig3", "+jwt", "x", "theta"), ("ludwig3", "-iwt", "y", "theta"),
+                ("thetaphi", "+jwt", "x", "azel"), ("thetaphi", "-iwt", "x", "theta")]
+    keys = [f"{k}_db" for k in PROBE_KEYS] + ["axial_ratio_db", "tilt_deg"]
+    for name in ("rhcp_tilt", "endfire"):
+        for fam, conv, ref, ang in variants:
+            path = write_family(name, fam, conv, ref, ang)
+            for t, p in ((0, 0), (30, 270), (90, 0), (124, 306), (150, 92)):
+                a = run_json("probe", path, "--theta", str(t), "--phi", str(p), "--ludwig3", "x")
+                b = run_json("probe", FILES[name], "--theta", str(t), "--phi", str(p), "--ludwig3", "x")
+                for k in keys:
+                    tag = f"family {fam} {conv} {ref}-ref {ang} {name} ({t}, {p}) {k}"
+                    if a[k] is None or b[k] is None:  # an exact zero on one side: at most residue on the other
+                        other = a[k] if b[k] is None else b[k]
+                        zero_like = other is None or (k.endswith("_db") and k != "axial_ratio_db" and other < -200)
+                        check_equal(f"{tag}: zero on both sides (or below -200 dB)", zero_like, True)
+                    elif b[k] > -100:
+                        check(tag, a[k], b[k], 1e-6)
+                check_equal(f"family {fam} {conv} {ref}-ref {ang} {name} ({t}, {p}) sense", a["sense"], b["sense"])
+
+
 if __name__ == "__main__":
     ONLY = sys.argv[4:]  # optional: run only these groups (while iterating)
-    for group in ("info", "probe", "cut", "diversity", "fading", "band", "coverage"):
+    for group in ("info", "probe", "cut", "diversity", "fading", "band", "coverage", "examples", "orientations", "profile", "families"):
         if not ONLY or group in ONLY:
             globals()["check_" + group]()
     print(f"{PASSED[0]} passed, {len(FAIL)} failed")

@@ -204,11 +204,12 @@ def db(x):
 
 # ---------------------------------------------------------------- integration (conventions.md)
 def cell_solid_angles(t_deg, p_count, full_sphere=True):
-    """Exact cell solid angles dphi (cos(t - dt/2) - cos(t + dt/2)), clipped at the poles."""
+    """Exact cell solid angles dphi (cos(t - dt/2) - cos(t + dt/2)), clipped at the poles and at
+    the edge of the sampled theta range (docs/conventions.md: a hemisphere covers exactly 2 pi)."""
     dt = (t_deg[1] - t_deg[0]) * DEG
     t = t_deg * DEG
-    lo = np.clip(t - dt / 2, 0, math.pi)
-    hi = np.clip(t + dt / 2, 0, math.pi)
+    lo = np.clip(t - dt / 2, max(0.0, t[0]), min(math.pi, t[-1]))
+    hi = np.clip(t + dt / 2, max(0.0, t[0]), min(math.pi, t[-1]))
     ring = (np.cos(lo) - np.cos(hi)) * (2 * math.pi / p_count)
     return np.repeat(ring[:, None], p_count, 1)
 
