@@ -11,6 +11,7 @@
 #include <pybind11/stl.h>
 
 #include "pattern/components.hpp"
+#include "pattern/environment.hpp"
 #include "pattern/far_field.hpp"
 #include "pattern/result.hpp"
 
@@ -24,6 +25,11 @@ struct Pattern {
     FarFieldSet set;
 };
 using PatternPtr = std::shared_ptr<Pattern>;
+
+// What `ellipsa.Environment` wraps: the environment as chosen, with where its XPR came from.
+struct PyEnvironment {
+    ChosenEnvironment chosen;
+};
 
 // Raise ellipsa.Error (a ValueError) with the core's "file:line:column: message" text as its
 // message and the parts as attributes file, line, column, message.
@@ -69,5 +75,6 @@ inline py::object opt(const std::optional<std::string>& v) { return v ? py::obje
 void bind_pattern(py::module_& m);
 void bind_figures(py::module_& m);
 void bind_diversity(py::module_& m);
+void bind_fading(py::module_& m);
 
 }  // namespace ellipsa::python

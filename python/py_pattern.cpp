@@ -206,13 +206,7 @@ py::dict polarisation(const Pattern& p, int index, std::optional<double> frequen
 
 }  // namespace
 
-void bind_pattern(py::module_& m) {
-    m.attr("SENSES") = py::make_tuple(to_string(Sense::right), to_string(Sense::left), to_string(Sense::linear),
-                                      to_string(Sense::none));
-    py::list comps;
-    for (Component c : all_components) comps.append(to_string(c));
-    m.attr("COMPONENTS") = py::tuple(comps);
-
+static void bind_pattern_class(py::module_& m) {
     auto p = py::class_<Pattern, PatternPtr>(m, "Pattern",
         "A far-field pattern: one regular theta/phi grid and, per frequency, complex E_theta and E_phi whose\n"
         "|E_theta|^2 + |E_phi|^2 is gain, directivity or relative power (see quantity). Made by read(),\n"
@@ -268,7 +262,15 @@ void bind_pattern(py::module_& m) {
                    std::to_string(p.set.frequencies.size()) + " frequencies, " + std::to_string(p.set.grid.theta.count) +
                    " x " + std::to_string(p.set.grid.phi.count) + " samples>";
         });
+}
 
+void bind_pattern(py::module_& m) {
+    m.attr("SENSES") = py::make_tuple(to_string(Sense::right), to_string(Sense::left), to_string(Sense::linear),
+                                      to_string(Sense::none));
+    py::list comps;
+    for (Component c : all_components) comps.append(to_string(c));
+    m.attr("COMPONENTS") = py::tuple(comps);
+    bind_pattern_class(m);
     m.def("read", &read, py::arg("path"), py::kw_only(), py::arg("map") = py::none(), py::arg("map_file") = py::none(),
           py::arg("assume") = py::none(), py::arg("scale") = py::none(), py::arg("offset") = py::none(),
           py::arg("threads") = 0,
