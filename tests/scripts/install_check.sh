@@ -2,7 +2,7 @@
 # The installed copy works: `cmake --install` into a scratch prefix (MODE tree), or the Debian
 # package from CPack unpacked with dpkg -x (MODE deb). From there: --version, one analysis that
 # must print what the build tree prints, a manual page for ellipsa and every command that man -l
-# renders with every option --help lists, completions for bash (driven here), zsh and fish, the
+# renders with every option --help lists, completions for bash, zsh and fish (each driven as the shell would), the
 # desktop entry and the icon. Usage: install_check.sh MODE BUILD_DIR WORKDIR SOURCE_DIR
 set -uo pipefail
 source "$(dirname "$0")/checks.sh"  # ok, bad, expect_rc, finish
@@ -78,11 +78,21 @@ complete_bash() {  # WORDS... -> the completions, one per line
 [[ $(complete_bash ellipsa di) == diversity ]] && ok "bash: ellipsa di<Tab> -> diversity" || bad "bash: ellipsa di: $(complete_bash ellipsa di)"
 complete_bash ellipsa cut x.csv --thr | grep -qx -- --through-peak && ok "bash: cut --thr<Tab> -> --through-peak" || bad "bash: cut option"
 [[ $(complete_bash ellipsa convert a.csv --family cir) == circular-db-phase ]] && ok "bash: convert --family cir<Tab>" || bad "bash: --family choices"
-for sh in zsh fish; do
-  f=$P/share/zsh/vendor-completions/_ellipsa; [[ $sh == fish ]] && f=$P/share/fish/vendor_completions.d/ellipsa.fish
-  if command -v $sh >/dev/null; then $sh -n "$f" && ok "$sh -n completion" || bad "$sh completion syntax"
-  else grep -q "synth" "$f" && ok "$sh completion written ($sh not installed: syntax not checked)" || bad "$sh completion"; fi
-done
+# fish completion, driven with complete -C (the completions fish would offer at the cursor).
+fish_file=$P/share/fish/vendor_completions.d/ellipsa.fish
+complete_fish() { fish -c "source '$fish_file'; complete -C '$1'" | cut -f1; }
+if command -v fish >/dev/null; then
+  [[ $(complete_fish "ellipsa di") == diversity ]] && ok "fish: ellipsa di<Tab> -> diversity" || bad "fish: commands: $(complete_fish "ellipsa di")"
+  [[ $(complete_fish "ellipsa convert a.csv --family cir") == circular-db-phase ]] && ok "fish: --family choices" || bad "fish: --family"
+  complete_fish "ellipsa synth " | grep -qx crossed-dipoles && ok "fish: synth KIND choices" || bad "fish: synth KIND"
+else bad "fish not installed (./dev installs it)"; fi
+# zsh completion, driven in a pseudo-terminal (zsh_complete.zsh).
+complete_zsh() { timeout 30 "$(dirname "$0")/zsh_complete.zsh" "$P/share/zsh/vendor-completions" "$1"; }
+if command -v zsh >/dev/null; then
+  [[ $(complete_zsh "ellipsa di") == diversity ]] && ok "zsh: ellipsa di<Tab> -> diversity" || bad "zsh: commands: $(complete_zsh "ellipsa di")"
+  [[ $(complete_zsh "ellipsa info --fr") == --frequency ]] && ok "zsh: info --fr<Tab> -> --frequency" || bad "zsh: info option"
+  complete_zsh "ellipsa synth " | grep -qx crossed-dipoles && ok "zsh: synth KIND choices" || bad "zsh: synth KIND"
+else bad "zsh not installed (./dev installs it)"; fi
 
 # The menu entry opens the viewer with the files given; the icon is well-formed SVG.
 desk=$P/share/applications/ellipsa.desktop
