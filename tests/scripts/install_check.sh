@@ -21,6 +21,9 @@ else
   for p in libc6 libstdc++6 libglfw3 libcairo2 libgl1-mesa-dri; do
     grep -q "\b$p\b" depends.txt && ok "Depends names $p" || bad "Depends lacks $p: $(cat depends.txt)"
   done
+  # apt would install it: every dependency is a Debian 12 package (simulated: nothing is installed).
+  apt-get install -s "$deb" >apt.txt 2>&1 && grep -q "^Inst ellipsa " apt.txt && ok "apt-get install -s: dependencies resolve" \
+    || bad "apt-get install -s: $(tail -3 apt.txt)"
   dpkg-deb -x "$deb" "$W/root" || bad "dpkg-deb -x"
   P=$W/root/usr
 fi
