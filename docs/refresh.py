@@ -28,7 +28,8 @@ def run(cmd):
     for part in cmd.split(" && "):
         exe = part.replace("ellipsa ", os.path.join(ROOT, "build", "ellipsa") + " ", 1) if part.startswith("ellipsa ") else part
         p = subprocess.run(exe, shell=True, cwd=os.path.join(ROOT, "out", "docs"), capture_output=True, text=True,
-                           env=dict(os.environ, ELLIPSA_ROOT=ROOT))
+                           env=dict(os.environ, ELLIPSA_ROOT=ROOT,  # the built Python module (docs/python.md)
+                                    PYTHONPATH=os.path.join(ROOT, "build", "python")))
         out = p.stdout + p.stderr
         shown.append("$ " + part + "\n" + out)
     return "".join(shown)

@@ -83,3 +83,26 @@ def test_cut_is_the_cli_cut(tmp_path, cli):
         with np.errstate(divide="ignore"):  # zero power is -inf dB, as the CSV writes it
             np.testing.assert_allclose(10 * np.log10(c["power"][name]), db, rtol=1e-12, atol=1e-12)
     assert c["beam"]["total"]["shape"] in ("beam", "omnidirectional")
+
+
+def test_polarisation_arrays_are_the_cli_probe(cli_json):
+    # At a grid sample the command's probe gives that sample's figures: the arrays hold the same.
+    path = str(EXAMPLES / "turnstile.csv")
+    p = ellipsa.read(path)
+    k = p.frequency_index(2.45e9)
+    pol = p.polarisation(k)
+    for theta, phi in ((30, 45), (90, 0), (120, 300)):
+        i, j = list(p.theta_deg).index(theta), list(p.phi_deg).index(phi)
+        probe = cli_json("probe", path, "--theta", theta, "--phi", phi, "--frequency", "2.45e9")
+        for name in ("total", "theta", "phi", "rhcp", "lhcp", "co", "cross"):
+            db = p.power(name, k, db=True)[i, j]
+            if probe[name + "_db"] is None:  # JSON has no -inf: null for a zero component
+                assert db == -np.inf, name
+            else:
+                assert db == pytest.approx(probe[name + "_db"], abs=1e-9), name
+        for key in ("axial_ratio_db", "tilt_deg"):  # NaN here where the probe says null (linear, undefined)
+            want = np.nan if probe[key] is None else probe[key]
+            assert pol[key][i, j] == pytest.approx(want, abs=1e-7, nan_ok=True), key
+        assert ellipsa.SENSES[pol["sense"][i, j]] == probe["sense"]
+        stokes = [pol[f"stokes_{s}"][i, j] for s in "iquv"]
+        np.testing.assert_allclose(stokes, probe["stokes"], rtol=1e-9, atol=1e-12)
