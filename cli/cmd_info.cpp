@@ -107,8 +107,7 @@ Registered add_info(CLI::App& root) {
                 } else {
                     for (std::size_t k = 0; k < s->frequencies.size(); ++k) which.push_back(k);
                 }
-                std::vector<PatternSummary> rs;
-                for (std::size_t k : which) rs.push_back(summarize(*s, k));
+                const std::vector<PatternSummary> rs = summarize_each(*s, which);
                 if (a->json)
                     std::cout << info_json(*s, which, rs) << "\n";
                 else

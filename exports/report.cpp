@@ -237,7 +237,7 @@ Result<std::vector<ReportFile>> build_report(const std::vector<ReportInput>& inp
         doc.paragraph(about);
         if (!s.note.empty()) doc.note(s.note);
 
-        for (std::size_t fi : freqs[i]) summaries[i].push_back(summarize(s, fi));
+        summaries[i] = summarize_each(s, freqs[i]);
         // Figures table: one column per frequency.
         std::vector<std::string> labels;
         std::vector<std::vector<std::pair<std::string, std::string>>> cols;

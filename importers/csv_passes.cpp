@@ -140,7 +140,7 @@ std::string number_problem(int role, NumberStatus st, const char* cell, const ch
 }
 
 // Past the delimiter after cell k (false, with a failure, when the row ends early).
-inline bool next_cell(Chunk& c, std::size_t line_offset, const char* line, const char* e, const char*& q, int k, int ncells) {
+[[gnu::always_inline]] inline bool next_cell(Chunk& c, std::size_t line_offset, const char* line, const char* e, const char*& q, int k, int ncells) {
     if (k < ncells - 1) {
         if (q >= e) {
             fail_cell(c, line_offset, line, q,
@@ -162,13 +162,25 @@ struct CellKey {
     bool operator==(const CellKey& o) const { return a == o.a && b == o.b; }
 };
 
-// Key of the cell at p (up to the delimiter or e); false when it is empty or longer than 16.
-inline bool key_cell(const char* p, const char* e, char delim, CellKey& k, const char*& cell_end) {
-    const char* q = p;
-    const char* lim = e - p > 17 ? p + 17 : e;
-    while (q < lim && *q != delim) ++q;
-    const std::size_t n = std::size_t(q - p);
+// Key of the cell at p (up to the delimiter or e); false when it is empty, longer than 16 or NUL.
+[[gnu::always_inline]] inline bool key_cell(const char* p, const char* e, char delim, CellKey& k, const char*& cell_end) {
+    std::size_t n;
+#if defined(__SSE2__)
+    if (e - p >= 17) {
+        // The delimiter among the next 16 bytes in one compare (the 17th tells 16 from longer).
+        const __m128i v = _mm_loadu_si128(reinterpret_cast<const __m128i*>(p));
+        const unsigned m = unsigned(_mm_movemask_epi8(_mm_cmpeq_epi8(v, _mm_set1_epi8(delim))));
+        n = m ? std::size_t(__builtin_ctz(m)) : p[16] == delim ? 16 : 17;
+    } else
+#endif
+    {
+        const char* q = p;
+        const char* lim = e - p > 17 ? p + 17 : e;
+        while (q < lim && *q != delim) ++q;
+        n = std::size_t(q - p);
+    }
     if (n == 0 || n > 16) return false;
+    const char* q = p + n;
     if (e - p >= 16) {
         // Two unaligned loads, then clear the bytes past the cell.
         std::memcpy(&k.a, p, 8);
@@ -186,25 +198,39 @@ inline bool key_cell(const char* p, const char* e, char delim, CellKey& k, const
         std::memcpy(&k.b, buf + 8, 8);
     }
     cell_end = q;
-    return true;
+    return k.a != 0;  // all NUL bytes (a file changed under the reader) would read as an empty slot
 }
 
-inline std::size_t key_slot(const CellKey& k) {
-    return std::size_t(((k.a * 0x9E3779B97F4A7C15ull) ^ (k.b * 0xC2B2AE3D27D4EB4Full)) >> 56);
-}
 
 // What an angle or frequency cell means once parsed: the value (deg, Hz) and, in pass 2, its
 // grid index (theta row, phi column, frequency) and whether it is the phi seam duplicate.
 struct AngleInfo {
     double value = 0;
-    long index = 0;
+    std::int32_t index = 0;
     bool alias = false;
 };
 
+// One direct-mapped cache per role, sized so that the distinct texts of a fine grid rarely
+// collide: a 0.25-degree grid has 1440 phi texts (a 256-slot cache missed on about half of
+// the phi cells of a 1-degree grid, and each miss parses, checks and places the value again).
 struct AngleCache {
-    CellKey key[256];
-    bool used[256] = {};
-    AngleInfo info[256];
+    struct Entry {  // 32 bytes, two to a cache line; an all-zero key is an empty slot
+        CellKey key;
+        AngleInfo info;
+    };
+    static_assert(sizeof(Entry) == 32);
+    std::vector<Entry> slots;
+    int shift = 56;
+    explicit AngleCache(int bits) : slots(std::size_t(1) << bits), shift(64 - bits) {}
+    std::size_t slot(const CellKey& k) const {
+        return std::size_t(((k.a * 0x9E3779B97F4A7C15ull) ^ (k.b * 0xC2B2AE3D27D4EB4Full)) >> shift);
+    }
+};
+
+// Caches for theta, phi and frequency texts (angle_slot order).
+struct AngleCaches {
+    AngleCache by_slot[3] = {AngleCache(11), AngleCache(12), AngleCache(8)};
+    AngleCache& operator[](int slot) { return by_slot[slot]; }
 };
 
 // Which part of the grid a role gives: 0 theta, 1 phi, 2 frequency; -1 a field column.
@@ -269,10 +295,11 @@ template <class Fresh>
     CellKey key;
     const char* ce = nullptr;
     const bool keyed = key_cell(q, e, L.delimiter, key, ce);
-    const std::size_t h = keyed ? key_slot(key) : 0;
-    if (keyed && cache.used[h] && cache.key[h] == key) {
+    const std::size_t at = keyed ? cache.slot(key) : 0;
+    AngleCache::Entry& slot = cache.slots[at];
+    if (keyed && slot.key == key) {
         q = ce;
-        return &cache.info[h];
+        return &slot.info;
     }
     double x;
     const char* cell = q;
@@ -283,16 +310,13 @@ template <class Fresh>
         fail_cell(c, line_offset, line, cell, std::move(msg));
         return nullptr;
     }
-    AngleInfo& a = keyed ? cache.info[h] : scratch;
+    AngleInfo& a = keyed ? slot.info : scratch;
     a.value = y;
     if (!fresh(y, a)) {
         fail_cell(c, line_offset, line, cell, refusal);
         return nullptr;
     }
-    if (keyed) {
-        cache.used[h] = true;
-        cache.key[h] = key;
-    }
+    if (keyed) slot.key = key;
     return &a;
 }
 
@@ -302,8 +326,9 @@ template <class Fresh>
 inline bool place_on_grid(const GridPlan& g, int slot, double x, AngleInfo& a) {
     if (slot == 0) {
         const double d = (x - g.theta0) / g.theta_step;
-        a.index = d > -0.5 ? long(d + 0.5) : -1;
-        return a.index >= 0 && a.index < g.grid.theta.count;
+        const long it = d > -0.5 && d < 2e9 ? long(d + 0.5) : -1;
+        a.index = std::int32_t(it);
+        return it >= 0 && it < g.grid.theta.count;
     }
     if (slot == 1) {
         const double d = (x - g.phi0) / g.phi_step;
@@ -311,11 +336,11 @@ inline bool place_on_grid(const GridPlan& g, int slot, double x, AngleInfo& a) {
         if (ip < 0 || ip >= g.n_phi_distinct) return false;
         a.alias = g.phi_seam && ip == g.n_phi_distinct - 1;
         if (a.alias) ip = 0;
-        a.index = (ip + g.phi_shift) % g.grid.phi.count;
+        a.index = std::int32_t((ip + g.phi_shift) % g.grid.phi.count);
         return true;
     }
     auto it = std::lower_bound(g.freqs.begin(), g.freqs.end(), x * (1 - 1e-9));
-    a.index = long(it - g.freqs.begin());
+    a.index = std::int32_t(it - g.freqs.begin());
     return std::size_t(a.index) < g.freqs.size() && std::abs(g.freqs[std::size_t(a.index)] - x) <= 1e-9 * std::max(1.0, x);
 }
 
@@ -450,7 +475,7 @@ constexpr const char* changed_message =
 
 void pass1(Context& ctx, Chunk& c, bool report_progress) {
     const Layout& L = *ctx.L;
-    AngleCache cache[3];
+    AngleCaches cache;
     AngleInfo scratch;
     DistinctValues* sets[3] = {&c.theta, &c.phi, &c.freq};
     if (!L.frequency_column) c.freq.add(L.frequency_hz ? *L.frequency_hz : 0.0, c.begin);
@@ -484,7 +509,7 @@ void pass2(Context& ctx, Chunk& c, bool report_progress) {
     const Layout& L = *ctx.L;
     const GridPlan& g = *ctx.plan;
     const int ncells = L.cells;
-    AngleCache cache[3];
+    AngleCaches cache;
     std::vector<const char*> cell_at(std::size_t(ncells) + 1);
     double v[c_count];
     AngleInfo fixed_f;  // without a frequency column: the one frequency

@@ -8,6 +8,7 @@
 #include "pattern/components.hpp"
 #include "pattern/diversity_study.hpp"
 #include "pattern/interpolate.hpp"
+#include "pattern/parallel.hpp"
 #include "pattern/polarisation.hpp"
 
 namespace ellipsa {
@@ -48,9 +49,12 @@ ArReading axial_ratio_at(const FarFieldSet& s, std::size_t fi, double theta_deg,
 }
 
 std::vector<FrequencyFigures> band_figures(const FarFieldSet& s, const BandOptions& o) {
-    std::vector<FrequencyFigures> out;
-    for (std::size_t fi : ascending(s)) {
-        FrequencyFigures f;
+    const std::vector<std::size_t> order = ascending(s);
+    std::vector<FrequencyFigures> out(order.size());
+    // One frequency a task: each writes only its own entry.
+    parallel_each(order.size(), [&](std::size_t i) {
+        const std::size_t fi = order[i];
+        FrequencyFigures& f = out[i];
         f.freq_index = fi;
         f.summary = summarize(s, fi);
         for (const Environment& e : o.environments) {
@@ -61,8 +65,7 @@ std::vector<FrequencyFigures> band_figures(const FarFieldSet& s, const BandOptio
         const Peak& pk = f.summary.peak;
         f.ar_beamwidth_elevation = ar_beamwidth_through(s, fi, pk.theta_deg, pk.phi_deg, false, o.ar_threshold_db);
         f.ar_beamwidth_azimuth = ar_beamwidth_through(s, fi, pk.theta_deg, pk.phi_deg, true, o.ar_threshold_db);
-        out.push_back(std::move(f));
-    }
+    });
     return out;
 }
 

@@ -5,6 +5,7 @@
 
 #include "pattern/cut.hpp"
 #include "pattern/interpolate.hpp"
+#include "pattern/parallel.hpp"
 
 namespace ellipsa {
 
@@ -51,6 +52,12 @@ PatternSummary summarize(const FarFieldSet& s, std::size_t fi) {
         r.tilt_deg = st.tilt_deg;
     }
     return r;
+}
+
+std::vector<PatternSummary> summarize_each(const FarFieldSet& s, const std::vector<std::size_t>& freq_indices) {
+    std::vector<PatternSummary> out(freq_indices.size());
+    parallel_each(freq_indices.size(), [&](std::size_t i) { out[i] = summarize(s, freq_indices[i]); });
+    return out;
 }
 
 }  // namespace ellipsa

@@ -2,6 +2,7 @@
 // report tabulates and what the viewer shows in its figures panel.
 #pragma once
 #include <optional>
+#include <vector>
 #include <string>
 
 #include "pattern/cut.hpp"
@@ -38,5 +39,9 @@ struct PatternSummary {
 };
 
 PatternSummary summarize(const FarFieldSet& s, std::size_t freq_index);
+
+// summarize() of each listed frequency, in that order, one frequency a task on up to four
+// threads (pattern/parallel.hpp): the same figures as one at a time, sooner on several cores.
+std::vector<PatternSummary> summarize_each(const FarFieldSet& s, const std::vector<std::size_t>& freq_indices);
 
 }  // namespace ellipsa

@@ -5,7 +5,7 @@
 #include <limits>
 
 #include "pattern/interpolate.hpp"
-#include "viewer/scene/parallel.hpp"
+#include "pattern/parallel.hpp"
 
 namespace ellipsa::viewer {
 
