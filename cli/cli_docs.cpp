@@ -1,10 +1,10 @@
 #include "cli/cli_docs.hpp"
 
 #include <filesystem>
-#include <fstream>
 #include <iostream>
 
 #include "cli/commands.hpp"
+#include "io/atomic_write.hpp"
 
 namespace ellipsa::cli {
 
@@ -312,11 +312,11 @@ int write_cli_documents(const CLI::App& root, const std::string& dir) {
         const fs::path p = fs::path(dir) / f.path;
         std::error_code ec;
         fs::create_directories(p.parent_path(), ec);
-        std::ofstream out(p, std::ios::binary | std::ios::trunc);
-        out << f.text;
-        out.close();
-        if (ec || !out) {
-            std::cerr << "ellipsa: cannot write " << p.string() << "\n";
+        // Never replaces a file (the build empties the folder first).
+        Status st = ec ? Status(Error{p.parent_path().string(), 0, 0, "cannot create the folder: " + ec.message()})
+                       : io::write_file_atomically(p.string(), f.text, false);
+        if (!st) {
+            std::cerr << "ellipsa: " << st.error().format() << "\n";
             return exit_bad_input;
         }
     }

@@ -29,7 +29,7 @@ else
 fi
 
 # Files in their GNUInstallDirs places.
-for f in bin/ellipsa share/man/man1/ellipsa.1 share/bash-completion/completions/ellipsa \
+for f in bin/ellipsa share/man/man1/ellipsa.1.gz share/bash-completion/completions/ellipsa \
          share/zsh/vendor-completions/_ellipsa share/fish/vendor_completions.d/ellipsa.fish \
          share/applications/ellipsa.desktop share/icons/hicolor/scalable/apps/ellipsa.svg \
          share/ellipsa/examples/turnstile.csv share/doc/ellipsa/README.md share/doc/ellipsa/docs/guide.md; do
@@ -62,15 +62,15 @@ fi
 cmds=$("$E" --help | awk '/^Subcommands:/{s=1; next} s && /^  [a-z]/{print $1}')
 [[ $(wc -w <<<"$cmds") -ge 10 ]] && ok "--help lists $(wc -w <<<"$cmds") commands" || bad "commands from --help: $cmds"
 for c in "" $cmds; do
-  page=$P/share/man/man1/ellipsa${c:+-$c}.1
+  page=$P/share/man/man1/ellipsa${c:+-$c}.1.gz
   help=$("$E" $c --help)
   text=$(MANWIDTH=200 LC_ALL=C man -l "$page" 2>man_err.txt | col -b)
   missing=""
   for o in $(grep -oE -- '--[a-z0-9][a-z0-9-]*' <<<"$help" | sort -u); do
     grep -qF -- "$o" <<<"$text" || missing+=" $o"
   done
-  if [[ -n $text && -z $missing && ! -s man_err.txt ]]; then ok "man -l ellipsa${c:+-$c}.1: every option of --help"
-  else bad "man -l ellipsa${c:+-$c}.1: missing$missing $(head -c 200 man_err.txt)"; fi
+  if [[ -n $text && -z $missing && ! -s man_err.txt ]]; then ok "man -l ellipsa${c:+-$c}.1.gz: every option of --help"
+  else bad "man -l ellipsa${c:+-$c}.1.gz: missing$missing $(head -c 200 man_err.txt)"; fi
 done
 
 # bash completion: commands, then a command's options and an option's choices.
