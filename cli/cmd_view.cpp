@@ -3,6 +3,7 @@
 #include <memory>
 
 #include "cli/commands.hpp"
+#include "cli/load.hpp"
 #include "viewer/app.hpp"
 #include "viewer/scene/components.hpp"
 #include "viewer/state/app_state.hpp"
@@ -23,7 +24,8 @@ struct ViewArgs {
     int compare = 0;
     bool wireframe = false, translucent = false;
     bool diversity = false;
-    bool band = false, map = false;
+    bool band = false;
+    LoadOptions load;
     bool force = false;
     std::optional<double> frequency_hz;
     std::string tab;
@@ -44,10 +46,31 @@ std::string existing_output(const ViewArgs& a) {
     return "";
 }
 
+// Every file's reader options, made here as for every other command (cli/load.hpp); a bad option
+// or map file is refused before the window opens.
+int file_options(const ViewArgs& a, viewer::ViewerOptions& o) {
+    for (const std::string& f : a.files) {
+        auto p = prepare_load(f, a.load);
+        if (!p) {
+            std::cerr << "ellipsa view: " << p.error().format() << "\n";
+            return exit_bad_input;
+        }
+        std::error_code ec;
+        if (a.frames > 0 && !std::filesystem::is_regular_file(p->path, ec)) {  // a scripted run never falls back to the examples
+            std::cerr << "ellipsa view: " << p->path << ": expected a pattern file, found " << (std::filesystem::exists(p->path, ec) ? "no regular file" : "nothing") << "\n";
+            return exit_bad_input;
+        }
+        if (!p->beside_map.empty()) std::cerr << "ellipsa view: " << p->path << ": read with the map file beside it, " << p->beside_map << "\n";
+        o.files.push_back(p->path);
+        o.file_options.push_back(std::move(p->options));
+    }
+    return exit_ok;
+}
+
 Registered add_view(CLI::App& root) {
     auto a = std::make_shared<ViewArgs>();
     CLI::App* sub = root.add_subcommand("view", "Open the viewer: 3D gain surfaces, polarisation explorer and cuts");
-    sub->add_option("FILE", a->files, "Far-field CSV files (default: the bundled example)");
+    sub->add_option("FILE", a->files, "Far-field CSV files, each may carry its own options (FILE::map=...); default: the bundled examples");
     sub->add_flag("--software", a->software, "Force Mesa's software renderer (llvmpipe)");
     sub->add_option("--size", a->size, "Window size WxH in pixels (default: as last time, first 1280x800)");
     sub->add_option("--frames", a->frames, "Run this many frames and exit")->check(CLI::Range(1, 1000000));
@@ -69,14 +92,14 @@ Registered add_view(CLI::App& root) {
     sub->add_flag("--translucent", a->translucent, "Start with a translucent surface");
     sub->add_flag("--diversity", a->diversity, "Start with the diversity panel open (MEG, ECC, orientation curve)");
     sub->add_flag("--band", a->band, "Start with the figures-against-frequency panel open");
-    sub->add_flag("--map", a->map, "Start with the 2D map (equal-area) open");
     sub->add_option("--frequency", a->frequency_hz, "Start at this frequency, Hz (the first file's nearest within 0.5 %)");
-    sub->add_option("--tab", a->tab, "Start with this panel in front: patterns, surface (left column of a narrow window), cut, probe, polarisation (plot strip of a narrow window), diversity, band, map")
+    sub->add_option("--tab", a->tab, "Start with this panel in front: patterns, surface (left column of a narrow window), cut, probe, polarisation (plot strip of a narrow window), diversity, band, map (the 2D map)")
         ->check(CLI::IsMember(std::vector<std::string>(std::begin(viewer::tab_names), std::end(viewer::tab_names))));
     sub->add_flag("--force", a->force, "Replace the files of --screenshot, --export-view and --export-cut if they exist");
+    add_load_options(sub, a->load);
     return {sub, [a]() -> int {
                 viewer::ViewerOptions o;
-                o.files = a->files;
+                if (int rc = file_options(*a, o); rc != exit_ok) return rc;
                 o.software = a->software;
                 o.frames = a->frames;
                 o.screenshot = a->screenshot;
@@ -125,13 +148,17 @@ Registered add_view(CLI::App& root) {
                 }
                 o.component = a->component;
                 o.color_by = a->color_by;
+                if (a->compare != 0 && (a->compare < 1 || a->compare > int(a->files.size()))) {
+                    std::cerr << "ellipsa view: --compare expects a FILE number from 1 to " << a->files.size() << ", found "
+                              << a->compare << "\n";
+                    return exit_usage;
+                }
                 o.compare = a->compare - 1;
                 o.wireframe = a->wireframe;
                 o.translucent = a->translucent;
                 if (!a->cut_style.empty()) o.cut_style = a->cut_style == "rect" ? 1 : 0;
                 o.diversity_panel = a->diversity;
                 o.band_panel = a->band;
-                o.map_panel = a->map;
                 if (a->frequency_hz && !(std::isfinite(*a->frequency_hz) && *a->frequency_hz > 0)) {
                     std::cerr << "ellipsa view: --frequency expects a positive frequency in Hz, found " << *a->frequency_hz << "\n";
                     return exit_usage;

@@ -8,7 +8,31 @@
 
 namespace ellipsa::cli {
 
+namespace {
+// The options that name a pattern file, by their CLI11 names.
+bool names_pattern_file(const CLI::Option* opt) {
+    const std::string n = opt->get_name();
+    return n == "FILE" || n == "FILE2" || n == "IN" || n == "--minus" || n == "--partner";
+}
+
+// Keeps PATH of "PATH::key=value..." and records the file's own options.
+std::string take_file_options(const std::string& arg, LoadOptions& o) {
+    auto f = parse_file_argument(arg);
+    if (!f) throw CLI::ValidationError(f.error().format());
+    const bool own = !f->own.map.empty() || !f->own.map_file.empty() || !f->own.assume.empty() || !f->own.scale.empty() ||
+                     !f->own.offset.empty();
+    if (own) {
+        for (const auto& [path, _] : o.per_file)
+            if (path == f->path) throw CLI::ValidationError(f->path + ": expected the options of one file once, found them again");
+        o.per_file.emplace_back(f->path, f->own);
+    }
+    return f->path;
+}
+}  // namespace
+
 void add_load_options(CLI::App* sub, LoadOptions& o) {
+    for (CLI::Option* opt : sub->get_options())
+        if (names_pattern_file(opt)) opt->transform([&o](std::string arg) { return take_file_options(arg, o); }, "", "");
     sub->add_option("--map", o.map,
                     "Read a foreign column layout: \"SourceName=schema_name,...\" (schema_name may be "
                     "\"ignore\"; @FILE reads a map file; see docs/far-field-csv.md)");
@@ -19,6 +43,9 @@ void add_load_options(CLI::App* sub, LoadOptions& o) {
                     "angle-unit, phase-unit, frequency-unit, frequency, ludwig3-reference, name, source, note");
     sub->add_option("--scale", o.scale, "Multiply schema columns on reading: \"e_theta_re=0.001,...\"");
     sub->add_option("--offset", o.offset, "Add to schema columns on reading (after --scale): \"e_theta_db=-3,...\"");
+    sub->footer("These options apply to every FILE. Options for one file only follow its name: "
+                "FILE::map=FILE.map::offset=e_total_db=7.5 (keys map, map-file, assume, scale, offset). "
+                "A map file beside a file (FILE's stem with .map, or a .map file naming it) is used when no map is given.");
 }
 
 namespace {
@@ -57,42 +84,119 @@ Status numbers(const std::string& text, const char* option, std::vector<CsvAdjus
     }
     return Ok{};
 }
-}  // namespace
 
-// Every entry names the option it came from, so the reader's refusals name it too.
-Result<CsvReadOptions> read_options(const LoadOptions& o) {
-    CsvReadOptions ro;
+// The options into `ro`; `names` are the words messages use for each (the flags, or
+// "FILE::map" and so on for one file's own), so the reader's refusals name them too.
+struct OptionNames {
+    const char *map, *assume, *scale, *offset;
+};
+constexpr OptionNames flag_names{"--map", "--assume", "--scale", "--offset"};
+
+Status add_options(const FileOptions& o, const OptionNames& n, CsvReadOptions& ro) {
     if (!o.map.empty()) {
-        if (o.map[0] == '@') {
-            if (auto st = read_csv_map_file(o.map.substr(1), ro); !st) return st.error();
+        // A column map always holds '='; without one the value names a map file.
+        if (o.map[0] == '@' || o.map.find('=') == std::string::npos) {
+            if (auto st = read_csv_map_file(o.map[0] == '@' ? o.map.substr(1) : o.map, ro); !st) return st;
         } else {
             std::vector<std::pair<std::string, std::string>> items;
-            if (auto st = split_pairs(o.map, "--map", items); !st) return st.error();
-            for (auto& [k, v] : items) ro.column_map.push_back({k, v, {"--map", 0}});
+            if (auto st = split_pairs(o.map, n.map, items); !st) return st;
+            for (auto& [k, v] : items) ro.column_map.push_back({k, v, {n.map, 0}});
         }
     }
     if (!o.map_file.empty())
-        if (auto st = read_csv_map_file(o.map_file, ro); !st) return st.error();
+        if (auto st = read_csv_map_file(o.map_file, ro); !st) return st;
     if (!o.assume.empty()) {
         std::vector<std::pair<std::string, std::string>> items;
-        if (auto st = split_pairs(o.assume, "--assume", items); !st) return st.error();
-        for (auto& [k, v] : items) ro.settings.push_back(CsvSetting{k, v, {"--assume", 0}});
+        if (auto st = split_pairs(o.assume, n.assume, items); !st) return st;
+        for (auto& [k, v] : items) ro.settings.push_back(CsvSetting{k, v, {n.assume, 0}});
     }
     if (!o.scale.empty())
-        if (auto st = numbers(o.scale, "--scale", ro.scale); !st) return st.error();
+        if (auto st = numbers(o.scale, n.scale, ro.scale); !st) return st;
     if (!o.offset.empty())
-        if (auto st = numbers(o.offset, "--offset", ro.offset); !st) return st.error();
+        if (auto st = numbers(o.offset, n.offset, ro.offset); !st) return st;
+    return Ok{};
+}
+
+bool exists(const std::string& path) {
+    struct stat st {};
+    return ::stat(path.c_str(), &st) == 0;
+}
+
+constexpr const char* file_keys = "map, map-file, assume, scale, offset";
+}  // namespace
+
+Result<CsvReadOptions> read_options(const FileOptions& o) {
+    CsvReadOptions ro;
+    if (Status st = add_options(o, flag_names, ro); !st) return st.error();
     return ro;
 }
 
-Result<FarFieldSet> load_pattern(const std::string& path, const LoadOptions& o) {
-    auto ro = read_options(o);
+Result<FileArgument> parse_file_argument(const std::string& arg) {
+    const std::size_t cut = arg.find("::");
+    if (cut == std::string::npos || exists(arg)) return FileArgument{arg, {}};
+    FileArgument out{arg.substr(0, cut), {}};
+    if (out.path.empty()) return Error{arg, 0, 0, "expected FILE::key=value, found no FILE before \"::\""};
+    for (std::size_t pos = cut + 2; pos <= arg.size();) {
+        const std::size_t next = std::min(arg.find("::", pos), arg.size());
+        const std::string item = arg.substr(pos, next - pos);
+        const std::size_t eq = item.find('=');
+        const std::string key = item.substr(0, eq);
+        std::string* field = key == "map"        ? &out.own.map
+                             : key == "map-file" ? &out.own.map_file
+                             : key == "assume"   ? &out.own.assume
+                             : key == "scale"    ? &out.own.scale
+                             : key == "offset"   ? &out.own.offset
+                                                 : nullptr;
+        if (!field || eq == std::string::npos || eq + 1 == item.size())
+            return Error{out.path, 0, 0,
+                         std::string("expected ::key=value after the file name, key one of ") + file_keys + ", found \"" +
+                             item + "\""};
+        if (!field->empty()) return Error{out.path, 0, 0, "expected each ::" + key + "= once, found it again"};
+        *field = item.substr(eq + 1);
+        pos = next + 2;
+    }
+    return out;
+}
+
+std::string file_path(const std::string& arg) {
+    auto f = parse_file_argument(arg);
+    return f ? f->path : arg;
+}
+
+Result<PreparedLoad> prepare_load(const std::string& arg, const LoadOptions& o) {
+    auto file = parse_file_argument(arg);
+    if (!file) return file.error();
+    for (const auto& [path, own] : o.per_file)
+        if (path == file->path && file->own.map.empty() && file->own.map_file.empty() && file->own.assume.empty() &&
+            file->own.scale.empty() && file->own.offset.empty())
+            file->own = own;
+    PreparedLoad p{file->path, {}, ""};
+    if (Status st = add_options(o, flag_names, p.options); !st) return st.error();
+    const std::string own_map = file->path + "::map", own_assume = file->path + "::assume",
+                      own_scale = file->path + "::scale", own_offset = file->path + "::offset";
+    if (Status st = add_options(file->own, {own_map.c_str(), own_assume.c_str(), own_scale.c_str(), own_offset.c_str()},
+                                p.options);
+        !st)
+        return st.error();
+    const bool any_map = !o.map.empty() || !o.map_file.empty() || !file->own.map.empty() || !file->own.map_file.empty();
+    if (!any_map) {
+        p.beside_map = find_csv_map_beside(p.path);
+        if (!p.beside_map.empty())
+            if (Status st = read_csv_map_file(p.beside_map, p.options); !st) return st.error();
+    }
+    return p;
+}
+
+Result<FarFieldSet> load_pattern(const std::string& arg, const LoadOptions& o) {
+    auto ro = prepare_load(arg, o);
     if (!ro) return ro.error();
+    if (!ro->beside_map.empty()) std::fprintf(stderr, "ellipsa: %s: read with the map file beside it, %s\n", ro->path.c_str(), ro->beside_map.c_str());
+    const std::string& path = ro->path;
     // Progress for long loads on a terminal.
     if (::isatty(2)) {
         struct stat st {};
         if (::stat(path.c_str(), &st) == 0 && st.st_size > (200 << 20)) {
-            ro->progress = [last = -1](double f) mutable {
+            ro->options.progress = [last = -1](double f) mutable {
                 const int pc = int(f * 100);
                 if (pc != last) {
                     last = pc;
@@ -103,7 +207,7 @@ Result<FarFieldSet> load_pattern(const std::string& path, const LoadOptions& o) 
             };
         }
     }
-    return read_far_field_csv(path, *ro);
+    return read_far_field_csv(path, ro->options);
 }
 
 Result<std::size_t> pick_frequency(const FarFieldSet& s, const std::optional<double>& f, const std::string& path) {

@@ -2,6 +2,8 @@
 #pragma once
 #include <optional>
 #include <string>
+#include <utility>
+#include <vector>
 
 #include <CLI/CLI.hpp>
 
@@ -10,21 +12,53 @@
 
 namespace ellipsa::cli {
 
-struct LoadOptions {
+struct FileOptions {
     std::string map;       // --map "Source=schema,..." (or @FILE for a map file)
     std::string map_file;  // --map-file FILE
     std::string assume;    // --assume "angle-unit=rad,frequency-unit=GHz,..."
     std::string scale;     // --scale "schema_column=factor,..."
     std::string offset;    // --offset "schema_column=value,..."
 };
+struct LoadOptions : FileOptions {
+    // The options of single files ("PATH::key=value", below), by path; filled while the command
+    // line is parsed, so each FILE argument holds its path alone.
+    std::vector<std::pair<std::string, FileOptions>> per_file;
+};
 // The one place that adds the import options (--map, --map-file, --assume, --scale, --offset)
-// to a subcommand.
+// to a subcommand; they apply to every pattern file of the command. Call it after the options
+// that name pattern files (the positionals FILE, FILE2, IN and --minus, --partner): those accept
+// "PATH::key=value" and keep PATH.
 void add_load_options(CLI::App* sub, LoadOptions& o);
-// The reader options the command-line options describe (a map file is read here).
-Result<CsvReadOptions> read_options(const LoadOptions& o);
+// The reader options the command-line options describe (a map file is read here). A --map value
+// without '=' names a map file (a column map always has one), as does "@FILE".
+Result<CsvReadOptions> read_options(const FileOptions& o);
 
-// Read a pattern file; progress goes to stderr on a terminal for long loads.
-Result<FarFieldSet> load_pattern(const std::string& path, const LoadOptions& o);
+// One FILE argument with options of its own (docs/far-field-csv.md, "Options for one file"):
+//   PATH::key=value[::key=value...]   keys: map, map-file, assume, scale, offset
+// e.g. "range.csv::map=range.map::offset=e_total_db=7.5". A PATH that exists as given is
+// taken whole, even with "::" in it.
+struct FileArgument {
+    std::string path;
+    FileOptions own;
+};
+Result<FileArgument> parse_file_argument(const std::string& arg);
+// The file's path alone (for messages): what parse_file_argument would give, else `arg`.
+std::string file_path(const std::string& arg);
+
+// What one FILE argument is read with: the command's options, then the file's own (from the
+// argument, or recorded in o.per_file while parsing); a key given
+// in both is refused naming both places. When neither names a map, the map file beside the
+// file (find_csv_map_beside) is used and named in `beside_map`.
+struct PreparedLoad {
+    std::string path;
+    CsvReadOptions options;
+    std::string beside_map;
+};
+Result<PreparedLoad> prepare_load(const std::string& arg, const LoadOptions& o);
+
+// Read a pattern file (a FILE argument as above); progress goes to stderr on a terminal for
+// long loads, and a map file found beside the file is named there.
+Result<FarFieldSet> load_pattern(const std::string& arg, const LoadOptions& o);
 
 // The frequency index asked for (nearest within 0.5 %), or the only one; an Error lists what
 // the file holds when no frequency matches.

@@ -8,7 +8,9 @@
 //
 // Every entry carries its file and line as its origin, so the reader's refusals (a repeated
 // key, a source column the data file lacks) point here.
+#include <algorithm>
 #include <cmath>
+#include <filesystem>
 
 #include "importers/csv_layout.hpp"
 #include "importers/csv_number.hpp"
@@ -80,6 +82,26 @@ Status read_csv_map_file(const std::string& path, CsvReadOptions& o) {
     auto text = read_small_file(path, std::size_t(1) << 20, "a map file");
     if (!text) return text.error();
     return parse_csv_map_text(*text, path, o);
+}
+
+std::string find_csv_map_beside(const std::string& path) {
+    namespace fs = std::filesystem;
+    std::error_code ec;
+    const fs::path p(path);
+    fs::path same = p;
+    same.replace_extension(".map");
+    if (fs::is_regular_file(same, ec)) return same.string();
+    const fs::path dir = p.has_parent_path() ? p.parent_path() : fs::path(".");
+    const std::string name = p.filename().string();
+    std::vector<std::string> maps;  // in name order, so the choice does not depend on the folder's order
+    for (const auto& e : fs::directory_iterator(dir, ec))
+        if (e.path().extension() == ".map" && e.is_regular_file(ec)) maps.push_back(e.path().string());
+    std::sort(maps.begin(), maps.end());
+    for (const std::string& m : maps) {
+        auto text = read_small_file(m, std::size_t(64) << 10, "a map file");
+        if (text && text->find(name) != std::string::npos) return m;
+    }
+    return "";
 }
 
 }  // namespace ellipsa

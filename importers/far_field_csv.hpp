@@ -89,6 +89,10 @@ const std::vector<std::string>& csv_schema_columns();
 // entry's origin is the file and its line. Only a regular file of at most 1 MB is read.
 Status read_csv_map_file(const std::string& path, CsvReadOptions& options);
 Status parse_csv_map_text(std::string_view text, const std::string& display_name, CsvReadOptions& options);
+// The map file that describes `path` when none is given ("" when none): "<stem>.map" beside it,
+// else a .map file in the same folder (at most 64 KiB) that names the file. Every front end
+// (the commands, the viewer's File > Open) uses this one rule.
+std::string find_csv_map_beside(const std::string& path);
 
 // Read a file: a regular file, read in windows (never memory-mapped, so a file that shrinks or
 // changes while it is read ends in an Error, not a signal). The file name is used in messages.

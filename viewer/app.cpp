@@ -69,15 +69,21 @@ WindowRequest window_request(const ViewerOptions& o, const Startup& st) {
 // --- Loading ---
 // The command-line files through the same background loader the UI uses, waited for so that the
 // first frame shows them (Ctrl+C cancels); every error on stderr. Without a file that loads: the
-// bundled examples, or the built-in demo.
-void load_start_files(const ViewerOptions& o, AppState& s, FileLoader& loader, StopSignals& stop) {
-    for (const std::string& f : o.files) loader.enqueue(f, "");
+// bundled examples, or the built-in demo. Returns how many of the files could not be read.
+int load_start_files(const ViewerOptions& o, AppState& s, FileLoader& loader, StopSignals& stop) {
+    for (std::size_t k = 0; k < o.files.size(); ++k) {
+        if (k < o.file_options.size()) loader.enqueue(o.files[k], o.file_options[k]);
+        else loader.enqueue(o.files[k], "");
+    }
+    int failed = 0;
     while (!loader.idle()) {
         if (stop.requested()) loader.cancel_current();
         Intents in = loader.poll();
         for (const Intent& i : in)
-            if (const auto* done = std::get_if<intent::LoadFinished>(&i); done && !done->result)
+            if (const auto* done = std::get_if<intent::LoadFinished>(&i); done && !done->result) {
                 std::cerr << "ellipsa view: " << done->result.error().format() << "\n";
+                ++failed;
+            }
         apply(s, std::move(in));
         std::this_thread::sleep_for(std::chrono::milliseconds(2));
     }
@@ -88,6 +94,7 @@ void load_start_files(const ViewerOptions& o, AppState& s, FileLoader& loader, S
     }
     in.push_back(intent::SelectPattern{0});
     apply(s, std::move(in));
+    return failed;
 }
 
 // --- Start-up options ---
@@ -106,7 +113,6 @@ Intents start_options(const ViewerOptions& o, const AppState& s) {
     if (o.has_pin) in.push_back(intent::Pin{Direction{o.pin_theta_deg, o.pin_phi_deg}});
     if (o.diversity_panel) in.push_back(intent::ShowDiversity{true});
     if (o.band_panel) in.push_back(intent::ShowBand{true});
-    if (o.map_panel) in.push_back(intent::ShowMap{true});
     if (auto t = parse_tab(o.tab)) in.push_back(intent::SelectTab{*t});
     if (o.save_settings && !s.settings.seen_intro) in.push_back(intent::ShowIntro{true});  // first interactive run
     return in;
@@ -248,7 +254,8 @@ int run_viewer(const ViewerOptions& opt) {
     AppState s;
     s.settings = st.settings;
     FileLoader loader;
-    load_start_files(opt, s, loader, stop);
+    // A scripted run shows exactly the files it was given, or fails: never the examples instead.
+    if (load_start_files(opt, s, loader, stop) > 0 && opt.frames > 0) return 1;
     apply(s, start_options(opt, s));
     if (opt.frequency_hz) {
         const Result<std::size_t> f = start_frequency(*opt.frequency_hz, s);

@@ -4,10 +4,15 @@
 #include <string>
 #include <vector>
 
+#include "importers/far_field_csv.hpp"
+
 namespace ellipsa::viewer {
 
 struct ViewerOptions {
     std::vector<std::string> files;  // empty: the bundled example (or the built-in demo)
+    // The reader options of each file, made by the command line (cli/load.hpp); a file without
+    // an entry here is read as File > Open reads it (a map file beside it when one names it).
+    std::vector<CsvReadOptions> file_options;
     bool software = false;
     int width = 0, height = 0;       // 0: from the saved settings (default 1280 x 800)
     int frames = 0;                  // > 0: run this many frames and exit
@@ -29,14 +34,14 @@ struct ViewerOptions {
     std::string export_cut;           // with frames: write the cut shown in the last frame (.svg/.png/.pdf/.csv)
     bool diversity_panel = false;     // start with the diversity panel open
     bool band_panel = false;          // start with the figures-against-frequency panel open
-    bool map_panel = false;           // start with the 2D map open
     bool force = false;               // the files above may replace existing ones
     std::optional<double> frequency_hz;  // start at this frequency of the first file (within 0.5 %)
     std::string tab;                  // start with this tab in front (tab_names), "" as before
 };
 
 // Runs until the window closes (or `frames` frames). Returns a process exit code (0 ok,
-// 1 when no window could be made or the screenshot could not be written).
+// 1 when no window could be made, a file given to a scripted run (frames > 0) could not be
+// read, or the screenshot could not be written).
 int run_viewer(const ViewerOptions& o);
 
 }  // namespace ellipsa::viewer

@@ -12,6 +12,7 @@ namespace ellipsa::viewer {
 // One read. The worker touches only this object; poll() takes the result once `done` is set.
 struct FileLoader::Job {
     std::string path, map;
+    std::optional<CsvReadOptions> options;
     std::atomic<double> progress{0};
     std::atomic<bool> cancel{false}, done{false};
     std::optional<Result<FarFieldSet>> result;
@@ -22,10 +23,20 @@ struct FileLoader::Job {
     }
 };
 
+namespace {
+CsvReadOptions with_progress(CsvReadOptions o, std::function<bool(double)> progress) {
+    o.progress = std::move(progress);
+    return o;
+}
+}  // namespace
+
 FileLoader::FileLoader() = default;
 FileLoader::~FileLoader() = default;
 
-void FileLoader::enqueue(std::string path, std::string map) { waiting_.emplace_back(std::move(path), std::move(map)); }
+void FileLoader::enqueue(std::string path, std::string map) { waiting_.push_back({std::move(path), std::move(map), {}}); }
+void FileLoader::enqueue(std::string path, CsvReadOptions options) {
+    waiting_.push_back({std::move(path), "", std::move(options)});
+}
 
 void FileLoader::cancel_current() {
     if (current_) current_->cancel = true;
@@ -48,15 +59,18 @@ Intents FileLoader::poll() {
     }
     if (!current_ && !waiting_.empty()) {
         current_ = std::make_unique<Job>();
-        current_->path = std::move(waiting_.front().first);
-        current_->map = std::move(waiting_.front().second);
+        current_->path = std::move(waiting_.front().path);
+        current_->map = std::move(waiting_.front().map);
+        current_->options = std::move(waiting_.front().options);
         waiting_.pop_front();
         Job* raw = current_.get();
         raw->worker = std::thread([raw] {
-            auto r = load_pattern_file(raw->path, raw->map, [raw](double f) {
+            auto progress = [raw](double f) {
                 raw->progress = f;
                 return !raw->cancel.load();
-            });
+            };
+            auto r = raw->options ? load_pattern_file(raw->path, with_progress(*raw->options, progress))
+                                  : load_pattern_file(raw->path, raw->map, progress);
             raw->result.emplace(std::move(r));
             raw->done = true;
         });

@@ -4,8 +4,10 @@
 #pragma once
 #include <deque>
 #include <memory>
+#include <optional>
 #include <string>
 
+#include "importers/far_field_csv.hpp"
 #include "viewer/state/intents.hpp"
 
 namespace ellipsa::viewer {
@@ -17,7 +19,10 @@ public:
     FileLoader(const FileLoader&) = delete;
     FileLoader& operator=(const FileLoader&) = delete;
 
+    // A file from the UI: `map` is its map file ("" looks beside it).
     void enqueue(std::string path, std::string map);
+    // A file from the command line, with the reader options the command line made for it.
+    void enqueue(std::string path, CsvReadOptions options);
     void cancel_current();
     bool idle() const;
     // Start the next file when none is being read; report the status and every finished read.
@@ -26,7 +31,11 @@ public:
 private:
     struct Job;
     std::unique_ptr<Job> current_;
-    std::deque<std::pair<std::string, std::string>> waiting_;  // (path, map file)
+    struct Waiting {
+        std::string path, map;
+        std::optional<CsvReadOptions> options;  // set: read with these (map unused)
+    };
+    std::deque<Waiting> waiting_;
     bool reported_idle_ = true;
 };
 

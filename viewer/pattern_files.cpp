@@ -3,44 +3,27 @@
 #include <algorithm>
 #include <cstdlib>
 #include <filesystem>
-#include <fstream>
-#include <sstream>
 
 #include "importers/far_field_csv.hpp"
 #include "viewer/scene/demo_scene.hpp"
 
 namespace ellipsa::viewer {
 
-std::string map_file_beside(const std::string& path) {
-    namespace fs = std::filesystem;
-    std::error_code ec;
-    const fs::path p(path);
-    fs::path same = p;
-    same.replace_extension(".map");
-    if (fs::is_regular_file(same, ec)) return same.string();
-    const fs::path dir = p.has_parent_path() ? p.parent_path() : fs::path(".");
-    const std::string name = p.filename().string();
-    for (const auto& e : fs::directory_iterator(dir, ec)) {
-        if (e.path().extension() != ".map" || !e.is_regular_file(ec) || e.file_size(ec) > 65536) continue;
-        std::ifstream in(e.path());
-        std::stringstream ss;
-        ss << in.rdbuf();
-        if (ss.str().find(name) != std::string::npos) return e.path().string();
-    }
-    return "";
+Result<FarFieldSet> load_pattern_file(const std::string& path, const CsvReadOptions& options) {
+    auto r = read_far_field_csv(path, options);
+    if (r && r->source.empty()) r->source = path;
+    if (r && r->name.empty()) r->name = std::filesystem::path(path).stem().string();
+    return r;
 }
 
 Result<FarFieldSet> load_pattern_file(const std::string& path, const std::string& map_file,
                                       std::function<bool(double)> progress) {
     CsvReadOptions ro;
     ro.progress = std::move(progress);
-    const std::string map = map_file.empty() ? map_file_beside(path) : map_file;
+    const std::string map = map_file.empty() ? find_csv_map_beside(path) : map_file;
     if (!map.empty())
         if (Status st = read_csv_map_file(map, ro); !st) return st.error();
-    auto r = read_far_field_csv(path, ro);
-    if (r && r->source.empty()) r->source = path;
-    if (r && r->name.empty()) r->name = std::filesystem::path(path).stem().string();
-    return r;
+    return load_pattern_file(path, ro);
 }
 
 std::vector<std::string> example_files() {

@@ -5,6 +5,7 @@
 #include <string>
 #include <vector>
 
+#include "importers/far_field_csv.hpp"
 #include "pattern/far_field.hpp"
 #include "pattern/result.hpp"
 
@@ -12,13 +13,14 @@ namespace ellipsa::viewer {
 
 // Read one far-field CSV file (importers/far_field_csv.hpp); the set's source is the path.
 // map_file: a column-map file for foreign layouts; when empty, a map beside the file is used if
-// one names it (a "<stem>.map", or a .map file in the same folder that mentions the file name).
+// one names it (find_csv_map_beside: a "<stem>.map", or a .map file in the same folder that
+// mentions the file name).
 // progress, when given, is called now and then with the fraction read; returning false cancels.
 Result<FarFieldSet> load_pattern_file(const std::string& path, const std::string& map_file = "",
                                       std::function<bool(double)> progress = {});
 
-// The map file that load_pattern_file would pick for `path` ("" when none).
-std::string map_file_beside(const std::string& path);
+// Read one file with reader options already made (the command line's, importers/far_field_csv.hpp).
+Result<FarFieldSet> load_pattern_file(const std::string& path, const CsvReadOptions& options);
 
 // The example CSV files shipped in examples/, sorted by name, from the first folder that has
 // any: $ELLIPSA_EXAMPLES, the installed examples beside the executable's folder

@@ -1,0 +1,68 @@
+#!/usr/bin/env bash
+# Real range and simulator files from the command line (issue 14): the load options on every
+# command (the viewer included), options for one file (FILE::key=value), the map file beside a
+# file, and the viewer's scripted-run refusals. Usage: ranges_cli.sh ELLIPSA WORKDIR SOURCE_DIR
+set -uo pipefail
+source "$(dirname "$0")/checks.sh"  # ok, bad, expect_rc, finish
+E=$1; W=$2; SRC=$3; rm -rf "$W"; mkdir -p "$W"; cd "$W"
+R3="$SRC/tests/data/csv/foreign/range3.csv"; M3="$SRC/tests/data/csv/foreign/range3.map"
+"$E" synth short-dipole --step 10 --out sim.csv >/dev/null || bad "synth"
+cp "$R3" meas.csv  # a foreign file with no map beside it
+
+# --- The same load options on every command that reads patterns (docs/far-field-csv.md, section 9) ---
+has_view=0; "$E" view --help >/dev/null 2>&1 && has_view=1  # not in a build without the viewer
+for cmd in info cut map probe render view convert band coverage diversity fading report; do
+  h=$("$E" $cmd --help 2>&1) || { [[ $has_view == 0 && ( $cmd == view || $cmd == render ) ]] && continue; }
+  all=1
+  for o in --map --map-file --assume --scale --offset; do grep -q -- "^  $o " <<<"$h" || all=0; done
+  grep -q "FILE::map=" <<<"$h" || all=0
+  [[ $all == 1 ]] && ok "$cmd takes --map, --map-file, --assume, --scale, --offset and FILE::key=value" || bad "$cmd lacks a load option"
+done
+
+# --- Options for one file: a measured file with its map beside a simulated one ---
+ref=$("$E" info meas.csv --map-file "$M3" --json)
+got=$("$E" info "meas.csv::map=$M3" --json)
+[[ "$ref" == "$got" ]] && ok "FILE::map=MAPFILE reads as --map-file" || bad "FILE::map differs"
+got=$("$E" info "meas.csv::map-file=$M3" --json)
+[[ "$ref" == "$got" ]] && ok "FILE::map-file=MAPFILE reads as --map-file" || bad "FILE::map-file differs"
+got=$("$E" info "meas.csv::map=Sample=ignore,Remark=ignore,Az/deg=azimuth,El/deg=elevation,Level re horn/dB=e_total_db::offset=e_total_db=7.5::assume=quantity=gain,frequency=5.8 GHz" --json)
+[[ "$ref" == "$got" ]] && ok "FILE::map=...::offset=...::assume=... gives the same as the map file" || bad "inline per-file options differ"
+expect_rc 0 "diversity: a simulated file and a measured one with its own map" "$E" diversity sim.csv "meas.csv::map=$M3"
+grep -q "meas.csv" out.txt && ! grep -q "::map" out.txt && ok "the output names the file, not its options" || bad "file name shown: $(head -3 out.txt)"
+expect_rc 0 "band: two files, one with its own map" "$E" band sim.csv "meas.csv::map=$M3" --out band.svg
+expect_rc 2 "an unknown per-file key is a usage error" "$E" info "meas.csv::mapp=$M3"
+grep -q 'meas.csv: expected ::key=value after the file name, key one of map, map-file, assume, scale, offset, found "mapp=' err.txt \
+  && ok "... naming the key and the choices" || bad "unknown key message: $(cat err.txt)"
+expect_rc 1 "a key given for the file and for all files is refused" "$E" info "meas.csv::map=$M3::assume=quantity=relative"
+grep -q "meas.csv::assume: expected metadata \"quantity\" once, found it again (first from .*range3.map:8)" err.txt \
+  && ok "... naming both places" || bad "repeat message: $(cat err.txt)"
+expect_rc 1 "the command's options apply to every file, the file's own are added" "$E" info "meas.csv::map=$M3" --assume quantity=relative
+grep -q "expected metadata \"quantity\" once" err.txt && ok "... and a clash between them is named" || bad "clash: $(cat err.txt)"
+
+# --- The map file beside the file (the viewer's convention, now every command's) ---
+cp "$R3" beside.csv; cp "$M3" beside.map
+expect_rc 0 "a map file beside the file (same stem) is used when no map is given" "$E" info beside.csv --json
+grep -q "beside.csv: read with the map file beside it, beside.map" err.txt && ok "... and named on stderr" || bad "beside note: $(cat err.txt)"
+mkdir -p named && cp "$R3" named/export-0001.csv && { echo "# for export-0001.csv"; cat "$M3"; } >named/range.map
+expect_rc 0 "a .map file in the folder that names the file is used" "$E" info named/export-0001.csv
+expect_rc 1 "an explicit map replaces the one beside (here: a wrong one)" "$E" info beside.csv --map "Sample=ignore"
+
+# --- The viewer: the same options, and scripted runs that fail instead of falling back ---
+[[ $has_view == 0 ]] && { echo "built without the viewer: its checks are skipped"; finish; exit; }
+expect_rc 1 "view --frames with a missing file fails (no fallback to the examples)" "$E" view missing.csv --frames 2
+grep -q "missing.csv: expected a pattern file, found nothing" err.txt && ok "... naming the file" || bad "missing file: $(cat err.txt)"
+expect_rc 2 "view --compare beyond the files given is a usage error" "$E" view sim.csv --compare 3 --frames 2
+grep -q -- "--compare expects a FILE number from 1 to 1, found 3" err.txt && ok "... naming the range" || bad "compare: $(cat err.txt)"
+expect_rc 1 "view refuses a bad map file before opening a window" "$E" view "meas.csv::map=nothing-here.map" --frames 2
+if command -v xvfb-run >/dev/null && [[ "${ELLIPSA_SKIP_WINDOW:-0}" != 1 ]]; then
+  export XDG_CONFIG_HOME="$W/config"
+  expect_rc 0 "view reads a measured file with its own map beside a simulated one" \
+    xvfb-run -a -s "-screen 0 1024x768x24" "$E" view sim.csv "meas.csv::map=$M3" --compare 2 --frames 2 --size 800x600 --software
+  printf 'theta,phi,e_total_db\n0,0,x\n' >broken.csv
+  expect_rc 1 "view --frames with a file that does not read fails" \
+    xvfb-run -a -s "-screen 0 1024x768x24" "$E" view broken.csv --frames 2 --size 800x600 --software
+  grep -q "broken.csv:2:5: expected a number" err.txt && ok "... with the reader's message" || bad "broken: $(cat err.txt)"
+else
+  echo "xvfb-run not available: the windowed checks are skipped"
+fi
+finish
