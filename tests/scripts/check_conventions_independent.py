@@ -22,6 +22,7 @@ import os
 import shutil
 import subprocess
 import sys
+import time
 
 import numpy as np
 from scipy import optimize
@@ -545,6 +546,19 @@ def check_rician_pattern(pat, name, env, k_env, direction, pol, incoming):
         check(f"{tag}: level at {key}", lv, cr.db(x), 0.01)
 
 
+def check_selection_quadrature():
+    """The reference's fixed 400-node Gauss-Legendre rule for the selection integral against
+    adaptive QUADPACK on the same integrand, and the conventions' named checks: independent equal
+    branches gain 10.2 dB (selection) and 11.7 dB (MRC) at 1 % outage over one branch."""
+    for g1, g2, rho in ((1, 0.5, 0.3), (0.2, 0.9, 0.95), (1, 1, 0.999)):
+        for x in (1e-4, 0.01, 0.3):
+            a, b = cr.cdf_selection(x, g1, g2, rho), cr.cdf_selection_adaptive(x, g1, g2, rho)
+            check(f"reference selection CDF, fixed rule against adaptive ({g1}, {g2}, {rho}, {x}), relative", a / b - 1, 0.0, 1e-10)
+    one = cr.level(lambda x: cr.cdf_single(x, 1), 0.01, 1)
+    check("reference selection gain, independent equal branches, 1 %", cr.db(cr.level(lambda x: cr.cdf_selection(x, 1, 1, 0), 0.01, 1) / one), 10.2, 0.05)
+    check("reference MRC gain, independent equal branches, 1 %", cr.db(cr.level(lambda x: cr.cdf_mrc(x, 1, 1, 0), 0.01, 1) / one), 11.7, 0.05)
+
+
 def check_simulation_reference():
     """The reference's own random-field simulation (continuous directions, closed-form fields)
     against its MEG and ECC: checks conventions_reference.py itself, as conventions.md asks."""
@@ -559,9 +573,20 @@ def check_simulation_reference():
     check("reference simulation: |complex correlation|^2 = ECC", abs(c) ** 2, cr.ecc(ANT["rhcp_tilt"][0], ANT["half_x"][0], env)[0], 0.03)
 
 
+def check_fading_random_orientation():
+    """Over uniformly random orientations each direction sees the polarisation-averaged gain, so
+    the mean received power is efficiency / 2 in any environment (Taga 1990's isotropic result)."""
+    r = run_json("fading", FILES["rhcp_tilt"], FILES["loop_z"], "--environment", "urban", "--random-orientation",
+                 "--samples", "20000")
+    for pat, name in zip(r["patterns"], ("rhcp_tilt", "loop_z")):
+        within_ci(f"fading {name} random orientation: mean power = efficiency / 2", cr.db(ANT[name][1] / 2), pat["mean_ci95_db"])
+
+
 def check_fading():
     print("== fading: exact Rayleigh/Rician levels, combining, and the simulation against them")
+    check_selection_quadrature()
     check_simulation_reference()
+    check_fading_random_orientation()
     check_fading_rayleigh()
     check_fading_rician()
 
@@ -1019,7 +1044,9 @@ if __name__ == "__main__":
     ONLY = sys.argv[4:]  # optional: run only these groups (while iterating)
     for group in ("info", "probe", "cut", "diversity", "fading", "band", "coverage", "examples", "orientations", "profile", "families", "beam_extras", "mounting", "phase_centre"):
         if not ONLY or group in ONLY:
+            start = time.monotonic()
             globals()["check_" + group]()
+            print(f"   ({group}: {time.monotonic() - start:.1f} s)")
     print(f"{PASSED[0]} passed, {len(FAIL)} failed")
     for f in FAIL:
         print("FAILED:", f)
