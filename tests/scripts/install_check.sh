@@ -8,6 +8,7 @@ set -uo pipefail
 source "$(dirname "$0")/checks.sh"  # ok, bad, expect_rc, finish
 MODE=$1; B=$2; W=$3; SRC=$4; rm -rf "$W"; mkdir -p "$W"; cd "$W"
 E=$B/ellipsa
+viewer=0; "$E" view --help >/dev/null 2>&1 && viewer=1  # built with the viewer
 
 if [[ $MODE == tree ]]; then
   cmake --install "$B" --prefix "$W/root" >install.log 2>&1 || { bad "cmake --install: $(tail -5 install.log)"; finish; exit; }
@@ -18,7 +19,7 @@ else
   ok "package $(basename "$deb") ($(du -k "$deb" | cut -f1) KiB)"
   dpkg-deb -f "$deb" Depends >depends.txt
   # Runtime dependencies: from dpkg-shlibdeps (the C++ runtime, GL, GLFW, Cairo) and the explicit Mesa drivers.
-  for p in libc6 libstdc++6 libglfw3 libcairo2 libgl1-mesa-dri; do
+  for p in libc6 libstdc++6 libcairo2 $( ((viewer)) && echo libglfw3 libgl1-mesa-dri); do
     grep -q "\b$p\b" depends.txt && ok "Depends names $p" || bad "Depends lacks $p: $(cat depends.txt)"
   done
   # apt would install it: every dependency is a Debian 12 package (simulated: nothing is installed).
@@ -28,11 +29,12 @@ else
   P=$W/root/usr
 fi
 
-# Files in their GNUInstallDirs places.
-for f in bin/ellipsa share/man/man1/ellipsa.1.gz share/bash-completion/completions/ellipsa \
-         share/zsh/vendor-completions/_ellipsa share/fish/vendor_completions.d/ellipsa.fish \
-         share/applications/ellipsa.desktop share/icons/hicolor/scalable/apps/ellipsa.svg \
-         share/ellipsa/examples/turnstile.csv share/doc/ellipsa/README.md share/doc/ellipsa/docs/guide.md; do
+# Files in their GNUInstallDirs places (the menu entry and icon only with the viewer).
+files="bin/ellipsa share/man/man1/ellipsa.1.gz share/bash-completion/completions/ellipsa
+       share/zsh/vendor-completions/_ellipsa share/fish/vendor_completions.d/ellipsa.fish
+       share/ellipsa/examples/turnstile.csv share/doc/ellipsa/README.md share/doc/ellipsa/docs/guide.md"
+[[ $viewer == 1 ]] && files+=" share/applications/ellipsa.desktop share/icons/hicolor/scalable/apps/ellipsa.svg"
+for f in $files; do
   [[ -s $P/$f ]] && ok "installed $f" || bad "missing $f"
 done
 IE=$P/bin/ellipsa
@@ -98,6 +100,7 @@ if command -v zsh >/dev/null; then
 else bad "zsh not installed (./dev installs it)"; fi
 
 # The menu entry opens the viewer with the files given; the icon is well-formed SVG.
+[[ $viewer == 1 ]] || { finish; exit; }
 desk=$P/share/applications/ellipsa.desktop
 grep -qx "Exec=ellipsa view %F" "$desk" && grep -q "^MimeType=.*text/csv;" "$desk" && ok "desktop entry: view %F, text/csv" || bad "desktop entry"
 if command -v desktop-file-validate >/dev/null; then desktop-file-validate "$desk" && ok "desktop-file-validate" || bad "desktop-file-validate"; fi
