@@ -537,10 +537,10 @@ def check_rician_pattern(pat, name, env, k_env, direction, pol, incoming):
     omega = det + diffuse
     tag = f"fading Rician {name} from {direction} {pol}"
     check(f"{tag}: mean power", pat["analytic_mean_db"], cr.db(omega), TOL_MEG_DB)
-    if det > 1e-12 * diffuse:  # below: the antenna is blind to the dominant wave (K = 0, or null)
-        check(f"{tag}: the antenna's K-factor, dB", cr.db(pat["k_factor"]) if pat["k_factor"] else None, cr.db(det / diffuse), TOL_MEG_DB)
+    if det > 1e-12 * diffuse:  # below: the antenna is blind to the dominant wave (K = 0)
+        check(f"{tag}: the antenna's K-factor, dB", cr.db(pat["k_factor"]) if pat["k_factor"] is not None else None, cr.db(det / diffuse), TOL_MEG_DB)
     else:
-        check(f"{tag}: the antenna's K-factor of a blind antenna", pat["k_factor"] or 0.0, 0.0, 1e-12)
+        check(f"{tag}: the antenna's K-factor of a blind antenna (linear, 0 up to rounding)", pat["k_factor"], 0.0, 1e-12)
     for key, lv in pat["analytic_levels_db"].items():
         x = cr.level(lambda x: cr.cdf_rician(x, det / diffuse, omega), float(key), omega)
         check(f"{tag}: level at {key}", lv, cr.db(x), 0.01)
@@ -678,6 +678,7 @@ def check_coverage():
                 check(f"{tag} (cells of the conventions' integration rule)", lv["share"], cells, 1e-9)
                 check(f"{tag} (closed form; tolerance: the cells on the contour)", lv["share"], exact,
                       boundary_share(state, weights) + 1e-9)
+    check_coverage_band_pair()
 
 
 def read_examples_csv(path):
@@ -1038,6 +1039,32 @@ def check_phase_centre():
     d = run_json("diversity", FILES["short_z"], FILES["short_z_shift"])
     want = cr.ecc(ANT["short_z"][0], ANT["short_z_shift"][0], cr.Environment(0.0))[0]
     check("ECC of a dipole and its displaced copy as given (spatial diversity)", d["ecc"], want, TOL_ECC)
+
+
+
+def check_coverage_band_pair():
+    """An elevation band (its solid angle 2 pi (sin e2 - sin e1)) and the best of two patterns in
+    every direction: shares against the closed form over the band, tolerance the contour cells."""
+    out = f"{WORK}/coverage_pair.json"
+    run("coverage", FILES["half_x"], FILES["rhcp_tilt"], "--levels", "0,-3,-6", "--elevation", "-30,30", "--out", out)
+    with open(out, encoding="utf-8") as f:
+        r = json.load(f)
+    check("coverage band solid angle, elevation -30..30 (sr)", r["band"]["solid_angle_sr"], 2 * math.pi, 1e-9)
+    tt, pp, ww = cr.sphere_quadrature(600, 720)
+    inband = abs(90 - tt) <= 30
+    ga = [component_power(n, "total", tt, pp) for n in ("half_x", "rhcp_tilt")]
+    gc = [component_power(n, "total", TT, PP) for n in ("half_x", "rhcp_tilt")]
+    weights = cr.cell_solid_angles(T, len(P)) * (abs(90 - TT) <= 30)
+    for ser in r["series"]:
+        pick = {"A": [0], "B": [1]}.get(ser["pattern"], [0, 1])
+        fine = np.max([ga[i] for i in pick], axis=0)
+        coarse = np.max([gc[i] for i in pick], axis=0)
+        for lv in ser["at_levels"]:
+            x = 10 ** (lv["level_db"] / 10)
+            exact = float((ww * (fine >= x) * inband).sum() / (ww * inband).sum())
+            tol = boundary_share(coarse >= x, weights) * 4 * math.pi / (2 * math.pi) + 0.01
+            check(f"coverage band -30..30 {ser['label']} >= {lv['level_db']} dB (closed form; contour and band-edge cells)",
+                  lv["share"], exact, tol)
 
 
 if __name__ == "__main__":
