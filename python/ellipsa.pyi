@@ -55,6 +55,14 @@ class Pattern:
             through: Optional[Tuple[float, float]] = None, along_phi: bool = False,
             components: Sequence[str] = ("total",), index: int = 0, frequency_hz: Optional[float] = None,
             step_deg: Optional[float] = None) -> dict[str, Any]: ...
+    def probe(self, theta_deg: npt.ArrayLike, phi_deg: npt.ArrayLike, index: int = 0, *,
+              frequency_hz: Optional[float] = None) -> dict[str, np.ndarray]: ...
+    def write_cut(self, path: str, phi_deg: Optional[float] = None, theta_deg: Optional[float] = None, *,
+                  through: Optional[Tuple[float, float]] = None, along_phi: bool = False,
+                  components: Sequence[str] = ("total",), index: int = 0, frequency_hz: Optional[float] = None,
+                  step_deg: Optional[float] = None, style: Literal["polar", "rect"] = "polar", range_db: float = 40.0,
+                  title: str = "", size_px: Tuple[int, int] = (1200, 900), dpi: float = 150.0,
+                  force: bool = False) -> None: ...
     def write(self, path: str, *, family: Optional[str] = None, force: bool = False) -> None: ...
     @staticmethod
     def from_arrays(theta_deg: npt.ArrayLike, phi_deg: npt.ArrayLike, e_theta: npt.ArrayLike,

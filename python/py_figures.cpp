@@ -1,6 +1,7 @@
 // Pattern.info(), Pattern.summary() (the figures of `ellipsa info`, through the command's own JSON)
 // and Pattern.cut() (the core's cuts and beam figures).
 #include "cli/info_json.hpp"
+#include "exports/cut_export.hpp"
 #include "exports/cut_figure.hpp"
 #include "exports/figure_text.hpp"
 #include "pattern/summary.hpp"
@@ -93,6 +94,31 @@ py::dict cut(const Pattern& p, std::optional<double> phi_deg, std::optional<doub
     return d;
 }
 
+// The cut as a figure (.svg, .pdf, .png) or its plotted values (.csv), as `ellipsa cut --out`.
+void write_cut(const Pattern& p, const std::string& path, std::optional<double> phi_deg, std::optional<double> theta_deg,
+               std::optional<std::array<double, 2>> through, bool along_phi, const std::vector<std::string>& components,
+               int index, std::optional<double> frequency_hz, std::optional<double> step_deg, const std::string& style,
+               double range_db, const std::string& title, std::array<int, 2> size_px, double dpi, bool force) {
+    const std::size_t fi = frequency_index(p.set, index, frequency_hz);
+    exports::CutExportRequest r;
+    r.spec = cut_spec(p, fi, phi_deg, theta_deg, through, along_phi);
+    r.components.clear();
+    for (const std::string& c : components) r.components.push_back(component_named(c));
+    if (!exports::parse_plot_style(style, r.figure.style)) throw py::value_error("style: expected \"polar\" or \"rect\"");
+    if (!(range_db > 0 && range_db <= 200)) throw py::value_error("range_db: expected 0 < range_db <= 200");
+    if (!(size_px[0] >= 16 && size_px[1] >= 16 && size_px[0] <= 10000 && size_px[1] <= 10000 && dpi >= 10 && dpi <= 2400))
+        throw py::value_error("size_px: expected 16..10000 pixels each way, dpi 10..2400");
+    r.figure.range_db = range_db, r.figure.title = title;
+    r.size = {size_px[0], size_px[1], dpi};
+    r.step_deg = step_deg.value_or(0);
+    Result<exports::CutData> done = Error{};
+    {
+        py::gil_scoped_release unlocked;
+        done = exports::export_cut(p.set, fi, r, path, force);
+    }
+    take(std::move(done));
+}
+
 }  // namespace
 
 void bind_figures(py::module_& m) {
@@ -115,6 +141,15 @@ void bind_figures(py::module_& m) {
           "that direction along theta-hat, or along phi-hat with along_phi=True); none of them: the elevation\n"
           "cut through the peak. Returns a dict of arrays angle_deg, theta_deg, phi_deg, e_theta, e_phi, valid;\n"
           "power[component] (linear, NaN outside the data) and beam[component] (HPBW, front-to-back, side lobe).");
+    p.def("write_cut", &write_cut, py::arg("path"), py::arg("phi_deg") = py::none(), py::arg("theta_deg") = py::none(),
+          py::kw_only(), py::arg("through") = py::none(), py::arg("along_phi") = false,
+          py::arg("components") = std::vector<std::string>{"total"}, py::arg("index") = 0,
+          py::arg("frequency_hz") = py::none(), py::arg("step_deg") = py::none(), py::arg("style") = "polar",
+          py::arg("range_db") = 40.0, py::arg("title") = "", py::arg("size_px") = std::array<int, 2>{1200, 900},
+          py::arg("dpi") = 150.0, py::arg("force") = false,
+          "Write one cut as `ellipsa cut --out` does: a figure (.svg, .pdf, .png; style \"polar\" or \"rect\",\n"
+          "range_db below the top) or the plotted values (.csv), chosen by the file name. The cut as in cut().\n"
+          "An existing file is replaced only with force=True.");
 }
 
 }  // namespace ellipsa::python

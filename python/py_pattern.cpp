@@ -4,6 +4,7 @@
 
 #include "cli/load.hpp"
 #include "importers/far_field_csv.hpp"
+#include "pattern/interpolate.hpp"
 #include "pattern/polarisation.hpp"
 #include "pattern/reference.hpp"
 #include "python/py_common.hpp"
@@ -172,36 +173,80 @@ py::array power(const Pattern& p, const std::string& component, int index, std::
     return out;
 }
 
-// Every basis and polarisation figure of every sample, through decompose() (the one definition).
+// Arrays of every basis and polarisation figure, filled one sample at a time from decompose()
+// (the one definition the command line and the viewer use).
+class StateArrays {
+public:
+    explicit StateArrays(std::vector<py::ssize_t> shape) : sense_(shape) {
+        for (int k = 0; k < 6; ++k) cx_.emplace_back(shape);
+        for (int k = 0; k < 7; ++k) re_.emplace_back(shape);
+    }
+    void set(std::size_t k, const PolarisationState& st) {
+        const cplx c[] = {st.e_theta, st.e_phi, st.e_rhcp, st.e_lhcp, st.e_co, st.e_cross};
+        const double r[] = {st.axial_ratio, st.axial_ratio_db.value_or(std::nan("")), st.tilt_deg,
+                            st.stokes.i, st.stokes.q, st.stokes.u, st.stokes.v};
+        for (int j = 0; j < 6; ++j) cx_[j].mutable_data()[k] = c[j];
+        for (int j = 0; j < 7; ++j) re_[j].mutable_data()[k] = r[j];
+        sense_.mutable_data()[k] = std::int8_t(st.sense);
+    }
+    // A direction outside the data: NaN everywhere, sense "none".
+    void set_missing(std::size_t k) {
+        for (auto& a : cx_) a.mutable_data()[k] = cplx(std::nan(""), std::nan(""));
+        for (auto& a : re_) a.mutable_data()[k] = std::nan("");
+        sense_.mutable_data()[k] = std::int8_t(Sense::none);
+    }
+    // with_fields: also e_theta and e_phi (a probe's interpolated values; the grid has its views).
+    py::dict dict(bool with_fields) const {
+        const char* cx_names[] = {"e_theta", "e_phi", "e_rhcp", "e_lhcp", "e_co", "e_cross"};
+        const char* re_names[] = {"axial_ratio", "axial_ratio_db", "tilt_deg", "stokes_i", "stokes_q", "stokes_u", "stokes_v"};
+        py::dict d;
+        for (int j = with_fields ? 0 : 2; j < 6; ++j) d[cx_names[j]] = cx_[j];
+        for (int j = 0; j < 7; ++j) d[re_names[j]] = re_[j];
+        d["sense"] = sense_;
+        return d;
+    }
+
+private:
+    std::vector<py::array_t<cplx>> cx_;
+    std::vector<py::array_t<double>> re_;
+    py::array_t<std::int8_t> sense_;
+};
+
 py::dict polarisation(const Pattern& p, int index, std::optional<double> frequency_hz) {
     const FarFieldSet& s = p.set;
     const std::size_t fi = frequency_index(s, index, frequency_hz);
     if (auto why = polarisation_unavailable(s)) raise(Error{s.source, 0, 0, *why});
-    const std::vector<py::ssize_t> shape{s.grid.theta.count, s.grid.phi.count};
-    const char* complex_names[] = {"e_rhcp", "e_lhcp", "e_co", "e_cross"};
-    const char* real_names[] = {"axial_ratio", "axial_ratio_db", "tilt_deg", "stokes_i", "stokes_q", "stokes_u", "stokes_v"};
-    std::vector<py::array_t<cplx>> cx;
-    std::vector<py::array_t<double>> re;
-    for (int k = 0; k < 4; ++k) cx.emplace_back(shape);
-    for (int k = 0; k < 7; ++k) re.emplace_back(shape);
-    py::array_t<std::int8_t> sense(shape);
+    StateArrays out({s.grid.theta.count, s.grid.phi.count});
     const FarField& f = s.frequencies[fi];
     for (int it = 0; it < s.grid.theta.count; ++it)
         for (int ip = 0; ip < s.grid.phi.count; ++ip) {
             const std::size_t k = s.grid.index(it, ip);
-            const PolarisationState st = decompose(f.e_theta[k], f.e_phi[k], s.grid.phi.value_deg(ip) * deg, s.ludwig3_reference);
-            const cplx c[] = {st.e_rhcp, st.e_lhcp, st.e_co, st.e_cross};
-            const double r[] = {st.axial_ratio, st.axial_ratio_db.value_or(std::nan("")), st.tilt_deg,
-                                st.stokes.i, st.stokes.q, st.stokes.u, st.stokes.v};
-            for (int j = 0; j < 4; ++j) cx[j].mutable_data()[k] = c[j];
-            for (int j = 0; j < 7; ++j) re[j].mutable_data()[k] = r[j];
-            sense.mutable_data()[k] = std::int8_t(st.sense);
+            out.set(k, decompose(f.e_theta[k], f.e_phi[k], s.grid.phi.value_deg(ip) * deg, s.ludwig3_reference));
         }
-    py::dict d;
-    for (int j = 0; j < 4; ++j) d[complex_names[j]] = cx[j];
-    for (int j = 0; j < 7; ++j) d[real_names[j]] = re[j];
-    d["sense"] = sense;
-    return d;
+    return out.dict(false);
+}
+
+// Any directions (arrays broadcast together), interpolated as `ellipsa probe` does.
+py::dict probe(const Pattern& p, py::object theta_deg, py::object phi_deg, int index, std::optional<double> frequency_hz) {
+    const FarFieldSet& s = p.set;
+    const std::size_t fi = frequency_index(s, index, frequency_hz);
+    if (auto why = polarisation_unavailable(s)) raise(Error{s.source, 0, 0, *why});
+    py::module_ np = py::module_::import("numpy");
+    py::tuple b = np.attr("broadcast_arrays")(np.attr("asarray")(theta_deg, "float64"), np.attr("asarray")(phi_deg, "float64"));
+    using Doubles = py::array_t<double, py::array::c_style | py::array::forcecast>;
+    const Doubles t = Doubles::ensure(b[0]), f = Doubles::ensure(b[1]);
+    StateArrays out(std::vector<py::ssize_t>(t.shape(), t.shape() + t.ndim()));
+    for (py::ssize_t k = 0; k < t.size(); ++k) {
+        const double th = t.data()[k], ph = f.data()[k];
+        if (!(th >= 0 && th <= 180) || !std::isfinite(ph))
+            throw py::value_error("theta_deg: expected 0..180 deg, phi_deg: finite angles");
+        const auto v = interpolate(s, fi, th, ph);
+        if (v)
+            out.set(std::size_t(k), decompose(v->e_theta, v->e_phi, ph * deg, s.ludwig3_reference));
+        else
+            out.set_missing(std::size_t(k));
+    }
+    return out.dict(true);
 }
 
 }  // namespace
@@ -244,9 +289,14 @@ static void bind_pattern_class(py::module_& m) {
              "Power of one component over the grid, (theta, phi), linear in the pattern's quantity (db=True: 10 log10,\n"
              "-inf for zero). Components: ellipsa.COMPONENTS. Raises ellipsa.Error when the data cannot give it.")
         .def("polarisation", &polarisation, py::arg("index") = 0, py::kw_only(), py::arg("frequency_hz") = py::none(),
-             "Every sample in every basis: a dict of (theta, phi) arrays e_rhcp, e_lhcp, e_co, e_cross (complex),\n"
+             "Every grid sample in every basis: a dict of (theta, phi) arrays e_rhcp, e_lhcp, e_co, e_cross (complex),\n"
              "axial_ratio (linear, inf when linear, NaN for a zero field), axial_ratio_db (as reported: NaN when\n"
              "linear or zero), tilt_deg (NaN where undefined), stokes_i/q/u/v, and sense (codes into ellipsa.SENSES).")
+        .def("probe", &probe, py::arg("theta_deg"), py::arg("phi_deg"), py::arg("index") = 0, py::kw_only(),
+             py::arg("frequency_hz") = py::none(),
+             "The field and its polarisation at any directions, as `ellipsa probe` gives them: theta_deg and phi_deg\n"
+             "(numbers or arrays, broadcast together) interpolated on the Cartesian field vector; the same keys as\n"
+             "polarisation() plus e_theta and e_phi, NaN (sense \"none\") outside the sampled region.")
         .def("write", &write, py::arg("path"), py::kw_only(), py::arg("family") = py::none(), py::arg("force") = false,
              "Write the pattern in the far-field CSV schema (docs/far-field-csv.md). family: \"complex\",\n"
              "\"theta-phi-db-phase\", \"circular-db-phase\", \"ludwig3-db-phase\", \"theta-phi-db\", \"total-db\"\n"

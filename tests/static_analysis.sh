@@ -9,7 +9,7 @@
 set -euo pipefail
 cd "$(dirname "$0")/.."
 dirs=()
-for d in pattern io importers cli viewer exports; do [[ -d $d ]] && dirs+=("$d"); done
+for d in pattern io importers cli viewer exports python; do [[ -d $d ]] && dirs+=("$d"); done
 cppcheck --quiet --enable=warning,performance,portability --std=c++20 --language=c++ \
   --suppress=passedByValue --suppress=missingIncludeSystem --suppress=internalAstError --inline-suppr \
   --error-exitcode=1 -I . "${dirs[@]}"

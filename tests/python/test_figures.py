@@ -106,3 +106,45 @@ def test_polarisation_arrays_are_the_cli_probe(cli_json):
         assert ellipsa.SENSES[pol["sense"][i, j]] == probe["sense"]
         stokes = [pol[f"stokes_{s}"][i, j] for s in "iquv"]
         np.testing.assert_allclose(stokes, probe["stokes"], rtol=1e-9, atol=1e-12)
+
+
+def test_probe_is_the_cli_probe_between_samples(cli_json):
+    path = str(EXAMPLES / "turnstile.csv")
+    p = ellipsa.read(path)
+    k = p.frequency_index(2.45e9)
+    # At grid samples the probe returns the samples themselves (interpolate.hpp).
+    g = p.probe(p.theta_deg[:, None], p.phi_deg[None, :], k)
+    np.testing.assert_allclose(g["e_theta"], p.e_theta(k), rtol=1e-12, atol=1e-15)
+    np.testing.assert_allclose(g["stokes_v"], p.polarisation(k)["stokes_v"], rtol=1e-9, atol=1e-15)
+    # Between samples: what `ellipsa probe` says there.
+    theta, phi = np.array([12.5, 47.3, 91.0]), np.array([3.0, 181.7, 359.2])
+    q = p.probe(theta, phi, frequency_hz=2.45e9)
+    for n in range(3):
+        want = cli_json("probe", path, "--theta", theta[n], "--phi", phi[n], "--frequency", "2.45e9")
+        assert 10 * np.log10(q["stokes_i"][n]) == pytest.approx(want["total_db"], abs=1e-9)
+        np.testing.assert_allclose([q[f"stokes_{s}"][n] for s in "iquv"], want["stokes"], rtol=1e-9, atol=1e-12)
+        assert ellipsa.SENSES[q["sense"][n]] == want["sense"]
+
+
+def test_probe_outside_the_data_is_nan():
+    p = ellipsa.read(str(EXAMPLES / "measured-loop-range.csv"), map_file=str(EXAMPLES / "measured-loop.map"))
+    q = p.probe([10.0, 150.0], 0.0)  # the range sampled the upper hemisphere only
+    assert np.isfinite(q["stokes_i"][0]) and np.isnan(q["stokes_i"][1])
+    assert ellipsa.SENSES[q["sense"][1]] == "none"
+    with pytest.raises(ValueError, match="theta_deg"):
+        p.probe(190.0, 0.0)
+
+
+def test_write_cut_is_the_cli_cut(tmp_path, cli):
+    path = str(EXAMPLES / "turnstile.csv")
+    p = ellipsa.read(path)
+    code, _, err = cli("cut", path, "--theta", "60", "--frequency", "2.45e9", "--components", "rhcp,lhcp",
+                       "--out", tmp_path / "cli.csv")
+    assert code == 0, err
+    p.write_cut(str(tmp_path / "py.csv"), theta_deg=60, components=["rhcp", "lhcp"], frequency_hz=2.45e9)
+    assert (tmp_path / "py.csv").read_bytes() == (tmp_path / "cli.csv").read_bytes()
+    p.write_cut(str(tmp_path / "py.svg"), phi_deg=0, components=["total"], style="rect")
+    assert b"<svg" in (tmp_path / "py.svg").read_bytes()[:400]
+    with pytest.raises(ellipsa.Error, match="exists"):
+        p.write_cut(str(tmp_path / "py.svg"), phi_deg=0)
+    p.write_cut(str(tmp_path / "py.svg"), phi_deg=0, force=True)
