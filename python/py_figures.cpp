@@ -22,9 +22,7 @@ py::dict info(const Pattern& p, std::optional<double> frequency_hz) {
     std::string text;
     {
         py::gil_scoped_release unlocked;
-        std::vector<PatternSummary> rs;
-        for (std::size_t k : which) rs.push_back(summarize(p.set, k));
-        text = cli::info_json(p.set, which, rs);
+        text = cli::info_json(p.set, which, summarize_each(p.set, which));  // as `ellipsa info` does
     }
     return py::module_::import("json").attr("loads")(text);
 }
