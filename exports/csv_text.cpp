@@ -16,4 +16,14 @@ void append_csv_number(std::string& out, double v) {
     out += buf;
 }
 
+void append_csv_text(std::string& out, const std::string& s) {
+    if (s.find_first_of(",\"\r\n") == std::string::npos) {
+        out += s;
+        return;
+    }
+    out += '"';
+    for (char c : s) out += c == '"' ? std::string("\"\"") : std::string(1, c);
+    out += '"';
+}
+
 }  // namespace ellipsa::exports

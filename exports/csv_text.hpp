@@ -6,5 +6,8 @@
 namespace ellipsa::exports {
 
 void append_csv_number(std::string& out, double v);
+// A text field: as it is, or in double quotes (inner quotes doubled) when it holds a comma, a
+// quote or a line break (RFC 4180).
+void append_csv_text(std::string& out, const std::string& s);
 
 }  // namespace ellipsa::exports

@@ -1,5 +1,6 @@
 #include "exports/document.hpp"
 
+#include <algorithm>
 #include <cctype>
 
 namespace ellipsa::exports {
@@ -199,6 +200,54 @@ std::string to_markdown(const Document& d) {
                     if (!f.vector_file.empty()) o += " ([SVG](" + url(f.vector_file) + "))";
                     o += "\n\n";
                 }
+                break;
+        }
+    }
+    return o;
+}
+
+namespace {
+std::size_t text_width(const std::string& s) {
+    std::size_t n = 0;
+    for (unsigned char c : s) n += (c & 0xC0) != 0x80;
+    return n;
+}
+}  // namespace
+
+std::string to_text(const DocTable& t) {
+    std::vector<std::size_t> w(t.header.size(), 0);
+    for (std::size_t i = 0; i < t.header.size(); ++i) w[i] = text_width(t.header[i]);
+    for (const auto& row : t.rows)
+        for (std::size_t i = 0; i < row.size() && i < w.size(); ++i) w[i] = std::max(w[i], text_width(row[i]));
+    auto line = [&](const std::vector<std::string>& cells) {
+        std::string o;
+        for (std::size_t i = 0; i < w.size(); ++i) {
+            const std::string c = i < cells.size() ? cells[i] : std::string();
+            const std::string pad(w[i] - text_width(c), ' ');
+            o += (i ? "  " : "") + (is_numeric_col(t, i) ? pad + c : c + (i + 1 < w.size() ? pad : ""));
+        }
+        while (!o.empty() && o.back() == ' ') o.pop_back();
+        return o + "\n";
+    };
+    std::string o = line(t.header);
+    std::vector<std::string> rule;
+    for (std::size_t n : w) rule.push_back(std::string(n, '-'));
+    o += line(rule);
+    for (const auto& row : t.rows) o += line(row);
+    return o;
+}
+
+std::string to_text(const Document& d) {
+    std::string o = d.title.empty() ? "" : d.title + "\n";
+    for (const DocBlock& b : d.blocks) {
+        switch (b.kind) {
+            case DocBlock::Kind::heading: o += "\n" + b.text + "\n"; break;
+            case DocBlock::Kind::paragraph:
+            case DocBlock::Kind::note: o += b.text + "\n"; break;
+            case DocBlock::Kind::table: o += to_text(b.table); break;
+            case DocBlock::Kind::figures:
+                for (const DocFigure& f : b.figures)
+                    o += "figure: " + f.caption + " (" + (f.vector_file.empty() ? f.raster_file : f.vector_file) + ")\n";
                 break;
         }
     }

@@ -45,6 +45,11 @@ std::string to_html(const Document& d);
 // GitHub-flavoured Markdown (pipe tables, image links).
 std::string to_markdown(const Document& d);
 
+// Plain text for a terminal: headings and paragraphs as lines, tables in aligned columns (numeric
+// columns right-aligned, widths counted in UTF-8 characters), figures by caption and file.
+std::string to_text(const Document& d);
+std::string to_text(const DocTable& t);
+
 // Escaping helpers (exposed for tests).
 std::string html_escape(const std::string& s);
 std::string markdown_escape_cell(const std::string& s);

@@ -86,6 +86,7 @@ Status validate_outages(const std::vector<double>& outages) {
 }
 
 double rayleigh_cdf(double x, double g) { return x > 0 ? -std::expm1(-x / g) : 0.0; }
+double rayleigh_level(double p, double g) { return -std::log1p(-p) * g; }
 
 Eigenvalues branch_eigenvalues(const BranchPair& b) {
     const double half_sum = 0.5 * (b.g1 + b.g2), half_diff = 0.5 * (b.g1 - b.g2);
@@ -181,7 +182,7 @@ Result<CombiningFigures> combine_two_branches(const BranchPair& b, const std::ve
     for (double p : outages) {
         OutageFigures o;
         o.outage = p;
-        const double single = -std::log1p(-p);  // the level of a unit-mean branch
+        const double single = rayleigh_level(p, 1.0);  // the level of a unit-mean branch
         o.branch1_level = b.g1 * single;
         o.branch2_level = b.g2 * single;
         o.ideal_level = ideal_isotropic_meg * single;

@@ -54,6 +54,9 @@ Status validate(const BranchPair& b);
 
 // Distribution functions of the received power x >= 0 (linear, the unit of the means).
 double rayleigh_cdf(double x, double g);
+// Its inverse: the level a Rayleigh branch of mean power g falls below with probability p,
+// g (-ln(1 - p)) (0.01005 g at 1 %: 19.98 dB below the mean).
+double rayleigh_level(double p, double g);
 // Exact. Cost: about min(x / (G (1 - rho)), 41 / (1 - rho)) + 60 terms, a few hundred for rho up
 // to 0.99 at the usual outages. Where that would exceed 1e6 terms (rho within about x / (1e6 G)
 // of 1) the fully correlated limit (the stronger branch alone) is returned; the selection gain

@@ -476,7 +476,10 @@ Result<OrientationFigures> orientation_robustness(const FarFieldSet& s, std::siz
         for (std::size_t q = 0; q <= out.samples.size(); ++q) {
             if (q == out.samples.size() || out.samples[q].tilt_deg != out.samples[first].tilt_deg) {
                 const double each = band[k] / double(q - first);
-                for (std::size_t r = first; r < q; ++r) weighted.push_back({out.samples[r].meg, each});
+                for (std::size_t r = first; r < q; ++r) {
+                    weighted.push_back({out.samples[r].meg, each});
+                    out.random_weights.push_back(each / wsum);
+                }
                 ++k;
                 first = q;
             }

@@ -99,6 +99,9 @@ struct OrientationFigures {
     // The MEG that 90 % of such random orientations reach or exceed (same weights; the value of
     // the sample where the cumulative weight passes 10 %).
     double random_p10 = 0;
+    // Each sample's weight in that random-orientation distribution (in the order of `samples`,
+    // summing to 1): what a mixture over orientations (rank.hpp's fading level) integrates with.
+    std::vector<double> random_weights;
     bool exact_roll_shift = false;  // rolls done by exact column shifts of the grid (roll step multiple of phi step)
 };
 // Cost: with the roll step a multiple of the grid's phi step, one acos and two density

@@ -108,10 +108,14 @@ CVec3 reference_field(const ReferenceAntenna& a, double scale, Vec3 dir) {
 }
 
 FarFieldSet synthesize(const ReferenceAntenna& a, double step_deg, double frequency_hz) {
+    return synthesize_on(a, full_sphere_grid(step_deg, step_deg), frequency_hz);
+}
+
+FarFieldSet synthesize_on(const ReferenceAntenna& a, const Grid& grid, double frequency_hz) {
     FarFieldSet s;
     s.quantity = Quantity::gain;
     s.content = FieldContent::complex;
-    s.grid = full_sphere_grid(step_deg, step_deg);
+    s.grid = grid;
     s.name = to_string(a.kind);
     s.source = "ellipsa synth: " + describe(a);
     const double scale = normalisation(a);

@@ -37,6 +37,8 @@ CVec3 reference_field(const ReferenceAntenna& a, double scale, Vec3 dir);
 
 // Sample the antenna on a full-sphere grid (theta 0..180, phi 0..360-step) at one frequency.
 FarFieldSet synthesize(const ReferenceAntenna& a, double step_deg, double frequency_hz);
+// The same on any grid (a partial one too: the antenna's samples at those directions).
+FarFieldSet synthesize_on(const ReferenceAntenna& a, const Grid& grid, double frequency_hz);
 
 // A short description, e.g. "dipole, L = 1.25 wavelengths".
 std::string describe(const ReferenceAntenna& a);
