@@ -12,7 +12,8 @@ namespace {
 // The options that name a pattern file, by their CLI11 names.
 bool names_pattern_file(const CLI::Option* opt) {
     const std::string n = opt->get_name();
-    return n == "FILE" || n == "FILE2" || n == "IN" || n == "--minus" || n == "--partner";
+    return n == "FILE" || n == "FILE2" || n == "IN" || n == "--minus" || n == "--partner" ||
+           n == "--reference";
 }
 
 // Keeps PATH of "PATH::key=value..." and records the file's own options.

@@ -26,7 +26,7 @@ struct LoadOptions : FileOptions {
 };
 // The one place that adds the import options (--map, --map-file, --assume, --scale, --offset)
 // to a subcommand; they apply to every pattern file of the command. Call it after the options
-// that name pattern files (the positionals FILE, FILE2, IN and --minus, --partner): those accept
+// that name pattern files (the positionals FILE, FILE2, IN and --minus, --partner, --reference): those accept
 // "PATH::key=value" and keep PATH.
 void add_load_options(CLI::App* sub, LoadOptions& o);
 // The reader options the command-line options describe (a map file is read here). A --map value
