@@ -308,11 +308,17 @@ std::vector<DocFile> cli_documents(const std::vector<CommandDoc>& commands, cons
 
 int write_cli_documents(const CLI::App& root, const std::string& dir) {
     namespace fs = std::filesystem;
-    for (const DocFile& f : cli_documents(describe_commands(root), ELLIPSA_VERSION)) {
+    const std::vector<DocFile> files = cli_documents(describe_commands(root), ELLIPSA_VERSION);
+    std::error_code ec;
+    // Never replaces a file, and writes nothing when one is in the way: the build empties the folder first.
+    for (const DocFile& f : files)
+        if (fs::exists(fs::symlink_status(fs::path(dir) / f.path, ec))) {
+            std::cerr << "ellipsa: " << (fs::path(dir) / f.path).string() << ": already exists; give an empty folder\n";
+            return exit_bad_input;
+        }
+    for (const DocFile& f : files) {
         const fs::path p = fs::path(dir) / f.path;
-        std::error_code ec;
         fs::create_directories(p.parent_path(), ec);
-        // Never replaces a file (the build empties the folder first).
         Status st = ec ? Status(Error{p.parent_path().string(), 0, 0, "cannot create the folder: " + ec.message()})
                        : io::write_file_atomically(p.string(), f.text, false);
         if (!st) {
