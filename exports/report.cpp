@@ -8,6 +8,7 @@
 #include "exports/cut_figure.hpp"
 #include "exports/document.hpp"
 #include "exports/figure_text.hpp"
+#include "exports/report_link.hpp"
 #include "exports/report_views.hpp"
 #include "io/atomic_write.hpp"
 #include "pattern/cut.hpp"
@@ -382,6 +383,17 @@ Result<std::vector<ReportFile>> build_report(const std::vector<ReportInput>& inp
             figs.push_back(f);
         }
         doc.figures(figs);
+    }
+
+    {
+        // Link reliability at the comparison's frequency: the middle one of the first pattern's.
+        const double f0 =
+            o.frequency_hz ? *o.frequency_hz : inputs[0].set.frequencies[freqs[0][freqs[0].size() / 2]].frequency_hz;
+        std::vector<LinkInput> link;
+        for (std::size_t i = 0; i < inputs.size(); ++i)
+            link.push_back({&inputs[i].set, inputs[i].path, letter(i) + ". " + display_name(inputs[i]),
+                            inputs[i].set.nearest_frequency(f0)});
+        if (Status st = link_section(doc, files, link, o); !st) return st.error();
     }
 
     doc.heading(2, "Method", "method");

@@ -112,7 +112,21 @@ TEST_CASE("report: files, self-contained HTML, same figures in HTML and Markdown
         // (Taga 1990; conventions.md), for both antennas.
         CHECK(doc->find("MEG, uniform environment (dB)") != std::string::npos);
         CHECK(count_of(*doc, "-3.01") >= 2);
+        // Link reliability: the fading curves, the ranking against the reference dipole and the
+        // cautions beside them. The half-wave dipole is the reference itself: advantage 0.00 dB.
+        CHECK(doc->find("Link reliability") != std::string::npos);
+        CHECK(doc->find("Ranking") != std::string::npos);
+        CHECK(doc->find("lossless vertical half-wave dipole") != std::string::npos);
+        CHECK(doc->find("not a survey of your site") != std::string::npos);
+        CHECK(doc->find("local regulations") != std::string::npos);
     }
+    CHECK(names.count("link-fading.svg") == 1);
+    CHECK(names.count("link-fading.png") == 1);
+    CHECK(names.count("link-fading.csv") == 1);
+    // Both lossless, both at -3.01 dBi in the isotropic environment: the ranking's scores are 0.
+    INFO(md->bytes.substr(md->bytes.find("| Rank |"), 400));
+    CHECK(md->bytes.find("| A. Half-wave dipole | Half-wave dipole.csv | 2.45 GHz | 0.00 |") != std::string::npos);
+    CHECK(md->bytes.find("| B. Turnstile tilted | Turnstile tilted.csv | 2.45 GHz | 0.00 |") != std::string::npos);
 }
 
 TEST_CASE("report: the curves chosen follow the polarisation at the peak", "[export][report]") {
