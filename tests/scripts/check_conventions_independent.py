@@ -277,6 +277,9 @@ def check_probe_point(name, t, p, ref, on_grid):
             check(f"{tag} tilt (deg, modulo 180)", dt, 0.0, 1e-6 if on_grid else 0.5)
     elif ar == math.inf and on_grid:
         check_equal(f"{tag} purely linear: axial ratio null", r["axial_ratio_db"], None)
+        if vals["total"] > 1e-24 * peak:  # a linear field still has a tilt: atan2(E_phi, E_theta) mod 180
+            dt = (r["tilt_deg"] - cr.tilt_deg(et, ep) + 90) % 180 - 90 if r["tilt_deg"] is not None else None
+            check(f"{tag} purely linear: tilt (deg, modulo 180)", dt, 0.0, 1e-6)
         zero = vals["total"] <= 1e-24 * peak  # written as an exact zero (clean())
         check_equal(f"{tag} purely linear: sense", r["sense"], None if zero else "linear")
 
@@ -1067,9 +1070,77 @@ def check_coverage_band_pair():
                   lv["share"], exact, tol)
 
 
+
+def orientation_set(tilt_step, tilt_max, roll_step):
+    """The sweep's orientations R = R_x(tilt) R_z(roll) (docs/diversity.md), tilts 0 and 180 once."""
+    out = []
+    for tilt in np.arange(0, tilt_max + 1e-9, tilt_step):
+        rolls = [0.0] if tilt in (0, 180) else np.arange(0, 360 - 1e-9, roll_step)
+        out += [cr.rotation_about("x", tilt) @ cr.rotation_about("z", roll) for roll in rolls]
+    return out
+
+
+def random_orientation_level(name, env, p, n_tilt=16, n_roll=24):
+    """The p-quantile of the received power over Rayleigh fading and a uniformly random
+    orientation: solve sum_i w_i (1 - exp(-x / MEG_i)) = p over orientations drawn on a product
+    rule for the Haar measure (Gauss-Legendre in cos(tilt), uniform roll and azimuth; the
+    environments are uniform in azimuth, so the azimuth need not be sampled)."""
+    u, w = np.polynomial.legendre.leggauss(n_tilt)
+    megs, weights = [], []
+    for ui, wi in zip(u, w):
+        for roll in np.arange(n_roll) * 360.0 / n_roll:
+            rot = cr.rotation_about("x", math.degrees(math.acos(ui))) @ cr.rotation_about("z", roll)
+            megs.append(cr.meg(cr.Rotated(ANT[name][0], rot), env, 120, 180)[0])
+            weights.append(wi / 2 / n_roll)
+    megs, weights = np.array(megs), np.array(weights)
+    f = lambda lx: float((weights * -np.expm1(-math.exp(lx) / megs)).sum()) - p
+    return math.exp(optimize.brentq(f, math.log(megs.max()) - 40, math.log(megs.max()) + 5, xtol=1e-12))
+
+
+def check_rank():
+    """ellipsa rank: MEG and advantages over a lossless vertical half-wave dipole (Balanis sec. 4.5)
+    in each environment, the Rayleigh level at the outage (MEG (-ln(1 - p)), conventions.md), the
+    worst orientation of the sweep, the level with a random orientation, the score and the order."""
+    print("== rank: candidates against the reference dipole")
+    if " rank " not in run("--help").stdout.replace("\n", " "):
+        print("info rank not on main yet: nothing to check")
+        return
+    names = ["rhcp_tilt", "half_x", "loop_z"]
+    envs = {"uniform": cr.Environment(0.0), "indoor": cr.Environment(1.0, (0, 30), (0, 30)),
+            "urban": cr.Environment(6.0, (10, 15), (10, 15))}
+    r = run_json("rank", *(FILES[n] for n in names), "--environment", ",".join(envs))
+    ref = cr.Antenna().dipole([0, 0, 1], 0.5).normalise()
+    ref_meg = {k: cr.meg(ref, e)[0] for k, e in envs.items()}
+    for k in envs:
+        check(f"rank reference dipole MEG {k}", r["reference"]["environments"][k]["meg_db"], cr.db(ref_meg[k]), TOL_MEG_DB)
+    p = r["outage"]
+    scores = []
+    for row in r["rows"]:
+        name = os.path.splitext(os.path.basename(row["file"]))[0]
+        parts = []
+        for k, env in envs.items():
+            f = row["environments"][k]
+            m = meg_of(k if k != "urban" else "urban", name, env)[0]
+            tag = f"rank {name} {k}"
+            check(f"{tag} MEG", f["meg_db"], cr.db(m), TOL_MEG_DB)
+            check(f"{tag} advantage over the dipole", f["advantage_db"], cr.db(m / ref_meg[k]), 2 * TOL_MEG_DB)
+            check(f"{tag} Rayleigh level at {p}", f["fading_levels_db"][format(p, "g")], cr.db(m * -math.log1p(-p)), TOL_MEG_DB)
+            if k == "indoor":  # one environment for the orientation figures keeps the run short
+                worst = min(cr.meg(cr.Rotated(ANT[name][0], rot), env, 120, 180)[0] for rot in orientation_set(15, 180, 15))
+                check(f"{tag} worst orientation of the 15-degree sweep", f["orientation_worst_db"], cr.db(worst), 0.02)
+            if (name, k) in (("rhcp_tilt", "indoor"), ("half_x", "urban")):
+                want = random_orientation_level(name, env, p)
+                # the sweep's 15-degree steps against a fine product rule: 0.1 dB (common practice)
+                check(f"{tag} level at {p} with a random orientation", f["fading_levels_random_db"][format(p, "g")], cr.db(want), 0.1)
+            parts.append(f["score_part_db"])
+        check(f"rank {name} score = mean of the environments' parts", row["score_db"], float(np.mean(parts)), 1e-9)
+        scores.append(row["score_db"])
+    check_equal("rank rows sorted by score, best first", scores, sorted(scores, reverse=True))
+
+
 if __name__ == "__main__":
     ONLY = sys.argv[4:]  # optional: run only these groups (while iterating)
-    for group in ("info", "probe", "cut", "diversity", "fading", "band", "coverage", "examples", "orientations", "profile", "families", "beam_extras", "mounting", "phase_centre"):
+    for group in ("info", "probe", "cut", "diversity", "fading", "band", "coverage", "examples", "orientations", "profile", "families", "beam_extras", "mounting", "phase_centre", "rank"):
         if not ONLY or group in ONLY:
             start = time.monotonic()
             globals()["check_" + group]()
