@@ -13,8 +13,9 @@ void raise(const Error& e) {
     throw py::error_already_set();
 }
 
-std::size_t frequency_index(const FarFieldSet& s, int index, const std::optional<double>& frequency_hz) {
-    if (frequency_hz) return take(find_frequency(s, *frequency_hz, s.source));
+std::size_t frequency_index(const Pattern& p, int index, const std::optional<double>& frequency_hz) {
+    const FarFieldSet& s = p.set;
+    if (frequency_hz) return take(find_frequency(s, *frequency_hz, p.path));
     if (index < 0 || std::size_t(index) >= s.frequencies.size())
         throw py::index_error("frequency index " + std::to_string(index) + " outside 0.." +
                               std::to_string(int(s.frequencies.size()) - 1));
@@ -29,8 +30,8 @@ Component component_named(const std::string& name) {
     throw py::value_error("unknown component \"" + name + "\"; expected one of " + known);
 }
 
-void check_component(const FarFieldSet& s, Component c) {
-    if (auto why = component_unavailable(s, c)) raise(Error{s.source, 0, 0, std::string(to_string(c)) + ": " + *why});
+void check_component(const Pattern& p, Component c) {
+    if (auto why = component_unavailable(p.set, c)) raise(Error{p.path, 0, 0, std::string(to_string(c)) + ": " + *why});
 }
 
 }  // namespace ellipsa::python

@@ -23,7 +23,10 @@ namespace py = pybind11;
 // of its arrays stay valid as long as the Python object lives (each view holds it as its base).
 struct Pattern {
     FarFieldSet set;
+    std::string path;  // names the pattern in Errors, as the command line names its file
 };
+// The name Errors give a pattern made without a file.
+inline std::string label_of(const FarFieldSet& s) { return s.name.empty() ? std::string("the pattern") : s.name; }
 using PatternPtr = std::shared_ptr<Pattern>;
 
 // What `ellipsa.Environment` wraps: the environment as chosen, with where its XPR came from.
@@ -61,11 +64,11 @@ py::array_t<T> copy(const std::vector<T>& v, std::vector<py::ssize_t> shape = {}
 
 // The frequency to use: `frequency_hz` when given (nearest within 0.5 %, else an Error listing
 // what the set holds), else `index` (checked).
-std::size_t frequency_index(const FarFieldSet& s, int index, const std::optional<double>& frequency_hz);
+std::size_t frequency_index(const Pattern& p, int index, const std::optional<double>& frequency_hz);
 // A component by its machine name ("total", "rhcp", ...), or ValueError listing the names.
 Component component_named(const std::string& name);
 // Raise ellipsa.Error when the set cannot give the component (the core's reason).
-void check_component(const FarFieldSet& s, Component c);
+void check_component(const Pattern& p, Component c);
 
 // Optional values as Python None.
 inline py::object opt(const std::optional<double>& v) { return v ? py::object(py::float_(*v)) : py::none(); }

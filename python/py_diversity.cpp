@@ -103,13 +103,13 @@ py::dict combining_dict(const CombiningFigures& c) {
 }
 
 py::dict meg(const Pattern& p, const PyEnvironment& e, int index, std::optional<double> frequency_hz) {
-    const std::size_t fi = frequency_index(p.set, index, frequency_hz);
+    const std::size_t fi = frequency_index(p, index, frequency_hz);
     return meg_dict(take(mean_effective_gain(p.set, fi, e.chosen.environment)));
 }
 
 py::dict orientations(const Pattern& p, const PyEnvironment& e, int index, std::optional<double> frequency_hz,
                       double tilt_step_deg, double tilt_max_deg, double roll_step_deg) {
-    const std::size_t fi = frequency_index(p.set, index, frequency_hz);
+    const std::size_t fi = frequency_index(p, index, frequency_hz);
     const OrientationSweep sweep{tilt_step_deg, tilt_max_deg, roll_step_deg};
     check(validate(sweep));
     Result<OrientationFigures> r = Error{};
@@ -121,8 +121,8 @@ py::dict orientations(const Pattern& p, const PyEnvironment& e, int index, std::
 }
 
 py::dict ecc(const Pattern& a, const Pattern& b, const PyEnvironment& e, int index_a, int index_b) {
-    const CorrelationFigures c = take(envelope_correlation(a.set, frequency_index(a.set, index_a, std::nullopt), b.set,
-                                                           frequency_index(b.set, index_b, std::nullopt), e.chosen.environment));
+    const CorrelationFigures c = take(envelope_correlation(a.set, frequency_index(a, index_a, std::nullopt), b.set,
+                                                           frequency_index(b, index_b, std::nullopt), e.chosen.environment));
     py::dict d;
     d["ecc"] = c.ecc, d["diversity_gain_approximation_db"] = c.approximate_gain_db;
     d["sampled_share"] = c.sampled_share, d["resampled"] = c.resampled;
@@ -155,7 +155,7 @@ py::dict diversity(const std::vector<PatternPtr>& patterns, const PyEnvironment&
     if (with_orientations) check(validate(o.sweep));
     check(validate_outages(outages));
     std::vector<StudyPattern> in;
-    for (const PatternPtr& p : patterns) in.push_back({&p->set, p->set.source, {}});
+    for (const PatternPtr& p : patterns) in.push_back({&p->set, p->path, {}});
     Result<DiversityStudy> r = Error{};
     {
         py::gil_scoped_release unlocked;

@@ -92,7 +92,7 @@ py::dict fading(const std::vector<PatternPtr>& patterns, const PyEnvironment& e,
         throw py::value_error("indices: expected one frequency index per pattern");
     std::vector<FadingAntenna> in;
     for (std::size_t k = 0; k < patterns.size(); ++k)
-        in.push_back({&patterns[k]->set, frequency_index(patterns[k]->set, indices.empty() ? 0 : indices[k], std::nullopt)});
+        in.push_back({&patterns[k]->set, frequency_index(*patterns[k], indices.empty() ? 0 : indices[k], std::nullopt)});
     check(validate(o, in.size()));
     Result<FadingResult> r = Error{};
     {

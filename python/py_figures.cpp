@@ -16,7 +16,7 @@ namespace {
 py::dict info(const Pattern& p, std::optional<double> frequency_hz) {
     std::vector<std::size_t> which;
     if (frequency_hz)
-        which.push_back(frequency_index(p.set, 0, frequency_hz));
+        which.push_back(frequency_index(p, 0, frequency_hz));
     else
         for (std::size_t k = 0; k < p.set.frequencies.size(); ++k) which.push_back(k);
     std::string text;
@@ -28,7 +28,7 @@ py::dict info(const Pattern& p, std::optional<double> frequency_hz) {
 }
 
 py::dict summary(const Pattern& p, int index, std::optional<double> frequency_hz) {
-    const std::size_t fi = frequency_index(p.set, index, frequency_hz);
+    const std::size_t fi = frequency_index(p, index, frequency_hz);
     std::string text;
     {
         py::gil_scoped_release unlocked;
@@ -70,7 +70,7 @@ CutSpec cut_spec(const Pattern& p, std::size_t fi, std::optional<double> phi_deg
 py::dict cut(const Pattern& p, std::optional<double> phi_deg, std::optional<double> theta_deg,
              std::optional<std::array<double, 2>> through, bool along_phi, const std::vector<std::string>& components,
              int index, std::optional<double> frequency_hz, std::optional<double> step_deg) {
-    const std::size_t fi = frequency_index(p.set, index, frequency_hz);
+    const std::size_t fi = frequency_index(p, index, frequency_hz);
     std::vector<Component> comps;
     for (const std::string& c : components) comps.push_back(component_named(c));
     const CutSpec spec = cut_spec(p, fi, phi_deg, theta_deg, through, along_phi);
@@ -97,7 +97,7 @@ void write_cut(const Pattern& p, const std::string& path, std::optional<double> 
                std::optional<std::array<double, 2>> through, bool along_phi, const std::vector<std::string>& components,
                int index, std::optional<double> frequency_hz, std::optional<double> step_deg, const std::string& style,
                double range_db, const std::string& title, std::array<int, 2> size_px, double dpi, bool force) {
-    const std::size_t fi = frequency_index(p.set, index, frequency_hz);
+    const std::size_t fi = frequency_index(p, index, frequency_hz);
     exports::CutExportRequest r;
     r.spec = cut_spec(p, fi, phi_deg, theta_deg, through, along_phi);
     r.components.clear();

@@ -47,7 +47,7 @@ PatternPtr read(const std::string& path, const OptionArg& map, const std::option
         py::gil_scoped_release unlocked;  // reading a large file takes a while; other threads may run
         r = read_far_field_csv(path, ro);
     }
-    return std::make_shared<Pattern>(Pattern{take(std::move(r))});
+    return std::make_shared<Pattern>(Pattern{take(std::move(r)), path});
 }
 
 // A regular axis from sample values: equal steps to a relative 1e-9 of the span.
@@ -114,7 +114,8 @@ PatternPtr from_arrays(const py::array_t<double, py::array::c_style | py::array:
         s.frequencies.push_back(std::move(ff));
     }
     if (nf == 0) throw py::value_error("frequencies_hz: expected at least one frequency (0 when unknown)");
-    return std::make_shared<Pattern>(Pattern{std::move(s)});
+    std::string label = label_of(s);
+    return std::make_shared<Pattern>(Pattern{std::move(s), std::move(label)});
 }
 
 void write(const Pattern& p, const std::string& path, const std::optional<std::string>& family, bool force) {
@@ -138,7 +139,9 @@ PatternPtr synth(const std::string& kind, double length_wl, double circumference
         throw py::value_error("expected a positive length, circumference and frequency and a finite phase");
     a.length_wl = length_wl, a.circumference_wl = circumference_wl, a.phase_deg = phase_deg;
     a.orientation = rotation_xyz_deg(rotate_deg[0], rotate_deg[1], rotate_deg[2]);
-    return std::make_shared<Pattern>(Pattern{synthesize(a, step_deg, frequency_hz)});
+    FarFieldSet s = synthesize(a, step_deg, frequency_hz);
+    std::string label = label_of(s);
+    return std::make_shared<Pattern>(Pattern{std::move(s), std::move(label)});
 }
 
 py::array angles(const AngleAxis& a) {
@@ -156,16 +159,17 @@ py::dict grid_dict(const Grid& g) {
 
 // E_theta or E_phi of one frequency as a (theta, phi) complex view of the core's own array.
 py::array field_view(py::object self, bool theta, int index, std::optional<double> frequency_hz) {
-    const FarFieldSet& s = self.cast<const Pattern&>().set;
-    const FarField& f = s.frequencies[frequency_index(s, index, frequency_hz)];
+    const Pattern& p = self.cast<const Pattern&>();
+    const FarFieldSet& s = p.set;
+    const FarField& f = s.frequencies[frequency_index(p, index, frequency_hz)];
     return view((theta ? f.e_theta : f.e_phi).data(), {s.grid.theta.count, s.grid.phi.count}, self);
 }
 
 py::array power(const Pattern& p, const std::string& component, int index, std::optional<double> frequency_hz, bool db) {
     const FarFieldSet& s = p.set;
-    const std::size_t fi = frequency_index(s, index, frequency_hz);
+    const std::size_t fi = frequency_index(p, index, frequency_hz);
     const Component c = component_named(component);
-    check_component(s, c);
+    check_component(p, c);
     py::array_t<double> out({s.grid.theta.count, s.grid.phi.count});
     component_power_grid(s, fi, c, out.mutable_data());
     if (db)
@@ -214,8 +218,8 @@ private:
 
 py::dict polarisation(const Pattern& p, int index, std::optional<double> frequency_hz) {
     const FarFieldSet& s = p.set;
-    const std::size_t fi = frequency_index(s, index, frequency_hz);
-    if (auto why = polarisation_unavailable(s)) raise(Error{s.source, 0, 0, *why});
+    const std::size_t fi = frequency_index(p, index, frequency_hz);
+    if (auto why = polarisation_unavailable(s)) raise(Error{p.path, 0, 0, *why});
     StateArrays out({s.grid.theta.count, s.grid.phi.count});
     const FarField& f = s.frequencies[fi];
     for (int it = 0; it < s.grid.theta.count; ++it)
@@ -229,8 +233,8 @@ py::dict polarisation(const Pattern& p, int index, std::optional<double> frequen
 // Any directions (arrays broadcast together), interpolated as `ellipsa probe` does.
 py::dict probe(const Pattern& p, py::object theta_deg, py::object phi_deg, int index, std::optional<double> frequency_hz) {
     const FarFieldSet& s = p.set;
-    const std::size_t fi = frequency_index(s, index, frequency_hz);
-    if (auto why = polarisation_unavailable(s)) raise(Error{s.source, 0, 0, *why});
+    const std::size_t fi = frequency_index(p, index, frequency_hz);
+    if (auto why = polarisation_unavailable(s)) raise(Error{p.path, 0, 0, *why});
     py::module_ np = py::module_::import("numpy");
     py::tuple b = np.attr("broadcast_arrays")(np.attr("asarray")(theta_deg, "float64"), np.attr("asarray")(phi_deg, "float64"));
     using Doubles = py::array_t<double, py::array::c_style | py::array::forcecast>;
@@ -257,6 +261,8 @@ static void bind_pattern_class(py::module_& m) {
         "|E_theta|^2 + |E_phi|^2 is gain, directivity or relative power (see quantity). Made by read(),\n"
         "synth() or Pattern.from_arrays(); never changed afterwards, so the array views stay valid.");
     p.def_property_readonly("name", [](const Pattern& p) { return p.set.name; })
+        .def_property_readonly("path", [](const Pattern& p) { return p.path; },
+                               "The file it was read from (its name when made otherwise): errors name it.")
         .def_property_readonly("source", [](const Pattern& p) { return p.set.source; })
         .def_property_readonly("note", [](const Pattern& p) { return p.set.note; })
         .def_property_readonly("quantity", [](const Pattern& p) { return to_string(p.set.quantity); },
@@ -276,7 +282,7 @@ static void bind_pattern_class(py::module_& m) {
                                "The phi samples, deg (the fields' second axis).")
         .def_property_readonly("grid", [](const Pattern& p) { return grid_dict(p.set.grid); },
                                "The grid as start, step and count of theta and phi (the keys of `ellipsa info --json`).")
-        .def("frequency_index", [](const Pattern& p, double f) { return frequency_index(p.set, 0, f); }, py::arg("frequency_hz"),
+        .def("frequency_index", [](const Pattern& p, double f) { return frequency_index(p, 0, f); }, py::arg("frequency_hz"),
              "The index of the frequency within 0.5 % of frequency_hz; ellipsa.Error lists what the pattern holds.")
         .def("e_theta", [](py::object self, int i, std::optional<double> f) { return field_view(self, true, i, f); },
              py::arg("index") = 0, py::kw_only(), py::arg("frequency_hz") = py::none(),

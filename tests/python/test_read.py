@@ -40,12 +40,15 @@ def test_fields_are_views_of_the_file_values():
     assert np.isfinite(a).all()
 
 
-def test_frequency_by_value():
+def test_frequency_by_value(cli):
     p = ellipsa.read(str(EXAMPLES / "turnstile.csv"))
     assert p.frequency_index(2.45e9) == 10
     np.testing.assert_array_equal(p.e_phi(frequency_hz=2.451e9), p.e_phi(10))
-    with pytest.raises(ellipsa.Error, match="2.45 GHz"):
+    with pytest.raises(ellipsa.Error, match="2.45 GHz") as caught:
         p.e_phi(frequency_hz=3e9)  # the message lists what the file holds
+    assert caught.value.file == p.path == str(EXAMPLES / "turnstile.csv")
+    code, _, err = cli("info", p.path, "--frequency", "3e9")
+    assert code != 0 and err.strip() == f"ellipsa info: {caught.value}"  # the command's very words
     with pytest.raises(IndexError):
         p.e_theta(21)
 
