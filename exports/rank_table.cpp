@@ -127,8 +127,8 @@ void definitions(Document& doc, const Ranking& r, const RankLabels& l) {
     std::string turned = "Orientation statistics: not computed.";
     if (l.orientations) {
         char b[200];
-        std::snprintf(b, sizeof b, "tilt 0 to %g° in %g° steps, roll in %g° steps", l.sweep.tilt_max_deg, l.sweep.tilt_step_deg,
-                      l.sweep.roll_step_deg);
+        std::snprintf(b, sizeof b, "tilt 0 to %g° in %g° steps, roll in steps of about %g°, a whole number of each grid's φ steps",
+                      l.sweep.tilt_max_deg, l.sweep.tilt_step_deg, l.sweep.roll_step_deg);
         turned = std::string("Orientation statistics over the antenna turned (") + b +
                  "): Median, the median of the turned MEG; 90 % reach, the MEG that 90 % of random orientations reach "
                  "(solid-angle weights); Worst, the lowest. V and H: the vertical and horizontal parts of MEG as mounted. " +

@@ -101,6 +101,9 @@ RankFigures figures_of(const RankCandidate& c, const Environment& e, const RankO
     DiversityOptions d;
     d.orientations = o.orientations;
     d.sweep = o.sweep;
+    const double phi_step = c.set->grid.phi.step_deg;
+    if (o.fit_roll_to_grid && phi_step > 0 && o.sweep.roll_step_deg > 0)
+        d.sweep.roll_step_deg = std::max(1.0, std::round(o.sweep.roll_step_deg / phi_step)) * phi_step;
     RankFigures f;
     auto st = study_diversity(e, d, {StudyPattern{c.set, c.path, {c.freq_index}}});
     if (!st) {

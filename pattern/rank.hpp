@@ -45,6 +45,9 @@ struct RankOptions {
     // The orientation sweep; by default every orientation (tilt up to 180 deg), 15-deg steps.
     OrientationSweep sweep{15, 180, 15};
     bool orientations = true;  // false: no sweep (faster); the random and worst scores need it
+    // Round each candidate's roll step to the nearest whole number of its grid's phi steps, so
+    // that rolls are exact column shifts (about 3x faster than the general path at 2 degrees).
+    bool fit_roll_to_grid = true;
     double outage = 0.01;      // of the fading levels, in (0, 1)
     int threads = 1;           // candidates x environments in parallel (the result does not depend on it)
 };

@@ -27,6 +27,10 @@ echo "-- fading (random-field simulation, exact combining) --"
 "$B/tests/bench_fading" || echo "bench_fading failed"
 
 echo
+echo "-- rank (20 candidates in every preset, with and without the orientation sweep) --"
+"$B/tests/bench_rank" || echo "bench_rank failed"
+
+echo
 echo "-- CSV importer (1M rows, 16 frequencies, ~70 MB; MB/s target >= 300; peak memory target < 2x arrays) --"
 BENCH_DIR=${BENCH_DIR:-$B/bench-data}
 mkdir -p "$BENCH_DIR"
