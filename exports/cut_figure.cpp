@@ -5,6 +5,7 @@
 #include <cstdio>
 
 #include "exports/csv_text.hpp"
+#include "exports/figure_text.hpp"
 
 namespace ellipsa::exports {
 
@@ -81,9 +82,10 @@ std::string cut_csv(const FarFieldSet& s, const CutData& c) {
 
 namespace {
 
-PlotCurve curve_of(const FarFieldSet& s, const CutData& c, std::size_t i, const std::string& prefix) {
+PlotCurve curve_of(const FarFieldSet& s, const CutData& c, std::size_t i, const std::string& prefix, const std::string& tag_prefix) {
     PlotCurve pc;
     pc.label = prefix + long_label(c.components[i], s.ludwig3_reference);
+    pc.tag = tag_prefix + short_label(c.components[i]);
     pc.unit = db_unit(s.quantity, c.components[i]);
     pc.angle_deg = c.samples.angle_deg;
     pc.value_db.resize(c.power[i].size());
@@ -132,10 +134,10 @@ CutPlot make_cut_plot(const FarFieldSet& s, const CutData& c, const FigureOption
         case CutKind::great_circle:
             p.layout = AngleLayout::signed_half;
             p.angle_symbol = "angle";
-            p.notes.push_back("Angle measured along the great circle from its centre direction.");
             break;
     }
-    for (std::size_t i = 0; i < c.components.size(); ++i) p.curves.push_back(curve_of(s, c, i, ""));
+    p.axis_note = cut_axis_text(c.spec);
+    for (std::size_t i = 0; i < c.components.size(); ++i) p.curves.push_back(curve_of(s, c, i, "", ""));
     // -3 dB markers on the first curve that has a half-power beamwidth.
     p.marked_curve = -1;
     for (std::size_t i = 0; i < p.curves.size() && p.marked_curve < 0; ++i)
@@ -150,8 +152,8 @@ CutPlot make_cut_plot(const FarFieldSet& s, const CutData& c, const FigureOption
     return p;
 }
 
-void add_curves(CutPlot& plot, const FarFieldSet& s, const CutData& c, const std::string& prefix) {
-    for (std::size_t i = 0; i < c.components.size(); ++i) plot.curves.push_back(curve_of(s, c, i, prefix));
+void add_curves(CutPlot& plot, const FarFieldSet& s, const CutData& c, const std::string& prefix, const std::string& tag_prefix) {
+    for (std::size_t i = 0; i < c.components.size(); ++i) plot.curves.push_back(curve_of(s, c, i, prefix, tag_prefix));
 }
 
 }  // namespace ellipsa::exports

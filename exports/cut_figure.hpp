@@ -37,7 +37,8 @@ struct FigureOptions {
     std::optional<double> top_db;
 };
 CutPlot make_cut_plot(const FarFieldSet& s, const CutData& c, const FigureOptions& o);
-// Overlay: add the curves of another pattern's cut (same kind of cut), legend entries prefixed.
-void add_curves(CutPlot& plot, const FarFieldSet& s, const CutData& c, const std::string& prefix);
+// Overlay: add the curves of another pattern's cut (same kind of cut), the table's names
+// prefixed with `prefix` ("B: turnstile, ") and the tags on the plot with `tag_prefix` ("B ").
+void add_curves(CutPlot& plot, const FarFieldSet& s, const CutData& c, const std::string& prefix, const std::string& tag_prefix);
 
 }  // namespace ellipsa::exports

@@ -74,6 +74,41 @@ std::string beamwidth_text(const BeamFigures& b, const std::string& angle, const
     return "none";
 }
 
+std::string beamwidth_cell(const BeamFigures& b) {
+    switch (b.shape) {
+        case BeamShape::beam: return with_unit(*b.hpbw_deg, angle_decimals, "\u00b0");
+        case BeamShape::no_power: return "no power";
+        case BeamShape::omnidirectional: return "none (omni)";
+        case BeamShape::wider_than_180: return "none (> 180\u00b0)";
+        case BeamShape::edges_outside_data: return "edge outside data";
+    }
+    return "none";
+}
+
+std::string cut_axis_text(const CutSpec& spec) {
+    char b[240];
+    switch (spec.kind) {
+        case CutKind::phi_const:
+            std::snprintf(b, sizeof b,
+                          "Angle \u03b8 from +z: positive in the half-plane \u03c6 = %g\u00b0, negative in \u03c6 = %g\u00b0.",
+                          wrap360(spec.phi_deg), wrap360(spec.phi_deg + 180));
+            return b;
+        case CutKind::theta_const:
+            return "Angle \u03c6 from +x toward +y (counter-clockwise seen from +z).";
+        case CutKind::great_circle: {
+            double t, p;
+            to_spherical(spec.centre, t, p);
+            const double along_theta = dot(spec.tangent, theta_hat(t, p)), along_phi = dot(spec.tangent, phi_hat(p));
+            const char* way = along_theta > 0.999 ? "along \u03b8-hat (the meridian): positive toward larger \u03b8"
+                              : along_phi > 0.999 ? "along \u03c6-hat: positive toward larger \u03c6"
+                                                  : "along the great circle: positive toward its tangent";
+            std::snprintf(b, sizeof b, "Angle from \u03b8 %.1f\u00b0, \u03c6 %.1f\u00b0 %s.", t / deg, wrap360(p / deg), way);
+            return b;
+        }
+    }
+    return "";
+}
+
 std::optional<std::string> beamwidth_reason(const BeamFigures& b) {
     if (b.shape == BeamShape::beam) return std::nullopt;
     if (b.shape != BeamShape::edges_outside_data) return std::string(to_string(b.shape));

@@ -45,6 +45,12 @@ std::string beamwidth_text(const BeamFigures& b, const std::string& angle, const
 std::optional<std::string> beamwidth_reason(const BeamFigures& b);
 // The side-lobe level: "-13.26 dB", or "none (no other lobe stands out by 3 dB)".
 std::string sidelobe_text(const BeamFigures& b);
+// The same as a short table cell: "78.1°", "none (omni)", "none (> 180°)", "edge outside data",
+// "no power" (the long form is beamwidth_text).
+std::string beamwidth_cell(const BeamFigures& b);
+// What a cut's angle axis means and which way is positive, for every cut on screen and in files:
+// "Angle θ from +z: positive in the half-plane φ = 0°, negative in φ = 180°."
+std::string cut_axis_text(const CutSpec& spec);
 // Front-to-back: "12.30 dB", "above 60 dB (the back is a null)", "unavailable (outside the data)".
 std::string front_to_back_text(const std::optional<double>& db, const std::optional<double>& above_db);
 

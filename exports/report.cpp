@@ -370,8 +370,9 @@ Result<std::vector<ReportFile>> build_report(const std::vector<ReportInput>& inp
                     if (!same_f) plot.subtitle = describe_cut(cd.spec) + "  ·  " + plot.value_label + " (" + plot.value_unit + ")";
                     first = false;
                 }
-                add_curves(plot, inputs[i].set, *cut, prefix);
+                add_curves(plot, inputs[i].set, *cut, prefix, "");
                 plot.curves.back().label = letter(i) + ". " + display_name(inputs[i]);
+                plot.curves.back().tag = letter(i);
                 if (!same_f) plot.curves.back().label += " (" + format_frequency(inputs[i].set.frequencies[cfi[i]].frequency_hz) + ")";
             }
             if (first) continue;

@@ -2,7 +2,9 @@
 // pattern) overlaid, a legend, dB grid labels, -3 dB markers and the HPBW / front-to-back readout.
 #include <imgui.h>
 
+#include "exports/cut_plot.hpp"
 #include "exports/figure_text.hpp"
+#include "exports/palette.hpp"
 
 #include <cmath>
 #include <algorithm>
@@ -18,139 +20,259 @@
 namespace ellipsa::viewer {
 
 namespace {
-// Okabe-Ito colours (colour-blind safe), in the order curves are added.
-const ImU32 curve_colors[] = {IM_COL32(0, 114, 178, 255), IM_COL32(213, 94, 0, 255),  IM_COL32(0, 158, 115, 255),
-                              IM_COL32(204, 121, 167, 255), IM_COL32(86, 180, 233, 255), IM_COL32(230, 159, 0, 255),
-                              IM_COL32(90, 90, 90, 255),   IM_COL32(240, 228, 66, 255), IM_COL32(0, 0, 0, 255)};
-const ImU32 ink = IM_COL32(34, 38, 46, 255), grid = IM_COL32(205, 206, 203, 255), muted = IM_COL32(95, 100, 108, 255);
+const ImU32 ink = IM_COL32(34, 38, 46, 255), grid = IM_COL32(205, 206, 203, 255), grid_minor = IM_COL32(228, 229, 226, 255),
+            muted = IM_COL32(95, 100, 108, 255), no_data = IM_COL32(236, 236, 236, 255);
 
-void plot_polar(ImDrawList* dl, ImVec2 c, float R, const CutData& cd, const DbScale& sc) {
-    const std::vector<double> rings = sc.rings();
-    for (double lv : rings) {
-        const float r = R * float(sc.fraction(lv));
-        dl->AddCircle(c, r, grid, 72, 1.0f);
-        if (r < 14) continue;
-        char b[16];
-        std::snprintf(b, sizeof b, "%g", lv);
-        // Ring labels just inside each ring, beside the 0-degree spoke.
-        dl->AddText(ImVec2(c.x + 3, c.y - r + 1), muted, b);
-    }
-    const bool full_turn = cd.spec.kind == CutKind::theta_const;
-    // Screen position of a cut angle: elevation-like cuts put 0 at the top and turn clockwise (a side
-    // view with +z up); theta = const cuts put phi = 0 at the right and turn counter-clockwise (the
-    // xy-plane seen from +z), as the exported figures do.
-    auto at = [&](double angle_deg, float r) {
-        const float a = float(angle_deg * pi / 180);
-        return full_turn ? ImVec2(c.x + r * std::cos(a), c.y - r * std::sin(a)) : ImVec2(c.x + r * std::sin(a), c.y - r * std::cos(a));
-    };
-    for (int a = 0; a < 360; a += 30) {
-        const ImVec2 u = at(a, 1);
-        const float x = u.x - c.x, y = u.y - c.y;
-        dl->AddLine(c, ImVec2(c.x + R * x, c.y + R * y), grid);
-        char b[16];
-        const int shown = cd.spec.kind == CutKind::theta_const ? a : (a > 180 ? a - 360 : a);
-        std::snprintf(b, sizeof b, "%d\u00b0", shown);
-        const ImVec2 ts = ImGui::CalcTextSize(b);
-        dl->AddText(ImVec2(c.x + (R + 12) * x - ts.x * 0.5f, c.y + (R + 10) * y - ts.y * 0.5f), muted, b);
-    }
-    for (std::size_t k = 0; k < cd.curves.size(); ++k) {
-        const CutCurve& cv = cd.curves[k];
-        std::vector<ImVec2> pts;
-        auto flush = [&] {
-            if (pts.size() > 1) dl->AddPolyline(pts.data(), int(pts.size()), curve_colors[k % 9], 0, cv.pattern == 0 ? 2.0f : 1.5f);
-            pts.clear();
-        };
-        for (std::size_t i = 0; i <= cd.angle_deg.size(); ++i) {
-            const std::size_t j = i % cd.angle_deg.size();
-            const double v = cv.db[j];
-            if (std::isnan(v)) {
-                flush();
-                continue;
-            }
-            pts.push_back(at(cd.angle_deg[j], R * float(sc.fraction(v))));
-        }
-        flush();
-    }
-    // -3 dB markers of the first curve.
-    if (!cd.figures()) return;
-    const BeamFigures& bf = *cd.figures();
-    for (const std::optional<double>& x : {bf.left_deg, bf.right_deg})
-        if (x) {
-            const ImVec2 p = at(*x, R * float(sc.fraction(bf.peak_db - half_power_db)));
-            dl->AddLine(c, p, IM_COL32(120, 120, 120, 200), 1.0f);
-            dl->AddCircle(p, 4, ink, 12, 1.5f);
-        }
+// The figures' curve colours (exports/palette.hpp), so screen and file colour a curve alike.
+ImU32 curve_u32(std::size_t i) {
+    const exports::Rgb c = exports::curve_colour(i);
+    return IM_COL32(int(c.r * 255 + 0.5), int(c.g * 255 + 0.5), int(c.b * 255 + 0.5), 255);
+}
+float curve_width(std::size_t i) { return i == 0 ? 2.2f : 1.6f; }
+
+void diamond(ImDrawList* dl, ImVec2 p, std::size_t i) {
+    const float d = 4.5f;
+    dl->AddQuadFilled(ImVec2(p.x, p.y - d), ImVec2(p.x + d, p.y), ImVec2(p.x, p.y + d), ImVec2(p.x - d, p.y), curve_u32(i));
+    dl->AddQuad(ImVec2(p.x, p.y - d), ImVec2(p.x + d, p.y), ImVec2(p.x, p.y + d), ImVec2(p.x - d, p.y), ink, 1.0f);
 }
 
-void plot_rect(ImDrawList* dl, ImVec2 p0, ImVec2 p1, const CutData& cd, const DbScale& sc) {
-    const double a0 = cd.angle_deg.front(), a1 = cd.angle_deg.front() + 360;
-    auto X = [&](double a) { return p0.x + float((a - a0) / (a1 - a0)) * (p1.x - p0.x); };
-    auto Y = [&](double db) { return p1.y - float(sc.fraction(db)) * (p1.y - p0.y); };
+// Text with a pale box behind it, so it stays readable over grid and curves.
+void halo_text(ImDrawList* dl, ImVec2 p, ImU32 col, const char* text) {
+    const ImVec2 ts = ImGui::CalcTextSize(text);
+    dl->AddRectFilled(ImVec2(p.x - 2, p.y), ImVec2(p.x + ts.x + 2, p.y + ts.y), IM_COL32(255, 255, 255, 215), 2.0f);
+    dl->AddText(p, col, text);
+}
+
+// Where a figure's (angle, fraction) lands on screen, and the unit direction its tag moves off.
+struct PlotFrame {
+    bool polar = true, full_turn = false;
+    ImVec2 c;  // polar centre
+    float R = 1;
+    ImVec2 p0, p1;  // rectangular frame
+    double a0 = -180;
+    ImVec2 at(double angle_deg, double f) const {
+        if (!polar) {
+            const double a = a0 + std::fmod(std::fmod(angle_deg - a0, 360.0) + 360.0, 360.0);
+            return ImVec2(p0.x + float((a - a0) / 360) * (p1.x - p0.x), p1.y - float(f) * (p1.y - p0.y));
+        }
+        const float a = float(angle_deg * pi / 180), r = R * float(f);
+        return full_turn ? ImVec2(c.x + r * std::cos(a), c.y - r * std::sin(a)) : ImVec2(c.x + r * std::sin(a), c.y - r * std::cos(a));
+    }
+    ImVec2 inward(double angle_deg) const {
+        if (!polar) return ImVec2(0, 1);
+        const ImVec2 q = at(angle_deg, 1);
+        return ImVec2((c.x - q.x) / R, (c.y - q.y) / R);
+    }
+};
+
+// Grey where no curve has data, as the exported figure shades it.
+void draw_no_data(ImDrawList* dl, const PlotFrame& f, const exports::CutPlot& fig) {
+    for (auto [b0, b1] : exports::no_data_ranges(fig)) {
+        if (!f.polar) {
+            for (double a = b0; a < b1; a += 1) {  // one band a degree, wrapped into the axis
+                const ImVec2 q0 = f.at(a, 1), q1 = f.at(std::min(a + 1, b1), 0);
+                if (q1.x > q0.x) dl->AddRectFilled(q0, q1, no_data);
+            }
+            continue;
+        }
+        for (double a = b0; a < b1; a += 30) {  // convex wedges
+            const double e = std::min(a + 30, b1);
+            dl->PathLineTo(f.c);
+            for (int k = 0; k <= 8; ++k) dl->PathLineTo(f.at(a + (e - a) * k / 8, 1));
+            dl->PathFillConvex(no_data);
+        }
+    }
+}
+
+void polar_grid(ImDrawList* dl, const PlotFrame& f, const DbScale& sc, bool signed_half) {
+    for (int a = 0; a < 360; a += 10) dl->AddLine(f.c, f.at(a, 1), a % 30 == 0 ? grid : grid_minor);
+    for (double lv : sc.rings()) dl->AddCircle(f.c, f.R * float(sc.fraction(lv)), grid, 72, 1.0f);
+    dl->AddCircle(f.c, f.R, muted, 96, 1.2f);
+    for (int a = 0; a < 360; a += 30) {
+        char b[16];
+        std::snprintf(b, sizeof b, "%d\u00b0", signed_half && a > 180 ? a - 360 : a);
+        const ImVec2 ts = ImGui::CalcTextSize(b), q = f.at(a, 1);
+        const float dx = (q.x - f.c.x) / f.R, dy = (q.y - f.c.y) / f.R;
+        dl->AddText(ImVec2(q.x + dx * (8 + ts.x * 0.5f) - ts.x * 0.5f, q.y + dy * (6 + ts.y * 0.5f) - ts.y * 0.5f), muted, b);
+    }
+}
+
+// The rings' values along the half-spoke (15, 45, ... deg) where the curves reach least far out.
+void polar_ring_labels(ImDrawList* dl, const PlotFrame& f, const exports::CutPlot& fig, const DbScale& sc) {
+    double best_a = 15, best_f = 2;
+    for (int k = 0; k < 12; ++k) {
+        const double a = 15 + 30.0 * k;
+        double reach = 0;
+        for (const exports::PlotCurve& c : fig.curves) {
+            const std::size_t n = c.angle_deg.size();
+            if (n < 2) continue;
+            const double step = c.angle_deg[1] - c.angle_deg[0];
+            const long j = std::lround((a - c.angle_deg[0]) / step);
+            const double v = c.value_db[std::size_t(((j % long(n)) + long(n)) % long(n))];
+            if (!std::isnan(v)) reach = std::max(reach, sc.fraction(v));
+        }
+        if (reach < best_f - 1e-9) best_f = reach, best_a = a;
+    }
+    const std::vector<double> rings = sc.rings();
+    ImVec4 last(0, 0, -1, -1);  // the last label's box; a label that would touch it is left out
+    for (std::size_t i = 1; i < rings.size(); ++i) {
+        char b[24];
+        std::snprintf(b, sizeof b, i == 1 ? "%g %s" : "%g", rings[i], fig.value_unit.c_str());
+        const ImVec2 q = f.at(best_a, sc.fraction(rings[i])), ts = ImGui::CalcTextSize(b);
+        const ImVec4 box(q.x - ts.x * 0.5f - 3, q.y - ts.y * 0.5f - 1, q.x + ts.x * 0.5f + 3, q.y + ts.y * 0.5f + 1);
+        const bool touches = box.x < last.z && box.z > last.x && box.y < last.w && box.w > last.y;
+        if (f.R * sc.fraction(rings[i]) <= 12 || touches) continue;
+        halo_text(dl, ImVec2(q.x - ts.x * 0.5f, q.y - ts.y * 0.5f), muted, b);
+        last = box;
+    }
+}
+
+void rect_grid(ImDrawList* dl, const PlotFrame& f, const DbScale& sc, const std::string& unit) {
     std::vector<double> lines = sc.rings();
     lines.push_back(sc.floor_db());
     for (double lv : lines) {
-        dl->AddLine(ImVec2(p0.x, Y(lv)), ImVec2(p1.x, Y(lv)), grid);
+        const float y = f.at(f.a0, sc.fraction(lv)).y;
+        dl->AddLine(ImVec2(f.p0.x, y), ImVec2(f.p1.x, y), grid);
         char b[16];
         std::snprintf(b, sizeof b, "%g", lv);
         const ImVec2 ts = ImGui::CalcTextSize(b);
-        dl->AddText(ImVec2(p0.x - ts.x - 4, Y(lv) - ts.y * 0.5f), muted, b);
+        dl->AddText(ImVec2(f.p0.x - ts.x - 4, y - ts.y * 0.5f), muted, b);
     }
-    const int xstep = (p1.x - p0.x) / 8 < 48 ? 90 : 45;
-    dl->AddText(ImVec2(p0.x - 36, p0.y - 17), muted, cd.unit.c_str());
-    for (int a = int(a0); a <= int(a1); a += xstep) {
-        dl->AddLine(ImVec2(X(a), p0.y), ImVec2(X(a), p1.y), grid);
+    const int xstep = (f.p1.x - f.p0.x) / 8 < 48 ? 90 : 45;
+    dl->AddText(ImVec2(f.p0.x - 36, f.p0.y - 17), muted, unit.c_str());
+    for (int a = int(f.a0); a <= int(f.a0) + 360; a += xstep) {
+        const float x = f.p0.x + float(a - f.a0) / 360 * (f.p1.x - f.p0.x);
+        dl->AddLine(ImVec2(x, f.p0.y), ImVec2(x, f.p1.y), grid);
         char b[16];
         std::snprintf(b, sizeof b, "%d\u00b0", a);
         const ImVec2 ts = ImGui::CalcTextSize(b);
-        dl->AddText(ImVec2(X(a) - ts.x * 0.5f, p1.y + 2), muted, b);
+        dl->AddText(ImVec2(x - ts.x * 0.5f, f.p1.y + 2), muted, b);
     }
-    dl->AddRect(p0, p1, IM_COL32(160, 160, 160, 255));
-    for (std::size_t k = 0; k < cd.curves.size(); ++k) {
-        const CutCurve& cv = cd.curves[k];
+    dl->AddRect(f.p0, f.p1, IM_COL32(160, 160, 160, 255));
+}
+
+void draw_curves(ImDrawList* dl, const PlotFrame& f, const exports::CutPlot& fig, const DbScale& sc) {
+    for (std::size_t k = 0; k < fig.curves.size(); ++k) {
+        const exports::PlotCurve& cv = fig.curves[k];
         std::vector<ImVec2> pts;
         auto flush = [&] {
-            if (pts.size() > 1) dl->AddPolyline(pts.data(), int(pts.size()), curve_colors[k % 9], 0, cv.pattern == 0 ? 2.0f : 1.5f);
+            if (pts.size() > 1) dl->AddPolyline(pts.data(), int(pts.size()), curve_u32(k), 0, curve_width(k));
             pts.clear();
         };
-        for (std::size_t i = 0; i < cd.angle_deg.size(); ++i) {
-            if (std::isnan(cv.db[i])) {
+        const std::size_t n = cv.angle_deg.size();
+        double last_x = -1e30;
+        for (std::size_t i = 0; i <= n && n > 0; ++i) {
+            const std::size_t j = i % n;
+            if (std::isnan(cv.value_db[j]) || (!f.polar && i == n)) {
                 flush();
                 continue;
             }
-            pts.push_back(ImVec2(X(cd.angle_deg[i]), Y(cv.db[i])));
+            const ImVec2 q = f.at(cv.angle_deg[j], sc.fraction(cv.value_db[j]));
+            if (!f.polar && q.x < last_x) flush();  // wrapped round the axis
+            last_x = q.x;
+            pts.push_back(q);
         }
         flush();
     }
-    if (!cd.figures()) return;
-    const BeamFigures& bf = *cd.figures();
-    const float y3 = Y(bf.peak_db - half_power_db);
-    for (const std::optional<double>& x : {bf.left_deg, bf.right_deg})
-        if (x && std::isfinite(*x)) {
-            const double a = a0 + std::fmod(std::fmod(*x - a0, 360.0) + 360.0, 360.0);  // into [a0, a0 + 360)
-            dl->AddLine(ImVec2(X(a), y3 - 8), ImVec2(X(a), y3 + 8), ink, 1.5f);
-        }
-    if (bf.left_deg || bf.right_deg) dl->AddLine(ImVec2(p0.x, y3), ImVec2(p1.x, y3), IM_COL32(150, 150, 150, 140), 1.0f);
 }
 
+// The marked curve's half-power points (dots), each curve's peak (diamond) with its tag.
+void draw_marks(ImDrawList* dl, const PlotFrame& f, const exports::CutPlot& fig, const DbScale& sc) {
+    if (fig.marked_curve >= 0 && std::size_t(fig.marked_curve) < fig.curves.size()) {
+        const std::optional<BeamFigures>& b = fig.curves[std::size_t(fig.marked_curve)].beam;
+        if (b && b->left_deg && b->right_deg)
+            for (double a : {*b->left_deg, *b->right_deg}) {
+                const ImVec2 q = f.at(a, sc.fraction(b->peak_db - half_power_db));
+                dl->AddCircleFilled(q, 3.5f, curve_u32(std::size_t(fig.marked_curve)), 12);
+                dl->AddCircle(q, 3.5f, ink, 12, 1.0f);
+            }
+    }
+    std::vector<ImVec4> placed;
+    for (std::size_t k = 0; k < fig.curves.size(); ++k) {
+        const std::optional<BeamFigures>& b = fig.curves[k].beam;
+        if (!b) continue;
+        const ImVec2 q = f.at(b->peak_angle_deg, sc.fraction(b->peak_db)), d = f.inward(b->peak_angle_deg);
+        diamond(dl, q, k);
+        const char* tag = fig.curves[k].tag.c_str();
+        const ImVec2 ts = ImGui::CalcTextSize(tag);
+        ImVec2 t(q.x + d.x * 9 - ts.x * (d.x > 0.35f ? 0.0f : d.x < -0.35f ? 1.0f : 0.5f), q.y + d.y * 9 - ts.y * 0.5f);
+        for (int tries = 0; tries < 6; ++tries) {  // clear of earlier tags
+            bool clear = true;
+            for (const ImVec4& r : placed) clear = clear && (t.x > r.z || t.x + ts.x < r.x || t.y > r.w || t.y + ts.y < r.y);
+            if (clear) break;
+            t = ImVec2(t.x + d.x * (ts.y + 2), t.y + d.y * (ts.y + 2));
+        }
+        placed.push_back(ImVec4(t.x, t.y, t.x + ts.x, t.y + ts.y));
+        halo_text(dl, t, ink, tag);
+    }
+}
 
-// The cut's kind, angle, style and components, on a copy of the settings; the export row.
-void cut_controls(const AppState& s, const FarFieldSet& a, float width, Intents& in) {
-    ViewerSettings st = s.settings;
+// The figure's table (exports::cut_table, as in the files) under the plot: a swatch, the curve
+// (its tag in a narrow panel, the full name as a tooltip) and the figures.
+void figure_table(const exports::CutPlot& fig, bool narrow) {
+    const exports::CutTable t = exports::cut_table(fig);
+    ImGui::PushStyleVar(ImGuiStyleVar_CellPadding, ImVec2(5, 1));
+    const bool open = ImGui::BeginTable("cutfigures", int(t.header.size()) + 1,
+                           ImGuiTableFlags_SizingFixedFit | ImGuiTableFlags_BordersInnerH | ImGuiTableFlags_NoHostExtendX);
+    ImGui::PopStyleVar();
+    if (!open) return;
+    ImGui::TableSetupColumn("##swatch");
+    for (const std::string& h : t.header) ImGui::TableSetupColumn(h.c_str());
+    ImGui::TableHeadersRow();
+    for (std::size_t r = 0; r < t.rows.size(); ++r) {
+        ImGui::TableNextRow();
+        ImGui::TableNextColumn();
+        const ImVec2 p = ImGui::GetCursorScreenPos();
+        const float y = p.y + ImGui::GetTextLineHeight() * 0.5f;
+        ImGui::GetWindowDrawList()->AddLine(ImVec2(p.x, y), ImVec2(p.x + 22, y), curve_u32(r), curve_width(r));
+        diamond(ImGui::GetWindowDrawList(), ImVec2(p.x + 11, y), r);
+        ImGui::Dummy(ImVec2(24, ImGui::GetTextLineHeight()));
+        for (std::size_t c = 0; c < t.rows[r].size(); ++c) {
+            ImGui::TableNextColumn();
+            ImGui::TextUnformatted(c == 0 && narrow ? fig.curves[r].tag.c_str() : t.rows[r][c].c_str());
+            if (c == 0 && ImGui::IsItemHovered()) ImGui::SetTooltip("%s", t.rows[r][0].c_str());
+        }
+    }
+    ImGui::EndTable();
+}
+
+// The key to the marks under the table: the axis in words, the rest on hover.
+void figure_key(const exports::CutPlot& fig) {
+    ImGui::PushStyleColor(ImGuiCol_Text, ImGui::GetStyleColorVec4(ImGuiCol_TextDisabled));
+    ImGui::TextWrapped("%s", fig.axis_note.c_str());
+    ImGui::PopStyleColor();
+    if (ImGui::IsItemHovered()) {
+        std::string all;
+        for (const std::string& n : exports::cut_key_notes(fig)) all += n + "\n";
+        ImGui::SetTooltip("%s", all.c_str());
+    }
+}
+
+// The cut's kind and angle (or what the pin cut follows) and the plot style, on a copy of the
+// settings. `kind_w`: the width of the kind and angle widgets (-1: the whole line each).
+void cut_kind_row(const AppState& s, ViewerSettings& st, float kind_w, bool one_line) {
     const char* kinds[] = {"\u03c6 = const (elevation cut)", "\u03b8 = const (conical cut)", "through the pinned direction"};
-    ImGui::SetNextItemWidth(-1);
+    ImGui::SetNextItemWidth(kind_w);
     ImGui::Combo("##kind", &st.cut_kind, kinds, 3);
+    if (one_line) ImGui::SameLine();
     if (st.cut_kind < 2) {
         float ang = float(st.cut_angle_deg);
-        ImGui::SetNextItemWidth(-1);
+        ImGui::SetNextItemWidth(one_line ? kind_w * 0.6f : kind_w);
         if (ImGui::SliderFloat("##ang", &ang, 0, 180, st.cut_kind == 0 ? "\u03c6 = %.0f\u00b0" : "\u03b8 = %.0f\u00b0",
                                ImGuiSliderFlags_AlwaysClamp))
             st.cut_angle_deg = std::round(ang);
     } else {
-        ImGui::TextDisabled(s.pinned ? "along \u03b8-hat (the meridian) through the pin" : "click the surface to pin");
+        ImGui::PushStyleColor(ImGuiCol_Text, ImGui::GetStyleColorVec4(ImGuiCol_TextDisabled));
+        ImGui::TextWrapped("%s", !s.pinned ? "click the surface to pin" : one_line ? "along \u03b8-hat" : "along \u03b8-hat (the meridian) through the pin");
+        ImGui::PopStyleColor();
     }
+    if (one_line) ImGui::SameLine();
     ImGui::Checkbox("polar plot", &st.polar_plot);
     ImGui::SameLine();
     ImGui::TextDisabled("(P)");
+}
+
+void cut_export_row(const AppState& s, Intents& in) {
     if (ImGui::SmallButton("Export cut as"))
         in.push_back(intent::ExportCut{timestamped_name("ellipsa-cut", cut_export_formats[s.cut_export_format]), false});
     if (ImGui::IsItemHovered()) ImGui::SetTooltip("Write this cut to the current folder, as with 'ellipsa cut'");
@@ -158,96 +280,101 @@ void cut_controls(const AppState& s, const FarFieldSet& a, float width, Intents&
     ImGui::SetNextItemWidth(70);
     int fmt = s.cut_export_format;
     if (ImGui::Combo("##fmt", &fmt, cut_export_formats, int(std::size(cut_export_formats)))) in.push_back(intent::SetCutExportFormat{fmt});
-    append(in, export_outcome_line(s.cut_export, ExportTarget::cut));
-    ImGui::Separator();
-    ImGui::TextDisabled("Components");
+}
+
+// A checkbox per component the data can give, in two columns of `width`.
+void component_checks(const FarFieldSet& a, ViewerSettings& st, float width) {
     int shown = 0;
     for (Component c : all_components) {
         if (c == Component::vertical || c == Component::horizontal) continue;  // same as theta and phi here
         if (component_unavailable(a, c)) continue;
         bool on = (st.cut_components >> unsigned(c)) & 1u;
         if (shown++ % 2) ImGui::SameLine(width * 0.5f);
-        const char* short_name = short_label(c);
-        if (ImGui::Checkbox(short_name, &on)) st.cut_components ^= 1u << unsigned(c);
+        if (ImGui::Checkbox(short_label(c), &on)) st.cut_components ^= 1u << unsigned(c);
+    }
+}
+
+// The controls as a column beside the plot; the components as checkboxes when the column is
+// tall enough, else in a popup.
+void cut_controls(const AppState& s, const FarFieldSet& a, float width, Intents& in) {
+    ViewerSettings st = s.settings;
+    cut_kind_row(s, st, -1, false);
+    cut_export_row(s, in);
+    append(in, export_outcome_line(s.cut_export, ExportTarget::cut));
+    ImGui::Separator();
+    if (ImGui::GetContentRegionAvail().y >= 5 * ImGui::GetFrameHeightWithSpacing()) {
+        ImGui::TextDisabled("Components");
+        component_checks(a, st, width);
+    } else {
+        if (ImGui::SmallButton("Components..")) ImGui::OpenPopup("cutcomponents");
+        if (ImGui::BeginPopup("cutcomponents")) {
+            component_checks(a, st, 220);
+            ImGui::EndPopup();
+        }
     }
     if (!(st == s.settings)) in.push_back(intent::ChangeSettings{st});
 }
 
-// Legend and beam figures to the right of the plot.
-void cut_legend(const AppState& s, const CutData& cd, ImDrawList* dl, float lx, float ly) {
-    const std::string title = cd.spec.kind == CutKind::great_circle ? std::string("through the pin") : cd.spec.label();
-    dl->AddText(ImVec2(lx, ly), ink, title.c_str());
-    ly += 20;
-    for (std::size_t k = 0; k < cd.curves.size(); ++k) {
-        const CutCurve& cv = cd.curves[k];
-        dl->AddLine(ImVec2(lx, ly + 8), ImVec2(lx + 22, ly + 8), curve_colors[k % 9], cv.pattern == 0 ? 2.5f : 1.5f);
-        const std::string name = std::string(short_label(cv.component)) + (s.compare_pattern() ? (cv.pattern == 0 ? " (A)" : " (B)") : "");
-        dl->AddText(ImVec2(lx + 28, ly), ink, name.c_str());
-        ly += 18;
-    }
-    ly += 6;
-    if (!cd.figures()) {
-        dl->AddText(ImVec2(lx, ly), ink, "first curve: no power on this cut");
-        return;
-    }
-    const BeamFigures& bf = *cd.figures();
-    char b[128];
-    std::snprintf(b, sizeof b, "peak %.2f %s at %.1f\u00b0", bf.peak_db, cd.unit.c_str(), bf.peak_angle_deg);
-    dl->AddText(ImVec2(lx, ly), ink, b);
-    ly += 18;
-    if (bf.hpbw_deg) std::snprintf(b, sizeof b, s.settings.polar_plot ? "HPBW %.1f\u00b0 (circles)" : "HPBW %.1f\u00b0 (ticks)", *bf.hpbw_deg);
-    else std::snprintf(b, sizeof b, "HPBW %s", exports::beamwidth_text(bf, cd.spec.angle_name(), "\u00b0").c_str());
-    dl->AddText(ImVec2(lx, ly), ink, b);
-    ly += 18;
-    dl->AddText(ImVec2(lx, ly), ink, ("F/B " + exports::front_to_back_text(bf.front_to_back_db, bf.front_to_back_above_db)).c_str());
-    ly += 18;
-    dl->AddText(ImVec2(lx, ly), ink, ("side lobe " + exports::sidelobe_text(bf)).c_str());
+// Why there is no cut to show, or nothing.
+std::optional<std::string> no_cut_text(const AppState& s, const CutData& cd) {
+    if (cd.a && cd.peak_db) return std::nullopt;
+    if (!cd.why.empty()) return "No cut: " + cd.why + ".";
+    return !cd.valid && s.settings.cut_kind == 2 ? "Pin a direction to cut through it."
+           : !cd.valid                            ? "Choose at least one component."
+                                                  : "No power on this cut: every chosen component is zero here.";
 }
 
-void cut_plot(const AppState& s, const CutData& cd) {
-    const ViewerSettings& st = s.settings;
-    if (!cd.valid || cd.angle_deg.empty() || !cd.peak_db) {
-        if (!cd.why.empty()) {
-            ImGui::TextWrapped("No cut: %s.", cd.why.c_str());
-            return;
-        }
-        ImGui::TextDisabled(!cd.valid && st.cut_kind == 2 ? "Pin a direction to cut through it."
-                            : !cd.valid                   ? "Choose at least one component."
-                                                          : "No power on this cut: every chosen component is zero here.");
-        return;
-    }
+// The plot, filling the current child: the figure the export writes.
+void cut_plot(const AppState& s, const CutData& cd, const exports::CutPlot& fig) {
+    const DbScale sc = exports::plot_scale(fig);
     const ImVec2 o = ImGui::GetCursorScreenPos(), avail = ImGui::GetContentRegionAvail();
     ImDrawList* dl = ImGui::GetWindowDrawList();
-    const DbScale sc = db_scale(*cd.peak_db, st.range_db);
-    // The legend beside the plot, or below it when the panel is narrow.
-    const bool below = avail.x < 380;
-    const float legend_w = below ? 0 : std::max(150.0f, std::min(230.0f, avail.x - avail.y));
-    const float legend_h = below ? 20.0f + 18.0f * float(cd.curves.size()) + 6 + 4 * 18.0f : 0;
-    const float plot_w = avail.x - legend_w, plot_h = std::max(60.0f, avail.y - legend_h);
-    if (st.polar_plot) {
-        const float R = std::max(20.0f, std::min(plot_w, plot_h) * 0.5f - 24);
-        plot_polar(dl, ImVec2(o.x + plot_w * 0.5f, o.y + plot_h * 0.5f), R, cd, sc);
+    PlotFrame f;
+    f.polar = s.settings.polar_plot;
+    f.full_turn = cd.spec.kind == CutKind::theta_const;
+    f.a0 = cd.angle_deg.front();
+    if (f.polar) {
+        f.R = std::max(20.0f, std::min(avail.x, avail.y) * 0.5f - 22);
+        f.c = ImVec2(o.x + avail.x * 0.5f, o.y + avail.y * 0.5f);
     } else {
-        plot_rect(dl, ImVec2(o.x + 40, o.y + 18), ImVec2(o.x + plot_w - 14, o.y + plot_h - 24), cd, sc);
+        f.p0 = ImVec2(o.x + 40, o.y + 18);
+        f.p1 = ImVec2(o.x + avail.x - 14, o.y + avail.y - 20);
     }
-    if (below) cut_legend(s, cd, dl, o.x + 4, o.y + plot_h + 4);
-    else cut_legend(s, cd, dl, o.x + plot_w + 6, o.y + 4);
+    draw_no_data(dl, f, fig);
+    if (f.polar) polar_grid(dl, f, sc, !f.full_turn);
+    else rect_grid(dl, f, sc, fig.value_unit);
+    draw_curves(dl, f, fig, sc);
+    if (f.polar) polar_ring_labels(dl, f, fig, sc);
+    draw_marks(dl, f, fig, sc);
 }
 }  // namespace
 
+// Controls and plot side by side; under both, the figure's table and its axis in words.
 Intents draw_cut_panel(const AppState& s, const Derived& d) {
     Intents in;
     const LoadedPattern* a = s.active_pattern();
     if (!a) return in;
-    // Controls on the left, plot on the right (the controls narrower in a narrow panel).
-    const float controls_w = std::clamp(ImGui::GetContentRegionAvail().x * 0.42f, 160.0f, 228.0f);
-    ImGui::BeginChild("cutcontrols", ImVec2(controls_w, 0), false, ImGuiWindowFlags_NoScrollbar);
+    const CutData& cd = d.cut.value();
+    const std::optional<std::string> none = no_cut_text(s, cd);
+    std::optional<exports::CutPlot> fig;
+    if (!none) fig = cut_figure(s, cd);
+    const ImVec2 avail = ImGui::GetContentRegionAvail();
+    const float line = ImGui::GetTextLineHeightWithSpacing();
+    const float below = fig ? line * (float(fig->curves.size()) + 1) + 6 + 2 * line : 0;
+    const float top_h = std::max(6 * line, avail.y - below);
+    const float controls_w = std::clamp(avail.x * 0.36f, 180.0f, 228.0f);
+    ImGui::BeginChild("cutcontrols", ImVec2(controls_w, top_h), false, ImGuiWindowFlags_NoScrollbar);
     cut_controls(s, a->set, controls_w, in);
     ImGui::EndChild();
     ImGui::SameLine();
-    ImGui::BeginChild("cutplot", ImVec2(0, 0), false);
-    cut_plot(s, d.cut.value());
+    ImGui::BeginChild("cutplot", ImVec2(0, top_h), false, ImGuiWindowFlags_NoScrollbar);
+    if (fig) cut_plot(s, cd, *fig);
+    else ImGui::TextWrapped("%s", none->c_str());
     ImGui::EndChild();
+    if (fig) {
+        figure_table(*fig, avail.x < 520);
+        figure_key(*fig);
+    }
     return in;
 }
 

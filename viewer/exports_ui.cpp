@@ -19,23 +19,33 @@ bool something_at(const std::string& path) {
     return std::filesystem::exists(std::filesystem::symlink_status(path, ec));
 }
 
-// The file from the cut on screen: the same core values (CutData::a, b), not a second computation.
+// The file from the cut on screen: the same figure value that the panel draws.
 Result<std::string> cut_bytes(const AppState& s, const CutData& cut, exports::FileFormat format) {
+    if (format == exports::FileFormat::csv) return exports::cut_csv(s.active_pattern()->set, *cut.a);
+    const exports::CutPlot plot = cut_figure(s, cut);
+    return exports::render_image([&](cairo_t* cr, double w, double h) { exports::draw_cut_plot(cr, plot, w, h); }, format,
+                                 exports::RenderSize{}, plot.title);
+}
+}  // namespace
+
+exports::CutPlot cut_figure(const AppState& s, const CutData& cut) {
     const LoadedPattern* a = s.active_pattern();
-    if (format == exports::FileFormat::csv) return exports::cut_csv(a->set, *cut.a);
     exports::FigureOptions fo;
     fo.style = s.settings.polar_plot ? exports::PlotStyle::polar : exports::PlotStyle::rect;
     fo.range_db = s.settings.range_db;
     exports::CutPlot plot = exports::make_cut_plot(a->set, *cut.a, fo);
     const LoadedPattern* b = s.compare_pattern();
     if (b && cut.b) {
-        for (exports::PlotCurve& c : plot.curves) c.label = a->set.name + ": " + c.label;
-        exports::add_curves(plot, b->set, *cut.b, b->set.name + ": ");
+        // Both antennas by name in the table, by letter on the plot.
+        for (exports::PlotCurve& c : plot.curves) {
+            c.label = "A: " + a->set.name + ", " + c.label;
+            c.tag = "A " + c.tag;
+        }
+        exports::add_curves(plot, b->set, *cut.b, "B: " + b->set.name + ", ", "B ");
+        plot.title = a->set.name + " (A) and " + b->set.name + " (B)";
     }
-    return exports::render_image([&](cairo_t* cr, double w, double h) { exports::draw_cut_plot(cr, plot, w, h); }, format,
-                                 exports::RenderSize{}, plot.title);
+    return plot;
 }
-}  // namespace
 
 ExportOutcome write_export(const std::string& path, bool overwrite, const std::function<Status()>& write) {
     if (!overwrite && something_at(path)) return {ExportOutcome::Status::exists, path, ""};

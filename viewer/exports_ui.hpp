@@ -8,6 +8,7 @@
 #include <functional>
 #include <string>
 
+#include "exports/cut_plot.hpp"
 #include "pattern/result.hpp"
 
 #include "viewer/scene/cut_view.hpp"
@@ -20,6 +21,11 @@ namespace ellipsa::viewer {
 // `path` and overwrite is off; a refusal by the writer (a file that appeared meanwhile) is
 // `exists` too.
 ExportOutcome write_export(const std::string& path, bool overwrite, const std::function<Status()>& write);
+
+// The cut figure of the state: the one value that the cut panel draws on screen and the export
+// writes (A's curves, and B's when comparing, named by letter on the plot and by antenna in the
+// table). Needs an active pattern and cut.a.
+exports::CutPlot cut_figure(const AppState& s, const CutData& cut);
 
 ExportOutcome export_cut_file(const AppState& s, const CutData& cut, const std::string& path, bool overwrite);
 

@@ -2,6 +2,7 @@
 // on magnitude-only data, and the beam figures shown in the legend are the core's.
 #include <catch2/catch.hpp>
 
+#include <algorithm>
 #include <cmath>
 #include <cstdlib>
 #include <sstream>
@@ -9,6 +10,7 @@
 #include <vector>
 
 #include "exports/cut_figure.hpp"
+#include "exports/figure_text.hpp"
 #include "pattern/cut.hpp"
 #include "pattern/reference.hpp"
 
@@ -147,4 +149,44 @@ TEST_CASE("plot curves carry the core's beam figures", "[export]") {
     CHECK(p.marked_curve == 0);
     CHECK(p.layout == AngleLayout::signed_half);
     CHECK(p.subtitle.find("1 GHz") != std::string::npos);
+}
+
+TEST_CASE("every cut says what its angle means and which way is positive", "[export]") {
+    // Issue 17: the axis of every cut, on screen and in files (the viewer shows axis_note too).
+    CHECK(cut_axis_text(CutSpec::phi_cut(30)).find("positive in the half-plane \u03c6 = 30\u00b0") != std::string::npos);
+    CHECK(cut_axis_text(CutSpec::phi_cut(30)).find("negative in \u03c6 = 210\u00b0") != std::string::npos);
+    CHECK(cut_axis_text(CutSpec::theta_cut(90)).find("toward +y") != std::string::npos);
+    // The viewer's cut through a pin runs along theta-hat (the meridian): positive toward larger theta.
+    const std::string through = cut_axis_text(CutSpec::through(60, 30, false));
+    CHECK(through.find("\u03b8-hat (the meridian): positive toward larger \u03b8") != std::string::npos);
+    CHECK(cut_axis_text(CutSpec::through(60, 30, true)).find("\u03c6-hat: positive toward larger \u03c6") != std::string::npos);
+    // Positive really is toward larger theta: a sample at +10 deg lies at theta 70 deg.
+    FarFieldSet s = synthesize(ReferenceAntenna{}, 5, 1e9);
+    const CutSamples c = sample_cut(s, 0, CutSpec::through(60, 30, false), 10);
+    for (std::size_t k = 0; k < c.angle_deg.size(); ++k)
+        if (std::abs(c.angle_deg[k] - 10) < 1e-9) CHECK(c.theta_deg[k] == Approx(70).margin(1e-6));
+}
+
+TEST_CASE("the figure's table names each curve and gives its figures", "[export]") {
+    ReferenceAntenna a;
+    a.kind = ReferenceKind::dipole;
+    a.length_wl = 0.5;
+    const FarFieldSet s = synthesize(a, 1, 1e9);
+    auto cut = compute_cut(s, 0, CutSpec::phi_cut(0), {Component::total, Component::phi});
+    REQUIRE(cut.ok());
+    CutPlot p = make_cut_plot(s, *cut, {});
+    add_curves(p, s, *cut, "B: other, ", "B ");
+    const CutTable t = cut_table(p);
+    REQUIRE(t.rows.size() == 4);
+    CHECK(t.header[2] == "at \u03b8");
+    CHECK(t.rows[0][0] == "Total");
+    CHECK(t.rows[0][1] == "2.15 dBi");  // half-wave dipole, D = 1.64 (Balanis sec. 4.6)
+    CHECK(t.rows[0][3] == "78.1\u00b0");  // HPBW 78 deg (Balanis sec. 4.6)
+    CHECK(t.rows[1][1] == "no power");    // E-phi of a z dipole
+    CHECK(t.rows[2][0] == "B: other, Total");
+    CHECK(p.curves[2].tag == "B Total");
+    // The key tells the axis and the scale.
+    const std::vector<std::string> key = cut_key_notes(p);
+    CHECK(key.front() == p.axis_note);
+    CHECK(std::any_of(key.begin(), key.end(), [](const std::string& n) { return n.find("dB per ring") != std::string::npos; }));
 }

@@ -28,7 +28,7 @@ struct ViewerSettings {
     double poincare_within_db = 3;
     bool seen_intro = false;   // the first-run orientation was dismissed
     int window_width = 1280, window_height = 800;
-    float left_panel_width = 285, right_panel_width = 315, cut_panel_height = 310;
+    float left_panel_width = 285, right_panel_width = 315, cut_panel_height = 360;
     float polarisation_panel_height = 390;  // the top of the right column (ellipse and Poincare sphere)
     std::vector<std::string> recent_files;  // most recent first, at most max_recent
     static constexpr std::size_t max_recent = 10;
