@@ -75,6 +75,7 @@ Status SceneRenderer::init() {
     l_view_ = glGetUniformLocation(line_program_, "u_view");
     l_proj_ = glGetUniformLocation(line_program_, "u_projection");
     l_tint_ = glGetUniformLocation(line_program_, "u_tint");
+    l_cull_ = glGetUniformLocation(line_program_, "u_cull");
 
     glGenVertexArrays(1, &surface_vao_);
     glGenVertexArrays(1, &wire_vao_);
@@ -198,7 +199,12 @@ void SceneRenderer::draw_surface(const OrbitCamera& cam, int h, const glm::mat4&
         glUniform4f(l_tint_, 0, 0, 0, 0);
     }
     glDisable(GL_BLEND);
+    // Through a translucent surface the glyphs of the far side are clutter: hide those whose
+    // radial direction faces away from the eye (the near side's stay).
+    const glm::vec3 eye = cam.eye();
+    glUniform4f(l_cull_, eye.x, eye.y, eye.z, st.translucent ? 1.0f : 0.0f);
     if (st.glyphs) draw_lines(glyphs_, 1.6f);
+    glUniform4f(l_cull_, 0, 0, 0, 0);
     if (st.cut_ring) draw_lines(ring_, 2.5f);
 }
 

@@ -62,7 +62,7 @@ private:
     int last_stride_ = 1;
     Lines glyphs_, ring_, axes_;
     // Uniform locations.
-    int s_view_ = -1, s_proj_ = -1, s_alpha_ = -1, l_view_ = -1, l_proj_ = -1, l_tint_ = -1;
+    int s_view_ = -1, s_proj_ = -1, s_alpha_ = -1, l_view_ = -1, l_proj_ = -1, l_tint_ = -1, l_cull_ = -1;
     const float* view_ = nullptr;
     const float* proj_ = nullptr;
 };
