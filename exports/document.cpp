@@ -103,7 +103,7 @@ th, td { padding: 5px 12px; border-bottom: 1px solid var(--rule); text-align: le
 th { background: var(--band); border-bottom: 2px solid #999; font-weight: 600; }
 td.num, th.num { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
 tr:hover td { background: #fafafa; }
-.figs { display: grid; grid-template-columns: repeat(auto-fill, minmax(480px, 1fr)); gap: 18px; margin: 10px 0 20px; }
+.figs { display: grid; grid-template-columns: repeat(auto-fill, minmax(560px, 1fr)); gap: 18px; margin: 10px 0 20px; }
 figure { margin: 0; border: 1px solid var(--rule); padding: 6px; background: #fff; }
 figure img { width: 100%; height: auto; display: block; }
 figcaption { font-size: 13px; color: var(--soft); padding: 6px 2px 0; }

@@ -1,5 +1,7 @@
 #include "viewer/overlay.hpp"
 
+#include "pattern/db_scale.hpp"
+
 #include <cmath>
 #include <cstdio>
 
@@ -80,6 +82,35 @@ float draw_ellipse_key(ImDrawList* dl, ImVec2 pos, ImFont* font, ImU32 text_colo
         y += line;
     }
     return y - pos.y;
+}
+
+float draw_radial_scale(ImDrawList* dl, const OrbitCamera& cam, ImVec2 view_size, ImVec2 pos, double peak_db,
+                        double range_db, const std::string& unit, ImFont* font, ImU32 colour) {
+    ImFont* f = font ? font : ImGui::GetFont();
+    const glm::dvec3 eye(cam.eye());
+    glm::dvec3 right = glm::cross(glm::dvec3(0, 0, 1), eye);
+    right = glm::length(right) < 1e-9 ? glm::dvec3(1, 0, 0) : glm::normalize(right);
+    const Projected o = project(cam, glm::dvec3(0), view_size.x, view_size.y), r = project(cam, right, view_size.x, view_size.y);
+    const float len = float(std::hypot(r.x - o.x, r.y - o.y));
+    if (!o.visible || !r.visible || !(len > 8)) return 0;
+    char title[160];
+    std::snprintf(title, sizeof title, "Radius: centre %.2f, surface %.2f %s; ticks in dB below the peak", peak_db - range_db, peak_db,
+                  unit.c_str());
+    dl->AddText(f, f->FontSize, pos, colour, title);
+    const float y = pos.y + f->FontSize * 1.6f;
+    dl->AddLine(ImVec2(pos.x, y), ImVec2(pos.x + len, y), colour, 1.5f);
+    const DbScale sc = db_scale_at(0, range_db);
+    std::vector<double> ticks = sc.rings();
+    ticks.push_back(sc.floor_db());
+    for (double v : ticks) {
+        const float x = pos.x + len * float(sc.fraction(v));
+        dl->AddLine(ImVec2(x, y - 4), ImVec2(x, y + 4), colour, 1.2f);
+        char b[16];
+        std::snprintf(b, sizeof b, "%g", v);
+        const ImVec2 ts = f->CalcTextSizeA(f->FontSize, 1e9f, 0, b);
+        dl->AddText(f, f->FontSize, ImVec2(x - ts.x * 0.5f, y + 6), colour, b);
+    }
+    return y + 6 + f->FontSize - pos.y;
 }
 
 void draw_axis_labels(ImDrawList* dl, const OrbitCamera& cam, ImVec2 origin, ImVec2 size, double length, ImFont* font) {

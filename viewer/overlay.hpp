@@ -22,6 +22,12 @@ void draw_color_bar(ImDrawList* dl, ImVec2 pos, ImVec2 size, const ColorBar& bar
 // name (right-hand, left-hand, linear), top-left at pos, one entry a line. Returns its height.
 float draw_ellipse_key(ImDrawList* dl, ImVec2 pos, ImFont* font, ImU32 text_colour);
 
+// The surface's radial scale as a ruler, left end at pos: as long on screen as the unit radius
+// at the origin's depth, ticked every grid step (pattern/db_scale.hpp) in dB below the peak,
+// titled with the peak and the range. Returns its height.
+float draw_radial_scale(ImDrawList* dl, const OrbitCamera& cam, ImVec2 view_size, ImVec2 pos, double peak_db,
+                        double range_db, const std::string& unit, ImFont* font, ImU32 colour);
+
 // Labels "x", "y", "z" (with theta/phi hints) at the tips of the axes of the given length,
 // projected with the camera into the view rectangle [origin, origin + size].
 void draw_axis_labels(ImDrawList* dl, const OrbitCamera& cam, ImVec2 origin, ImVec2 size, double length, ImFont* font);

@@ -100,7 +100,7 @@ Result<std::vector<std::uint8_t>> render_snapshot_rgba(const FarFieldSet& s, con
                                     format_frequency(s.frequencies[o.frequency_index].frequency_hz);
     dl->AddText(fonts.title, fonts.title->FontSize, ImVec2(16 * scale, 12 * scale), ink, title.c_str());
     char line[256];
-    std::snprintf(line, sizeof line, "radius: %s, %.4g %s at the peak, %g dB dynamic range", short_label(o.component),
+    std::snprintf(line, sizeof line, "radius: %s, %.2f %s at the peak, %g dB dynamic range", short_label(o.component),
                   mesh->peak_db, mesh->unit.c_str(), o.range_db);
     dl->AddText(fonts.small, fonts.small->FontSize, ImVec2(16 * scale, 12 * scale + fonts.title->FontSize * 1.35f), muted, line);
     std::snprintf(line, sizeof line, "view from azimuth %g\u00b0, elevation %g\u00b0", o.view_azimuth_deg, o.view_elevation_deg);
@@ -108,6 +108,12 @@ Result<std::vector<std::uint8_t>> render_snapshot_rgba(const FarFieldSet& s, con
     draw_axis_labels(dl, cam, ImVec2(0, 0), ImVec2(float(view_w), float(o.height)), 1.3, fonts.small);
     const ImVec2 bar_pos(view_w + 18 * scale, o.height * 0.22f), bar_size(20 * scale, o.height * 0.56f);
     draw_color_bar(dl, bar_pos, bar_size, mesh->bar, fonts.small, fonts.small, bar_strip - 28 * scale);
+    // The key to the ellipses (when drawn) under the bar, the radial scale at the bottom left.
+    if (o.glyphs && s.has_phase())
+        draw_ellipse_key(dl, ImVec2(bar_pos.x, bar_pos.y + bar_size.y + 24 * scale), fonts.small, ink);
+    draw_radial_scale(dl, cam, ImVec2(float(view_w), float(o.height)),
+                      ImVec2(16 * scale, o.height - fonts.small->FontSize * 6.2f), mesh->peak_db, o.range_db, mesh->unit,
+                      fonts.small, muted);
     ImGui::Render();
     target.bind();
     glViewport(0, 0, o.width, o.height);
