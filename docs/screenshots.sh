@@ -6,6 +6,9 @@
 #   docs/images/turnstile-band.png       the turnstile's figures against frequency
 #   docs/images/turnstile-ar-map.png     the turnstile's axial ratio on Hammer's equal-area map
 #   docs/images/coverage-horizon.png     coverage near the horizon: dipole, loop, best of both
+#   docs/images/panel-NAME-SIZE.png      every panel (cut, probe, polarisation, diversity, band, map)
+#                                        at 1280x800 and 800x600
+#   docs/images/report-cut.png, report-3d.png   a cut figure and the 3D view of the report
 set -euo pipefail
 cd "$(dirname "$0")/.."
 E=build/ellipsa
@@ -25,4 +28,26 @@ xvfb-run -a -s "-screen 0 1280x800x24" "$E" view "$X/printed-dipole.csv" "$X/tur
 "$E" map "$X/turnstile.csv" --frequency 2.45e9 --show axial-ratio --size 1000x600 --out "$I/turnstile-ar-map.png" --force
 "$E" coverage "$X/printed-dipole.csv" "$X/small-loop.csv" --frequency 2.45e9 --horizon 30 --size 1000x750 \
   --out "$I/coverage-horizon.png" --force
-echo "screenshots: wrote $I/viewer-overview.png, viewer-polarisation.png, small-loop-cut.png, turnstile-band.png, turnstile-ar-map.png, coverage-horizon.png"
+# Every panel at the two window sizes the layout is checked at (nothing may overlap or be cut
+# off): the cut comparing two antennas through a pin, probe, polarisation, diversity, band, map.
+shot() {  # shot NAME SIZE OPTIONS...
+  local name=$1 size=$2
+  shift 2
+  xvfb-run -a -s "-screen 0 1280x800x24" "$E" view "$X/printed-dipole.csv" "$X/turnstile.csv" "$X/small-loop.csv" \
+    --size "$size" --frames 20 --screenshot "$I/panel-$name-$size.png" --force "$@"
+}
+for size in 1280x800 800x600; do
+  shot cut "$size" --compare 2 --pin 60,30 --tab cut
+  shot probe "$size" --pin 60,30 --tab probe
+  shot polarisation "$size" --pin 30,45 --tab polarisation --translucent
+  shot diversity "$size" --compare 3 --diversity
+  shot band "$size" --band
+  shot map "$size" --tab map
+done
+# The report: its cut figure and its 3D view, as the report's page shows them.
+R=$(mktemp -d)
+"$E" report "$X/small-loop.csv" --frequency 2.45e9 --out "$R/report" --force >/dev/null
+cp "$R"/report/*-phi0.png "$I/report-cut.png"
+cp "$R"/report/*-3d-axial-ratio.png "$I/report-3d.png"
+rm -rf "$R"
+echo "screenshots: wrote $I/viewer-overview.png, viewer-polarisation.png, small-loop-cut.png, turnstile-band.png, turnstile-ar-map.png, coverage-horizon.png, panel-*-1280x800.png, panel-*-800x600.png, report-cut.png, report-3d.png"

@@ -71,11 +71,11 @@ CutTable cut_table(const CutPlot& p) {
             continue;
         }
         const BeamFigures& b = *c.beam;
-        const std::string fb = b.front_to_back_db        ? with_unit(*b.front_to_back_db, db_decimals, "dB")
+        const std::string fb = b.front_to_back_db        ? num(*b.front_to_back_db, db_decimals) + " dB"
                                : b.front_to_back_above_db ? "> " + fixed(*b.front_to_back_above_db, 0) + " dB"
                                                           : std::string("n/a");
-        t.rows.push_back({c.label, with_unit(b.peak_db, db_decimals, c.unit), angle_text(b.peak_angle_deg, angle_decimals),
-                          beamwidth_cell(b), fb, b.sidelobe_db ? with_unit(*b.sidelobe_db, db_decimals, "dB") : "none"});
+        t.rows.push_back({c.label, num(b.peak_db, db_decimals) + " " + c.unit, angle_text(b.peak_angle_deg, angle_decimals),
+                          beamwidth_cell(b), fb, b.sidelobe_db ? num(*b.sidelobe_db, db_decimals) + " dB" : "none"});
     }
     return t;
 }
@@ -266,7 +266,7 @@ void draw_peak_tags(Pen& pen, const CutPlot& p, const DbScale& sc, At at, Inward
         const double gap = 7 * pen.u;
         const double halign = dx > 0.35 ? 0.0 : dx < -0.35 ? 1.0 : 0.5;
         pen.font(FontWeight::bold, 7.4);
-        tags.place(pen, c.tag, x + dx * gap, y + dy * gap, halign, dx * 9 * pen.u, dy * 9 * pen.u);
+        tags.place(pen, c.tag, x + dx * gap, y + dy * gap, halign, 0, 9 * pen.u);  // a colliding tag steps down a line
     }
 }
 

@@ -200,7 +200,7 @@ void draw_marks(ImDrawList* dl, const PlotFrame& f, const exports::CutPlot& fig,
             bool clear = true;
             for (const ImVec4& r : placed) clear = clear && (t.x > r.z || t.x + ts.x < r.x || t.y > r.w || t.y + ts.y < r.y);
             if (clear) break;
-            t = ImVec2(t.x + d.x * (ts.y + 2), t.y + d.y * (ts.y + 2));
+            t.y += ts.y + 2;  // a colliding tag steps down a line
         }
         placed.push_back(ImVec4(t.x, t.y, t.x + ts.x, t.y + ts.y));
         halo_text(dl, t, ink, tag);
