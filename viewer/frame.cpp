@@ -68,6 +68,7 @@ void view_menu(const AppState& s, Intents& in) {
     ImGui::MenuItem("Polar cut plot", "P", &st.polar_plot);
     if (ImGui::MenuItem("Diversity (MEG, ECC, orientation)", nullptr, s.diversity_open)) in.push_back(intent::ShowDiversity{!s.diversity_open});
     if (ImGui::MenuItem("Figures against frequency", nullptr, s.band_open)) in.push_back(intent::ShowBand{!s.band_open});
+    if (ImGui::MenuItem("Fading and combining", nullptr, s.fading_open)) in.push_back(intent::ShowFading{!s.fading_open});
     if (ImGui::MenuItem("2D map (equal-area)", nullptr, s.map_open)) in.push_back(intent::ShowMap{!s.map_open});
     if (ImGui::MenuItem("Reset view", "R")) in.push_back(intent::ResetView{});
     ImGui::Separator();
@@ -128,6 +129,7 @@ struct TabEntry {
 Intent close_tool(Tab t) {
     if (t == Tab::diversity) return intent::ShowDiversity{false};
     if (t == Tab::map) return intent::ShowMap{false};
+    if (t == Tab::fading) return intent::ShowFading{false};
     return intent::ShowBand{false};
 }
 
@@ -209,6 +211,7 @@ Intents draw_panels(const AppState& s, const Derived& d, const Layout& L) {
     if (s.diversity_open) strip.push_back({Tab::diversity, "Diversity", true, draw_diversity_panel});
     if (s.band_open) strip.push_back({Tab::band, "Band", true, draw_band_panel});
     if (s.map_open) strip.push_back({Tab::map, "Map", true, draw_map_panel});
+    if (s.fading_open) strip.push_back({Tab::fading, "Fading", true, draw_fading_panel});
     // A tab that this layout does not have (the probe in a wide window) shows the cut.
     Tab shown = Tab::cut;
     for (const TabEntry& t : strip)

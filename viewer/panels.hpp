@@ -25,6 +25,10 @@ Intents draw_cut_panel(const AppState& s, const Derived& d);
 Intents draw_diversity_panel(const AppState& s, const Derived& d);
 // A docked tool while s.band_open: one figure of A against frequency; a click picks the frequency.
 Intents draw_band_panel(const AppState& s, const Derived& d);
+// A docked tool while s.fading_open: the distribution curves of the received power of A, B and
+// their selection and maximal-ratio combination in the diversity panel's environment (analytic:
+// Rayleigh from MEG, exact combining from MEG and ECC; viewer/scene/diversity_view.hpp).
+Intents draw_fading_panel(const AppState& s, const Derived& d);
 // A docked tool while s.map_open: the surface's colouring on a whole-sphere map
 // (Hammer equal-area, theta/phi or azimuth/elevation); hovering probes, a click pins (its Hover
 // stands over the 3D view's: draw_ui() drops the view's when a panel gave one).

@@ -254,6 +254,19 @@ TEST_CASE("the band panel: opened, closed, and only known figures chosen", "[vie
     CHECK_FALSE(s.band_open);
 }
 
+TEST_CASE("the fading panel: a docked tool opened in front, closed back to the cut, by name", "[viewer][apply]") {
+    AppState s;
+    run(s, intent::ShowFading{true});
+    CHECK(s.fading_open);
+    CHECK(s.strip_tab == Tab::fading);
+    run(s, intent::ShowFading{false});
+    CHECK_FALSE(s.fading_open);
+    CHECK(s.strip_tab == Tab::cut);
+    run(s, intent::SelectTab{Tab::fading});
+    CHECK(s.fading_open);
+    CHECK(std::string(tab_names[int(Tab::fading)]) == "fading");
+}
+
 TEST_CASE("the map panel: opened, closed, and only the three projections", "[viewer][apply]") {
     AppState s;
     run(s, intent::ShowMap{true}, intent::SetMapProjection{2});

@@ -132,6 +132,30 @@ TEST_CASE("figures against frequency: only while the panel is open, once per pat
     CHECK(d.band.value().compute_ms == ms);
 }
 
+TEST_CASE("fading curves: only while a panel needs them, Rayleigh from MEG, combination below A", "[viewer][derived]") {
+    AppState s;
+    run(s, intent::AddPatterns{{dipole("a"), dipole("b")}, ""}, intent::SetCompare{1});
+    Derived d;
+    refresh(d, s);
+    CHECK(d.diversity.value().fading.level_db.empty());  // closed: nothing computed
+    run(s, intent::ShowFading{true});
+    refresh(d, s);
+    const FadingCurves& c = d.diversity.value().fading;
+    REQUIRE(!c.level_db.empty());
+    REQUIRE(d.diversity.value().figures.a.meg);
+    // One Rayleigh branch: P(power <= mean) = 1 - 1/e (conventions.md, "Fading and combining").
+    const double meg_db = to_db(d.diversity.value().figures.a.meg->meg);
+    for (std::size_t k = 0; k + 1 < c.level_db.size(); ++k)
+        if (c.level_db[k] <= meg_db && meg_db < c.level_db[k + 1]) {
+            const double t = (meg_db - c.level_db[k]) / (c.level_db[k + 1] - c.level_db[k]);
+            CHECK(c.a[k] + t * (c.a[k + 1] - c.a[k]) == Approx(std::log10(1 - std::exp(-1.0))).margin(0.01));
+        }
+    // Identical patterns (ECC 1): selection is the single branch; maximal ratio gains 3 dB at most.
+    for (std::size_t k = 0; k < c.level_db.size(); ++k)
+        if (std::isfinite(c.selection[k])) CHECK(c.selection[k] == Approx(c.a[k]).margin(1e-6));
+    CHECK_FALSE(d.diversity.value().figures.a.orientations);  // no sweep for the fading panel alone
+}
+
 TEST_CASE("the caption's peak is the refined peak of the shown component, none for a zero pattern", "[viewer][derived]") {
     AppState s;
     run(s, intent::AddPatterns{{dipole("a"), dipole("zero", 0)}, ""});

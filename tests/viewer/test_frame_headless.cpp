@@ -100,7 +100,7 @@ TEST_CASE("every panel draws odd states without a GPU and asks for nothing by it
     cases.push_back({"magnitude only", {magnitude}, {}});
     cases.push_back({"A and B, difference, pinned, every window", {antenna(ReferenceKind::crossed_dipoles), antenna(ReferenceKind::small_loop)}, {}});
     for (Intent i : Intents{intent::SetCompare{1}, intent::ChangeSettings{through_pin}, intent::Pin{Direction{30, 40}},
-                            intent::ShowHelp{true}, intent::ShowIntro{true}, intent::ShowDiversity{true}, intent::ShowBand{true}, intent::ShowMap{true},
+                            intent::ShowHelp{true}, intent::ShowIntro{true}, intent::ShowDiversity{true}, intent::ShowBand{true}, intent::ShowMap{true}, intent::ShowFading{true},
                             intent::ExportFinished{ExportTarget::cut, {ExportOutcome::Status::exists, "c.svg", ""}},
                             intent::ExportFinished{ExportTarget::view, {ExportOutcome::Status::failed, "v.png", "disk full"}}})
         cases.back().setup.push_back(std::move(i));
@@ -111,6 +111,7 @@ TEST_CASE("every panel draws odd states without a GPU and asks for nothing by it
         band.frequencies[1].frequency_hz = 1.1e9;
         band.frequencies[2].frequency_hz = 1.2e9;
         cases.push_back({"band panel", {band}, {intent::ShowBand{true}, intent::SetBandQuantity{4}, intent::SetFrequency{1}}});
+        cases.push_back({"fading panel, one pattern", {band}, {intent::ShowFading{true}}});
         cases.push_back({"map, theta/phi, pinned", {band}, {intent::ShowMap{true}, intent::SetMapProjection{1}, intent::Pin{Direction{40, 10}}}});
     }
     for (Case& c : cases) {

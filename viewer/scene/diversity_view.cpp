@@ -110,4 +110,27 @@ DiversityFigures compute_diversity(const DiversityChoice& c, const FarFieldSet* 
     return d;
 }
 
+FadingCurves fading_curves(const DiversityFigures& f, int points) {
+    FadingCurves c;
+    if (!f.a.meg || !(f.a.meg->meg > 0)) return c;
+    const double ga = f.a.meg->meg;
+    const double gb = f.has_b && f.b.meg && f.b.meg->meg > 0 ? f.b.meg->meg : 0;
+    const double top = to_db(std::max(ga, gb));
+    c.level_hi_db = 10 * std::ceil((top + 5) / 10);
+    c.level_lo_db = c.level_hi_db - 50;
+    const auto log_p = [](double p) { return p >= 1e-4 ? std::log10(p) : NAN; };
+    for (int k = 0; k < points; ++k) {
+        const double db = c.level_lo_db + (c.level_hi_db - c.level_lo_db) * k / (points - 1);
+        const double x = std::pow(10.0, db / 10);
+        c.level_db.push_back(db);
+        c.a.push_back(log_p(rayleigh_cdf(x, ga)));
+        c.b.push_back(gb > 0 ? log_p(rayleigh_cdf(x, gb)) : NAN);
+        const BranchPair pair{ga, gb, f.correlation ? f.correlation->ecc : 0};
+        const bool both = gb > 0 && f.combining;
+        c.selection.push_back(both ? log_p(selection_cdf(x, pair)) : NAN);
+        c.mrc.push_back(both ? log_p(mrc_cdf(x, pair)) : NAN);
+    }
+    return c;
+}
+
 }  // namespace ellipsa::viewer

@@ -52,8 +52,8 @@ enum class ExportTarget { view, cut };
 // The tabbed places of the window. The plot strip under the 3D view holds the cut and the docked
 // tools (diversity, band, map), and in a narrow window the probe and the polarisation panel too; in a
 // narrow window Patterns and Surface share the left column as tabs.
-enum class Tab { patterns, surface, cut, probe, polarisation, diversity, band, map };
-inline constexpr const char* tab_names[] = {"patterns", "surface", "cut", "probe", "polarisation", "diversity", "band", "map"};
+enum class Tab { patterns, surface, cut, probe, polarisation, diversity, band, map, fading };
+inline constexpr const char* tab_names[] = {"patterns", "surface", "cut", "probe", "polarisation", "diversity", "band", "map", "fading"};
 // The tab for a name of tab_names (as `view --tab` takes it); nullopt for any other name.
 std::optional<Tab> parse_tab(const std::string& name);
 // Patterns and Surface live in the left column; every other tab in the plot strip.
@@ -76,6 +76,7 @@ struct AppState {
     bool show_help = false, show_intro = false;
     bool diversity_open = false;
     bool band_open = false;  // figures against frequency
+    bool fading_open = false;  // fading curves of A, B and their combination (the diversity environment)
     Tab left_tab = Tab::patterns;  // shown in the left column when it holds tabs
     Tab strip_tab = Tab::cut;      // shown in the plot strip
     int band_quantity = 0;   // index into band_quantities (viewer/state/derived.hpp)

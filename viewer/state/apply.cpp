@@ -201,6 +201,7 @@ struct Apply {
     void operator()(intent::ChangeDiversity& i) { s.diversity = std::move(i.choice); }
     void operator()(intent::ShowBand& i) { show_tool(s.band_open, Tab::band, i.on); }
     void operator()(intent::ShowMap& i) { show_tool(s.map_open, Tab::map, i.on); }
+    void operator()(intent::ShowFading& i) { show_tool(s.fading_open, Tab::fading, i.on); }
     void operator()(intent::SetMapProjection& i) {
         if (i.index >= 0 && i.index <= 2) s.map_projection = i.index;
     }
@@ -211,6 +212,7 @@ struct Apply {
         if (i.tab == Tab::diversity) s.diversity_open = true;
         if (i.tab == Tab::band) s.band_open = true;
         if (i.tab == Tab::map) s.map_open = true;
+        if (i.tab == Tab::fading) s.fading_open = true;
         (in_left_column(i.tab) ? s.left_tab : s.strip_tab) = i.tab;
     }
     // A docked tool opens in front of the strip; closing the one in front brings the cut back.

@@ -112,8 +112,9 @@ void refresh_band(Derived& d, const AppState& s, const Shown& w) {
 
 // The diversity figures; while a slider is held the orientation sweep waits and the last one stays.
 void refresh_diversity(Derived& d, const AppState& s, const Shown& w, bool interacting) {
-    if (!s.diversity_open) return;
+    if (!s.diversity_open && !s.fading_open) return;
     DiversityKey k{s.diversity, w.a_id, w.b_id, w.fa, w.fb};
+    if (!s.diversity_open) k.choice.orientations = false;  // the fading panel alone needs no sweep
     const bool defer = interacting && k.choice.orientations;
     if (defer) k.choice.orientations = false;
     d.diversity.update(k, [&] {
@@ -121,6 +122,7 @@ void refresh_diversity(Derived& d, const AppState& s, const Shown& w, bool inter
         DiversityView v;
         const auto t0 = std::chrono::steady_clock::now();
         v.figures = compute_diversity(k.choice, w.a ? &w.a->set : nullptr, w.fa, w.b ? &w.b->set : nullptr, w.fb);
+        v.fading = fading_curves(v.figures);
         v.compute_ms = ms_since(t0);
         v.computed = true;
         v.sweep_pending = defer;

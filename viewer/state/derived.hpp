@@ -129,6 +129,7 @@ struct DiversityView {
     bool computed = false;
     bool sweep_pending = false;  // the orientation sweep waits for the slider's release
     double compute_ms = 0;
+    FadingCurves fading;  // the fading panel's curves from these figures
 };
 
 struct Derived {

@@ -69,6 +69,7 @@ struct DismissIntro {};  // "Got it": hidden and remembered
 struct ShowDiversity { bool on = true; };
 struct ChangeDiversity { DiversityChoice choice; };
 struct ShowBand { bool on = true; };            // figures against frequency
+struct ShowFading { bool on = true; };          // fading curves in the diversity environment
 struct SetBandQuantity { int index = 0; };      // which figure the band panel plots
 struct ShowMap { bool on = true; };             // the 2D map beside the 3D view
 struct SetMapProjection { int index = 0; };     // 0 Hammer, 1 theta/phi, 2 azimuth/elevation
@@ -90,7 +91,7 @@ using Intent = std::variant<
     intent::StepFrequency, intent::EditPath, intent::EditMap, intent::DismissLoadError, intent::ChangeSettings,
     intent::StepComponent, intent::StepColorBy, intent::Orbit, intent::Zoom, intent::LookFrom, intent::SetView,
     intent::ResetView, intent::Hover, intent::Pin, intent::Unpin, intent::Escape, intent::ShowHelp, intent::ShowIntro,
-    intent::DismissIntro, intent::ShowDiversity, intent::ChangeDiversity, intent::ShowBand, intent::SetBandQuantity, intent::SelectTab, intent::ShowMap, intent::SetMapProjection, intent::SetCutExportFormat,
+    intent::DismissIntro, intent::ShowDiversity, intent::ChangeDiversity, intent::ShowBand, intent::ShowFading, intent::SetBandQuantity, intent::SelectTab, intent::ShowMap, intent::SetMapProjection, intent::SetCutExportFormat,
     intent::ExportView, intent::ExportCut, intent::ExportFinished, intent::DismissExport, intent::Quit>;
 
 using Intents = std::vector<Intent>;
