@@ -11,6 +11,7 @@
 #include "cli/load.hpp"
 #include "exports/cut_export.hpp"
 #include "exports/cut_figure.hpp"
+#include "exports/figure_text.hpp"
 #include "exports/render.hpp"
 #include "pattern/peak.hpp"
 
@@ -40,6 +41,19 @@ struct CutArgs {
 int fail(int code, const std::string& msg) {
     std::cerr << "ellipsa cut: " << msg << "\n";
     return code;
+}
+
+// One component's line of the summary, in the core's words: "RHCP: peak 3.38 dBic at theta =
+// 180.0 deg, HPBW none: the beam's edge lies outside ..., F/B 12.30 dB".
+std::string beam_line(const FarFieldSet& s, const CutSpec& spec, const ComponentCut& cut, std::size_t i) {
+    const std::string name = short_label(cut.components[i]);
+    const BeamFigures& b = cut.beams[i];
+    bool positive = false;
+    for (double p : cut.power[i]) positive = positive || p > 0;
+    if (!positive) return name + ": no power on this cut";
+    return name + ": peak " + level_text(b.peak_db, db_decimals, db_unit(s.quantity, cut.components[i])) + " at " +
+           spec.angle_name() + " = " + cut_angle_text(spec, b.peak_angle_deg, angle_decimals, "deg") + ", HPBW " +
+           beamwidth_text(b, spec.angle_name(), "deg") + ", F/B " + front_to_back_text(b.front_to_back_db, b.front_to_back_above_db);
 }
 
 int run_cut(const CutArgs& a) {
@@ -96,20 +110,7 @@ int run_cut(const CutArgs& a) {
     if (!cut) return fail(exit_bad_input, cut.error().file.empty() ? a.file + ": " + cut.error().message : cut.error().format());
 
     std::cout << "wrote " << a.out << ": " << spec.label() << ", " << format_frequency(s->frequencies[*fi].frequency_hz) << "\n";
-    for (std::size_t i = 0; i < cut->components.size(); ++i) {
-        const BeamFigures& b = cut->beams[i];
-        bool positive = false;
-        for (double p : cut->power[i]) positive = positive || p > 0;
-        if (!positive) {
-            std::cout << "  " << to_string(cut->components[i]) << ": no power on this cut\n";
-            continue;
-        }
-        const std::string u = db_unit(s->quantity, cut->components[i]);
-        char buf[96];
-        std::snprintf(buf, sizeof buf, " at %s = %.1f deg", spec.angle_name(), b.peak_angle_deg);
-        std::cout << "  " << to_string(cut->components[i]) << ": peak " << fmt(b.peak_db, u.c_str()) << buf << ", HPBW "
-                  << fmt(b.hpbw_deg, "deg", 1, "none") << ", F/B " << fmt(b.front_to_back_db, "dB", 2, "n/a") << "\n";
-    }
+    for (std::size_t i = 0; i < cut->components.size(); ++i) std::cout << "  " << beam_line(*s, spec, *cut, i) << "\n";
     return exit_ok;
 }
 

@@ -9,6 +9,8 @@ namespace ellipsa::cli {
 
 std::string fmt(double v, const char* unit, int decimals) {
     if (std::isnan(v)) return "n/a";
+    // An exactly zero power (-inf dB) in the core's words, never "-inf dBi".
+    if (std::isinf(v) && v < 0) return exports::level_text(v, decimals, unit);
     return exports::fixed(v, decimals) + (*unit ? " " : "") + unit;
 }
 

@@ -71,10 +71,11 @@ CutTable cut_table(const CutPlot& p) {
             continue;
         }
         const BeamFigures& b = *c.beam;
+        const double at = shown_cut_angle(b.peak_angle_deg, p.layout == AngleLayout::signed_half, angle_decimals);  // -180 is 180
         const std::string fb = b.front_to_back_db        ? num(*b.front_to_back_db, db_decimals) + " dB"
                                : b.front_to_back_above_db ? "> " + fixed(*b.front_to_back_above_db, 0) + " dB"
                                                           : std::string("n/a");
-        t.rows.push_back({c.label, num(b.peak_db, db_decimals) + " " + c.unit, angle_text(b.peak_angle_deg, angle_decimals),
+        t.rows.push_back({c.label, num(b.peak_db, db_decimals) + " " + c.unit, angle_text(at, angle_decimals),
                           beamwidth_cell(b), fb, b.sidelobe_db ? num(*b.sidelobe_db, db_decimals) + " dB" : "none"});
     }
     return t;

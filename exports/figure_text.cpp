@@ -19,6 +19,30 @@ std::string with_unit(double v, int decimals, const std::string& unit) {
     return fixed(v, decimals) + (tight ? "" : " ") + unit;
 }
 
+std::string level_text(double v_db, int decimals, const std::string& unit) {
+    if (std::isinf(v_db) && v_db < 0) return "none (zero field)";
+    return with_unit(v_db, decimals, unit);
+}
+
+double shown_cut_angle(double angle_deg, bool signed_range, int decimals) {
+    const double scale = std::pow(10.0, decimals);
+    double a = std::round(angle_deg * scale) / scale;  // round first: -179.96 is shown as 180.0
+    if (!std::isfinite(a)) return a;
+    a = std::fmod(a, 360.0);
+    if (signed_range) {
+        if (a <= -180) a += 360;
+        if (a > 180) a -= 360;
+    } else {
+        if (a < 0) a += 360;
+        if (a >= 360) a -= 360;
+    }
+    return a;
+}
+
+std::string cut_angle_text(const CutSpec& spec, double angle_deg, int decimals, const std::string& deg) {
+    return with_unit(shown_cut_angle(angle_deg, spec.kind != CutKind::theta_const, decimals), decimals, deg);
+}
+
 const char* sense_text(Sense s) {
     switch (s) {
         case Sense::right: return "right-hand";

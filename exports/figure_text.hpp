@@ -19,6 +19,16 @@ inline constexpr int db_decimals = 2, angle_decimals = 1, percent_decimals = 1;
 std::string fixed(double v, int decimals);
 // fixed(v, decimals) followed by " unit" (no space before a degree sign).
 std::string with_unit(double v, int decimals, const std::string& unit);
+// A level in dB as reported: with_unit(v_db, decimals, unit), "2.15 dBi"; an exactly zero power
+// (-inf dB) is "none (zero field)", never "-inf dBi".
+std::string level_text(double v_db, int decimals, const std::string& unit);
+// An angle on a cut as shown: rounded to `decimals`, then once in the cut's range. The cut's angle
+// axis is a closed loop (pattern/cut.hpp): with `signed_range` (phi = const and great-circle cuts)
+// -180 is the same direction as +180 and is shown as 180, range (-180, 180]; otherwise (conical
+// cuts) 360 is shown as 0, range [0, 360).
+double shown_cut_angle(double angle_deg, bool signed_range, int decimals);
+// The same as text for a cut: "180.0 deg" (`deg` "deg" or "°").
+std::string cut_angle_text(const CutSpec& spec, double angle_deg, int decimals, const std::string& deg);
 
 // "right-hand", "left-hand", "linear", "zero field".
 const char* sense_text(Sense s);

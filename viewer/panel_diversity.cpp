@@ -9,6 +9,7 @@
 #include <cmath>
 #include <cstdio>
 
+#include "exports/figure_text.hpp"
 #include "viewer/panels.hpp"
 #include "viewer/plot_widgets.hpp"
 
@@ -16,16 +17,9 @@ namespace ellipsa::viewer {
 
 namespace {
 
-std::string db_text(double linear, const char* unit = "dBi") {
-    char b[48];
-    const double v = to_db(linear);
-    const char* gap = *unit ? " " : "";
-    if (std::isinf(v))
-        std::snprintf(b, sizeof b, "%s%s%s", v < 0 ? "-inf" : "inf", gap, unit);
-    else
-        std::snprintf(b, sizeof b, "%.2f%s%s", v, gap, unit);
-    return b;
-}
+// A linear power in dB, in the core's words ("none (zero field)" for a purely vertical antenna's
+// horizontal part, never "-inf dBi").
+std::string db_text(double linear, const char* unit = "dBi") { return exports::level_text(to_db(linear), 2, unit); }
 
 // A titled separator (ImGui 1.86 has no SeparatorText).
 void section(const std::string& title) {

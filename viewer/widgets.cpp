@@ -5,6 +5,8 @@
 #include <cmath>
 #include <cstdio>
 
+#include "exports/figure_text.hpp"
+
 namespace ellipsa::viewer {
 
 void help_marker(const char* text) {
@@ -59,7 +61,7 @@ Intents export_outcome_line(const std::optional<ExportOutcome>& o, ExportTarget 
 }
 
 std::string db_text(double v, const std::string& unit) {
-    if (!std::isfinite(v)) return v < 0 ? "no field (-inf " + unit + ")" : "n/a";
+    if (!std::isfinite(v)) return v < 0 ? exports::level_text(v, 2, unit) : "n/a";
     char b[64];
     std::snprintf(b, sizeof b, "%.2f %s", v, unit.c_str());
     return b;

@@ -17,7 +17,7 @@ bool begin_figure_table(const char* id, bool row_bg = false);
 void table_row(const char* label, const std::string& value, const char* tip = nullptr);
 // "Wrote ...", "Export failed: ...", or "... is already there. [Replace it] [Keep it]".
 Intents export_outcome_line(const std::optional<ExportOutcome>& outcome, ExportTarget target);
-// "1.23 dBi"; a zero field as "no field (-inf dBi)", anything else not finite as "n/a".
+// "1.23 dBi"; a zero field as "none (zero field)" (exports::level_text), anything else not finite as "n/a".
 std::string db_text(double value_db, const std::string& unit);
 
 }  // namespace ellipsa::viewer

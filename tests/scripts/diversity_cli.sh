@@ -18,6 +18,10 @@ grep -q '"0.1": {' out.txt && ok "combining keyed by outage" || bad "combining n
 grep -Eq '"ecc": (0|[0-9.]+e-(1[2-9]|[2-9][0-9]))[,}]' out.txt && ok "z/x dipoles: ECC 0" || bad "z/x ECC not 0: $(grep -o '"ecc": [^,]*' out.txt)"
 expect_rc 0 "human output" "$E" diversity z.csv x.csv --environment indoor --orientations
 grep -q 'dBi' out.txt && grep -q 'diversity gain' out.txt && ok "human output has units" || bad "human output lacks units"
+# A z dipole has no horizontal part: its share of MEG is zero power, said in the core's words
+# (exports/figure_text.hpp level_text), never "-inf dBi".
+grep -q 'horizontal part *none (zero field)' out.txt && ok "zero horizontal part says none" || bad "zero horizontal part: $(grep 'horizontal part' out.txt)"
+! grep -q -- '-inf' out.txt && ok "human output never prints -inf" || bad "human output prints -inf: $(grep -- -inf out.txt)"
 expect_rc 2 "gaussian without all angles is bad usage" "$E" diversity z.csv --environment gaussian --v-mean 10
 grep -q 'vertical spread is missing' err.txt && ok "names the missing angle" || bad "does not name the missing angle: $(cat err.txt)"
 expect_rc 2 "unknown environment is bad usage" "$E" diversity z.csv --environment moon

@@ -20,6 +20,18 @@ expect_rc 0 "synth dipole" "$E" synth dipole --length 1.25 --step 2 --out d.csv
 
 # SVG
 expect_rc 0 "cut to SVG, three components" "$E" cut x.csv --phi 0 --components total,rhcp,lhcp --out c.svg
+# The summary lines say the core's words: its labels (pattern/components.hpp short_label), the
+# nadir as theta = 180 (pattern/cut.hpp: -180 and +180 are one direction of the closed loop), a
+# missing HPBW with its reason (exports/figure_text.hpp beamwidth_text).
+grep -q '^  Total: peak' out.txt && grep -q '^  RHCP: peak' out.txt && grep -q '^  LHCP: peak' out.txt \
+  && ok "cut text: core labels Total, RHCP, LHCP" || bad "cut text labels: $(cat out.txt)"
+! grep -Eq '^  (total|rhcp|lhcp):' out.txt && ok "cut text: no machine names" || bad "cut text machine names: $(cat out.txt)"
+! grep -q 'theta = -180\.0' out.txt && ok "cut text: no -180.0 (same direction as 180)" || bad "cut text -180: $(cat out.txt)"
+! grep -Eq 'HPBW none(,|$)' out.txt && ok "cut text: HPBW none always has a reason" || bad "bare HPBW none: $(cat out.txt)"
+! grep -q -- '-inf' out.txt && ok "cut text: never -inf" || bad "cut text -inf: $(cat out.txt)"
+# A z dipole's azimuth cut has no beam: the reason is given (omnidirectional, with its ripple).
+expect_rc 0 "azimuth cut of a dipole" "$E" cut d.csv --theta 90 --out o.svg
+grep -q '^  Total: peak .* HPBW none: omnidirectional (ripple ' out.txt && ok "cut text: HPBW none says why" || bad "HPBW reason: $(cat out.txt)"
 xmllint --noout c.svg 2>err.txt && ok "SVG is well-formed XML (xmllint)" || bad "SVG not well-formed: $(head -c 300 err.txt)"
 for c in "$C1" "$C2" "$C3"; do
   n=$(count_paths c.svg "$c"); [[ $n == 2 ]] && ok "SVG: curve + legend swatch in $c" || bad "SVG: $n paths in $c, expected 2"

@@ -190,3 +190,23 @@ TEST_CASE("the figure's table names each curve and gives its figures", "[export]
     CHECK(key.front() == p.axis_note);
     CHECK(std::any_of(key.begin(), key.end(), [](const std::string& n) { return n.find("dB per ring") != std::string::npos; }));
 }
+
+TEST_CASE("the table shows a peak at the nadir of a phi cut as 180, not -180", "[export]") {
+    // pattern/cut.hpp: theta runs -180..180 round a closed loop; -180 and +180 are one direction.
+    CutPlot p;
+    p.layout = AngleLayout::signed_half;
+    PlotCurve c;
+    c.label = "LHCP";
+    c.unit = "dBic";
+    BeamFigures b;
+    b.shape = BeamShape::beam;
+    b.peak_angle_deg = -180.0;
+    b.peak_db = 1.76;
+    b.hpbw_deg = 131.0;
+    c.beam = b;
+    p.curves.push_back(c);
+    CHECK(cut_table(p).rows[0][2] == "180.0\u00b0");
+    p.layout = AngleLayout::full_turn;
+    p.curves[0].beam->peak_angle_deg = 359.99;  // a conical cut: 360 is 0
+    CHECK(cut_table(p).rows[0][2] == "0.0\u00b0");
+}

@@ -137,6 +137,25 @@ TEST_CASE("numbers that round to zero never print as -0", "[honest][text]") {
     CHECK(exports::fixed(std::nan(""), 2) == "n/a");
 }
 
+TEST_CASE("a zero power is reported as none, never -inf dB", "[honest][text]") {
+    CHECK(exports::level_text(-INFINITY, 2, "dBi") == "none (zero field)");
+    CHECK(exports::level_text(2.149, 2, "dBi") == "2.15 dBi");
+    CHECK(exports::level_text(-0.001, 2, "dBic") == "0.00 dBic");
+}
+
+TEST_CASE("a cut angle is shown once per direction, in the cut's documented range", "[honest][text]") {
+    // pattern/cut.hpp: a phi = const cut runs theta -180..180 round a closed loop, so -180 and +180
+    // are one direction (the nadir); a conical cut runs phi 0..360, where 360 is 0.
+    const CutSpec phi0 = CutSpec::phi_cut(0), cone = CutSpec::theta_cut(90);
+    CHECK(exports::cut_angle_text(phi0, -180.0, 1, "deg") == "180.0 deg");
+    CHECK(exports::cut_angle_text(phi0, -179.96, 1, "deg") == "180.0 deg");  // rounds to -180.0 first
+    CHECK(exports::cut_angle_text(phi0, -179.9, 1, "deg") == "-179.9 deg");
+    CHECK(exports::cut_angle_text(phi0, 180.0, 1, "deg") == "180.0 deg");
+    CHECK(exports::cut_angle_text(phi0, -90.0, 1, "\u00b0") == "-90.0\u00b0");
+    CHECK(exports::cut_angle_text(cone, 359.98, 1, "deg") == "0.0 deg");
+    CHECK(exports::cut_angle_text(cone, 270.0, 1, "deg") == "270.0 deg");
+}
+
 namespace {
 // Power of a closed cut sampled every step_deg (angles -180..180), from a function of the angle.
 struct Cut {
