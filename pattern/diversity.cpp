@@ -371,7 +371,21 @@ Status validate(const OrientationSweep& sw) {
         return fail("the tilt step must lie in [0.1, 180] deg");
     if (!std::isfinite(sw.roll_step_deg) || sw.roll_step_deg < 0.1 || sw.roll_step_deg > 360)
         return fail("the roll step must lie in [0.1, 360] deg");
+    if (const double n = sweep_orientation_count(sw); n > max_sweep_orientations) {
+        char buf[160];
+        std::snprintf(buf, sizeof buf, "the orientation sweep would hold %.0f orientations, more than %.0f: use larger "
+                      "tilt or roll steps", n, max_sweep_orientations);
+        return fail(buf);
+    }
     return Ok{};
+}
+
+double sweep_orientation_count(const OrientationSweep& sw) {
+    // as orientation_robustness builds the set: tilts k step up to tilt_max plus tilt_max itself,
+    // rolls k step below 360 (tilts 0 and 180 are then counted once, which only lowers the count)
+    const double tilts = std::floor(sw.tilt_max_deg / sw.tilt_step_deg + 1e-9) + 2;
+    const double rolls = std::ceil(360 / sw.roll_step_deg - 1e-9);
+    return tilts * rolls;
 }
 
 Result<OrientationFigures> orientation_robustness(const FarFieldSet& s, std::size_t fi, const Environment& e,

@@ -77,6 +77,13 @@ struct OrientationSweep {
     double tilt_max_deg = 90;
     double roll_step_deg = 15;
 };
+// The most orientations a sweep may hold. Each costs one pass over the grid (about 0.35 ms on a
+// 1-degree grid), so this bounds the work at well under a minute; 0.1-degree steps over every
+// orientation (6.5 million) would run for hours. 1-degree steps over every orientation fit.
+inline constexpr double max_sweep_orientations = 100000;
+// Tilts from 0 to tilt_max (tilt_max itself included) times rolls over [0, 360): the size of the set.
+double sweep_orientation_count(const OrientationSweep& sweep);
+// Checks the ranges of the steps and the largest tilt, and the set's size (max_sweep_orientations).
 Status validate(const OrientationSweep& sweep);
 
 struct OrientationSample {

@@ -142,3 +142,22 @@ TEST_CASE("per-elevation tables stay right when turned, up to the environment's 
     CHECK(o->min == Approx(eta / 2).epsilon(2e-4));
     CHECK(o->max == Approx(eta / 2).epsilon(2e-4));
 }
+
+TEST_CASE("an orientation sweep is bounded: fine steps over every orientation are refused, not run for hours",
+          "[diversity][orientation]") {
+    // Bad input gets a clear message, never a hang (common practice, the project's rule for bad
+    // input). 0.1-degree steps over every orientation are 1802 x 3600 orientations, each a pass
+    // over the grid; the audit found `diversity --orientations --tilt-step 0.1 --roll-step 0.1`
+    // (and `rank` with the same steps) still running after 100 s.
+    const OrientationSweep fine{0.1, 180, 0.1};
+    CHECK(sweep_orientation_count(fine) > max_sweep_orientations);
+    const Status s = validate(fine);
+    REQUIRE_FALSE(s);
+    CHECK_THAT(s.error().message, Catch::Contains("orientations, more than 100000") && Catch::Contains("larger"));
+    auto r = orientation_robustness(diversity_fixture(ReferenceKind::dipole, {}, 10.0), 0, Environment{}, fine);
+    CHECK_FALSE(r);
+    // The documented defaults and 1-degree steps over every orientation stay allowed.
+    CHECK(validate(OrientationSweep{}));
+    CHECK(validate(OrientationSweep{1, 180, 1}));
+    CHECK(sweep_orientation_count(OrientationSweep{15, 90, 15}) >= 7 * 24);
+}
