@@ -116,6 +116,12 @@ void SceneRenderer::set_surface(const SurfaceMesh& m) {
     glBindVertexArray(0);
     glBindBuffer(GL_ARRAY_BUFFER, surface_vbo_);
     glBufferData(GL_ARRAY_BUFFER, GLsizeiptr(m.vertices.size() * sizeof(float)), m.vertices.data(), GL_STATIC_DRAW);
+    surface_index_count_ = int(m.triangles.size());
+    wire_index_count_ = int(m.wire_lines.size());
+    grid_step_deg_ = m.grid_step_deg;
+    // A component or frequency change keeps the index lists (about 30 MB at 0.25 degree).
+    if (uploaded_topology_ && *uploaded_topology_ == m.topology) return;
+    uploaded_topology_ = m.topology;
     glBindBuffer(GL_ELEMENT_ARRAY_BUFFER, surface_ibo_);
     const std::vector<std::uint32_t>* levels[3] = {&m.triangles, &m.triangles_stride2, &m.triangles_stride4};
     std::size_t total = 0;
@@ -129,13 +135,10 @@ void SceneRenderer::set_surface(const SurfaceMesh& m) {
         if (lod_count_[k])
             glBufferSubData(GL_ELEMENT_ARRAY_BUFFER, GLintptr(lod_offset_[k]), GLsizeiptr(levels[k]->size() * sizeof(std::uint32_t)),
                             levels[k]->data());
-    grid_step_deg_ = m.grid_step_deg;
     glBindBuffer(GL_ELEMENT_ARRAY_BUFFER, wire_ibo_);
     glBufferData(GL_ELEMENT_ARRAY_BUFFER, GLsizeiptr(m.wire_lines.size() * sizeof(std::uint32_t)), m.wire_lines.data(),
                  GL_STATIC_DRAW);
     glBindBuffer(GL_ELEMENT_ARRAY_BUFFER, 0);
-    surface_index_count_ = int(m.triangles.size());
-    wire_index_count_ = int(m.wire_lines.size());
 }
 
 void SceneRenderer::clear_surface() {

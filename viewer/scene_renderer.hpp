@@ -4,6 +4,7 @@
 // Uploading a 1-degree surface costs one buffer copy (about 2.4 MB); drawing is one call per layer.
 #pragma once
 #include <cstdint>
+#include <optional>
 
 #include "pattern/result.hpp"
 #include "viewer/scene/camera.hpp"
@@ -59,6 +60,7 @@ private:
     int lod_count_[3] = {0, 0, 0};            // triangles x3 for stride 1, 2, 4
     std::size_t lod_offset_[3] = {0, 0, 0};   // byte offsets in the index buffer
     double grid_step_deg_ = 1;
+    std::optional<SurfaceTopology> uploaded_topology_;  // of the index lists in the buffers
     int last_stride_ = 1;
     Lines glyphs_, ring_, axes_;
     // Uniform locations.

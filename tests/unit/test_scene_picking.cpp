@@ -89,3 +89,62 @@ TEST_CASE("the orbit camera keeps its elevation off the poles and its zoom bound
     c.reset();
     CHECK(c.distance == OrbitCamera{}.distance);
 }
+
+// The picking boxes only skip triangles the ray cannot reach: the hit is the one that testing
+// every triangle finds (common practice for bounding-volume culling: same triangles, same test).
+TEST_CASE("picking through the boxes finds the same hit as testing every triangle", "[scene][picking]") {
+    ReferenceAntenna a;
+    a.kind = ReferenceKind::crossed_dipoles;
+    const FarFieldSet s = synthesize(a, 1, 2.45e9);
+    const SurfaceMesh m = *build_surface(s, 0, SurfaceOptions{});
+    REQUIRE(m.pick_block_rows > 0);
+    SurfaceMesh unboxed = m;
+    unboxed.pick_boxes.clear();
+    OrbitCamera c;
+    int hits = 0;
+    for (double az : {0.0, 35.0, 130.0, 250.0})
+        for (double el : {-60.0, 0.0, 20.0, 75.0}) {
+            c.azimuth_deg = az;
+            c.elevation_deg = el;
+            for (int y = 0; y <= 600; y += 50)
+                for (int x = 0; x <= 800; x += 50) {
+                    const Ray r = ray_through_pixel(c, x, y, 800, 600);
+                    const auto fast = pick_direction(m, r), all = pick_direction(unboxed, r);
+                    REQUIRE(fast.has_value() == all.has_value());
+                    if (!fast) continue;
+                    ++hits;
+                    CHECK(fast->distance == all->distance);
+                    CHECK(fast->theta_deg == all->theta_deg);
+                    CHECK(fast->phi_deg == all->phi_deg);
+                }
+        }
+    CHECK(hits > 100);
+}
+
+// A mesh rebuilt into the arrays of the one shown before is the mesh built from nothing.
+TEST_CASE("a surface rebuilt over the previous one equals one built from nothing", "[scene][surface]") {
+    ReferenceAntenna a;
+    a.kind = ReferenceKind::crossed_dipoles;
+    FarFieldSet s = synthesize(a, 2, 2.45e9);
+    s.frequencies.push_back(synthesize(a, 2, 2.6e9).frequencies[0]);
+    SurfaceOptions rhcp;
+    rhcp.component = Component::rhcp;
+    rhcp.color_by = ColorBy::axial_ratio;
+    SurfaceMesh shown = *build_surface(s, 0, SurfaceOptions{});
+    for (auto [k, o] : {std::pair{std::size_t(1), rhcp}, std::pair{std::size_t(0), SurfaceOptions{}}, std::pair{std::size_t(1), SurfaceOptions{}}}) {
+        const SurfaceMesh fresh = *build_surface(s, k, o);
+        shown = std::move(*build_surface(s, k, o, nullptr, 0, std::move(shown)));
+        CHECK(shown.vertices == fresh.vertices);
+        CHECK(shown.triangles == fresh.triangles);
+        CHECK(shown.triangles_stride2 == fresh.triangles_stride2);
+        CHECK(shown.wire_lines == fresh.wire_lines);
+        CHECK(shown.radius == fresh.radius);
+        CHECK(shown.pick_boxes == fresh.pick_boxes);
+        CHECK(shown.peak_db == fresh.peak_db);
+        CHECK(shown.bar.title == fresh.bar.title);
+    }
+    // A different grid replaces the index lists.
+    const FarFieldSet fine = synthesize(a, 1, 2.45e9);
+    shown = std::move(*build_surface(fine, 0, SurfaceOptions{}, nullptr, 0, std::move(shown)));
+    CHECK(shown.triangles == build_surface(fine, 0, SurfaceOptions{})->triangles);
+}

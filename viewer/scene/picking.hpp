@@ -1,7 +1,9 @@
 // Picking a direction from a ray: which direction of the pattern lies under the cursor.
 // The ray is intersected with the surface triangles (Moller-Trumbore); every vertex lies on its own
-// direction from the origin, so the hit point's direction is the picked direction. Cost: one
-// ray-triangle test per triangle (about 1 ms for a 1-degree grid), only when the cursor moves.
+// direction from the origin, so the hit point's direction is the picked direction. Cost: a box test
+// per block of 16 x 16 grid cells (SurfaceMesh::pick_boxes), then ray-triangle tests only in the
+// blocks the ray crosses, nearest first: well under a millisecond even for a 0.25-degree grid
+// (testing all 2 million triangles of that grid took tens of milliseconds). Only when the cursor moves.
 #pragma once
 #include <optional>
 

@@ -28,6 +28,27 @@ std::vector<double> other_power_on_grid(const FarFieldSet& a, const FarFieldSet&
         }
     return out;
 }
+// Bounding boxes of pick_block x pick_block cells (their corner vertices included).
+void pick_boxes(SurfaceMesh& m) {
+    const int cells_r = std::max(m.rows - 1, 0), cells_c = std::max(m.cols - 1, 0);
+    m.pick_block_rows = (cells_r + pick_block - 1) / pick_block;
+    m.pick_block_cols = (cells_c + pick_block - 1) / pick_block;
+    m.pick_boxes.assign(std::size_t(m.pick_block_rows) * std::size_t(m.pick_block_cols) * 6, 0.f);
+    parallel_blocks(std::size_t(m.pick_block_rows), 8, [&](std::size_t ba, std::size_t bb) {
+        for (std::size_t br = ba; br < bb; ++br)
+            for (int bc = 0; bc < m.pick_block_cols; ++bc) {
+                float lo[3] = {1e30f, 1e30f, 1e30f}, hi[3] = {-1e30f, -1e30f, -1e30f};
+                const int i1 = std::min(int(br + 1) * pick_block, m.rows - 1), j1 = std::min((bc + 1) * pick_block, m.cols - 1);
+                for (int i = int(br) * pick_block; i <= i1; ++i)
+                    for (int j = bc * pick_block; j <= j1; ++j) {
+                        const float* v = &m.vertices[(std::size_t(i) * std::size_t(m.cols) + std::size_t(j)) * surface_floats_per_vertex];
+                        for (int a = 0; a < 3; ++a) lo[a] = std::min(lo[a], v[a]), hi[a] = std::max(hi[a], v[a]);
+                    }
+                float* box = &m.pick_boxes[(br * std::size_t(m.pick_block_cols) + std::size_t(bc)) * 6];
+                for (int a = 0; a < 3; ++a) box[a] = lo[a], box[3 + a] = hi[a];
+            }
+    });
+}
 }  // namespace
 
 namespace {
@@ -114,21 +135,11 @@ double colour_value(const SurfaceOptions& o, const SurfaceMesh& m, cplx et, cplx
     return std::numeric_limits<double>::quiet_NaN();
 }
 
-std::vector<double> colour_values(const FarFieldSet& s, std::size_t k, const SurfaceOptions& o, const SurfaceMesh& m,
-                                  const std::vector<double>& value_db, const FarFieldSet* other, std::size_t kb) {
-    const FarField& f = s.frequencies[k];
-    std::vector<double> pb;
-    if (o.color_by == ColorBy::difference) pb = other_power_on_grid(s, *other, kb, o.component);
-    std::vector<double> t(value_db.size());
-    parallel_blocks(t.size(), min_block, [&](std::size_t a, std::size_t b) {
-        for (std::size_t n = a; n < b; ++n) t[n] = colour_value(o, m, f.e_theta[n], f.e_phi[n], value_db[n], pb.empty() ? 0.0 : pb[n]);
-    });
-    return t;
-}
-
-// Positions, radii and colours.
-void fill_vertices(SurfaceMesh& m, const Grid& g, const GridTrig& tr, const std::vector<double>& value_db,
-                   const std::vector<double>& t, double range_db) {
+// Positions, radii and colours (colour_value of each sample; `other_power` is B's component power
+// on this grid for ColorBy::difference, else empty).
+void fill_vertices(SurfaceMesh& m, const Grid& g, const GridTrig& tr, const std::vector<double>& value_db, const FarField& f,
+                   const SurfaceOptions& o, const std::vector<double>& other_power) {
+    const double range_db = o.range_db;
     const std::size_t np = std::size_t(g.phi.count), cols = std::size_t(m.cols);
     m.radius.resize(g.size());
     m.vertices.resize(std::size_t(m.rows) * cols * surface_floats_per_vertex);
@@ -141,7 +152,8 @@ void fill_vertices(SurfaceMesh& m, const Grid& g, const GridTrig& tr, const std:
                 float* v = &m.vertices[(i * cols + j) * surface_floats_per_vertex];
                 const Vec3 u = tr.radial(i, jj);
                 v[0] = float(r * u.x), v[1] = float(r * u.y), v[2] = float(r * u.z);
-                const Rgb c = map_color(m.bar.map, t[n]);
+                const double t = colour_value(o, m, f.e_theta[n], f.e_phi[n], value_db[n], other_power.empty() ? 0.0 : other_power[n]);
+                const Rgb c = map_color(m.bar.map, t);
                 v[6] = c.r, v[7] = c.g, v[8] = c.b;
             }
     });
@@ -210,10 +222,16 @@ std::vector<std::uint32_t> coarse_triangles(const SurfaceMesh& m, int k) {
     return out;
 }
 
-// Wireframe: meridians and parallels every wire_step_deg (nearest grid lines).
-void fill_wire(SurfaceMesh& m, const Grid& g, int wire_step_deg) {
-    const int step = std::max(1, int(std::lround(wire_step_deg / std::max(g.theta.step_deg, 1e-9))));
-    const int pstep = std::max(1, int(std::lround(wire_step_deg / std::max(g.phi.step_deg, 1e-9))));
+// The index lists' inputs: the shape and the wireframe spacing in grid lines (nearest to wire_step_deg).
+SurfaceTopology topology_of(const SurfaceMesh& m, const Grid& g, int wire_step_deg) {
+    return {m.rows, m.cols, std::max(1, int(std::lround(wire_step_deg / std::max(g.theta.step_deg, 1e-9)))),
+            std::max(1, int(std::lround(wire_step_deg / std::max(g.phi.step_deg, 1e-9))))};
+}
+
+// Wireframe: meridians and parallels every topology.wire_rows / wire_cols grid lines.
+void fill_wire(SurfaceMesh& m) {
+    const int step = m.topology.wire_rows, pstep = m.topology.wire_cols;
+    m.wire_lines.clear();
     for (int i = 0; i < m.rows; i += step)
         for (int j = 0; j + 1 < m.cols; ++j)
             m.wire_lines.insert(m.wire_lines.end(), {std::uint32_t(i * m.cols + j), std::uint32_t(i * m.cols + j + 1)});
@@ -225,11 +243,11 @@ void fill_wire(SurfaceMesh& m, const Grid& g, int wire_step_deg) {
 }  // namespace
 
 Result<SurfaceMesh> build_surface(const FarFieldSet& s, std::size_t k, const SurfaceOptions& o,
-                                  const FarFieldSet* other, std::size_t kb) {
+                                  const FarFieldSet* other, std::size_t kb, SurfaceMesh&& previous) {
     if (auto refused = surface_refusal(s, k, o, other, kb)) return *refused;
     const Grid& g = s.grid;
     const bool wraps = g.phi_wraps();
-    SurfaceMesh m;
+    SurfaceMesh m = std::move(previous);
     m.rows = g.theta.count;
     m.cols = g.phi.count + (wraps ? 1 : 0);
     m.unit = db_unit(s.quantity, o.component);
@@ -237,16 +255,23 @@ Result<SurfaceMesh> build_surface(const FarFieldSet& s, std::size_t k, const Sur
     const std::vector<double> value_db = component_db(s, k, o.component, m.peak_db);
     m.floor_db = m.peak_db - o.range_db;
     m.bar = colour_bar(s, o, m);
-    const std::vector<double> t = colour_values(s, k, o, m, value_db, other, kb);
-    fill_vertices(m, g, trig, value_db, t, o.range_db);
+    std::vector<double> other_power;
+    if (o.color_by == ColorBy::difference) other_power = other_power_on_grid(s, *other, kb, o.component);
+    fill_vertices(m, g, trig, value_db, s.frequencies[k], o, other_power);
     fill_normals(m, trig, g.phi.count, wraps);
-    fill_triangles(m);
+    pick_boxes(m);
     m.grid_step_deg = std::min(g.theta.step_deg, g.phi.step_deg);
+    const SurfaceTopology topology = topology_of(m, g, o.wire_step_deg);
+    if (topology == m.topology && !m.triangles.empty()) return m;
+    m.topology = topology;
+    fill_triangles(m);
+    m.triangles_stride2.clear();
+    m.triangles_stride4.clear();
     if (m.rows > 8 && m.cols > 8) {
         m.triangles_stride2 = coarse_triangles(m, 2);
         m.triangles_stride4 = coarse_triangles(m, 4);
     }
-    fill_wire(m, g, o.wire_step_deg);
+    fill_wire(m);
     return m;
 }
 

@@ -42,8 +42,16 @@ struct ColorBar {
 
 inline constexpr int surface_floats_per_vertex = 9;
 
+// What the index lists (triangles, coarser levels, wireframe) depend on: the grid's shape and the
+// wireframe's spacing in grid lines, never the values. Equal topologies have equal index lists.
+struct SurfaceTopology {
+    int rows = 0, cols = 0, wire_rows = 0, wire_cols = 0;
+    bool operator==(const SurfaceTopology&) const = default;
+};
+
 struct SurfaceMesh {
     int rows = 0, cols = 0;  // vertex rows (theta samples) and columns (phi samples + seam column)
+    SurfaceTopology topology;  // of the index lists below
     std::vector<float> vertices;        // interleaved, surface_floats_per_vertex per vertex
     std::vector<std::uint32_t> triangles;
     // Coarser triangle lists over the same vertices, taking every 2nd and every 4th grid line
@@ -56,7 +64,13 @@ struct SurfaceMesh {
     ColorBar bar;
     // Radius of the surface toward (theta, phi) in degrees (bilinear in the grid), for glyphs and rings.
     std::vector<float> radius;  // per grid sample (theta rows x phi count)
+    // Bounding boxes of blocks of pick_block x pick_block grid cells (min xyz, max xyz; block rows
+    // slow), so that a hover pick tests only the triangles of the blocks its ray crosses.
+    std::vector<float> pick_boxes;
+    int pick_block_rows = 0, pick_block_cols = 0;
 };
+
+inline constexpr int pick_block = 16;  // grid cells per side of a picking block
 
 // Radius in [0, 1] of a value in dB: 0 at or below peak - range, 1 at the peak.
 inline double radius_from_db(double value_db, double peak_db, double range_db) {
@@ -73,8 +87,12 @@ int lod_stride(double grid_step_deg, double view_height_px, double fov_deg, doub
 // Build the surface of one frequency. `other`, when given, is the B pattern for ColorBy::difference
 // (sampled at this set's directions by interpolation when the grids differ). Errors say why a
 // component or colouring is unavailable (for example RHCP from magnitude-only data).
+// `previous`, a mesh no longer needed (the one shown before a component or frequency change), lends
+// its arrays: no fresh memory to fault in and clear, and its index lists are kept as they are when
+// the topology is the same (at 0.25 degree they are 30 MB). The result does not depend on it.
 Result<SurfaceMesh> build_surface(const FarFieldSet& s, std::size_t freq_index, const SurfaceOptions& o,
-                                  const FarFieldSet* other = nullptr, std::size_t other_freq_index = 0);
+                                  const FarFieldSet* other = nullptr, std::size_t other_freq_index = 0,
+                                  SurfaceMesh&& previous = SurfaceMesh{});
 
 // Radius of the built surface toward a direction (bilinear in the grid; 0 outside the sampled region).
 double surface_radius(const FarFieldSet& s, const SurfaceMesh& m, double theta_deg, double phi_deg);

@@ -54,7 +54,8 @@ SurfaceKey surface_key(const AppState& s, const Shown& w) {
     return k;
 }
 
-SurfaceView build_surface_view(const AppState& s, const Shown& w) {
+// `previous`: the surface shown until now, whose arrays the new one reuses (build_surface()).
+SurfaceView build_surface_view(const AppState& s, const Shown& w, SurfaceMesh&& previous) {
     SurfaceView v;
     if (!w.a) return v;
     const auto t0 = std::chrono::steady_clock::now();
@@ -64,7 +65,7 @@ SurfaceView build_surface_view(const AppState& s, const Shown& w) {
     o.range_db = s.settings.range_db;
     o.gain_map = s.settings.gain_map;
     const bool diff = o.color_by == ColorBy::difference && w.b;
-    auto m = build_surface(w.a->set, w.fa, o, diff ? &w.b->set : nullptr, w.fb);
+    auto m = build_surface(w.a->set, w.fa, o, diff ? &w.b->set : nullptr, w.fb, std::move(previous));
     if (m) v.mesh = std::move(*m);
     else v.error = m.error().message;
     v.build_ms = ms_since(t0);
@@ -140,7 +141,7 @@ DerivedChanges refresh(Derived& d, const AppState& s, bool interacting) {
     const Shown w = shown(s);
     DerivedChanges c;
     const SurfaceKey sk = surface_key(s, w);
-    c.surface = d.surface.update(sk, [&] { return build_surface_view(s, w); });
+    c.surface = d.surface.update(sk, [&] { return build_surface_view(s, w, std::move(d.surface.value().mesh)); });
     const SurfaceMesh& mesh = d.surface.value().mesh;
     const GlyphKey gk{sk, s.settings.glyphs && w.a, s.settings.glyph_spacing_deg};
     c.glyphs = d.glyphs.update(gk, [&] {
