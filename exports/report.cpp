@@ -145,6 +145,19 @@ struct CutDef {
     CutSpec spec;
 };
 
+// Which of n frequencies get cuts, maps and 3D views: all of up to max_detail_frequencies, else
+// the lowest, the centre (the coverage section's) and the highest. Hundreds of figure files for
+// a long sweep took minutes and said less than the band figures, which cover every frequency.
+constexpr std::size_t max_detail_frequencies = 5;
+std::vector<std::size_t> detail_positions(std::size_t n) {
+    std::vector<std::size_t> v;
+    if (n <= max_detail_frequencies) {
+        for (std::size_t j = 0; j < n; ++j) v.push_back(j);
+        return v;
+    }
+    return {0, n / 2, n - 1};
+}
+
 std::vector<CutDef> principal_cuts(const PatternSummary& r, std::string* peak_note) {
     std::vector<CutDef> v{{"phi0", "Elevation cut φ = 0° (xz-plane)", CutSpec::phi_cut(0)},
                           {"phi90", "Elevation cut φ = 90° (yz-plane)", CutSpec::phi_cut(90)},
@@ -253,7 +266,11 @@ Result<std::vector<ReportFile>> build_report(const std::vector<ReportInput>& inp
         if (Status st = coverage_section(doc, files, s, freqs[i][freqs[i].size() / 2], base, display_name(in), o); !st)
             return st.error();
 
-        for (std::size_t j = 0; j < freqs[i].size(); ++j) {
+        const std::vector<std::size_t> detail = detail_positions(freqs[i].size());
+        if (detail.size() < freqs[i].size())
+            doc.note("Cuts, maps and 3D views at the lowest, centre and highest of the " + std::to_string(freqs[i].size()) +
+                     " frequencies; the figures table and the band figures cover every one (ask for another with --frequency).");
+        for (const std::size_t j : detail) {
             const std::size_t fi = freqs[i][j];
             const PatternSummary& r = summaries[i][j];
             // File names per frequency; frequencies that round to the same tag get their index too.
