@@ -2,15 +2,12 @@
 //   the random-field simulation, 1e5 realisations of 100 plane waves for three antennas on a
 //   1-degree grid (target: under 2 s on the 2-core machine), on one thread and on two, wall and
 //   CPU time; with a dominant wave; with a random orientation per realisation (interpolated fields)
-//   the exact combining figures (selection and maximal ratio at two outages); `rank` of 10
-//   candidates in three environments with orientation statistics (target: under 3 s)
+//   the exact combining figures (selection and maximal ratio at two outages)
 #include <ctime>
 #include <cstdio>
 
 #include "pattern/combining.hpp"
 #include "pattern/fading.hpp"
-#include "pattern/parallel.hpp"
-#include "pattern/rank.hpp"
 #include "tests/bench/best_time.hpp"
 #include "tests/unit/diversity_fixtures.hpp"
 
@@ -52,25 +49,4 @@ int main() {
     std::printf("exact combining, two outages (selection series + maximal ratio, levels solved): %.3f ms  "
                 "(selection gain at 1 %%: %.3f dB)\n",
                 ms, f.outages[0].selection_gain_db);
-
-    // rank: 10 candidates (dipoles and crossed dipoles turned 0..81 deg) against the reference
-    // dipole in three environments, with the orientation sweep (15-degree steps, every tilt).
-    std::vector<FarFieldSet> sets;
-    for (int k = 0; k < 10; ++k)
-        sets.push_back(diversity_fixture(k % 2 ? ReferenceKind::crossed_dipoles : ReferenceKind::dipole,
-                                         rotation_xyz_deg(9.0 * k, 4.0 * k, 0), 1.0));
-    std::vector<RankCandidate> cands;
-    for (const FarFieldSet& s : sets) cands.push_back({&s, "", 0});
-    const FarFieldSet ref = reference_dipole(sets[0].grid, sets[0].frequencies[0].frequency_hz);
-    const std::vector<Environment> envs{*environment_preset("uniform"), urbanish_environment(), taga_environment(0, 5, 0, 5, 0)};
-    RankOptions ro;
-    for (int threads : {1, int(parallel_threads())}) {
-        ro.threads = threads;
-        const double c0 = cpu_s();
-        bool ok = false;
-        const double rms = best_ms(2, [&] { ok = bool(rank_candidates(cands, {&ref, "", 0}, envs, ro)); });
-        std::printf("rank, 10 candidates x 3 environments, orientation sweep, 1-deg grid, %d thread%s: %7.0f ms wall "
-                    "(best of 2; %.0f ms CPU each; target < 3000 ms)%s\n",
-                    threads, threads > 1 ? "s" : "", rms, (cpu_s() - c0) * 1000 / 2, ok ? "" : "  FAILED");
-    }
 }
