@@ -51,6 +51,7 @@ void write_human(const std::string& path, const FarFieldSet& s, const std::vecto
     char buf[128];
     std::snprintf(buf, sizeof buf, "%.1f %% of the sphere%s", 100 * cov, is_full_sphere(s.grid) ? " (full)" : "");
     std::cout << "  coverage     " << buf << "\n";
+    std::cout << "  mounting     " << mounting_text(s) << "\n";
     for (const PatternSummary& r : rs) {
         std::cout << "\n  " << format_frequency(r.frequency_hz) << "\n";
         std::cout << "    peak                  " << exports::peak_text(r, u, "deg") << "\n";
@@ -78,7 +79,11 @@ void write_human(const std::string& path, const FarFieldSet& s, const std::vecto
                   << (r.sense ? exports::polarisation_text(*r.sense, r.axial_ratio_db) : "unavailable (" + r.unavailable_reason + ")")
                   << "\n";
         // issue 16: AR beamwidth around the peak and the AR <= 3 dB share of the sphere.
-        std::cout << "    AR beamwidth (3 dB)   " << circular_text(circular_figures(s, which[std::size_t(&r - rs.data())], r)) << "\n";
+        const std::size_t k = which[std::size_t(&r - rs.data())];
+        std::cout << "    AR beamwidth (3 dB)   " << circular_text(circular_figures(s, k, r)) << "\n";
+        std::cout << "    phase centre          " << phase_centre_text(s, k) << "\n";
+        if (const std::string moved = reference_shift_text(s, k); !moved.empty())
+            std::cout << "    phase reference       moved to " << moved << "\n";
     }
     if (rs.size() > 1) std::cout << band_summary_text(band_summary(s, which, rs));  // issue 16
 }

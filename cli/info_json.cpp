@@ -1,6 +1,7 @@
 #include "cli/info_json.hpp"
 
 #include "cli/band_text.hpp"
+#include "cli/mounting_options.hpp"
 #include "exports/figure_text.hpp"
 #include "pattern/integrate.hpp"
 
@@ -45,6 +46,7 @@ void summary_json(JsonWriter& j, const FarFieldSet& s, std::size_t freq_index, c
     if (r.efficiency_above_100) j.value(exports::efficiency_warning_text(*r.power.radiation_efficiency));
     j.end_array();
     circular_json(j, circular_figures(s, freq_index, r));  // issue 16: AR beamwidth
+    phase_centre_json(j, s, freq_index);
 }
 
 std::string info_json(const FarFieldSet& s, const std::vector<std::size_t>& which, const std::vector<PatternSummary>& rs) {
@@ -61,6 +63,7 @@ std::string info_json(const FarFieldSet& s, const std::vector<std::size_t>& whic
     j.field("theta_count", s.grid.theta.count).field("phi_start_deg", s.grid.phi.start_deg);
     j.field("phi_step_deg", s.grid.phi.step_deg).field("phi_count", s.grid.phi.count);
     j.end_object();
+    mounting_json(j, s);
     j.key("results").begin_array();
     for (std::size_t k = 0; k < rs.size(); ++k) {
         j.begin_object();

@@ -44,6 +44,7 @@ void add_load_options(CLI::App* sub, LoadOptions& o) {
                     "angle-unit, phase-unit, frequency-unit, frequency, ludwig3-reference, name, source, note");
     sub->add_option("--scale", o.scale, "Multiply schema columns on reading: \"e_theta_re=0.001,...\"");
     sub->add_option("--offset", o.offset, "Add to schema columns on reading (after --scale): \"e_theta_db=-3,...\"");
+    add_mounting_options(sub, o.mounting);
     sub->footer("These options apply to every FILE. Options for one file only follow its name: "
                 "FILE::map=FILE.map::offset=e_total_db=7.5 (keys map, map-file, assume, scale, offset). "
                 "A map file beside a file (FILE's stem with .map, or a .map file naming it) is used when no map is given.");
@@ -208,7 +209,13 @@ Result<FarFieldSet> load_pattern(const std::string& arg, const LoadOptions& o) {
             };
         }
     }
-    return read_far_field_csv(path, ro->options);
+    auto raw = read_far_field_csv(path, ro->options);
+    if (!raw) return raw;
+    auto request = install_request(o.mounting);
+    if (!request) return request.error();
+    auto installed = install_pattern(std::move(*raw), *request);
+    if (!installed) return Error{path, 0, 0, installed.error().message};
+    return installed;
 }
 
 Result<std::size_t> pick_frequency(const FarFieldSet& s, const std::optional<double>& f, const std::string& path) {

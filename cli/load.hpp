@@ -7,6 +7,7 @@
 
 #include <CLI/CLI.hpp>
 
+#include "cli/mounting_options.hpp"
 #include "importers/far_field_csv.hpp"
 #include "pattern/result.hpp"
 
@@ -20,12 +21,13 @@ struct FileOptions {
     std::string offset;    // --offset "schema_column=value,..."
 };
 struct LoadOptions : FileOptions {
+    MountingOptions mounting;  // --up, --rotate, --phase-centre for every file (cli/mounting_options.hpp)
     // The options of single files ("PATH::key=value", below), by path; filled while the command
     // line is parsed, so each FILE argument holds its path alone.
     std::vector<std::pair<std::string, FileOptions>> per_file;
 };
 // The one place that adds the import options (--map, --map-file, --assume, --scale, --offset)
-// to a subcommand; they apply to every pattern file of the command. Call it after the options
+// and the mounting options (--up, --rotate, --phase-centre) to a subcommand; they apply to every pattern file of the command. Call it after the options
 // that name pattern files (the positionals FILE, FILE2, IN and --minus, --partner, --reference): those accept
 // "PATH::key=value" and keep PATH.
 void add_load_options(CLI::App* sub, LoadOptions& o);
@@ -56,8 +58,9 @@ struct PreparedLoad {
 };
 Result<PreparedLoad> prepare_load(const std::string& arg, const LoadOptions& o);
 
-// Read a pattern file (a FILE argument as above); progress goes to stderr on a terminal for
-// long loads, and a map file found beside the file is named there.
+// Read a pattern file (a FILE argument as above) and install it (pattern/install.hpp: the file's
+// mounting or the options', the phase centres, a moved phase reference); progress goes to stderr
+// on a terminal for long loads, and a map file found beside the file is named there.
 Result<FarFieldSet> load_pattern(const std::string& arg, const LoadOptions& o);
 
 // The frequency index asked for (nearest within 0.5 %), or the only one; an Error lists what

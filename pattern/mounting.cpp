@@ -1,5 +1,7 @@
 #include "pattern/mounting.hpp"
 
+#include <charconv>
+#include <algorithm>
 #include <cmath>
 
 namespace ellipsa {
@@ -20,7 +22,100 @@ void cos_sin_deg(double angle_deg, double& c, double& s) {
     s = std::sin(angle_deg * deg);
 }
 
+std::string_view trim(std::string_view t) {
+    while (!t.empty() && (t.front() == ' ' || t.front() == '\t')) t.remove_prefix(1);
+    while (!t.empty() && (t.back() == ' ' || t.back() == '\t')) t.remove_suffix(1);
+    return t;
+}
+
+// A whole cell as a finite number, or nothing.
+std::optional<double> number(std::string_view t) {
+    t = trim(t);
+    if (!t.empty() && t.front() == '+') t.remove_prefix(1);
+    double v = 0;
+    auto [end, ec] = std::from_chars(t.data(), t.data() + t.size(), v);
+    if (t.empty() || ec != std::errc() || end != t.data() + t.size() || !std::isfinite(v)) return std::nullopt;
+    return v;
+}
+
+std::string quoted(std::string_view t) { return "\"" + std::string(t) + "\""; }
+
+std::string number_text(double v) {
+    if (v == 0) v = 0;  // no "-0"
+    char buf[32];
+    auto r = std::to_chars(buf, buf + sizeof buf, v);
+    return std::string(buf, r.ptr);
+}
+
+std::optional<Axis> axis_letter(std::string_view t) {
+    if (t == "x" || t == "X") return Axis::x;
+    if (t == "y" || t == "Y") return Axis::y;
+    if (t == "z" || t == "Z") return Axis::z;
+    return std::nullopt;
+}
+
 }  // namespace
+
+Result<Vec3> parse_up(std::string_view text) {
+    const std::string_view t = trim(text);
+    const std::string expected = "expected an axis (+x, -x, +y, -y, +z, -z) or a direction THETA,PHI in degrees, found ";
+    if (const std::size_t comma = t.find(','); comma != std::string_view::npos) {
+        const auto th = number(t.substr(0, comma)), ph = number(t.substr(comma + 1));
+        if (!th || !ph) return Error{"", 0, 0, expected + quoted(text)};
+        if (*th < 0 || *th > 180)
+            return Error{"", 0, 0, "expected theta from 0 to 180 deg in the up direction, found " + quoted(text)};
+        return direction_deg(*th, *ph);
+    }
+    std::string_view a = t;
+    double sign = 1;
+    if (!a.empty() && (a.front() == '+' || a.front() == '-')) {
+        sign = a.front() == '-' ? -1 : 1;
+        a.remove_prefix(1);
+    }
+    const auto axis = axis_letter(a);
+    if (!axis) return Error{"", 0, 0, expected + quoted(text)};
+    Vec3 v{};
+    (*axis == Axis::x ? v.x : *axis == Axis::y ? v.y : v.z) = sign;
+    return v;
+}
+
+Result<std::vector<AxisTurn>> parse_turns(std::string_view text) {
+    std::vector<AxisTurn> out;
+    if (trim(text).empty()) return out;
+    std::size_t pos = 0;
+    while (true) {
+        const std::size_t comma = text.find(',', pos);
+        const std::string_view item = trim(text.substr(pos, comma == std::string_view::npos ? std::string_view::npos : comma - pos));
+        const std::size_t colon = item.find(':');
+        const auto axis = colon == std::string_view::npos ? std::nullopt : axis_letter(trim(item.substr(0, colon)));
+        const auto angle = colon == std::string_view::npos ? std::nullopt : number(item.substr(colon + 1));
+        if (!axis || !angle)
+            return Error{"", 0, 0, "expected turns AXIS:DEG separated by commas (AXIS x, y or z; for example z:30,x:10), found " +
+                                       quoted(item) + (item == trim(text) ? "" : " in " + quoted(text))};
+        out.push_back({*axis, *angle});
+        if (comma == std::string_view::npos) break;
+        pos = comma + 1;
+    }
+    return out;
+}
+
+std::string format_up(Vec3 up) {
+    const Vec3 u = normalized(up);
+    const double c[3] = {u.x, u.y, u.z};
+    for (int i = 0; i < 3; ++i)
+        if (std::abs(c[i]) == 1) return std::string(c[i] > 0 ? "+" : "-") + "xyz"[i];
+    const double theta = std::acos(std::clamp(u.z, -1.0, 1.0)) / deg;
+    const double phi = wrap360(std::atan2(u.y, u.x) / deg);
+    // Rounded to 1e-9 deg, so "60,30" reads back as written despite the round trip's last bits.
+    auto r = [](double a) { return number_text(std::round(a * 1e9) / 1e9); };
+    return r(theta) + "," + r(phi == 360 ? 0 : phi);
+}
+
+std::string format_turns(const std::vector<AxisTurn>& turns) {
+    std::string s;
+    for (const AxisTurn& t : turns) s += (s.empty() ? "" : ",") + std::string(to_string(t.axis)) + ":" + number_text(t.angle_deg);
+    return s;
+}
 
 const char* to_string(Axis a) {
     switch (a) {

@@ -13,8 +13,11 @@
 // (entries 0, +-1), so rotations that map a grid onto itself stay exact.
 #pragma once
 #include <optional>
+#include <string>
+#include <string_view>
 #include <vector>
 
+#include "pattern/result.hpp"
 #include "pattern/vec3.hpp"
 
 namespace ellipsa {
@@ -51,5 +54,19 @@ bool is_identity(const Mat3& r);
 // axis and mean nothing after another one); turns from the user follow whatever mounting stands.
 Mounting resolve_mounting(const Mounting& from_file, const std::optional<Vec3>& up,
                           const std::vector<AxisTurn>& turns);
+
+// The text forms, shared by the command line (--up, --rotate) and the CSV metadata
+// (mounting-up, mounting-turns; docs/far-field-csv.md). Errors say what was expected and
+// carry no place (the caller adds the option or the file line).
+//   up:    "+x", "-x", "+y", "-y", "+z", "-z" (the sign may be left out for +), or
+//          "THETA,PHI" in degrees: a direction in the file's frame
+//   turns: "AXIS:DEG,AXIS:DEG,..." with AXIS x, y or z (world axes), applied left to right;
+//          "" is no turn
+Result<Vec3> parse_up(std::string_view text);
+Result<std::vector<AxisTurn>> parse_turns(std::string_view text);
+// "+x" for an axis-aligned unit direction, else "THETA,PHI" (shortest round trip).
+std::string format_up(Vec3 up);
+// "z:30,x:10" ("" for none).
+std::string format_turns(const std::vector<AxisTurn>& turns);
 
 }  // namespace ellipsa

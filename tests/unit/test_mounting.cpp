@@ -256,3 +256,48 @@ TEST_CASE("the file's own mounting applies, and the request can only record it",
     REQUIRE(recorded->file_mounting.turns.size() == 1);
     CHECK(worst_difference(*recorded, x) == 0);
 }
+
+TEST_CASE("mounting text: up axes, directions and turns read and written back", "[mounting]") {
+    // The text forms of docs/far-field-csv.md (mounting-up, mounting-turns) and of --up/--rotate.
+    auto x = parse_up("+x");
+    REQUIRE(x);
+    CHECK((x->x == 1 && x->y == 0 && x->z == 0));
+    auto mz = parse_up(" -z ");
+    REQUIRE(mz);
+    CHECK(mz->z == -1);
+    auto y = parse_up("y");  // the sign may be left out for +
+    REQUIRE(y);
+    CHECK(y->y == 1);
+    // THETA,PHI: 90,90 is exactly +y (direction_deg is exact at quarter turns).
+    auto d = parse_up("90,90");
+    REQUIRE(d);
+    CHECK((d->x == 0 && d->y == 1 && d->z == 0));
+    CHECK(format_up(*d) == "+y");
+    CHECK(format_up(*parse_up("60,30")) == "60,30");
+    CHECK(format_up({0, 0, -1}) == "-z");
+    for (const char* bad : {"", "w", "+xy", "90", "90,", "200,0", "nan,0", "1e999,0"}) {
+        auto r = parse_up(bad);
+        CHECK(!r);
+        if (!r) CHECK(r.error().message.find("expected") == 0);
+    }
+    auto t = parse_turns("z:30, x:-10.5");
+    REQUIRE(t);
+    REQUIRE(t->size() == 2);
+    CHECK((*t)[0].axis == Axis::z);
+    CHECK((*t)[0].angle_deg == 30);
+    CHECK((*t)[1].axis == Axis::x);
+    CHECK((*t)[1].angle_deg == -10.5);
+    CHECK(format_turns(*t) == "z:30,x:-10.5");
+    CHECK(parse_turns("")->empty());
+    for (const char* bad : {"z30", "w:10", "z:", "z:10,", "z:inf", ":5"}) CHECK(!parse_turns(bad));
+}
+
+TEST_CASE("turns apply left to right about the world axes", "[mounting]") {
+    // conventions.md: further rotations about the world axes follow in the order given, so
+    // R = T_2 T_1 U. z:90 then x:90 takes the file's +x first to +y, then to +z.
+    Mounting m{{0, 0, 1}, *parse_turns("z:90,x:90")};
+    const Vec3 v = apply(mounting_matrix(m), Vec3{1, 0, 0});
+    CHECK(v.x == Approx(0).margin(1e-15));
+    CHECK(v.y == Approx(0).margin(1e-15));
+    CHECK(v.z == Approx(1));
+}

@@ -1,0 +1,50 @@
+// The mounting frame and the phase reference on the command line: --up, --rotate and
+// --phase-centre, added to every command that reads patterns through add_load_options
+// (cli/load.hpp), and how a command tells which mounting it applied (text and JSON).
+#pragma once
+#include <string>
+
+#include <CLI/CLI.hpp>
+
+#include "cli/json.hpp"
+#include "pattern/far_field.hpp"
+#include "pattern/install.hpp"
+#include "pattern/phase_centre.hpp"
+
+namespace ellipsa::cli {
+
+struct MountingOptions {
+    std::string up;            // --up: +x ... -z or THETA,PHI (pattern/mounting.hpp, parse_up)
+    std::string rotate;        // --rotate: AXIS:DEG,... about the world axes (parse_turns)
+    std::string phase_centre;  // --phase-centre: X,Y,Z in metres (world frame) or "auto"
+    bool turn_fields = true;   // false: keep the file's frame, record the mounting (convert)
+};
+
+// Adds the three options; bad text is refused while parsing (bad usage, exit 2) with what was
+// expected.
+void add_mounting_options(CLI::App* sub, MountingOptions& o);
+
+// The install request the options describe (they were checked while parsing; an Error names the
+// option all the same).
+Result<InstallRequest> install_request(const MountingOptions& o);
+
+// One line for a command's text output: "up +x (from --up), turns z:30 about the world axes;
+// rotation exact (samples permuted)", or "as in the file (+z up)" when nothing turns.
+std::string mounting_text(const FarFieldSet& s);
+
+// The "mounting" object of a command's --json output (docs/guide.md, "The mounting frame"):
+// up, turns, matrix (rows, file frame to world), identity, rotation ("none", "exact",
+// "resampled") and from_file (the mounting is the one the file declares).
+void mounting_json(JsonWriter& j, const FarFieldSet& s);
+
+// The phase centre at one frequency in metres (null without a frequency) and wavelengths, with
+// the fit's residual and sample count, and the phase reference's shift when it was moved:
+// the "phase_centre" and "phase_reference_shift_m" fields of info --json.
+void phase_centre_json(JsonWriter& j, const FarFieldSet& s, std::size_t freq_index);
+// "(12.0, 0.0, -3.1) mm = (0.098, 0.000, -0.025) wavelengths, residual 0.4 deg over 812 samples",
+// or "unavailable (why)".
+std::string phase_centre_text(const FarFieldSet& s, std::size_t freq_index);
+// "(0.000, 0.000, 0.100) m from the file's origin" when the reference was moved, else "".
+std::string reference_shift_text(const FarFieldSet& s, std::size_t freq_index);
+
+}  // namespace ellipsa::cli
