@@ -89,6 +89,7 @@ std::string band_json(const std::vector<std::string>& files, const std::vector<B
         const FarFieldSet& s = *sets[i].set;
         j.begin_object().field("label", letter(i)).field("name", s.name).field("file", files[i]);
         j.field("quantity", to_string(s.quantity)).field("content", to_string(s.content));
+        mounting_json(j, s);
         j.key("frequencies").begin_array();
         for (const FrequencyFigures& f : sets[i].figures) frequency_json(j, s, f, r.options);
         j.end_array();
@@ -187,6 +188,7 @@ int run_band(const BandArgs& a) {
     std::cout << "wrote " << a.out << "\n";
     for (std::size_t i = 0; i < sets.size(); ++i) {
         std::cout << "\n" << a.files[i] << ": " << sets[i].figures.size() << " frequencies";
+        if (const std::string m = mounting_note(*sets[i].set); !m.empty()) std::cout << "\n  " << m;
         std::cout << band_summary_text(sets[i].summary);
     }
     return exit_ok;

@@ -43,6 +43,9 @@ Registered add_convert(CLI::App& root) {
         ->check(CLI::IsMember({"x", "y"}));
     sub->add_flag("--force", a->force, "Replace OUT if it exists");
     add_load_options(sub, a->load);
+    // The fields stay in the file's frame; the mounting that applies (the file's, or --up and
+    // --rotate) is written as metadata instead, so nothing is resampled.
+    a->load.mounting.turn_fields = false;
     return {sub, [a]() -> int {
                 if (same_file(a->in, a->out) || a->in == a->out) {
                     std::cerr << "ellipsa convert: " << a->out

@@ -95,9 +95,17 @@ void print_table(const std::vector<CoverageSeries>& series, const CoverageReques
     std::cout << std::flush;
 }
 
-std::string coverage_json(const std::vector<CoverageSeries>& series, const CoverageRequest& r, double frequency_hz) {
+std::string coverage_json(const std::vector<CoverageSeries>& series, const CoverageRequest& r, double frequency_hz,
+                          const std::vector<FarFieldSet>& sets) {
     JsonWriter j;
     j.begin_object().field("frequency_hz", frequency_hz);
+    j.key("mountings").begin_array();  // one per pattern, A then B
+    for (const FarFieldSet& s : sets) {
+        j.begin_object();
+        mounting_json(j, s);
+        j.end_object();
+    }
+    j.end_array();
     j.key("band").begin_object().field("elevation_min_deg", std::max(-90.0, r.band.min_deg));
     j.field("elevation_max_deg", std::min(90.0, r.band.max_deg));
     j.field("solid_angle_sr", series.empty() ? 0.0 : series[0].curve.band_solid_angle_sr).end_object();
@@ -159,11 +167,13 @@ int run_coverage(const CoverageArgs& a) {
     std::snprintf(sampled, sizeof sampled, "%.1f %%", 100 * (*series)[0].curve.sampled_share);
     std::cout << a.files[0] << (sets.size() > 1 ? " and " + a.files[1] : "") << ", " << format_frequency(f_hz) << ", " << what
               << " (" << sampled << " of it sampled)\n";
+    for (std::size_t i = 0; i < sets.size(); ++i)
+        if (const std::string m = mounting_note(sets[i]); !m.empty()) std::cout << "  " << a.files[i] << ": " << m << "\n";
     print_table(*series, *req, what == "whole sphere" ? "sphere" : "band");
     if (a.out.empty()) return exit_ok;
     std::string bytes;
     if (json) {
-        bytes = coverage_json(*series, *req, f_hz);
+        bytes = coverage_json(*series, *req, f_hz, sets);
     } else if (*format == FileFormat::csv) {
         bytes = coverage_csv(*series);
     } else {

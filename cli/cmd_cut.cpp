@@ -110,6 +110,7 @@ int run_cut(const CutArgs& a) {
     if (!cut) return fail(exit_bad_input, cut.error().file.empty() ? a.file + ": " + cut.error().message : cut.error().format());
 
     std::cout << "wrote " << a.out << ": " << spec.label() << ", " << format_frequency(s->frequencies[*fi].frequency_hz) << "\n";
+    if (const std::string m = mounting_note(*s); !m.empty()) std::cout << "  " << m << " (the cut is in the world frame)\n";
     for (std::size_t i = 0; i < cut->components.size(); ++i) std::cout << "  " << beam_line(*s, spec, *cut, i) << "\n";
     return exit_ok;
 }

@@ -191,6 +191,7 @@ void write_json(const ChosenEnvironment& env, const std::vector<PatternResult>& 
         j.begin_object();
         j.field("file", p.path).field("name", p.set.name);
         j.field("quantity", to_string(p.set.quantity)).field("content", to_string(p.set.content));
+        mounting_json(j, p.set);
         // The first (or only) frequency's figures sit on the pattern itself, so a script reading a
         // single-frequency file finds patterns[i].meg_db; every frequency is in "results".
         if (!results.empty()) {
@@ -314,6 +315,7 @@ void write_human(const ChosenEnvironment& env, const std::vector<PatternResult>&
         const PatternResult& p = ps[i];
         std::cout << "\n" << p.path << ": " << (p.set.name.empty() ? "(no name)" : p.set.name) << " ("
                   << to_string(p.set.quantity) << ", " << to_string(p.set.content) << ")\n";
+        if (const std::string m = mounting_note(p.set); !m.empty()) std::cout << "  " << m << "\n";
         for (const FrequencyStudy& r : st.patterns[i]) human_frequency(r, a.study.sweep);
     }
     if (!st.pairs.empty()) human_pairs(ps, st.pairs);

@@ -138,6 +138,7 @@ void json_antenna(JsonWriter& j, const std::string& file, const FarFieldSet& s, 
                   const FadingOptions& o) {
     j.begin_object();
     j.field("file", file).field("name", s.name).field("frequency_hz", s.frequencies[fi].frequency_hz);
+    mounting_json(j, s);
     j.field("mean_db", to_db(a.mean));
     j.key("mean_ci95_db").begin_array().value(to_db(a.mean_ci95.lo)).value(to_db(a.mean_ci95.hi)).end_array();
     j.field("analytic_mean_db", a.analytic_mean ? std::optional<double>(to_db(*a.analytic_mean)) : std::nullopt);
@@ -244,6 +245,7 @@ void write_human(const ChosenEnvironment& env, const std::vector<Loaded>& ps, co
         const SimulatedAntenna& s = r.antennas[i];
         std::cout << "\n" << letter(i) << ". " << ps[i].path << ": " << (ps[i].set.name.empty() ? "(no name)" : ps[i].set.name)
                   << " at " << format_frequency(ps[i].set.frequencies[ps[i].freq].frequency_hz) << "\n";
+        if (const std::string m = mounting_note(ps[i].set); !m.empty()) std::cout << "    " << m << "\n";
         std::printf("    %-20s %s dBi", "mean power", db_ci(s.mean, s.mean_ci95).c_str());
         if (s.analytic_mean) std::printf("   %s %.2f", a.sim.dominant ? "MEG + dominant" : "MEG", to_db(*s.analytic_mean));
         std::printf("\n");

@@ -51,7 +51,7 @@ void write_human(const std::string& path, const FarFieldSet& s, const std::vecto
     char buf[128];
     std::snprintf(buf, sizeof buf, "%.1f %% of the sphere%s", 100 * cov, is_full_sphere(s.grid) ? " (full)" : "");
     std::cout << "  coverage     " << buf << "\n";
-    std::cout << "  mounting     " << mounting_text(s) << "\n";
+    std::cout << "  mounting     " << exports::mounting_text(s) << "\n";
     for (const PatternSummary& r : rs) {
         std::cout << "\n  " << format_frequency(r.frequency_hz) << "\n";
         std::cout << "    peak                  " << exports::peak_text(r, u, "deg") << "\n";

@@ -106,6 +106,7 @@ int run_map(const MapArgs& a) {
     if (Status st = io::write_file_atomically(a.out, bytes, a.force); !st) return fail(exit_bad_input, st.error().format());
     std::cout << "wrote " << a.out << ": " << plot->bar_label << " (" << plot->unit << "), "
               << format_frequency(s->frequencies[*fi].frequency_hz) << ", " << to_string(req->projection) << "\n";
+    if (const std::string m = mounting_note(*s); !m.empty()) std::cout << "  " << m << " (the map is in the world frame)\n";
     return exit_ok;
 }
 

@@ -65,6 +65,7 @@ void print_json(const ProbeArgs& a, const FarFieldSet& s, std::size_t fi, Ludwig
     j.field("frequency_hz", s.frequencies[fi].frequency_hz);
     j.field("theta_deg", a.theta_deg).field("phi_deg", a.phi_deg);
     j.field("quantity", to_string(s.quantity));
+    mounting_json(j, s);
     j.field("total_db", db_or_null(p.total, true));
     j.field("theta_db", db_or_null(p.theta, v.parts)).field("phi_db", db_or_null(p.phi, v.parts));
     j.field("vertical_db", db_or_null(p.theta, v.parts)).field("horizontal_db", db_or_null(p.phi, v.parts));
@@ -95,6 +96,7 @@ void print_text(const ProbeArgs& a, const FarFieldSet& s, std::size_t fi, Ludwig
     const char* np = "unavailable (needs phase)";
     std::printf("%s at theta %g, phi %g deg, %s\n", a.file.c_str(), a.theta_deg, a.phi_deg,
                 format_frequency(s.frequencies[fi].frequency_hz).c_str());
+    if (const std::string m = mounting_note(s); !m.empty()) std::printf("  %s (theta and phi in the world frame)\n", m.c_str());
     line("total", fmt(to_db(p.total), u));
     if (v.parts) {
         line("theta (vertical)", fmt(to_db(p.theta), u));

@@ -129,6 +129,7 @@ Registered add_render(CLI::App& root) {
                     return exit_bad_input;
                 }
                 std::cout << "wrote " << a->out << " (" << o.width << "x" << o.height << ")\n";
+                if (const std::string m = mounting_note(*s); !m.empty()) std::cout << "  " << m << "\n";
                 return exit_ok;
             }};
 }

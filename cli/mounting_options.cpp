@@ -4,6 +4,7 @@
 #include <cmath>
 #include <cstdio>
 
+#include "exports/figure_text.hpp"
 #include "pattern/mounting.hpp"
 
 namespace ellipsa::cli {
@@ -52,9 +53,6 @@ std::string wavelengths(double v) {
 
 double wavelength_m(const FarField& f) { return f.frequency_hz > 0 ? speed_of_light_m_per_s / f.frequency_hz : 0; }
 
-bool same_mounting(const Mounting& a, const Mounting& b) {
-    return format_up(a.up) == format_up(b.up) && format_turns(a.turns) == format_turns(b.turns);
-}
 
 void vector_json(JsonWriter& j, Vec3 v) { j.begin_array().value(v.x).value(v.y).value(v.z).end_array(); }
 
@@ -97,14 +95,9 @@ Result<InstallRequest> install_request(const MountingOptions& o) {
     return phase_reference(o.phase_centre, q);
 }
 
-std::string mounting_text(const FarFieldSet& s) {
-    if (is_identity(s.mounting)) return "as in the file (+z up)";
-    std::string t = "up " + format_up(s.mounting.up);
-    if (!s.mounting.turns.empty()) t += ", then turns " + format_turns(s.mounting.turns) + " about the world axes";
-    if (same_mounting(s.mounting, s.file_mounting)) t += " (declared in the file)";
-    else if (!is_identity(s.file_mounting)) t += " (the options replace or extend the file's " + format_up(s.file_mounting.up) + " up)";
-    t += s.mounting_resampled ? "; rotation resampled (interpolated between samples)" : "; rotation exact (samples permuted)";
-    return t;
+std::string mounting_note(const FarFieldSet& s) {
+    if (is_identity(s.mounting) && is_identity(s.file_mounting)) return "";
+    return "mounting: " + exports::mounting_text(s);
 }
 
 void mounting_json(JsonWriter& j, const FarFieldSet& s) {
@@ -121,7 +114,7 @@ void mounting_json(JsonWriter& j, const FarFieldSet& s) {
     j.end_array();
     j.field("identity", identity);
     j.field("rotation", identity ? "none" : s.mounting_resampled ? "resampled" : "exact");
-    j.field("from_file", !identity && same_mounting(s.mounting, s.file_mounting));
+    j.field("from_file", !identity && exports::same_mounting(s.mounting, s.file_mounting));
     j.end_object();
 }
 

@@ -28,9 +28,9 @@ void add_mounting_options(CLI::App* sub, MountingOptions& o);
 // option all the same).
 Result<InstallRequest> install_request(const MountingOptions& o);
 
-// One line for a command's text output: "up +x (from --up), turns z:30 about the world axes;
-// rotation exact (samples permuted)", or "as in the file (+z up)" when nothing turns.
-std::string mounting_text(const FarFieldSet& s);
+// "mounting: " + exports::mounting_text(s) when a mounting was applied or the file declared one that the
+// options replaced, else "" (the commands other than info print it only then).
+std::string mounting_note(const FarFieldSet& s);
 
 // The "mounting" object of a command's --json output (docs/guide.md, "The mounting frame"):
 // up, turns, matrix (rows, file frame to world), identity, rotation ("none", "exact",

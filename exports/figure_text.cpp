@@ -160,4 +160,22 @@ std::string efficiency_warning_text(double efficiency) {
            "range's uncalibrated level are not gain). The figures below are computed as given.";
 }
 
+bool same_mounting(const Mounting& a, const Mounting& b) {
+    return format_up(a.up) == format_up(b.up) && format_turns(a.turns) == format_turns(b.turns);
+}
+
+std::string mounting_text(const FarFieldSet& s) {
+    auto describe = [](const Mounting& m) {
+        std::string t = "up " + format_up(m.up);
+        if (!m.turns.empty()) t += ", then turns " + format_turns(m.turns) + " about the world axes";
+        return t;
+    };
+    const bool from_file = same_mounting(s.mounting, s.file_mounting);
+    const std::string replaced =
+        is_identity(s.file_mounting) || from_file ? "" : " (the options replace or extend the file's " + describe(s.file_mounting) + ")";
+    if (is_identity(s.mounting)) return "as in the file (+z up)" + replaced;
+    return describe(s.mounting) + (from_file ? " (declared in the file)" : replaced) +
+           (s.mounting_resampled ? "; rotation resampled (interpolated between samples)" : "; rotation exact (samples permuted)");
+}
+
 }  // namespace ellipsa::exports

@@ -67,4 +67,11 @@ std::string front_to_back_text(const std::optional<double>& db, const std::optio
 // Why an efficiency above 100 % cannot be right, with the likely causes (one sentence each).
 std::string efficiency_warning_text(double efficiency);
 
+// The mounting applied to a pattern (pattern/mounting.hpp): "up +x, then turns z:30 about the
+// world axes (declared in the file); rotation exact (samples permuted)", "as in the file (+z up)",
+// and when options replaced the file's own mounting, which.
+std::string mounting_text(const FarFieldSet& s);
+// Same up direction and turns, as written in text.
+bool same_mounting(const Mounting& a, const Mounting& b);
+
 }  // namespace ellipsa::exports

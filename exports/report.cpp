@@ -248,6 +248,7 @@ Result<std::vector<ReportFile>> build_report(const std::vector<ReportInput>& inp
                       s.grid.theta.step_deg, s.grid.phi.start_deg, s.grid.phi.last_deg(), s.grid.phi.step_deg,
                       100 * coverage(s.grid));
         about += grid;
+        if (!is_identity(s.mounting) || !is_identity(s.file_mounting)) about += " Mounting: " + mounting_text(s) + ".";
         doc.paragraph(about);
         if (!s.note.empty()) doc.note(s.note);
 

@@ -23,9 +23,10 @@ constexpr const char* names[c_count] = {
 
 // The file's metadata keys, then the one only settings may give.
 constexpr const char* meta_keys[] = {"quantity", "time-convention", "angle-unit",   "frequency-unit", "frequency",
-                                     "ludwig3-reference", "name",   "source",       "note",           "phase-unit"};
-constexpr int n_file_keys = 9;
-constexpr int n_keys = 10;
+                                     "ludwig3-reference", "name",   "source",       "note",
+                                     "mounting-up",       "mounting-turns",         "phase-unit"};
+constexpr int n_file_keys = 11;
+constexpr int n_keys = 12;
 constexpr const char* binary_message = "expected text, found a NUL byte (a binary file?)";
 
 // One metadata value: from a line of the file (at line_offset, column) or from a setting.
@@ -378,7 +379,7 @@ Status apply_settings(const std::vector<CsvSetting>& settings, std::vector<Meta>
         if (k < 0)
             return at_origin(x.origin, "the assumed metadata",
                              "expected a metadata key (quantity, time-convention, angle-unit, phase-unit, "
-                             "frequency-unit, frequency, ludwig3-reference, name, source, note), found " +
+                             "frequency-unit, frequency, ludwig3-reference, name, source, note, mounting-up, mounting-turns), found " +
                                  text::quote_found(x.key));
         if (given[std::size_t(k)] >= 0)
             return at_origin(x.origin, "the assumed metadata",
@@ -430,6 +431,20 @@ Status frequency_value(const TextSource& src, const std::string& file, const Met
     return Ok{};
 }
 
+// The file's own mounting (pattern/mounting.hpp): "mounting-up: +x", "mounting-turns: z:30,x:10".
+Status mounting_value(const TextSource& src, const std::string& file, const Meta& m, const std::string& key, Layout& L) {
+    if (key == "mounting-up") {
+        auto up = parse_up(m.value);
+        if (!up) return bad_meta(src, file, m, key + ": " + up.error().message);
+        L.mounting.up = *up;
+    } else if (key == "mounting-turns") {
+        auto turns = parse_turns(m.value);
+        if (!turns) return bad_meta(src, file, m, key + ": " + turns.error().message);
+        L.mounting.turns = *turns;
+    }
+    return Ok{};
+}
+
 Status metadata_values(const TextSource& src, const std::string& file, const std::vector<Meta>& meta, Layout& L) {
     std::optional<double> phase_unit;
     const Meta* freq = nullptr;
@@ -462,6 +477,7 @@ Status metadata_values(const TextSource& src, const std::string& file, const std
         } else if (key == "name") L.name = m.value;
         else if (key == "source") L.source = m.value;
         else if (key == "note") L.note += (L.note.empty() ? "" : "\n") + m.value;
+        else if (Status st = mounting_value(src, file, m, key, L); !st) return st;
     }
     L.phase_to_rad = (phase_unit ? *phase_unit : L.angle_to_deg) * (pi / 180.0);
     if (freq)

@@ -112,6 +112,7 @@ struct Layout {
     std::optional<double> frequency_hz;  // from metadata
     std::optional<Ludwig3Reference> ludwig3_reference;
     std::string name, source, note;
+    Mounting mounting;  // mounting-up, mounting-turns (identity when absent)
 
     bool transform = false;  // any scale/offset set
     std::array<double, c_count> scale{};

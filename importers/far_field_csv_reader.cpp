@@ -45,6 +45,7 @@ FarFieldSet empty_set(const Layout& L, const std::string& file) {
     s.name = L.name.empty() ? file : L.name;
     s.source = L.source.empty() ? file : L.source;
     s.note = L.note;
+    s.file_mounting = L.mounting;
     s.quantity = L.quantity;
     s.ludwig3_reference = L.ludwig3_reference ? *L.ludwig3_reference : Ludwig3Reference::x;
     s.time_convention_converted = L.minus_iwt;

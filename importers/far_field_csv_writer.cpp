@@ -112,6 +112,12 @@ void put_head(std::string& out, const FarFieldSet& s, CsvFamily fam, Ludwig3Refe
     if (!s.name.empty()) put_meta(out, "name", s.name);
     if (!s.source.empty()) put_meta(out, "source", s.source);
     if (!s.note.empty()) put_meta(out, "note", s.note);
+    // The file's own mounting, when the fields are still in the file's frame (a pattern already
+    // turned by its mounting is written as the installed antenna, with none).
+    if (is_identity(s.mounting) && !is_identity(s.file_mounting)) {
+        out += "# mounting-up: " + format_up(s.file_mounting.up) + "\n";
+        if (!s.file_mounting.turns.empty()) out += "# mounting-turns: " + format_turns(s.file_mounting.turns) + "\n";
+    }
     out += "frequency,theta,phi,";
     switch (fam) {
         case CsvFamily::complex: out += "e_theta_re,e_theta_im,e_phi_re,e_phi_im\n"; break;

@@ -5,6 +5,7 @@
 #include "cli/load.hpp"
 #include "importers/far_field_csv.hpp"
 #include "pattern/interpolate.hpp"
+#include "pattern/install.hpp"
 #include "pattern/polarisation.hpp"
 #include "pattern/reference.hpp"
 #include "python/py_common.hpp"
@@ -46,6 +47,12 @@ PatternPtr read(const std::string& path, const OptionArg& map, const std::option
     {
         py::gil_scoped_release unlocked;  // reading a large file takes a while; other threads may run
         r = read_far_field_csv(path, ro);
+        // Installed as the command line installs it (pattern/install.hpp): the file's own mounting
+        // applied and the phase centres kept for interpolation, so the figures are the command's.
+        if (r) {
+            auto installed = install_pattern(std::move(*r), InstallRequest{});
+            r = installed ? std::move(installed) : Result<FarFieldSet>(Error{path, 0, 0, installed.error().message});
+        }
     }
     return std::make_shared<Pattern>(Pattern{take(std::move(r)), path});
 }

@@ -151,3 +151,39 @@ TEST_CASE("file writes go through the atomic writer and read back", "[csv][round
     CHECK(st.error().message.find("exists") != std::string::npos);
     std::remove(path.c_str());
 }
+
+TEST_CASE("a file carries its own mounting: mounting-up and mounting-turns", "[csv][roundtrip][mounting]") {
+    // docs/far-field-csv.md "Mounting": the writer records the mounting while the fields are in
+    // the file's frame; the reader gives it back as the file's mounting, untouched fields.
+    FarFieldSet s = sample_set(15);
+    s.file_mounting.up = direction_deg(60, 30);
+    s.file_mounting.turns = {{Axis::z, 30}, {Axis::x, -10}};
+    auto text = format_far_field_csv(s, CsvWriteOptions{});
+    REQUIRE(text.ok());
+    CHECK(text->find("# mounting-up: 60,30\n") != std::string::npos);
+    CHECK(text->find("# mounting-turns: z:30,x:-10\n") != std::string::npos);
+    auto r = parse_far_field_csv(*text, "rt.csv");
+    REQUIRE(r);
+    CHECK(r->file_mounting.up.x == Approx(s.file_mounting.up.x).margin(1e-12));
+    CHECK(r->file_mounting.up.y == Approx(s.file_mounting.up.y).margin(1e-12));
+    CHECK(r->file_mounting.up.z == Approx(s.file_mounting.up.z).margin(1e-12));
+    REQUIRE(r->file_mounting.turns.size() == 2);
+    CHECK(r->file_mounting.turns[1].angle_deg == -10);
+    CHECK(is_identity(r->mounting));  // read, not applied: install_pattern applies it
+    CHECK(max_rel_error(s, *r) == 0.0);
+
+    // A pattern already turned by its mounting is written as the installed antenna, with none.
+    s.mounting = s.file_mounting;
+    auto turned = format_far_field_csv(s, CsvWriteOptions{});
+    REQUIRE(turned.ok());
+    CHECK(turned->find("mounting-") == std::string::npos);
+
+    // Bad values are refused at their line and column, saying what was expected.
+    auto bad = parse_far_field_csv("# mounting-up: sideways\ntheta,phi,e_total_db\n0,0,1\n", "bad.csv");
+    REQUIRE(!bad);
+    CHECK(bad.error().line == 1);
+    CHECK(bad.error().message.find("mounting-up: expected an axis") == 0);
+    auto bad_turns = parse_far_field_csv("# mounting-turns: z30\ntheta,phi,e_total_db\n0,0,1\n", "bad.csv");
+    REQUIRE(!bad_turns);
+    CHECK(bad_turns.error().message.find("mounting-turns: expected turns AXIS:DEG") == 0);
+}
