@@ -100,6 +100,11 @@ Registered add_render(CLI::App& root) {
                 o.range_db = a->range_db;
                 o.glyphs = a->glyphs;
                 o.software = a->software;
+                if (const std::string ext = std::filesystem::path(a->out).extension().string();
+                    ext != ".png" && !viewer::is_surface_file(a->out)) {  // as `cut` refuses what it cannot write
+                    std::cerr << "ellipsa render: --out: expected a file name ending in .png, .glb or .ply, found '" << a->out << "'\n";
+                    return exit_usage;
+                }
                 std::error_code ec;
                 if (!a->force && std::filesystem::exists(a->out, ec)) {
                     std::cerr << "ellipsa render: " << a->out << " exists; use --force to overwrite it\n";

@@ -211,6 +211,7 @@ Result<FarFieldSet> load_pattern(const std::string& arg, const LoadOptions& o) {
     }
     auto raw = read_far_field_csv(path, ro->options);
     if (!raw) return raw;
+    for (const std::string& n : raw->reading_notes) std::fprintf(stderr, "ellipsa: %s: %s\n", path.c_str(), n.c_str());
     auto request = install_request(o.mounting);
     if (!request) return request.error();
     auto installed = install_pattern(std::move(*raw), *request);

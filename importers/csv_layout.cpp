@@ -4,6 +4,7 @@
 #include "importers/csv_layout.hpp"
 
 #include <algorithm>
+#include <charconv>
 #include <cmath>
 
 #include "importers/csv_number.hpp"
@@ -21,12 +22,14 @@ constexpr const char* names[c_count] = {
     "e_co_db",       "e_co_phase",   "e_cross_db",    "e_cross_phase",
     "e_total_db"};
 
-// The file's metadata keys, then the one only settings may give.
+// The file's metadata keys, then the ones only settings may give.
 constexpr const char* meta_keys[] = {"quantity", "time-convention", "angle-unit",   "frequency-unit", "frequency",
                                      "ludwig3-reference", "name",   "source",       "note",
-                                     "mounting-up",       "mounting-turns",         "phase-unit"};
+                                     "mounting-up",       "mounting-turns",         "phase-unit",     "skip-lines"};
 constexpr int n_file_keys = 11;
-constexpr int n_keys = 12;
+constexpr int n_keys = 13;
+// Lines of free text looked through for a header row that names the mapped columns.
+constexpr long preamble_search_lines = 1000;
 constexpr const char* binary_message = "expected text, found a NUL byte (a binary file?)";
 
 // One metadata value: from a line of the file (at line_offset, column) or from a setting.
@@ -45,6 +48,15 @@ struct Head {
     std::string header;
     std::size_t header_offset = 0, data_offset = 0;
     std::size_t note_index = 0;  // the one entry that holds every note line, joined
+    long skipped = 0;            // lines of free text before the header (skip-lines included)
+};
+
+// How the header row is found: after `skip` lines that are not read at all, the first line that
+// is not blank, a comment or metadata; with a column map, the first such line that names every
+// mapped source column (a free-text preamble before it is skipped), within preamble_search_lines.
+struct HeaderSearch {
+    long skip = 0;
+    std::vector<std::string> mapped;  // normalised source names of the column map
 };
 
 std::string origin_text(const CsvOrigin& o, const char* unnamed) {
@@ -126,39 +138,84 @@ HeadLine head_line(const TextSource& src, std::string_view line, std::size_t sta
     return HeadLine::skip;
 }
 
-Result<Head> read_head(const TextSource& src, const std::string& file) {
+bool names_every_mapped_column(std::string_view line, const std::vector<std::string>& mapped);
+
+// One line of the head: skipped (skip-lines), metadata or comment, free text before the header
+// (with a column map), or the header. Returns false once the header is found or on a failure.
+struct HeadWalk {
+    const TextSource& src;
+    const HeaderSearch& search;
+    Head& h;
+    Failure& f;
+    std::array<std::size_t, n_keys> first_at;
+    long to_skip, candidates = 0, free_text = 0;
+    std::optional<std::pair<std::size_t, std::size_t>> first_candidate;  // (offset, next) of the first header-like line
+    bool found = false;
+
+    bool line(std::string_view line, std::size_t at, std::size_t next) {
+        if (to_skip > 0) {
+            --to_skip;
+            return true;
+        }
+        const HeadLine kind = head_line(src, line, at, h, first_at, f);
+        if (kind == HeadLine::failed) return false;
+        if (kind == HeadLine::skip) return true;
+        if (!search.mapped.empty() && !names_every_mapped_column(line, search.mapped)) {
+            if (!first_candidate) first_candidate = {at, next};
+            ++free_text;
+            return ++candidates < preamble_search_lines;
+        }
+        take(line, at, next);
+        h.skipped = search.skip + free_text;
+        return false;
+    }
+    void take(std::string_view line, std::size_t at, std::size_t next) {
+        h.header.assign(line);
+        if (!h.header.empty() && h.header.back() == '\r') h.header.pop_back();
+        h.header_offset = at;
+        h.data_offset = next;
+        found = true;
+    }
+};
+
+Result<Head> read_head(const TextSource& src, const std::string& file, const HeaderSearch& search) {
     if (auto e = first_bytes_problem(src, file)) return *e;
     Head h;
     std::vector<char> buffer;
-    std::array<std::size_t, n_keys> first_at;
-    first_at.fill(std::string::npos);
     std::size_t begin = 0;
     if (auto bom = src.view(0, 3, buffer); bom && *bom == "\xEF\xBB\xBF") begin = 3;
     Failure f;
-    bool found = false;
+    HeadWalk walk{src, search, h, f, {}, search.skip};
+    walk.first_at.fill(std::string::npos);
     for_each_window(src, begin, src.size(), buffer, f, [&](std::string_view w, std::size_t at) {
         for (std::size_t pos = 0; pos < w.size();) {
             const std::size_t nl = w.find('\n', pos);
             const std::size_t end = nl == std::string_view::npos ? w.size() : nl;
             const std::size_t next = nl == std::string_view::npos ? w.size() : nl + 1;
-            const HeadLine kind = head_line(src, w.substr(pos, end - pos), at + pos, h, first_at, f);
-            if (kind == HeadLine::failed) return false;
-            if (kind == HeadLine::header) {
-                h.header.assign(w.substr(pos, end - pos));
-                if (!h.header.empty() && h.header.back() == '\r') h.header.pop_back();
-                h.header_offset = at + pos;
-                h.data_offset = at + next;
-                found = true;
-                return false;
-            }
+            if (!walk.line(w.substr(pos, end - pos), at + pos, at + next)) return false;
             pos = next;
         }
         return true;
     });
     if (f.set) return to_error(src, file, f);
-    if (!found) {
+    if (!walk.found && walk.first_candidate) {
+        // No line names every mapped column: the first header-like line is the header, and the
+        // column map's refusal says which name it lacks.
+        auto [at, next] = *walk.first_candidate;
+        std::vector<char> b2;
+        auto w = src.view(at, next - at, b2);
+        if (!w) return w.error();
+        std::string_view line = *w;
+        if (!line.empty() && line.back() == '\n') line.remove_suffix(1);
+        walk.take(line, at, next);
+        h.skipped = search.skip;
+    }
+    if (!walk.found) {
         // Never guess at binary garbage: say what we saw.
         if (src.size() == 0) return Error{file, 0, 0, "expected a header row, found an empty file"};
+        if (search.skip > 0)
+            return Error{file, 0, 0, "expected a header row after the " + std::to_string(search.skip) +
+                                         " lines skipped (skip-lines), found none"};
         return Error{file, 0, 0, "expected a header row, found only blank, comment or metadata lines"};
     }
     return h;
@@ -222,6 +279,41 @@ Result<HeaderCells> split_header(std::string_view header, const Layout& L, const
     if (st == NumberStatus::ok)
         return Error{file, L.header_line, h.column[0], "expected a header row naming the columns, found a row of numbers"};
     return h;
+}
+
+// A header-like line that names every mapped source column (its own delimiter, quotes allowed).
+bool names_every_mapped_column(std::string_view line, const std::vector<std::string>& mapped) {
+    if (!line.empty() && line.back() == '\r') line.remove_suffix(1);
+    auto d = detect_delimiter(line, "", 0);
+    if (!d) return false;
+    Layout L;
+    L.delimiter = *d;
+    L.decimal_comma = *d != ',';
+    auto cells = split_header(line, L, "");
+    if (!cells) return false;
+    for (const std::string& m : mapped) {
+        bool has = false;
+        for (std::string_view c : cells->text) has = has || text::normalise_name(c) == m;
+        if (!has) return false;
+    }
+    return true;
+}
+
+// How to find the header: skip-lines from the settings, the mapped source names.
+Result<HeaderSearch> header_search(const CsvReadOptions& o) {
+    HeaderSearch hs;
+    for (const CsvColumnMapping& m : o.column_map) hs.mapped.push_back(text::normalise_name(m.source));
+    for (const CsvSetting& x : o.settings) {
+        if (text::lower(text::trim(x.key)) != "skip-lines") continue;
+        const std::string v(text::trim(x.value));
+        long n = -1;
+        const auto r = std::from_chars(v.data(), v.data() + v.size(), n);
+        if (r.ec != std::errc() || r.ptr != v.data() + v.size() || n < 0 || n > 100000000)
+            return at_origin(x.origin, "the assumed metadata",
+                             "skip-lines: expected a whole number of lines from 0 to 100000000, found " + text::quote_found(v));
+        hs.skip = n;
+    }
+    return hs;
 }
 
 // ---- Stage: column map ----
@@ -379,7 +471,7 @@ Status apply_settings(const std::vector<CsvSetting>& settings, std::vector<Meta>
         if (k < 0)
             return at_origin(x.origin, "the assumed metadata",
                              "expected a metadata key (quantity, time-convention, angle-unit, phase-unit, "
-                             "frequency-unit, frequency, ludwig3-reference, name, source, note, mounting-up, mounting-turns), found " +
+                             "frequency-unit, frequency, ludwig3-reference, name, source, note, mounting-up, mounting-turns, skip-lines), found " +
                                  text::quote_found(x.key));
         if (given[std::size_t(k)] >= 0)
             return at_origin(x.origin, "the assumed metadata",
@@ -534,9 +626,12 @@ Error to_error(const TextSource& src, const std::string& file, const Failure& f)
 }
 
 Result<Layout> read_layout(const TextSource& src, const std::string& file, const CsvReadOptions& o) {
-    auto head = read_head(src, file);
+    auto search = header_search(o);
+    if (!search) return search.error();
+    auto head = read_head(src, file, *search);
     if (!head) return head.error();
     Layout L;
+    L.skipped_lines = head->skipped;
     L.header_offset = head->header_offset;
     L.data_offset = head->data_offset;
     L.header_line = src.line_number_at(L.header_offset);

@@ -94,6 +94,7 @@ struct Layout {
     std::size_t header_offset = 0;  // byte offset of the header line
     std::size_t data_offset = 0;    // first byte after the header line
     long header_line = 0;           // 1-based line number of the header
+    long skipped_lines = 0;         // free text before the header (skip-lines, or a preamble before the mapped names)
     int cells = 0;                  // header cells (trailing empty ones dropped)
     std::vector<int> role;          // per header cell: Col or c_ignore
     std::vector<long> header_column;  // 1-based byte column of each header cell

@@ -46,6 +46,9 @@ FarFieldSet empty_set(const Layout& L, const std::string& file) {
     s.source = L.source.empty() ? file : L.source;
     s.note = L.note;
     s.file_mounting = L.mounting;
+    if (L.skipped_lines > 0)
+        s.reading_notes.push_back("skipped " + std::to_string(L.skipped_lines) + " line" + (L.skipped_lines == 1 ? "" : "s") +
+                                  " of free text before the header row (line " + std::to_string(L.header_line) + ")");
     s.quantity = L.quantity;
     s.ludwig3_reference = L.ludwig3_reference ? *L.ludwig3_reference : Ludwig3Reference::x;
     s.time_convention_converted = L.minus_iwt;

@@ -82,6 +82,9 @@ struct FarFieldSet {
     std::string name;    // short label for legends and reports
     std::string source;  // where the data came from (file path, "synth dipole ...")
     std::string note;
+    // What reading did that the user should hear about (lines of free text skipped before the
+    // header row, ...), one sentence each; the front ends show them.
+    std::vector<std::string> reading_notes;
     Quantity quantity = Quantity::gain;
     FieldContent content = FieldContent::complex;
     Ludwig3Reference ludwig3_reference = Ludwig3Reference::x;

@@ -47,12 +47,44 @@ mkdir -p named && cp "$R3" named/export-0001.csv && { echo "# for export-0001.cs
 expect_rc 0 "a .map file in the folder that names the file is used" "$E" info named/export-0001.csv
 expect_rc 1 "an explicit map replaces the one beside (here: a wrong one)" "$E" info beside.csv --map "Sample=ignore"
 
+# --- A free-text preamble before the header row (docs/far-field-csv.md) ---
+P3="$SRC/tests/data/csv/foreign/range3_preamble.csv"
+expect_rc 0 "a preamble before the header is skipped by the mapped names" "$E" info "$P3" --map-file "$M3" --json
+grep -q "range3_preamble.csv: skipped 6 lines of free text before the header row (line 8)" err.txt && ok "... and the count is reported" || bad "preamble note: $(cat err.txt)"
+got=$("$E" info "$P3" --map-file "$M3" --json | sed 's/range3_preamble/range3/g')
+[[ "$got" == "$ref" ]] && ok "... with the figures of the file without it" || bad "preamble figures differ"
+{ printf 'Controller export\nrun 17\n'; cat sim.csv; } >sim_pre.csv
+expect_rc 0 "--assume skip-lines=2 skips two lines of a schema file" "$E" info sim_pre.csv --assume skip-lines=2
+expect_rc 1 "skip-lines that is not a count is refused" "$E" info sim_pre.csv --assume skip-lines=two
+grep -q -- "--assume: skip-lines: expected a whole number of lines" err.txt && ok "... naming the option" || bad "skip-lines: $(cat err.txt)"
+
+# --- Gain transfer (IEEE Std 149 sec. 12): relative levels to gain through a reference ---
+"$E" synth dipole --step 5 --frequency 5.8e9 --out aut_g.csv >/dev/null
+"$E" synth short-dipole --step 5 --frequency 5.8e9 --out ref_g.csv >/dev/null
+# The range sees both 25 dB down, in relative units (an invented set-up).
+for f in aut ref; do
+  "$E" convert "${f}_g.csv" "${f}_rel.csv" --force --assume quantity=relative --scale "e_theta_re=0.056234132519034905,e_theta_im=0.056234132519034905,e_phi_re=0.056234132519034905,e_phi_im=0.056234132519034905" >/dev/null || bad "make $f"
+done
+expect_rc 0 "gain-transfer with a reference file and its known gain" "$E" gain-transfer aut_rel.csv --reference ref_rel.csv --reference-gain 1.7609 --out aut_gain.csv
+grep -q "wrote aut_gain.csv: gain by comparison with reference ref_rel.csv" out.txt && ok "... naming the reference used" || bad "gain-transfer output: $(cat out.txt)"
+pk=$("$E" info aut_gain.csv --json | /usr/bin/python3 -c 'import json,sys; print(json.load(sys.stdin)["results"][0]["peak_db"])')
+/usr/bin/python3 -c "import sys; sys.exit(0 if abs($pk - 2.15) < 0.01 else 1)" \
+  && ok "the half-wave dipole comes back at 2.15 dBi (Balanis sec. 4.5)" || bad "transferred peak $pk"
+grep -q "^# note: gain by comparison with the reference ref_rel.csv (IEEE Std 149 sec. 12)" aut_gain.csv && ok "the file's note says which reference" || bad "note"
+expect_rc 0 "gain-transfer with the reference's measured level" "$E" gain-transfer aut_rel.csv --reference-level -23.24 --reference-gain "5.8GHz=1.76" --out aut_gain2.csv
+expect_rc 2 "gain-transfer needs one reference" "$E" gain-transfer aut_rel.csv --reference-gain 1 --out x.csv
+expect_rc 2 "a gain list without the file's frequency is a usage error" "$E" gain-transfer aut_rel.csv --reference-level 0 --reference-gain "2.4GHz=1" --out x.csv
+grep -q "expected a gain for 5.8 GHz, found none" err.txt && ok "... naming the frequency" || bad "gain list: $(cat err.txt)"
+expect_rc 1 "gain data are refused (already gain)" "$E" gain-transfer aut_g.csv --reference-level 0 --reference-gain 1 --out x.csv
+
 # --- The viewer: the same options, and scripted runs that fail instead of falling back ---
 [[ $has_view == 0 ]] && { echo "built without the viewer: its checks are skipped"; finish; exit; }
 expect_rc 1 "view --frames with a missing file fails (no fallback to the examples)" "$E" view missing.csv --frames 2
 grep -q "missing.csv: expected a pattern file, found nothing" err.txt && ok "... naming the file" || bad "missing file: $(cat err.txt)"
 expect_rc 2 "view --compare beyond the files given is a usage error" "$E" view sim.csv --compare 3 --frames 2
 grep -q -- "--compare expects a FILE number from 1 to 1, found 3" err.txt && ok "... naming the range" || bad "compare: $(cat err.txt)"
+expect_rc 2 "render refuses an output name it cannot write" "$E" render sim.csv --out view.jpg
+grep -q "expected a file name ending in .png, .glb or .ply, found 'view.jpg'" err.txt && ok "... naming the names it writes" || bad "render ext: $(cat err.txt)"
 expect_rc 1 "view refuses a bad map file before opening a window" "$E" view "meas.csv::map=nothing-here.map" --frames 2
 if command -v xvfb-run >/dev/null && [[ "${ELLIPSA_SKIP_WINDOW:-0}" != 1 ]]; then
   export XDG_CONFIG_HOME="$W/config"

@@ -100,3 +100,17 @@ for el in range(-90, 91, 10):
         level = "-inf" if g <= 0 else f"{10 * math.log10(g) - 7.5:.4f}".replace(".", ",")
         rows.append(f"{n};{az};{el};{level};{'check cable' if n == 5 else ''}")
 write("foreign/range3.csv", "\n".join(rows) + "\n")
+
+# 10. The same range-3 export with the free-text preamble a lab writes before the header row
+#     (issue 14): found by the mapped column names; the figures are those of range3.csv.
+preamble = [
+    "Antenna range 3 - far-field export",
+    "Operator;A. N. Other",
+    "AUT;cardioid demo antenna (invented)",
+    "Frequency;5,8;GHz",
+    "Reference;standard gain horn, 7,5 dBi",
+    "",
+    "Scan settings: az 0..350 step 10, el -90..90 step 10",
+]
+with open("foreign/range3.csv") as f:
+    write("foreign/range3_preamble.csv", "\n".join(preamble) + "\n" + f.read())
