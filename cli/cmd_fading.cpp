@@ -215,9 +215,18 @@ void write_json(const ChosenEnvironment& env, const std::vector<Loaded>& ps, con
     std::cout << j.str() << "\n";
 }
 
+// A power in dB with two decimals, or "none" for no power (never "-inf").
+std::string db_or_none(double v) {
+    if (!(v > 0)) return "none";
+    char b[32];
+    std::snprintf(b, sizeof b, "%.2f", to_db(v));
+    return b;
+}
+
 std::string db_ci(double v, const Interval& ci) {
+    if (!(v > 0)) return "   none (no power received)";
     char b[96];
-    std::snprintf(b, sizeof b, "%7.2f [%.2f, %.2f]", to_db(v), to_db(ci.lo), to_db(ci.hi));
+    std::snprintf(b, sizeof b, "%7.2f [%.2f, %.2f] dBi", to_db(v), to_db(ci.lo), to_db(ci.hi));
     return b;
 }
 
@@ -225,8 +234,8 @@ void human_levels(const std::vector<LevelEstimate>& sim, const std::vector<doubl
     for (std::size_t k = 0; k < sim.size(); ++k) {
         char label[40];
         std::snprintf(label, sizeof label, "level at %g %%", 100 * sim[k].outage);
-        std::printf("    %-20s %s dBi", label, db_ci(sim[k].level, sim[k].ci95).c_str());
-        if (k < analytic.size()) std::printf("   %s %.2f", closed_form, to_db(analytic[k]));
+        std::printf("    %-20s %s", label, db_ci(sim[k].level, sim[k].ci95).c_str());
+        if (k < analytic.size()) std::printf("   %s %s", closed_form, db_or_none(analytic[k]).c_str());
         std::printf("\n");
     }
 }
@@ -246,12 +255,15 @@ void write_human(const ChosenEnvironment& env, const std::vector<Loaded>& ps, co
         std::cout << "\n" << letter(i) << ". " << ps[i].path << ": " << (ps[i].set.name.empty() ? "(no name)" : ps[i].set.name)
                   << " at " << format_frequency(ps[i].set.frequencies[ps[i].freq].frequency_hz) << "\n";
         if (const std::string m = mounting_note(ps[i].set); !m.empty()) std::cout << "    " << m << "\n";
-        std::printf("    %-20s %s dBi", "mean power", db_ci(s.mean, s.mean_ci95).c_str());
-        if (s.analytic_mean) std::printf("   %s %.2f", a.sim.dominant ? "MEG + dominant" : "MEG", to_db(*s.analytic_mean));
+        std::printf("    %-20s %s", "mean power", db_ci(s.mean, s.mean_ci95).c_str());
+        if (s.analytic_mean) std::printf("   %s %s", a.sim.dominant ? "MEG + dominant" : "MEG", db_or_none(*s.analytic_mean).c_str());
         std::printf("\n");
-        if (s.analytic_k) std::printf("    %-20s %7.2f dB (dominant wave against MEG)\n", "own K-factor", to_db(*s.analytic_k));
+        if (s.analytic_k) std::printf("    %-20s %7s dB (dominant wave against MEG)\n", "own K-factor", db_or_none(*s.analytic_k).c_str());
         human_levels(s.levels, s.analytic_levels, s.analytic_k ? "Rician" : "Rayleigh");
-        std::printf("    %-20s %7.2f dB (mean over the 1 %% level; Rayleigh: 19.98)\n", "fade depth", s.fade_depth_db);
+        if (std::isfinite(s.fade_depth_db))
+            std::printf("    %-20s %7.2f dB (mean over the 1 %% level; Rayleigh: 19.98)\n", "fade depth", s.fade_depth_db);
+        else
+            std::printf("    %-20s none (no power received)\n", "fade depth");
     }
     if (r.pair) {
         std::cout << "\nA with B\n";

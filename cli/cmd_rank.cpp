@@ -47,15 +47,19 @@ struct Loaded {
     std::size_t freq = 0;
 };
 
-std::vector<std::string> split_names(const std::string& text) {
+// The comma-separated names of --environment; an empty item (as in "uniform,,indoor") is refused.
+std::variant<std::vector<std::string>, UsageError> split_names(const std::string& text) {
     std::vector<std::string> out;
+    if (text.empty()) return out;
     std::string cur;
     for (char c : text + ",") {
         if (c != ',') {
             if (!std::isspace(static_cast<unsigned char>(c))) cur += c;
             continue;
         }
-        if (!cur.empty()) out.push_back(cur);
+        if (cur.empty())
+            return UsageError{"--environment: expected comma-separated environment names, found an empty item in \"" + text + "\""};
+        out.push_back(cur);
         cur.clear();
     }
     return out;
@@ -68,7 +72,9 @@ bool other_environment_options(const EnvironmentOptions& o) {
 // The environments: each name of --environment with the other options applied to it; none given:
 // every preset (unless other environment options describe one).
 std::variant<std::vector<ChosenEnvironment>, UsageError, Error> environments_of(const EnvironmentOptions& o) {
-    std::vector<std::string> names = split_names(o.environment);
+    auto split = split_names(o.environment);
+    if (auto* u = std::get_if<UsageError>(&split)) return *u;
+    std::vector<std::string> names = std::get<std::vector<std::string>>(split);
     if (names.empty() && !other_environment_options(o))
         for (const EnvironmentPreset& p : environment_presets()) names.push_back(p.name);
     if (names.empty()) names.push_back("");

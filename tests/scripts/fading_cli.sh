@@ -43,4 +43,8 @@ expect_rc 2 "a K-factor that is not a number" "$E" fading z.csv --k-factor lots
 expect_rc 2 "a dominant wave without K" "$E" fading z.csv --dominant 90,0
 expect_rc 2 "a bad plot extension" "$E" fading z.csv --plot cdf.txt
 expect_rc 1 "missing file" "$E" fading nope.csv
+# A z dipole in a horizontal-only environment receives nothing: said as "none", never "-inf".
+expect_rc 0 "no power received (XPR -inf)" "$E" fading z.csv --xpr -inf --samples 2000
+grep -q "none (no power received)" out.txt && ! grep -q -- "-inf dB" out.txt && ok "no power is said as none, not -inf dB" \
+  || bad "no power printed as: $(grep -m1 'mean power' out.txt)"
 finish

@@ -9,6 +9,7 @@ py() { /usr/bin/python3 -c "import json,sys; d=json.load(open('out.txt')); $1"; 
 expect_rc 0 "synth z dipole" "$E" synth dipole --step 2 --out z.csv
 expect_rc 0 "synth x dipole (lying)" "$E" synth dipole --rotate-y 90 --step 2 --out x.csv
 expect_rc 0 "synth small loop" "$E" synth small-loop --step 2 --out loop.csv
+expect_rc 2 "rank refuses an empty environment name in the list" "$E" rank x.csv z.csv --environment uniform,,urban
 expect_rc 0 "rank three, two environments, JSON" "$E" rank x.csv loop.csv z.csv --environment uniform,urban --json
 py "s=[r['score_db'] for r in d['rows']]; assert s == sorted(s, reverse=True), s; assert [r['rank'] for r in d['rows']] == [1,2,3]" \
   && ok "rows sorted by score_db descending" || bad "rows not sorted: $(head -c 300 out.txt)"
