@@ -265,7 +265,8 @@ Result<SampledEnvironment> sample_environment(const Environment& e, const Grid& 
         double target = 1.0;
         if (!full) target = density_share(e, vertical, t_lo, t_hi) * std::min(1.0, phi_sum / (2 * pi));
         share[part] = target;
-        if (!(sum > 0)) {
+        // A sum so small (subnormal samples) that target / sum overflows counts as no power at all.
+        if (!(sum > 0) || !std::isfinite(target / sum)) {
             if (weight > 0 && target > 0)
                 return env_error(std::string("the environment's ") + (vertical ? "vertical" : "horizontal") +
                                  " part has no power at any sample of this grid (it is too narrow for the grid "

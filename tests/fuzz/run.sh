@@ -25,13 +25,13 @@ findings=0
 fuzz() {  # TARGET SECONDS DICT SEED_FILE...
   local target=$1 seconds=$2 dict=$3; shift 3
   local work=$BUILD/fuzz-work/$target
+  local status=0
   rm -rf "$work" && mkdir -p "$work/corpus" "$work/artifacts"
   cp "$@" "$work/corpus/"
   echo "fuzzing $target for $seconds s"
   "$BUILD/tests/fuzz/$target" "$work/corpus" -max_total_time="$seconds" -timeout=10 -rss_limit_mb=2048 \
     -malloc_limit_mb=256 -dict="$dict" -max_len=16384 -print_final_stats=1 -artifact_prefix="$work/artifacts/" 2>&1 |
-    tail -6
-  local status=${PIPESTATUS[0]}
+    tail -6 || status=1  # a finding must reach the message below, not end the script under set -e
   if [[ $status != 0 ]] || compgen -G "$work/artifacts/*" >/dev/null; then
     echo "$target: FINDINGS (see $work/artifacts)" >&2
     findings=1

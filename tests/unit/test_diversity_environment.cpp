@@ -94,6 +94,21 @@ TEST_CASE("environment parameters are checked", "[diversity][environment]") {
     n.profile = {{1, 0, 0}, {2, 1, 1}, {3, 0, 0}};
     CHECK(!sample_environment(n, full_sphere_grid(10, 10)));
     CHECK(sample_environment(n, full_sphere_grid(1, 1)));
+    // Found by fuzzing (tests/fuzz/fuzz_profile): a subnormal density at the only sampled elevation
+    // made target / sum overflow and filled the grid with inf; it is "no power at any sample" instead.
+    Environment d;
+    d.model = EnvironmentModel::profile;
+    d.profile = {{-10, 0, 0}, {0, 11e-320, 0.3}, {6, 0.2, 0.1}};
+    for (ProfileMeasure m : {ProfileMeasure::per_solid_angle, ProfileMeasure::per_elevation}) {
+        d.profile_measure = m;
+        auto s = sample_environment(d, full_sphere_grid(15, 15));
+        if (s) {
+            for (double v : s->p_theta) CHECK((std::isfinite(v) && v >= 0));
+            for (double v : s->p_phi) CHECK((std::isfinite(v) && v >= 0));
+        } else {
+            CHECK(s.error().message.find("no power at any sample") != std::string::npos);
+        }
+    }
 }
 
 TEST_CASE("presets carry values and a source", "[diversity][environment]") {
