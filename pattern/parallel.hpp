@@ -6,6 +6,7 @@
 #include <atomic>
 #include <cstddef>
 #include <thread>
+#include <utility>
 #include <vector>
 
 namespace ellipsa {
@@ -31,11 +32,11 @@ void parallel_blocks(std::size_t n, std::size_t min_per_thread, F&& f) {
     for (std::thread& th : pool) th.join();
 }
 
-// f(i) for every i in [0, n), items handed out one at a time (for items of uneven cost, such as
-// one frequency's figures each). f must not throw.
+// f(i) for every i in [0, n), items handed out one at a time on up to `threads` threads (for items
+// of uneven cost, such as one frequency's figures each). f must not throw.
 template <class F>
-void parallel_each(std::size_t n, F&& f) {
-    const std::size_t threads = std::min(parallel_threads(), n);
+void parallel_each(std::size_t n, std::size_t threads, F&& f) {
+    threads = std::min(threads, n);
     if (threads <= 1) {
         for (std::size_t i = 0; i < n; ++i) f(i);
         return;
@@ -48,6 +49,12 @@ void parallel_each(std::size_t n, F&& f) {
     for (std::size_t t = 1; t < threads; ++t) pool.emplace_back(work);
     work();
     for (std::thread& th : pool) th.join();
+}
+
+// The same on parallel_threads() threads.
+template <class F>
+void parallel_each(std::size_t n, F&& f) {
+    parallel_each(n, parallel_threads(), std::forward<F>(f));
 }
 
 }  // namespace ellipsa

@@ -8,13 +8,35 @@
 
 #include "pattern/integrate.hpp"
 #include "pattern/interpolate.hpp"
+#include "pattern/parallel.hpp"
 
 namespace ellipsa {
 
 namespace {
 
+// sin and cos of every theta and phi of a grid, so a pass over the samples does not call them per
+// sample (the same values, so the same results as direction(), theta_hat() and phi_hat()).
+struct GridTrig {
+    std::vector<double> st, ct, sp, cp;
+    explicit GridTrig(const Grid& g) {
+        for (int i = 0; i < g.theta.count; ++i) {
+            const double t = g.theta.value_deg(i) * deg;
+            st.push_back(std::sin(t));
+            ct.push_back(std::cos(t));
+        }
+        for (int j = 0; j < g.phi.count; ++j) {
+            const double p = g.phi.value_deg(j) * deg;
+            sp.push_back(std::sin(p));
+            cp.push_back(std::cos(p));
+        }
+    }
+    Vec3 dir(int i, int j) const { return {st[i] * cp[j], st[i] * sp[j], ct[i]}; }
+    Vec3 theta_hat(int i, int j) const { return {ct[i] * cp[j], ct[i] * sp[j], -st[i]}; }
+    Vec3 phi_hat(int j) const { return {-sp[j], cp[j], 0.0}; }
+};
+
 // Co-polar field u(r)^H E(r) at every sample (u: the peak's polarisation carried to r).
-void copolar_field(const Grid& g, const FarField& f, std::vector<cplx>& co) {
+void copolar_field(const Grid& g, const GridTrig& tr, const FarField& f, std::vector<cplx>& co) {
     std::size_t best = 0;
     double best_p = -1;
     for (std::size_t k = 0; k < g.size(); ++k) {
@@ -28,16 +50,15 @@ void copolar_field(const Grid& g, const FarField& f, std::vector<cplx>& co) {
     if (!(n0 > 0)) return;
     const CVec3 p = (1.0 / n0) * e0;
     for (int i = 0; i < g.theta.count; ++i) {
-        const double t = g.theta.value_deg(i) * deg;
         for (int j = 0; j < pc; ++j) {
-            const double ph = g.phi.value_deg(j) * deg;
-            const Vec3 r = direction(t, ph);
+            const Vec3 r = tr.dir(i, j);
             const cplx pr = dot(p, r);
             const CVec3 u{p.x - pr * r.x, p.y - pr * r.y, p.z - pr * r.z};
             const double nu = std::sqrt(std::norm(u.x) + std::norm(u.y) + std::norm(u.z));
             if (!(nu > 1e-9)) continue;  // the reference polarisation points along r: no co-polar part
-            const CVec3 e = cartesian_at(g, f, i, j);
-            co[g.index(i, j)] = (std::conj(u.x) * e.x + std::conj(u.y) * e.y + std::conj(u.z) * e.z) / nu;
+            const std::size_t k = g.index(i, j);
+            const CVec3 e = f.e_theta[k] * tr.theta_hat(i, j) + f.e_phi[k] * tr.phi_hat(j);  // cartesian_at
+            co[k] = (std::conj(u.x) * e.x + std::conj(u.y) * e.y + std::conj(u.z) * e.z) / nu;
         }
     }
 }
@@ -118,7 +139,7 @@ void eigen_symmetric(double a[3][3], double w[3], double v[3][3]) {
 
 // Weighted least squares psi ~ psi0 + a . r over the region, centred on the weighted mean
 // direction so that psi0 and a separate; a = 2 pi d / lambda.
-PhaseCentre fit_linear_phase(const Grid& g, const std::vector<cplx>& co, const std::vector<double>& psi,
+PhaseCentre fit_linear_phase(const Grid& g, const GridTrig& tr, const std::vector<cplx>& co, const std::vector<double>& psi,
                              const std::vector<unsigned char>& in_region) {
     const CellWeights cw = cell_weights(g);
     const int np = g.phi.count;
@@ -135,9 +156,7 @@ PhaseCentre fit_linear_phase(const Grid& g, const std::vector<cplx>& co, const s
     PhaseCentre out;
     out.samples = pts.size();
     if (!(sw > 0)) return out;
-    auto dir = [&](std::size_t k) {
-        return direction(g.theta.value_deg(int(k / std::size_t(np))) * deg, g.phi.value_deg(int(k % std::size_t(np))) * deg);
-    };
+    auto dir = [&](std::size_t k) { return tr.dir(int(k / std::size_t(np)), int(k % std::size_t(np))); };
     for (auto [k, w] : pts) sr = sr + w * dir(k);
     const Vec3 rm = (1 / sw) * sr;
     const double pm = spsi / sw;
@@ -182,12 +201,13 @@ Result<PhaseCentre> estimate_phase_centre(const FarFieldSet& s, std::size_t fi) 
         return Error{"", 0, 0, std::string("the phase centre needs the phase of the field; the data are ") +
                                    to_string(s.content)};
     if (fi >= s.frequencies.size() || s.grid.size() == 0) return Error{"", 0, 0, "no samples at this frequency"};
+    const GridTrig tr(s.grid);
     std::vector<cplx> co;
-    copolar_field(s.grid, s.frequencies[fi], co);
+    copolar_field(s.grid, tr, s.frequencies[fi], co);
     std::vector<double> psi;
     std::vector<unsigned char> in_region;
     unwrap_region(s.grid, co, psi, in_region);
-    PhaseCentre pc = fit_linear_phase(s.grid, co, psi, in_region);
+    PhaseCentre pc = fit_linear_phase(s.grid, tr, co, psi, in_region);
     if (pc.samples < 4)
         return Error{"", 0, 0, "the main beam holds fewer than 4 samples (or the field is zero): too few to fit a phase centre"};
     if (pc.unresolved_axes == 3) return Error{"", 0, 0, "the main beam's samples do not resolve any direction"};
@@ -210,10 +230,11 @@ void move_phase_reference(const Grid& g, FarField& f, Vec3 c_wl) {
 
 void set_interpolation_centres(FarFieldSet& s) {
     if (!s.has_phase()) return;
-    for (std::size_t k = 0; k < s.frequencies.size(); ++k) {
+    // One frequency a task: each estimate reads only its own frequency and writes only its own centre.
+    parallel_each(s.frequencies.size(), [&s](std::size_t k) {
         auto pc = estimate_phase_centre(s, k);
         s.frequencies[k].interpolation_centre_wl = pc ? pc->centre_wl : Vec3{};
-    }
+    });
 }
 
 }  // namespace ellipsa

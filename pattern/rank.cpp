@@ -1,12 +1,11 @@
 #include "pattern/rank.hpp"
 
 #include <algorithm>
-#include <atomic>
 #include <cmath>
-#include <thread>
 
 #include "pattern/combining.hpp"
 #include "pattern/diversity_study.hpp"
+#include "pattern/parallel.hpp"
 #include "pattern/reference.hpp"
 
 namespace ellipsa {
@@ -148,19 +147,6 @@ std::string missing_reason(const RankFigures& f, const Environment& e, RankScore
     return "in the " + e.name + " environment, " + why;
 }
 
-// Runs task(k) for k in [0, n) on `threads` threads.
-template <class Task>
-void run_parallel(std::size_t n, int threads, const Task& task) {
-    std::atomic<std::size_t> next{0};
-    auto work = [&] {
-        for (std::size_t k = next++; k < n; k = next++) task(k);
-    };
-    std::vector<std::thread> pool;
-    for (int t = 1; t < std::min<int>(threads, int(n)); ++t) pool.emplace_back(work);
-    work();
-    for (std::thread& th : pool) th.join();
-}
-
 Status check_inputs(const std::vector<RankCandidate>& candidates, const RankCandidate& reference,
                     const std::vector<Environment>& environments, const RankOptions& o) {
     if (candidates.empty()) return Error{"", 0, 0, "no candidate to rank"};
@@ -198,7 +184,7 @@ Result<Ranking> rank_candidates(const std::vector<RankCandidate>& candidates, co
     if (Status v = check_inputs(candidates, reference, environments, o); !v) return v.error();
     const std::size_t ne = environments.size(), na = candidates.size() + 1;  // antenna 0: the reference
     std::vector<RankFigures> figs(na * ne);
-    run_parallel(figs.size(), o.threads, [&](std::size_t k) {
+    parallel_each(figs.size(), std::size_t(o.threads), [&](std::size_t k) {
         const std::size_t a = k / ne, e = k % ne;
         figs[k] = figures_of(a == 0 ? reference : candidates[a - 1], environments[e], o);
     });
