@@ -111,8 +111,8 @@ inline constexpr const char* approximate_gain_method =
 // The cautions that go beside every outage figure (command output, JSON, report, docs).
 inline constexpr const char* outage_cautions[] = {
     "The environments are statistical models, not a survey of your site.",
-    "A link budget must add the receiver's own figures (sensitivity, noise figure, cable and "
-    "mismatch losses, fade margins for other effects).",
+    ("A link budget must add the receiver's own figures (sensitivity, noise figure, cable and "
+     "mismatch losses, fade margins for other effects)."),
     "Radiated power and exposure limits follow local regulations and licensed practice.",
 };
 

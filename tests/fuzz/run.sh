@@ -30,10 +30,15 @@ fuzz() {  # TARGET SECONDS DICT SEED_FILE...
   cp "$@" "$work/corpus/"
   echo "fuzzing $target for $seconds s"
   "$BUILD/tests/fuzz/$target" "$work/corpus" -max_total_time="$seconds" -timeout=10 -rss_limit_mb=2048 \
-    -malloc_limit_mb=256 -dict="$dict" -max_len=16384 -print_final_stats=1 -artifact_prefix="$work/artifacts/" 2>&1 |
-    tail -6 || status=1  # a finding must reach the message below, not end the script under set -e
+    -malloc_limit_mb=256 -dict="$dict" -max_len=16384 -print_final_stats=1 -artifact_prefix="$work/artifacts/" \
+    >"$work/log" 2>&1 || status=1  # a finding must reach the message below, not end the script under set -e
+  tail -6 "$work/log"
   if [[ $status != 0 ]] || compgen -G "$work/artifacts/*" >/dev/null; then
-    echo "$target: FINDINGS (see $work/artifacts)" >&2
+    echo "$target: FINDINGS (see $work/artifacts); what it printed:" >&2
+    grep -v -E '^#[0-9]+|NEW_FUNC|^INFO:' "$work/log" | head -60 >&2
+    for a in "$work"/artifacts/*; do
+      if [[ -f $a ]]; then echo "-- $a (first 400 bytes, escaped):" >&2; head -c 400 "$a" | od -c | head -20 >&2; fi
+    done
     findings=1
   else
     echo "$target: no findings in $seconds s"

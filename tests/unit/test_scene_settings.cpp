@@ -38,6 +38,18 @@ TEST_CASE("settings round-trip through their text form", "[scene][settings]") {
     CHECK(t.recent_files[0] == "/data/a b.csv");
 }
 
+TEST_CASE("settings numbers with many digits survive their text form exactly", "[scene][settings]") {
+    // Found by fuzz_settings: six significant digits turned 3.1234567891 into 3.12346.
+    std::vector<std::string> w;
+    const ViewerSettings s = parse_settings("range_db = 3.1234567891\nleft_panel_width = 150.123456789\n", &w);
+    REQUIRE(w.empty());
+    CHECK(s.range_db == 3.1234567891);
+    CHECK(s.left_panel_width == 150.123456789f);
+    const ViewerSettings t = parse_settings(format_settings(s), &w);
+    CHECK(w.empty());
+    CHECK(t == s);
+}
+
 TEST_CASE("bad settings lines are reported and skipped", "[scene][settings]") {
     std::vector<std::string> w;
     ViewerSettings t = parse_settings("range_db = 20\nnonsense\ncomponent = sideways\nrange_db = 9999\ngain_map = jet\nfoo = 1\n", &w);

@@ -1,6 +1,7 @@
 #include "viewer/scene/settings.hpp"
 
 #include <algorithm>
+#include <charconv>
 #include <cmath>
 #include <cstdio>
 #include <cstdlib>
@@ -110,7 +111,13 @@ std::string format_settings(const ViewerSettings& s) {
     o << "component = " << to_string(s.component) << "\n";
     o << "color_by = " << to_string(s.color_by) << "\n";
     o << "gain_map = " << to_string(s.gain_map) << "\n";
-    for_each_number(s, [&](const char* name, const auto& field, double, double) { o << name << " = " << field << "\n"; });
+    // The shortest text that reads back as the same double (a float field widens exactly), so
+    // that settings survive their own text form (the fuzz target checks it).
+    for_each_number(s, [&](const char* name, const auto& field, double, double) {
+        char b[32];
+        const auto r = std::to_chars(b, b + sizeof b, double(field));
+        o << name << " = " << std::string_view(b, std::size_t(r.ptr - b)) << "\n";
+    });
     for_each_flag(s, [&](const char* name, bool field) { o << name << " = " << (field ? 1 : 0) << "\n"; });
     for (const std::string& f : s.recent_files) o << "recent = " << f << "\n";
     return o.str();
