@@ -13,6 +13,7 @@
 #include "cli/load.hpp"
 #include "cli/version.hpp"
 #include "io/atomic_folder.hpp"
+#include "exports/png.hpp"
 #include "exports/report.hpp"
 #include "pattern/environment.hpp"
 #ifdef ELLIPSA_HAVE_VIEWER
@@ -87,7 +88,7 @@ int run_report(const ReportArgs& a) {
             so.color_by = colour;
             auto rgba = viewer::render_snapshot_rgba(s, so);
             if (!rgba) return rgba.error();
-            return viewer::encode_png(*rgba, so.width, so.height);
+            return exports::encode_png(rgba->data(), so.width, so.height, 4, std::size_t(so.width) * 4);
         };
     };
     o.snapshot = view(viewer::ColorBy::component);

@@ -8,6 +8,9 @@
 #include <cmath>
 #include <cstdint>
 #include <cstring>
+#include <vector>
+
+#include "exports/png.hpp"
 
 namespace ellipsa::exports {
 
@@ -70,6 +73,27 @@ Error cairo_error(const char* what, cairo_status_t s) {
     return Error{"", 0, 0, std::string(what) + ": " + cairo_status_to_string(s)};
 }
 
+// The pixels of an RGB24 image surface (one native-endian 0x00RRGGBB word a pixel) as a PNG.
+Result<std::string> surface_png(cairo_surface_t* surface) {
+    cairo_surface_flush(surface);
+    const int w = cairo_image_surface_get_width(surface), h = cairo_image_surface_get_height(surface);
+    const int stride = cairo_image_surface_get_stride(surface);
+    const unsigned char* data = cairo_image_surface_get_data(surface);
+    std::vector<std::uint8_t> rgb(std::size_t(w) * std::size_t(h) * 3);
+    for (int y = 0; y < h; ++y) {
+        const unsigned char* row = data + std::size_t(y) * std::size_t(stride);
+        std::uint8_t* d = rgb.data() + std::size_t(y) * std::size_t(w) * 3;
+        for (int x = 0; x < w; ++x) {
+            std::uint32_t px;
+            std::memcpy(&px, row + 4 * std::size_t(x), 4);
+            d[3 * x] = std::uint8_t(px >> 16);
+            d[3 * x + 1] = std::uint8_t(px >> 8);
+            d[3 * x + 2] = std::uint8_t(px);
+        }
+    }
+    return encode_png(rgb.data(), w, h, 3, std::size_t(w) * 3);
+}
+
 }  // namespace
 
 Result<std::string> render_image(const Drawing& draw, FileFormat format, const RenderSize& size,
@@ -105,14 +129,13 @@ Result<std::string> render_image(const Drawing& draw, FileFormat format, const R
     draw(cr, w, h);
     cairo_status_t st = cairo_status(cr);
     cairo_destroy(cr);
-    if (st == CAIRO_STATUS_SUCCESS && format == FileFormat::png) {
-        cairo_surface_flush(surface);
-        st = cairo_surface_write_to_png_stream(surface, append, &out);
-    }
+    Result<std::string> png = std::string();
+    if (st == CAIRO_STATUS_SUCCESS && format == FileFormat::png) png = surface_png(surface);
     cairo_surface_finish(surface);
     if (st == CAIRO_STATUS_SUCCESS) st = cairo_surface_status(surface);
     cairo_surface_destroy(surface);
     if (st != CAIRO_STATUS_SUCCESS) return cairo_error("drawing failed", st);
+    if (format == FileFormat::png) return png;
     return out;
 }
 

@@ -8,6 +8,7 @@
 #define GLFW_INCLUDE_NONE
 #include <GLFW/glfw3.h>
 
+#include "exports/png.hpp"
 #include "io/atomic_write.hpp"
 #include "viewer/exports_ui.hpp"
 #include "viewer/gl.hpp"
@@ -17,7 +18,7 @@ namespace ellipsa::viewer {
 
 namespace {
 // The back buffer as PNG bytes, top row first, opaque.
-std::string back_buffer_png(Window& w) {
+Result<std::string> back_buffer_png(Window& w) {
     int fbw = 0, fbh = 0;
     glfwGetFramebufferSize(w.glfw(), &fbw, &fbh);
     std::vector<std::uint8_t> px(std::size_t(fbw) * std::size_t(fbh) * 4), flipped(px.size());
@@ -27,7 +28,7 @@ std::string back_buffer_png(Window& w) {
     const std::size_t row = std::size_t(fbw) * 4;
     for (int y = 0; y < fbh; ++y) std::copy_n(px.data() + std::size_t(fbh - 1 - y) * row, row, flipped.data() + std::size_t(y) * row);
     for (std::size_t i = 3; i < flipped.size(); i += 4) flipped[i] = 255;
-    return encode_png(flipped, fbw, fbh);
+    return exports::encode_png(flipped.data(), fbw, fbh, 4, row);
 }
 
 // 0 when written; else the reason on stderr and 1.
@@ -49,8 +50,11 @@ int ScriptedRun::finish(const AppState& s, const Derived& d, Window& w) const {
     int code = 0;
     if (!o_.export_cut.empty()) code |= report("--export-cut", export_cut_file(s, d.cut.value(), o_.export_cut, o_.force));
     if (!o_.screenshot.empty()) {
-        const std::string png = back_buffer_png(w);
-        code |= report("--screenshot", write_export(o_.screenshot, o_.force, [&] { return io::write_file_atomically(o_.screenshot, png, o_.force); }));
+        const Result<std::string> png = back_buffer_png(w);
+        code |= report("--screenshot", write_export(o_.screenshot, o_.force, [&]() -> Status {
+                           if (!png) return png.error();
+                           return io::write_file_atomically(o_.screenshot, *png, o_.force);
+                       }));
     }
     if (!o_.export_view.empty() && is_surface_file(o_.export_view)) {  // the surface as a 3D file: no GL needed
         code |= report("--export-view", export_surface_file(s, d.surface.value().mesh, o_.export_view, o_.force));

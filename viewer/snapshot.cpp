@@ -2,11 +2,11 @@
 
 #include <imgui.h>
 #include <imgui_impl_opengl3.h>
-#include <stb_image_write.h>
 
 #include <algorithm>
 #include <cstdio>
 
+#include "exports/png.hpp"
 #include "io/atomic_write.hpp"
 #include "viewer/gl.hpp"
 #include "viewer/overlay.hpp"
@@ -29,14 +29,6 @@ struct ImGuiContextGuard {
     }
 };
 }  // namespace
-
-std::string encode_png(const std::vector<std::uint8_t>& rgba, int w, int h) {
-    std::string out;
-    stbi_write_png_to_func(
-        [](void* ctx, void* data, int size) { static_cast<std::string*>(ctx)->append(static_cast<const char*>(data), std::size_t(size)); },
-        &out, w, h, 4, rgba.data(), w * 4);
-    return out;
-}
 
 Result<std::vector<std::uint8_t>> render_snapshot_rgba(const FarFieldSet& s, const SnapshotOptions& o) {
     if (o.width < 64 || o.height < 64 || o.width > 8192 || o.height > 8192)
@@ -126,7 +118,9 @@ Result<std::vector<std::uint8_t>> render_snapshot_rgba(const FarFieldSet& s, con
 Status render_snapshot_png(const FarFieldSet& s, const SnapshotOptions& o, const std::string& path, bool overwrite) {
     auto px = render_snapshot_rgba(s, o);
     if (!px) return px.error();
-    return io::write_file_atomically(path, encode_png(*px, o.width, o.height), overwrite);
+    auto png = exports::encode_png(px->data(), o.width, o.height, 4, std::size_t(o.width) * 4);
+    if (!png) return png.error();
+    return io::write_file_atomically(path, *png, overwrite);
 }
 
 }  // namespace ellipsa::viewer

@@ -44,7 +44,4 @@ Result<std::vector<std::uint8_t>> render_snapshot_rgba(const FarFieldSet& s, con
 Status render_snapshot_png(const FarFieldSet& s, const SnapshotOptions& o, const std::string& path,
                            bool overwrite = false);
 
-// Encode RGBA8 pixels as PNG bytes (stb_image_write).
-std::string encode_png(const std::vector<std::uint8_t>& rgba, int width, int height);
-
 }  // namespace ellipsa::viewer
