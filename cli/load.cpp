@@ -46,7 +46,7 @@ void add_load_options(CLI::App* sub, LoadOptions& o) {
     sub->add_option("--offset", o.offset, "Add to schema columns on reading (after --scale): \"e_theta_db=-3,...\"");
     add_mounting_options(sub, o.mounting);
     sub->footer("These options apply to every FILE. Options for one file only follow its name: "
-                "FILE::map=FILE.map::offset=e_total_db=7.5 (keys map, map-file, assume, scale, offset). "
+                "FILE::map=FILE.map::offset=e_total_db=7.5 (keys map, map-file, assume, scale, offset, angles). "
                 "A map file beside a file (FILE's stem with .map, or a .map file naming it) is used when no map is given.");
 }
 
@@ -124,7 +124,7 @@ bool exists(const std::string& path) {
     return ::stat(path.c_str(), &st) == 0;
 }
 
-constexpr const char* file_keys = "map, map-file, assume, scale, offset";
+constexpr const char* file_keys = "map, map-file, assume, scale, offset, angles";
 }  // namespace
 
 Result<CsvReadOptions> read_options(const FileOptions& o) {
@@ -138,6 +138,7 @@ Result<FileArgument> parse_file_argument(const std::string& arg) {
     if (cut == std::string::npos || exists(arg)) return FileArgument{arg, {}};
     FileArgument out{arg.substr(0, cut), {}};
     if (out.path.empty()) return Error{arg, 0, 0, "expected FILE::key=value, found no FILE before \"::\""};
+    std::string angles;  // ::angles=X is short for ::assume=angles=X
     for (std::size_t pos = cut + 2; pos <= arg.size();) {
         const std::size_t next = std::min(arg.find("::", pos), arg.size());
         const std::string item = arg.substr(pos, next - pos);
@@ -148,6 +149,7 @@ Result<FileArgument> parse_file_argument(const std::string& arg) {
                              : key == "assume"   ? &out.own.assume
                              : key == "scale"    ? &out.own.scale
                              : key == "offset"   ? &out.own.offset
+                             : key == "angles"   ? &angles
                                                  : nullptr;
         if (!field || eq == std::string::npos || eq + 1 == item.size())
             return Error{out.path, 0, 0,
@@ -157,6 +159,7 @@ Result<FileArgument> parse_file_argument(const std::string& arg) {
         *field = item.substr(eq + 1);
         pos = next + 2;
     }
+    if (!angles.empty()) out.own.assume += (out.own.assume.empty() ? "angles=" : ",angles=") + angles;
     return out;
 }
 

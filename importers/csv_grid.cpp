@@ -15,11 +15,6 @@ using text::number;
 constexpr double angle_tol_deg = 1e-6;  // range checks
 constexpr double merge_tol_deg = 1e-7;  // distinct angle values closer than this are one value
 
-struct Value {
-    double v;
-    std::size_t line_offset;
-};
-
 // Merge the per-thread sets, sort, and fold values closer than tol (relative when rel).
 std::vector<Value> merged(const std::vector<Chunk>& chunks, const DistinctValues Chunk::*set, double tol, bool rel) {
     std::vector<Value> all;
@@ -45,7 +40,8 @@ std::vector<Value> merged(const std::vector<Chunk>& chunks, const DistinctValues
     return out;
 }
 
-// A regular axis from sorted distinct values; on failure sets `f` at the first value off.
+}  // namespace
+
 bool regular_axis(const std::vector<Value>& v, const char* what, double& start, double& step, Failure& f) {
     start = v.front().v;
     if (v.size() == 1) {
@@ -71,6 +67,8 @@ bool regular_axis(const std::vector<Value>& v, const char* what, double& start, 
     }
     return true;
 }
+
+namespace {
 
 // Theta: a regular axis, its ends snapped to the poles when within a ten-thousandth of a step.
 Status theta_axis(const std::vector<Value>& tv, const Layout& L, const TextSource& src, const std::string& file,
@@ -131,20 +129,31 @@ Status phi_axis(const std::vector<Value>& pv, const Layout& L, const TextSource&
     return Ok{};
 }
 
-// Phi given both below 0 and above 180: two conventions mixed.
-Status phi_range(const std::vector<Chunk>& chunks, const Layout& L, const TextSource& src, const std::string& file) {
-    double lo = std::numeric_limits<double>::infinity(), hi = -lo;
-    std::size_t lo_off = 0, hi_off = 0;
-    for (const Chunk& c : chunks) {
-        if (c.phi_min < lo) lo = c.phi_min, lo_off = c.phi_min_offset;
-        if (c.phi_max > hi) hi = c.phi_max, hi_off = c.phi_max_offset;
-    }
-    if (!(lo < -angle_tol_deg && hi > 180 + angle_tol_deg)) return Ok{};
-    return to_error(src, file,
-                    {true, std::max(lo_off, hi_off), 0,
-                     std::string("expected ") + (L.az_el ? "azimuth" : "phi") + " in [0, 360) or in [-180, 180], found both " +
-                         number(lo) + " (line " + std::to_string(src.line_number_at(lo_off)) + ") and " + number(hi) +
-                         " (line " + std::to_string(src.line_number_at(hi_off)) + ")"});
+// Phi within one of the two windows the stored grid is read from directly: [0, 360] or
+// [-180, 180] (any other window, or a span beyond 360, goes through csv_directions.hpp).
+bool usual_phi_window(const std::vector<Value>& pv) {
+    const double lo = pv.front().v, hi = pv.back().v;
+    return (lo >= -angle_tol_deg && hi <= 360 + angle_tol_deg) || (lo >= -180 - angle_tol_deg && hi <= 180 + angle_tol_deg);
+}
+
+// The two angle columns as written, each a regular axis (GridPlan::raw).
+Status raw_axes(const std::vector<Value>& tv, const std::vector<Value>& pv, const Layout& L, const TextSource& src,
+                const std::string& file, GridPlan& g) {
+    const bool positioner = L.angles == AngleSystem::az_over_el || L.angles == AngleSystem::el_over_az;
+    Failure af;
+    double t0, dt, p0, dp;
+    if (!regular_axis(tv, positioner ? "elevation" : L.az_el ? "theta (90 - elevation)" : "theta", t0, dt, af) ||
+        !regular_axis(pv, L.az_el ? "azimuth" : "phi", p0, dp, af))
+        return to_error(src, file, af);
+    if (tv.size() == 1) dt = 1;
+    g.grid.theta = {t0, dt, int(tv.size())};
+    g.theta0 = t0;
+    g.theta_step = dt;
+    g.grid.phi = {p0, pv.size() == 1 ? 1.0 : dp, int(pv.size())};
+    g.phi0 = p0;
+    g.phi_step = pv.size() == 1 ? 360 : dp;
+    g.n_phi_distinct = int(pv.size());
+    return Ok{};
 }
 
 // Whether a pole ring (theta 0 or 180 with several phi) can be given by one sample.
@@ -163,12 +172,16 @@ std::string grid_text(const Grid& grid, std::size_t n_freq) {
 
 Result<GridPlan> plan_grid(const std::vector<Chunk>& chunks, const Layout& L, const TextSource& src,
                            const std::string& file) {
-    if (Status st = phi_range(chunks, L, src, file); !st) return st.error();
     GridPlan g;
-    if (Status st = theta_axis(merged(chunks, &Chunk::theta, merge_tol_deg, false), L, src, file, g); !st)
-        return st.error();
-    if (Status st = phi_axis(merged(chunks, &Chunk::phi, merge_tol_deg, false), L, src, file, g); !st)
-        return st.error();
+    const auto tv = merged(chunks, &Chunk::theta, merge_tol_deg, false), pv = merged(chunks, &Chunk::phi, merge_tol_deg, false);
+    g.raw = L.angles == AngleSystem::az_over_el || L.angles == AngleSystem::el_over_az || tv.front().v < 0 ||
+            !usual_phi_window(pv);
+    if (g.raw) {
+        if (Status st = raw_axes(tv, pv, L, src, file, g); !st) return st.error();
+    } else {
+        if (Status st = theta_axis(tv, L, src, file, g); !st) return st.error();
+        if (Status st = phi_axis(pv, L, src, file, g); !st) return st.error();
+    }
     // Frequencies: lower_bound with a tolerance in pass 2 needs exact representatives.
     for (const Value& x : merged(chunks, &Chunk::freq, 1e-9, true)) g.freqs.push_back(x.v);
     return g;
@@ -181,7 +194,7 @@ Status check_grid_size(const GridPlan& g, std::size_t rows, FieldContent content
     // Rows a complete file needs at the least: one per point, one per pole ring.
     long double needed = 0;
     for (int it = 0; it < g.grid.theta.count; ++it)
-        needed += one_sample_pole(g.grid, it, content) ? 1 : g.grid.phi.count;
+        needed += !g.raw && one_sample_pole(g.grid, it, content) ? 1 : g.grid.phi.count;
     needed *= nf;
     // Arrays large against the input are refused before they are allocated: a grid the rows
     // cannot fill (a small one is allocated so that the completeness check names the missing

@@ -16,6 +16,15 @@ namespace ellipsa::csv {
 
 using SeenPoints = std::vector<std::vector<unsigned char>>;  // per frequency, per point
 
+// An angle value and the offset of the first line that holds it.
+struct Value {
+    double v;
+    std::size_t line_offset;
+};
+// A regular axis from sorted distinct values (equal steps to 1e-4 of a step); on failure sets
+// `f` at the first value off ("after A expected B, found C"). `what` names the angle.
+bool regular_axis(const std::vector<Value>& v, const char* what, double& start, double& step, Failure& f);
+
 // Cost: sorting the distinct values. Errors name the first value off the regular step.
 Result<GridPlan> plan_grid(const std::vector<Chunk>& chunks, const Layout& L, const TextSource& src,
                            const std::string& file);

@@ -6,6 +6,7 @@
 #include <algorithm>
 #include <charconv>
 #include <cmath>
+#include <utility>
 
 #include "importers/csv_number.hpp"
 #include "importers/text.hpp"
@@ -25,9 +26,15 @@ constexpr const char* names[c_count] = {
 // The file's metadata keys, then the ones only settings may give.
 constexpr const char* meta_keys[] = {"quantity", "time-convention", "angle-unit",   "frequency-unit", "frequency",
                                      "ludwig3-reference", "name",   "source",       "note",
-                                     "mounting-up",       "mounting-turns",         "phase-unit",     "skip-lines"};
-constexpr int n_file_keys = 11;
-constexpr int n_keys = 13;
+                                     "mounting-up",       "mounting-turns",         "angles",
+                                     "phase-unit",        "skip-lines"};
+constexpr int n_file_keys = 12;
+constexpr int n_keys = 14;
+// The field columns of a positioner grid, in its own unit vectors: the same roles as the
+// theta/phi columns (az-hat takes theta-hat's place, el-hat phi-hat's; pattern/positioner.hpp).
+constexpr std::pair<const char*, int> positioner_names[] = {
+    {"e_az_re", c_e_theta_re}, {"e_az_im", c_e_theta_im}, {"e_el_re", c_e_phi_re}, {"e_el_im", c_e_phi_im},
+    {"e_az_db", c_e_theta_db}, {"e_az_phase", c_e_theta_phase}, {"e_el_db", c_e_phi_db}, {"e_el_phase", c_e_phi_phase}};
 // Lines of free text looked through for a header row that names the mapped columns.
 constexpr long preamble_search_lines = 1000;
 constexpr const char* binary_message = "expected text, found a NUL byte (a binary file?)";
@@ -375,6 +382,7 @@ Status map_columns(const HeaderCells& h, const CsvReadOptions& o, Layout& L, con
                              std::to_string(h.column[std::size_t(L.column_of[std::size_t(r)])]) + ")"};
         L.column_of[std::size_t(r)] = int(k);
         L.role[k] = r;
+        if (n.rfind("e_az_", 0) == 0 || n.rfind("e_el_", 0) == 0) L.positioner_components = true;
     }
     for (std::size_t m = 0; m < map->size(); ++m)
         if (!used[m])
@@ -395,6 +403,7 @@ Status choose_angles(Layout& L, const std::string& file) {
     if (!tp && !ae)
         return Error{file, L.header_line, 1, "expected angle columns theta and phi (or azimuth and elevation), found neither"};
     L.az_el = ae;
+    L.angles = ae ? AngleSystem::horizon : AngleSystem::theta_phi;
     const int a1 = ae ? c_azimuth : c_theta, a2 = ae ? c_elevation : c_phi;
     if (!has(a1) || !has(a2))
         return Error{file, L.header_line, 1,
@@ -471,7 +480,7 @@ Status apply_settings(const std::vector<CsvSetting>& settings, std::vector<Meta>
         if (k < 0)
             return at_origin(x.origin, "the assumed metadata",
                              "expected a metadata key (quantity, time-convention, angle-unit, phase-unit, "
-                             "frequency-unit, frequency, ludwig3-reference, name, source, note, mounting-up, mounting-turns, skip-lines), found " +
+                             "frequency-unit, frequency, ludwig3-reference, name, source, note, mounting-up, mounting-turns, angles, skip-lines), found " +
                                  text::quote_found(x.key));
         if (given[std::size_t(k)] >= 0)
             return at_origin(x.origin, "the assumed metadata",
@@ -537,6 +546,43 @@ Status mounting_value(const TextSource& src, const std::string& file, const Meta
     return Ok{};
 }
 
+// The angle system (docs/far-field-csv.md, "Angle layouts"): theta-phi for theta/phi columns;
+// horizon, az-over-el or el-over-az for azimuth/elevation columns.
+template <class Bad>
+Status angle_system(Layout& L, const std::string& v, Bad&& bad) {
+    if (!L.az_el) {
+        if (v != "theta-phi") return bad("theta-phi for theta and phi columns (az-over-el, el-over-az and horizon need azimuth and elevation columns)");
+        L.angles = AngleSystem::theta_phi;
+    } else if (v == "horizon") L.angles = AngleSystem::horizon;
+    else if (v == "az-over-el") L.angles = AngleSystem::az_over_el;
+    else if (v == "el-over-az") L.angles = AngleSystem::el_over_az;
+    else return bad("horizon, az-over-el or el-over-az for azimuth and elevation columns (theta-phi needs theta and phi columns)");
+    return Ok{};
+}
+
+// The field columns a positioner grid needs: in its own unit vectors (e_az_*, e_el_*), or the
+// circular or total families, which need no basis of their own; e_az/e_el only there.
+Status positioner_fields(const Layout& L, const std::string& file) {
+    const bool positioner = L.angles == AngleSystem::az_over_el || L.angles == AngleSystem::el_over_az;
+    const long col = L.header_column.empty() ? 1 : L.header_column[0];
+    if (!positioner && L.positioner_components)
+        return Error{file, L.header_line, col,
+                     "expected e_az_/e_el_ field columns only with \"angles: az-over-el\" or \"angles: el-over-az\", found them "
+                     "without"};
+    if (!positioner || L.family == CsvFamily::circular_polar || L.family == CsvFamily::total_db) return Ok{};
+    if (L.family == CsvFamily::magnitude_db || L.family == CsvFamily::ludwig3_polar)
+        return Error{file, L.header_line, col,
+                     std::string("expected complex, dB/phase (e_az_*, e_el_*), circular or total field columns for a positioner "
+                                 "grid, found the ") + to_string(L.family) +
+                         " family (" + (L.family == CsvFamily::magnitude_db ? "without phase the field cannot be turned onto theta/phi"
+                                                                             : "convert it to theta/phi first") + ")"};
+    if (!L.positioner_components)
+        return Error{file, L.header_line, col,
+                     "expected the field of a positioner grid in its own unit vectors (e_az_re, e_az_im, e_el_re, e_el_im or "
+                     "e_az_db, e_az_phase, e_el_db, e_el_phase), found theta/phi field columns"};
+    return Ok{};
+}
+
 Status metadata_values(const TextSource& src, const std::string& file, const std::vector<Meta>& meta, Layout& L) {
     std::optional<double> phase_unit;
     const Meta* freq = nullptr;
@@ -569,11 +615,14 @@ Status metadata_values(const TextSource& src, const std::string& file, const std
         } else if (key == "name") L.name = m.value;
         else if (key == "source") L.source = m.value;
         else if (key == "note") L.note += (L.note.empty() ? "" : "\n") + m.value;
-        else if (Status st = mounting_value(src, file, m, key, L); !st) return st;
+        else if (key == "angles") {
+            if (Status st = angle_system(L, v, bad); !st) return st;
+        } else if (Status st = mounting_value(src, file, m, key, L); !st) return st;
     }
     L.phase_to_rad = (phase_unit ? *phase_unit : L.angle_to_deg) * (pi / 180.0);
     if (freq)
         if (Status st = frequency_value(src, file, *freq, L); !st) return st;
+    if (Status st = positioner_fields(L, file); !st) return st;
     if (L.family == CsvFamily::ludwig3_polar && !L.ludwig3_reference)
         return Error{file, L.header_line, L.header_column[std::size_t(L.column_of[c_e_co_db])],
                      "the e_co/e_cross family: expected a metadata line \"# ludwig3-reference: x\" (or y) before the "
@@ -611,6 +660,8 @@ const char* column_name(int role) { return role >= 0 && role < c_count ? names[r
 int column_role(std::string_view n) {
     for (int k = 0; k < c_count; ++k)
         if (n == names[k]) return k;
+    for (const auto& [name, role] : positioner_names)
+        if (n == name) return role;
     return -1;
 }
 

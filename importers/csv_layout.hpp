@@ -88,6 +88,14 @@ template <class F>
     return true;
 }
 
+// How the two angle columns give a direction (docs/far-field-csv.md, "Angle layouts").
+enum class AngleSystem {
+    theta_phi,   // theta (0..180, or -180..180: the opposite half-plane) and phi in any window
+    horizon,     // elevation above the xy-plane, azimuth about z: theta = 90 - el, phi = az
+    az_over_el,  // positioner grids (pattern/positioner.hpp)
+    el_over_az
+};
+
 struct Layout {
     char delimiter = ',';
     bool decimal_comma = false;     // allowed when the delimiter is not a comma
@@ -101,6 +109,8 @@ struct Layout {
     std::array<int, c_count> column_of{};  // header cell of each role, -1 when absent
     CsvFamily family = CsvFamily::complex;
     bool az_el = false;
+    AngleSystem angles = AngleSystem::theta_phi;
+    bool positioner_components = false;  // field columns named e_az_*, e_el_*
     bool frequency_column = false;
     int last_angle_cell = 0;  // highest header cell index pass 1 needs
 

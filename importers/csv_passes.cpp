@@ -246,17 +246,26 @@ inline int angle_slot(int role) {
 }
 
 // Convert and check one angle/frequency value (after scale/offset); empty message when fine.
+// Theta may run from -180 (the opposite half-plane), phi and azimuth over any window within
+// [-360, 720]; the grid stage turns such layouts into the stored grid (csv_directions.hpp).
 std::string angle_value(const Layout& L, int role, double raw, double& out) {
     using text::number;
+    const bool positioner = L.angles == AngleSystem::az_over_el || L.angles == AngleSystem::el_over_az;
     switch (role) {
         case c_theta: {
             const double t = raw * L.angle_to_deg;
-            if (!(t >= -angle_tol_deg && t <= 180 + angle_tol_deg)) return "expected theta in [0, 180] deg, found " + number(t);
-            out = std::clamp(t, 0.0, 180.0);
+            if (!(t >= -180 - angle_tol_deg && t <= 180 + angle_tol_deg)) return "expected theta in [-180, 180] deg, found " + number(t);
+            out = std::clamp(t, -180.0, 180.0);
             return {};
         }
         case c_elevation: {
             const double el = raw * L.angle_to_deg;
+            if (positioner) {
+                if (!(el >= -360 - angle_tol_deg && el <= 720 + angle_tol_deg))
+                    return "expected elevation in [-360, 720] deg, found " + number(el);
+                out = el;
+                return {};
+            }
             if (!(el >= -90 - angle_tol_deg && el <= 90 + angle_tol_deg))
                 return "expected elevation in [-90, 90] deg, found " + number(el);
             out = std::clamp(90.0 - el, 0.0, 180.0);
@@ -265,9 +274,9 @@ std::string angle_value(const Layout& L, int role, double raw, double& out) {
         case c_phi:
         case c_azimuth: {
             const double ph = raw * L.angle_to_deg;
-            if (!(ph >= -180 - angle_tol_deg && ph <= 360 + angle_tol_deg))
-                return std::string("expected ") + (role == c_phi ? "phi" : "azimuth") +
-                       " in [0, 360] or [-180, 180] deg, found " + number(ph);
+            if (!(ph >= -360 - angle_tol_deg && ph <= 720 + angle_tol_deg))
+                return std::string("expected ") + (role == c_phi ? "phi" : "azimuth") + " in [-360, 720] deg, found " +
+                       number(ph);
             out = ph;
             return {};
         }
@@ -429,6 +438,7 @@ FieldProblem polar_field(const Layout& L, const double* v, double phi_deg, cplx&
         if (seen == 0) {
             ff.e_theta[k] = et;
             ff.e_phi[k] = ep;
+            if (ctx.lines) (*ctx.lines)[fk][k] = line_offset;
             seen = 2;
             return true;
         }
@@ -438,6 +448,7 @@ FieldProblem polar_field(const Layout& L, const double* v, double phi_deg, cplx&
         if (s.compare_exchange_strong(expected, 1, std::memory_order_acq_rel)) {
             ff.e_theta[k] = et;
             ff.e_phi[k] = ep;
+            if (ctx.lines) (*ctx.lines)[fk][k] = line_offset;
             s.store(2, std::memory_order_release);
             return true;
         }
@@ -490,10 +501,6 @@ void pass1(Context& ctx, Chunk& c, bool report_progress) {
                 q = ce ? ce : e;
             } else if (!angle_cell(L, cache[slot], r, q, e, p, off, c, scratch, "", [&](double x, AngleInfo&) {
                            sets[slot]->add(x, off);
-                           if (slot == 1) {
-                               if (x < c.phi_min) c.phi_min = x, c.phi_min_offset = off;
-                               if (x > c.phi_max) c.phi_max = x, c.phi_max_offset = off;
-                           }
                            return true;
                        })) {
                 return false;

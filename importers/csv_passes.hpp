@@ -52,6 +52,11 @@ struct GridPlan {
     double phi0 = 0, phi_step = 360;
     int n_phi_distinct = 1, phi_shift = 0;
     bool phi_seam = false;
+    // The angles as written form a regular table that is not yet the stored grid (theta below
+    // 0, phi beyond one of the two usual windows, a positioner grid): grid.theta and grid.phi
+    // are the first and second angle columns as written, and csv_directions.hpp turns the
+    // table into the stored grid.
+    bool raw = false;
     std::vector<double> freqs;  // Hz, ascending
 };
 
@@ -60,8 +65,6 @@ struct Chunk {
     // pass 1
     DistinctValues theta, phi, freq;
     std::size_t rows = 0;
-    double phi_min = std::numeric_limits<double>::infinity(), phi_max = -std::numeric_limits<double>::infinity();
-    std::size_t phi_min_offset = 0, phi_max_offset = 0;
     // pass 2: rows at the phi seam, merged once every row is in place.
     struct Alias {
         std::size_t freq, index;
@@ -82,6 +85,9 @@ struct Context {
     bool concurrent = false;  // more than one worker writes the arrays
     std::vector<FarField>* out = nullptr;
     std::vector<std::vector<unsigned char>>* seen = nullptr;  // 0 absent, 1 being written, 2 present
+    // Raw layouts only (GridPlan::raw): the line offset of each point's row, for messages about
+    // directions given twice.
+    std::vector<std::vector<std::size_t>>* lines = nullptr;
 };
 
 // Split [begin, size) into n chunks at line starts (fewer when lines are too long to split).

@@ -4,6 +4,7 @@
 // (every cell into place), seam, poles, completeness (csv_grid.hpp).
 #include <thread>
 
+#include "importers/csv_directions.hpp"
 #include "importers/csv_grid.hpp"
 #include "importers/csv_layout.hpp"
 #include "importers/csv_passes.hpp"
@@ -58,6 +59,16 @@ FarFieldSet empty_set(const Layout& L, const std::string& file) {
     return s;
 }
 
+// A layout whose angles as written are not the stored grid: the table must be complete, then
+// its directions are placed (csv_directions.hpp).
+Result<FarFieldSet> read_directions(FarFieldSet table, const SeenPoints& seen, const std::vector<std::vector<std::size_t>>& lines,
+                                    const Layout& L, const TextSource& src, const std::string& file, const CsvReadOptions& o) {
+    if (Status st = check_complete(table, seen, L, false, file); !st) return st.error();
+    auto s = place_directions(std::move(table), lines, L, src, file);
+    if (s && o.progress) o.progress(1.0);
+    return s;
+}
+
 // The stages in order; any refusal ends the read with nothing partial returned.
 Result<FarFieldSet> read_stages(const TextSource& src, const std::string& file, const CsvReadOptions& o) {
     auto layout = read_layout(src, file, o);
@@ -81,13 +92,17 @@ Result<FarFieldSet> read_stages(const TextSource& src, const std::string& file, 
     if (Status st = check_grid_size(*plan, rows, s.content, o, file); !st) return st.error();
     SeenPoints seen;
     allocate(*plan, s, seen);
+    std::vector<std::vector<std::size_t>> lines;
+    if (plan->raw) lines.assign(s.frequencies.size(), std::vector<std::size_t>(s.grid.size(), 0));
 
     ctx.plan = &*plan;
     ctx.out = &s.frequencies;
     ctx.seen = &seen;
+    ctx.lines = plan->raw ? &lines : nullptr;
     ctx.concurrent = chunks.size() > 1;
     run_chunks(chunks, [&](Chunk& c, bool first) { pass2(ctx, c, first); });
     if (Status st = after_pass(ctx, chunks, file); !st) return st.error();
+    if (plan->raw) return read_directions(std::move(s), seen, lines, L, src, file, o);
 
     if (Status st = merge_seam(chunks, s, seen, L, src, file); !st) return st.error();
     const bool lone_pole_without_phase = fill_poles(s, seen);

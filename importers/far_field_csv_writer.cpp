@@ -185,7 +185,9 @@ Result<std::string> format_far_field_csv(const FarFieldSet& s, const CsvWriteOpt
     put_head(out, s, fam, ref);
     std::vector<double> cos_phi(std::size_t(g.phi.count)), sin_phi(std::size_t(g.phi.count)), phi_deg(std::size_t(g.phi.count));
     for (int j = 0; j < g.phi.count; ++j) {
-        phi_deg[std::size_t(j)] = wrap360(g.phi.value_deg(j));
+        // An arc across phi = 0 (330..390) stays one regular run, which reads back (any window
+        // within [-360, 720] reads); a full circle is written in [0, 360).
+        phi_deg[std::size_t(j)] = g.phi_wraps() ? wrap360(g.phi.value_deg(j)) : g.phi.value_deg(j);
         cos_phi[std::size_t(j)] = std::cos(phi_deg[std::size_t(j)] * deg);
         sin_phi[std::size_t(j)] = std::sin(phi_deg[std::size_t(j)] * deg);
     }

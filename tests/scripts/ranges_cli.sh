@@ -31,7 +31,7 @@ expect_rc 0 "diversity: a simulated file and a measured one with its own map" "$
 grep -q "meas.csv" out.txt && ! grep -q "::map" out.txt && ok "the output names the file, not its options" || bad "file name shown: $(head -3 out.txt)"
 expect_rc 0 "band: two files, one with its own map" "$E" band sim.csv "meas.csv::map=$M3" --out band.svg
 expect_rc 2 "an unknown per-file key is a usage error" "$E" info "meas.csv::mapp=$M3"
-grep -q 'meas.csv: expected ::key=value after the file name, key one of map, map-file, assume, scale, offset, found "mapp=' err.txt \
+grep -q 'meas.csv: expected ::key=value after the file name, key one of map, map-file, assume, scale, offset, angles, found "mapp=' err.txt \
   && ok "... naming the key and the choices" || bad "unknown key message: $(cat err.txt)"
 expect_rc 1 "a key given for the file and for all files is refused" "$E" info "meas.csv::map=$M3::assume=quantity=relative"
 grep -q "meas.csv::assume: expected metadata \"quantity\" once, found it again (first from .*range3.map:8)" err.txt \
@@ -83,6 +83,20 @@ expect_rc 1 "view --frames with a missing file fails (no fallback to the example
 grep -q "missing.csv: expected a pattern file, found nothing" err.txt && ok "... naming the file" || bad "missing file: $(cat err.txt)"
 expect_rc 2 "view --compare beyond the files given is a usage error" "$E" view sim.csv --compare 3 --frames 2
 grep -q -- "--compare expects a FILE number from 1 to 1, found 3" err.txt && ok "... naming the range" || bad "compare: $(cat err.txt)"
+# --- Angle layouts (docs/far-field-csv.md, "Angle layouts"): ::angles= for one file ---
+L="$SRC/tests/data/csv/layouts"
+cp "$L/range_el_over_az.csv" eoa.csv  # no map beside the copy
+EOA_MAP="AZ=azimuth,EL=elevation,E_az re=e_az_re,E_az im=e_az_im,E_el re=e_el_re,E_el im=e_el_im"
+strip_names() { sed 's/"name": "[^"]*", "source": "[^"]*", //'; }
+ref=$("$E" info "$L/range_el_over_az.csv" --json 2>/dev/null | strip_names)
+got=$("$E" info "eoa.csv::map=$EOA_MAP::angles=el-over-az::assume=quantity=directivity,frequency=3.5 GHz" --json 2>/dev/null | strip_names)
+[[ -n "$ref" && "$ref" == "$got" ]] && ok "FILE::angles=el-over-az reads as the map file's angles line" || bad "::angles differs"
+expect_rc 0 "the reading note says how the positioner grid was read" "$E" info "eoa.csv::map=$EOA_MAP::angles=el-over-az"
+grep -q "eoa.csv: read as elevation over azimuth and resampled onto theta 0..180 step 5" err.txt \
+  && ok "... on stderr" || bad "note: $(cat err.txt)"
+expect_rc 1 "a layout the columns cannot have is refused" "$E" info "eoa.csv::map=$EOA_MAP::angles=theta-phi"
+grep -q "eoa.csv::assume: angles: expected horizon, az-over-el or el-over-az for azimuth and elevation columns" err.txt \
+  && ok "... saying which layouts fit" || bad "bad layout: $(cat err.txt)"
 expect_rc 2 "render refuses an output name it cannot write" "$E" render sim.csv --out view.jpg
 grep -q "expected a file name ending in .png, .glb or .ply, found 'view.jpg'" err.txt && ok "... naming the names it writes" || bad "render ext: $(cat err.txt)"
 expect_rc 1 "view refuses a bad map file before opening a window" "$E" view "meas.csv::map=nothing-here.map" --frames 2
