@@ -79,14 +79,16 @@ int run_report(const ReportArgs& a) {
 #ifdef ELLIPSA_HAVE_VIEWER
     // 3D views per pattern and frequency through the headless EGL context (viewer/snapshot.hpp):
     // gain-coloured, and for data with phase also coloured by axial ratio.
-    auto view = [size = *size](viewer::ColorBy colour) {
-        return [size, colour](const FarFieldSet& s, std::size_t fi) -> Result<std::string> {
+    // One renderer for every 3D view: its context and compiled shaders are kept between views.
+    auto renderer = std::make_shared<viewer::SnapshotRenderer>();
+    auto view = [size = *size, renderer](viewer::ColorBy colour) {
+        return [size, colour, renderer](const FarFieldSet& s, std::size_t fi) -> Result<std::string> {
             viewer::SnapshotOptions so;
             so.frequency_index = fi;
             so.width = size.width_px;
             so.height = size.height_px;
             so.color_by = colour;
-            auto rgba = viewer::render_snapshot_rgba(s, so);
+            auto rgba = renderer->render(s, so);
             if (!rgba) return rgba.error();
             return exports::encode_png(rgba->data(), so.width, so.height, 4, std::size_t(so.width) * 4);
         };

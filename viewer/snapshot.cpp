@@ -5,6 +5,7 @@
 
 #include <algorithm>
 #include <cstdio>
+#include <memory>
 
 #include "exports/png.hpp"
 #include "io/atomic_write.hpp"
@@ -18,19 +19,105 @@
 namespace ellipsa::viewer {
 
 namespace {
-// Restores the caller's ImGui context (the viewer window may be exporting).
-struct ImGuiContextGuard {
+
+// Makes `mine` the current ImGui context and restores the caller's afterwards (the viewer window
+// may be exporting).
+struct ImGuiContextSwitch {
     ImGuiContext* saved = ImGui::GetCurrentContext();
-    ImGuiContext* mine = ImGui::CreateContext();
-    ImGuiContextGuard() { ImGui::SetCurrentContext(mine); }
-    ~ImGuiContextGuard() {
-        ImGui::DestroyContext(mine);
-        ImGui::SetCurrentContext(saved);
-    }
+    explicit ImGuiContextSwitch(ImGuiContext* mine) { ImGui::SetCurrentContext(mine); }
+    ~ImGuiContextSwitch() { ImGui::SetCurrentContext(saved); }
 };
+
+// The caption, axis labels, colour bar, ellipse key and radial scale, drawn with ImGui draw lists
+// over the rendered scene.
+void draw_annotations(const FarFieldSet& s, const SnapshotOptions& o, const SurfaceMesh& mesh, const OrbitCamera& cam,
+                      int view_w, float bar_strip, float scale, const UiFonts& fonts) {
+    ImDrawList* dl = ImGui::GetBackgroundDrawList();
+    const ImU32 ink = IM_COL32(34, 38, 46, 255), muted = IM_COL32(95, 100, 108, 255);
+    const std::string title = !o.title.empty() ? o.title
+                              : (s.name.empty() ? std::string("pattern") : s.name) + "  \u00b7  " +
+                                    format_frequency(s.frequencies[o.frequency_index].frequency_hz);
+    dl->AddText(fonts.title, fonts.title->FontSize, ImVec2(16 * scale, 12 * scale), ink, title.c_str());
+    char line[256];
+    std::snprintf(line, sizeof line, "radius: %s, %.2f %s at the peak, %g dB dynamic range", short_label(o.component),
+                  mesh.peak_db, mesh.unit.c_str(), o.range_db);
+    dl->AddText(fonts.small, fonts.small->FontSize, ImVec2(16 * scale, 12 * scale + fonts.title->FontSize * 1.35f), muted, line);
+    std::snprintf(line, sizeof line, "view from azimuth %g\u00b0, elevation %g\u00b0", o.view_azimuth_deg, o.view_elevation_deg);
+    dl->AddText(fonts.small, fonts.small->FontSize, ImVec2(16 * scale, o.height - fonts.small->FontSize * 1.8f), muted, line);
+    draw_axis_labels(dl, cam, ImVec2(0, 0), ImVec2(float(view_w), float(o.height)), 1.3, fonts.small);
+    const ImVec2 bar_pos(view_w + 18 * scale, o.height * 0.22f), bar_size(20 * scale, o.height * 0.56f);
+    draw_color_bar(dl, bar_pos, bar_size, mesh.bar, fonts.small, fonts.small, bar_strip - 28 * scale);
+    // The key to the ellipses (when drawn) under the bar, the radial scale at the bottom left.
+    if (o.glyphs && s.has_phase())
+        draw_ellipse_key(dl, ImVec2(bar_pos.x, bar_pos.y + bar_size.y + 24 * scale), fonts.small, ink);
+    draw_radial_scale(dl, cam, ImVec2(float(view_w), float(o.height)),
+                      ImVec2(16 * scale, o.height - fonts.small->FontSize * 6.2f), mesh.peak_db, o.range_db, mesh.unit,
+                      fonts.small, muted);
+}
+
 }  // namespace
 
-Result<std::vector<std::uint8_t>> render_snapshot_rgba(const FarFieldSet& s, const SnapshotOptions& o) {
+// What one image size and renderer choice keep from one snapshot to the next. Members are
+// destroyed in reverse order, the context last, after everything that holds GL objects in it.
+struct SnapshotRenderer::Gl {
+    int width = 0, height = 0;
+    bool software = false;
+    std::unique_ptr<RenderContext> context;
+    OffscreenTarget target;
+    SceneRenderer scene;
+    ImGuiContext* imgui = nullptr;
+    UiFonts fonts;
+    float scale = 1;
+    ~Gl() {
+        if (!imgui) return;
+        context->make_current();
+        ImGuiContextSwitch sw(imgui);
+        ImGui_ImplOpenGL3_Shutdown();
+        ImGui::DestroyContext(imgui);
+    }
+};
+
+SnapshotRenderer::SnapshotRenderer() = default;
+SnapshotRenderer::~SnapshotRenderer() = default;
+
+Status SnapshotRenderer::start(const SnapshotOptions& o) {
+    if (gl_ && gl_->width == o.width && gl_->height == o.height && gl_->software == o.software) {
+        gl_->context->make_current();
+        return Ok{};
+    }
+    gl_.reset();
+    auto gl = std::make_unique<Gl>();
+    gl->width = o.width;
+    gl->height = o.height;
+    gl->software = o.software;
+    ContextRequest req;
+    req.software = o.software;
+    req.width = o.width;
+    req.height = o.height;
+    auto ctx = create_headless_context(req);
+    if (!ctx) return ctx.error();
+    gl->context = std::move(*ctx);
+    if (Status st = gl->target.create(o.width, o.height, 4); !st) return st.error();
+    if (Status st = gl->scene.init(); !st) return st.error();
+    gl->imgui = ImGui::CreateContext();
+    ImGuiContextSwitch sw(gl->imgui);
+    ImGuiIO& io = ImGui::GetIO();
+    io.IniFilename = nullptr;
+    io.LogFilename = nullptr;
+    gl->scale = std::clamp(o.height / 800.0f, 0.8f, 3.0f);
+    gl->fonts = setup_ui_style(gl->scale);
+    io.DisplaySize = ImVec2(float(o.width), float(o.height));
+    io.DeltaTime = 1.0f / 60;
+    if (!ImGui_ImplOpenGL3_Init("#version 330")) {
+        ImGui::DestroyContext(gl->imgui);
+        gl->imgui = nullptr;
+        return Error{"", 0, 0, "cannot start the ImGui OpenGL renderer"};
+    }
+    gl_ = std::move(gl);
+    return Ok{};
+}
+
+Result<std::vector<std::uint8_t>> SnapshotRenderer::render(const FarFieldSet& s, const SnapshotOptions& o) {
     if (o.width < 64 || o.height < 64 || o.width > 8192 || o.height > 8192)
         return Error{"", 0, 0, "image size must be between 64x64 and 8192x8192, found " + std::to_string(o.width) + "x" +
                                    std::to_string(o.height)};
@@ -42,21 +129,12 @@ Result<std::vector<std::uint8_t>> render_snapshot_rgba(const FarFieldSet& s, con
     so.gain_map = o.gain_map;
     auto mesh = build_surface(s, o.frequency_index, so, o.compare, o.compare_frequency_index);
     if (!mesh) return mesh.error();
+    if (Status st = start(o); !st) return st.error();
+    Gl& gl = *gl_;
 
-    ContextRequest req;
-    req.software = o.software;
-    req.width = o.width;
-    req.height = o.height;
-    auto ctx = create_headless_context(req);
-    if (!ctx) return ctx.error();
-
-    OffscreenTarget target;
-    if (Status st = target.create(o.width, o.height, 4); !st) return st.error();
-    SceneRenderer scene;
-    if (Status st = scene.init(); !st) return st.error();
-    scene.set_surface(*mesh);
-    scene.set_axes(build_axes(1.3));
-    if (o.glyphs && s.has_phase()) scene.set_glyphs(build_glyphs(s, o.frequency_index, *mesh, GlyphOptions{}));
+    gl.scene.set_surface(*mesh);
+    gl.scene.set_axes(build_axes(1.3));
+    gl.scene.set_glyphs(o.glyphs && s.has_phase() ? build_glyphs(s, o.frequency_index, *mesh, GlyphOptions{}) : LineSet{});
 
     // Layout: the 3D view on the left, the colour bar in a strip on the right.
     const float bar_strip = std::max(150.0f, o.width * 0.16f);
@@ -67,52 +145,27 @@ Result<std::vector<std::uint8_t>> render_snapshot_rgba(const FarFieldSet& s, con
     SceneStyle style;
     style.background = {1, 1, 1};
     style.cut_ring = false;
-    target.bind();
+    gl.target.bind();
     glViewport(0, 0, o.width, o.height);
     glClearColor(1, 1, 1, 1);
     glClear(GL_COLOR_BUFFER_BIT | GL_DEPTH_BUFFER_BIT);
-    scene.draw(cam, 0, 0, view_w, o.height, style, true);
+    gl.scene.draw(cam, 0, 0, view_w, o.height, style, true);
 
     // Annotations with ImGui draw lists.
-    ImGuiContextGuard guard;
-    ImGuiIO& io = ImGui::GetIO();
-    io.IniFilename = nullptr;
-    io.LogFilename = nullptr;
-    const float scale = std::clamp(o.height / 800.0f, 0.8f, 3.0f);
-    UiFonts fonts = setup_ui_style(scale);
-    io.DisplaySize = ImVec2(float(o.width), float(o.height));
-    io.DeltaTime = 1.0f / 60;
-    if (!ImGui_ImplOpenGL3_Init("#version 330")) return Error{"", 0, 0, "cannot start the ImGui OpenGL renderer"};
+    ImGuiContextSwitch sw(gl.imgui);
     ImGui_ImplOpenGL3_NewFrame();
     ImGui::NewFrame();
-    ImDrawList* dl = ImGui::GetBackgroundDrawList();
-    const ImU32 ink = IM_COL32(34, 38, 46, 255), muted = IM_COL32(95, 100, 108, 255);
-    const std::string title = !o.title.empty() ? o.title
-                              : (s.name.empty() ? std::string("pattern") : s.name) + "  \u00b7  " +
-                                    format_frequency(s.frequencies[o.frequency_index].frequency_hz);
-    dl->AddText(fonts.title, fonts.title->FontSize, ImVec2(16 * scale, 12 * scale), ink, title.c_str());
-    char line[256];
-    std::snprintf(line, sizeof line, "radius: %s, %.2f %s at the peak, %g dB dynamic range", short_label(o.component),
-                  mesh->peak_db, mesh->unit.c_str(), o.range_db);
-    dl->AddText(fonts.small, fonts.small->FontSize, ImVec2(16 * scale, 12 * scale + fonts.title->FontSize * 1.35f), muted, line);
-    std::snprintf(line, sizeof line, "view from azimuth %g\u00b0, elevation %g\u00b0", o.view_azimuth_deg, o.view_elevation_deg);
-    dl->AddText(fonts.small, fonts.small->FontSize, ImVec2(16 * scale, o.height - fonts.small->FontSize * 1.8f), muted, line);
-    draw_axis_labels(dl, cam, ImVec2(0, 0), ImVec2(float(view_w), float(o.height)), 1.3, fonts.small);
-    const ImVec2 bar_pos(view_w + 18 * scale, o.height * 0.22f), bar_size(20 * scale, o.height * 0.56f);
-    draw_color_bar(dl, bar_pos, bar_size, mesh->bar, fonts.small, fonts.small, bar_strip - 28 * scale);
-    // The key to the ellipses (when drawn) under the bar, the radial scale at the bottom left.
-    if (o.glyphs && s.has_phase())
-        draw_ellipse_key(dl, ImVec2(bar_pos.x, bar_pos.y + bar_size.y + 24 * scale), fonts.small, ink);
-    draw_radial_scale(dl, cam, ImVec2(float(view_w), float(o.height)),
-                      ImVec2(16 * scale, o.height - fonts.small->FontSize * 6.2f), mesh->peak_db, o.range_db, mesh->unit,
-                      fonts.small, muted);
+    draw_annotations(s, o, *mesh, cam, view_w, bar_strip, gl.scale, gl.fonts);
     ImGui::Render();
-    target.bind();
+    gl.target.bind();
     glViewport(0, 0, o.width, o.height);
     ImGui_ImplOpenGL3_RenderDrawData(ImGui::GetDrawData());
-    std::vector<std::uint8_t> px = target.read_rgba();
-    ImGui_ImplOpenGL3_Shutdown();
-    return px;
+    return gl.target.read_rgba();
+}
+
+Result<std::vector<std::uint8_t>> render_snapshot_rgba(const FarFieldSet& s, const SnapshotOptions& o) {
+    SnapshotRenderer r;
+    return r.render(s, o);
 }
 
 Status render_snapshot_png(const FarFieldSet& s, const SnapshotOptions& o, const std::string& path, bool overwrite) {
