@@ -1,6 +1,6 @@
 // CSV importer benchmark: prints figures, never fails on a slow machine.
 //   writes a ~1-million-row, 16-frequency complex-family file (~75 MB) to a scratch folder,
-//   reads it with all cores and with one (target >= 300 MB/s), and measures the peak resident
+//   reads it with all cores and with one (issue 18: >= 800 MB/s per core of CPU time), and measures the peak resident
 //   memory of a child process that only reads it against the size of the final arrays
 //   (target below 2x). Usage: bench_csv [SCRATCH_DIR]  (default: /tmp); it leaves the file
 //   there as bench_csv_1m.csv for the `ellipsa info` against pandas comparison in run.sh.
@@ -104,7 +104,7 @@ int main(int argc, char** argv) {
     const double t_all = run(0, &rows, &bytes);
     const double t_one = run(1, nullptr, nullptr);
     std::printf("file: %s, %.1f MB, %zu rows, 16 frequencies\n", path.c_str(), mb, rows);
-    std::printf("read, %u threads: %8.1f ms  %7.0f MB/s  (target >= 300 MB/s)\n", cores, 1e3 * t_all, mb / t_all);
+    std::printf("read, %u threads: %8.1f ms  %7.0f MB/s  (wall clock, all cores; the goal is per core, below)\n", cores, 1e3 * t_all, mb / t_all);
     std::printf("read, 1 thread:   %8.1f ms  %7.0f MB/s  (CPU time %.1f ms: %.0f MB/s per core, whatever the load;\n"
                 "  target >= 800 MB/s per core)\n",
                 1e3 * t_one, mb / t_one, 1e3 * best_cpu, mb / best_cpu);
