@@ -192,7 +192,7 @@ Result<Head> read_head(const TextSource& src, const std::string& file, const Hea
     std::size_t begin = 0;
     if (auto bom = src.view(0, 3, buffer); bom && *bom == "\xEF\xBB\xBF") begin = 3;
     Failure f;
-    HeadWalk walk{src, search, h, f, {}, search.skip};
+    HeadWalk walk{src, search, h, f, {}, search.skip, 0, 0, std::nullopt, false};
     walk.first_at.fill(std::string::npos);
     for_each_window(src, begin, src.size(), buffer, f, [&](std::string_view w, std::size_t at) {
         for (std::size_t pos = 0; pos < w.size();) {
