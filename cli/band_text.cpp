@@ -6,6 +6,7 @@
 
 #include "cli/format.hpp"
 #include "exports/band_figure.hpp"
+#include "exports/figure_text.hpp"
 
 namespace ellipsa::cli {
 
@@ -34,9 +35,10 @@ void edges_json(JsonWriter& j, std::string_view key, const std::optional<BandEdg
 
 CircularFigures circular_figures(const FarFieldSet& s, std::size_t fi, const PatternSummary& r) {
     CircularFigures c;
-    c.elevation = ar_beamwidth_through(s, fi, r.peak.theta_deg, r.peak.phi_deg, false);
-    c.azimuth = ar_beamwidth_through(s, fi, r.peak.theta_deg, r.peak.phi_deg, true);
+    c.elevation = ar_beamwidth_through(s, fi, r.planes_theta_deg, r.planes_phi_deg, false);
+    c.azimuth = ar_beamwidth_through(s, fi, r.planes_theta_deg, r.planes_phi_deg, true);
     c.solid_angle = ar_solid_angle(s, fi);
+    c.peak_at_pole = r.peak_at_pole;
     return c;
 }
 
@@ -53,8 +55,8 @@ std::string circular_text(const CircularFigures& c) {
     if (!c.solid_angle) return "unavailable (" + c.elevation.unavailable_reason + ")";
     std::string s;
     if (c.elevation.width_deg || c.azimuth.width_deg) {
-        s = fmt(c.elevation.width_deg, "deg", 1, "none") + " (elevation plane), " +
-            fmt(c.azimuth.width_deg, "deg", 1, "none") + " (azimuth plane)";
+        s = fmt(c.elevation.width_deg, "deg", 1, "none") + " (" + exports::beam_plane_text(c.peak_at_pole, false, "deg") + "), " +
+            fmt(c.azimuth.width_deg, "deg", 1, "none") + " (" + exports::beam_plane_text(c.peak_at_pole, true, "deg") + ")";
     } else {
         s = "none (" + c.elevation.unavailable_reason + ")";
     }

@@ -14,6 +14,7 @@
 #include "exports/figure_text.hpp"
 #include "exports/render.hpp"
 #include "pattern/peak.hpp"
+#include "pattern/summary.hpp"
 
 namespace ellipsa::cli {
 
@@ -94,9 +95,9 @@ int run_cut(const CutArgs& a) {
         spec = CutSpec::theta_cut(*a.theta_deg);
     } else {
         // The elevation cut through the peak of the total power (the plane summarize() measures
-        // its elevation beamwidth in).
+        // its elevation beamwidth in; phi = 0 when the peak is at a pole, where its phi is arbitrary).
         const Peak pk = find_peak(*s, *fi, Component::total);
-        spec = CutSpec::phi_cut(std::round(pk.phi_deg * 10) / 10);  // to 0.1 deg, as shown
+        spec = CutSpec::phi_cut(std::round(elevation_plane_phi_deg(s->grid, pk) * 10) / 10);  // to 0.1 deg, as shown
     }
     CutExportRequest req;
     req.spec = spec;

@@ -12,6 +12,7 @@
 #include "cli/environment_options.hpp"
 #include "cli/format.hpp"
 #include "cli/json.hpp"
+#include "exports/figure_text.hpp"
 #include "cli/load.hpp"
 #include "pattern/diversity_study.hpp"
 
@@ -252,10 +253,11 @@ void human_frequency(const FrequencyStudy& r, const OrientationSweep& sw) {
     const MegFigures& m = *r.meg;
     std::cout << "    MEG                 " << fmt(to_db(m.meg), "dBi") << "  (" << fmt(m.meg, "", 4) << " linear)\n";
     if (!m.assumption.empty()) std::cout << "                        " << m.assumption << "\n";
-    std::cout << "      vertical part     " << fmt(db(m.meg_vertical), "dBi") << "  (" << pct(m.vertical_share)
-              << " of MEG)\n";
-    std::cout << "      horizontal part   " << fmt(db(m.meg_horizontal), "dBi") << "  (" << pct(m.horizontal_share)
-              << " of MEG)\n";
+    const auto part = [](const std::optional<double>& v, const std::optional<double>& share) {
+        return v ? exports::part_text(*v, share, "dBi", " of MEG") : std::string("unavailable");
+    };
+    std::cout << "      vertical part     " << part(m.meg_vertical, m.vertical_share) << "\n";
+    std::cout << "      horizontal part   " << part(m.meg_horizontal, m.horizontal_share) << "\n";
     std::cout << "    V and H within 3 dB " << pct(m.balanced_share) << " of the incoming power\n";
     for (const std::string& n : m.notes) std::cout << "    note: " << n << "\n";
     if (!r.orientations) return;

@@ -4,6 +4,7 @@
 #include <cmath>
 
 #include "exports/csv_text.hpp"
+#include "exports/figure_text.hpp"
 #include "exports/plot_pen.hpp"
 
 namespace ellipsa::exports {
@@ -70,10 +71,22 @@ void pair_panel(XyPanel& p, bool ecc, const std::vector<BandPair>& pairs, const 
         }
 }
 
+// Every frequency of every set has its peak at a pole: the beam planes are phi = 0 and phi = 90.
+bool peaks_at_pole(const std::vector<BandSet>& sets) {
+    bool any = false;
+    for (const BandSet& b : sets)
+        for (const FrequencyFigures& f : b.figures) {
+            if (!f.summary.peak_at_pole) return false;
+            any = true;
+        }
+    return any;
+}
+
 // One panel for one quantity over all sets (and pairs).
 XyPanel panel(BandPanel kind, const std::vector<BandSet>& sets, const std::vector<BandPair>& pairs, const BandRequest& r) {
     XyPanel p;
     const int n = int(sets.size());
+    const bool at_pole = peaks_at_pole(sets);
     auto add = [&](int k, const std::string& what, auto y) {
         for (int i = 0; i < n; ++i) p.series.push_back(series(sets[std::size_t(i)], what, i + k * n, y));
     };
@@ -122,8 +135,8 @@ XyPanel panel(BandPanel kind, const std::vector<BandSet>& sets, const std::vecto
         case BandPanel::beamwidth:
             p.y_label = "HPBW";
             p.y_unit = "°";
-            add(0, "elevation plane", [](const FrequencyFigures& f) { return or_nan(f.summary.hpbw_elevation_deg); });
-            add(1, "azimuth plane", [](const FrequencyFigures& f) { return or_nan(f.summary.hpbw_azimuth_deg); });
+            add(0, beam_plane_text(at_pole, false, "°"), [](const FrequencyFigures& f) { return or_nan(f.summary.hpbw_elevation_deg); });
+            add(1, beam_plane_text(at_pole, true, "°"), [](const FrequencyFigures& f) { return or_nan(f.summary.hpbw_azimuth_deg); });
             break;
         case BandPanel::front_to_back:
             p.y_label = "Front-to-back";
@@ -134,9 +147,9 @@ XyPanel panel(BandPanel kind, const std::vector<BandSet>& sets, const std::vecto
             p.y_label = "AR width";
             p.y_unit = "°";
             p.empty_text = "none: the axial ratio at the peak exceeds " + num(r.options.ar_threshold_db, 1) + " dB, or no phase";
-            add(0, "AR ≤ " + num(r.options.ar_threshold_db, 1) + " dB, elevation plane",
+            add(0, "AR ≤ " + num(r.options.ar_threshold_db, 1) + " dB, " + beam_plane_text(at_pole, false, "°"),
                 [](const FrequencyFigures& f) { return or_nan(f.ar_beamwidth_elevation.width_deg); });
-            add(1, "azimuth plane", [](const FrequencyFigures& f) { return or_nan(f.ar_beamwidth_azimuth.width_deg); });
+            add(1, beam_plane_text(at_pole, true, "°"), [](const FrequencyFigures& f) { return or_nan(f.ar_beamwidth_azimuth.width_deg); });
             break;
         case BandPanel::correlation:
         case BandPanel::diversity_gain: pair_panel(p, kind == BandPanel::correlation, pairs, r); break;

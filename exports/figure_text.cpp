@@ -24,6 +24,12 @@ std::string level_text(double v_db, int decimals, const std::string& unit) {
     return with_unit(v_db, decimals, unit);
 }
 
+std::string part_text(double linear, const std::optional<double>& share, const std::string& unit, const std::string& of) {
+    if (!(linear > 0)) return "none (0 %" + of + ")";
+    const std::string value = with_unit(10 * std::log10(linear), db_decimals, unit);
+    return value + (share ? " (" + fixed(100 * *share, percent_decimals) + " %" + of + ")" : " (share unavailable)");
+}
+
 double shown_cut_angle(double angle_deg, bool signed_range, int decimals) {
     const double scale = std::pow(10.0, decimals);
     double a = std::round(angle_deg * scale) / scale;  // round first: -179.96 is shown as 180.0
@@ -75,8 +81,10 @@ std::string tilt_text(double tilt_deg, Sense s, const std::string& deg) {
 std::string peak_text(const PatternSummary& r, const char* unit, const std::string& deg) {
     if (r.zero_field) return "none (zero field)";
     const bool greek = deg != "deg";
-    return with_unit(r.peak_db, db_decimals, unit) + " at " + (greek ? "\u03b8 " : "theta ") +
-           fixed(r.peak.theta_deg, angle_decimals) + (greek ? "\u00b0, \u03c6 " : ", phi ") +
+    const std::string at = with_unit(r.peak_db, db_decimals, unit) + " at " + (greek ? "\u03b8 " : "theta ");
+    if (r.peak_at_pole)  // phi means nothing at a pole: the pole by name
+        return at + with_unit(r.peak.theta_deg, angle_decimals, deg) + (r.peak.theta_deg < 90 ? " (zenith)" : " (nadir)");
+    return at + fixed(r.peak.theta_deg, angle_decimals) + (greek ? "\u00b0, \u03c6 " : ", phi ") +
            with_unit(r.peak.phi_deg, angle_decimals, deg);
 }
 
@@ -96,6 +104,16 @@ std::string beamwidth_text(const BeamFigures& b, const std::string& angle, const
         }
     }
     return "none";
+}
+
+std::string beam_plane_text(bool peak_at_pole, bool azimuth, const std::string& deg) {
+    if (!peak_at_pole) return azimuth ? "azimuth plane" : "elevation plane";
+    const bool greek = deg == "\u00b0";
+    return std::string(greek ? "plane \u03c6 = " : "plane phi = ") + with_unit(azimuth ? 90 : 0, 0, deg);
+}
+
+std::string beam_plane_text(const PatternSummary& r, bool azimuth, const std::string& deg) {
+    return beam_plane_text(r.peak_at_pole, azimuth, deg);
 }
 
 std::string beamwidth_cell(const BeamFigures& b) {

@@ -22,6 +22,10 @@ std::string with_unit(double v, int decimals, const std::string& unit);
 // A level in dB as reported: with_unit(v_db, decimals, unit), "2.15 dBi"; an exactly zero power
 // (-inf dB) is "none (zero field)", never "-inf dBi".
 std::string level_text(double v_db, int decimals, const std::string& unit);
+// A part of a power with its share of the whole (MEG's vertical and horizontal parts): "-8.80 dBi
+// (42.1 %<of>)", and for an exactly zero part "none (0 %<of>)", never "-inf dBi (0.0 %)". `of` follows
+// the percent sign (" of MEG" or ""); a share that is unavailable reads "share unavailable".
+std::string part_text(double linear, const std::optional<double>& share, const std::string& unit, const std::string& of);
 // An angle on a cut as shown: rounded to `decimals`, then once in the cut's range. The cut's angle
 // axis is a closed loop (pattern/cut.hpp): with `signed_range` (phi = const and great-circle cuts)
 // -180 is the same direction as +180 and is shown as 180, range (-180, 180]; otherwise (conical
@@ -41,7 +45,8 @@ std::string polarisation_text(Sense s, const std::optional<double>& axial_ratio_
 std::string tilt_text(double tilt_deg, Sense s, const std::string& deg);
 
 // The peak of a summary: "5.16 dBi at theta 90.0, phi 0.0 deg" (`deg` "deg") or with Greek
-// letters and degree signs (`deg` "°"); "none (zero field)" when every sample is zero.
+// letters and degree signs (`deg` "°"); "none (zero field)" when every sample is zero. A peak at a
+// pole (PatternSummary::peak_at_pole) has no phi: "3.34 dBi at theta 0.0 deg (zenith)".
 std::string peak_text(const PatternSummary& r, const char* unit, const std::string& deg);
 
 // The half-power beamwidth of a cut as reported: "78.1 <deg>"; or why there is none:
@@ -49,6 +54,12 @@ std::string peak_text(const PatternSummary& r, const char* unit, const std::stri
 // "none: the beam's edge lies outside the sampled range (toward lower theta)". `angle` names the
 // cut's angle ("theta", "phi", "angle").
 std::string beamwidth_text(const BeamFigures& b, const std::string& angle, const std::string& deg);
+// The plane of a summary's beamwidth, as reported: "elevation plane" (azimuth false) or "azimuth
+// plane"; when the peak is at a pole (PatternSummary::peak_at_pole), where both are elevation
+// planes and the peak's phi means nothing, "plane phi = 0 deg" / "plane phi = 90 deg" (`deg`
+// "deg"; "" gives "plane phi = 0"), or "plane φ = 0°" / "plane φ = 90°" (`deg` "°").
+std::string beam_plane_text(bool peak_at_pole, bool azimuth, const std::string& deg);
+std::string beam_plane_text(const PatternSummary& r, bool azimuth, const std::string& deg);
 // Its JSON reason code: null (nullopt) when the HPBW exists, else "omnidirectional",
 // "wider_than_180_deg", "edge_outside_data_lower_angle", "edge_outside_data_higher_angle",
 // "edges_outside_data_both_sides", "no_power".

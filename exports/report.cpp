@@ -110,8 +110,8 @@ std::vector<std::pair<std::string, std::string>> figure_rows(const FarFieldSet& 
                                                       (r.efficiency_above_100 ? " (" + efficiency_warning_text(*r.power.radiation_efficiency) + ")" : "")
                    : s.quantity == Quantity::gain ? std::string("unavailable (partial sphere)")
                                                   : std::string("unavailable (needs absolute gain data)"));
-    v.emplace_back("HPBW, elevation plane through the peak (°)", r.zero_field ? std::string("none (zero field)") : beamwidth_text(r.elevation, "θ", ""));
-    v.emplace_back("HPBW, azimuth-like plane through the peak (°)", r.zero_field ? std::string("none (zero field)") : beamwidth_text(r.azimuth, "angle", ""));
+    v.emplace_back("HPBW, " + (r.peak_at_pole ? beam_plane_text(r, false, "°") : std::string("elevation plane")) + " through the peak (°)", r.zero_field ? std::string("none (zero field)") : beamwidth_text(r.elevation, "θ", ""));
+    v.emplace_back("HPBW, " + (r.peak_at_pole ? beam_plane_text(r, true, "°") : std::string("azimuth-like plane")) + " through the peak (°)", r.zero_field ? std::string("none (zero field)") : beamwidth_text(r.azimuth, "angle", ""));
     v.emplace_back("Side lobe, elevation plane (dB)", r.zero_field ? std::string("none (zero field)") : sidelobe_text(r.elevation));
     // Beyond null_ratio_bound_db the back direction is a null, not a measurable level.
     v.emplace_back("Front-to-back (dB)", r.front_to_back_above_db ? "above " + fixed(*r.front_to_back_above_db, 0) + " (the back is a null)"

@@ -62,9 +62,9 @@ std::vector<FrequencyFigures> band_figures(const FarFieldSet& s, const BandOptio
             f.meg.push_back(m ? MegReading{m->meg, ""} : MegReading{std::nullopt, m.error().message});
         }
         if (o.direction_deg) f.ar_at_direction = axial_ratio_at(s, fi, o.direction_deg->first, o.direction_deg->second);
-        const Peak& pk = f.summary.peak;
-        f.ar_beamwidth_elevation = ar_beamwidth_through(s, fi, pk.theta_deg, pk.phi_deg, false, o.ar_threshold_db);
-        f.ar_beamwidth_azimuth = ar_beamwidth_through(s, fi, pk.theta_deg, pk.phi_deg, true, o.ar_threshold_db);
+        const double t = f.summary.planes_theta_deg, p = f.summary.planes_phi_deg;  // the summary's beam planes
+        f.ar_beamwidth_elevation = ar_beamwidth_through(s, fi, t, p, false, o.ar_threshold_db);
+        f.ar_beamwidth_azimuth = ar_beamwidth_through(s, fi, t, p, true, o.ar_threshold_db);
     });
     return out;
 }

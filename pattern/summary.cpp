@@ -9,6 +9,12 @@
 
 namespace ellipsa {
 
+bool peak_at_pole(const Grid& g, const Peak& pk) {
+    return (pk.i_theta == 0 && g.has_north_pole()) || (pk.i_theta == g.theta.count - 1 && g.has_south_pole());
+}
+
+double elevation_plane_phi_deg(const Grid& g, const Peak& pk) { return peak_at_pole(g, pk) ? 0.0 : pk.phi_deg; }
+
 PatternSummary summarize(const FarFieldSet& s, std::size_t fi) {
     PatternSummary r;
     r.frequency_hz = s.frequencies[fi].frequency_hz;
@@ -27,15 +33,19 @@ PatternSummary summarize(const FarFieldSet& s, std::size_t fi) {
 
     const Vec3 pd = direction(r.peak.theta_deg * deg, r.peak.phi_deg * deg);
     const double step = default_cut_step(s.grid);
+    const Grid& g = s.grid;
+    r.peak_at_pole = peak_at_pole(g, r.peak);
+    r.planes_theta_deg = r.peak_at_pole ? g.theta.value_deg(r.peak.i_theta) : r.peak.theta_deg;
+    r.planes_phi_deg = elevation_plane_phi_deg(g, r.peak);
     {
-        CutSamples c = sample_cut(s, fi, CutSpec::phi_cut(r.peak.phi_deg), step);
+        CutSamples c = sample_cut(s, fi, CutSpec::phi_cut(r.planes_phi_deg), step);
         r.elevation = beam_figures(c.angle_deg, cut_power(s, c, Component::total), nearest_cut_sample(c, pd), true);
         r.hpbw_elevation_deg = r.elevation.hpbw_deg;
         r.sidelobe_elevation_db = r.elevation.sidelobe_db;
     }
     {
-        CutSamples c = sample_cut(s, fi, CutSpec::through(r.peak.theta_deg, r.peak.phi_deg, true), step);
-        r.azimuth = beam_figures(c.angle_deg, cut_power(s, c, Component::total), nearest_cut_sample(c, pd));
+        CutSamples c = sample_cut(s, fi, r.peak_at_pole ? CutSpec::phi_cut(90.0) : CutSpec::through(r.peak.theta_deg, r.peak.phi_deg, true), step);
+        r.azimuth = beam_figures(c.angle_deg, cut_power(s, c, Component::total), nearest_cut_sample(c, pd), r.peak_at_pole);
         r.hpbw_azimuth_deg = r.azimuth.hpbw_deg;
     }
     if (auto back = interpolate(s, fi, 180.0 - r.peak.theta_deg, r.peak.phi_deg + 180.0)) {

@@ -25,8 +25,15 @@ struct PatternSummary {
     PowerFigures power;              // radiated power, coverage, directivity, efficiency
     std::optional<double> directivity_dbi;
     bool efficiency_above_100 = false;  // radiation efficiency above 1 + efficiency_tolerance: a data problem
-    BeamFigures elevation;                     // the phi = const cut through the peak (mirror halves)
-    BeamFigures azimuth;                       // the great circle through the peak along phi-hat
+    // The peak sample is a pole (theta 0 or 180): every plane through it is an elevation plane and
+    // the peak's phi there is arbitrary (the largest of equal samples, or noise), so the two beam
+    // planes are the fixed planes phi = 0 (elevation) and phi = 90 (azimuth) instead.
+    bool peak_at_pole = false;
+    // Where the two beam planes cross: the peak, or at a pole the pole itself with phi 0. The AR
+    // beamwidths (circular.hpp) are taken through this direction too.
+    double planes_theta_deg = 0, planes_phi_deg = 0;
+    BeamFigures elevation;                     // the phi = const cut through the peak (mirror halves); phi = 0 at a pole
+    BeamFigures azimuth;                       // the great circle through the peak along phi-hat; phi = 90 at a pole
     std::optional<double> hpbw_elevation_deg;  // phi = const cut through the peak
     std::optional<double> hpbw_azimuth_deg;    // orthogonal great circle through the peak
     std::optional<double> front_to_back_db;    // peak against the antipode, when at most null_ratio_bound_db
@@ -39,6 +46,11 @@ struct PatternSummary {
 };
 
 PatternSummary summarize(const FarFieldSet& s, std::size_t freq_index);
+
+// The peak's sample is a pole of the grid (PatternSummary::peak_at_pole).
+bool peak_at_pole(const Grid& g, const Peak& pk);
+// The phi of the elevation plane through a peak: its own phi, or 0 at a pole.
+double elevation_plane_phi_deg(const Grid& g, const Peak& pk);
 
 // summarize() of each listed frequency, in that order, one frequency a task on up to four
 // threads (pattern/parallel.hpp): the same figures as one at a time, sooner on several cores.

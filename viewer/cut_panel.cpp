@@ -111,6 +111,8 @@ void polar_ring_labels(ImDrawList* dl, const PlotFrame& f, const exports::CutPlo
             const double v = c.value_db[std::size_t(((j % long(n)) + long(n)) % long(n))];
             if (!std::isnan(v)) reach = std::max(reach, sc.fraction(v));
         }
+        for (const exports::PlotCurve& c : fig.curves)  // keep clear of the peaks' tags
+            if (c.beam && std::abs(std::remainder(a - c.beam->peak_angle_deg, 360.0)) < 25) reach = std::max(reach, 1.5);
         if (reach < best_f - 1e-9) best_f = reach, best_a = a;
     }
     const std::vector<double> rings = sc.rings();
@@ -238,9 +240,9 @@ void figure_table(const exports::CutPlot& fig, bool narrow) {
 
 // The key to the marks under the table: the axis in words, the rest on hover.
 void figure_key(const exports::CutPlot& fig) {
-    ImGui::PushStyleColor(ImGuiCol_Text, ImGui::GetStyleColorVec4(ImGuiCol_TextDisabled));
-    ImGui::TextWrapped("%s", fig.axis_note.c_str());
-    ImGui::PopStyleColor();
+    ImGui::BeginGroup();
+    text_wrapped_at_spaces(fig.axis_note, true);
+    ImGui::EndGroup();
     if (ImGui::IsItemHovered()) {
         std::string all;
         for (const std::string& n : exports::cut_key_notes(fig)) all += n + "\n";
@@ -261,10 +263,8 @@ void cut_kind_row(const AppState& s, ViewerSettings& st, float kind_w, bool one_
         if (ImGui::SliderFloat("##ang", &ang, 0, 180, st.cut_kind == 0 ? "\u03c6 = %.0f\u00b0" : "\u03b8 = %.0f\u00b0",
                                ImGuiSliderFlags_AlwaysClamp))
             st.cut_angle_deg = std::round(ang);
-    } else {
-        ImGui::PushStyleColor(ImGuiCol_Text, ImGui::GetStyleColorVec4(ImGuiCol_TextDisabled));
-        ImGui::TextWrapped("%s", !s.pinned ? "click the surface to pin" : one_line ? "along \u03b8-hat" : "along \u03b8-hat (the meridian) through the pin");
-        ImGui::PopStyleColor();
+    } else if (!s.pinned) {  // once pinned, the axis note under the plot says what the cut follows
+        ImGui::TextDisabled("click the surface to pin");
     }
     if (one_line) ImGui::SameLine();
     ImGui::Checkbox("polar plot", &st.polar_plot);
@@ -360,11 +360,14 @@ Intents draw_cut_panel(const AppState& s, const Derived& d) {
     if (!none) fig = cut_figure(s, cd);
     const ImVec2 avail = ImGui::GetContentRegionAvail();
     const float line = ImGui::GetTextLineHeightWithSpacing();
-    const float below = fig ? line * (float(fig->curves.size()) + 1) + 6 + 2 * line : 0;
+    // In a narrow panel the axis note goes into the controls' column, so the plot keeps its height.
+    const bool narrow = avail.x < 560;
+    const float below = fig ? line * (float(fig->curves.size()) + 1) + 6 + (narrow ? 0 : 2 * line) : 0;
     const float top_h = std::max(6 * line, avail.y - below);
     const float controls_w = std::clamp(avail.x * 0.36f, 180.0f, 228.0f);
     ImGui::BeginChild("cutcontrols", ImVec2(controls_w, top_h), false, ImGuiWindowFlags_NoScrollbar);
     cut_controls(s, a->set, controls_w, in);
+    if (fig && narrow) figure_key(*fig);
     ImGui::EndChild();
     ImGui::SameLine();
     ImGui::BeginChild("cutplot", ImVec2(0, top_h), false, ImGuiWindowFlags_NoScrollbar);
@@ -373,7 +376,7 @@ Intents draw_cut_panel(const AppState& s, const Derived& d) {
     ImGui::EndChild();
     if (fig) {
         figure_table(*fig, avail.x < 520);
-        figure_key(*fig);
+        if (!narrow) figure_key(*fig);
     }
     return in;
 }

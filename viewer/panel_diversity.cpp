@@ -12,6 +12,7 @@
 #include "exports/figure_text.hpp"
 #include "viewer/panels.hpp"
 #include "viewer/plot_widgets.hpp"
+#include "viewer/widgets.hpp"
 
 namespace ellipsa::viewer {
 
@@ -33,9 +34,9 @@ void row(const char* label, const std::string& value) {
     const float x = std::min(170.0f, ImGui::GetContentRegionAvail().x * 0.45f);
     ImGui::TextDisabled("%s", label);
     ImGui::SameLine(x);
-    ImGui::PushTextWrapPos(0);
-    ImGui::TextUnformatted(value.c_str());
-    ImGui::PopTextWrapPos();
+    ImGui::BeginGroup();
+    text_wrapped_at_spaces(value);
+    ImGui::EndGroup();
 }
 
 
@@ -113,10 +114,8 @@ void draw_pattern(const char* tag, const LoadedPattern* p, const PatternDiversit
     row("MEG", db_text(m.meg));
     char b[96];
     if (m.meg_vertical && m.vertical_share) {
-        std::snprintf(b, sizeof b, "%s  (%.1f %%)", db_text(*m.meg_vertical).c_str(), 100 * *m.vertical_share);
-        row("  vertical part", b);
-        std::snprintf(b, sizeof b, "%s  (%.1f %%)", db_text(*m.meg_horizontal).c_str(), 100 * *m.horizontal_share);
-        row("  horizontal part", b);
+        row("  vertical part", exports::part_text(*m.meg_vertical, m.vertical_share, "dBi", ""));
+        row("  horizontal part", exports::part_text(*m.meg_horizontal, m.horizontal_share, "dBi", ""));
     }
     if (m.balanced_share) {
         std::snprintf(b, sizeof b, "%.1f %% of the incoming power", 100 * *m.balanced_share);

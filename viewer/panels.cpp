@@ -119,7 +119,7 @@ void headline_figures(const LoadedPattern& a, const PatternSummary& sm) {
     const char* u = db_unit(a.set.quantity, Component::total);
     char b[96];
     // The peak and its direction on two rows, so a narrow panel never breaks a number.
-    if (sm.zero_field) {
+    if (sm.zero_field || sm.peak_at_pole) {  // a pole has no phi: named instead
         table_row("Peak", exports::peak_text(sm, u, "\u00b0"), "Largest total value and its direction");
     } else {
         table_row("Peak", exports::with_unit(sm.peak_db, exports::db_decimals, u), "Largest total value (refined between samples)");
@@ -133,8 +133,15 @@ void headline_figures(const LoadedPattern& a, const PatternSummary& sm) {
         table_row("Efficiency", b, "Radiated power over 4 pi, from absolute gain data");
         if (sm.efficiency_above_100) table_row("Warning", "efficiency above 100 %", exports::efficiency_warning_text(*sm.power.radiation_efficiency).c_str());
     }
-    table_row("HPBW elev.", exports::beamwidth_text(sm.elevation, "\u03b8", "\u00b0"), "Half-power beamwidth on the phi = const cut through the peak");
-    table_row("HPBW azim.", exports::beamwidth_text(sm.azimuth, "angle", "\u00b0"), "Half-power beamwidth across it");
+    if (sm.peak_at_pole) {  // both planes are elevation planes there: name them by their phi
+        table_row(("HPBW " + exports::beam_plane_text(sm, false, "\u00b0")).c_str(), exports::beamwidth_text(sm.elevation, "\u03b8", "\u00b0"),
+                  "Half-power beamwidth on the plane phi = 0 (the peak is at a pole, where its phi means nothing)");
+        table_row(("HPBW " + exports::beam_plane_text(sm, true, "\u00b0")).c_str(), exports::beamwidth_text(sm.azimuth, "\u03b8", "\u00b0"),
+                  "Half-power beamwidth on the plane phi = 90");
+    } else {
+        table_row("HPBW elev.", exports::beamwidth_text(sm.elevation, "\u03b8", "\u00b0"), "Half-power beamwidth on the phi = const cut through the peak");
+        table_row("HPBW azim.", exports::beamwidth_text(sm.azimuth, "angle", "\u00b0"), "Half-power beamwidth across it");
+    }
     table_row("Side lobe", exports::sidelobe_text(sm.elevation), "Highest lobe outside the main beam on the elevation cut (3 dB prominence)");
     table_row("Front/back", sm.front_to_back_above_db ? "above " + exports::fixed(*sm.front_to_back_above_db, 0) + " dB (null)"
                                                       : opt_text(sm.front_to_back_db, "dB", "n/a"),

@@ -2,6 +2,7 @@
 
 #include <imgui.h>
 
+#include <algorithm>
 #include <cmath>
 #include <cstdio>
 
@@ -21,15 +22,49 @@ void help_marker(const char* text) {
     }
 }
 
+std::vector<std::string> word_lines(const std::string& text, float width, const std::function<float(const std::string&)>& measure) {
+    std::vector<std::string> lines;
+    std::string line, word;
+    auto put = [&] {
+        if (word.empty()) return;
+        const std::string joined = line.empty() ? word : line + " " + word;
+        if (!line.empty() && measure(joined) > width) {
+            lines.push_back(line);
+            line = word;
+        } else {
+            line = joined;
+        }
+        word.clear();
+    };
+    for (char ch : text) {
+        if (ch == ' ' || ch == '\n') {
+            put();
+            if (ch == '\n') lines.push_back(line), line.clear();
+        } else {
+            word += ch;
+        }
+    }
+    put();
+    if (!line.empty() || lines.empty()) lines.push_back(line);
+    return lines;
+}
+
+void text_wrapped_at_spaces(const std::string& text, bool disabled) {
+    const float width = std::max(1.0f, ImGui::GetContentRegionAvail().x);
+    const auto measure = [](const std::string& t) { return ImGui::CalcTextSize(t.c_str()).x; };
+    for (const std::string& l : word_lines(text, width, measure)) {
+        if (disabled) ImGui::TextDisabled("%s", l.c_str());
+        else ImGui::TextUnformatted(l.c_str());
+    }
+}
+
 void table_row(const char* label, const std::string& value, const char* tip) {
     ImGui::TableNextRow();
     ImGui::TableSetColumnIndex(0);
     ImGui::TextDisabled("%s", label);
     if (tip && ImGui::IsItemHovered()) ImGui::SetTooltip("%s", tip);
     ImGui::TableSetColumnIndex(1);
-    ImGui::PushTextWrapPos(0);  // a long value wraps inside its column instead of running off the panel
-    ImGui::TextUnformatted(value.c_str());
-    ImGui::PopTextWrapPos();
+    text_wrapped_at_spaces(value, false);  // a long value wraps inside its column, never inside a number
 }
 
 bool begin_figure_table(const char* id, bool row_bg) {

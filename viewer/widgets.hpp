@@ -1,8 +1,10 @@
 // Small widgets the panels share: a "(?)" help marker, a label/value table row, and the line
 // that reports an export (with the offer to replace a file that is already there).
 #pragma once
+#include <functional>
 #include <optional>
 #include <string>
+#include <vector>
 
 #include "viewer/state/app_state.hpp"
 #include "viewer/state/intents.hpp"
@@ -10,6 +12,12 @@
 namespace ellipsa::viewer {
 
 void help_marker(const char* text);
+// Text broken into lines of at most `width` (as `measure` gives it) at spaces and newlines only:
+// ImGui's own wrapping also breaks after '.' and ',', which split "9.47 dB" inside the number. A
+// word wider than the line stays whole on its own line.
+std::vector<std::string> word_lines(const std::string& text, float width, const std::function<float(const std::string&)>& measure);
+// The text wrapped with word_lines() to the space left on the line (muted when `disabled`).
+void text_wrapped_at_spaces(const std::string& text, bool disabled = false);
 // A two-column table of labels (as wide as the widest) and values (the rest, wrapped). End it
 // with ImGui::EndTable() when it returns true.
 bool begin_figure_table(const char* id, bool row_bg = false);

@@ -20,7 +20,7 @@ expect_rc 0 "human output" "$E" diversity z.csv x.csv --environment indoor --ori
 grep -q 'dBi' out.txt && grep -q 'diversity gain' out.txt && ok "human output has units" || bad "human output lacks units"
 # A z dipole has no horizontal part: its share of MEG is zero power, said in the core's words
 # (exports/figure_text.hpp level_text), never "-inf dBi".
-grep -q 'horizontal part *none (zero field)' out.txt && ok "zero horizontal part says none" || bad "zero horizontal part: $(grep 'horizontal part' out.txt)"
+grep -q 'horizontal part *none (0 % of MEG)' out.txt && ok "zero horizontal part says none (0 %)" || bad "zero horizontal part: $(grep 'horizontal part' out.txt)"
 ! grep -q -- '-inf' out.txt && ok "human output never prints -inf" || bad "human output prints -inf: $(grep -- -inf out.txt)"
 expect_rc 2 "gaussian without all angles is bad usage" "$E" diversity z.csv --environment gaussian --v-mean 10
 grep -q 'vertical spread is missing' err.txt && ok "names the missing angle" || bad "does not name the missing angle: $(cat err.txt)"

@@ -262,3 +262,42 @@ TEST_CASE("a partial azimuth range is not called omnidirectional", "[honest][sum
     REQUIRE(r.hpbw_elevation_deg);
     CHECK(*r.hpbw_elevation_deg == Approx(78.1).margin(0.3));  // Balanis sec. 4.6
 }
+
+// A beam at the zenith (issue 17): both principal planes are elevation planes there and the peak's
+// phi is arbitrary, so the beamwidths are taken in the fixed planes phi = 0 and phi = 90 and named
+// by their phi. The field x-hat cos^4(theta/2) in phi = 0 and cos^2(theta/2) in phi = 90 is one
+// vector at the pole (E_theta cos(phi) - E_phi sin(phi) = x-hat). Half power of cos^(2n)(theta/2):
+// theta = 2 acos(2^(-1/(2n))), so HPBW = 4 acos(2^(-1/8)) and 4 acos(2^(-1/4)) (closed form,
+// arithmetic). One pole sample is raised by 1e-9 of itself at phi = 137 deg, as noise would.
+TEST_CASE("a beam at a pole has its beamwidths in the planes phi = 0 and phi = 90", "[summary][pole]") {
+    FarFieldSet s = closed_form(1.0, [](double t, double p) {
+        const double c = std::cos(t / 2);
+        return std::pair<cplx, cplx>{std::cos(p) * std::pow(c, 4), -std::sin(p) * std::pow(c, 2)};
+    });
+    const std::size_t noisy = s.grid.index(0, 137);
+    s.frequencies[0].e_theta[noisy] *= 1 + 1e-8;
+    s.frequencies[0].e_phi[noisy] *= 1 + 1e-8;
+    const PatternSummary r = summarize(s, 0);
+    CHECK(r.peak.phi_deg == Approx(137));  // the noise decides the peak's phi ...
+    CHECK(r.peak_at_pole);                  // ... which the planes ignore
+    REQUIRE(r.hpbw_elevation_deg);
+    REQUIRE(r.hpbw_azimuth_deg);
+    CHECK(*r.hpbw_elevation_deg == Approx(4 * std::acos(std::pow(2.0, -1.0 / 8)) / deg).margin(0.2));
+    CHECK(*r.hpbw_azimuth_deg == Approx(4 * std::acos(std::pow(2.0, -1.0 / 4)) / deg).margin(0.2));
+    CHECK(exports::beam_plane_text(r, false, "deg") == "plane phi = 0 deg");
+    CHECK(exports::beam_plane_text(r, true, "\u00b0") == "plane \u03c6 = 90\u00b0");
+    CHECK(exports::peak_text(r, "dBi", "deg").find("(zenith)") != std::string::npos);
+    CHECK(exports::peak_text(r, "dBi", "deg").find("phi") == std::string::npos);
+    // A beam at the horizon keeps the usual names.
+    const PatternSummary h = summarize(synthesize(ReferenceAntenna{}, 5.0, 1e9), 0);
+    CHECK_FALSE(h.peak_at_pole);
+    CHECK(exports::beam_plane_text(h, true, "deg") == "azimuth plane");
+}
+
+// MEG's parts with their shares (issue 17): an exactly zero part is "none (0 %)", never "-inf dBi (0.0 %)".
+TEST_CASE("a zero part of a power reads none (0 %)", "[figure_text]") {
+    CHECK(exports::part_text(0.0, 0.0, "dBi", "") == "none (0 %)");
+    CHECK(exports::part_text(0.0, 0.0, "dBi", " of MEG") == "none (0 % of MEG)");
+    CHECK(exports::part_text(0.5, 0.25, "dBi", "") == "-3.01 dBi (25.0 %)");  // 10 log10(0.5), common practice
+    CHECK(exports::part_text(0.5, std::nullopt, "dBi", "") == "-3.01 dBi (share unavailable)");
+}

@@ -16,6 +16,7 @@
 #include "pattern/reference.hpp"
 #include "viewer/frame.hpp"
 #include "viewer/state/apply.hpp"
+#include "viewer/widgets.hpp"
 
 using namespace ellipsa;
 using namespace ellipsa::viewer;
@@ -211,4 +212,17 @@ TEST_CASE("the layout at 1280x800 and 800x600: panels tile the window, the scene
         CHECK((in_left_column(t) ? s.left_tab : s.strip_tab) == t);
     }
     io.DisplaySize = ImVec2(1280, 800);
+}
+
+// Values wrap at spaces only (issue 17: ImGui's own wrapping broke "axial ratio 9.47 dB" after
+// "9."): a number never splits, a word longer than the line keeps its own line.
+TEST_CASE("long values wrap at spaces, never inside a number", "[viewer][ui]") {
+    const auto chars = [](const std::string& t) { return float(t.size()); };  // one unit a byte
+    const std::vector<std::string> l = word_lines("right-hand, axial ratio 9.47 dB", 26, chars);
+    REQUIRE(l.size() == 2);
+    CHECK(l[0] == "right-hand, axial ratio");
+    CHECK(l[1] == "9.47 dB");
+    CHECK(word_lines("9.47", 2, chars) == std::vector<std::string>{"9.47"});
+    CHECK(word_lines("a\nb c", 10, chars) == std::vector<std::string>{"a", "b c"});
+    CHECK(word_lines("", 10, chars) == std::vector<std::string>{""});
 }
