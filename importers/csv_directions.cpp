@@ -115,6 +115,7 @@ bool exact_grid(const std::vector<Sample>& smp, const std::vector<std::size_t>& 
 // The set being filled, with what each point holds so far.
 struct Target {
     FarFieldSet* s;
+    double tolerance;  // Layout::duplicate_tolerance
     SeenPoints seen;
     std::vector<std::vector<std::size_t>> line;
 };
@@ -129,7 +130,7 @@ void allocate_target(FarFieldSet& s, Target& t) {
     }
 }
 
-// Store one point, or check a second value for it (the test of duplicate rows).
+// Store one point, or check a second value for it (same_direction_values, csv_passes.hpp).
 bool put(Target& t, std::size_t fk, std::size_t k, cplx et, cplx ep, std::size_t line, const TextSource& src, Failure& f) {
     FarField& ff = t.s->frequencies[fk];
     if (!t.seen[fk][k]) {
@@ -139,10 +140,7 @@ bool put(Target& t, std::size_t fk, std::size_t k, cplx et, cplx ep, std::size_t
         t.line[fk][k] = line;
         return true;
     }
-    const cplx a = ff.e_theta[k], b = ff.e_phi[k];
-    const double d = std::sqrt(std::norm(a - et) + std::norm(b - ep));
-    const double m = std::sqrt(std::max(std::norm(a) + std::norm(b), std::norm(et) + std::norm(ep)));
-    if (d <= 1e-3 * m || m <= 1e-6) return true;
+    if (same_direction_values(ff.e_theta[k], ff.e_phi[k], et, ep, t.tolerance)) return true;
     const Grid& g = t.s->grid;
     const int it = int(k / std::size_t(g.phi.count)), ip = int(k % std::size_t(g.phi.count));
     f = {true, line, 1,
@@ -299,6 +297,7 @@ Status place_exactly(const FarFieldSet& raw, const std::vector<Sample>& smp, con
                      const Layout& L, FarFieldSet& s, const TextSource& src, const std::string& file, bool& incomplete) {
     Target t;
     allocate_target(s, t);
+    t.tolerance = L.duplicate_tolerance;
     Failure f;
     for (std::size_t fk = 0; fk < s.frequencies.size(); ++fk)
         for (std::size_t k = 0; k < smp.size(); ++k)

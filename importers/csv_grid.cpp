@@ -247,10 +247,7 @@ Status merge_seam(const std::vector<Chunk>& chunks, FarFieldSet& s, SeenPoints& 
             seen[a.freq][a.index] = 2;
             continue;
         }
-        const cplx x = ff.e_theta[a.index], y = ff.e_phi[a.index];
-        const double d = std::sqrt(std::norm(x - a.et) + std::norm(y - a.ep));
-        const double m = std::sqrt(std::max(std::norm(x) + std::norm(y), std::norm(a.et) + std::norm(a.ep)));
-        if (d <= 1e-3 * m || m <= 1e-6) continue;
+        if (same_direction_values(ff.e_theta[a.index], ff.e_phi[a.index], a.et, a.ep, L.duplicate_tolerance)) continue;
         const int it = int(a.index / std::size_t(s.grid.phi.count)), ip = int(a.index % std::size_t(s.grid.phi.count));
         return to_error(src, file,
                         {true, a.line_offset, 1,
@@ -300,14 +297,17 @@ bool fill_poles(FarFieldSet& s, SeenPoints& seen) {
 Status check_complete(const FarFieldSet& s, const SeenPoints& seen, const Layout& L, bool lone_pole_without_phase,
                       const std::string& file) {
     const int n_phi = s.grid.phi.count;
+    const bool positioner = L.angles == AngleSystem::az_over_el || L.angles == AngleSystem::el_over_az;
     std::size_t missing = 0;
     std::string first_missing;
     for (std::size_t fk = 0; fk < s.frequencies.size(); ++fk)
         for (std::size_t k = 0; k < s.grid.size(); ++k) {
             if (seen[fk][k] || ++missing > 5) continue;
             const int it = int(k / std::size_t(n_phi)), ip = int(k % std::size_t(n_phi));
-            first_missing += (missing > 1 ? "; " : "") + std::string("theta ") + number(s.grid.theta.value_deg(it)) +
-                             ", phi " + number(wrap360(s.grid.phi.value_deg(ip))) + " deg, " +
+            // A positioner table (GridPlan::raw) is named by its own angles as written.
+            first_missing += (missing > 1 ? "; " : "") + std::string(positioner ? "elevation " : "theta ") +
+                             number(s.grid.theta.value_deg(it)) + (positioner ? ", azimuth " : ", phi ") +
+                             number(positioner ? s.grid.phi.value_deg(ip) : wrap360(s.grid.phi.value_deg(ip))) + " deg, " +
                              (L.frequency_column || L.frequency_hz ? format_frequency(s.frequencies[fk].frequency_hz)
                                                                    : "no frequency");
         }

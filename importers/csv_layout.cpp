@@ -27,9 +27,9 @@ constexpr const char* names[c_count] = {
 constexpr const char* meta_keys[] = {"quantity", "time-convention", "angle-unit",   "frequency-unit", "frequency",
                                      "ludwig3-reference", "name",   "source",       "note",
                                      "mounting-up",       "mounting-turns",         "angles",
-                                     "phase-unit",        "skip-lines"};
+                                     "phase-unit",        "skip-lines",             "duplicate-tolerance"};
 constexpr int n_file_keys = 12;
-constexpr int n_keys = 14;
+constexpr int n_keys = 15;
 // The field columns of a positioner grid, in its own unit vectors: the same roles as the
 // theta/phi columns (az-hat takes theta-hat's place, el-hat phi-hat's; pattern/positioner.hpp).
 constexpr std::pair<const char*, int> positioner_names[] = {
@@ -480,7 +480,7 @@ Status apply_settings(const std::vector<CsvSetting>& settings, std::vector<Meta>
         if (k < 0)
             return at_origin(x.origin, "the assumed metadata",
                              "expected a metadata key (quantity, time-convention, angle-unit, phase-unit, "
-                             "frequency-unit, frequency, ludwig3-reference, name, source, note, mounting-up, mounting-turns, angles, skip-lines), found " +
+                             "frequency-unit, frequency, ludwig3-reference, name, source, note, mounting-up, mounting-turns, angles, skip-lines, duplicate-tolerance), found " +
                                  text::quote_found(x.key));
         if (given[std::size_t(k)] >= 0)
             return at_origin(x.origin, "the assumed metadata",
@@ -544,6 +544,20 @@ Status mounting_value(const TextSource& src, const std::string& file, const Meta
         L.mounting.turns = *turns;
     }
     return Ok{};
+}
+
+// duplicate-tolerance: "2 %", "2%" or "0.02" (a share of the larger field vector, 0..1).
+bool tolerance_value(const std::string& text, double& out) {
+    std::string_view t = text::trim(text);
+    const bool percent = !t.empty() && t.back() == '%';
+    if (percent) t = text::trim(t.substr(0, t.size() - 1));
+    double v = 0;
+    const auto r = std::from_chars(t.data(), t.data() + t.size(), v);
+    if (r.ec != std::errc() || r.ptr != t.data() + t.size() || !std::isfinite(v)) return false;
+    if (percent) v /= 100;
+    if (!(v >= 0 && v <= 1)) return false;
+    out = v;
+    return true;
 }
 
 // The angle system (docs/far-field-csv.md, "Angle layouts"): theta-phi for theta/phi columns;
@@ -617,6 +631,8 @@ Status metadata_values(const TextSource& src, const std::string& file, const std
         else if (key == "note") L.note += (L.note.empty() ? "" : "\n") + m.value;
         else if (key == "angles") {
             if (Status st = angle_system(L, v, bad); !st) return st;
+        } else if (key == "duplicate-tolerance") {
+            if (!tolerance_value(m.value, L.duplicate_tolerance)) return bad("a share of the field from 0 to 100 %, such as 2 % or 0.02");
         } else if (Status st = mounting_value(src, file, m, key, L); !st) return st;
     }
     L.phase_to_rad = (phase_unit ? *phase_unit : L.angle_to_deg) * (pi / 180.0);

@@ -120,6 +120,7 @@ struct Layout {
     double angle_to_deg = 1.0;      // deg per angle-unit
     double phase_to_rad = pi / 180;  // rad per phase unit
     double hz_per_unit = 1.0;
+    double duplicate_tolerance = 1e-3;  // same_direction_values (csv_passes.hpp); duplicate-tolerance
     std::optional<double> frequency_hz;  // from metadata
     std::optional<Ludwig3Reference> ludwig3_reference;
     std::string name, source, note;

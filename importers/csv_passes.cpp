@@ -427,6 +427,11 @@ FieldProblem polar_field(const Layout& L, const double* v, double phi_deg, cplx&
     }
 }
 
+// The line of a point's row, where the grid stages want it (Context::lines).
+inline void note_line(Context& ctx, std::size_t fk, std::size_t k, std::size_t line_offset) {
+    if (ctx.lines) (*ctx.lines)[fk][k] = line_offset;
+}
+
 // Write one point into the arrays; a second row for a point must agree with the first (to
 // 0.1 % of the larger field, or both below 1e-6). With several workers, the seen byte is the
 // lock: 0 absent, 1 being written, 2 present.
@@ -438,7 +443,7 @@ FieldProblem polar_field(const Layout& L, const double* v, double phi_deg, cplx&
         if (seen == 0) {
             ff.e_theta[k] = et;
             ff.e_phi[k] = ep;
-            if (ctx.lines) (*ctx.lines)[fk][k] = line_offset;
+            note_line(ctx, fk, k, line_offset);
             seen = 2;
             return true;
         }
@@ -448,17 +453,14 @@ FieldProblem polar_field(const Layout& L, const double* v, double phi_deg, cplx&
         if (s.compare_exchange_strong(expected, 1, std::memory_order_acq_rel)) {
             ff.e_theta[k] = et;
             ff.e_phi[k] = ep;
-            if (ctx.lines) (*ctx.lines)[fk][k] = line_offset;
+            note_line(ctx, fk, k, line_offset);
             s.store(2, std::memory_order_release);
             return true;
         }
         // A second row for the same point: wait for the first writer, then compare.
         while (s.load(std::memory_order_acquire) != 2) std::this_thread::yield();
     }
-    const cplx a = ff.e_theta[k], b = ff.e_phi[k];
-    const double d = std::sqrt(std::norm(a - et) + std::norm(b - ep));
-    const double m = std::sqrt(std::max(std::norm(a) + std::norm(b), std::norm(et) + std::norm(ep)));
-    if (d <= 1e-3 * m || m <= 1e-6) return true;
+    if (same_direction_values(ff.e_theta[k], ff.e_phi[k], et, ep, ctx.L->duplicate_tolerance)) return true;
     c.failure = {true, line_offset, 1,
                  "expected at most one value per grid point, found a second one that differs (theta " +
                      text::number(ang[0]->value) + ", phi " + text::number(ang[1]->value) + " deg, " +

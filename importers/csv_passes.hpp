@@ -9,6 +9,7 @@
 // line; the line number is counted only when one is reported.
 #pragma once
 #include <algorithm>
+#include <cmath>
 #include <atomic>
 #include <cstdint>
 #include <cstring>
@@ -20,6 +21,16 @@
 #include "importers/csv_layout.hpp"
 
 namespace ellipsa::csv {
+
+// Two values given for one direction (a duplicate row, the phi seam, a pole at several phi, both
+// half-planes) agree when their field vectors differ by at most `tolerance` of the larger one
+// (Layout::duplicate_tolerance: 0.1 % unless `duplicate-tolerance` says otherwise), or both are
+// below 1e-6 in amplitude (-120 dB: zero field for any practical purpose).
+inline bool same_direction_values(cplx a_theta, cplx a_phi, cplx b_theta, cplx b_phi, double tolerance) {
+    const double d = std::sqrt(std::norm(a_theta - b_theta) + std::norm(a_phi - b_phi));
+    const double m = std::sqrt(std::max(std::norm(a_theta) + std::norm(a_phi), std::norm(b_theta) + std::norm(b_phi)));
+    return d <= tolerance * m || m <= 1e-6;
+}
 
 // Distinct values met while scanning, with the offset of the first line holding each.
 // A small direct-mapped cache in front of the hash map makes the common case (few distinct

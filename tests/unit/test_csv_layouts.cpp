@@ -269,6 +269,23 @@ TEST_CASE("layouts: a direction given twice must agree", "[csv][layouts]") {
     text.replace(text.find(g3), g3.size(), b3);
     e = refuse(text);
     CHECK_THAT(e.message, Contains("theta 0, phi"));
+    // A range's repeated samples differ by its noise: duplicate-tolerance widens the test (the
+    // first row read is kept). 0.1 % by default; 2 % here lets a 1 % repeat through, not 10 %.
+    text = grid_text(-180, 180, 0, 150);
+    const std::string g4 = row(0, 60), b4 = row(0, 60, 1.01);
+    text.replace(text.find(g4), g4.size(), b4);
+    refuse(text);
+    CsvReadOptions o;
+    o.settings = {{"duplicate-tolerance", "2 %", {"range.map", 4}}};
+    auto r = parse_far_field_csv(text, "t.csv", o);
+    REQUIRE(r);
+    same_samples(*r, parse(grid_text(-180, 180, 0, 150)));
+    text.replace(text.find(b4), b4.size(), row(0, 60, 1.1));
+    CHECK_FALSE(parse_far_field_csv(text, "t.csv", o));
+    o.settings = {{"duplicate-tolerance", "lots", {"range.map", 4}}};
+    r = parse_far_field_csv(text, "t.csv", o);
+    REQUIRE_FALSE(r);
+    CHECK(r.error().format() == "range.map:4: duplicate-tolerance: expected a share of the field from 0 to 100 %, such as 2 % or 0.02, found \"lots\"");
 }
 
 TEST_CASE("layouts: refusals", "[csv][layouts]") {
@@ -298,6 +315,9 @@ TEST_CASE("layouts: refusals", "[csv][layouts]") {
     CHECK_THAT(e.message, Contains("in its own unit vectors"));
     e = refuse("# angles: el-over-az\nazimuth,elevation,e_az_db,e_el_db\n0,0,1,0\n");
     CHECK_THAT(e.message, Contains("without phase the field cannot be turned"));
+    // A positioner table with a hole, named by its own angles.
+    e = refuse("# angles: el-over-az\nazimuth,elevation,e_total_db\n0,-10,0\n0,0,0\n10,-10,0\n");
+    CHECK_THAT(e.message, Contains("found 1 missing: elevation 0, azimuth 10 deg"));
     // A positioner scan that misses boresight.
     text = "# angles: az-over-el\nazimuth,elevation,e_total_db\n";
     for (int el = 30; el <= 60; el += 10)
@@ -342,4 +362,36 @@ TEST_CASE("layouts: an arc of phi across 0 is written as one run and reads back"
     REQUIRE(text);
     CHECK_THAT(*text, Contains(",30,390,"));
     same_samples(parse(*text), s);
+}
+
+TEST_CASE("layouts: a positioner scan of a region reads as the widest cone about +z inside it", "[csv][layouts]") {
+    // Azimuth over elevation, az -60..60, el -40..40 in 5-degree steps: a cone of half-angle t is
+    // inside when el = asin(sin t sin p) <= 40 and az = atan2(sin t cos p, cos t) <= 60 for every
+    // phi, so t <= 40 (common practice: the largest cap inside the scanned rectangle).
+    std::string text = "# angles: az-over-el\nazimuth,elevation,e_az_re,e_az_im,e_el_re,e_el_im\n";
+    for (int el = -40; el <= 40; el += 5)
+        for (int az = -60; az <= 60; az += 5) {
+            const PositionerFrame f = positioner_frame(PositionerGrid::az_over_el, az * deg, el * deg);
+            const CVec3 e = field_at(f.r);
+            const cplx a = dot(e, f.az_hat), b = dot(e, f.el_hat);
+            char line[200];
+            std::snprintf(line, sizeof line, "%d,%d,%.17g,%.17g,%.17g,%.17g\n", az, el, a.real(), a.imag(), b.real(), b.imag());
+            text += line;
+        }
+    const FarFieldSet s = parse(text);
+    CHECK(s.grid.theta.start_deg == 0);
+    CHECK(s.grid.theta.last_deg() == Approx(40));
+    CHECK(s.grid.phi.step_deg == Approx(5));
+    CHECK_THAT(s.reading_notes.back(), Contains("theta 0..40") && Contains("no wider cone"));
+    // The field between the scan's samples: bilinear on the Cartesian vector, second order in the
+    // 5-degree step (below 0.5 % of |E| for this field of two dipoles).
+    for (int it = 0; it < s.grid.theta.count; ++it)
+        for (int ip = 0; ip < s.grid.phi.count; ++ip) {
+            const double t = s.grid.theta.value_deg(it) * deg, p = s.grid.phi.value_deg(ip) * deg;
+            const CVec3 e = field_at(direction(t, p));
+            const std::size_t k = s.grid.index(it, ip);
+            const double d = std::hypot(std::abs(s.frequencies[0].e_theta[k] - dot(e, theta_hat(t, p))),
+                                        std::abs(s.frequencies[0].e_phi[k] - dot(e, phi_hat(p))));
+            CHECK(d < 5e-3);
+        }
 }
