@@ -4,6 +4,7 @@
 #include <iostream>
 
 #include "cli/commands.hpp"
+#include "cli/usage.hpp"
 #include "io/atomic_write.hpp"
 
 namespace ellipsa::cli {
@@ -67,12 +68,6 @@ std::string roff(const std::string& s) {
         else out += c;
     }
     if (!out.empty() && (out[0] == '.' || out[0] == '\'')) out.insert(0, "\\&");
-    return out;
-}
-
-std::string join(const std::vector<std::string>& v, const std::string& sep) {
-    std::string out;
-    for (const std::string& s : v) out += (out.empty() ? "" : sep) + s;
     return out;
 }
 

@@ -5,6 +5,7 @@
 #include <sys/stat.h>
 
 #include "cli/commands.hpp"
+#include "cli/usage.hpp"
 #include "cli/load.hpp"
 #include "importers/far_field_csv.hpp"
 
@@ -36,11 +37,11 @@ Registered add_convert(CLI::App& root) {
     sub->add_option("--family", a->family,
                     "Field columns to write: complex | theta-phi-db-phase | circular-db-phase | ludwig3-db-phase | "
                     "theta-phi-db | total-db (default: complex, or what the data allow)")
-        ->check(CLI::IsMember({"complex", "theta-phi-db-phase", "circular-db-phase", "ludwig3-db-phase",
+        ->check(one_of({"complex", "theta-phi-db-phase", "circular-db-phase", "ludwig3-db-phase",
                                "theta-phi-db", "total-db"}));
     sub->add_option("--ludwig3-reference", a->ludwig3_reference,
                     "Reference for ludwig3-db-phase: x | y (default: the input's, else x)")
-        ->check(CLI::IsMember({"x", "y"}));
+        ->check(one_of({"x", "y"}));
     sub->add_flag("--force", a->force, "Replace OUT if it exists");
     add_load_options(sub, a->load);
     // The fields stay in the file's frame; the mounting that applies (the file's, or --up and

@@ -9,6 +9,7 @@
 #include <optional>
 
 #include "cli/commands.hpp"
+#include "cli/frequency_option.hpp"
 #include "cli/json.hpp"
 #include "cli/load.hpp"
 #include "cli/number_list.hpp"
@@ -199,7 +200,7 @@ Registered add_coverage(CLI::App& root) {
     sub->add_option("--levels", a->levels, "Levels for the table, dB, comma-separated (default 0,-3,-6,-10)");
     sub->add_option("--horizon", a->horizon_deg, "Only directions within this many degrees of the horizon");
     sub->add_option("--elevation", a->elevation, "Only elevations MIN,MAX in degrees (-90..90)");
-    sub->add_option("--frequency", a->frequency_hz, "Frequency, Hz (nearest within 0.5 %; default the first)");
+    add_frequency_option(sub, a->frequency_hz, "Frequency (nearest within 0.5 %; default the middle one of the file)");
     sub->add_option("--title", a->title, "Figure title");
     sub->add_option("--size", a->size, "Image size WIDTHxHEIGHT in pixels (default 1200x900)");
     sub->add_option("--dpi", a->dpi, "Dots per inch (default 150)");

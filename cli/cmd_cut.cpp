@@ -7,6 +7,8 @@
 #include <sys/stat.h>
 
 #include "cli/commands.hpp"
+#include "cli/usage.hpp"
+#include "cli/frequency_option.hpp"
 #include "cli/format.hpp"
 #include "cli/load.hpp"
 #include "exports/cut_export.hpp"
@@ -60,11 +62,6 @@ std::string beam_line(const FarFieldSet& s, const CutSpec& spec, const Component
 int run_cut(const CutArgs& a) {
     const int chosen = int(a.phi_deg.has_value()) + int(a.theta_deg.has_value()) + int(a.through_peak);
     if (chosen != 1) return fail(exit_usage, "choose exactly one cut: --phi DEG, --theta DEG or --through-peak");
-    // CLI11's range checks let NaN through; every angle and level must be a finite number.
-    if (!std::isfinite(a.range_db)) return fail(exit_usage, "--range: expected a number of dB from 3 to 200");
-    if (a.step_deg && !std::isfinite(*a.step_deg)) return fail(exit_usage, "--step: expected 0.01..10 deg");
-    if (a.phi_deg && !std::isfinite(*a.phi_deg)) return fail(exit_usage, "--phi: expected a finite angle in deg");
-    if (a.theta_deg && !std::isfinite(*a.theta_deg)) return fail(exit_usage, "--theta: expected 0..180 deg");
     const auto format = format_from_path(a.out);
     if (!format) return fail(exit_usage, "--out " + a.out + ": expected a file name ending in .svg, .png, .pdf or .csv");
     PlotStyle style;
@@ -81,9 +78,6 @@ int run_cut(const CutArgs& a) {
     if (s->source.empty()) s->source = a.file;
     auto fi = pick_frequency(*s, a.frequency_hz, a.file);
     if (!fi) return fail(exit_bad_input, fi.error().format());
-    if (!a.frequency_hz && s->frequencies.size() > 1)
-        std::cerr << "ellipsa cut: " << a.file << " holds " << s->frequencies.size() << " frequencies; using "
-                  << format_frequency(s->frequencies[*fi].frequency_hz) << " (choose with --frequency)\n";
     for (Component c : *comps)
         if (auto why = component_unavailable(*s, c)) return fail(exit_bad_input, a.file + ": " + *why);
 
@@ -121,22 +115,24 @@ Registered add_cut(CLI::App& root) {
     CLI::App* sub = root.add_subcommand(
         "cut", "Plot one cut (polar or rectangular) as SVG, PDF or PNG, or write its values as CSV");
     sub->add_option("FILE", a->file, "Far-field CSV file")->required();
-    auto* o_phi = sub->add_option("--phi", a->phi_deg, "Elevation cut at this phi, deg (theta runs -180..180; negative = phi + 180)");
-    auto* o_theta = sub->add_option("--theta", a->theta_deg, "Conical cut at this theta, deg (90: the azimuth plane)");
+    auto* o_phi = sub->add_option("--phi", a->phi_deg, "Elevation cut at this phi, deg (theta runs -180..180; negative = phi + 180)")
+                      ->check(number_from_to(-360.0, 360.0));
+    auto* o_theta = sub->add_option("--theta", a->theta_deg, "Conical cut at this theta, deg (90: the azimuth plane)")
+                        ->check(number_from_to(0.0, 180.0));
     auto* o_peak = sub->add_flag("--through-peak", a->through_peak, "Elevation cut through the peak of the total power");
     o_phi->excludes(o_theta)->excludes(o_peak);
     o_theta->excludes(o_peak);
     sub->add_option("--components", a->components,
                     "Comma-separated: total, theta, phi, vertical, horizontal, co, cross, rhcp, lhcp (default total)");
-    sub->add_option("--style", a->style, "polar (default) or rect");
-    sub->add_option("--frequency", a->frequency_hz, "Frequency, Hz (nearest within 0.5 %; default the first)");
+    sub->add_option("--style", a->style, "polar (default) or rect")->check(one_of({"polar", "rect"}));
+    add_frequency_option(sub, a->frequency_hz, "Frequency (nearest within 0.5 %; default the middle one of the file)");
     sub->add_option("--range", a->range_db, "Dynamic range shown below the top of the scale, dB (default 40)")
-        ->check(CLI::Range(3.0, 200.0));
+        ->check(number_from_to(3.0, 200.0));
     sub->add_option("--title", a->title, "Figure title (default: the pattern's name)");
     sub->add_option("--size", a->size, "Image size WIDTHxHEIGHT in pixels (default 1200x900); SVG/PDF get the same physical size");
     sub->add_option("--dpi", a->dpi, "Dots per inch: sets the physical size and text scale (default 150)");
     sub->add_option("--step", a->step_deg, "Cut sample step, deg (default: a quarter of the grid step)")
-        ->check(CLI::Range(0.01, 10.0));
+        ->check(number_from_to(0.01, 10.0));
     sub->add_flag("--force", a->force, "Replace the output file if it exists");
     sub->add_option("--out", a->out, "Output file: .svg, .png, .pdf or .csv")->required()->type_name("FILE");
     add_load_options(sub, a->load);

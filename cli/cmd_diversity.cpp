@@ -9,6 +9,7 @@
 #include <variant>
 
 #include "cli/commands.hpp"
+#include "cli/frequency_option.hpp"
 #include "cli/environment_options.hpp"
 #include "cli/format.hpp"
 #include "cli/json.hpp"
@@ -374,7 +375,7 @@ Registered add_diversity(CLI::App& root) {
     sub->add_option("--tilt-max", a->study.sweep.tilt_max_deg, "Orientation sweep: largest tilt, deg (default 90; up to 180)");
     sub->add_option("--roll-step", a->study.sweep.roll_step_deg,
                     "Orientation sweep: roll step, deg (default 15; a multiple of the grid's phi step is exact and fast)");
-    sub->add_option("--frequency", a->study.frequency_hz, "Only this frequency, Hz (nearest within 0.5 %)");
+    add_frequency_option(sub, a->study.frequency_hz, "Only this frequency (nearest within 0.5 %; default all)");
     sub->add_option("--outage", a->study.outages,
                     "Outage probabilities of the combining figures, comma-separated fractions (default 0.01,0.1)")
         ->delimiter(',');

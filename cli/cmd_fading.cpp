@@ -11,6 +11,8 @@
 #include <thread>
 
 #include "cli/commands.hpp"
+#include "cli/usage.hpp"
+#include "cli/frequency_option.hpp"
 #include "cli/environment_options.hpp"
 #include "cli/format.hpp"
 #include "cli/json.hpp"
@@ -357,11 +359,11 @@ Registered add_fading(CLI::App& root) {
     sub->add_option("--waves", a->sim.waves, "Diffuse plane waves per realisation (default 100)");
     sub->add_option("--outage", a->sim.outages, "Outage probabilities, comma-separated fractions (default 0.01,0.1,0.5)")
         ->delimiter(',');
-    sub->add_option("--frequency", a->frequency_hz, "Use this frequency of every file, Hz (nearest within 0.5 %; default the first)");
+    add_frequency_option(sub, a->frequency_hz, "Use this frequency of every file (nearest within 0.5 %; default the middle one of each)");
     sub->add_option("--dominant", a->dominant, "Add a dominant (Rician) wave from THETA,PHI, deg (default 90,0: the horizon)");
     sub->add_option("--k-factor", a->k_factor, "Its K-factor: dominant over diffuse power, linear or in dB (\"10dB\")");
-    sub->add_option("--polarisation", a->polarisation,
-                    "Its polarisation: vertical (default), horizontal, slant+45, slant-45, rhcp, lhcp");
+    sub->add_option("--polarisation", a->polarisation, "Its polarisation (default vertical)")
+        ->check(one_of(names_of(all_wave_polarisations)));
     sub->add_option("--partner", a->partner,
                     "Its polarisation is the field this link-partner antenna file sends toward us from the --dominant direction")
         ->type_name("FILE");

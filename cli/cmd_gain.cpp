@@ -10,6 +10,7 @@
 #include "cli/commands.hpp"
 #include "cli/load.hpp"
 #include "importers/far_field_csv.hpp"
+#include "importers/frequency_text.hpp"
 #include "pattern/gain_transfer.hpp"
 
 namespace ellipsa::cli {
@@ -23,25 +24,6 @@ struct GainArgs {
     LoadOptions load;
 };
 
-// "2.45e9", "2.45GHz" or "2.45 GHz" -> Hz.
-bool parse_hz(std::string t, double& hz) {
-    while (!t.empty() && t.back() == ' ') t.pop_back();
-    double scale = 1;
-    for (auto [u, k] : {std::pair{"GHz", 1e9}, {"MHz", 1e6}, {"kHz", 1e3}, {"Hz", 1.0}}) {
-        const std::string us(u);
-        if (t.size() > us.size() && t.compare(t.size() - us.size(), us.size(), us) == 0) {
-            t.resize(t.size() - us.size());
-            scale = k;
-            break;
-        }
-    }
-    char* end = nullptr;
-    const double v = std::strtod(t.c_str(), &end);
-    while (end && *end == ' ') ++end;
-    hz = v * scale;
-    return end && end != t.c_str() && *end == 0 && std::isfinite(hz) && hz > 0;
-}
-
 // --reference-gain: "G" for every frequency, or "F=G,F=G" per frequency.
 Result<std::vector<std::pair<std::optional<double>, double>>> parse_gains(const std::string& text) {
     std::vector<std::pair<std::optional<double>, double>> out;
@@ -51,11 +33,10 @@ Result<std::vector<std::pair<std::optional<double>, double>>> parse_gains(const 
         const std::string item = text.substr(pos, comma - pos);
         const std::size_t eq = item.find('=');
         std::optional<double> f;
-        double hz = 0;
         if (eq != std::string::npos) {
-            if (!parse_hz(item.substr(0, eq), hz))
-                return Error{"--reference-gain", 0, 0, "expected a frequency (2.45e9, 2.45GHz) before '=', found \"" + item.substr(0, eq) + "\""};
-            f = hz;
+            auto hz = parse_frequency_text(item.substr(0, eq));
+            if (!hz) return Error{"--reference-gain", 0, 0, "before '=': " + hz.error().message};
+            f = *hz;
         }
         const std::string g = eq == std::string::npos ? item : item.substr(eq + 1);
         char* end = nullptr;

@@ -6,6 +6,7 @@
 
 #include "cli/band_text.hpp"
 #include "cli/commands.hpp"
+#include "cli/frequency_option.hpp"
 #include "cli/format.hpp"
 #include "cli/info_json.hpp"
 #include "cli/json.hpp"
@@ -95,7 +96,7 @@ Registered add_info(CLI::App& root) {
     auto a = std::make_shared<InfoArgs>();
     CLI::App* sub = root.add_subcommand("info", "Summarise a pattern file: peak, directivity, beamwidths, polarisation");
     sub->add_option("FILE", a->file, "Far-field CSV file")->required();
-    sub->add_option("--frequency", a->frequency_hz, "Only this frequency, Hz (nearest within 0.5 %)");
+    add_frequency_option(sub, a->frequency_hz, "Only this frequency (nearest within 0.5 %; default all)");
     sub->add_flag("--json", a->json, "Print one JSON object instead of the human summary");
     add_load_options(sub, a->load);
     return {sub, [a]() -> int {

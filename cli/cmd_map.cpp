@@ -8,6 +8,8 @@
 #include <optional>
 
 #include "cli/commands.hpp"
+#include "cli/usage.hpp"
+#include "cli/frequency_option.hpp"
 #include "cli/load.hpp"
 #include "cli/number_list.hpp"
 #include "exports/map_plot.hpp"
@@ -19,6 +21,16 @@ namespace ellipsa::cli {
 namespace {
 
 using namespace ellipsa::exports;
+
+// The values of --show: a component, or a map quantity other than those two.
+std::vector<std::string> show_names() {
+    std::vector<std::string> out = names_of(all_components);
+    for (const std::string& q : names_of(all_map_quantities, +[](MapQuantity q) {
+             return q != MapQuantity::component && q != MapQuantity::difference;
+         }))
+        out.push_back(q);
+    return out;
+}
 
 struct MapArgs {
     std::string file, out, show = "total", minus, projection = "hammer", levels, scale, colormap = "viridis", title;
@@ -41,17 +53,16 @@ Result<MapRequest> request_of(const MapArgs& a) {
     if (!parse_component(a.show.c_str(), r.component)) {
         if (!parse_map_quantity(a.show.c_str(), r.quantity) || r.quantity == MapQuantity::component ||
             r.quantity == MapQuantity::difference)
-            return Error{"", 0, 0, "--show: expected a component (total, theta, phi, vertical, horizontal, co, cross, rhcp, "
-                                   "lhcp) or axial-ratio, rhcp-minus-lhcp, v-minus-h, tilt; found \"" + a.show + "\""};
+            return Error{"", 0, 0, "--show: expected one of " + join(show_names(), ", ") + "; found \"" + a.show + "\""};
     }
     if (!a.minus.empty()) {
         if (r.quantity != MapQuantity::component) return Error{"", 0, 0, "--minus: a difference map needs a component for --show"};
         r.quantity = MapQuantity::difference;
     }
     if (!parse_map_projection(a.projection.c_str(), r.projection))
-        return Error{"", 0, 0, "--projection: expected hammer, theta-phi or az-el; found \"" + a.projection + "\""};
+        return Error{"", 0, 0, "--projection: expected one of " + join(names_of(all_map_projections), ", ") + "; found \"" + a.projection + "\""};
     if (!parse_color_map(a.colormap, r.sequential) || !is_sequential(r.sequential))
-        return Error{"", 0, 0, "--colormap: expected viridis, cividis or magma; found \"" + a.colormap + "\""};
+        return Error{"", 0, 0, "--colormap: expected one of " + join(names_of(all_color_maps, is_sequential), ", ") + "; found \"" + a.colormap + "\""};
     if (!a.levels.empty()) {
         r.levels = parse_number_list(a.levels, true);
         if (!r.levels) return Error{"", 0, 0, "--levels: expected numbers separated by commas, or none; found \"" + a.levels + "\""};
@@ -80,9 +91,6 @@ int run_map(const MapArgs& a) {
     if (!s) return fail(exit_bad_input, s.error().format());
     auto fi = pick_frequency(*s, a.frequency_hz, a.file);
     if (!fi) return fail(exit_bad_input, fi.error().format());
-    if (!a.frequency_hz && s->frequencies.size() > 1)
-        std::cerr << "ellipsa map: " << a.file << " holds " << s->frequencies.size() << " frequencies; using "
-                  << format_frequency(s->frequencies[*fi].frequency_hz) << " (choose with --frequency)\n";
     std::optional<FarFieldSet> b;
     std::size_t fb = 0;
     if (!a.minus.empty()) {
@@ -118,17 +126,18 @@ Registered add_map(CLI::App& root) {
     sub->add_option("--out", a->out, "Output file: .svg, .png, .pdf (the map) or .csv (the mapped values)")
         ->required()
         ->type_name("FILE");
-    sub->add_option("--show", a->show,
-                    "What to map: a component (total, theta, phi, vertical, horizontal, co, cross, rhcp, lhcp) or "
-                    "axial-ratio, rhcp-minus-lhcp, v-minus-h, tilt (default total)");
+    sub->add_option("--show", a->show, "What to map: a component, or the axial ratio, a balance or the tilt (default total)")
+        ->check(one_of(show_names()));
     sub->add_option("--minus", a->minus, "Second pattern B: map the shown component of FILE minus B (dB)")
         ->type_name("FILE");
-    sub->add_option("--projection", a->projection, "hammer (equal-area, default), theta-phi or az-el");
+    sub->add_option("--projection", a->projection, "Map projection: hammer (equal-area, default), theta-phi or az-el")
+        ->check(one_of(names_of(all_map_projections)));
     sub->add_option("--levels", a->levels, "Contour levels in the map's unit, comma-separated, or none");
     sub->add_option("--bar", a->scale, "Colour bar ends MIN,MAX in the map's unit");
     sub->add_option("--range", a->range_db, "Component maps: colour bar span below the peak, dB (default 40)");
-    sub->add_option("--colormap", a->colormap, "Sequential colour map: viridis (default), cividis or magma");
-    sub->add_option("--frequency", a->frequency_hz, "Frequency, Hz (nearest within 0.5 %; default the first)");
+    sub->add_option("--colormap", a->colormap, "Sequential colour map (default viridis)")
+        ->check(one_of(names_of(all_color_maps, is_sequential)));
+    add_frequency_option(sub, a->frequency_hz, "Frequency (nearest within 0.5 %; default the middle one of the file)");
     sub->add_option("--title", a->title, "Figure title (default: the pattern's name)");
     sub->add_option("--size", a->size, "Image size WIDTHxHEIGHT in pixels (default 1200x720)");
     sub->add_option("--dpi", a->dpi, "Dots per inch (default 150)");

@@ -6,6 +6,8 @@
 #include <optional>
 
 #include "cli/commands.hpp"
+#include "cli/usage.hpp"
+#include "cli/frequency_option.hpp"
 #include "cli/format.hpp"
 #include "cli/json.hpp"
 #include "cli/load.hpp"
@@ -31,16 +33,6 @@ std::optional<double> db_or_null(double linear, bool available) {
     double d = to_db(linear);
     if (!std::isfinite(d)) return std::nullopt;  // zero field: no finite dB value
     return d;
-}
-
-// CLI11's range checks let NaN through: every angle and the frequency must be finite numbers
-// (usage errors, exit 2, as for the other commands). Null when they are.
-const char* bad_direction(const ProbeArgs& a) {
-    if (!(a.theta_deg >= 0 && a.theta_deg <= 180)) return "--theta: expected 0..180 deg";
-    if (!std::isfinite(a.phi_deg)) return "--phi: expected a finite angle in deg";
-    if (a.frequency_hz && !(std::isfinite(*a.frequency_hz) && *a.frequency_hz >= 0))
-        return "--frequency: expected a finite frequency in Hz";
-    return nullptr;
 }
 
 // What the set can give at this direction: parts (theta/phi) and phase-bound figures.
@@ -121,27 +113,18 @@ Registered add_probe(CLI::App& root) {
     auto a = std::make_shared<ProbeArgs>();
     CLI::App* sub = root.add_subcommand("probe", "Every component, axial ratio, tilt, sense and Stokes at one direction");
     sub->add_option("FILE", a->file, "Far-field CSV file")->required();
-    sub->add_option("--theta", a->theta_deg, "Theta, deg from +z (0..180)")->required()->check(CLI::Range(0.0, 180.0));
-    sub->add_option("--phi", a->phi_deg, "Phi, deg from +x toward +y")->required();
-    sub->add_option("--frequency", a->frequency_hz, "Frequency, Hz (needed when the file holds several)");
+    sub->add_option("--theta", a->theta_deg, "Theta, deg from +z (0..180)")->required()->check(number_from_to(0.0, 180.0));
+    sub->add_option("--phi", a->phi_deg, "Phi, deg from +x toward +y (-360..360)")->required()->check(number_from_to(-360.0, 360.0));
+    add_frequency_option(sub, a->frequency_hz, "Frequency (nearest within 0.5 %; default the middle one of the file)");
     sub->add_option("--ludwig3", a->ludwig3, "Ludwig-3 reference for co/cross: x or y (default: the file's, else x)")
-        ->check(CLI::IsMember({"x", "y"}));
+        ->check(one_of({"x", "y"}));
     sub->add_flag("--json", a->json, "Print one JSON object");
     add_load_options(sub, a->load);
     return {sub, [a]() -> int {
-                if (const char* why = bad_direction(*a)) {
-                    std::cerr << "ellipsa probe: " << why << "\n";
-                    return exit_usage;
-                }
                 auto s = load_pattern(a->file, a->load);
                 if (!s) {
                     std::cerr << "ellipsa probe: " << s.error().format() << "\n";
                     return exit_bad_input;
-                }
-                if (!a->frequency_hz && s->frequencies.size() > 1) {
-                    std::cerr << "ellipsa probe: " << a->file << " holds " << s->frequencies.size()
-                              << " frequencies; choose one with --frequency\n";
-                    return exit_usage;
                 }
                 auto fi = pick_frequency(*s, a->frequency_hz, a->file);
                 if (!fi) {

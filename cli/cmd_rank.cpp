@@ -9,6 +9,7 @@
 #include <variant>
 
 #include "cli/commands.hpp"
+#include "cli/frequency_option.hpp"
 #include "cli/environment_options.hpp"
 #include "cli/json.hpp"
 #include "cli/load.hpp"
@@ -276,7 +277,7 @@ Registered add_rank(CLI::App& root) {
                     "mounted (default: fading level as mounted = MEG), random (with random orientation) or worst "
                     "(worst orientation): each as the mean advantage over the reference across the environments, dB");
     sub->add_option("--outage", a->rank.outage, "Outage probability of the fading levels (default 0.01)");
-    sub->add_option("--frequency", a->frequency_hz, "Use this frequency of every file, Hz (nearest within 0.5 %; default the first)");
+    add_frequency_option(sub, a->frequency_hz, "Use this frequency of every file (nearest within 0.5 %; default the middle one of each)");
     sub->add_option("--tilt-step", a->rank.sweep.tilt_step_deg, "Orientation sweep: tilt step, deg (default 15)");
     sub->add_option("--tilt-max", a->rank.sweep.tilt_max_deg, "Orientation sweep: largest tilt, deg (default 180: every orientation)");
     sub->add_option("--roll-step", a->rank.sweep.roll_step_deg, "Orientation sweep: roll step, deg (default 15)");

@@ -6,7 +6,12 @@
 #include <optional>
 
 #include "cli/commands.hpp"
+#include "cli/usage.hpp"
+#include "cli/frequency_option.hpp"
 #include "cli/load.hpp"
+#include "pattern/colormap.hpp"
+#include "pattern/components.hpp"
+#include "viewer/scene/components.hpp"
 #include "viewer/scene/surface_mesh.hpp"
 #include "viewer/exports_ui.hpp"
 #include "viewer/snapshot.hpp"
@@ -53,16 +58,17 @@ Registered add_render(CLI::App& root) {
     sub->add_option("--out", a->out, "Output file: .png (a snapshot), .glb (glTF 2.0 binary) or .ply (the surface as a 3D file)")
         ->required()
         ->type_name("FILE");
-    sub->add_option("--component", a->component,
-                    "Radius from: total, theta, phi, vertical, horizontal, co, cross, rhcp, lhcp (default total)");
-    sub->add_option("--color-by", a->color_by,
-                    "Colour by: component, axial-ratio, rhcp-minus-lhcp, tilt (default component)");
+    sub->add_option("--component", a->component, "Radius from this component (default total)")
+        ->check(one_of(names_of(all_components)));
+    sub->add_option("--color-by", a->color_by, "Colour by (default component)")
+        ->check(one_of(names_of(viewer::all_color_by, +[](viewer::ColorBy c) { return c != viewer::ColorBy::difference; })));
     sub->add_option("--view", a->view, "Eye direction AZ,EL in degrees (azimuth from +x toward +y, elevation above xy; default 35,22)");
     sub->add_option("--size", a->size, "Image size WxH in pixels (default 1200x900)");
-    sub->add_option("--frequency", a->frequency_hz, "Frequency, Hz (nearest within 0.5 %; default the first)");
+    add_frequency_option(sub, a->frequency_hz, "Frequency (nearest within 0.5 %; default the middle one of the file)");
     sub->add_option("--range", a->range_db, "Dynamic range below the peak shown by the radius, dB (default 30)")
-        ->check(CLI::Range(1.0, 200.0));
-    sub->add_option("--colormap", a->map, "Sequential colour map for gain: viridis, cividis, magma (default viridis)");
+        ->check(number_from_to(1.0, 200.0));
+    sub->add_option("--colormap", a->map, "Sequential colour map for gain (default viridis)")
+        ->check(one_of(names_of(all_color_maps, is_sequential)));
     sub->add_flag("--glyphs", a->glyphs, "Draw polarisation ellipses on the surface");
     sub->add_flag("--software", a->software, "Force Mesa's software renderer");
     sub->add_flag("--force", a->force, "Overwrite an existing output file");

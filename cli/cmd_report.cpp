@@ -9,6 +9,8 @@
 #include <optional>
 
 #include "cli/commands.hpp"
+#include "cli/usage.hpp"
+#include "cli/frequency_option.hpp"
 #include "cli/environment_options.hpp"
 #include "cli/load.hpp"
 #include "cli/version.hpp"
@@ -125,12 +127,12 @@ Registered add_report(CLI::App& root) {
         "report", "Write a report folder (index.html + report.md): figures, principal cuts, comparison");
     sub->add_option("FILE", a->files, "Far-field CSV files (one or more)")->required();
     sub->add_option("--out", a->out, "Output folder (created; replaced only with --force)")->required()->type_name("FOLDER");
-    sub->add_option("--frequency", a->frequency_hz, "Only this frequency, Hz (nearest within 0.5 %; default all)");
+    add_frequency_option(sub, a->frequency_hz, "Only this frequency (nearest within 0.5 %; default all)");
     sub->add_option("--title", a->title, "Report title");
     sub->add_option("--size", a->size, "Cut figure size WIDTHxHEIGHT in pixels (default 1200x900)");
     sub->add_option("--dpi", a->dpi, "Dots per inch of the figures (default 150)");
-    sub->add_option("--range", a->range_db, "Dynamic range of the cut plots, dB (default 40)")->check(CLI::Range(3.0, 200.0));
-    sub->add_option("--style", a->style, "Cut figures: polar (default) or rect");
+    sub->add_option("--range", a->range_db, "Dynamic range of the cut plots, dB (default 40)")->check(number_from_to(3.0, 200.0));
+    sub->add_option("--style", a->style, "Cut figures: polar (default) or rect")->check(one_of({"polar", "rect"}));
     add_environment_options(sub, a->environment);
     sub->add_flag("--force", a->force, "Replace the output folder if it exists");
     add_load_options(sub, a->load);

@@ -4,6 +4,8 @@
 #include <memory>
 
 #include "cli/commands.hpp"
+#include "cli/usage.hpp"
+#include "cli/frequency_option.hpp"
 #include "importers/far_field_csv.hpp"
 #include "pattern/reference.hpp"
 
@@ -31,11 +33,11 @@ Registered add_synth(CLI::App& root) {
         "synth", "Write a closed-form reference antenna (Balanis ch. 4-5 formulas) as a far-field CSV");
     sub->add_option("KIND", a->kind, "short-dipole | dipole | small-loop | loop | crossed-dipoles")
         ->required()
-        ->check(CLI::IsMember({"short-dipole", "dipole", "small-loop", "loop", "crossed-dipoles"}));
+        ->check(one_of({"short-dipole", "dipole", "small-loop", "loop", "crossed-dipoles"}));
     sub->add_option("--length", a->length_wl, "Dipole length in wavelengths (dipole; default 0.5)")
-        ->check(CLI::Range(1e-6, 50.0));
+        ->check(number_from_to(1e-6, 50.0));
     sub->add_option("--circumference", a->circumference_wl, "Loop circumference in wavelengths (loop; default 1)")
-        ->check(CLI::Range(1e-6, 100.0));
+        ->check(number_from_to(1e-6, 100.0));
     sub->add_option("--phase", a->phase_deg,
                     "Crossed dipoles: phase of the y current against the x current, deg "
                     "(default -90: right-hand circular toward +z)");
@@ -43,9 +45,9 @@ Registered add_synth(CLI::App& root) {
     sub->add_option("--rotate-y", a->ry, "Then about y, deg");
     sub->add_option("--rotate-z", a->rz, "Then about z, deg");
     sub->add_option("--step", a->step_deg, "Grid step in theta and phi, deg; must divide 180 (default 1)")
-        ->check(CLI::Range(0.05, 90.0));
-    sub->add_option("--frequency", a->frequency_hz, "Frequency written to the file, Hz (default 2.45e9)")
-        ->check(CLI::PositiveNumber);
+        ->check(number_from_to(0.05, 90.0));
+    add_frequency_option(sub, a->frequency_hz, "Frequency written to the file (default 2.45 GHz)")
+        ->check(positive_number());
     sub->add_option("--name", a->name, "Name stored in the file (default: the kind)");
     sub->add_option("--out", a->out, "Output CSV file")->required()->type_name("FILE");
     sub->add_flag("--force", a->force, "Replace the output file if it exists");

@@ -3,8 +3,11 @@
 #include <memory>
 
 #include "cli/commands.hpp"
+#include "cli/usage.hpp"
+#include "cli/frequency_option.hpp"
 #include "cli/load.hpp"
 #include "viewer/app.hpp"
+#include "pattern/components.hpp"
 #include "viewer/scene/components.hpp"
 #include "viewer/state/app_state.hpp"
 #include <iterator>
@@ -81,12 +84,13 @@ Registered add_view(CLI::App& root) {
     sub->add_option("FILE", a->files, "Far-field CSV files, each may carry its own options (FILE::map=...); default: the bundled examples");
     sub->add_flag("--software", a->software, "Force Mesa's software renderer (llvmpipe)");
     sub->add_option("--size", a->size, "Window size WxH in pixels (default: as last time, first 1280x800)");
-    sub->add_option("--frames", a->frames, "Run this many frames and exit")->check(CLI::Range(1, 1000000));
+    sub->add_option("--frames", a->frames, "Run this many frames and exit")->check(number_from_to(1, 1000000));
     sub->add_option("--screenshot", a->screenshot, "With --frames: write the last frame to this PNG")->type_name("FILE");
     sub->add_flag("--frame-stats", a->frame_stats,
                   "Print one JSON line {\"frames\", \"median_ms\", \"p95_ms\"} at exit (vsync off)");
-    sub->add_option("--component", a->component, "Start with this component as the radius (total, theta, ..., rhcp, lhcp)");
-    sub->add_option("--color-by", a->color_by, "Start with this colouring (component, axial-ratio, rhcp-minus-lhcp, tilt, difference)");
+    sub->add_option("--component", a->component, "Start with this component as the radius")
+        ->check(one_of(names_of(all_components)));
+    sub->add_option("--color-by", a->color_by, "Start with this colouring")->check(one_of(names_of(viewer::all_color_by)));
     sub->add_option("--compare", a->compare, "Start comparing with FILE number N (1-based) as B");
     sub->add_option("--pin", a->pin, "Start with THETA,PHI (deg) pinned, and the cut through it");
     sub->add_option("--view", a->view, "Start looking from AZ,EL (deg)");
@@ -96,13 +100,13 @@ Registered add_view(CLI::App& root) {
         ->type_name("FILE");
     sub->add_option("--export-cut", a->export_cut, "With --frames: write the cut of the last frame (.svg, .png, .pdf or .csv)")
         ->type_name("FILE");
-    sub->add_option("--cut-style", a->cut_style, "Start with a polar or rect cut plot")->check(CLI::IsMember({"polar", "rect"}));
+    sub->add_option("--cut-style", a->cut_style, "Start with a polar or rect cut plot")->check(one_of({"polar", "rect"}));
     sub->add_flag("--translucent", a->translucent, "Start with a translucent surface");
     sub->add_flag("--diversity", a->diversity, "Start with the diversity panel open (MEG, ECC, orientation curve)");
     sub->add_flag("--band", a->band, "Start with the figures-against-frequency panel open");
-    sub->add_option("--frequency", a->frequency_hz, "Start at this frequency, Hz (the first file's nearest within 0.5 %)");
+    add_frequency_option(sub, a->frequency_hz, "Start at this frequency (the first file's nearest within 0.5 %; default its first)");
     sub->add_option("--tab", a->tab, "Start with this panel in front: patterns, surface (left column of a narrow window), cut, probe, polarisation (plot strip of a narrow window), diversity, band, map (the 2D map)")
-        ->check(CLI::IsMember(std::vector<std::string>(std::begin(viewer::tab_names), std::end(viewer::tab_names))));
+        ->check(one_of(std::vector<std::string>(std::begin(viewer::tab_names), std::end(viewer::tab_names))));
     sub->add_flag("--force", a->force, "Replace the files of --screenshot, --export-view and --export-cut if they exist");
     add_load_options(sub, a->load);
     return {sub, [a]() -> int {

@@ -3,6 +3,7 @@
 #include <cmath>
 #include <cstdlib>
 
+#include "cli/usage.hpp"
 #include "importers/elevation_profile_csv.hpp"
 
 namespace ellipsa::cli {
@@ -25,7 +26,7 @@ void add_environment_options(CLI::App* sub, EnvironmentOptions& o) {
     sub->add_option("--profile-measure", o.profile_measure,
                     "How the table's values are meant: solid-angle (per steradian, default) or elevation "
                     "(per unit elevation, summed over azimuth)")
-        ->check(CLI::IsMember({"solid-angle", "elevation"}));
+        ->check(one_of({"solid-angle", "elevation"}));
 }
 
 bool parse_xpr_db(const std::string& s, double& db) {

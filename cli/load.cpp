@@ -224,8 +224,14 @@ Result<FarFieldSet> load_pattern(const std::string& arg, const LoadOptions& o) {
 
 Result<std::size_t> pick_frequency(const FarFieldSet& s, const std::optional<double>& f, const std::string& path) {
     if (s.frequencies.empty()) return Error{path, 0, 0, "holds no frequency"};
-    if (!f) return std::size_t(0);  // the only one; callers that handle every frequency ignore this
-    return find_frequency(s, *f, path);
+    if (f) return find_frequency(s, *f, path);
+    const std::size_t n = s.frequencies.size(), middle = (n - 1) / 2;
+    if (n > 1)
+        std::fprintf(stderr, "ellipsa: %s holds %zu frequencies (%s to %s); using the middle one, %s (choose with --frequency)\n",
+                     path.c_str(), n, format_frequency(s.frequencies.front().frequency_hz).c_str(),
+                     format_frequency(s.frequencies.back().frequency_hz).c_str(),
+                     format_frequency(s.frequencies[middle].frequency_hz).c_str());
+    return middle;
 }
 
 }  // namespace ellipsa::cli

@@ -63,8 +63,12 @@ Result<PreparedLoad> prepare_load(const std::string& arg, const LoadOptions& o);
 // on a terminal for long loads, and a map file found beside the file is named there.
 Result<FarFieldSet> load_pattern(const std::string& arg, const LoadOptions& o);
 
-// The frequency index asked for (nearest within 0.5 %), or the only one; an Error lists what
-// the file holds when no frequency matches.
+// The one rule for the frequency of a command whose output holds one frequency (cut, map,
+// probe, coverage, fading, rank, render; docs/guide.md, "Which frequency"): the one asked for
+// (nearest within 0.5 %; an Error lists what the file holds when none matches), else the only
+// one, else the middle one of the file's list (of an even count the lower of the two middle
+// ones), named in a note on stderr. Commands whose output holds every frequency (info, band,
+// diversity, report, convert, gain-transfer) use them all instead.
 Result<std::size_t> pick_frequency(const FarFieldSet& s, const std::optional<double>& frequency_hz,
                                    const std::string& path);
 

@@ -2,10 +2,12 @@
 #include <algorithm>
 #include <cstdio>
 #include <iostream>
+#include <sstream>
 #include <vector>
 
 #include "cli/cli_docs.hpp"
 #include "cli/commands.hpp"
+#include "cli/usage.hpp"
 #include "cli/version.hpp"
 
 using namespace ellipsa::cli;
@@ -38,7 +40,8 @@ int main(int argc, char** argv) {
     } catch (const CLI::CallForAllHelp& e) {
         return app.exit(e);
     } catch (const CLI::ParseError& e) {
-        std::cerr << "ellipsa: " << e.what() << "\n";
+        std::stringstream lines(usage_message(app, e));
+        for (std::string line; std::getline(lines, line);) std::cerr << "ellipsa: " << line << "\n";
         std::cerr << "Run 'ellipsa --help' (or 'ellipsa COMMAND --help') for usage.\n";
         return exit_usage;
     }

@@ -9,6 +9,7 @@
 #include <utility>
 
 #include "importers/csv_number.hpp"
+#include "importers/frequency_text.hpp"
 #include "importers/text.hpp"
 
 namespace ellipsa::csv {
@@ -75,16 +76,6 @@ std::string origin_text(const CsvOrigin& o, const char* unnamed) {
 Error at_origin(const CsvOrigin& o, const char* unnamed, std::string msg) {
     if (o.name.empty()) return Error{"", 0, 0, std::string(unnamed) + ": " + msg};
     return Error{o.name, o.line, 0, std::move(msg)};
-}
-
-bool parse_unit_hz(std::string_view u, double& hz) {
-    const std::string l = text::lower(text::trim(u));
-    if (l == "hz") hz = 1;
-    else if (l == "khz") hz = 1e3;
-    else if (l == "mhz") hz = 1e6;
-    else if (l == "ghz") hz = 1e9;
-    else return false;
-    return true;
 }
 
 // ---- Stage: head (metadata lines up to the header line) ----
@@ -514,21 +505,9 @@ Status frequency_value(const TextSource& src, const std::string& file, const Met
         return bad("frequency: expected either a frequency column or a frequency metadata line, found both (column " +
                    std::to_string(L.header_column[std::size_t(L.column_of[c_frequency])]) + " of line " +
                    std::to_string(L.header_line) + ")");
-    const std::string_view t = m.value;
-    const std::size_t end = t.find_first_of(" \t");
-    const std::string_view num = t.substr(0, end), unit = end == std::string_view::npos ? "" : text::trim(t.substr(end));
-    double f = 0, hz = L.hz_per_unit;
-    NumberStatus st;
-    const char* q = parse_number_cell(num.data(), num.data() + num.size(), ';', true, f, st);
-    const std::string overflow = "frequency: expected a frequency within the range of numbers (about 1.8e308 Hz), found " +
-                                 text::quote_found(m.value) + ", which overflows";
-    if (st == NumberStatus::overflow) return bad(overflow);
-    if (st != NumberStatus::ok || q != num.data() + num.size() || !std::isfinite(f) || f < 0 ||
-        (!unit.empty() && !parse_unit_hz(unit, hz)))
-        return bad("frequency: expected a number >= 0, optionally with Hz, kHz, MHz or GHz, found " +
-                   text::quote_found(m.value));
-    if (!std::isfinite(f * hz)) return bad(overflow);
-    L.frequency_hz = f * hz;
+    auto f = parse_frequency_text(m.value, L.hz_per_unit, true);
+    if (!f) return bad("frequency: " + f.error().message);
+    L.frequency_hz = *f;
     return Ok{};
 }
 
@@ -620,7 +599,9 @@ Status metadata_values(const TextSource& src, const std::string& file, const std
             if (key == "angle-unit") L.angle_to_deg = deg_per_unit;
             else phase_unit = deg_per_unit;
         } else if (key == "frequency-unit") {
-            if (!parse_unit_hz(m.value, L.hz_per_unit)) return bad("Hz, kHz, MHz or GHz");
+            auto hz = frequency_unit_hz(m.value);
+            if (!hz) return bad(frequency_units_text);
+            L.hz_per_unit = *hz;
         } else if (key == "frequency") {
             freq = &m;
         } else if (key == "ludwig3-reference") {

@@ -41,6 +41,9 @@ namespace ellipsa {
 // turns clockwise looking along the direction of propagation). Slant: +45 deg from vertical toward
 // horizontal (theta-hat + phi-hat) / sqrt 2, and -45 deg.
 enum class WavePolarisation { vertical, horizontal, slant_plus, slant_minus, rhcp, lhcp };
+inline constexpr WavePolarisation all_wave_polarisations[] = {WavePolarisation::vertical,    WavePolarisation::horizontal,
+                                                             WavePolarisation::slant_plus,  WavePolarisation::slant_minus,
+                                                             WavePolarisation::rhcp,        WavePolarisation::lhcp};
 const char* to_string(WavePolarisation p);
 bool parse_wave_polarisation(const std::string& name, WavePolarisation& out);
 

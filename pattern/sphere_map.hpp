@@ -35,6 +35,9 @@ enum class MapQuantity {
     tilt,              // tilt of the major axis from theta-hat toward phi-hat, deg in (-90, 90]
     difference         // A minus B of one component, dB
 };
+inline constexpr MapQuantity all_map_quantities[] = {MapQuantity::component, MapQuantity::axial_ratio,
+                                                     MapQuantity::circular_balance, MapQuantity::linear_balance,
+                                                     MapQuantity::tilt, MapQuantity::difference};
 const char* to_string(MapQuantity q);  // "component", "axial-ratio", "rhcp-minus-lhcp", "v-minus-h", "tilt", "difference"
 bool parse_map_quantity(const char* name, MapQuantity& out);
 bool map_quantity_needs_phase(MapQuantity q);
@@ -47,6 +50,8 @@ Result<std::vector<double>> map_values(const FarFieldSet& s, std::size_t fi, Map
                                        const FarFieldSet* b = nullptr, std::size_t fb = 0);
 
 enum class MapProjection { theta_phi, azimuth_elevation, hammer };
+inline constexpr MapProjection all_map_projections[] = {MapProjection::hammer, MapProjection::theta_phi,
+                                                       MapProjection::azimuth_elevation};
 const char* to_string(MapProjection p);  // "theta-phi", "az-el", "hammer"
 bool parse_map_projection(const char* name, MapProjection& out);
 

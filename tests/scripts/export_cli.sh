@@ -94,7 +94,7 @@ for o in "--range nan" "--step nan" "--dpi nan"; do
   expect_rc 2 "$o is bad usage" "$E" cut d.csv --theta 90 $o --out u.svg
 done
 expect_rc 2 "--phi nan is bad usage" "$E" cut d.csv --phi nan --out u.svg
-grep -q -- '--phi: expected a finite angle' err.txt && ok "message: $(head -1 err.txt)" || bad "message: $(cat err.txt)"
+grep -q -- '--phi: expected a number from -360 to 360, found "nan"' err.txt && ok "message: $(head -1 err.txt)" || bad "message: $(cat err.txt)"
 expect_rc 1 "missing input file is bad input" "$E" cut nope.csv --phi 0 --out u.svg
 [[ ! -e u.svg ]] && ok "nothing written on errors" || bad "u.svg written despite errors"
 

@@ -1,0 +1,44 @@
+// Usage errors as people can act on them (exit 2, cli/commands.hpp): a mistyped command or option
+// gets the closest names ("did you mean 'info'?"), stray arguments are listed in the order given,
+// and number checks say "from 0 to 180" with the numbers as people write them.
+#pragma once
+#include <string>
+#include <vector>
+
+#include <CLI/CLI.hpp>
+
+namespace ellipsa::cli {
+
+// The candidates closest to `word` by edit distance (optimal string alignment: insertions,
+// deletions, substitutions and swaps of neighbours), when close: at most 2 edits and fewer than
+// half of the word's letters; the nearest ones only, in the candidates' order.
+std::vector<std::string> closest_names(const std::string& word, const std::vector<std::string>& candidates);
+
+// The message for a parse error of `root` (the app that threw, after its parse): what was not
+// expected, with suggestions; other errors as CLI11 words them.
+std::string usage_message(const CLI::App& root, const CLI::ParseError& e);
+
+// Number checks with messages in plain numbers ("expected a number from 0 to 180, found 200");
+// NaN and infinities are refused by all of them.
+CLI::Validator number_from_to(double lo, double hi);
+CLI::Validator positive_number();
+CLI::Validator finite_number();
+
+// One of `names` (exact): the description "{a,b,c}" puts the choices in --help, the manual pages
+// and the completions (cli/cli_docs.hpp); a wrong value gets the closest names as suggestions.
+CLI::Validator one_of(std::vector<std::string> names);
+
+// The items with `sep` between them.
+std::string join(const std::vector<std::string>& items, const std::string& sep);
+
+// The names of an enumeration's values (to_string of each) from its list of all values, the ones
+// `keep` accepts when given.
+template <class E, std::size_t N>
+std::vector<std::string> names_of(const E (&all)[N], bool (*keep)(E) = nullptr) {
+    std::vector<std::string> out;
+    for (E e : all)
+        if (!keep || keep(e)) out.push_back(to_string(e));
+    return out;
+}
+
+}  // namespace ellipsa::cli
