@@ -21,7 +21,7 @@ std::optional<double> frequency_unit_hz(std::string_view unit) {
 namespace {
 
 std::string expected_frequency(std::string_view found) {
-    return std::string("expected a frequency: a number >= 0, optionally with a unit (") + frequency_units_text +
+    return std::string("expected a number >= 0, optionally with a unit (") + frequency_units_text +
            "), as 2.45e9, 2.45GHz or 2450 MHz; found " + text::quote_found(found);
 }
 
@@ -38,7 +38,8 @@ Result<double> unit_after(std::string_view whole, std::string_view unit) {
 }  // namespace
 
 Result<double> parse_frequency_text(std::string_view whole, double unit_hz, bool decimal_comma) {
-    const std::string_view t = text::trim(whole);
+    std::string_view t = text::trim(whole);
+    if (t.size() >= 2 && t.front() == '"' && t.back() == '"') t = text::trim(t.substr(1, t.size() - 2));  // as a CSV cell may quote it
     const char* b = t.data();
     const char* e = t.data() + t.size();
     if (b < e && *b == '+') ++b;

@@ -33,7 +33,7 @@ done
 expect_rc 2 "a unit that does not exist" "$E" probe d.csv --theta 90 --phi 0 --frequency "2.45 G"
 has 'expected the unit Hz, kHz, MHz or GHz after the number, found "G" in "2.45 G" (did you mean GHz?)' "... explained"
 expect_rc 2 "a word" "$E" cut d.csv --phi 0 --frequency abc --out c.csv
-has 'expected a frequency: a number >= 0, optionally with a unit (Hz, kHz, MHz or GHz)' "... explained"
+has 'expected a number >= 0, optionally with a unit (Hz, kHz, MHz or GHz), as 2.45e9, 2.45GHz or 2450 MHz; found "abc"' "... explained"
 expect_rc 2 "an infinite frequency" "$E" info d.csv --frequency inf
 expect_rc 2 "an overflowing frequency" "$E" info d.csv --frequency 1e308GHz
 has "which overflows" "... says it overflows"
