@@ -42,8 +42,10 @@ std::vector<Sample> samples_of(const Grid& raw, const Layout& L) {
                 s.theta_deg = std::abs(t);
                 s.phi_deg = wrap360(t < 0 ? p + 180 : p);
                 s.sign = t < 0 ? -1 : 1;
-                s.a = theta_hat(t * deg, p * deg);  // at negative theta: -theta-hat(|t|, p + 180)
-                s.b = phi_hat(p * deg);
+                if (s.theta_deg <= fold_tol_deg || s.theta_deg >= 180 - fold_tol_deg) {  // only poles are turned
+                    s.a = theta_hat(t * deg, p * deg);  // at negative theta: -theta-hat(|t|, p + 180)
+                    s.b = phi_hat(p * deg);
+                }
             } else {
                 const PositionerFrame f = positioner_frame(positioner_of(L), p * deg, t * deg);
                 const double rho = std::hypot(f.r.x, f.r.y);
