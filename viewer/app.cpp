@@ -19,6 +19,7 @@
 #include <GLFW/glfw3.h>
 
 #include "viewer/exports_ui.hpp"
+#include "viewer/desktop_dialog.hpp"
 #include "viewer/file_loader.hpp"
 #include "viewer/frame.hpp"
 #include "viewer/gl.hpp"
@@ -132,6 +133,12 @@ void start_loads(const Effects& fx, FileLoader& loader) {
 }
 
 // Exports asked for from the UI; their outcomes come back as intents for the next frame.
+// File > Open: the desktop's dialog, or the window's own browser when it has none or it fails.
+Intents start_file_dialog(const Effects& fx, DesktopDialog& dialog) {
+    if (!fx.file_dialog || dialog.start(*fx.file_dialog)) return {};
+    return {intent::DesktopDialogClosed{}, intent::ShowBrowser{BrowserView::at(*fx.file_dialog)}};
+}
+
 Intents run_exports(const Effects& fx, const AppState& s, const Derived& d, Window& w) {
     Intents out;
     if (fx.export_cut)
@@ -254,6 +261,7 @@ int run_viewer(const ViewerOptions& opt) {
     AppState s;
     s.settings = st.settings;
     FileLoader loader;
+    DesktopDialog dialog;
     // A scripted run shows exactly the files it was given, or fails: never the examples instead.
     if (load_start_files(opt, s, loader, stop) > 0 && opt.frames > 0) return 1;
     apply(s, start_options(opt, s));
@@ -279,10 +287,12 @@ int run_viewer(const ViewerOptions& opt) {
         Intents in = std::exchange(carried, {});
         if (std::vector<std::string> dropped = w.begin_frame(); !dropped.empty()) in.push_back(intent::OpenFiles{std::move(dropped), ""});
         append(in, loader.poll());
+        append(in, dialog.poll());
         Layout layout;
         append(in, draw_ui(s, d, w.renderer(), layout));
         const Effects fx = apply(s, std::move(in));
         start_loads(fx, loader);
+        Intents from_dialog = start_file_dialog(fx, dialog);
         upload(w.scene(), d, refresh(d, s, ImGui::IsAnyItemActive()));
         draw_view_overlay(s, d, layout, w.fonts(), w.renderer());
         draw_frame(w, s, d, layout, profile);
@@ -290,6 +300,7 @@ int run_viewer(const ViewerOptions& opt) {
         if (last) exit_code = script.finish(s, d, w);
         w.swap();
         carried = run_exports(fx, s, d, w);
+        append(carried, std::move(from_dialog));
         frame_ms.push_back(ms_since(profile.t0));
         if (last || s.quit || w.close_requested() || stop.requested()) break;
     }

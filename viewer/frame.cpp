@@ -10,6 +10,7 @@
 #include "viewer/exports_ui.hpp"
 #include "viewer/overlay.hpp"
 #include "viewer/panels.hpp"
+#include "viewer/scene/file_browser.hpp"
 #include "viewer/scene/picking.hpp"
 
 namespace ellipsa::viewer {
@@ -46,8 +47,17 @@ Layout compute_layout(const ViewerSettings& s, ImVec2 display, float menu_h) {
 }
 
 namespace {
+// The in-window browser in the folder of the latest recent file, else the current folder.
+BrowserView browse_from(const AppState& s) {
+    const std::vector<std::string> recent = recent_folders(s.settings.recent_files, 1);
+    return BrowserView::at(recent.empty() ? std::string(".") : recent[0]);
+}
+
 void file_menu(const AppState& s, Intents& in) {
     if (!ImGui::BeginMenu("File")) return;
+    if (ImGui::MenuItem("Open...", "Ctrl+O")) in.push_back(intent::OpenFileDialog{});
+    if (ImGui::MenuItem("Open in this window...")) in.push_back(intent::ShowBrowser{browse_from(s)});
+    ImGui::Separator();
     for (const std::string& f : s.settings.recent_files)
         if (ImGui::MenuItem(f.c_str())) in.push_back(intent::OpenFiles{{f}, ""});
     if (s.settings.recent_files.empty()) ImGui::MenuItem("(no recent files)", nullptr, false, false);
@@ -238,7 +248,7 @@ void toggle_keys(const AppState& s, Intents& in) {
 Intents read_keys(const AppState& s) {
     Intents in;
     const ImGuiIO& io = ImGui::GetIO();
-    if (io.WantTextInput || ImGui::IsAnyItemActive()) return in;
+    if (io.WantTextInput || ImGui::IsAnyItemActive() || s.browser) return in;  // the browser reads its own keys
     auto pressed = [](int key) { return ImGui::IsKeyPressed(key, false); };
     if (pressed(GLFW_KEY_F1) || (io.KeyShift && pressed(GLFW_KEY_SLASH))) in.push_back(intent::ShowHelp{!s.show_help});
     if (ImGui::IsKeyPressed(ImGui::GetKeyIndex(ImGuiKey_Escape), false)) in.push_back(intent::Escape{});
@@ -247,6 +257,7 @@ Intents read_keys(const AppState& s) {
     for (int k = 0; k < 6; ++k)
         if (pressed(GLFW_KEY_1 + k)) in.push_back(intent::LookFrom{presets[k]});
     if (io.KeyCtrl) {
+        if (pressed(GLFW_KEY_O)) in.push_back(intent::OpenFileDialog{});
         if (pressed(GLFW_KEY_E)) in.push_back(intent::ExportView{timestamped_name("ellipsa-view", "png"), false});
         return in;
     }
@@ -292,6 +303,7 @@ Intents draw_ui(const AppState& s, const Derived& d, const RendererInfo& rendere
     Intents in = draw_menu(s, renderer, menu_h);
     layout = compute_layout(s.settings, ImGui::GetIO().DisplaySize, menu_h);
     append(in, draw_panels(s, d, layout));
+    append(in, draw_file_browser(s, d));
     append(in, read_keys(s));
     // A panel that probes (the map) gave its own Hover: it stands over the 3D view's.
     const bool panel_hover = std::any_of(in.begin(), in.end(), [](const Intent& i) { return std::holds_alternative<intent::Hover>(i); });

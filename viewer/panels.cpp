@@ -34,7 +34,7 @@ std::optional<std::string> text_field(const char* id, const char* hint, const st
 // --- Patterns: opening files ---
 void open_controls(const AppState& s, Intents& in) {
     ImGui::PushTextWrapPos(0);
-    ImGui::TextDisabled("Open a far-field CSV by path, from the recent list, or drop files on the window.");
+    ImGui::TextDisabled("Open a far-field CSV by path, by browsing, from the recent list, or drop files on the window.");
     ImGui::PopTextWrapPos();
     ImGui::SetNextItemWidth(-70);
     bool enter = false;
@@ -53,7 +53,14 @@ void open_controls(const AppState& s, Intents& in) {
         ImGui::PopTextWrapPos();
         ImGui::TreePop();
     }
+    if (ImGui::Button("Browse...")) in.push_back(intent::OpenFileDialog{});
+    if (ImGui::IsItemHovered()) ImGui::SetTooltip("Choose a file (Ctrl+O): the desktop's dialog, or the window's own");
+    if (s.desktop_dialog_open) {
+        ImGui::SameLine();
+        ImGui::TextDisabled("(file dialog open)");
+    }
     if (s.settings.recent_files.empty()) return;
+    ImGui::SameLine();
     ImGui::SetNextItemWidth(-1);
     if (ImGui::BeginCombo("##recent", "Recent files", ImGuiComboFlags_HeightLarge)) {
         for (const std::string& f : s.settings.recent_files)

@@ -33,6 +33,8 @@ Intents draw_fading_panel(const AppState& s, const Derived& d);
 // (Hammer equal-area, theta/phi or azimuth/elevation); hovering probes, a click pins (its Hover
 // stands over the 3D view's: draw_ui() drops the view's when a panel gave one).
 Intents draw_map_panel(const AppState& s, const Derived& d);
+// The in-window file browser (panel_browser.cpp), a window over the others while AppState::browser is set.
+Intents draw_file_browser(const AppState& s, const Derived& d);
 Intents draw_help_overlay(const AppState& s);
 // The first-run orientation: what each panel shows, dismissable (remembered in the settings).
 Intents draw_intro_overlay(const AppState& s);

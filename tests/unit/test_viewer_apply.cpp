@@ -305,3 +305,24 @@ TEST_CASE("tabs: a docked tool opens in front, closing it brings the cut back, n
     CHECK(parse_tab("Cut") == std::nullopt);
     CHECK(parse_tab("") == std::nullopt);
 }
+
+// File > Open asks for the desktop's dialog in the folder of the latest file (one at a time); the
+// in-window browser opens, changes and closes through ShowBrowser, and Esc closes it before it unpins.
+TEST_CASE("File > Open: the desktop dialog once, in the latest file's folder; the browser by intent", "[viewer][apply][browser]") {
+    AppState s;
+    s.settings.remember_file("/data/range/meas.csv");
+    Effects fx = apply(s, Intents{intent::OpenFileDialog{}});
+    REQUIRE(fx.file_dialog);
+    CHECK(*fx.file_dialog == "/data/range");
+    CHECK(s.desktop_dialog_open);
+    CHECK_FALSE(apply(s, Intents{intent::OpenFileDialog{}}).file_dialog);  // one at a time
+    apply(s, Intents{intent::DesktopDialogClosed{}});
+    CHECK_FALSE(s.desktop_dialog_open);
+    s.pinned = Direction{10, 20};
+    apply(s, Intents{intent::ShowBrowser{BrowserView::at("/data")}});
+    REQUIRE(s.browser);
+    CHECK(s.browser->folder == "/data");
+    apply(s, Intents{intent::Escape{}});
+    CHECK_FALSE(s.browser);
+    CHECK(s.pinned);  // the first Esc only closed the browser
+}

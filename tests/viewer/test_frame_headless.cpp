@@ -9,6 +9,10 @@
 
 #include <algorithm>
 #include <cmath>
+#include <filesystem>
+#include <fstream>
+
+#include <unistd.h>
 
 #define GLFW_INCLUDE_NONE
 #include <GLFW/glfw3.h>
@@ -34,6 +38,10 @@ struct Ui {
         io.DeltaTime = 1.0f / 60;
         io.KeyMap[ImGuiKey_Escape] = GLFW_KEY_ESCAPE;
         io.KeyMap[ImGuiKey_Tab] = GLFW_KEY_TAB;
+        io.KeyMap[ImGuiKey_UpArrow] = GLFW_KEY_UP;
+        io.KeyMap[ImGuiKey_DownArrow] = GLFW_KEY_DOWN;
+        io.KeyMap[ImGuiKey_Enter] = GLFW_KEY_ENTER;
+        io.KeyMap[ImGuiKey_Backspace] = GLFW_KEY_BACKSPACE;
         fonts = setup_ui_style(1.0f);
         unsigned char* px = nullptr;
         int w = 0, h = 0;
@@ -225,4 +233,57 @@ TEST_CASE("long values wrap at spaces, never inside a number", "[viewer][ui]") {
     CHECK(word_lines("9.47", 2, chars) == std::vector<std::string>{"9.47"});
     CHECK(word_lines("a\nb c", 10, chars) == std::vector<std::string>{"a", "b c"});
     CHECK(word_lines("", 10, chars) == std::vector<std::string>{""});
+}
+
+// File > Open in the window (issue 14): the folder listed (folders first, CSV and map files),
+// typing filters, arrows move, Enter opens the file or goes into the folder, Backspace on an
+// empty filter goes up, Esc closes. Common practice for a keyboard-friendly file chooser.
+TEST_CASE("the in-window file browser is driven by the keyboard", "[viewer][ui][browser]") {
+    namespace fs = std::filesystem;
+    char t[] = "/tmp/ellipsa-ui-browse-XXXXXX";
+    const fs::path root = ::mkdtemp(t);
+    for (const char* f : {"b.csv", "a.csv", "notes.txt"}) std::ofstream(root / f) << "x";
+    fs::create_directory(root / "sub");
+    Ui ui;
+    ImGuiIO& io = ImGui::GetIO();
+    auto press = [&](AppState& s, Derived& d, int k) {
+        io.KeysDown[k] = true;
+        Intents in = ui.frame(s, d);
+        io.KeysDown[k] = false;
+        append(in, ui.frame(s, d));
+        return in;
+    };
+    AppState s;
+    apply(s, Intents{intent::ShowBrowser{BrowserView::at(root.string())}});
+    Derived d;
+    refresh(d, s);
+    const FolderListing& l = d.folder.value();
+    REQUIRE(l.entries.size() == 3);
+    CHECK(l.entries[0].name == "sub");
+    CHECK(l.entries[1].name == "a.csv");
+    for (int k = 0; k < 3; ++k) ui.frame(s, d);  // the filter field takes the keyboard
+    press(s, d, GLFW_KEY_DOWN);
+    REQUIRE(s.browser);
+    CHECK(s.browser->selected == 1);
+    io.AddInputCharacter('b');
+    ui.frame(s, d);
+    ui.frame(s, d);
+    REQUIRE(s.browser);
+    CHECK(s.browser->typed == "b");
+    CHECK(s.browser->selected == 0);
+    Intents in = press(s, d, GLFW_KEY_ENTER);
+    CHECK_FALSE(s.browser);
+    bool opened = false;
+    for (const Intent& i : in)
+        if (const auto* o = std::get_if<intent::OpenFiles>(&i)) opened = o->paths == std::vector<std::string>{(root / "b.csv").string()};
+    CHECK(opened);
+    apply(s, Intents{intent::ShowBrowser{BrowserView::at((root / "sub").string())}});
+    refresh(d, s);
+    for (int k = 0; k < 3; ++k) ui.frame(s, d);
+    press(s, d, GLFW_KEY_BACKSPACE);
+    REQUIRE(s.browser);
+    CHECK(s.browser->folder == root.string());
+    apply(s, Intents{intent::Escape{}});
+    CHECK_FALSE(s.browser);
+    fs::remove_all(root);
 }

@@ -59,6 +59,22 @@ std::optional<Tab> parse_tab(const std::string& name);
 // Patterns and Surface live in the left column; every other tab in the plot strip.
 inline bool in_left_column(Tab t) { return t == Tab::patterns || t == Tab::surface; }
 
+// The in-window file browser (File > Open when no desktop dialog is there): what it shows.
+struct BrowserView {
+    std::string folder;     // listed folder (the listing itself is derived: Derived::folder)
+    std::string typed;      // type-to-filter text
+    int selected = 0;       // index into the entries that match `typed`
+    bool all_files = false;  // every file, not only .csv and .map
+    bool hidden = false;     // names starting with '.'
+    int reload = 0;          // bumped to list the folder again
+    static BrowserView at(std::string folder) {
+        BrowserView b;
+        b.folder = std::move(folder);
+        return b;
+    }
+    bool operator==(const BrowserView&) const = default;
+};
+
 struct AppState {
     std::vector<LoadedPattern> patterns;
     int next_pattern_id = 1;
@@ -85,6 +101,8 @@ struct AppState {
     DiversityChoice diversity;
     int cut_export_format = 0;  // index into cut_export_formats
     std::optional<ExportOutcome> view_export, cut_export;
+    std::optional<BrowserView> browser;  // the in-window file browser, while open
+    bool desktop_dialog_open = false;    // a desktop file dialog (zenity, kdialog) is being shown
     bool quit = false;
 
     const LoadedPattern* active_pattern() const;

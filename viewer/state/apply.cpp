@@ -7,6 +7,7 @@
 
 #include "pattern/vec3.hpp"
 #include "viewer/scene/components.hpp"
+#include "viewer/scene/file_browser.hpp"
 #include "viewer/state/derived.hpp"
 
 namespace ellipsa::viewer {
@@ -188,9 +189,21 @@ struct Apply {
     }
     void operator()(intent::Unpin&) { s.pinned.reset(); }
     void operator()(intent::Escape&) {
-        if (s.show_help) s.show_help = false;
+        if (s.browser) s.browser.reset();
+        else if (s.show_help) s.show_help = false;
         else s.pinned.reset();
     }
+    void operator()(intent::OpenFileDialog&) {
+        if (s.desktop_dialog_open) return;  // one at a time
+        const std::vector<std::string> recent = recent_folders(s.settings.recent_files, 1);
+        fx.file_dialog = recent.empty() ? std::string(".") : recent[0];  // where the last file came from
+        s.desktop_dialog_open = true;
+    }
+    void operator()(intent::ShowBrowser& i) {
+        s.browser = std::move(i.view);
+        if (s.browser) s.browser->selected = std::max(0, s.browser->selected);
+    }
+    void operator()(intent::DesktopDialogClosed&) { s.desktop_dialog_open = false; }
     void operator()(intent::ShowHelp& i) { s.show_help = i.on; }
     void operator()(intent::ShowIntro& i) { s.show_intro = i.on; }
     void operator()(intent::DismissIntro&) {

@@ -19,6 +19,7 @@ struct Effects {
     bool cancel_load = false;
     std::optional<intent::ExportView> export_view;
     std::optional<intent::ExportCut> export_cut;
+    std::optional<std::string> file_dialog;  // show the desktop's file dialog in this folder (the window falls back to its own)
 };
 
 // Carry out the intents in order. Afterwards the state is consistent whatever came in: A and B

@@ -170,6 +170,12 @@ DerivedChanges refresh(Derived& d, const AppState& s, bool interacting) {
     });
     refresh_diversity(d, s, w, interacting);
     refresh_band(d, s, w);
+    if (s.browser) {
+        const BrowserView& b = *s.browser;
+        d.folder.update(FolderKey{b.folder, b.all_files, b.hidden, b.reload}, [&] {
+            return list_folder(b.folder, b.all_files ? BrowseFilter::all_files : BrowseFilter::patterns, b.hidden);
+        });
+    }
     return c;
 }
 

@@ -16,6 +16,7 @@
 #include "viewer/scene/cut_view.hpp"
 #include "pattern/band.hpp"
 #include "viewer/scene/diversity_view.hpp"
+#include "viewer/scene/file_browser.hpp"
 #include "viewer/scene/glyphs.hpp"
 #include "viewer/scene/poincare.hpp"
 #include "viewer/scene/probe.hpp"
@@ -87,6 +88,12 @@ struct DiversityKey {
     bool operator==(const DiversityKey&) const = default;
 };
 
+struct FolderKey {  // the browser's folder and what it lists
+    std::string folder;
+    bool all_files = false, hidden = false;
+    int reload = 0;
+    bool operator==(const FolderKey&) const = default;
+};
 struct BandKey {
     int a = 0;
     bool operator==(const BandKey&) const = default;
@@ -146,6 +153,7 @@ struct Derived {
     Keyed<PoincareKey, std::vector<PoincarePoint>> poincare;
     Keyed<DiversityKey, DiversityView> diversity;  // only while the diversity panel is open
     Keyed<BandKey, BandView> band;                 // only while the band panel is open
+    Keyed<FolderKey, FolderListing> folder;        // only while the file browser is open
 };
 
 // What the GPU must take again after a refresh.

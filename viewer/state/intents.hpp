@@ -22,6 +22,11 @@ struct OpenFiles {  // read these files (in the background, one after the other)
     std::string map;  // column-map file for them; "" looks beside each file
 };
 struct CancelLoad {};
+struct OpenFileDialog {};  // File > Open: the desktop's dialog when there is one, else the in-window browser
+struct ShowBrowser {       // open, change or (nullopt) close the in-window browser
+    std::optional<BrowserView> view;
+};
+struct DesktopDialogClosed {};  // the desktop dialog ended (its choice comes as OpenFiles)
 struct LoadStatus {  // from the loader: what is being read now (none: nothing)
     std::optional<LoadingView> now;
 };
@@ -92,7 +97,8 @@ using Intent = std::variant<
     intent::StepComponent, intent::StepColorBy, intent::Orbit, intent::Zoom, intent::LookFrom, intent::SetView,
     intent::ResetView, intent::Hover, intent::Pin, intent::Unpin, intent::Escape, intent::ShowHelp, intent::ShowIntro,
     intent::DismissIntro, intent::ShowDiversity, intent::ChangeDiversity, intent::ShowBand, intent::ShowFading, intent::SetBandQuantity, intent::SelectTab, intent::ShowMap, intent::SetMapProjection, intent::SetCutExportFormat,
-    intent::ExportView, intent::ExportCut, intent::ExportFinished, intent::DismissExport, intent::Quit>;
+    intent::ExportView, intent::ExportCut, intent::ExportFinished, intent::DismissExport, intent::Quit,
+    intent::OpenFileDialog, intent::ShowBrowser, intent::DesktopDialogClosed>;
 
 using Intents = std::vector<Intent>;
 
