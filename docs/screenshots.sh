@@ -6,7 +6,7 @@
 #   docs/images/turnstile-band.png       the turnstile's figures against frequency
 #   docs/images/turnstile-ar-map.png     the turnstile's axial ratio on Hammer's equal-area map
 #   docs/images/coverage-horizon.png     coverage near the horizon: dipole, loop, best of both
-#   docs/images/panel-NAME-SIZE.png      every panel (cut, probe, polarisation, diversity, band, map)
+#   docs/images/panel-NAME-SIZE.png      every panel (cut, probe, polarisation, diversity, band, map, fading)
 #                                        at 1280x800 and 800x600
 #   docs/images/report-cut.png, report-3d.png   a cut figure and the 3D view of the report
 set -euo pipefail
@@ -29,7 +29,8 @@ xvfb-run -a -s "-screen 0 1280x800x24" "$E" view "$X/printed-dipole.csv" "$X/tur
 "$E" coverage "$X/printed-dipole.csv" "$X/small-loop.csv" --frequency 2.45e9 --horizon 30 --size 1000x750 \
   --out "$I/coverage-horizon.png" --force
 # Every panel at the two window sizes the layout is checked at (nothing may overlap or be cut
-# off): the cut comparing two antennas through a pin, probe, polarisation, diversity, band, map.
+# off): the cut comparing two antennas through a pin, probe, polarisation, diversity, band, map,
+# fading and combining.
 shot() {  # shot NAME SIZE OPTIONS...
   local name=$1 size=$2
   shift 2
@@ -43,6 +44,7 @@ for size in 1280x800 800x600; do
   shot diversity "$size" --compare 3 --diversity
   shot band "$size" --band
   shot map "$size" --tab map
+  shot fading "$size" --compare 2 --tab fading
 done
 # The report: its cut figure and its 3D view, as the report's page shows them.
 R=$(mktemp -d)
