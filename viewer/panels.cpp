@@ -417,6 +417,7 @@ Intents draw_help_overlay(const AppState& s) {
             {"P", "polar / rectangular cut plot"},
             {"Page Up / Down", "previous / next frequency"},
             {"Tab", "next pattern"},
+            {"Ctrl+O", "open a file (the desktop's dialog or the window's browser)"},
             {"Ctrl+E", "export the 3D view as PNG"},
             {"F1 or ?", "this help"},
         };
