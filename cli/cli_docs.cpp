@@ -111,6 +111,46 @@ const char* root_environment_text =
     ".SH FILES\n.TP\n.I $XDG_CONFIG_HOME/ellipsa/viewer.conf\nThe viewer's settings (window size, panels, view).\n"
     ".TP\n.I $XDG_CONFIG_HOME/ellipsa/imgui.ini\nThe viewer's window layout.\n";
 
+// The EXAMPLES of each manual page: a command line and what it does. They use two files that
+// `ellipsa synth` writes (the root page's first examples), so every line runs as shown
+// (tests/scripts/usage_cli.sh runs them all but view's).
+struct Example {
+    const char* command;  // "" for the root page
+    const char* line;
+    const char* what;
+};
+const Example examples[] = {
+    {"", "ellipsa synth small-loop --frequency 2.45GHz --out loop.csv", "Write a closed-form small loop to loop.csv."},
+    {"", "ellipsa synth dipole --frequency 2.45GHz --out dipole.csv", "Write a half-wave dipole to dipole.csv."},
+    {"", "ellipsa info loop.csv", "Headline figures of every frequency in the file."},
+    {"view", "ellipsa view loop.csv dipole.csv", "Open both patterns in the viewer."},
+    {"view", "ellipsa view loop.csv dipole.csv --compare 2 --color-by difference", "Colour the loop by its difference from the dipole."},
+    {"synth", "ellipsa synth crossed-dipoles --phase 90 --step 2 --out turnstile.csv", "A turnstile (circular along z) on a 2-degree grid."},
+    {"info", "ellipsa info loop.csv --frequency 2.45GHz --json", "One frequency's figures as one JSON object."},
+    {"probe", "ellipsa probe loop.csv --theta 80 --phi 45", "Every component, axial ratio, tilt and Stokes at one direction."},
+    {"cut", "ellipsa cut loop.csv --phi 0 --components total,theta,phi --out loop-phi0.svg", "An elevation cut with three components."},
+    {"cut", "ellipsa cut dipole.csv --theta 90 --style rect --out dipole-azimuth.csv", "The azimuth plane as a table."},
+    {"map", "ellipsa map loop.csv --show axial-ratio --out loop-ar.png", "The axial ratio over the whole sphere (Hammer projection)."},
+    {"coverage", "ellipsa coverage loop.csv dipole.csv --horizon 30", "Share of the sphere covered at each level by the better of two antennas."},
+    {"band", "ellipsa band loop.csv --out loop-band.svg", "Figures against frequency as a plot."},
+    {"diversity", "ellipsa diversity loop.csv dipole.csv --environment indoor", "MEG of each and their envelope correlation indoors."},
+    {"fading", "ellipsa fading loop.csv dipole.csv --environment urban --samples 2000", "Fading and combining of the pair in an urban environment."},
+    {"rank", "ellipsa rank loop.csv dipole.csv --environment uniform,indoor", "Rank the two candidates in two environments."},
+    {"render", "ellipsa render loop.csv --color-by axial-ratio --out loop-3d.png", "A 3D snapshot without a display."},
+    {"report", "ellipsa report loop.csv dipole.csv --out report", "A report folder with figures of both antennas."},
+    {"convert", "ellipsa convert loop.csv loop-circular.csv --family circular-db-phase", "Rewrite the file as RHCP/LHCP dB and phase."},
+    {"gain-transfer", "ellipsa convert loop.csv rel.csv --assume quantity=relative", "A file of relative levels, for the example below."},
+    {"gain-transfer", "ellipsa gain-transfer rel.csv --reference-level 0 --reference-gain 2.45GHz=2.15 --out gain.csv",
+     "Relative levels to gain with a reference of 2.15 dBi measured at 0 dB."},
+};
+
+std::string examples_section(const std::string& command) {
+    std::string s;
+    for (const Example& e : examples)
+        if (command == e.command) s += ".PP\n" + roff(e.what) + "\n.IP\n.nf\n\\fB" + roff(e.line) + "\\fR\n.fi\n";
+    return s.empty() ? s : ".SH EXAMPLES\n" + s;
+}
+
 std::string man_page(const CommandDoc& c, const std::vector<CommandDoc>& all, const std::string& version) {
     const std::string page = c.name.empty() ? "ellipsa" : "ellipsa-" + c.name;
     std::string upper;
@@ -133,6 +173,7 @@ std::string man_page(const CommandDoc& c, const std::vector<CommandDoc>& all, co
     for (const OptionDoc& o : c.options) s += man_item(o);
     s += exit_status_text;
     if (c.name.empty()) s += root_environment_text;
+    s += examples_section(c.name);
     s += ".SH SEE ALSO\n";
     if (!c.name.empty()) return s + "\\fBellipsa\\fR(1)\n";
     for (std::size_t i = 1; i < all.size(); ++i)

@@ -33,6 +33,7 @@ int main(int argc, char** argv) {
     std::sort(entries.begin(), entries.end(), [](const CommandEntry& a, const CommandEntry& b) { return a.order < b.order; });
     std::vector<Registered> commands;
     for (const CommandEntry& e : entries) commands.push_back(e.add(app));
+    refuse_non_finite(app);
     try {
         app.parse(argc, argv);
     } catch (const CLI::CallForHelp& e) {

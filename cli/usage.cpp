@@ -129,6 +129,12 @@ std::string join(const std::vector<std::string>& items, const std::string& sep) 
     return out;
 }
 
+void refuse_non_finite(CLI::App& app) {
+    for (CLI::Option* o : app.get_options())
+        if (o->get_type_name() == "FLOAT") o->check(finite_number());
+    for (CLI::App* sub : app.get_subcommands([](CLI::App*) { return true; })) refuse_non_finite(*sub);
+}
+
 CLI::Validator one_of(std::vector<std::string> names) {
     std::string description;
     for (const std::string& n : names) description += (description.empty() ? "{" : ",") + n;

@@ -24,6 +24,10 @@ CLI::Validator number_from_to(double lo, double hi);
 CLI::Validator positive_number();
 CLI::Validator finite_number();
 
+// Adds finite_number() to every option of `app` and its subcommands whose values are plain
+// FLOATs without a check of their own, so no command takes "nan", "inf" or "1e400" for a number.
+void refuse_non_finite(CLI::App& app);
+
 // One of `names` (exact): the description "{a,b,c}" puts the choices in --help, the manual pages
 // and the completions (cli/cli_docs.hpp); a wrong value gets the closest names as suggestions.
 CLI::Validator one_of(std::vector<std::string> names);

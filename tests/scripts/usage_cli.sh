@@ -73,6 +73,11 @@ done
 expect_rc 0 "probe --phi -90 (a documented angle)" "$E" probe d.csv --theta 10 --phi -90
 expect_rc 2 "cut --step inf" "$E" cut d.csv --phi 0 --step inf --out c.csv
 expect_rc 2 "render --range nan" "$E" render d.csv --range nan --out r.png
+# Every plain FLOAT option refuses NaN and infinities (refuse_non_finite, cli/usage.hpp).
+expect_rc 2 "synth --phase nan" "$E" synth crossed-dipoles --phase nan --out x.csv
+has 'ellipsa: --phase: expected a finite number, found "nan"' "... a finite number"
+expect_rc 2 "synth --rotate-x 1e400" "$E" synth dipole --rotate-x 1e400 --out x.csv
+expect_rc 2 "fading --outage 0.1,inf" "$E" fading d.csv --outage 0.1,inf
 
 # 5. A multi-frequency file and no --frequency: the middle one, named on stderr (one rule).
 for f in 2.4e9 2.45e9 2.5e9; do "$E" synth dipole --step 5 --frequency $f --out "f$f.csv" >/dev/null; done
@@ -113,4 +118,18 @@ if command -v xvfb-run >/dev/null; then
   has "no-such.csv" "... names the file"
   grep -qi "example" err.txt out.txt && bad "... fell back to the examples: $(cat err.txt)" || ok "... no fallback to the examples"
 fi
+# 7. Every manual page has EXAMPLES, and every example runs as shown (the viewer's need a window).
+D=$(dirname "$E")/cli-docs/man1
+mkdir -p ex && cd ex
+examples_of() { zcat "$1" | sed -n 's/^\\fB\(ellipsa .*\)\\fR$/\1/p' | sed 's/\\-/-/g'; }
+for page in "$D/ellipsa.1.gz" "$D"/ellipsa-*.1.gz; do
+  name=$(basename "$page" .1.gz)
+  zcat "$page" | grep -q '^\.SH EXAMPLES$' && ok "$name has EXAMPLES" || bad "$name lacks EXAMPLES"
+  [[ $name == ellipsa-view ]] && continue
+  while IFS= read -r line; do
+    read -ra words <<<"${line#ellipsa }"
+    expect_rc 0 "example: $line" "$E" "${words[@]}"
+  done < <(examples_of "$page")
+done
+cd ..
 finish
