@@ -57,6 +57,7 @@ void frequency_json(JsonWriter& j, const FarFieldSet& s, const FrequencyFigures&
     j.begin_object();
     j.field("frequency_hz", s.frequencies[f.freq_index].frequency_hz);
     j.field("peak_db", r.peak_db).field("peak_theta_deg", r.peak.theta_deg).field("peak_phi_deg", r.peak.phi_deg);
+    j.field("peak_sample_db", to_db(r.peak.sample_value));  // the largest sample, beside the refined peak
     j.field("directivity_dbi", r.directivity_dbi).field("radiation_efficiency", r.power.radiation_efficiency);
     j.field("hpbw_elevation_deg", r.hpbw_elevation_deg).field("hpbw_azimuth_deg", r.hpbw_azimuth_deg);
     j.field("front_to_back_db", r.front_to_back_db).field("axial_ratio_db", r.axial_ratio_db);

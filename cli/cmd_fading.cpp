@@ -165,6 +165,7 @@ void json_pair(JsonWriter& j, const Result<SimulatedPair>& r, const FadingOption
     j.key("power_correlation_ci95").begin_array().value(q.power_correlation_ci95.lo).value(q.power_correlation_ci95.hi).end_array();
     j.field("complex_correlation_squared", q.complex_correlation_squared);
     j.field("ecc", q.analytic_ecc);
+    j.field("power_correlation_expected", q.expected_power_correlation);
     json_levels(j, "selection_levels_db", q.selection);
     json_level_intervals(j, "selection_levels_ci95_db", q.selection);
     json_levels(j, "mrc_levels_db", q.mrc);
@@ -276,6 +277,9 @@ void write_human(const ChosenEnvironment& env, const std::vector<Loaded>& ps, co
             std::printf("    %-20s %7.4f [%.4f, %.4f]", "power correlation", q.power_correlation, q.power_correlation_ci95.lo,
                         q.power_correlation_ci95.hi);
             if (q.analytic_ecc) std::printf("   ECC %.4f", *q.analytic_ecc);
+            if (q.expected_power_correlation)
+                std::printf("\n    %-20s %7.4f (expected with %d waves: the interval is around it; ECC + O(1/waves))",
+                            "  expected", *q.expected_power_correlation, r.waves);
             std::printf("\n    %-20s %7.4f (tends to the ECC for any number of waves)\n", "|r1 r2*|^2 estimate",
                         q.complex_correlation_squared);
             std::vector<double> sel, mrc;

@@ -132,7 +132,7 @@ Registered add_render(CLI::App& root) {
                         std::cerr << "ellipsa render: " << st.error().format() << "\n";
                         return exit_bad_input;
                     }
-                    std::cout << "wrote " << a->out << " (the surface: radius 1 at the peak, +z up; glTF files +y up)\n";
+                    std::cout << "wrote " << a->out << " (the surface: radius 1 at the largest sample, +z up; glTF files +y up)\n";
                     return exit_ok;
                 }
                 if (Status st = viewer::render_snapshot_png(*s, o, a->out, a->force); !st) {

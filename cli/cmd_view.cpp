@@ -78,119 +78,140 @@ int file_options(const ViewArgs& a, viewer::ViewerOptions& o) {
     return exit_ok;
 }
 
+void add_view_options(CLI::App* sub, ViewArgs& a) {
+    sub->add_option("FILE", a.files, "Far-field CSV files, each may carry its own options (FILE::map=...); default: the bundled examples");
+    sub->add_flag("--software", a.software, "Force Mesa's software renderer (llvmpipe)");
+    sub->add_option("--size", a.size, "Window size WxH in pixels (default: as last time, first 1280x800)");
+    sub->add_option("--frames", a.frames, "Run this many frames and exit")->check(number_from_to(1, 1000000));
+    sub->add_option("--screenshot", a.screenshot, "With --frames: write the last frame to this PNG")->type_name("FILE");
+    sub->add_flag("--frame-stats", a.frame_stats,
+                  "Print one JSON line {\"frames\", \"median_ms\", \"p95_ms\"} at exit (vsync off)");
+    sub->add_option("--component", a.component, "Start with this component as the radius")
+        ->check(one_of(names_of(all_components)));
+    sub->add_option("--color-by", a.color_by, "Start with this colouring")->check(one_of(names_of(viewer::all_color_by)));
+    sub->add_option("--compare", a.compare, "Start comparing with FILE number N (1-based) as B");
+    sub->add_option("--pin", a.pin, "Start with THETA,PHI (deg) pinned, and the cut through it");
+    sub->add_option("--view", a.view, "Start looking from AZ,EL (deg)");
+    sub->add_flag("--wireframe", a.wireframe, "Start with the wireframe on");
+    sub->add_option("--cursor", a.cursor, "With --frames: hold the mouse pointer at X,Y window pixels (probe screenshots)");
+    sub->add_option("--export-view", a.export_view, "With --frames: export the 3D view of the last frame as PNG (as Ctrl+E)")
+        ->type_name("FILE");
+    sub->add_option("--export-cut", a.export_cut, "With --frames: write the cut of the last frame (.svg, .png, .pdf or .csv)")
+        ->type_name("FILE");
+    sub->add_option("--cut-style", a.cut_style, "Start with a polar or rect cut plot")->check(one_of({"polar", "rect"}));
+    sub->add_flag("--translucent", a.translucent, "Start with a translucent surface");
+    sub->add_flag("--diversity", a.diversity, "Start with the diversity panel open (MEG, ECC, orientation curve)");
+    sub->add_flag("--band", a.band, "Start with the figures-against-frequency panel open");
+    add_frequency_option(sub, a.frequency_hz, "Start at this frequency (the first file's nearest within 0.5 %; default its first)");
+    sub->add_option("--tab", a.tab, "Start with this panel in front: patterns, surface (left column of a narrow window), cut, probe, polarisation (plot strip of a narrow window), diversity, band, map (the 2D map)")
+        ->check(one_of(std::vector<std::string>(std::begin(viewer::tab_names), std::end(viewer::tab_names))));
+    sub->add_flag("--force", a.force, "Replace the files of --screenshot, --export-view and --export-cut if they exist");
+    add_load_options(sub, a.load);
+}
+
+// The window: renderer, size, a scripted run's frames and screenshot.
+int window_options(const ViewArgs& a, viewer::ViewerOptions& o) {
+    o.software = a.software;
+    o.frames = a.frames;
+    o.screenshot = a.screenshot;
+    o.frame_stats = a.frame_stats;
+    if (!a.screenshot.empty() && a.frames == 0) {
+        std::cerr << "ellipsa view: --screenshot needs --frames N (the last frame is written)\n";
+        return exit_usage;
+    }
+    if (!a.size.empty()) {
+        int w = 0, h = 0;
+        char tail = 0;
+        if (std::sscanf(a.size.c_str(), "%dx%d%c", &w, &h, &tail) != 2 || w < 320 || h < 240 || w > 16384 || h > 16384) {
+            std::cerr << "ellipsa view: --size expects WxH with W >= 320 and H >= 240, e.g. 1280x800; found '"
+                      << a.size << "'\n";
+            return exit_usage;
+        }
+        o.width = w, o.height = h;
+    }
+    o.save_settings = a.frames == 0;
+    return exit_ok;
+}
+
+// The names of the starting component and colouring, and what a scripted run writes besides the
+// screenshot.
+int look_and_exports(const ViewArgs& a, viewer::ViewerOptions& o) {
+    ellipsa::Component c;
+    if (!a.component.empty() && !parse_component(a.component.c_str(), c)) {
+        std::cerr << "ellipsa view: unknown --component '" << a.component << "'\n";
+        return exit_usage;
+    }
+    viewer::ColorBy cb;
+    if (!a.color_by.empty() && !viewer::parse_color_by(a.color_by, cb)) {
+        std::cerr << "ellipsa view: unknown --color-by '" << a.color_by << "'\n";
+        return exit_usage;
+    }
+    if (!a.export_cut.empty() && a.frames == 0) {
+        std::cerr << "ellipsa view: --export-cut needs --frames N (the cut of the last frame is written)\n";
+        return exit_usage;
+    }
+    o.export_cut = a.export_cut;
+    o.export_view = a.export_view;
+    if (!a.cursor.empty()) {
+        if (a.frames == 0 || !parse_pair(a.cursor, o.cursor_x, o.cursor_y)) {
+            std::cerr << "ellipsa view: --cursor expects X,Y in pixels and needs --frames N, found '" << a.cursor << "'\n";
+            return exit_usage;
+        }
+        o.has_cursor = true;
+    }
+    if (!a.export_view.empty() && a.frames == 0) {
+        std::cerr << "ellipsa view: --export-view needs --frames N\n";
+        return exit_usage;
+    }
+    o.component = a.component;
+    o.color_by = a.color_by;
+    return exit_ok;
+}
+
+// What the window starts with: comparison, surface style, panels, frequency, tab, pin and view.
+int start_state(const ViewArgs& a, viewer::ViewerOptions& o) {
+    if (a.compare != 0 && (a.compare < 1 || a.compare > int(a.files.size()))) {
+        std::cerr << "ellipsa view: --compare expects a FILE number from 1 to " << a.files.size() << ", found "
+                  << a.compare << "\n";
+        return exit_usage;
+    }
+    o.compare = a.compare - 1;
+    o.wireframe = a.wireframe;
+    o.translucent = a.translucent;
+    if (!a.cut_style.empty()) o.cut_style = a.cut_style == "rect" ? 1 : 0;
+    o.diversity_panel = a.diversity;
+    o.band_panel = a.band;
+    if (a.frequency_hz && !(std::isfinite(*a.frequency_hz) && *a.frequency_hz > 0)) {
+        std::cerr << "ellipsa view: --frequency expects a positive frequency in Hz, found " << *a.frequency_hz << "\n";
+        return exit_usage;
+    }
+    o.frequency_hz = a.frequency_hz;
+    o.tab = a.tab;
+    if (!a.pin.empty()) {
+        if (!parse_pair(a.pin, o.pin_theta_deg, o.pin_phi_deg) || o.pin_theta_deg < 0 || o.pin_theta_deg > 180) {
+            std::cerr << "ellipsa view: --pin expects THETA,PHI in degrees (finite) with THETA in [0, 180], found '" << a.pin << "'\n";
+            return exit_usage;
+        }
+        o.has_pin = true;
+    }
+    if (!a.view.empty()) {
+        if (!parse_pair(a.view, o.view_azimuth_deg, o.view_elevation_deg) || std::abs(o.view_elevation_deg) > 90) {
+            std::cerr << "ellipsa view: --view expects AZ,EL in degrees with EL in [-90, 90], found '" << a.view << "'\n";
+            return exit_usage;
+        }
+        o.has_view = true;
+    }
+    return exit_ok;
+}
+
 Registered add_view(CLI::App& root) {
     auto a = std::make_shared<ViewArgs>();
     CLI::App* sub = root.add_subcommand("view", "Open the viewer: 3D gain surfaces, polarisation explorer and cuts");
-    sub->add_option("FILE", a->files, "Far-field CSV files, each may carry its own options (FILE::map=...); default: the bundled examples");
-    sub->add_flag("--software", a->software, "Force Mesa's software renderer (llvmpipe)");
-    sub->add_option("--size", a->size, "Window size WxH in pixels (default: as last time, first 1280x800)");
-    sub->add_option("--frames", a->frames, "Run this many frames and exit")->check(number_from_to(1, 1000000));
-    sub->add_option("--screenshot", a->screenshot, "With --frames: write the last frame to this PNG")->type_name("FILE");
-    sub->add_flag("--frame-stats", a->frame_stats,
-                  "Print one JSON line {\"frames\", \"median_ms\", \"p95_ms\"} at exit (vsync off)");
-    sub->add_option("--component", a->component, "Start with this component as the radius")
-        ->check(one_of(names_of(all_components)));
-    sub->add_option("--color-by", a->color_by, "Start with this colouring")->check(one_of(names_of(viewer::all_color_by)));
-    sub->add_option("--compare", a->compare, "Start comparing with FILE number N (1-based) as B");
-    sub->add_option("--pin", a->pin, "Start with THETA,PHI (deg) pinned, and the cut through it");
-    sub->add_option("--view", a->view, "Start looking from AZ,EL (deg)");
-    sub->add_flag("--wireframe", a->wireframe, "Start with the wireframe on");
-    sub->add_option("--cursor", a->cursor, "With --frames: hold the mouse pointer at X,Y window pixels (probe screenshots)");
-    sub->add_option("--export-view", a->export_view, "With --frames: export the 3D view of the last frame as PNG (as Ctrl+E)")
-        ->type_name("FILE");
-    sub->add_option("--export-cut", a->export_cut, "With --frames: write the cut of the last frame (.svg, .png, .pdf or .csv)")
-        ->type_name("FILE");
-    sub->add_option("--cut-style", a->cut_style, "Start with a polar or rect cut plot")->check(one_of({"polar", "rect"}));
-    sub->add_flag("--translucent", a->translucent, "Start with a translucent surface");
-    sub->add_flag("--diversity", a->diversity, "Start with the diversity panel open (MEG, ECC, orientation curve)");
-    sub->add_flag("--band", a->band, "Start with the figures-against-frequency panel open");
-    add_frequency_option(sub, a->frequency_hz, "Start at this frequency (the first file's nearest within 0.5 %; default its first)");
-    sub->add_option("--tab", a->tab, "Start with this panel in front: patterns, surface (left column of a narrow window), cut, probe, polarisation (plot strip of a narrow window), diversity, band, map (the 2D map)")
-        ->check(one_of(std::vector<std::string>(std::begin(viewer::tab_names), std::end(viewer::tab_names))));
-    sub->add_flag("--force", a->force, "Replace the files of --screenshot, --export-view and --export-cut if they exist");
-    add_load_options(sub, a->load);
+    add_view_options(sub, *a);
     return {sub, [a]() -> int {
                 viewer::ViewerOptions o;
-                if (int rc = file_options(*a, o); rc != exit_ok) return rc;
-                o.software = a->software;
-                o.frames = a->frames;
-                o.screenshot = a->screenshot;
-                o.frame_stats = a->frame_stats;
-                if (!a->screenshot.empty() && a->frames == 0) {
-                    std::cerr << "ellipsa view: --screenshot needs --frames N (the last frame is written)\n";
-                    return exit_usage;
-                }
-                if (!a->size.empty()) {
-                    int w = 0, h = 0;
-                    char tail = 0;
-                    if (std::sscanf(a->size.c_str(), "%dx%d%c", &w, &h, &tail) != 2 || w < 320 || h < 240 || w > 16384 || h > 16384) {
-                        std::cerr << "ellipsa view: --size expects WxH with W >= 320 and H >= 240, e.g. 1280x800; found '"
-                                  << a->size << "'\n";
-                        return exit_usage;
-                    }
-                    o.width = w, o.height = h;
-                }
-                o.save_settings = a->frames == 0;
-                ellipsa::Component c;
-                if (!a->component.empty() && !parse_component(a->component.c_str(), c)) {
-                    std::cerr << "ellipsa view: unknown --component '" << a->component << "'\n";
-                    return exit_usage;
-                }
-                viewer::ColorBy cb;
-                if (!a->color_by.empty() && !viewer::parse_color_by(a->color_by, cb)) {
-                    std::cerr << "ellipsa view: unknown --color-by '" << a->color_by << "'\n";
-                    return exit_usage;
-                }
-                if (!a->export_cut.empty() && a->frames == 0) {
-                    std::cerr << "ellipsa view: --export-cut needs --frames N (the cut of the last frame is written)\n";
-                    return exit_usage;
-                }
-                o.export_cut = a->export_cut;
-                o.export_view = a->export_view;
-                if (!a->cursor.empty()) {
-                    if (a->frames == 0 || !parse_pair(a->cursor, o.cursor_x, o.cursor_y)) {
-                        std::cerr << "ellipsa view: --cursor expects X,Y in pixels and needs --frames N, found '" << a->cursor << "'\n";
-                        return exit_usage;
-                    }
-                    o.has_cursor = true;
-                }
-                if (!a->export_view.empty() && a->frames == 0) {
-                    std::cerr << "ellipsa view: --export-view needs --frames N\n";
-                    return exit_usage;
-                }
-                o.component = a->component;
-                o.color_by = a->color_by;
-                if (a->compare != 0 && (a->compare < 1 || a->compare > int(a->files.size()))) {
-                    std::cerr << "ellipsa view: --compare expects a FILE number from 1 to " << a->files.size() << ", found "
-                              << a->compare << "\n";
-                    return exit_usage;
-                }
-                o.compare = a->compare - 1;
-                o.wireframe = a->wireframe;
-                o.translucent = a->translucent;
-                if (!a->cut_style.empty()) o.cut_style = a->cut_style == "rect" ? 1 : 0;
-                o.diversity_panel = a->diversity;
-                o.band_panel = a->band;
-                if (a->frequency_hz && !(std::isfinite(*a->frequency_hz) && *a->frequency_hz > 0)) {
-                    std::cerr << "ellipsa view: --frequency expects a positive frequency in Hz, found " << *a->frequency_hz << "\n";
-                    return exit_usage;
-                }
-                o.frequency_hz = a->frequency_hz;
-                o.tab = a->tab;
-                if (!a->pin.empty()) {
-                    if (!parse_pair(a->pin, o.pin_theta_deg, o.pin_phi_deg) || o.pin_theta_deg < 0 || o.pin_theta_deg > 180) {
-                        std::cerr << "ellipsa view: --pin expects THETA,PHI in degrees (finite) with THETA in [0, 180], found '" << a->pin << "'\n";
-                        return exit_usage;
-                    }
-                    o.has_pin = true;
-                }
-                if (!a->view.empty()) {
-                    if (!parse_pair(a->view, o.view_azimuth_deg, o.view_elevation_deg) || std::abs(o.view_elevation_deg) > 90) {
-                        std::cerr << "ellipsa view: --view expects AZ,EL in degrees with EL in [-90, 90], found '" << a->view << "'\n";
-                        return exit_usage;
-                    }
-                    o.has_view = true;
-                }
+                for (auto step : {file_options, window_options, look_and_exports, start_state})
+                    if (int rc = step(*a, o); rc != exit_ok) return rc;
                 if (const std::string f = existing_output(*a); !f.empty() && !a->force) {
                     std::cerr << "ellipsa view: " << f << ": already exists; use --force to replace it\n";
                     return exit_bad_input;

@@ -13,6 +13,10 @@ void summary_json(JsonWriter& j, const FarFieldSet& s, std::size_t freq_index, c
     std::optional<double> pt, pp;
     if (!r.zero_field) pt = r.peak.theta_deg, pp = r.peak.phi_deg;
     j.field("peak_db", r.peak_db).field("peak_theta_deg", pt).field("peak_phi_deg", pp);
+    // The largest sample itself, beside the refined peak above (pattern/peak.hpp).
+    std::optional<double> ps;
+    if (!r.zero_field) ps = to_db(r.peak.sample_value);
+    j.field("peak_sample_db", ps);
     j.field("zero_field", r.zero_field);
     j.field("directivity_dbi", r.directivity_dbi);
     j.field("radiation_efficiency", r.power.radiation_efficiency);

@@ -83,7 +83,7 @@ XyFigure make_coverage_figure(const std::vector<CoverageSeries>& series, const C
     f.panels.push_back(std::move(p));
     f.notes.push_back("Share of the solid angle (" + describe_band(r.band) +
                       ") where the component is at least the level: each grid sample stands for its cell's exact solid "
-                      "angle. Where the data do not reach, nothing is counted.");
+                      "angle, with the power interpolated inside the cell. Where the data do not reach, nothing is counted.");
     return f;
 }
 

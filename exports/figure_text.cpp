@@ -88,6 +88,13 @@ std::string peak_text(const PatternSummary& r, const char* unit, const std::stri
            with_unit(r.peak.phi_deg, angle_decimals, deg);
 }
 
+std::string radius_caption(const std::string& component, const std::optional<double>& peak_db, const std::string& unit,
+                           double range_db) {
+    const std::string range = "range " + fixed(range_db, 0) + " dB";
+    if (peak_db) return "radius: " + component + ", peak " + with_unit(*peak_db, db_decimals, unit) + ", " + range;
+    return "radius: " + component + ", no power (every sample of it is zero)";
+}
+
 std::string beamwidth_text(const BeamFigures& b, const std::string& angle, const std::string& deg) {
     switch (b.shape) {
         case BeamShape::beam: return with_unit(*b.hpbw_deg, angle_decimals, deg);

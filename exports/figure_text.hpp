@@ -48,6 +48,11 @@ std::string tilt_text(double tilt_deg, Sense s, const std::string& deg);
 // letters and degree signs (`deg` "°"); "none (zero field)" when every sample is zero. A peak at a
 // pole (PatternSummary::peak_at_pole) has no phi: "3.34 dBi at theta 0.0 deg (zenith)".
 std::string peak_text(const PatternSummary& r, const char* unit, const std::string& deg);
+// The 3D view's caption (the viewer and every rendered view): what sets the radius, its peak
+// (refined between samples, as in every other place a peak is given; none: the component is zero
+// everywhere) and the range shown.
+std::string radius_caption(const std::string& component, const std::optional<double>& peak_db, const std::string& unit,
+                           double range_db);
 
 // The half-power beamwidth of a cut as reported: "78.1 <deg>"; or why there is none:
 // "none: omnidirectional (ripple 0.35 dB)", "none: no beam (above half power over 283.6 <deg>)",

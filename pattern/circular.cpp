@@ -6,6 +6,7 @@
 #include "pattern/components.hpp"
 #include "pattern/integrate.hpp"
 #include "pattern/polarisation.hpp"
+#include "pattern/sphere_coverage.hpp"
 
 namespace ellipsa {
 
@@ -99,18 +100,11 @@ std::optional<ArSolidAngle> ar_solid_angle(const FarFieldSet& s, std::size_t fi,
     if (!s.has_phase()) return std::nullopt;
     const Grid& g = s.grid;
     const FarField& f = s.frequencies.at(fi);
-    const CellWeights w = cell_weights(g);
-    const double limit = circularity_at_ar_db(threshold_db);
+    std::vector<double> c(g.size());
+    for (std::size_t n = 0; n < c.size(); ++n) c[n] = circularity(f.e_theta[n], f.e_phi[n]);
     ArSolidAngle r;
     r.threshold_db = threshold_db;
-    for (int i = 0; i < g.theta.count; ++i) {
-        double row = 0;
-        for (int j = 0; j < g.phi.count; ++j) {
-            const std::size_t n = g.index(i, j);
-            if (circularity(f.e_theta[n], f.e_phi[n]) >= limit) row += w.phi[std::size_t(j)];
-        }
-        r.solid_angle_sr += row * w.theta[std::size_t(i)];
-    }
+    r.solid_angle_sr = solid_angle_at_or_above(g, c, circularity_at_ar_db(threshold_db));
     r.share = r.solid_angle_sr / (4 * pi);
     return r;
 }

@@ -48,13 +48,14 @@ ArBeamwidth ar_beamwidth_through(const FarFieldSet& s, std::size_t freq_index, d
                                  bool along_phi, double threshold_db = ar_threshold_db);
 
 struct ArSolidAngle {
-    double solid_angle_sr = 0;  // where AR <= threshold, sum of the exact cell solid angles
+    double solid_angle_sr = 0;  // where AR <= threshold (pattern/sphere_coverage.hpp solid_angle_at_or_above)
     double share = 0;           // solid_angle_sr / (4 pi)
     double threshold_db = ar_threshold_db;
 };
-// Solid angle where AR <= threshold_db: each grid sample stands for its cell (pattern/integrate's
-// exact weights), as every other integral over the sphere. nullopt without phase. Cost: one pass
-// over the grid.
+// Solid angle where AR <= threshold_db, that is |V|/I >= circularity_at_ar_db(threshold_db):
+// the cells of pattern/integrate's exact weights, each with |V|/I interpolated inside it (the
+// quarter-cell model of pattern/sphere_coverage.hpp), so a boundary through a cell counts the
+// part of the cell inside it. nullopt without phase. Cost: one pass over the grid.
 std::optional<ArSolidAngle> ar_solid_angle(const FarFieldSet& s, std::size_t freq_index,
                                            double threshold_db = ar_threshold_db);
 

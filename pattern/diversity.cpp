@@ -388,72 +388,55 @@ double sweep_orientation_count(const OrientationSweep& sw) {
     return tilts * rolls;
 }
 
-Result<OrientationFigures> orientation_robustness(const FarFieldSet& s, std::size_t fi, const Environment& e,
-                                                  const OrientationSweep& sw) {
-    Status sv = validate(sw);
-    if (!sv) return sv.error();
-    auto scale = rotatable_gain_scale(s, fi, e);
-    if (!scale) return scale.error();
+namespace {
 
-    std::vector<double> tilts;
+// The sweep's tilts (k step up to tilt_max, then tilt_max itself) and rolls (k step below 360).
+void sweep_angles(const OrientationSweep& sw, std::vector<double>& tilts, std::vector<double>& rolls) {
     for (int k = 0;; ++k) {
         const double t = k * sw.tilt_step_deg;
         if (t > sw.tilt_max_deg + 1e-9) break;
         tilts.push_back(std::min(t, sw.tilt_max_deg));
     }
     if (tilts.back() < sw.tilt_max_deg - 1e-9) tilts.push_back(sw.tilt_max_deg);
-    std::vector<double> rolls;
     for (int k = 0; k * sw.roll_step_deg < 360 - 1e-9; ++k) rolls.push_back(k * sw.roll_step_deg);
+}
 
-    const Grid& g = s.grid;
-    const CellWeights w = cell_weights(g);
-    const GridTrig tr = grid_trig(g);
-    const PartialGains pg = partial_gains(s.frequencies[fi], scale->factor);
-    const double w_v = e.weight_vertical(), w_h = e.weight_horizontal();
-    const double shift_ratio = sw.roll_step_deg / g.phi.step_deg;
-    const bool exact_shift = g.phi_wraps() && std::abs(shift_ratio - std::round(shift_ratio)) < 1e-9;
+// What every orientation of the sweep shares: the grid's weights and trigonometry, the partial
+// gains, the environment's weights, and whether a roll is an exact column shift.
+struct SweepContext {
+    const Grid& g;
+    const Environment& e;
+    CellWeights w;
+    GridTrig tr;
+    PartialGains pg;
+    double w_v, w_h;
+    bool exact_shift;
+};
 
-    OrientationFigures out;
-    out.exact_roll_shift = exact_shift;
-    UpTables t;
-    for (double tilt : tilts) {
-        const double ta = tilt * deg;
-        const bool vertical_axis = std::abs(tilt) < 1e-12 || std::abs(tilt - 180) < 1e-12;
-        TiltRow row{tilt, 1e300, 0, -1e300};
-        int count = 0;
-        // The rolls of this tilt (tilt 0 and 180 once: every roll is the same orientation up to azimuth).
-        std::vector<double> these = vertical_axis ? std::vector<double>{0.0} : rolls;
-        std::vector<RotatedSums> sums;
-        if (exact_shift) {
-            build_up_tables(g, tr, e, Vec3{0, std::sin(ta), std::cos(ta)}, t);
-            std::vector<int> shifts;
-            for (double roll : these) shifts.push_back(int(std::lround(roll / g.phi.step_deg)) % g.phi.count);
-            auto r = accumulate_rotated(g, w.theta, w.phi, t, pg, w_v, w_h, shifts);
-            if (!r) return r.error();
-            sums = std::move(*r);
-        } else {
-            for (double roll : these) {
-                const double ra = roll * deg;
-                // n = R^T z for R = R_x(tilt) R_z(roll)
-                build_up_tables(g, tr, e, Vec3{std::sin(ta) * std::sin(ra), std::sin(ta) * std::cos(ra), std::cos(ta)},
-                                t);
-                auto r = accumulate_rotated(g, w.theta, w.phi, t, pg, w_v, w_h, {0});
-                if (!r) return r.error();
-                sums.push_back(r->front());
-            }
-        }
-        for (std::size_t m = 0; m < these.size(); ++m) {
-            OrientationSample o{tilt, these[m], sums[m].meg_v + sums[m].meg_h, sums[m].meg_v, sums[m].meg_h};
-            out.samples.push_back(o);
-            row.min = std::min(row.min, o.meg);
-            row.max = std::max(row.max, o.meg);
-            row.mean += o.meg;
-            ++count;
-        }
-        row.mean /= count;
-        out.by_tilt.push_back(row);
+// The MEG sums of one tilt at each of its rolls.
+Result<std::vector<RotatedSums>> tilt_sums(const SweepContext& c, double tilt, const std::vector<double>& these, UpTables& t) {
+    const Grid& g = c.g;
+    const double ta = tilt * deg;
+    std::vector<RotatedSums> sums;
+    if (c.exact_shift) {
+        build_up_tables(g, c.tr, c.e, Vec3{0, std::sin(ta), std::cos(ta)}, t);
+        std::vector<int> shifts;
+        for (double roll : these) shifts.push_back(int(std::lround(roll / g.phi.step_deg)) % g.phi.count);
+        return accumulate_rotated(g, c.w.theta, c.w.phi, t, c.pg, c.w_v, c.w_h, shifts);
     }
+    for (double roll : these) {
+        const double ra = roll * deg;
+        // n = R^T z for R = R_x(tilt) R_z(roll)
+        build_up_tables(g, c.tr, c.e, Vec3{std::sin(ta) * std::sin(ra), std::sin(ta) * std::cos(ra), std::cos(ta)}, t);
+        auto r = accumulate_rotated(g, c.w.theta, c.w.phi, t, c.pg, c.w_v, c.w_h, {0});
+        if (!r) return r.error();
+        sums.push_back(r->front());
+    }
+    return sums;
+}
 
+// Smallest, median, largest, worst and best over all samples.
+void order_figures(OrientationFigures& out) {
     std::vector<double> v;
     for (const OrientationSample& o : out.samples) v.push_back(o.meg);
     std::sort(v.begin(), v.end());
@@ -466,13 +449,16 @@ Result<OrientationFigures> orientation_robustness(const FarFieldSet& s, std::siz
         if (o.meg < out.worst.meg) out.worst = o;
         if (o.meg > out.best.meg) out.best = o;
     }
-    // Random orientation with the axis within tilt_max: weight each tilt row by its band of axis
-    // directions, shared equally among the row's rolls.
+}
+
+// Random orientation with the axis within tilt_max: weight each tilt row by its band of axis
+// directions, shared equally among the row's rolls; the mean, the 10th percentile and the weights.
+void random_orientation_figures(OrientationFigures& out, const std::vector<double>& tilts, double tilt_max_deg) {
     std::vector<double> band(tilts.size());
     double wsum = 0;
     for (std::size_t k = 0; k < tilts.size(); ++k) {
         const double a = k == 0 ? 0.0 : 0.5 * (tilts[k - 1] + tilts[k]) * deg;
-        const double b = k + 1 == tilts.size() ? sw.tilt_max_deg * deg : 0.5 * (tilts[k] + tilts[k + 1]) * deg;
+        const double b = k + 1 == tilts.size() ? tilt_max_deg * deg : 0.5 * (tilts[k] + tilts[k + 1]) * deg;
         band[k] = std::cos(a) - std::cos(b);
         wsum += band[k];
     }
@@ -485,18 +471,16 @@ Result<OrientationFigures> orientation_robustness(const FarFieldSet& s, std::siz
     out.random_mean = sum / wsum;
     // The 10th percentile of that distribution: sort the samples, walk up the cumulative weight.
     std::vector<std::pair<double, double>> weighted;  // (meg, weight)
-    {
-        std::size_t k = 0, first = 0;
-        for (std::size_t q = 0; q <= out.samples.size(); ++q) {
-            if (q == out.samples.size() || out.samples[q].tilt_deg != out.samples[first].tilt_deg) {
-                const double each = band[k] / double(q - first);
-                for (std::size_t r = first; r < q; ++r) {
-                    weighted.push_back({out.samples[r].meg, each});
-                    out.random_weights.push_back(each / wsum);
-                }
-                ++k;
-                first = q;
+    std::size_t k = 0, first = 0;
+    for (std::size_t q = 0; q <= out.samples.size(); ++q) {
+        if (q == out.samples.size() || out.samples[q].tilt_deg != out.samples[first].tilt_deg) {
+            const double each = band[k] / double(q - first);
+            for (std::size_t r = first; r < q; ++r) {
+                weighted.push_back({out.samples[r].meg, each});
+                out.random_weights.push_back(each / wsum);
             }
+            ++k;
+            first = q;
         }
     }
     std::sort(weighted.begin(), weighted.end());
@@ -507,6 +491,49 @@ Result<OrientationFigures> orientation_robustness(const FarFieldSet& s, std::siz
         out.random_p10 = m;
         if (acc >= 0.1 * wsum) break;
     }
+}
+
+}  // namespace
+
+Result<OrientationFigures> orientation_robustness(const FarFieldSet& s, std::size_t fi, const Environment& e,
+                                                  const OrientationSweep& sw) {
+    Status sv = validate(sw);
+    if (!sv) return sv.error();
+    auto scale = rotatable_gain_scale(s, fi, e);
+    if (!scale) return scale.error();
+    std::vector<double> tilts, rolls;
+    sweep_angles(sw, tilts, rolls);
+
+    const Grid& g = s.grid;
+    const double shift_ratio = sw.roll_step_deg / g.phi.step_deg;
+    const SweepContext c{g, e, cell_weights(g), grid_trig(g), partial_gains(s.frequencies[fi], scale->factor),
+                         e.weight_vertical(), e.weight_horizontal(),
+                         g.phi_wraps() && std::abs(shift_ratio - std::round(shift_ratio)) < 1e-9};
+    OrientationFigures out;
+    out.exact_roll_shift = c.exact_shift;
+    UpTables t;
+    for (double tilt : tilts) {
+        const bool vertical_axis = std::abs(tilt) < 1e-12 || std::abs(tilt - 180) < 1e-12;
+        TiltRow row{tilt, 1e300, 0, -1e300};
+        int count = 0;
+        // The rolls of this tilt (tilt 0 and 180 once: every roll is the same orientation up to azimuth).
+        std::vector<double> these = vertical_axis ? std::vector<double>{0.0} : rolls;
+        auto sums = tilt_sums(c, tilt, these, t);
+        if (!sums) return sums.error();
+        for (std::size_t m = 0; m < these.size(); ++m) {
+            const RotatedSums& q = (*sums)[m];
+            OrientationSample o{tilt, these[m], q.meg_v + q.meg_h, q.meg_v, q.meg_h};
+            out.samples.push_back(o);
+            row.min = std::min(row.min, o.meg);
+            row.max = std::max(row.max, o.meg);
+            row.mean += o.meg;
+            ++count;
+        }
+        row.mean /= count;
+        out.by_tilt.push_back(row);
+    }
+    order_figures(out);
+    random_orientation_figures(out, tilts, sw.tilt_max_deg);
     return out;
 }
 

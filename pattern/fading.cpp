@@ -514,6 +514,52 @@ void add_analytic(FadingResult& res, const std::vector<FadingAntenna>& ants, con
              c.probability});
 }
 
+// The power correlation that the simulation's own model has with its finite number of waves: the
+// value the Pearson estimate of |r1|^2 against |r2|^2 tends to as the realisations grow (the
+// estimate's own bias, O(1/realisations), is far smaller than this one's, O(1/waves)).
+// Each realisation sums independent waves of type t (V or H), n_t of them, each with a uniform
+// random phase, amplitude a_t and a direction drawn with the cell probabilities q_t (density times
+// the exact cell weight). With x, y the two antennas' responses to one wave, m11 = E|x|^2,
+// m22 = E|y|^2, m12 = E[x conj y], m4_12 = E[|x|^2 |y|^2] (per wave), only pairings of equal
+// waves survive the phase average in E[|r1|^2 |r2|^2] (by hand):
+//   cov  = |M12|^2 + sum_t n_t (m4_12 - m11 m22 - |m12|^2),   M12 = sum_t n_t m12,
+//   var1 = M11^2   + sum_t n_t (m4_11 - 2 m11^2),              M11 = sum_t n_t m11 (= MEG),
+// and rho = cov / sqrt(var1 var2). As n_t grows the sums fade and rho tends to |M12|^2 / (M11 M22),
+// the Vaughan-Andersen ECC; for an uncorrelated pair what remains is O(1/waves), of either sign.
+std::optional<double> finite_wave_correlation(const Grid& g, const FarField& f1, const FarField& f2, const Environment& e,
+                                              const Sampling& s) {
+    auto env = sample_environment(e, g);
+    if (!env) return std::nullopt;
+    const CellWeights cw = cell_weights(g);
+    double M11 = 0, M22 = 0, cov = 0, var1 = 0, var2 = 0;
+    cplx M12 = 0;
+    for (int pol = 0; pol < 2; ++pol) {
+        const int n = pol == 0 ? s.v_waves : s.h_waves;
+        if (n == 0) continue;
+        const double a2 = std::pow(pol == 0 ? s.v_amplitude : s.h_amplitude, 2);
+        const std::vector<double>& density = pol == 0 ? env->p_theta : env->p_phi;
+        const std::vector<cplx>&x = pol == 0 ? f1.e_theta : f1.e_phi, &y = pol == 0 ? f2.e_theta : f2.e_phi;
+        double m11 = 0, m22 = 0, m4_11 = 0, m4_22 = 0, m4_12 = 0;
+        cplx m12 = 0;
+        for (int i = 0; i < g.theta.count; ++i)
+            for (int j = 0; j < g.phi.count; ++j) {
+                const std::size_t k = g.index(i, j);
+                const double q = density[k] * cw.theta[std::size_t(i)] * cw.phi[std::size_t(j)];
+                const double p1 = std::norm(x[k]), p2 = std::norm(y[k]);
+                m11 += q * p1, m22 += q * p2, m12 += q * x[k] * std::conj(y[k]);
+                m4_11 += q * p1 * p1, m4_22 += q * p2 * p2, m4_12 += q * p1 * p2;
+            }
+        m11 *= a2, m22 *= a2, m12 *= a2, m4_11 *= a2 * a2, m4_22 *= a2 * a2, m4_12 *= a2 * a2;
+        M11 += n * m11, M22 += n * m22, M12 += double(n) * m12;
+        cov += n * (m4_12 - m11 * m22 - std::norm(m12));
+        var1 += n * (m4_11 - 2 * m11 * m11);
+        var2 += n * (m4_22 - 2 * m22 * m22);
+    }
+    cov += std::norm(M12), var1 += M11 * M11, var2 += M22 * M22;
+    if (!(var1 > 0 && var2 > 0)) return std::nullopt;
+    return cov / std::sqrt(var1 * var2);
+}
+
 // E_a(d0) . p for each antenna (on its own grid, interpolated, scaled to gain).
 Result<std::vector<cplx>> dominant_amplitudes(const std::vector<FadingAntenna>& ants, const std::vector<double>& factor,
                                               const DominantWave& d) {
@@ -579,6 +625,8 @@ Result<FadingResult> simulate_fading(const std::vector<FadingAntenna>& ants, con
             res.pair = pair_statistics(power[0], power[1], amp.data(), amp.data() + N, o);
     }
     if (!turned) add_analytic(res, ants, e, o, t.dominant);
+    if (!turned && !o.dominant && res.pair && *res.pair)
+        (**res.pair).expected_power_correlation = finite_wave_correlation(g, (*fields)[0], (*fields)[1], e, *sampling);
     return res;
 }
 

@@ -16,7 +16,8 @@
 // 2048 equally spaced values, which has the same moments as a uniform phase up to order 2047.
 // What is statistical: the estimates (their 95 % intervals are given) and the shape of the
 // distribution, which tends to Rayleigh as `waves` grows (the power correlation of two antennas
-// approaches the ECC to within about 1/waves).
+// approaches the ECC to within about 1/waves: SimulatedPair::expected_power_correlation gives the
+// exact value for the number of waves used).
 //
 // Options: a dominant (Rician) wave of given direction, polarisation and K-factor, with the same
 // random phase for every antenna of a realisation; a random orientation per realisation, the same
@@ -122,6 +123,11 @@ struct SimulatedPair {
     std::vector<CdfPoint> selection_cdf, mrc_cdf;
     // Fixed orientation, no dominant wave: the analytic ECC and the exact combining figures.
     std::optional<double> analytic_ecc;
+    // Fixed orientation, no dominant wave: the power correlation this simulation has in
+    // expectation with its finite number of waves (tends to analytic_ecc as the waves grow; the
+    // difference is O(1/waves), of either sign; the formula is in fading.cpp
+    // finite_wave_correlation). The simulated figure's interval is around this value, not the ECC.
+    std::optional<double> expected_power_correlation;
     std::optional<CombiningFigures> analytic;
     std::vector<CdfPoint> analytic_selection_cdf, analytic_mrc_cdf;  // with `analytic`
 };

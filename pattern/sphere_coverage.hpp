@@ -2,9 +2,18 @@
 // least a given level, as a complementary cumulative distribution over solid angle.
 //
 // Each grid sample stands for its cell, with the exact cell solid angles of pattern/integrate
-// (the same weights as every other integral over the sphere). An elevation band clips the cells:
-// a cell that straddles the band edge counts with the part of its solid angle inside the band,
-//   dphi * (cos(max(a, t_lo)) - cos(min(b, t_hi))),  theta = 90 deg - elevation.
+// (the same weights as every other integral over the sphere). Inside a cell the value is not
+// taken as constant: each quarter of the cell (sample to cell edge in theta, times sample to cell
+// edge in phi, the edge half-way to the neighbour) carries the bilinear interpolant of the linear
+// power between the sample, the two half-way values and the corner, and its exact solid angle is
+// spread evenly over the range of values it spans. A level that cuts through a cell so counts the
+// part of the cell above it (to second order in the step) instead of the whole cell or none:
+// the share converges to the closed form as the step shrinks, with the error falling as the
+// step's square (tests/unit/test_sphere_coverage.cpp). Where there is no neighbour (the edge of
+// the sampled region, a NaN), the value is held at the sample's.
+// An elevation band clips the cells: a cell that straddles the band edge counts with the part
+// of its solid angle inside the band, dphi * (cos(max(a, t_lo)) - cos(min(b, t_hi))),
+// theta = 90 deg - elevation, and with the values of that part only.
 // Shares are of the band's whole solid angle 2 pi (sin el_max - sin el_min); where the data do
 // not reach (a partial sphere) nothing is counted, and sampled_share says how much was known.
 #pragma once
@@ -26,21 +35,29 @@ struct ElevationBand {
 // "Within w degrees of the horizon": elevations -w..w.
 inline ElevationBand horizon_band(double within_deg) { return {-within_deg, within_deg}; }
 
-// The distribution: values sorted from the highest down, each with the share of the band where
-// the value is at least that high (a step function: share_at_or_above() reads it exactly).
+// The distribution as knots from the highest level down, each with the share of the band where
+// the value is at least that high. Between two knots the share is linear in the linear level
+// (share_at_or_above() reads it so); a level that holds a share of its own (a flat region, an
+// exact zero) has two knots, the share just above it and the share at it.
 struct CoverageCurve {
-    std::vector<double> level_db;  // descending sample values in dB (-inf for zero power)
-    std::vector<double> share;     // share of the band at or above level_db[k], rising to sampled_share
+    std::vector<double> level;     // knots, linear, descending (not strictly: see above)
+    std::vector<double> level_db;  // the same in dB (-inf for zero power)
+    std::vector<double> share;     // share of the band at or above level[k], rising to the non-NaN sampled share
     double band_solid_angle_sr = 0;
     double sampled_share = 0;      // share of the band inside the sampled region
 };
 
 // values: linear power per grid sample (grid.size(), row-major as the field arrays); NaN is not
-// counted. Cost: one pass over the grid and a sort of the samples inside the band.
+// counted. Cost: one pass over the grid and a sort of up to 8 events a sample inside the band.
 CoverageCurve coverage_curve(const Grid& g, const std::vector<double>& values, ElevationBand band);
 
-// Share of the band where the value is at least level_db (exact on the step function).
+// Share of the band where the value is at least level_db (on the piecewise-linear curve).
 double share_at_or_above(const CoverageCurve& c, double level_db);
+
+// Solid angle (sr) of the band where the value is at least `level` (linear, the values' own
+// unit), by the same quarter-cell model, without the curve: one pass over the grid, no sort.
+// For one level of any quantity that is smooth between samples (ar_solid_angle uses it for |V|/I).
+double solid_angle_at_or_above(const Grid& g, const std::vector<double>& values, double level, ElevationBand band = {});
 
 // Linear power of a component at every grid sample of one frequency, as a new array
 // (component_power_grid of pattern/components.hpp). The caller checks that the data can give it.

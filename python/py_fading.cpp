@@ -51,6 +51,7 @@ py::dict pair_dict(const SimulatedPair& q) {
     d["power_correlation"] = q.power_correlation;
     d["power_correlation_ci95"] = py::make_tuple(q.power_correlation_ci95.lo, q.power_correlation_ci95.hi);
     d["complex_correlation_squared"] = q.complex_correlation_squared, d["ecc"] = opt(q.analytic_ecc);
+    d["power_correlation_expected"] = opt(q.expected_power_correlation);
     for (auto [k, v] : levels_dict(q.selection, "selection_")) d[k] = v;
     for (auto [k, v] : levels_dict(q.mrc, "mrc_")) d[k] = v;
     std::vector<double> sel, mrc;

@@ -111,7 +111,7 @@ Status write_surface_file(const FarFieldSet& s, std::size_t fi, Component compon
     info.name = (s.name.empty() ? std::string("pattern") : s.name) + ", " + format_frequency(s.frequencies[fi].frequency_hz);
     info.generator = "ellipsa";
     char c[256];
-    std::snprintf(c, sizeof c, "; radius: %s from %.1f (centre) to %.1f %s (radius 1); colour: %s %g..%g %s; +z up",
+    std::snprintf(c, sizeof c, "; radius: %s from %.2f (centre) to %.2f %s (radius 1, the largest sample); colour: %s %g..%g %s; +z up",
                   to_string(component), mesh.floor_db, mesh.peak_db, mesh.unit.c_str(), mesh.bar.title.c_str(), mesh.bar.min,
                   mesh.bar.max, mesh.bar.unit.c_str());
     info.comment = info.name + c;

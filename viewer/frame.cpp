@@ -314,12 +314,8 @@ Intents draw_ui(const AppState& s, const Derived& d, const RendererInfo& rendere
 
 // The caption under the title: what sets the radius, its peak (rounded as every figure is), the range.
 std::string view_caption(const AppState& s, const Derived& d) {
-    const SurfaceView& sv = d.surface.value();
-    const std::string comp = short_label(s.settings.component);
-    const std::string range = "range " + exports::fixed(s.settings.range_db, 0) + " dB";
-    if (const std::optional<double>& p = d.peak_db.value())
-        return "radius: " + comp + ", peak " + exports::with_unit(*p, exports::db_decimals, sv.mesh.unit) + ", " + range;
-    return "radius: " + comp + ", no power (every sample of it is zero)";
+    return exports::radius_caption(short_label(s.settings.component), d.peak_db.value(), d.surface.value().mesh.unit,
+                                   s.settings.range_db);
 }
 
 void draw_view_overlay(const AppState& s, const Derived& d, const Layout& L, const UiFonts& fonts, const RendererInfo&) {

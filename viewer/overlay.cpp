@@ -94,7 +94,7 @@ float draw_radial_scale(ImDrawList* dl, const OrbitCamera& cam, ImVec2 view_size
     const float len = float(std::hypot(r.x - o.x, r.y - o.y));
     if (!o.visible || !r.visible || !(len > 8)) return 0;
     char title[160];
-    std::snprintf(title, sizeof title, "Radius: centre %.2f, surface %.2f %s; ticks in dB below the peak", peak_db - range_db, peak_db,
+    std::snprintf(title, sizeof title, "Radius: centre %.2f, largest sample %.2f %s; ticks in dB below it", peak_db - range_db, peak_db,
                   unit.c_str());
     dl->AddText(f, f->FontSize, pos, colour, title);
     const float y = pos.y + f->FontSize * 1.6f;

@@ -7,8 +7,10 @@
 #include <cstdio>
 #include <memory>
 
+#include "exports/figure_text.hpp"
 #include "exports/png.hpp"
 #include "io/atomic_write.hpp"
+#include "pattern/peak.hpp"
 #include "viewer/gl.hpp"
 #include "viewer/overlay.hpp"
 #include "viewer/render_context.hpp"
@@ -38,10 +40,11 @@ void draw_annotations(const FarFieldSet& s, const SnapshotOptions& o, const Surf
                               : (s.name.empty() ? std::string("pattern") : s.name) + "  \u00b7  " +
                                     format_frequency(s.frequencies[o.frequency_index].frequency_hz);
     dl->AddText(fonts.title, fonts.title->FontSize, ImVec2(16 * scale, 12 * scale), ink, title.c_str());
+    const Peak pk = find_peak(s, o.frequency_index, o.component);
+    const std::string caption = exports::radius_caption(short_label(o.component), pk.value > 0 ? std::optional(to_db(pk.value)) : std::nullopt,
+                                                        mesh.unit, o.range_db);
+    dl->AddText(fonts.small, fonts.small->FontSize, ImVec2(16 * scale, 12 * scale + fonts.title->FontSize * 1.35f), muted, caption.c_str());
     char line[256];
-    std::snprintf(line, sizeof line, "radius: %s, %.2f %s at the peak, %g dB dynamic range", short_label(o.component),
-                  mesh.peak_db, mesh.unit.c_str(), o.range_db);
-    dl->AddText(fonts.small, fonts.small->FontSize, ImVec2(16 * scale, 12 * scale + fonts.title->FontSize * 1.35f), muted, line);
     std::snprintf(line, sizeof line, "view from azimuth %g\u00b0, elevation %g\u00b0", o.view_azimuth_deg, o.view_elevation_deg);
     dl->AddText(fonts.small, fonts.small->FontSize, ImVec2(16 * scale, o.height - fonts.small->FontSize * 1.8f), muted, line);
     draw_axis_labels(dl, cam, ImVec2(0, 0), ImVec2(float(view_w), float(o.height)), 1.3, fonts.small);

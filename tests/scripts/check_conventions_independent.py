@@ -676,11 +676,12 @@ def check_coverage():
                 x = 10 ** (lv["level_db"] / 10)
                 exact = float((ww * (fine >= x)).sum() / (4 * math.pi))
                 state = coarse >= x
-                cells = float((weights * state).sum() / (4 * math.pi))
                 tag = f"coverage {name} {comp} >= {lv['level_db']} dB"
-                check(f"{tag} (cells of the conventions' integration rule)", lv["share"], cells, 1e-9)
-                check(f"{tag} (closed form; tolerance: the cells on the contour)", lv["share"], exact,
-                      boundary_share(state, weights) + 1e-9)
+                # Counting whole cells may miss by every cell on the contour (boundary_share); with
+                # the power interpolated inside the cells (docs/views.md) the miss is at most a
+                # tenth of that (measured: under 5 %, the fine reference's own error included).
+                check(f"{tag} (closed form; tolerance: a tenth of the cells on the contour)", lv["share"], exact,
+                      boundary_share(state, weights) / 10 + 1e-9)
     check_coverage_band_pair()
 
 

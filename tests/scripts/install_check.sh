@@ -60,6 +60,43 @@ PY
   [[ $MODE == tree ]] || { grep -q "python3-numpy" depends.txt && ok "Depends names python3-numpy" || bad "Depends lacks python3-numpy"; }
 fi
 
+# The copyright file in the machine-readable format (DEP-5, Debian policy 12.5): the format line,
+# every paragraph with a Files field has Copyright and License, and every licence short name they
+# use has a standalone License paragraph with its text. The changelog (policy 12.7): gzip -9n
+# (no name, no time stamp), parsed by dpkg-parsechangelog, its version the package's.
+doc=$P/share/doc/ellipsa
+cr=$doc/copyright
+if [[ -s $cr ]] && /usr/bin/python3 - "$cr" <<'PY'
+import re, sys
+paras = [p for p in re.split(r"\n\s*\n", open(sys.argv[1]).read().strip()) if p.strip()]
+assert paras[0].startswith("Format: https://www.debian.org/doc/packaging-manuals/copyright-format/1.0/"), paras[0][:80]
+def fields(p):
+    out, key = {}, None
+    for line in p.split("\n"):
+        if line[:1] in (" ", "\t"): out[key] += "\n" + line
+        else: key, _, v = line.partition(":"); out[key] = v.strip()
+    return out
+used, texts = set(), set()
+for p in map(fields, paras[1:]):
+    lic = p["License"].split("\n")[0].strip()
+    if "Files" in p:
+        assert "Copyright" in p and p["Copyright"], p
+        used |= {n.strip() for n in re.split(r"\bor\b|\band\b|,", lic) if n.strip()}
+    else:
+        assert "\n" in p["License"], "standalone licence without text: " + lic
+        texts.add(lic)
+external = {"Apache-2.0"}  # in /usr/share/common-licenses, which the paragraph names
+assert used <= texts | external, used - texts - external
+assert any(p.startswith("Files: *") for p in paras)
+PY
+then ok "copyright: machine-readable (DEP-5), every licence named has its text"; else bad "copyright file $cr"; fi
+cl=$doc/changelog.Debian.gz
+if [[ -s $cl ]] && gzip -t "$cl" && [[ $(od -An -tu4 -j4 -N4 "$cl" | tr -d ' ') == 0 ]] \
+   && zcat "$cl" >changelog.txt && dpkg-parsechangelog -l changelog.txt -S Version >cl_version.txt 2>cl_err.txt; then
+  want=$( [[ $MODE == deb ]] && dpkg-deb -f "$deb" Version || sed -n '1s/.*(\(.*\)).*/\1/p' changelog.txt )
+  [[ $(cat cl_version.txt) == "$want" ]] && ok "changelog.Debian.gz: gzip -9n, version $want" || bad "changelog version $(cat cl_version.txt), package $want"
+else bad "changelog.Debian.gz: $(cat cl_err.txt 2>/dev/null)"; fi
+
 # A page for ellipsa and every command --help lists; man -l renders each with every long option of --help.
 cmds=$("$E" --help | awk '/^Subcommands:/{s=1; next} s && /^  [a-z]/{print $1}')
 [[ $(wc -w <<<"$cmds") -ge 10 ]] && ok "--help lists $(wc -w <<<"$cmds") commands" || bad "commands from --help: $cmds"

@@ -72,6 +72,11 @@ TEST_CASE("simulated correlation and combining agree with the ECC and the exact 
         CHECK(q.complex_correlation_squared == Approx(ecc).margin(0.01));
         // The interval plus the 1/waves distance of a finite sum of waves from a Gaussian field.
         CHECK(q.power_correlation >= q.power_correlation_ci95.lo - 1.0 / 100 - 1e-9);
+        // The finite-wave value (pattern/fading.cpp finite_wave_correlation) is what the interval is around.
+        REQUIRE(q.expected_power_correlation);
+        CHECK(*q.expected_power_correlation == Approx(ecc).margin(0.02));
+        CHECK(*q.expected_power_correlation >= q.power_correlation_ci95.lo - 0.003);
+        CHECK(*q.expected_power_correlation <= q.power_correlation_ci95.hi + 0.003);
         CHECK(ecc >= q.power_correlation_ci95.lo - 0.01);
         CHECK(ecc <= q.power_correlation_ci95.hi + 0.01);
         // Selection and maximal ratio: the exact levels (pattern/combining.hpp) inside the intervals.
@@ -81,6 +86,48 @@ TEST_CASE("simulated correlation and combining agree with the ECC and the exact 
             CHECK(near(q.analytic->outages[k].mrc_level, q.mrc[k]));
         }
     }
+}
+
+TEST_CASE("with few waves the power correlation is the finite-wave value, not the ECC", "[fading][simulation]") {
+    // Short dipoles along z and x (Balanis sec. 4.2: E_theta = sqrt(1.5) sin t and
+    // sqrt(1.5) cos t cos p on the gain scale), vertical waves only (XPR +inf), uniform arrival:
+    // ECC 0. N waves of power 1/N with independent uniform phases; by hand, with the sphere
+    // averages <cos^2 t> = 1/3, <cos^4 t> = 1/5, <sin^4 t> = 8/15, <sin^2 t cos^2 t> = 2/15,
+    // <cos^2 p> = 1/2, <cos^4 p> = 3/8 (pattern/fading.cpp finite_wave_correlation's moments):
+    //   cov = N (0.15 - 0.25) / N^2, var1 = 1 - 0.8 / N, var2 = 0.0625 + 0.04375 / N,
+    //   rho_N = (-0.1 / N) / sqrt(var1 var2): -0.1031 for N = 4, -0.0040 for N = 100.
+    ReferenceAntenna za;
+    za.kind = ReferenceKind::short_dipole;
+    ReferenceAntenna xa = za;
+    xa.orientation = rotation_y(90 * deg);
+    const FarFieldSet z = synthesize(za, 1.0, 1e9), x = synthesize(xa, 1.0, 1e9);
+    Environment e;
+    e.xpr_db = INFINITY;
+    for (int n : {4, 100}) {
+        FadingOptions o = quick(200000);
+        o.waves = n;
+        auto r = simulate_fading({{&z, 0}, {&x, 0}}, e, o);
+        REQUIRE(r);
+        REQUIRE(r->pair);
+        REQUIRE(*r->pair);
+        const SimulatedPair& q = **r->pair;
+        const double rho = (-0.1 / n) / std::sqrt((1 - 0.8 / n) * (0.0625 + 0.04375 / n));
+        INFO("waves " << n << " simulated " << q.power_correlation << " [" << q.power_correlation_ci95.lo << ", "
+                      << q.power_correlation_ci95.hi << "]");
+        REQUIRE(q.analytic_ecc);
+        CHECK(*q.analytic_ecc == Approx(0).margin(1e-12));
+        REQUIRE(q.expected_power_correlation);
+        CHECK(*q.expected_power_correlation == Approx(rho).epsilon(2e-3));
+        CHECK(inside(*q.expected_power_correlation, q.power_correlation_ci95));
+        // With 4 waves the bias is far outside the interval around 0: the audit's finding.
+        if (n == 4) CHECK(!inside(0.0, q.power_correlation_ci95));
+    }
+    // An antenna against itself: 1 for any number of waves.
+    FadingOptions o = quick(1000);
+    o.waves = 3;
+    auto self = simulate_fading({{&x, 0}, {&x, 0}}, e, o);
+    REQUIRE(self);
+    CHECK((**self->pair).expected_power_correlation.value_or(0) == Approx(1).epsilon(1e-12));
 }
 
 TEST_CASE("a dominant wave gives the Rician distribution with the antenna's own K-factor", "[fading][simulation]") {

@@ -301,3 +301,26 @@ TEST_CASE("a zero part of a power reads none (0 %)", "[figure_text]") {
     CHECK(exports::part_text(0.5, 0.25, "dBi", "") == "-3.01 dBi (25.0 %)");  // 10 log10(0.5), common practice
     CHECK(exports::part_text(0.5, std::nullopt, "dBi", "") == "-3.01 dBi (share unavailable)");
 }
+
+TEST_CASE("the peak is one value, rounded alike wherever it is shown; the largest sample beside it", "[honest][peak]") {
+    // A Gaussian beam, U = G0 exp(-(t - t0)^2 / (2 st^2)) exp(-(p - p0)^2 / (2 sp^2)), is a parabola in
+    // dB along theta and along phi, so the parabola through the largest sample and its neighbours
+    // (pattern/peak.hpp) finds G0 and (t0, p0) exactly (common practice). t0, p0 lie between the
+    // samples of a 5-degree grid, so the largest sample is lower than the peak.
+    const double g0 = 20.0, t0 = 41.3, p0 = 77.7, st = 9.0, sp = 14.0;
+    const FarFieldSet s = closed_form(5.0, [&](double t, double p) {
+        const double dt = t / deg - t0, dp = p / deg - p0;
+        return std::pair<cplx, cplx>{std::sqrt(g0 * std::exp(-dt * dt / (2 * st * st) - dp * dp / (2 * sp * sp))), 0.0};
+    });
+    const PatternSummary r = summarize(s, 0);
+    CHECK(r.peak_db == Approx(10 * std::log10(g0)).margin(1e-9));
+    CHECK(r.peak.theta_deg == Approx(t0).margin(1e-9));
+    CHECK(r.peak.phi_deg == Approx(p0).margin(1e-9));
+    CHECK(to_db(r.peak.sample_value) < r.peak_db - 0.01);
+    // The header (info, report) and the 3D view's caption (viewer, rendered views) print the same
+    // rounding of the same number.
+    const std::string shown = exports::with_unit(r.peak_db, exports::db_decimals, "dBi");
+    CHECK(exports::peak_text(r, "dBi", "deg").rfind(shown, 0) == 0);
+    CHECK(exports::radius_caption("Total", r.peak_db, "dBi", 40) == "radius: Total, peak " + shown + ", range 40 dB");
+    CHECK(exports::radius_caption("Total", std::nullopt, "dBi", 40) == "radius: Total, no power (every sample of it is zero)");
+}
