@@ -52,14 +52,6 @@ std::string existing_output(const ViewArgs& a) {
 // Every file's reader options, made here as for every other command (cli/load.hpp); a bad option
 // or map file is refused before the window opens.
 int file_options(const ViewArgs& a, viewer::ViewerOptions& o) {
-    // The viewer reads its files itself and does not turn them yet: refuse rather than show the
-    // pattern unturned (a file's own mounting-up/mounting-turns are not applied by it either).
-    const MountingOptions& m = a.load.mounting;
-    if (!m.up.empty() || !m.rotate.empty() || !m.phase_centre.empty()) {
-        std::cerr << "ellipsa view: --up, --rotate and --phase-centre are not available in the viewer yet; "
-                     "expected them on the other commands (info, diversity, render, ...)\n";
-        return exit_usage;
-    }
     for (const std::string& f : a.files) {
         auto p = prepare_load(f, a.load);
         if (!p) {
@@ -72,8 +64,14 @@ int file_options(const ViewArgs& a, viewer::ViewerOptions& o) {
             return exit_bad_input;
         }
         if (!p->beside_map.empty()) std::cerr << "ellipsa view: " << p->path << ": read with the map file beside it, " << p->beside_map << "\n";
+        auto install = install_request(p->mounting);  // checked while parsing; named all the same
+        if (!install) {
+            std::cerr << "ellipsa view: " << p->path << ": " << install.error().format() << "\n";
+            return exit_usage;
+        }
         o.files.push_back(p->path);
         o.file_options.push_back(std::move(p->options));
+        o.file_installs.push_back(std::move(*install));
     }
     return exit_ok;
 }

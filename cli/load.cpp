@@ -20,9 +20,7 @@ bool names_pattern_file(const CLI::Option* opt) {
 std::string take_file_options(const std::string& arg, LoadOptions& o) {
     auto f = parse_file_argument(arg);
     if (!f) throw CLI::ValidationError(f.error().format());
-    const bool own = !f->own.map.empty() || !f->own.map_file.empty() || !f->own.assume.empty() || !f->own.scale.empty() ||
-                     !f->own.offset.empty();
-    if (own) {
+    if (has_options(f->own)) {
         for (const auto& [path, _] : o.per_file)
             if (path == f->path) throw CLI::ValidationError(f->path + ": expected the options of one file once, found them again");
         o.per_file.emplace_back(f->path, f->own);
@@ -46,7 +44,8 @@ void add_load_options(CLI::App* sub, LoadOptions& o) {
     sub->add_option("--offset", o.offset, "Add to schema columns on reading (after --scale): \"e_theta_db=-3,...\"");
     add_mounting_options(sub, o.mounting);
     sub->footer("These options apply to every FILE. Options for one file only follow its name: "
-                "FILE::map=FILE.map::offset=e_total_db=7.5 (keys map, map-file, assume, scale, offset, angles). "
+                "FILE::map=FILE.map::offset=e_total_db=7.5 (keys map, map-file, assume, scale, offset, angles, up, "
+                "rotate, phase-centre). "
                 "A map file beside a file (FILE's stem with .map, or a .map file naming it) is used when no map is given.");
 }
 
@@ -124,8 +123,36 @@ bool exists(const std::string& path) {
     return ::stat(path.c_str(), &st) == 0;
 }
 
-constexpr const char* file_keys = "map, map-file, assume, scale, offset, angles";
+constexpr const char* file_keys = "map, map-file, assume, scale, offset, angles, up, rotate, phase-centre";
+
+// The field of `own` (or `angles`, which joins own.assume) that "::key=" sets; null for an unknown key.
+std::string* file_key_field(const std::string& key, FileOptions& own, std::string& angles) {
+    return key == "map"            ? &own.map
+           : key == "map-file"     ? &own.map_file
+           : key == "assume"       ? &own.assume
+           : key == "scale"        ? &own.scale
+           : key == "offset"       ? &own.offset
+           : key == "angles"       ? &angles
+           : key == "up"           ? &own.mounting.up
+           : key == "rotate"       ? &own.mounting.rotate
+           : key == "phase-centre" ? &own.mounting.phase_centre
+                                   : nullptr;
+}
+
+// One mounting option from the command or from the file's own key, never both.
+Status merge_mounting(const std::string& command, const char* flag, const std::string& own, const std::string& path,
+                      const char* key, std::string& out) {
+    if (!command.empty() && !own.empty())
+        return Error{path, 0, 0, std::string("expected the mounting once, found ") + flag + " and ::" + key + "= both"};
+    out = own.empty() ? command : own;
+    return Ok{};
+}
 }  // namespace
+
+bool has_options(const FileOptions& o) {
+    return !o.map.empty() || !o.map_file.empty() || !o.assume.empty() || !o.scale.empty() || !o.offset.empty() ||
+           !o.mounting.up.empty() || !o.mounting.rotate.empty() || !o.mounting.phase_centre.empty();
+}
 
 Result<CsvReadOptions> read_options(const FileOptions& o) {
     CsvReadOptions ro;
@@ -144,19 +171,15 @@ Result<FileArgument> parse_file_argument(const std::string& arg) {
         const std::string item = arg.substr(pos, next - pos);
         const std::size_t eq = item.find('=');
         const std::string key = item.substr(0, eq);
-        std::string* field = key == "map"        ? &out.own.map
-                             : key == "map-file" ? &out.own.map_file
-                             : key == "assume"   ? &out.own.assume
-                             : key == "scale"    ? &out.own.scale
-                             : key == "offset"   ? &out.own.offset
-                             : key == "angles"   ? &angles
-                                                 : nullptr;
+        std::string* field = file_key_field(key, out.own, angles);
         if (!field || eq == std::string::npos || eq + 1 == item.size())
             return Error{out.path, 0, 0,
                          std::string("expected ::key=value after the file name, key one of ") + file_keys + ", found \"" +
                              item + "\""};
         if (!field->empty()) return Error{out.path, 0, 0, "expected each ::" + key + "= once, found it again"};
         *field = item.substr(eq + 1);
+        if (auto q = install_request(out.own.mounting); !q)  // a mounting key is checked as its option is
+            return Error{out.path, 0, 0, "::" + key + "=: " + q.error().message};
         pos = next + 2;
     }
     if (!angles.empty()) out.own.assume += (out.own.assume.empty() ? "angles=" : ",angles=") + angles;
@@ -168,14 +191,24 @@ std::string file_path(const std::string& arg) {
     return f ? f->path : arg;
 }
 
+namespace {
+Status prepare_mounting(const MountingOptions& command, const MountingOptions& own, const std::string& path,
+                        MountingOptions& out) {
+    out.turn_fields = command.turn_fields;
+    if (Status st = merge_mounting(command.up, "--up", own.up, path, "up", out.up); !st) return st;
+    if (Status st = merge_mounting(command.rotate, "--rotate", own.rotate, path, "rotate", out.rotate); !st) return st;
+    return merge_mounting(command.phase_centre, "--phase-centre", own.phase_centre, path, "phase-centre",
+                          out.phase_centre);
+}
+}  // namespace
+
 Result<PreparedLoad> prepare_load(const std::string& arg, const LoadOptions& o) {
     auto file = parse_file_argument(arg);
     if (!file) return file.error();
     for (const auto& [path, own] : o.per_file)
-        if (path == file->path && file->own.map.empty() && file->own.map_file.empty() && file->own.assume.empty() &&
-            file->own.scale.empty() && file->own.offset.empty())
-            file->own = own;
-    PreparedLoad p{file->path, {}, ""};
+        if (path == file->path && !has_options(file->own)) file->own = own;
+    PreparedLoad p{file->path, {}, "", {}};
+    if (Status st = prepare_mounting(o.mounting, file->own.mounting, file->path, p.mounting); !st) return st.error();
     if (Status st = add_options(o, flag_names, p.options); !st) return st.error();
     const std::string own_map = file->path + "::map", own_assume = file->path + "::assume",
                       own_scale = file->path + "::scale", own_offset = file->path + "::offset";
@@ -215,7 +248,7 @@ Result<FarFieldSet> load_pattern(const std::string& arg, const LoadOptions& o) {
     auto raw = read_far_field_csv(path, ro->options);
     if (!raw) return raw;
     for (const std::string& n : raw->reading_notes) std::fprintf(stderr, "ellipsa: %s: %s\n", path.c_str(), n.c_str());
-    auto request = install_request(o.mounting);
+    auto request = install_request(ro->mounting);
     if (!request) return request.error();
     auto installed = install_pattern(std::move(*raw), *request);
     if (!installed) return Error{path, 0, 0, installed.error().message};

@@ -19,9 +19,11 @@ struct FileOptions {
     std::string assume;    // --assume "angle-unit=rad,frequency-unit=GHz,..."
     std::string scale;     // --scale "schema_column=factor,..."
     std::string offset;    // --offset "schema_column=value,..."
+    MountingOptions mounting;  // --up, --rotate, --phase-centre (cli/mounting_options.hpp)
 };
+// True when any option is set (the mounting's turn_fields aside).
+bool has_options(const FileOptions& o);
 struct LoadOptions : FileOptions {
-    MountingOptions mounting;  // --up, --rotate, --phase-centre for every file (cli/mounting_options.hpp)
     // The options of single files ("PATH::key=value", below), by path; filled while the command
     // line is parsed, so each FILE argument holds its path alone.
     std::vector<std::pair<std::string, FileOptions>> per_file;
@@ -36,9 +38,10 @@ void add_load_options(CLI::App* sub, LoadOptions& o);
 Result<CsvReadOptions> read_options(const FileOptions& o);
 
 // One FILE argument with options of its own (docs/far-field-csv.md, "Options for one file"):
-//   PATH::key=value[::key=value...]   keys: map, map-file, assume, scale, offset
-// e.g. "range.csv::map=range.map::offset=e_total_db=7.5". A PATH that exists as given is
-// taken whole, even with "::" in it.
+//   PATH::key=value[::key=value...]   keys: map, map-file, assume, scale, offset, and the
+//   mounting's up, rotate, phase-centre (values as --up, --rotate, --phase-centre; checked here)
+// e.g. "range.csv::map=range.map::offset=e_total_db=7.5", "x.csv::up=+x::rotate=z:30,x:10".
+// A PATH that exists as given is taken whole, even with "::" in it.
 struct FileArgument {
     std::string path;
     FileOptions own;
@@ -55,6 +58,7 @@ struct PreparedLoad {
     std::string path;
     CsvReadOptions options;
     std::string beside_map;
+    MountingOptions mounting;  // the command's --up/--rotate/--phase-centre, or the file's own keys
 };
 Result<PreparedLoad> prepare_load(const std::string& arg, const LoadOptions& o);
 

@@ -8,6 +8,8 @@
 #   docs/images/coverage-horizon.png     coverage near the horizon: dipole, loop, best of both
 #   docs/images/panel-NAME-SIZE.png      every panel (cut, probe, polarisation, diversity, band, map, fading)
 #                                        at 1280x800 and 800x600
+#   docs/images/viewer-mounting-SIZE.png a dipole along x read with FILE::up=+x (the mounting control,
+#                                        the world-up gizmo and horizon ring) at 1280x800 and 800x600
 #   docs/images/report-cut.png, report-3d.png   a cut figure and the 3D view of the report
 set -euo pipefail
 cd "$(dirname "$0")/.."
@@ -46,10 +48,19 @@ for size in 1280x800 800x600; do
   shot map "$size" --tab map
   shot fading "$size" --compare 2 --tab fading
 done
+# The mounting: a half-wave dipole along x, read with its +x axis up, beside the printed dipole; the
+# diversity panel shows the MEG of a vertical dipole.
+M=$(mktemp -d)
+"$E" synth dipole --step 2 --rotate-y 90 --name "dipole along x" --out "$M/x-dipole.csv" >/dev/null
+for size in 1280x800 800x600; do
+  xvfb-run -a -s "-screen 0 1280x800x24" "$E" view "$M/x-dipole.csv::up=+x" "$X/printed-dipole.csv" \
+    --size "$size" --frames 20 --screenshot "$I/viewer-mounting-$size.png" --force --diversity
+done
+rm -rf "$M"
 # The report: its cut figure and its 3D view, as the report's page shows them.
 R=$(mktemp -d)
 "$E" report "$X/small-loop.csv" --frequency 2.45e9 --out "$R/report" --force >/dev/null
 cp "$R"/report/*-phi0.png "$I/report-cut.png"
 cp "$R"/report/*-3d-axial-ratio.png "$I/report-3d.png"
 rm -rf "$R"
-echo "screenshots: wrote $I/viewer-overview.png, viewer-polarisation.png, small-loop-cut.png, turnstile-band.png, turnstile-ar-map.png, coverage-horizon.png, panel-*-1280x800.png, panel-*-800x600.png, report-cut.png, report-3d.png"
+echo "screenshots: wrote $I/viewer-overview.png, viewer-polarisation.png, small-loop-cut.png, turnstile-band.png, turnstile-ar-map.png, coverage-horizon.png, panel-*-1280x800.png, panel-*-800x600.png, viewer-mounting-*.png, report-cut.png, report-3d.png"

@@ -313,7 +313,9 @@ Status detail_section(Document& doc, Renderer& rd, const ReportInput& in, const 
     doc.note("Curves: " + components_text(comps, s.ludwig3_reference) +
              (comps.size() > 1 && comps[1] == Component::rhcp
                   ? " (the peak is circularly polarised: axial ratio up to 6 dB)."
-                  : comps.size() > 1 ? " (θ and φ are the vertical and horizontal parts for an antenna with +z up)." : ".") +
+                  : comps.size() > 1 ? " (θ and φ are the vertical and horizontal parts in the world frame, +z up; mounting: " +
+                                           mounting_text(s) + ")."
+                                     : ".") +
              (peak_note.empty() ? "" : " " + peak_note) + " Each cut's plotted values are in the CSV file beside its image.");
     return Ok{};
 }
@@ -424,10 +426,21 @@ Status comparison_section(Document& doc, Renderer& rd, const std::vector<ReportI
     return Ok{};
 }
 
+// The world frame and each pattern's mounting in it (exports::mounting_text, the words of every output).
+std::string mounting_paragraph(const std::vector<ReportInput>& inputs) {
+    std::string t = "Frame: every figure refers to the installed antenna in the world frame, +z up (the zenith) and the "
+                    "horizon at θ = 90°; a file's axes are turned into it by the mounting (docs/conventions.md, \"The "
+                    "mounting frame\"). Mounting applied: ";
+    for (std::size_t i = 0; i < inputs.size(); ++i)
+        t += (i ? "; " : "") + (inputs.size() > 1 ? letter(i) + ". " : std::string()) + mounting_text(inputs[i].set);
+    return t + ".";
+}
+
 // How the figures were computed, with the sources.
-void method_section(Document& doc, const ReportOptions& o) {
+void method_section(Document& doc, const std::vector<ReportInput>& inputs, const ReportOptions& o) {
     doc.heading(2, "Method", "method");
-    doc.paragraph("Directions: θ from +z, φ from +x toward +y. Elevation cuts run θ from −180° to 180° in the plane φ "
+    doc.paragraph(mounting_paragraph(inputs));
+    doc.paragraph("Directions: θ from +z, φ from +x toward +y, in the world frame. Elevation cuts run θ from −180° to 180° in the plane φ "
                   "(negative θ is the half-plane φ + 180°); the azimuth cut runs φ round the horizon θ = 90°.");
     doc.paragraph("HPBW: the width between the two −3.01 dB crossings around the peak of a cut, interpolated between "
                   "samples. Front-to-back: the peak against the opposite direction (θ → 180° − θ, φ → φ + 180°) in the "
@@ -437,7 +450,7 @@ void method_section(Document& doc, const ReportOptions& o) {
                   "(exp(+jωt), right-hand when the field turns clockwise looking along the direction of propagation).");
     if (o.environment)
         doc.paragraph("MEG: mean effective gain after T. Taga (IEEE Trans. VT-39, 1990), the integral of "
-                      "[XPR/(1+XPR) G_θ P_θ + 1/(1+XPR) G_φ P_φ] over the sphere, antenna +z up, in the environment " +
+                      "[XPR/(1+XPR) G_θ P_θ + 1/(1+XPR) G_φ P_φ] over the sphere, each antenna as mounted (Frame, above), in the environment " +
                       describe(*o.environment) + ". Parameters: " + o.environment->source + ".");
     for (const std::string& n : o.method_notes) doc.paragraph(n);
     doc.note("Curve colours: Okabe–Ito palette, with a different dash for each curve so the figures also read in grey.");
@@ -468,7 +481,7 @@ Result<std::vector<ReportFile>> build_report(const std::vector<ReportInput>& inp
         link.push_back({&inputs[i].set, inputs[i].path, letter(i) + ". " + display_name(inputs[i]), inputs[i].set.nearest_frequency(f0)});
     if (Status st = link_section(doc, files, link, o); !st) return st.error();
 
-    method_section(doc, o);
+    method_section(doc, inputs, o);
     files.push_back({"index.html", to_html(doc)});
     files.push_back({"report.md", to_markdown(doc)});
     return files;

@@ -145,7 +145,7 @@ Status link_section(Document& doc, std::vector<ReportFile>& files, const std::ve
     doc.heading(2, "Link reliability", "link");
     doc.paragraph("In the " + describe(*o.environment) + " environment, each pattern at " +
                   format_frequency(inputs[0].set->frequencies[inputs[0].freq_index].frequency_hz) +
-                  " or its nearest frequency, mounted as in its file (+z up). The simulation sums plane waves drawn from "
+                  " or its nearest frequency, mounted as the Method section states. The simulation sums plane waves drawn from "
                   "the environment (" + std::to_string(report_fading_realisations) +
                   " realisations, seed 1); the closed forms use the patterns' MEG and ECC (docs/conventions.md).");
     if (Status st = fading_part(doc, files, inputs, o); !st) return st;

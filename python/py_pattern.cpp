@@ -1,8 +1,11 @@
 // ellipsa.read, ellipsa.Pattern (grid, fields, powers, polarisation as numpy arrays), writing the
 // schema, and the closed-form reference antennas.
+#include <array>
 #include <cmath>
+#include <cstdio>
 
 #include "cli/load.hpp"
+#include "exports/figure_text.hpp"
 #include "importers/far_field_csv.hpp"
 #include "pattern/interpolate.hpp"
 #include "pattern/install.hpp"
@@ -26,7 +29,7 @@ std::string text_of(const OptionArg& a) {
 // name --map, --assume, ...), dict entries named after the keyword they came in ("map", ...).
 CsvReadOptions read_options(const OptionArg& map, const std::optional<std::string>& map_file, const OptionArg& assume,
                             const OptionArg& scale, const OptionArg& offset, int threads) {
-    cli::FileOptions lo{text_of(map), map_file.value_or(""), text_of(assume), text_of(scale), text_of(offset)};
+    cli::FileOptions lo{text_of(map), map_file.value_or(""), text_of(assume), text_of(scale), text_of(offset), {}};
     CsvReadOptions ro = take(cli::read_options(lo));
     auto each = [](const OptionArg& a, auto add) {
         if (a && std::holds_alternative<py::dict>(*a))
@@ -40,17 +43,50 @@ CsvReadOptions read_options(const OptionArg& map, const std::optional<std::strin
     return ro;
 }
 
+// The mounting arguments (up, rotate, phase_centre) in the command line's text forms, through its
+// own parser (cli/mounting_options.hpp): up "+x" or "THETA,PHI"; rotate "z:30,x:10" or a sequence
+// of (axis, degrees); phase_centre "auto" or (x, y, z) metres. Errors name the keyword.
+using TurnsArg = std::optional<std::variant<std::string, std::vector<std::pair<std::string, double>>>>;
+using CentreArg = std::optional<std::variant<std::string, std::array<double, 3>>>;
+
+std::string exact_text(double v) {  // reads back to the same double
+    char b[40];
+    std::snprintf(b, sizeof b, "%.17g", v);
+    return b;
+}
+
+InstallRequest mounting_request(const std::optional<std::string>& up, const TurnsArg& rotate, const CentreArg& centre) {
+    cli::MountingOptions o;
+    o.up = up.value_or("");
+    if (rotate && std::holds_alternative<std::string>(*rotate)) o.rotate = std::get<std::string>(*rotate);
+    if (rotate && !std::holds_alternative<std::string>(*rotate))
+        for (const auto& [axis, deg] : std::get<1>(*rotate))
+            o.rotate += (o.rotate.empty() ? "" : ",") + axis + ":" + exact_text(deg);
+    if (centre && std::holds_alternative<std::string>(*centre)) o.phase_centre = std::get<std::string>(*centre);
+    if (centre && !std::holds_alternative<std::string>(*centre)) {
+        const auto& c = std::get<1>(*centre);
+        o.phase_centre = exact_text(c[0]) + "," + exact_text(c[1]) + "," + exact_text(c[2]);
+    }
+    auto q = cli::install_request(o);
+    if (q) return *q;
+    const std::string& flag = q.error().file;
+    raise(Error{flag == "--up" ? "up" : flag == "--rotate" ? "rotate" : "phase_centre", 0, 0, q.error().message});
+}
+
 PatternPtr read(const std::string& path, const OptionArg& map, const std::optional<std::string>& map_file,
-                const OptionArg& assume, const OptionArg& scale, const OptionArg& offset, int threads) {
+                const OptionArg& assume, const OptionArg& scale, const OptionArg& offset, int threads,
+                const std::optional<std::string>& up, const TurnsArg& rotate, const CentreArg& phase_centre) {
     CsvReadOptions ro = read_options(map, map_file, assume, scale, offset, threads);
+    const InstallRequest request = mounting_request(up, rotate, phase_centre);
     Result<FarFieldSet> r = Error{};
     {
         py::gil_scoped_release unlocked;  // reading a large file takes a while; other threads may run
         r = read_far_field_csv(path, ro);
         // Installed as the command line installs it (pattern/install.hpp): the file's own mounting
-        // applied and the phase centres kept for interpolation, so the figures are the command's.
+        // or the one asked for applied, and the phase centres kept for interpolation, so the
+        // figures are the command's.
         if (r) {
-            auto installed = install_pattern(std::move(*r), InstallRequest{});
+            auto installed = install_pattern(std::move(*r), request);
             r = installed ? std::move(installed) : Result<FarFieldSet>(Error{path, 0, 0, installed.error().message});
         }
     }
@@ -272,6 +308,9 @@ static void bind_pattern_class(py::module_& m) {
                                "The file it was read from (its name when made otherwise): errors name it.")
         .def_property_readonly("source", [](const Pattern& p) { return p.set.source; })
         .def_property_readonly("note", [](const Pattern& p) { return p.set.note; })
+        .def_property_readonly("mounting", [](const Pattern& p) { return exports::mounting_text(p.set); },
+                               "The mounting applied, in the words of every output (\"up +x; rotation resampled ...\");\n"
+                               "info()[\"mounting\"] has it as numbers.")
         .def_property_readonly("quantity", [](const Pattern& p) { return to_string(p.set.quantity); },
                                "\"gain\", \"directivity\" or \"relative\".")
         .def_property_readonly("content", [](const Pattern& p) { return to_string(p.set.content); },
@@ -336,11 +375,16 @@ void bind_pattern(py::module_& m) {
     bind_pattern_class(m);
     m.def("read", &read, py::arg("path"), py::kw_only(), py::arg("map") = py::none(), py::arg("map_file") = py::none(),
           py::arg("assume") = py::none(), py::arg("scale") = py::none(), py::arg("offset") = py::none(),
-          py::arg("threads") = 0,
+          py::arg("threads") = 0, py::arg("up") = py::none(), py::arg("rotate") = py::none(),
+          py::arg("phase_centre") = py::none(),
           "Read a far-field CSV file (docs/far-field-csv.md) into a Pattern, with the command line's import\n"
           "options: map (\"Source=schema,...\", \"@FILE\" or a dict), map_file, assume (\"key=value,...\" or a\n"
           "dict), scale and offset (\"column=number,...\" or a dict). Bad input raises ellipsa.Error with the\n"
-          "command line's \"file:line:column: message\" text.");
+          "command line's \"file:line:column: message\" text.\n"
+          "The mounting, as --up, --rotate and --phase-centre (docs/conventions.md, \"The mounting frame\"): up, the\n"
+          "file's axis that points up (\"+x\" ... \"-z\" or \"THETA,PHI\"; replaces the file's own mounting); rotate,\n"
+          "turns about the world axes applied left to right (\"z:30,x:10\" or [(\"z\", 30), (\"x\", 10)]);\n"
+          "phase_centre, \"auto\" or (x, y, z) metres in the world frame. Pattern.mounting says what was applied.");
     m.def("synth", &synth, py::arg("kind"), py::kw_only(), py::arg("length_wl") = 0.5, py::arg("circumference_wl") = 1.0,
           py::arg("phase_deg") = -90.0, py::arg("rotate_deg") = std::array<double, 3>{0, 0, 0}, py::arg("step_deg") = 1.0,
           py::arg("frequency_hz") = 2.45e9,

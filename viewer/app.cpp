@@ -73,7 +73,8 @@ WindowRequest window_request(const ViewerOptions& o, const Startup& st) {
 // bundled examples, or the built-in demo. Returns how many of the files could not be read.
 int load_start_files(const ViewerOptions& o, AppState& s, FileLoader& loader, StopSignals& stop) {
     for (std::size_t k = 0; k < o.files.size(); ++k) {
-        if (k < o.file_options.size()) loader.enqueue(o.files[k], o.file_options[k]);
+        if (k < o.file_options.size())
+            loader.enqueue(o.files[k], o.file_options[k], k < o.file_installs.size() ? o.file_installs[k] : InstallRequest{});
         else loader.enqueue(o.files[k], "");
     }
     int failed = 0;

@@ -5,6 +5,7 @@
 #include <vector>
 
 #include "importers/far_field_csv.hpp"
+#include "pattern/install.hpp"
 
 namespace ellipsa::viewer {
 
@@ -13,6 +14,9 @@ struct ViewerOptions {
     // The reader options of each file, made by the command line (cli/load.hpp); a file without
     // an entry here is read as File > Open reads it (a map file beside it when one names it).
     std::vector<CsvReadOptions> file_options;
+    // The mounting of each file (--up, --rotate, --phase-centre or FILE::up=..., pattern/install.hpp);
+    // a file without an entry is installed with its own mounting.
+    std::vector<InstallRequest> file_installs;
     bool software = false;
     int width = 0, height = 0;       // 0: from the saved settings (default 1280 x 800)
     int frames = 0;                  // > 0: run this many frames and exit

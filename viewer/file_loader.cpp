@@ -13,6 +13,7 @@ namespace ellipsa::viewer {
 struct FileLoader::Job {
     std::string path, map;
     std::optional<CsvReadOptions> options;
+    InstallRequest install;
     std::atomic<double> progress{0};
     std::atomic<bool> cancel{false}, done{false};
     std::optional<Result<FarFieldSet>> result;
@@ -33,9 +34,9 @@ CsvReadOptions with_progress(CsvReadOptions o, std::function<bool(double)> progr
 FileLoader::FileLoader() = default;
 FileLoader::~FileLoader() = default;
 
-void FileLoader::enqueue(std::string path, std::string map) { waiting_.push_back({std::move(path), std::move(map), {}}); }
-void FileLoader::enqueue(std::string path, CsvReadOptions options) {
-    waiting_.push_back({std::move(path), "", std::move(options)});
+void FileLoader::enqueue(std::string path, std::string map) { waiting_.push_back({std::move(path), std::move(map), {}, {}}); }
+void FileLoader::enqueue(std::string path, CsvReadOptions options, InstallRequest install) {
+    waiting_.push_back({std::move(path), "", std::move(options), std::move(install)});
 }
 
 void FileLoader::cancel_current() {
@@ -54,7 +55,7 @@ Intents FileLoader::poll() {
         if (j.cancel)
             out.push_back(intent::LoadFinished{j.path, abs, Error{j.path, 0, 0, "loading cancelled"}});
         else if (j.result)
-            out.push_back(intent::LoadFinished{j.path, abs, std::move(*j.result)});
+            out.push_back(intent::LoadFinished{j.path, abs, std::move(*j.result), j.install});
         current_.reset();
     }
     if (!current_ && !waiting_.empty()) {
@@ -62,6 +63,7 @@ Intents FileLoader::poll() {
         current_->path = std::move(waiting_.front().path);
         current_->map = std::move(waiting_.front().map);
         current_->options = std::move(waiting_.front().options);
+        current_->install = std::move(waiting_.front().install);
         waiting_.pop_front();
         Job* raw = current_.get();
         raw->worker = std::thread([raw] {

@@ -21,8 +21,9 @@ public:
 
     // A file from the UI: `map` is its map file ("" looks beside it).
     void enqueue(std::string path, std::string map);
-    // A file from the command line, with the reader options the command line made for it.
-    void enqueue(std::string path, CsvReadOptions options);
+    // A file from the command line, with the reader options and the mounting the command line
+    // made for it (the mounting comes back with the file's LoadFinished).
+    void enqueue(std::string path, CsvReadOptions options, InstallRequest install = {});
     void cancel_current();
     bool idle() const;
     // Start the next file when none is being read; report the status and every finished read.
@@ -34,6 +35,7 @@ private:
     struct Waiting {
         std::string path, map;
         std::optional<CsvReadOptions> options;  // set: read with these (map unused)
+        InstallRequest install;
     };
     std::deque<Waiting> waiting_;
     bool reported_idle_ = true;

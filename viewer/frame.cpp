@@ -356,6 +356,15 @@ void draw_view_overlay(const AppState& s, const Derived& d, const Layout& L, con
     bg->PopClipRect();
     bg->PushClipRect(L.view_pos, ImVec2(L.view_pos.x + L.view_size.x, L.view_pos.y + L.view_size.y));
     draw_axis_labels(bg, s.camera, L.view_pos, L.view_size, 1.3, fonts.small);
+    // The mounting applied, in the words of every output (exports::mounting_text), at the view's
+    // foot, and the world's up and horizon above it.
+    const std::string mounting = "mounting: " + exports::mounting_text(a->set);
+    const float mh = fonts.small->CalcTextSizeA(fonts.small->FontSize, 1e9f, L.view_size.x - 24, mounting.c_str()).y;
+    const float foot = L.view_pos.y + L.view_size.y - mh - 6;
+    bg->AddText(fonts.small, fonts.small->FontSize, ImVec2(L.view_pos.x + 12, foot), muted, mounting.c_str(), nullptr,
+                L.view_size.x - 24);
+    const float gr = std::clamp(L.view_size.y * 0.05f, 14.0f, 24.0f);
+    draw_world_up(bg, s.camera, L.view_pos, L.view_size, 1.3, fonts.small, ImVec2(L.view_pos.x + 14 + gr, foot - gr - 6), gr);
     auto mark = [&](const Direction& at, ImU32 col) {
         const Projected q = project(s.camera, surface_point(s, d, at), L.view_size.x, L.view_size.y);
         if (q.visible) bg->AddCircle(ImVec2(L.view_pos.x + float(q.x), L.view_pos.y + float(q.y)), 6, col, 16, 2.0f);

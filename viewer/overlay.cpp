@@ -2,6 +2,7 @@
 
 #include "pattern/db_scale.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <cstdio>
 
@@ -128,6 +129,58 @@ void draw_axis_labels(ImDrawList* dl, const OrbitCamera& cam, ImVec2 origin, ImV
         dl->AddText(f, f->FontSize, ImVec2(origin.x + float(p.x) + 3, origin.y + float(p.y) - f->FontSize * 0.5f), a.col,
                     a.label);
     }
+}
+
+void draw_world_up(ImDrawList* dl, const OrbitCamera& cam, ImVec2 origin, ImVec2 size, double radius, ImFont* font,
+                   ImVec2 gizmo_centre, float gizmo_radius) {
+    const ImU32 ring = IM_COL32(70, 110, 150, 150), arrow = IM_COL32(40, 75, 150, 255);
+    auto at = [&](glm::dvec3 p, bool& visible) {
+        const Projected q = project(cam, p, size.x, size.y);
+        visible = q.visible;
+        return ImVec2(origin.x + float(q.x), origin.y + float(q.y));
+    };
+    constexpr double two_pi = 6.283185307179586;
+    constexpr int n = 72;  // every other 5-degree step drawn: a dotted ring round the surface
+    for (int k = 0; k < n; k += 2) {
+        const double a0 = two_pi * k / n, a1 = two_pi * (k + 1) / n;
+        bool v0 = false, v1 = false;
+        const ImVec2 p0 = at({radius * std::cos(a0), radius * std::sin(a0), 0}, v0);
+        const ImVec2 p1 = at({radius * std::cos(a1), radius * std::sin(a1), 0}, v1);
+        if (v0 && v1) dl->AddLine(p0, p1, ring, 1.5f);
+    }
+    // The gizmo: the horizon as an ellipse and the zenith as an arrow, as the camera sees them,
+    // scaled so that a unit length at the origin is gizmo_radius pixels.
+    bool v = false;
+    const ImVec2 o = at({0, 0, 0}, v);
+    auto offset = [&](glm::dvec3 p) {
+        bool vis = false;
+        const ImVec2 q = at(p, vis);
+        return ImVec2(q.x - o.x, q.y - o.y);
+    };
+    const ImVec2 ex = offset({1, 0, 0}), ey = offset({0, 1, 0}), ez = offset({0, 0, 1});
+    auto len = [](ImVec2 a) { return std::sqrt(a.x * a.x + a.y * a.y); };
+    const float unit = std::max({len(ex), len(ey), len(ez), 1e-3f}), k = gizmo_radius / unit;
+    ImVec2 prev{};
+    for (int i = 0; i <= 48; ++i) {
+        const double a = two_pi * i / 48;
+        const ImVec2 q(gizmo_centre.x + k * float(std::cos(a) * ex.x + std::sin(a) * ey.x),
+                       gizmo_centre.y + k * float(std::cos(a) * ex.y + std::sin(a) * ey.y));
+        if (i > 0) dl->AddLine(prev, q, ring, 1.5f);
+        prev = q;
+    }
+    const ImVec2 tip(gizmo_centre.x + k * ez.x, gizmo_centre.y + k * ez.y);
+    const float dx = tip.x - gizmo_centre.x, dy = tip.y - gizmo_centre.y, l = len(ImVec2(dx, dy));
+    dl->AddCircleFilled(gizmo_centre, 2.5f, arrow);
+    ImFont* f = font ? font : ImGui::GetFont();
+    if (l >= 4) {  // looking straight down the vertical, the ellipse is a circle round the dot
+        const float ux = dx / l, uy = dy / l, head = std::min(8.0f, l * 0.45f);
+        dl->AddLine(gizmo_centre, ImVec2(tip.x - ux * head, tip.y - uy * head), arrow, 2.0f);
+        dl->AddTriangleFilled(tip, ImVec2(tip.x - ux * head - uy * head * 0.5f, tip.y - uy * head + ux * head * 0.5f),
+                              ImVec2(tip.x - ux * head + uy * head * 0.5f, tip.y - uy * head - ux * head * 0.5f), arrow);
+    }
+    dl->AddText(f, f->FontSize, ImVec2(tip.x + 4, tip.y - f->FontSize * 0.8f), arrow, "up");
+    dl->AddText(f, f->FontSize, ImVec2(gizmo_centre.x + gizmo_radius + 4, gizmo_centre.y - f->FontSize * 0.1f), ring,
+                "horizon");
 }
 
 }  // namespace ellipsa::viewer

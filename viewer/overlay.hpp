@@ -32,6 +32,12 @@ float draw_radial_scale(ImDrawList* dl, const OrbitCamera& cam, ImVec2 view_size
 // projected with the camera into the view rectangle [origin, origin + size].
 void draw_axis_labels(ImDrawList* dl, const OrbitCamera& cam, ImVec2 origin, ImVec2 size, double length, ImFont* font);
 
+// Which way is up in the world frame (the mounting applied, pattern/mounting.hpp): a dotted
+// horizon ring of the given radius round the surface in the xy-plane, and a small gizmo centred at
+// gizmo_centre (window pixels): the horizon as the camera sees it and an arrow "up" to the zenith.
+void draw_world_up(ImDrawList* dl, const OrbitCamera& cam, ImVec2 origin, ImVec2 size, double radius, ImFont* font,
+                   ImVec2 gizmo_centre, float gizmo_radius);
+
 inline ImU32 to_u32(const Rgb& c, float a = 1) { return ImGui::ColorConvertFloat4ToU32(ImVec4(c.r, c.g, c.b, a)); }
 
 }  // namespace ellipsa::viewer

@@ -180,6 +180,8 @@ Intents draw_patterns_panel(const AppState& s, const Derived& d) {
     loading_and_error(s, in);
     ImGui::Spacing();
     pattern_table(s, in);
+    draw_mounting_section(s, in);
+    ImGui::Spacing();
     frequency_and_figures(s, d, in);
     if (!s.note.empty()) ImGui::TextDisabled("%s", s.note.c_str());
     return in;

@@ -36,6 +36,9 @@ Intents draw_map_panel(const AppState& s, const Derived& d);
 // The in-window file browser (panel_browser.cpp), a window over the others while AppState::browser is set.
 Intents draw_file_browser(const AppState& s, const Derived& d);
 Intents draw_help_overlay(const AppState& s);
+// A section of the Patterns panel (viewer/mounting_panel.cpp): A's mounting, presets for the six
+// axes and turns about the world axes, with exports::mounting_text of what is applied.
+void draw_mounting_section(const AppState& s, Intents& in);
 // The first-run orientation: what each panel shows, dismissable (remembered in the settings).
 Intents draw_intro_overlay(const AppState& s);
 

@@ -113,4 +113,24 @@ grep -q "expected X,Y,Z in metres" err.txt && ok "--phase-centre says what it ex
 sed 's/^# mounting-up: +x$/# mounting-up: upwards/' xm.csv >bad.csv
 expect_rc 1 "a bad mounting-up line" "$E" info bad.csv
 grep -q "bad.csv:[0-9]*:16: mounting-up: expected an axis" err.txt && ok "the file's line and column" || bad "$(cat err.txt)"
+# One file's own mounting (FILE::up=, FILE::rotate=, FILE::phase-centre=; docs/far-field-csv.md,
+# "Options for one file"): the same as the options, for that file only.
+"$E" diversity x.csv::up=+x z.csv --environment urban --json >pf.json 2>err.txt
+py "
+p=json.load(open('pf.json'))['patterns']; x,z=p[0],p[1]
+assert x['mounting']['up']=='+x' and z['mounting']['identity'], (x['mounting'], z['mounting'])
+assert abs(x['meg_db']-z['meg_db']) < 0.01, (x['meg_db'], z['meg_db'])
+" && ok "x.csv::up=+x beside z.csv: same MEG, each file its own mounting" || bad "per-file up: $(head -c 300 err.txt)"
+"$E" info x.csv::rotate=z:30,x:10::up=-y --json >pr.json 2>err.txt
+py "m=json.load(open('pr.json'))['mounting']; assert m['up']=='-y' and [(t['axis'],t['angle_deg']) for t in m['turns']]==[('z',30),('x',10)], m" \
+  && ok "x.csv::rotate=z:30,x:10::up=-y" || bad "per-file rotate: $(head -c 300 err.txt)"
+"$E" info z.csv::phase-centre=0,0,0.1 --json >pp.json 2>err.txt
+py "s=json.load(open('pp.json'))['results'][0]['phase_reference_shift_m']; assert abs(s[2]-0.1)<1e-12, s" \
+  && ok "z.csv::phase-centre=0,0,0.1" || bad "per-file phase centre: $(head -c 300 err.txt)"
+expect_rc 2 "x.csv::up=sideways" "$E" info x.csv::up=sideways
+grep -q "x.csv: ::up=: expected an axis" err.txt && ok "::up= says what it expects" || bad "$(cat err.txt)"
+expect_rc 2 "x.csv::rotate=z30" "$E" diversity x.csv::rotate=z30
+grep -q "::rotate=: expected turns AXIS:DEG" err.txt && ok "::rotate= says what it expects" || bad "$(cat err.txt)"
+expect_rc 1 "x.csv::up=+x with --up +y" "$E" info x.csv::up=+x --up +y
+grep -q "expected the mounting once, found --up and ::up= both" err.txt && ok "a mounting given twice names both" || bad "$(cat err.txt)"
 finish

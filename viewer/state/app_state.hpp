@@ -8,11 +8,13 @@
 // (viewer/state/derived.hpp), rebuilt when its inputs change.
 #pragma once
 #include <cstddef>
+#include <memory>
 #include <optional>
 #include <string>
 #include <vector>
 
 #include "pattern/far_field.hpp"
+#include "pattern/install.hpp"
 #include "viewer/scene/camera.hpp"
 #include "viewer/scene/diversity_view.hpp"
 #include "viewer/scene/settings.hpp"
@@ -20,9 +22,15 @@
 namespace ellipsa::viewer {
 
 struct LoadedPattern {
-    FarFieldSet set;
+    FarFieldSet set;   // installed (pattern/install.hpp): every figure and view uses this one
     std::string path;  // empty for built-in patterns
     int id = 0;        // unique in the window's life; derived data is keyed on it, not on the list position
+    // The mounting asked for (the command line's --up/--rotate/--phase-centre or FILE::up=...,
+    // then the mounting control), and the pattern as read when `set` differs from it (a mounting
+    // or a moved phase reference applied; null when `set` is the file's pattern as read). A new
+    // mounting installs the pattern as read again (install_loaded, viewer/state/apply.hpp).
+    InstallRequest install;
+    std::shared_ptr<const FarFieldSet> as_read;
 };
 
 // A direction on the sphere, degrees.
@@ -88,6 +96,9 @@ struct AppState {
     std::string path_input, map_input;  // the patterns panel's text fields
     std::optional<LoadingView> loading;
     std::string load_error;  // last failed load, shown until dismissed
+    std::string mounting_error;  // why the last mounting asked for was not applied ("" none)
+    // The mounting control's turns as typed, not yet applied (none: A's turns are shown).
+    std::optional<std::string> turns_input;
     std::string note;        // e.g. "built-in demo"
     bool show_help = false, show_intro = false;
     bool diversity_open = false;

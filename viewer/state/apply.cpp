@@ -47,16 +47,40 @@ std::optional<double> shown_frequency_hz(const AppState& s) {
 // Make pattern i the A pattern, at the frequency nearest to the one shown before (so switching
 // between files of the same band keeps the band). B is dropped if it was i.
 void set_active(AppState& s, int i, std::optional<double> keep_hz) {
+    if (i != s.active) s.turns_input.reset(), s.mounting_error.clear();  // the mounting control shows the new A's
     s.active = i;
     if (s.compare == i) s.compare = -1;
     const LoadedPattern* a = s.active_pattern();
     s.freq = a && keep_hz && !a->set.frequencies.empty() ? a->set.nearest_frequency(*keep_hz) : 0;
 }
 
-void add_pattern(AppState& s, FarFieldSet set, std::string path) {
+// Install and add one pattern; an Error (the mounting cannot be applied) adds nothing.
+Status add_pattern(AppState& s, FarFieldSet set, std::string path, const InstallRequest& q) {
+    LoadedPattern p;
+    if (Status st = install_loaded(p, std::move(set), q); !st) return st;
     const std::optional<double> hz = shown_frequency_hz(s);
-    s.patterns.push_back({std::move(set), std::move(path), s.next_pattern_id++});
+    p.path = std::move(path);
+    p.id = s.next_pattern_id++;
+    s.patterns.push_back(std::move(p));
     set_active(s, int(s.patterns.size()) - 1, hz);
+    return Ok{};
+}
+
+// Pattern i installed again from the pattern as read, with a new mounting and a new id.
+void set_mounting(AppState& s, const intent::SetMounting& m) {
+    if (m.index < 0 || m.index >= int(s.patterns.size())) return;
+    LoadedPattern& p = s.patterns[std::size_t(m.index)];
+    InstallRequest q = p.install;
+    q.up = m.up;
+    q.turns = m.turns;
+    FarFieldSet source = p.as_read ? *p.as_read : p.set;
+    if (Status st = install_loaded(p, std::move(source), q); !st) {
+        s.mounting_error = st.error().message;
+        return;
+    }
+    s.mounting_error.clear();
+    s.turns_input.reset();
+    p.id = s.next_pattern_id++;
 }
 
 void close_pattern(AppState& s, int i) {
@@ -118,15 +142,19 @@ struct Apply {
             s.load_error = i.result.error().format();  // the loaded patterns and the view stay as they were
             return;
         }
+        if (Status st = add_pattern(s, std::move(*i.result), i.path, i.install); !st) {
+            s.load_error = Error{i.path, 0, 0, st.error().message}.format();
+            return;
+        }
         s.load_error.clear();
         s.note.clear();
-        add_pattern(s, std::move(*i.result), i.path);
         s.settings.remember_file(i.absolute_path);
     }
     void operator()(intent::AddPatterns& i) {  // the first of them becomes A
         const int first = int(s.patterns.size());
         const std::optional<double> hz = shown_frequency_hz(s);
-        for (FarFieldSet& f : i.sets) s.patterns.push_back({std::move(f), "", s.next_pattern_id++});
+        for (FarFieldSet& f : i.sets)
+            if (Status st = add_pattern(s, std::move(f), "", {}); !st) s.load_error = st.error().format();
         if (first < int(s.patterns.size())) set_active(s, first, hz);
         s.note = i.note;
     }
@@ -152,6 +180,8 @@ struct Apply {
     void operator()(intent::EditPath& i) { s.path_input = std::move(i.text); }
     void operator()(intent::EditMap& i) { s.map_input = std::move(i.text); }
     void operator()(intent::DismissLoadError&) { s.load_error.clear(); }
+    void operator()(intent::SetMounting& i) { set_mounting(s, i); }
+    void operator()(intent::EditTurns& i) { s.turns_input = std::move(i.text); }
     void operator()(intent::ChangeSettings& i) { s.settings = within_limits(std::move(i.settings), s.settings); }
     void operator()(intent::StepComponent& i) {
         const LoadedPattern* a = s.active_pattern();
@@ -251,6 +281,25 @@ struct Apply {
 };
 
 }  // namespace
+
+Status install_loaded(LoadedPattern& p, FarFieldSet as_read, const InstallRequest& q) {
+    // The pattern as read is kept only when the installed one differs from it.
+    const bool same = q.turn_fields && q.reference == PhaseReference::keep &&
+                      is_identity(resolve_mounting(as_read.file_mounting, q.up, q.turns));
+    std::shared_ptr<const FarFieldSet> keep;
+    Result<FarFieldSet> r = Error{"", 0, 0, ""};
+    if (same) {
+        r = install_pattern(std::move(as_read), q);
+    } else {
+        keep = std::make_shared<const FarFieldSet>(std::move(as_read));
+        r = install_pattern(*keep, q);
+    }
+    if (!r) return r.error();
+    p.set = std::move(*r);
+    p.install = q;
+    p.as_read = std::move(keep);
+    return Ok{};
+}
 
 Effects apply(AppState& s, Intents intents) {
     Effects fx;

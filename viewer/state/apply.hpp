@@ -22,10 +22,16 @@ struct Effects {
     std::optional<std::string> file_dialog;  // show the desktop's file dialog in this folder (the window falls back to its own)
 };
 
+// Install `as_read` with request `q` (pattern/install_pattern, the command line's function) into
+// p.set, p.install and p.as_read; on an Error p is unchanged. Cost: a phase-centre estimate per
+// frequency, and a rotation of the pattern when the mounting is not the identity.
+Status install_loaded(LoadedPattern& p, FarFieldSet as_read, const InstallRequest& q);
+
 // Carry out the intents in order. Afterwards the state is consistent whatever came in: A and B
 // are valid indices (B never equals A), the frequency exists, and the shown component and
 // colouring are ones the active pattern (and B) can give. Cost: small, except adding patterns
-// (a move) and closing one (a list erase).
+// (a move and install_loaded), closing one (a list erase) and a new mounting (install_loaded,
+// once per change: the pattern gets a new id, so every derived view is rebuilt once).
 Effects apply(AppState& s, Intents intents);
 
 }  // namespace ellipsa::viewer

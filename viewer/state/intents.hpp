@@ -32,7 +32,8 @@ struct LoadStatus {  // from the loader: what is being read now (none: nothing)
 };
 struct LoadFinished {  // from the loader: a read ended
     std::string path, absolute_path;
-    Result<FarFieldSet> result;
+    Result<FarFieldSet> result;  // as read; apply() installs it with `install`
+    InstallRequest install{};    // the command line's mounting for this file (none from the UI)
 };
 struct AddPatterns {  // built-in or example patterns (no file to remember)
     std::vector<FarFieldSet> sets;
@@ -47,6 +48,17 @@ struct StepFrequency { int delta = 1; };
 struct EditPath { std::string text; };
 struct EditMap { std::string text; };
 struct DismissLoadError {};
+// A new mounting for pattern `index` (pattern/mounting.hpp): `up` replaces the file's own (none:
+// the file's own mounting), `turns` follow it, about the world axes, left to right. The phase
+// reference stays as asked when the pattern was opened.
+struct SetMounting {
+    int index = 0;
+    std::optional<Vec3> up;
+    std::vector<AxisTurn> turns;
+};
+struct EditTurns { std::string text; };  // the mounting control's turns field being typed
+// The up axes the mounting control offers (parse_up's text forms).
+inline constexpr const char* mounting_up_presets[] = {"+z", "-z", "+x", "-x", "+y", "-y"};
 
 // --- What is shown ---
 // Any edit of the persistent settings: the panel edits a copy and returns it whole (one widget
@@ -93,7 +105,7 @@ struct Quit {};
 using Intent = std::variant<
     intent::OpenFiles, intent::CancelLoad, intent::LoadStatus, intent::LoadFinished, intent::AddPatterns,
     intent::ClosePattern, intent::SelectPattern, intent::NextPattern, intent::SetCompare, intent::SetFrequency,
-    intent::StepFrequency, intent::EditPath, intent::EditMap, intent::DismissLoadError, intent::ChangeSettings,
+    intent::StepFrequency, intent::EditPath, intent::EditMap, intent::DismissLoadError, intent::SetMounting, intent::EditTurns, intent::ChangeSettings,
     intent::StepComponent, intent::StepColorBy, intent::Orbit, intent::Zoom, intent::LookFrom, intent::SetView,
     intent::ResetView, intent::Hover, intent::Pin, intent::Unpin, intent::Escape, intent::ShowHelp, intent::ShowIntro,
     intent::DismissIntro, intent::ShowDiversity, intent::ChangeDiversity, intent::ShowBand, intent::ShowFading, intent::SetBandQuantity, intent::SelectTab, intent::ShowMap, intent::SetMapProjection, intent::SetCutExportFormat,
