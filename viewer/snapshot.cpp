@@ -31,7 +31,8 @@ struct ImGuiContextSwitch {
 };
 
 // The caption, axis labels, colour bar, ellipse key and radial scale, drawn with ImGui draw lists
-// over the rendered scene.
+// over the rendered scene; when a mounting applies, its text (exports::mounting_text) under the
+// caption and the world-up gizmo at the top right of the view.
 void draw_annotations(const FarFieldSet& s, const SnapshotOptions& o, const SurfaceMesh& mesh, const OrbitCamera& cam,
                       int view_w, float bar_strip, float scale, const UiFonts& fonts) {
     ImDrawList* dl = ImGui::GetBackgroundDrawList();
@@ -56,6 +57,14 @@ void draw_annotations(const FarFieldSet& s, const SnapshotOptions& o, const Surf
     draw_radial_scale(dl, cam, ImVec2(float(view_w), float(o.height)),
                       ImVec2(16 * scale, o.height - fonts.small->FontSize * 6.2f), mesh.peak_db, o.range_db, mesh.unit,
                       fonts.small, muted);
+    if (is_identity(s.mounting) && is_identity(s.file_mounting)) return;
+    const std::string mounting = "mounting: " + exports::mounting_text(s);
+    dl->AddText(fonts.small, fonts.small->FontSize, ImVec2(16 * scale, 12 * scale + fonts.title->FontSize * 1.35f +
+                                                                          fonts.small->FontSize * 1.3f),
+                muted, mounting.c_str(), nullptr, float(view_w) - 32 * scale);
+    const float gr = 20 * scale;
+    draw_world_up(dl, cam, ImVec2(0, 0), ImVec2(float(view_w), float(o.height)), 1.3, fonts.small,
+                  ImVec2(float(view_w) - gr - 70 * scale, 12 * scale + 2 * gr), gr);
 }
 
 }  // namespace
