@@ -136,7 +136,7 @@ void definitions(Document& doc, const Ranking& r, const RankLabels& l) {
                  " point of the Rayleigh distributions mixed over those orientations (fading and orientation both random).";
     }
     doc.paragraph(turned);
-    doc.paragraph("MEG after Taga (IEEE Trans. VT-39, 1990), antenna +z up; level at " + outage_text(r.outage) +
+    doc.paragraph("MEG after Taga (IEEE Trans. VT-39, 1990), each antenna as mounted (world frame, +z up); level at " + outage_text(r.outage) +
                   ": MEG (-ln(1 - p)), " + fixed(-to_db(rayleigh_level(r.outage, 1.0)), db_decimals) +
                   " dB below the mean (Rayleigh fading, one branch).");
 }

@@ -99,4 +99,11 @@ expect_rc 2 "no output folder is bad usage" "$E" report a.csv
 expect_rc 1 "missing input is bad input" "$E" report a.csv nope.csv --out rep2
 [[ ! -e rep2 ]] && ok "nothing created when an input is missing" || bad "rep2 created"
 expect_rc 0 "report --help" "$E" report --help
+# The Method section states the world frame and each pattern's mounting in the words of every
+# output (exports::mounting_text), not "+z up" whatever the file's axes (issue 12).
+expect_rc 0 "report with a mounting" "$E" report "a.csv::up=+x" b.csv --out rep5 --environment urban "${OPTS[@]}"
+grep -q "Frame: every figure refers to the installed antenna in the world frame" rep5/report.md \
+  && grep -q "Mounting applied: A. up +x; rotation resampled (interpolated between samples); B. as in the file (+z up)." rep5/report.md \
+  && ok "Method names the world frame and each mounting" || bad "Method: $(grep -A2 '## Method' rep5/report.md | head -c 400)"
+grep -q "antenna +z up" rep5/report.md && bad "the MEG paragraph still assumes +z up" || ok "the MEG paragraph refers to the mounting"
 finish
