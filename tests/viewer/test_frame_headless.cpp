@@ -123,6 +123,19 @@ TEST_CASE("every panel draws odd states without a GPU and asks for nothing by it
         cases.push_back({"fading panel, one pattern", {band}, {intent::ShowFading{true}}});
         cases.push_back({"map, theta/phi, pinned", {band}, {intent::ShowMap{true}, intent::SetMapProjection{1}, intent::Pin{Direction{40, 10}}}});
     }
+    // The mounting control: a mounted pattern with a turns text that does not read (the error is
+    // shown, nothing is sent), and a mounting refused for a half sphere (its reason is shown).
+    cases.push_back({"mounted, turns being typed wrong", {antenna(ReferenceKind::dipole)},
+                     {intent::SetMounting{0, Vec3{1, 0, 0}, {{Axis::z, 30}}}, intent::EditTurns{"z30"}}});
+    {
+        FarFieldSet half = antenna(ReferenceKind::dipole);
+        half.grid.theta.count = half.grid.theta.count / 2;
+        for (FarField& f : half.frequencies) {
+            f.e_theta.resize(half.grid.size());
+            f.e_phi.resize(half.grid.size());
+        }
+        cases.push_back({"mounting refused", {half}, {intent::SetMounting{0, Vec3{1, 0, 0}, {}}}});
+    }
     for (Case& c : cases) {
         INFO(c.name);
         AppState s;
