@@ -27,13 +27,12 @@ constexpr Anchor rdbu9[] = {{0x21, 0x66, 0xAC}, {0x43, 0x93, 0xC3}, {0x92, 0xC5,
                             {0xD1, 0xE5, 0xF0}, {0xF7, 0xF7, 0xF7}, {0xFD, 0xDB, 0xC7},
                             {0xF4, 0xA5, 0x82}, {0xD6, 0x60, 0x4D}, {0xB2, 0x18, 0x2B}};
 
+// An anchor table as colours in 0..1.
 template <std::size_t N>
-ColorRgb from_table(const Anchor (&t)[N], double x) {
-    x = std::clamp(x, 0.0, 1.0) * double(N - 1);
-    std::size_t i = std::min<std::size_t>(std::size_t(x), N - 2);
-    const float f = float(x - double(i));
-    const Anchor &a = t[i], &b = t[i + 1];
-    return {(a.r + f * (b.r - a.r)) / 255.f, (a.g + f * (b.g - a.g)) / 255.f, (a.b + f * (b.b - a.b)) / 255.f};
+std::array<ColorRgb, N> scaled(const Anchor (&t)[N]) {
+    std::array<ColorRgb, N> out{};
+    for (std::size_t i = 0; i < N; ++i) out[i] = {t[i].r / 255.f, t[i].g / 255.f, t[i].b / 255.f};
+    return out;
 }
 
 double srgb_to_linear(double c) { return c <= 0.04045 ? c / 12.92 : std::pow((c + 0.055) / 1.055, 2.4); }
@@ -81,32 +80,36 @@ double lightness(ColorRgb c) {
     return y > 216.0 / 24389 ? 116 * std::cbrt(y) - 16 : y * 24389.0 / 27;
 }
 
-ColorRgb map_color(ColorMap m, double t) {
-    if (std::isnan(t)) return {0.62f, 0.62f, 0.62f};
-    switch (m) {
-        case ColorMap::viridis: return from_table(viridis9, t);
-        case ColorMap::cividis: return from_table(cividis10, t);
-        case ColorMap::magma: return from_table(magma9, t);
-        case ColorMap::diverging: return from_table(rdbu9, t);
-        case ColorMap::cyclic: {
-            // Constant lightness and chroma, hue going once round: L* 68, C* 38 stays inside sRGB.
-            // Tabulated once (512 steps, linear in between): lab_to_rgb costs several pow() calls.
-            static const std::array<ColorRgb, 513> table = [] {
-                std::array<ColorRgb, 513> tb{};
-                for (int k = 0; k <= 512; ++k) {
-                    const double h = 2 * 3.14159265358979323846 * k / 512;
-                    tb[std::size_t(k)] = lab_to_rgb(68, 38 * std::cos(h), 38 * std::sin(h));
-                }
-                return tb;
-            }();
-            const double w = (t - std::floor(t)) * 512;
-            const std::size_t i = std::min<std::size_t>(std::size_t(w), 511);
-            const float f = float(w - double(i));
-            const ColorRgb &a = table[i], &b = table[i + 1];
-            return {a.r + f * (b.r - a.r), a.g + f * (b.g - a.g), a.b + f * (b.b - a.b)};
+namespace {
+// The cyclic map: constant lightness and chroma, hue going once round (L* 68, C* 38 stays inside
+// sRGB), tabulated once in 512 steps since lab_to_rgb costs several pow() calls.
+const std::array<ColorRgb, 513>& cyclic_table() {
+    static const std::array<ColorRgb, 513> table = [] {
+        std::array<ColorRgb, 513> tb{};
+        for (int k = 0; k <= 512; ++k) {
+            const double h = 2 * 3.14159265358979323846 * k / 512;
+            tb[std::size_t(k)] = lab_to_rgb(68, 38 * std::cos(h), 38 * std::sin(h));
         }
-    }
-    return {};
+        return tb;
+    }();
+    return table;
 }
+}  // namespace
+
+ColorLookup::ColorLookup(ColorMap m) : table_(nullptr), segments_(1), cyclic_(m == ColorMap::cyclic) {
+    static const auto v = scaled(viridis9), g = scaled(magma9), d = scaled(rdbu9);
+    static const auto c = scaled(cividis10);
+    auto use = [&](const auto& t) { table_ = t.data(), segments_ = t.size() - 1; };
+    switch (m) {
+        case ColorMap::viridis: use(v); break;
+        case ColorMap::cividis: use(c); break;
+        case ColorMap::magma: use(g); break;
+        case ColorMap::diverging: use(d); break;
+        case ColorMap::cyclic: use(cyclic_table()); break;
+    }
+    if (!table_) use(v);
+}
+
+ColorRgb map_color(ColorMap m, double t) { return ColorLookup(m)(t); }
 
 }  // namespace ellipsa

@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <cmath>
 #include <limits>
+#include <mutex>
 
 #include "pattern/interpolate.hpp"
 #include "pattern/parallel.hpp"
@@ -85,18 +86,24 @@ struct GridTrig {
     Vec3 radial(std::size_t i, std::size_t j) const { return {sin_t[i] * cos_p[j], sin_t[i] * sin_p[j], cos_t[i]}; }
 };
 
-// The shown component in dB over the grid; its peak (0 for an all-zero component: flat at the origin).
-std::vector<double> component_db(const FarFieldSet& s, std::size_t k, Component c, double& peak) {
+// The shown component in dB over the grid, into `value_db` (reused: no fresh memory to fault in);
+// returns its peak (0 for an all-zero component: flat at the origin).
+double component_db(const FarFieldSet& s, std::size_t k, Component c, std::vector<double>& value_db) {
     const std::size_t np = std::size_t(s.grid.phi.count);
-    std::vector<double> value_db(s.grid.size());
+    value_db.resize(s.grid.size());
+    double peak = -std::numeric_limits<double>::infinity();
+    std::mutex merge;
     parallel_blocks(std::size_t(s.grid.theta.count), std::max<std::size_t>(1, min_block / np), [&](std::size_t ia, std::size_t ib) {
         component_power_grid(s, k, c, value_db.data(), int(ia), int(ib));
-        for (std::size_t n = ia * np; n < ib * np; ++n) value_db[n] = db_of(value_db[n]);
+        double top = -std::numeric_limits<double>::infinity();
+        for (std::size_t n = ia * np; n < ib * np; ++n) {
+            value_db[n] = db_of(value_db[n]);
+            top = std::max(top, value_db[n]);
+        }
+        const std::lock_guard<std::mutex> lock(merge);
+        peak = std::max(peak, top);
     });
-    peak = -std::numeric_limits<double>::infinity();
-    for (double v : value_db) peak = std::max(peak, v);
-    if (!std::isfinite(peak)) peak = 0;
-    return value_db;
+    return std::isfinite(peak) ? peak : 0;
 }
 
 ColorBar colour_bar(const FarFieldSet& s, const SurfaceOptions& o, const SurfaceMesh& m) {
@@ -111,10 +118,10 @@ ColorBar colour_bar(const FarFieldSet& s, const SurfaceOptions& o, const Surface
     return {};
 }
 
-// One sample's colour value in [0, 1] (NaN: no value, grey).
-double colour_value(const SurfaceOptions& o, const SurfaceMesh& m, cplx et, cplx ep, double value_db, double other_power) {
+// One sample's colour value in [0, 1] (NaN: no value, grey); `radius` is radius_from_db(value_db).
+double colour_value(const SurfaceOptions& o, const SurfaceMesh& m, cplx et, cplx ep, double value_db, double radius, double other_power) {
     switch (o.color_by) {
-        case ColorBy::component: return radius_from_db(value_db, m.peak_db, o.range_db);
+        case ColorBy::component: return radius;
         case ColorBy::axial_ratio: {
             const double ar = axial_ratio_from_circular(std::norm(rhcp(et, ep)), std::norm(lhcp(et, ep)));
             return std::isnan(ar) ? ar : std::min(20 * std::log10(ar), o.axial_ratio_max_db) / o.axial_ratio_max_db;
@@ -135,55 +142,108 @@ double colour_value(const SurfaceOptions& o, const SurfaceMesh& m, cplx et, cplx
     return std::numeric_limits<double>::quiet_NaN();
 }
 
-// Positions, radii and colours (colour_value of each sample; `other_power` is B's component power
-// on this grid for ColorBy::difference, else empty).
-void fill_vertices(SurfaceMesh& m, const Grid& g, const GridTrig& tr, const std::vector<double>& value_db, const FarField& f,
-                   const SurfaceOptions& o, const std::vector<double>& other_power) {
-    const double range_db = o.range_db;
-    const std::size_t np = std::size_t(g.phi.count), cols = std::size_t(m.cols);
-    m.radius.resize(g.size());
-    m.vertices.resize(std::size_t(m.rows) * cols * surface_floats_per_vertex);
-    parallel_blocks(std::size_t(m.rows), std::max<std::size_t>(1, min_block / cols), [&](std::size_t ia, std::size_t ib) {
-        for (std::size_t i = ia; i < ib; ++i)
-            for (std::size_t j = 0; j < cols; ++j) {
-                const std::size_t jj = j % np, n = i * np + jj;
-                const double r = radius_from_db(value_db[n], m.peak_db, range_db);
-                m.radius[n] = float(r);
-                float* v = &m.vertices[(i * cols + j) * surface_floats_per_vertex];
-                const Vec3 u = tr.radial(i, jj);
-                v[0] = float(r * u.x), v[1] = float(r * u.y), v[2] = float(r * u.z);
-                const double t = colour_value(o, m, f.e_theta[n], f.e_phi[n], value_db[n], other_power.empty() ? 0.0 : other_power[n]);
-                const Rgb c = map_color(m.bar.map, t);
-                v[6] = c.r, v[7] = c.g, v[8] = c.b;
-            }
-    });
+// What one pass over the grid writes from: the grid's trigonometry, the frequency's fields, the
+// options, the colour map resolved, and B's component power on this grid for ColorBy::difference.
+struct VertexSource {
+    const GridTrig& trig;
+    const FarField& field;
+    const SurfaceOptions& options;
+    ColorLookup colour;
+    const std::vector<double>& other_power;  // empty unless ColorBy::difference
+    std::size_t np;                          // phi samples (the seam column repeats the first)
+    bool wraps;
+};
+
+// Row i's positions, radii and colours; the seam column copies phi = 0.
+void vertex_row(SurfaceMesh& m, const VertexSource& src, std::size_t i) {
+    constexpr std::size_t F = surface_floats_per_vertex;
+    float* row = &m.vertices[i * std::size_t(m.cols) * F];
+    const FarField& f = src.field;
+    for (std::size_t j = 0, n = i * src.np; j < src.np; ++j, ++n) {
+        const double r = radius_from_db(m.value_db[n], m.peak_db, src.options.range_db);
+        m.radius[n] = float(r);
+        float* v = row + j * F;
+        const Vec3 u = src.trig.radial(i, j);
+        v[0] = float(r * u.x), v[1] = float(r * u.y), v[2] = float(r * u.z);
+        const double other = src.other_power.empty() ? 0.0 : src.other_power[n];
+        const Rgb c = src.colour(colour_value(src.options, m, f.e_theta[n], f.e_phi[n], m.value_db[n], r, other));
+        v[6] = c.r, v[7] = c.g, v[8] = c.b;
+    }
+    if (std::size_t(m.cols) > src.np) std::copy_n(row, F, row + src.np * F);
 }
 
-// Normals from central differences on the grid (one-sided at the edges); where the surface
-// degenerates (poles, the origin) the radial direction stands in.
-void fill_normals(SurfaceMesh& m, const GridTrig& tr, int np, bool wraps) {
-    const int nt = m.rows;
-    const std::size_t cols = std::size_t(m.cols);
-    auto P = [&](int i, int j) {
-        const float* v = &m.vertices[(std::size_t(i) * cols + std::size_t(j)) * surface_floats_per_vertex];
-        return Vec3{v[0], v[1], v[2]};
+struct Point3f {
+    float x, y, z;
+};
+Point3f position_at(const float* v) { return {v[0], v[1], v[2]}; }
+
+// A vertex's normal, the cross product of the differences of its neighbours' positions along theta
+// (after - before) and phi (right - left), in single precision like the positions; where the surface
+// degenerates (poles, the origin) the radial direction stands in. Points outward.
+void put_normal(float* v, Point3f after, Point3f before, Point3f left, Point3f right, Vec3 radial) {
+    const float tx = after.x - before.x, ty = after.y - before.y, tz = after.z - before.z;
+    const float px = right.x - left.x, py = right.y - left.y, pz = right.z - left.z;
+    const float nx = ty * pz - tz * py, ny = tz * px - tx * pz, nz = tx * py - ty * px;
+    const float n2 = nx * nx + ny * ny + nz * nz;
+    if (!(n2 >= 1e-24f)) {
+        const Vec3 u = normalized(radial);
+        v[3] = float(u.x), v[4] = float(u.y), v[5] = float(u.z);
+        return;
+    }
+    const double side = nx * radial.x + ny * radial.y + nz * radial.z;
+    const float scale = (side < 0 ? -1.f : 1.f) / std::sqrt(n2);
+    v[3] = nx * scale, v[4] = ny * scale, v[5] = nz * scale;
+}
+
+// Row i's normals from central differences on the grid (one-sided at the edges; across the seam
+// when phi wraps); rows i - 1, i and i + 1 must have their positions. Inside a row the neighbours
+// are j - 1 and j + 1 (column np - 1's next is the seam column, a copy of phi = 0), so only the
+// first and last columns need care. The row's positions are carried along in registers: reading a
+// vertex just after writing its normal stalls the load on the store.
+void normal_row(SurfaceMesh& m, const VertexSource& src, int i) {
+    constexpr std::size_t F = surface_floats_per_vertex;
+    const std::size_t cols = std::size_t(m.cols), np = src.np, last = cols - 1;
+    const bool wraps = src.wraps;
+    const float* before = &m.vertices[std::size_t(std::max(i - 1, 0)) * cols * F];
+    const float* after = &m.vertices[std::size_t(std::min(i + 1, m.rows - 1)) * cols * F];
+    float* row = &m.vertices[std::size_t(i) * cols * F];
+    const std::size_t ii = std::size_t(i);
+    // Column j's normal from columns j0 and j1; `u` is column j's phi sample (the seam's is 0).
+    auto one = [&](std::size_t j, Point3f left, Point3f right, std::size_t u) {
+        put_normal(row + j * F, position_at(after + j * F), position_at(before + j * F), left, right, src.trig.radial(ii, u));
     };
-    parallel_blocks(std::size_t(nt), std::max<std::size_t>(1, min_block / cols), [&](std::size_t ia, std::size_t ib) {
-        for (int i = int(ia); i < int(ib); ++i) {
-            const int i0 = std::max(i - 1, 0), i1 = std::min(i + 1, nt - 1);
-            for (int j = 0; j < m.cols; ++j) {
-                const int j0 = wraps ? (j % np + np - 1) % np : std::max(j - 1, 0);
-                const int j1 = wraps ? (j % np + 1) % np : std::min(j + 1, m.cols - 1);
-                Vec3 nrm = cross(P(i1, j) - P(i0, j), P(i, j1) - P(i, j0));
-                const Vec3 radial = tr.radial(std::size_t(i), std::size_t(j % np));
-                if (norm(nrm) < 1e-12) nrm = radial;
-                nrm = normalized(nrm);
-                if (dot(nrm, radial) < 0) nrm = -1.0 * nrm;
-                float* v = &m.vertices[(std::size_t(i) * cols + std::size_t(j)) * surface_floats_per_vertex];
-                v[3] = float(nrm.x), v[4] = float(nrm.y), v[5] = float(nrm.z);
-            }
+    const Point3f first = position_at(row), end = position_at(row + last * F);
+    Point3f prev = first, cur = position_at(row + std::min<std::size_t>(1, last) * F);
+    one(0, position_at(row + (wraps ? np - 1 : 0) * F), cur, 0);
+    for (std::size_t j = 1; j < last; ++j) {
+        const Point3f next = position_at(row + (j + 1) * F);
+        one(j, prev, next, j);
+        prev = cur, cur = next;
+    }
+    if (last > 0)
+        one(last, wraps ? position_at(row + (np - 1) * F) : position_at(row + (last - 1) * F), wraps ? position_at(row + F) : end, last % np);
+}
+
+// Positions, radii, colours and normals in one pass over the rows, so that each row's normals are
+// made while its neighbours are still in the cache (a second pass re-read 37 MB at 0.25 degree).
+// A block's first and last rows need a neighbour of another block: they come after the join.
+void fill_vertices(SurfaceMesh& m, const VertexSource& src) {
+    const std::size_t cols = std::size_t(m.cols), rows = std::size_t(m.rows);
+    m.radius.resize(rows * src.np);
+    m.vertices.resize(rows * cols * surface_floats_per_vertex);
+    if (rows == 0 || cols == 0) return;
+    std::mutex merge;
+    std::vector<std::size_t> edges;
+    parallel_blocks(rows, std::max<std::size_t>(1, min_block / cols), [&](std::size_t ia, std::size_t ib) {
+        for (std::size_t i = ia; i < ib; ++i) {
+            vertex_row(m, src, i);
+            if (i >= ia + 2) normal_row(m, src, int(i - 1));
         }
+        const std::lock_guard<std::mutex> lock(merge);
+        edges.push_back(ia);
+        if (ib - 1 > ia) edges.push_back(ib - 1);
     });
+    for (std::size_t i : edges) normal_row(m, src, int(i));
 }
 
 // Triangles: two per grid cell.
@@ -252,13 +312,12 @@ Result<SurfaceMesh> build_surface(const FarFieldSet& s, std::size_t k, const Sur
     m.cols = g.phi.count + (wraps ? 1 : 0);
     m.unit = db_unit(s.quantity, o.component);
     const GridTrig trig(g);
-    const std::vector<double> value_db = component_db(s, k, o.component, m.peak_db);
+    m.peak_db = component_db(s, k, o.component, m.value_db);
     m.floor_db = m.peak_db - o.range_db;
     m.bar = colour_bar(s, o, m);
     std::vector<double> other_power;
     if (o.color_by == ColorBy::difference) other_power = other_power_on_grid(s, *other, kb, o.component);
-    fill_vertices(m, g, trig, value_db, s.frequencies[k], o, other_power);
-    fill_normals(m, trig, g.phi.count, wraps);
+    fill_vertices(m, VertexSource{trig, s.frequencies[k], o, ColorLookup(m.bar.map), other_power, std::size_t(g.phi.count), wraps});
     pick_boxes(m);
     m.grid_step_deg = std::min(g.theta.step_deg, g.phi.step_deg);
     const SurfaceTopology topology = topology_of(m, g, o.wire_step_deg);
