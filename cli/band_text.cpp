@@ -7,6 +7,7 @@
 #include "cli/format.hpp"
 #include "exports/band_figure.hpp"
 #include "exports/figure_text.hpp"
+#include "pattern/integrate.hpp"
 
 namespace ellipsa::cli {
 
@@ -39,6 +40,7 @@ CircularFigures circular_figures(const FarFieldSet& s, std::size_t fi, const Pat
     c.azimuth = ar_beamwidth_through(s, fi, r.planes_theta_deg, r.planes_phi_deg, true);
     c.solid_angle = ar_solid_angle(s, fi);
     c.peak_at_pole = r.peak_at_pole;
+    if (s.grid.sampling == Sampling::cuts && s.has_phase()) c.solid_angle_shortfall = sphere_shortfall(s.grid);
     return c;
 }
 
@@ -52,7 +54,7 @@ void circular_json(JsonWriter& j, const CircularFigures& c) {
 }
 
 std::string circular_text(const CircularFigures& c) {
-    if (!c.solid_angle) return "unavailable (" + c.elevation.unavailable_reason + ")";
+    if (!c.solid_angle && c.solid_angle_shortfall.empty()) return "unavailable (" + c.elevation.unavailable_reason + ")";
     std::string s;
     if (c.elevation.width_deg || c.azimuth.width_deg) {
         s = fmt(c.elevation.width_deg, "deg", 1, "none") + " (" + exports::beam_plane_text(c.peak_at_pole, false, "deg") + "), " +
@@ -60,6 +62,7 @@ std::string circular_text(const CircularFigures& c) {
     } else {
         s = "none (" + c.elevation.unavailable_reason + ")";
     }
+    if (!c.solid_angle) return s + "; the AR <= 3 dB share of the sphere needs the whole sphere (" + c.solid_angle_shortfall + ")";
     return s + "; AR <= 3 dB over " + number(100 * c.solid_angle->share, 1) + " % of the sphere";
 }
 

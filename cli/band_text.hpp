@@ -21,6 +21,7 @@ struct CircularFigures {
     ArBeamwidth elevation, azimuth;
     std::optional<ArSolidAngle> solid_angle;
     bool peak_at_pole = false;  // the planes are phi = 0 and phi = 90 (PatternSummary::peak_at_pole)
+    std::string solid_angle_shortfall;  // why the share of the sphere is missing on cuts (sphere_shortfall)
 };
 CircularFigures circular_figures(const FarFieldSet& s, std::size_t freq_index, const PatternSummary& r);
 // JSON keys ar_beamwidth_deg (elevation plane through the peak, 3 dB; null with

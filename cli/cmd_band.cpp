@@ -66,7 +66,7 @@ void frequency_json(JsonWriter& j, const FarFieldSet& s, const FrequencyFigures&
         j.value(to_string(*r.sense));
     else
         j.null();
-    circular_json(j, CircularFigures{f.ar_beamwidth_elevation, f.ar_beamwidth_azimuth, std::nullopt});
+    circular_json(j, CircularFigures{f.ar_beamwidth_elevation, f.ar_beamwidth_azimuth, std::nullopt, false, {}});
     if (f.ar_at_direction) j.field("axial_ratio_at_direction_db", f.ar_at_direction->ar_db);
     j.key("meg_db").begin_object();
     for (std::size_t e = 0; e < f.meg.size(); ++e) {

@@ -206,6 +206,7 @@ Registered add_coverage(CLI::App& root) {
     sub->add_option("--dpi", a->dpi, "Dots per inch (default 150)");
     sub->add_flag("--force", a->force, "Replace the output file if it exists");
     add_load_options(sub, a->load);
+    a->load.whole_sphere_figure = "coverage of the sphere";
     return {sub, [a]() -> int { return run_coverage(*a); }};
 }
 const CommandRegistration registration(76, add_coverage);

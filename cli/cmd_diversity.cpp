@@ -381,6 +381,7 @@ Registered add_diversity(CLI::App& root) {
         ->delimiter(',');
     sub->add_flag("--json", a->json, "Print one JSON object instead of the human summary");
     add_load_options(sub, a->load);
+    a->load.whole_sphere_figure = "diversity (MEG and ECC)";
     return {sub, [a, sub]() -> int {
                 // Giving a sweep option asks for the sweep.
                 if (sub->count("--tilt-step") || sub->count("--tilt-max") || sub->count("--roll-step"))

@@ -382,6 +382,7 @@ Registered add_fading(CLI::App& root) {
     sub->add_flag("--force", a->force, "Replace the plot file if it exists");
     sub->add_flag("--json", a->json, "Print one JSON object instead of the human summary");
     add_load_options(sub, a->load);
+    a->load.whole_sphere_figure = "the fading study (from MEG and ECC)";
     return {sub, [a]() -> int { return run(*a); }};
 }
 const CommandRegistration registration(62, add_fading);

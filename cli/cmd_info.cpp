@@ -12,6 +12,7 @@
 #include "cli/json.hpp"
 #include "cli/load.hpp"
 #include "exports/figure_text.hpp"
+#include "pattern/convention_hints.hpp"
 #include "pattern/integrate.hpp"
 #include "pattern/summary.hpp"
 
@@ -46,12 +47,11 @@ void write_human(const std::string& path, const FarFieldSet& s, const std::vecto
                                                         : " (relative power, unknown reference)")
               << "\n";
     std::cout << "  data         " << to_string(s.content)
-              << (s.content == FieldContent::complex ? " E_theta, E_phi with phase" : "") << "\n";
+              << (s.content == FieldContent::complex ? " E_theta, E_phi with phase" : "")
+              << (s.part != FieldPart::whole ? std::string("; the ") + to_string(s.part) + " part only (the other stored as zero)" : "")
+              << "\n";
     std::cout << "  grid         " << grid_line(s.grid) << "\n";
-    const double cov = coverage(s.grid);
-    char buf[128];
-    std::snprintf(buf, sizeof buf, "%.1f %% of the sphere%s", 100 * cov, is_full_sphere(s.grid) ? " (full)" : "");
-    std::cout << "  coverage     " << buf << "\n";
+    std::cout << "  coverage     " << exports::coverage_text(s.grid) << "\n";
     std::cout << "  mounting     " << exports::mounting_text(s) << "\n";
     for (const PatternSummary& r : rs) {
         std::cout << "\n  " << format_frequency(r.frequency_hz) << "\n";
@@ -66,8 +66,12 @@ void write_human(const std::string& path, const FarFieldSet& s, const std::vecto
             std::cout << "    directivity           unavailable (partial sphere); "
                       << fmt(to_db(*r.power.directivity_sampled_only), "dBi")
                       << " assuming nothing radiates outside the sampled region\n";
+        else
+            std::cout << "    directivity           " << exports::needs_sphere_text(s.grid) << "\n";
+        const bool cuts = s.grid.sampling == Sampling::cuts;
         std::cout << "    radiation efficiency  "
                   << (r.power.radiation_efficiency ? fmt(100 * *r.power.radiation_efficiency, "%", 1)
+                      : cuts ? exports::needs_sphere_text(s.grid)
                       : s.quantity == Quantity::gain ? std::string("unavailable (partial sphere)")
                                                      : std::string("unavailable (needs absolute gain data)"))
                   << "\n";
@@ -90,6 +94,9 @@ void write_human(const std::string& path, const FarFieldSet& s, const std::vecto
             std::cout << "    phase reference       moved to " << moved << "\n";
     }
     if (rs.size() > 1) std::cout << band_summary_text(band_summary(s, which, rs));  // issue 16
+    const std::vector<std::string> hints = convention_hints(s, which, rs);  // issue 14
+    if (!hints.empty()) std::cout << "\n";
+    for (const std::string& h : hints) std::cout << "  " << h << "\n";
 }
 
 Registered add_info(CLI::App& root) {

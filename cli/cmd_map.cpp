@@ -143,6 +143,7 @@ Registered add_map(CLI::App& root) {
     sub->add_option("--dpi", a->dpi, "Dots per inch (default 150)");
     sub->add_flag("--force", a->force, "Replace the output file if it exists");
     add_load_options(sub, a->load);
+    a->load.whole_sphere_figure = "a map of the sphere";
     return {sub, [a]() -> int { return run_map(*a); }};
 }
 const CommandRegistration registration(74, add_map);

@@ -288,6 +288,7 @@ Registered add_rank(CLI::App& root) {
     sub->add_option("--out", a->out, "Also write the ranking to a file: .md, .html, .csv or .json");
     sub->add_flag("--force", a->force, "Replace the --out file if it exists");
     add_load_options(sub, a->load);
+    a->load.whole_sphere_figure = "ranking (MEG in each environment)";
     return {sub, [a]() -> int { return run(*a); }};
 }
 const CommandRegistration registration(65, add_rank);

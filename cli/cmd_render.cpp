@@ -73,6 +73,7 @@ Registered add_render(CLI::App& root) {
     sub->add_flag("--software", a->software, "Force Mesa's software renderer");
     sub->add_flag("--force", a->force, "Overwrite an existing output file");
     add_load_options(sub, a->load);
+    a->load.whole_sphere_figure = "a 3D view";
     return {sub, [a]() -> int {
                 viewer::SnapshotOptions o;
                 if (!parse_component(a->component.c_str(), o.component)) {

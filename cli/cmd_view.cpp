@@ -63,6 +63,11 @@ int file_options(const ViewArgs& a, viewer::ViewerOptions& o) {
             std::cerr << "ellipsa view: " << p->path << ": expected a pattern file, found " << (std::filesystem::exists(p->path, ec) ? "no regular file" : "nothing") << "\n";
             return exit_bad_input;
         }
+        if (!p->join.empty()) {
+            std::cerr << "ellipsa view: " << p->path << ": expected one file per pattern (the viewer does not join files); "
+                      << "merge them first: ellipsa convert \"" << p->path << "::join=...\" merged.csv\n";
+            return exit_usage;
+        }
         if (!p->beside_map.empty()) std::cerr << "ellipsa view: " << p->path << ": read with the map file beside it, " << p->beside_map << "\n";
         auto install = install_request(p->mounting);  // checked while parsing; named all the same
         if (!install) {

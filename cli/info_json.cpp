@@ -3,6 +3,7 @@
 #include "cli/band_text.hpp"
 #include "cli/mounting_options.hpp"
 #include "exports/figure_text.hpp"
+#include "pattern/convention_hints.hpp"
 #include "pattern/integrate.hpp"
 
 namespace ellipsa::cli {
@@ -66,6 +67,8 @@ std::string info_json(const FarFieldSet& s, const std::vector<std::size_t>& whic
     j.field("theta_start_deg", s.grid.theta.start_deg).field("theta_step_deg", s.grid.theta.step_deg);
     j.field("theta_count", s.grid.theta.count).field("phi_start_deg", s.grid.phi.start_deg);
     j.field("phi_step_deg", s.grid.phi.step_deg).field("phi_count", s.grid.phi.count);
+    j.field("sampling", to_string(s.grid.sampling));
+    if (const std::string why = sphere_shortfall(s.grid); !why.empty()) j.field("whole_sphere_unavailable", why);
     j.end_object();
     mounting_json(j, s);
     j.key("results").begin_array();
@@ -76,6 +79,9 @@ std::string info_json(const FarFieldSet& s, const std::vector<std::size_t>& whic
     }
     j.end_array();
     if (rs.size() > 1) band_summary_json(j, band_summary(s, which, rs));  // issue 16: band edges
+    j.key("hints").begin_array();  // issue 14: a wrong time convention or a swapped pair, as hints
+    for (const std::string& h : convention_hints(s, which, rs)) j.value(h);
+    j.end_array();
     j.end_object();
     return j.str();
 }

@@ -1,5 +1,8 @@
 #include "cli/load.hpp"
 
+#include "pattern/integrate.hpp"
+#include "pattern/merge.hpp"
+
 #include <cmath>
 #include <cstdio>
 #include <cstdlib>
@@ -45,7 +48,8 @@ void add_load_options(CLI::App* sub, LoadOptions& o) {
     add_mounting_options(sub, o.mounting);
     sub->footer("These options apply to every FILE. Options for one file only follow its name: "
                 "FILE::map=FILE.map::offset=e_total_db=7.5 (keys map, map-file, assume, scale, offset, angles, up, "
-                "rotate, phase-centre). "
+                "rotate, phase-centre; join=OTHER reads another file of the same pattern: other frequencies or the "
+                "other polarisation part). "
                 "A map file beside a file (FILE's stem with .map, or a .map file naming it) is used when no map is given.");
 }
 
@@ -123,7 +127,7 @@ bool exists(const std::string& path) {
     return ::stat(path.c_str(), &st) == 0;
 }
 
-constexpr const char* file_keys = "map, map-file, assume, scale, offset, angles, up, rotate, phase-centre";
+constexpr const char* file_keys = "map, map-file, assume, scale, offset, angles, up, rotate, phase-centre, join";
 
 // The field of `own` (or `angles`, which joins own.assume) that "::key=" sets; null for an unknown key.
 std::string* file_key_field(const std::string& key, FileOptions& own, std::string& angles) {
@@ -151,7 +155,7 @@ Status merge_mounting(const std::string& command, const char* flag, const std::s
 
 bool has_options(const FileOptions& o) {
     return !o.map.empty() || !o.map_file.empty() || !o.assume.empty() || !o.scale.empty() || !o.offset.empty() ||
-           !o.mounting.up.empty() || !o.mounting.rotate.empty() || !o.mounting.phase_centre.empty();
+           !o.mounting.up.empty() || !o.mounting.rotate.empty() || !o.mounting.phase_centre.empty() || !o.join.empty();
 }
 
 Result<CsvReadOptions> read_options(const FileOptions& o) {
@@ -171,6 +175,11 @@ Result<FileArgument> parse_file_argument(const std::string& arg) {
         const std::string item = arg.substr(pos, next - pos);
         const std::size_t eq = item.find('=');
         const std::string key = item.substr(0, eq);
+        if (key == "join" && eq != std::string::npos && eq + 1 < item.size()) {
+            out.own.join.push_back(item.substr(eq + 1));
+            pos = next + 2;
+            continue;
+        }
         std::string* field = file_key_field(key, out.own, angles);
         if (!field || eq == std::string::npos || eq + 1 == item.size())
             return Error{out.path, 0, 0,
@@ -207,7 +216,7 @@ Result<PreparedLoad> prepare_load(const std::string& arg, const LoadOptions& o) 
     if (!file) return file.error();
     for (const auto& [path, own] : o.per_file)
         if (path == file->path && !has_options(file->own)) file->own = own;
-    PreparedLoad p{file->path, {}, "", {}};
+    PreparedLoad p{file->path, {}, "", {}, file->own.join};
     if (Status st = prepare_mounting(o.mounting, file->own.mounting, file->path, p.mounting); !st) return st.error();
     if (Status st = add_options(o, flag_names, p.options); !st) return st.error();
     const std::string own_map = file->path + "::map", own_assume = file->path + "::assume",
@@ -225,16 +234,13 @@ Result<PreparedLoad> prepare_load(const std::string& arg, const LoadOptions& o) 
     return p;
 }
 
-Result<FarFieldSet> load_pattern(const std::string& arg, const LoadOptions& o) {
-    auto ro = prepare_load(arg, o);
-    if (!ro) return ro.error();
-    if (!ro->beside_map.empty()) std::fprintf(stderr, "ellipsa: %s: read with the map file beside it, %s\n", ro->path.c_str(), ro->beside_map.c_str());
-    const std::string& path = ro->path;
-    // Progress for long loads on a terminal.
+namespace {
+// One file, with progress on a terminal for long loads.
+Result<FarFieldSet> read_with_progress(const std::string& path, CsvReadOptions options) {
     if (::isatty(2)) {
         struct stat st {};
         if (::stat(path.c_str(), &st) == 0 && st.st_size > (200 << 20)) {
-            ro->options.progress = [last = -1](double f) mutable {
+            options.progress = [last = -1](double f) mutable {
                 const int pc = int(f * 100);
                 if (pc != last) {
                     last = pc;
@@ -245,9 +251,36 @@ Result<FarFieldSet> load_pattern(const std::string& arg, const LoadOptions& o) {
             };
         }
     }
-    auto raw = read_far_field_csv(path, ro->options);
+    return read_far_field_csv(path, options);
+}
+
+// The file and the files it joins (FILE::join=OTHER), read with the same options and merged.
+Result<FarFieldSet> read_joined(const PreparedLoad& p) {
+    auto first = read_with_progress(p.path, p.options);
+    if (!first || p.join.empty()) return first;
+    std::vector<NamedSet> sets;
+    sets.push_back({p.path, std::move(*first)});
+    for (const std::string& other : p.join) {
+        auto s = read_with_progress(other, p.options);
+        if (!s) return s;
+        sets.push_back({other, std::move(*s)});
+    }
+    return merge_sets(std::move(sets));
+}
+}  // namespace
+
+Result<FarFieldSet> load_pattern(const std::string& arg, const LoadOptions& o) {
+    auto ro = prepare_load(arg, o);
+    if (!ro) return ro.error();
+    if (!ro->beside_map.empty()) std::fprintf(stderr, "ellipsa: %s: read with the map file beside it, %s\n", ro->path.c_str(), ro->beside_map.c_str());
+    const std::string& path = ro->path;
+    auto raw = read_joined(*ro);
     if (!raw) return raw;
     for (const std::string& n : raw->reading_notes) std::fprintf(stderr, "ellipsa: %s: %s\n", path.c_str(), n.c_str());
+    if (o.whole_sphere_figure && raw->grid.sampling == Sampling::cuts)
+        return Error{path, 0, 0,
+                     std::string(o.whole_sphere_figure) + " needs the whole sphere; " + sphere_shortfall(raw->grid) +
+                         ": cut, probe and info read cuts"};
     auto request = install_request(ro->mounting);
     if (!request) return request.error();
     auto installed = install_pattern(std::move(*raw), *request);

@@ -20,6 +20,10 @@ struct FileOptions {
     std::string scale;     // --scale "schema_column=factor,..."
     std::string offset;    // --offset "schema_column=value,..."
     MountingOptions mounting;  // --up, --rotate, --phase-centre (cli/mounting_options.hpp)
+    // Files that hold the rest of this file's pattern (FILE::join=OTHER, repeatable): other
+    // frequencies, or the other polarisation part; read with the same options and merged
+    // (pattern/merge.hpp). Only for one file's own options.
+    std::vector<std::string> join;
 };
 // True when any option is set (the mounting's turn_fields aside).
 bool has_options(const FileOptions& o);
@@ -27,6 +31,10 @@ struct LoadOptions : FileOptions {
     // The options of single files ("PATH::key=value", below), by path; filled while the command
     // line is parsed, so each FILE argument holds its path alone.
     std::vector<std::pair<std::string, FileOptions>> per_file;
+    // Set by commands that produce only whole-sphere figures (a map, 3D, coverage, MEG): what they
+    // make, e.g. "a map". load_pattern then refuses cut-only data (pattern/far_field.hpp,
+    // Sampling) naming the file and the cuts, instead of a figure over no solid angle.
+    const char* whole_sphere_figure = nullptr;
 };
 // The one place that adds the import options (--map, --map-file, --assume, --scale, --offset)
 // and the mounting options (--up, --rotate, --phase-centre) to a subcommand; they apply to every pattern file of the command. Call it after the options
@@ -38,8 +46,9 @@ void add_load_options(CLI::App* sub, LoadOptions& o);
 Result<CsvReadOptions> read_options(const FileOptions& o);
 
 // One FILE argument with options of its own (docs/far-field-csv.md, "Options for one file"):
-//   PATH::key=value[::key=value...]   keys: map, map-file, assume, scale, offset, and the
-//   mounting's up, rotate, phase-centre (values as --up, --rotate, --phase-centre; checked here)
+//   PATH::key=value[::key=value...]   keys: map, map-file, assume, scale, offset, angles, the
+//   mounting's up, rotate, phase-centre (values as --up, --rotate, --phase-centre; checked here),
+//   and join (repeatable)
 // e.g. "range.csv::map=range.map::offset=e_total_db=7.5", "x.csv::up=+x::rotate=z:30,x:10".
 // A PATH that exists as given is taken whole, even with "::" in it.
 struct FileArgument {
@@ -59,10 +68,12 @@ struct PreparedLoad {
     CsvReadOptions options;
     std::string beside_map;
     MountingOptions mounting;  // the command's --up/--rotate/--phase-centre, or the file's own keys
+    std::vector<std::string> join;  // further files of the same pattern (FileOptions::join)
 };
 Result<PreparedLoad> prepare_load(const std::string& arg, const LoadOptions& o);
 
-// Read a pattern file (a FILE argument as above) and install it (pattern/install.hpp: the file's
+// Read a pattern file (a FILE argument as above), merge the files it joins (pattern/merge.hpp),
+// and install it (pattern/install.hpp: the file's
 // mounting or the options', the phase centres, a moved phase reference); progress goes to stderr
 // on a terminal for long loads, and a map file found beside the file is named there.
 Result<FarFieldSet> load_pattern(const std::string& arg, const LoadOptions& o);

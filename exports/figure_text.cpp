@@ -1,5 +1,7 @@
 #include "exports/figure_text.hpp"
 
+#include "pattern/integrate.hpp"
+
 #include <cmath>
 #include <cstdio>
 
@@ -175,6 +177,13 @@ std::string front_to_back_text(const std::optional<double>& db, const std::optio
     if (above_db) return "above " + with_unit(*above_db, 0, "dB") + " (the back is a null)";
     if (db) return with_unit(*db, db_decimals, "dB");
     return "unavailable (the back direction lies outside the data)";
+}
+
+std::string needs_sphere_text(const Grid& g) { return "unavailable (needs the whole sphere; " + sphere_shortfall(g) + ")"; }
+
+std::string coverage_text(const Grid& g) {
+    if (g.sampling == Sampling::cuts) return "none: " + sphere_shortfall(g);
+    return with_unit(100 * coverage(g), 1, "%") + " of the sphere" + (is_full_sphere(g) ? " (full)" : "");
 }
 
 std::string efficiency_warning_text(double efficiency) {

@@ -80,6 +80,13 @@ std::string cut_axis_text(const CutSpec& spec);
 // Front-to-back: "12.30 dB", "above 60 dB (the back is a null)", "unavailable (outside the data)".
 std::string front_to_back_text(const std::optional<double>& db, const std::optional<double>& above_db);
 
+// A whole-sphere figure that the grid cannot give (pattern/integrate.hpp, sphere_shortfall):
+// "unavailable (needs the whole sphere; the data hold cuts only (phi 0, 90 deg))".
+std::string needs_sphere_text(const Grid& g);
+// How much of the sphere a grid stands for, for summaries: "100.0 % of the sphere (full)",
+// "50.0 % of the sphere", "none: the data hold cuts only (phi 0, 90 deg)".
+std::string coverage_text(const Grid& g);
+
 // Why an efficiency above 100 % cannot be right, with the likely causes (one sentence each).
 std::string efficiency_warning_text(double efficiency);
 

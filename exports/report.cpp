@@ -103,13 +103,14 @@ std::vector<std::pair<std::string, std::string>> figure_rows(const FarFieldSet& 
         d = "unavailable (partial sphere; " + fixed(to_db(*r.power.directivity_sampled_only), 2) +
             " if nothing radiates outside the sampled region)";
     else
-        d = "unavailable";
+        d = needs_sphere_text(s.grid);
     v.emplace_back("Directivity (dBi)", d);
     v.emplace_back("Radiation efficiency (%)",
                    r.power.radiation_efficiency ? fixed(100 * *r.power.radiation_efficiency, percent_decimals) +
                                                       (r.efficiency_above_100 ? " (" + efficiency_warning_text(*r.power.radiation_efficiency) + ")" : "")
-                   : s.quantity == Quantity::gain ? std::string("unavailable (partial sphere)")
-                                                  : std::string("unavailable (needs absolute gain data)"));
+                   : s.grid.sampling == Sampling::cuts ? needs_sphere_text(s.grid)
+                   : s.quantity == Quantity::gain      ? std::string("unavailable (partial sphere)")
+                                                       : std::string("unavailable (needs absolute gain data)"));
     v.emplace_back("HPBW, " + (r.peak_at_pole ? beam_plane_text(r, false, "°") : std::string("elevation plane")) + " through the peak (°)", r.zero_field ? std::string("none (zero field)") : beamwidth_text(r.elevation, "θ", ""));
     v.emplace_back("HPBW, " + (r.peak_at_pole ? beam_plane_text(r, true, "°") : std::string("azimuth-like plane")) + " through the peak (°)", r.zero_field ? std::string("none (zero field)") : beamwidth_text(r.azimuth, "angle", ""));
     v.emplace_back("Side lobe, elevation plane (dB)", r.zero_field ? std::string("none (zero field)") : sidelobe_text(r.elevation));
@@ -237,11 +238,10 @@ std::string about_text(const ReportInput& in) {
     if (!s.source.empty() && s.source != in.path) about += "Source: " + s.source + ". ";
     char grid[240];
     std::snprintf(grid, sizeof grid,
-                  "Quantity %s, %s data; grid θ %g..%g° step %g°, φ %g..%g° step %g°; %.1f %% of the sphere sampled.",
+                  "Quantity %s, %s data; grid θ %g..%g° step %g°, φ %g..%g° step %g°; coverage ",
                   to_string(s.quantity), to_string(s.content), s.grid.theta.start_deg, s.grid.theta.last_deg(),
-                  s.grid.theta.step_deg, s.grid.phi.start_deg, s.grid.phi.last_deg(), s.grid.phi.step_deg,
-                  100 * coverage(s.grid));
-    about += grid;
+                  s.grid.theta.step_deg, s.grid.phi.start_deg, s.grid.phi.last_deg(), s.grid.phi.step_deg);
+    about += grid + coverage_text(s.grid) + ".";
     if (!is_identity(s.mounting) || !is_identity(s.file_mounting)) about += " Mounting: " + mounting_text(s) + ".";
     return about;
 }

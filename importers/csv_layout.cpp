@@ -27,10 +27,10 @@ constexpr const char* names[c_count] = {
 // The file's metadata keys, then the ones only settings may give.
 constexpr const char* meta_keys[] = {"quantity", "time-convention", "angle-unit",   "frequency-unit", "frequency",
                                      "ludwig3-reference", "name",   "source",       "note",
-                                     "mounting-up",       "mounting-turns",         "angles",
-                                     "phase-unit",        "skip-lines",             "duplicate-tolerance"};
-constexpr int n_file_keys = 12;
-constexpr int n_keys = 15;
+                                     "mounting-up",       "mounting-turns",         "angles",         "sampling",
+                                     "part",              "phase-unit",             "skip-lines",     "duplicate-tolerance"};
+constexpr int n_file_keys = 14;
+constexpr int n_keys = 17;
 // The field columns of a positioner grid, in its own unit vectors: the same roles as the
 // theta/phi columns (az-hat takes theta-hat's place, el-hat phi-hat's; pattern/positioner.hpp).
 constexpr std::pair<const char*, int> positioner_names[] = {
@@ -421,6 +421,15 @@ constexpr Group groups[] = {
     {CsvFamily::total_db, {c_e_total_db, 0, 0, 0}, 1},
 };
 
+// The part of a family's basis that its first (or second) component alone is.
+FieldPart part_of(CsvFamily f, bool first) {
+    switch (f) {
+        case CsvFamily::circular_polar: return first ? FieldPart::rhcp : FieldPart::lhcp;
+        case CsvFamily::ludwig3_polar: return first ? FieldPart::co : FieldPart::cross;
+        default: return first ? FieldPart::theta : FieldPart::phi;
+    }
+}
+
 // Exactly one family of field columns, complete (e_theta_db with e_phi_db alone is magnitudes).
 Status choose_family(Layout& L, const std::string& file) {
     auto has = [&](int r) { return L.column_of[std::size_t(r)] >= 0; };
@@ -448,15 +457,20 @@ Status choose_family(Layout& L, const std::string& file) {
                      "e_theta_db/e_theta_phase/e_phi_db/e_phi_phase, e_rhcp_..., e_co_..., e_theta_db/e_phi_db "
                      "or e_total_db), found none"};
     L.family = found->family;
-    if (L.family == CsvFamily::theta_phi_polar && !has(c_e_theta_phase) && !has(c_e_phi_phase) && has(c_e_theta_db) &&
-        has(c_e_phi_db))
-        L.family = CsvFamily::magnitude_db;
-    if (L.family != CsvFamily::magnitude_db)
-        for (int j = 0; j < found->n; ++j)
-            if (!has(found->cols[j]))
+    const bool magnitudes = L.family == CsvFamily::theta_phi_polar && !has(c_e_theta_phase) && !has(c_e_phi_phase);
+    if (magnitudes) L.family = CsvFamily::magnitude_db;
+    if (found->n == 4) {
+        // Each component is a pair of columns (re/im, dB/phase; a dB column alone for
+        // magnitudes). One component alone is one polarisation part of a split field.
+        auto present = [&](int j) { return has(found->cols[j]) || (!magnitudes && has(found->cols[j + 1])); };
+        const bool first = present(0), second = present(2);
+        if (first != second) L.part = part_of(L.family, first);
+        for (int j = 0; j < 4; ++j)
+            if (!has(found->cols[j]) && present(j & 2) && !(magnitudes && (j & 1)))
                 return Error{file, L.header_line, 1,
                              std::string("expected a column \"") + names[found->cols[j]] + "\" beside \"" +
                                  names[found_first] + "\", found none"};
+    }
     return Ok{};
 }
 
@@ -471,7 +485,7 @@ Status apply_settings(const std::vector<CsvSetting>& settings, std::vector<Meta>
         if (k < 0)
             return at_origin(x.origin, "the assumed metadata",
                              "expected a metadata key (quantity, time-convention, angle-unit, phase-unit, "
-                             "frequency-unit, frequency, ludwig3-reference, name, source, note, mounting-up, mounting-turns, angles, skip-lines, duplicate-tolerance), found " +
+                             "frequency-unit, frequency, ludwig3-reference, name, source, note, mounting-up, mounting-turns, angles, sampling, part, skip-lines, duplicate-tolerance), found " +
                                  text::quote_found(x.key));
         if (given[std::size_t(k)] >= 0)
             return at_origin(x.origin, "the assumed metadata",
@@ -562,6 +576,10 @@ Status positioner_fields(const Layout& L, const std::string& file) {
         return Error{file, L.header_line, col,
                      "expected e_az_/e_el_ field columns only with \"angles: az-over-el\" or \"angles: el-over-az\", found them "
                      "without"};
+    if (positioner && L.part != FieldPart::whole && L.family != CsvFamily::circular_polar)
+        return Error{file, L.header_line, col,
+                     "expected both field components of a positioner grid (a part in its own unit vectors is not a "
+                     "part of the theta/phi basis), found one component only"};
     if (!positioner || L.family == CsvFamily::circular_polar || L.family == CsvFamily::total_db) return Ok{};
     if (L.family == CsvFamily::magnitude_db || L.family == CsvFamily::ludwig3_polar)
         return Error{file, L.header_line, col,
@@ -573,6 +591,23 @@ Status positioner_fields(const Layout& L, const std::string& file) {
         return Error{file, L.header_line, col,
                      "expected the field of a positioner grid in its own unit vectors (e_az_re, e_az_im, e_el_re, e_el_im or "
                      "e_az_db, e_az_phase, e_el_db, e_el_phase), found theta/phi field columns"};
+    return Ok{};
+}
+
+// "part: co": the file holds one polarisation part, the other columns zero (far_field.hpp,
+// FieldPart). Columns of one part only must name the same part.
+Status part_value(const TextSource& src, const std::string& file, const Meta& m, Layout& L) {
+    const std::string v = text::lower(m.value);
+    FieldPart p = FieldPart::whole;
+    for (FieldPart q : {FieldPart::theta, FieldPart::phi, FieldPart::rhcp, FieldPart::lhcp, FieldPart::co, FieldPart::cross})
+        if (v == csv_part_name(q)) p = q;
+    if (p == FieldPart::whole)
+        return bad_meta(src, file, m, "part: expected theta, phi, rhcp, lhcp, co or cross, found " + text::quote_found(m.value));
+    if (L.part != FieldPart::whole && L.part != p)
+        return bad_meta(src, file, m,
+                        std::string("part: expected ") + csv_part_name(L.part) + " (the columns hold the " + to_string(L.part) +
+                            " part only), found " + text::quote_found(m.value));
+    L.part = p;
     return Ok{};
 }
 
@@ -614,6 +649,11 @@ Status metadata_values(const TextSource& src, const std::string& file, const std
             if (Status st = angle_system(L, v, bad); !st) return st;
         } else if (key == "duplicate-tolerance") {
             if (!tolerance_value(m.value, L.duplicate_tolerance)) return bad("a share of the field from 0 to 100 %, such as 2 % or 0.02");
+        } else if (key == "part") {
+            if (Status st = part_value(src, file, m, L); !st) return st;
+        } else if (key == "sampling") {
+            if (v != "surface" && v != "cuts") return bad("surface or cuts");
+            L.sampling = v == "cuts" ? Sampling::cuts : Sampling::surface;
         } else if (Status st = mounting_value(src, file, m, key, L); !st) return st;
     }
     L.phase_to_rad = (phase_unit ? *phase_unit : L.angle_to_deg) * (pi / 180.0);

@@ -27,6 +27,10 @@ enum Col : int {
     c_count
 };
 inline constexpr int c_ignore = -1;
+inline constexpr bool is_db_role(int r) {
+    return r == c_e_theta_db || r == c_e_phi_db || r == c_e_rhcp_db || r == c_e_lhcp_db || r == c_e_co_db ||
+           r == c_e_cross_db || r == c_e_total_db;
+}
 const char* column_name(int role);
 int column_role(std::string_view lower_name);  // -1 when unknown
 
@@ -108,6 +112,7 @@ struct Layout {
     std::vector<long> header_column;  // 1-based byte column of each header cell
     std::array<int, c_count> column_of{};  // header cell of each role, -1 when absent
     CsvFamily family = CsvFamily::complex;
+    FieldPart part = FieldPart::whole;  // one component of the family only: the other is zero
     bool az_el = false;
     AngleSystem angles = AngleSystem::theta_phi;
     bool positioner_components = false;  // field columns named e_az_*, e_el_*
@@ -125,6 +130,7 @@ struct Layout {
     std::optional<Ludwig3Reference> ludwig3_reference;
     std::string name, source, note;
     Mounting mounting;  // mounting-up, mounting-turns (identity when absent)
+    std::optional<Sampling> sampling;  // "sampling: cuts|surface"; absent: inferred_sampling(grid)
 
     bool transform = false;  // any scale/offset set
     std::array<double, c_count> scale{};

@@ -520,7 +520,9 @@ void pass2(Context& ctx, Chunk& c, bool report_progress) {
     const int ncells = L.cells;
     AngleCaches cache;
     std::vector<const char*> cell_at(std::size_t(ncells) + 1);
+    // Columns a file lacks (the other component of one polarisation part) read as zero field.
     double v[c_count];
+    for (int r = 0; r < c_count; ++r) v[r] = is_db_role(r) ? -HUGE_VAL : 0.0;
     AngleInfo fixed_f;  // without a frequency column: the one frequency
     fixed_f.value = g.freqs.empty() ? 0.0 : g.freqs[0];
     for_each_row(ctx, c, false, 0.35, report_progress ? 0.65 : 0.0, [&](const char* p, const char* e, std::size_t off) __attribute__((always_inline)) {

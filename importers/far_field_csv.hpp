@@ -27,6 +27,8 @@ enum class CsvFamily {
     total_db          // e_total_db (total only)
 };
 const char* to_string(CsvFamily f);
+// The word of the "part" metadata line for one polarisation part: theta, phi, rhcp, lhcp, co, cross.
+const char* csv_part_name(FieldPart p);
 bool parse_csv_family(std::string_view name, CsvFamily& out);
 
 // Where an option given outside the file came from, for messages: a map file and its line, or

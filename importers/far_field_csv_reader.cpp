@@ -52,10 +52,12 @@ FarFieldSet empty_set(const Layout& L, const std::string& file) {
                                   " of free text before the header row (line " + std::to_string(L.header_line) + ")");
     s.quantity = L.quantity;
     s.ludwig3_reference = L.ludwig3_reference ? *L.ludwig3_reference : Ludwig3Reference::x;
+    s.ludwig3_declared = L.ludwig3_reference.has_value();
     s.time_convention_converted = L.minus_iwt;
     s.content = L.family == CsvFamily::magnitude_db ? FieldContent::magnitude_only
                 : L.family == CsvFamily::total_db   ? FieldContent::total_only
                                                     : FieldContent::complex;
+    s.part = L.part;
     return s;
 }
 
@@ -65,6 +67,7 @@ Result<FarFieldSet> read_directions(FarFieldSet table, const SeenPoints& seen, c
                                     const Layout& L, const TextSource& src, const std::string& file, const CsvReadOptions& o) {
     if (Status st = check_complete(table, seen, L, false, file); !st) return st.error();
     auto s = place_directions(std::move(table), lines, L, src, file);
+    if (s) s->grid.sampling = L.sampling ? *L.sampling : inferred_sampling(s->grid);  // of the placed grid
     if (s && o.progress) o.progress(1.0);
     return s;
 }
@@ -89,6 +92,7 @@ Result<FarFieldSet> read_stages(const TextSource& src, const std::string& file, 
     FarFieldSet s = empty_set(L, file);
     auto plan = plan_grid(chunks, L, src, file);
     if (!plan) return plan.error();
+    plan->grid.sampling = L.sampling ? *L.sampling : inferred_sampling(plan->grid);
     if (Status st = check_grid_size(*plan, rows, s.content, o, file); !st) return st.error();
     SeenPoints seen;
     allocate(*plan, s, seen);

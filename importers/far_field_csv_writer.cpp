@@ -26,6 +26,19 @@ const char* to_string(CsvFamily f) {
     return "complex";
 }
 
+const char* csv_part_name(FieldPart p) {
+    switch (p) {
+        case FieldPart::theta: return "theta";
+        case FieldPart::phi: return "phi";
+        case FieldPart::rhcp: return "rhcp";
+        case FieldPart::lhcp: return "lhcp";
+        case FieldPart::co: return "co";
+        case FieldPart::cross: return "cross";
+        case FieldPart::whole: break;
+    }
+    return "whole";
+}
+
 bool parse_csv_family(std::string_view name, CsvFamily& out) {
     for (CsvFamily f : {CsvFamily::complex, CsvFamily::theta_phi_polar, CsvFamily::circular_polar,
                         CsvFamily::ludwig3_polar, CsvFamily::magnitude_db, CsvFamily::total_db})
@@ -114,6 +127,11 @@ void put_head(std::string& out, const FarFieldSet& s, CsvFamily fam, Ludwig3Refe
     if (!s.note.empty()) put_meta(out, "note", s.note);
     // The file's own mounting, when the fields are still in the file's frame (a pattern already
     // turned by its mounting is written as the installed antenna, with none).
+    if (s.part != FieldPart::whole) out += std::string("# part: ") + csv_part_name(s.part) + "\n";
+    // How the samples stand for the sphere, when a reader would not infer it from the grid.
+    Grid plain = s.grid;
+    plain.sampling = inferred_sampling(s.grid);
+    if (plain.sampling != s.grid.sampling) out += std::string("# sampling: ") + to_string(s.grid.sampling) + "\n";
     if (is_identity(s.mounting) && !is_identity(s.file_mounting)) {
         out += "# mounting-up: " + format_up(s.file_mounting.up) + "\n";
         if (!s.file_mounting.turns.empty()) out += "# mounting-turns: " + format_turns(s.file_mounting.turns) + "\n";

@@ -97,7 +97,7 @@ ArBeamwidth ar_beamwidth_through(const FarFieldSet& s, std::size_t fi, double th
 }
 
 std::optional<ArSolidAngle> ar_solid_angle(const FarFieldSet& s, std::size_t fi, double threshold_db) {
-    if (!s.has_phase()) return std::nullopt;
+    if (!s.has_phase() || s.grid.sampling == Sampling::cuts) return std::nullopt;
     const Grid& g = s.grid;
     const FarField& f = s.frequencies.at(fi);
     std::vector<double> c(g.size());

@@ -55,7 +55,8 @@ struct ArSolidAngle {
 // Solid angle where AR <= threshold_db, that is |V|/I >= circularity_at_ar_db(threshold_db):
 // the cells of pattern/integrate's exact weights, each with |V|/I interpolated inside it (the
 // quarter-cell model of pattern/sphere_coverage.hpp), so a boundary through a cell counts the
-// part of the cell inside it. nullopt without phase. Cost: one pass over the grid.
+// part of the cell inside it. nullopt without phase and for cuts
+// (far_field.hpp, Sampling: no solid angle). Cost: one pass over the grid.
 std::optional<ArSolidAngle> ar_solid_angle(const FarFieldSet& s, std::size_t freq_index,
                                            double threshold_db = ar_threshold_db);
 

@@ -88,6 +88,9 @@ std::optional<std::string> component_unavailable(const FarFieldSet& s, Component
 }
 
 std::optional<std::string> polarisation_unavailable(const FarFieldSet& s) {
+    if (s.part != FieldPart::whole)
+        return std::string("axial ratio, tilt and sense need the whole field, but the data hold its ") + to_string(s.part) +
+               " part only (read its other part with it: FILE::join=OTHER)";
     if (s.has_phase()) return std::nullopt;
     return std::string("axial ratio, tilt and sense need the phase between E_theta and E_phi, but the data are ") +
            to_string(s.content) + " (no phase)";

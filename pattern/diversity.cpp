@@ -36,6 +36,7 @@ Status check_solid_angle(const Grid& g) {
                           g.theta.start_deg);
         return fail(buf);
     }
+    if (g.sampling == Sampling::cuts) return fail("MEG needs the whole sphere; " + sphere_shortfall(g));
     if (!(coverage(g) > 0)) return fail("the grid covers no solid angle (coverage 0): MEG needs part of the sphere");
     return Ok{};
 }

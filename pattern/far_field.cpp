@@ -25,13 +25,34 @@ const char* to_string(FieldContent c) {
     return "complex";
 }
 
+const char* to_string(FieldPart p) {
+    switch (p) {
+        case FieldPart::whole: return "whole";
+        case FieldPart::theta: return "E_theta";
+        case FieldPart::phi: return "E_phi";
+        case FieldPart::rhcp: return "RHCP";
+        case FieldPart::lhcp: return "LHCP";
+        case FieldPart::co: return "co-polar";
+        case FieldPart::cross: return "cross-polar";
+    }
+    return "whole";
+}
+
+const char* to_string(Sampling s) { return s == Sampling::cuts ? "cuts" : "surface"; }
+
+Sampling inferred_sampling(const Grid& g) {
+    if (g.theta.count == 1 || g.phi.count == 1) return Sampling::cuts;
+    const bool far_apart = g.phi.step_deg >= 45 - 1e-9 && g.phi.step_deg >= 5 * g.theta.step_deg - 1e-9;
+    return far_apart ? Sampling::cuts : Sampling::surface;
+}
+
 bool Grid::phi_wraps() const { return std::abs(phi.count * phi.step_deg - 360.0) < 1e-6 * 360.0; }
 bool Grid::has_north_pole() const { return std::abs(theta.start_deg) < 1e-9; }
 bool Grid::has_south_pole() const { return std::abs(theta.last_deg() - 180.0) < 1e-9; }
 
 bool same_grid(const Grid& a, const Grid& b) {
     auto eq = [](double x, double y) { return std::abs(x - y) <= 1e-9 * std::max(1.0, std::abs(x)); };
-    return a.theta.count == b.theta.count && a.phi.count == b.phi.count && eq(a.theta.start_deg, b.theta.start_deg) &&
+    return a.sampling == b.sampling && a.theta.count == b.theta.count && a.phi.count == b.phi.count && eq(a.theta.start_deg, b.theta.start_deg) &&
            eq(a.theta.step_deg, b.theta.step_deg) && eq(a.phi.start_deg, b.phi.start_deg) &&
            eq(a.phi.step_deg, b.phi.step_deg);
 }

@@ -30,6 +30,13 @@ const char* to_string(FieldContent c);
 
 enum class Ludwig3Reference { x, y };
 
+// One polarisation part of a field split over files (a range's co-polar and cross-polar scans,
+// or an E_theta file and an E_phi file): the file held one component of a basis, the other is
+// stored as zero until the parts are merged (pattern/merge.hpp). whole: the complete field.
+enum class FieldPart { whole, theta, phi, rhcp, lhcp, co, cross };
+const char* to_string(FieldPart p);  // "whole", "E_theta", "E_phi", "RHCP", "LHCP", "co-polar", "cross-polar"
+
+
 // One regularly sampled angle axis: values start_deg + i * step_deg, i in [0, count).
 struct AngleAxis {
     double start_deg = 0;
@@ -39,10 +46,21 @@ struct AngleAxis {
     double last_deg() const { return value_deg(count - 1); }
 };
 
+// How the samples stand for the sphere: the one fact every whole-sphere figure asks about
+// (through pattern/integrate.hpp: coverage, is_full_sphere, sphere_shortfall).
+//   surface: each sample is the centre of a cell; together the cells cover the sampled region.
+//   cuts:    principal cuts only (a range's phi = 0 and phi = 90 planes, a theta = 90 azimuth
+//            cut): values exist along each phi column (or along the one theta row), nothing
+//            between columns. Cuts cover no solid angle: coverage 0, no directivity, efficiency,
+//            MEG, ECC or 3D surface; cuts, beam figures and polarisation along them remain.
+enum class Sampling { surface, cuts };
+const char* to_string(Sampling s);  // "surface", "cuts"
+
 // Regular grid. theta in [0, 180]; phi start in [0, 360), samples taken modulo 360.
 struct Grid {
     AngleAxis theta;
     AngleAxis phi;
+    Sampling sampling = Sampling::surface;
     std::size_t size() const { return std::size_t(theta.count) * std::size_t(phi.count); }
     std::size_t index(int i_theta, int i_phi) const {
         return std::size_t(i_theta) * std::size_t(phi.count) + std::size_t(i_phi);
@@ -54,7 +72,14 @@ struct Grid {
     bool has_south_pole() const;
 };
 
-// True when two grids sample the same directions: equal counts, and starts and steps equal to a
+// What a reader assumes when a file does not say (docs/far-field-csv.md, "Cut-only data"):
+// cuts when one axis holds a single value (one phi column, or one theta row), or when the phi
+// columns stand at least 45 deg apart and at least 5 times further apart than the theta rows
+// (phi 0 and 90 over theta in 1-deg steps; the four half-planes 0, 90, 180, 270 that a theta
+// -180..180 file gives). A grid as coarse in theta as in phi is a surface.
+Sampling inferred_sampling(const Grid& g);
+
+// True when two grids sample the same directions (and stand for the sphere the same way): equal counts, and starts and steps equal to a
 // relative 1e-9 (|x - y| <= 1e-9 max(1, |x|)). Angles that went through text (a file's "0.1"
 // steps summed, or a step computed as span / (count - 1)) differ in their last bits; exact
 // equality would call such grids different and send the caller to interpolation for nothing.
@@ -87,7 +112,9 @@ struct FarFieldSet {
     std::vector<std::string> reading_notes;
     Quantity quantity = Quantity::gain;
     FieldContent content = FieldContent::complex;
+    FieldPart part = FieldPart::whole;  // one polarisation part of a split field, until merged
     Ludwig3Reference ludwig3_reference = Ludwig3Reference::x;
+    bool ludwig3_declared = false;  // the file named its Ludwig-3 reference (co/cross data): it means a co-polar direction
     bool time_convention_converted = false;  // true when the file used exp(-i w t) and was conjugated
     // The mounting frame (pattern/mounting.hpp). `mounting` has been applied to the fields, which
     // then describe the installed antenna in the world frame (identity: the file's own frame);

@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <cstdio>
 
 namespace ellipsa {
 
@@ -18,6 +19,7 @@ CellWeights cell_weights(const Grid& g) {
         w.theta[std::size_t(i)] = std::cos(a) - std::cos(b);
     }
     w.phi.resize(std::size_t(g.phi.count));
+    if (g.sampling == Sampling::cuts) return w;  // columns (or a row) with nothing between: no solid angle
     const double dp = g.phi.step_deg * deg;
     if (g.phi_wraps()) {
         std::fill(w.phi.begin(), w.phi.end(), dp);
@@ -43,7 +45,25 @@ double coverage(const Grid& g) {
 }
 
 bool is_full_sphere(const Grid& g) {
-    return g.phi_wraps() && g.has_north_pole() && g.has_south_pole() && g.theta.count >= 2;
+    return g.sampling == Sampling::surface && g.phi_wraps() && g.has_north_pole() && g.has_south_pole() && g.theta.count >= 2;
+}
+
+std::string sphere_shortfall(const Grid& g) {
+    if (is_full_sphere(g)) return "";
+    char buf[96];
+    if (g.sampling == Sampling::cuts) {
+        const bool azimuth = g.theta.count == 1;
+        const AngleAxis& a = azimuth ? g.theta : g.phi;
+        std::string list;
+        for (int i = 0; i < a.count && i < 8; ++i) {
+            std::snprintf(buf, sizeof buf, "%s%g", i ? ", " : "", a.value_deg(i));
+            list += buf;
+        }
+        if (a.count > 8) list += ", ...";
+        return std::string("the data hold cuts only (") + (azimuth ? "theta " : "phi ") + list + " deg)";
+    }
+    std::snprintf(buf, sizeof buf, "the data cover %.1f %% of it", 100 * coverage(g));
+    return buf;
 }
 
 double integrate_samples(const Grid& g, const CellWeights& w, const double* values) {

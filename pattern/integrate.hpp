@@ -7,6 +7,7 @@
 // both counted: a wrapping grid stores phi in [0, 360).
 #pragma once
 #include <optional>
+#include <string>
 #include <vector>
 
 #include "pattern/far_field.hpp"
@@ -20,10 +21,15 @@ struct CellWeights {
 };
 CellWeights cell_weights(const Grid& g);
 
-// Sampled solid angle over 4 pi, in [0, 1].
+// Sampled solid angle over 4 pi, in [0, 1]; 0 for cuts (far_field.hpp, Sampling).
 double coverage(const Grid& g);
-// True when the sampled cells cover the whole sphere (to 1e-9).
+// True when the sampled cells cover the whole sphere (to 1e-9); never for cuts.
 bool is_full_sphere(const Grid& g);
+// Why a figure over the whole sphere (directivity, efficiency, MEG, ECC, coverage, a 3D surface)
+// cannot come from this grid, in words that follow "needs the whole sphere; ": "the data hold
+// cuts only (phi 0, 90 deg)", "the data hold cuts only (theta 90 deg)", "the data cover 50.0 %
+// of it". Empty when the grid is the full sphere. The one wording every front end uses.
+std::string sphere_shortfall(const Grid& g);
 
 // Integral of |E|^2 over the sampled sphere (the radiated power in units where an isotropic
 // radiator of unit intensity radiates 4 pi).

@@ -11,6 +11,22 @@ CVec3 cartesian_at(const Grid& g, const FarField& f, int it, int ip) {
     return f.e_theta[k] * theta_hat(t, p) + f.e_phi[k] * phi_hat(p);
 }
 
+namespace {
+// Cuts (far_field.hpp, Sampling) have values along their phi columns only: nothing is blended
+// between two cut planes. A single theta row (an azimuth cut) interpolates along phi as usual.
+// v: the phi position in steps from the first column.
+bool on_sampled_column(const Grid& g, double theta_deg, double v) {
+    if (g.sampling != Sampling::cuts || g.theta.count == 1) return true;
+    constexpr double eps = 1e-9;
+    const bool at_pole = (std::abs(theta_deg) < eps && g.has_north_pole()) ||
+                         (std::abs(theta_deg - 180) < eps && g.has_south_pole());
+    const double span = 360.0 / g.phi.step_deg;
+    const double near = std::round(v);
+    const bool on_column = std::abs(v - near) < 1e-6 && (near <= g.phi.count - 1 || std::abs(v - span) < 1e-6);
+    return at_pole || on_column;
+}
+}  // namespace
+
 bool grid_stencil(const Grid& g, double theta_deg, double phi_deg, GridStencil& st) {
     constexpr double eps = 1e-9;
     const double u = (theta_deg - g.theta.start_deg) / g.theta.step_deg;
@@ -25,6 +41,7 @@ bool grid_stencil(const Grid& g, double theta_deg, double phi_deg, GridStencil& 
     // At a pole every phi is the same point: any phi column will do, and the Cartesian vectors
     // there agree. Still, use the asked phi so theta/phi projections stay continuous.
     double v = wrap360(phi_deg - g.phi.start_deg) / g.phi.step_deg;
+    if (!on_sampled_column(g, theta_deg, v)) return false;
     int j0, j1;
     double fp;
     if (g.phi_wraps()) {

@@ -91,7 +91,8 @@ double refine_theta(const Grid& g, const std::vector<double>& power, Peak& pk) {
 double refine_phi(const Grid& g, const std::vector<double>& power, Peak& pk) {
     const int it = pk.i_theta, ip = pk.i_phi, nt = g.theta.count, np = g.phi.count;
     const bool pole = (it == 0 && g.has_north_pole()) || (it == nt - 1 && g.has_south_pole());
-    if (pole || np < 3) return 0;
+    // Cut-only data: the next phi column is another cut, not a neighbour (far_field.hpp, Sampling).
+    if (pole || np < 3 || !(g.sampling == Sampling::surface || nt == 1)) return 0;
     int jm = ip - 1, jp = ip + 1;
     if (g.phi_wraps()) {
         jm = (ip - 1 + np) % np;

@@ -5,12 +5,17 @@
 #include <filesystem>
 
 #include "importers/far_field_csv.hpp"
+#include "pattern/integrate.hpp"
 #include "viewer/scene/demo_scene.hpp"
 
 namespace ellipsa::viewer {
 
 Result<FarFieldSet> load_pattern_file(const std::string& path, const CsvReadOptions& options) {
     auto r = read_far_field_csv(path, options);
+    if (r && r->grid.sampling == Sampling::cuts)  // the window draws surfaces over the sphere
+        return Error{path, 0, 0,
+                     "the viewer's 3D view needs the whole sphere; " + sphere_shortfall(r->grid) +
+                         ": ellipsa cut, probe and info read cuts"};
     if (r && r->source.empty()) r->source = path;
     if (r && r->name.empty()) r->name = std::filesystem::path(path).stem().string();
     return r;

@@ -57,7 +57,8 @@ expect_rc 1 "missing file is bad input" "$E" diversity no-such.csv
 # Issue 13 item 13: a single phi cut is not a sphere; the reason says so (it said "zero everywhere").
 { grep -v '^2' z.csv; grep -E '^[^,]+,[^,]+,90,' z.csv; } > cut.csv
 expect_rc 1 "a single phi cut has no MEG" "$E" diversity cut.csv
-grep -q 'single cut (only phi = 90 deg)' out.txt && ! grep -q 'zero everywhere' out.txt && ok "the reason is the single cut" || bad "single-cut reason: $(cat out.txt)"
+# Issue 14: cuts are refused while loading, in the words every whole-sphere command uses.
+grep -q 'cut.csv: diversity (MEG and ECC) needs the whole sphere; the data hold cuts only (phi 90 deg)' err.txt && ! grep -q 'zero everywhere' out.txt err.txt && ok "the reason is the single cut" || bad "single-cut reason: $(cat out.txt err.txt)"
 # Issue 13 item 14: extreme but valid table values. Each column is a shape (conventions.md, Taga 1990):
 # 1e308 in both columns is the same environment as 1 in both; 1e-320 against 1 is all vertical.
 printf 'elevation_deg,p_v,p_h\n-10,1,1\n10,1,1\n' > unit.csv

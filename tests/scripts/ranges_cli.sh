@@ -31,7 +31,7 @@ expect_rc 0 "diversity: a simulated file and a measured one with its own map" "$
 grep -q "meas.csv" out.txt && ! grep -q "::map" out.txt && ok "the output names the file, not its options" || bad "file name shown: $(head -3 out.txt)"
 expect_rc 0 "band: two files, one with its own map" "$E" band sim.csv "meas.csv::map=$M3" --out band.svg
 expect_rc 2 "an unknown per-file key is a usage error" "$E" info "meas.csv::mapp=$M3"
-grep -q 'meas.csv: expected ::key=value after the file name, key one of map, map-file, assume, scale, offset, angles, up, rotate, phase-centre, found "mapp=' err.txt \
+grep -q 'meas.csv: expected ::key=value after the file name, key one of map, map-file, assume, scale, offset, angles, up, rotate, phase-centre, join, found "mapp=' err.txt \
   && ok "... naming the key and the choices" || bad "unknown key message: $(cat err.txt)"
 expect_rc 1 "a key given for the file and for all files is refused" "$E" info "meas.csv::map=$M3::assume=quantity=relative"
 grep -q "meas.csv::assume: expected metadata \"quantity\" once, found it again (first from .*range3.map:8)" err.txt \
