@@ -29,7 +29,7 @@ std::string text_of(const OptionArg& a) {
 // name --map, --assume, ...), dict entries named after the keyword they came in ("map", ...).
 CsvReadOptions read_options(const OptionArg& map, const std::optional<std::string>& map_file, const OptionArg& assume,
                             const OptionArg& scale, const OptionArg& offset, int threads) {
-    cli::FileOptions lo{text_of(map), map_file.value_or(""), text_of(assume), text_of(scale), text_of(offset), {}};
+    cli::FileOptions lo{text_of(map), map_file.value_or(""), text_of(assume), text_of(scale), text_of(offset), {}, {}};
     CsvReadOptions ro = take(cli::read_options(lo));
     auto each = [](const OptionArg& a, auto add) {
         if (a && std::holds_alternative<py::dict>(*a))
