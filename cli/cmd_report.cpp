@@ -136,6 +136,8 @@ Registered add_report(CLI::App& root) {
     add_environment_options(sub, a->environment);
     sub->add_flag("--force", a->force, "Replace the output folder if it exists");
     add_load_options(sub, a->load);
+    // Its maps, 3D views and shares of the sphere need a sphere; cut data go to cut, probe and info.
+    a->load.whole_sphere_figure = "a report (maps, 3D views, shares of the sphere)";
     return {sub, [a]() -> int { return run_report(*a); }};
 }
 const CommandRegistration registration(80, add_report);

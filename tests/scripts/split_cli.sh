@@ -56,7 +56,7 @@ grep -q '"sampling": "cuts"' <("$E" info cuts.csv --json) && ok "info --json giv
 expect_rc 0 "cut on a principal plane" "$E" cut cuts.csv --phi 90 --frequency 2.45e9 --out h_plane.csv
 expect_rc 0 "probe on a cut" "$E" probe cuts.csv --theta 30 --phi 90 --frequency 2.45e9
 expect_rc 1 "probe between two cuts has no value" "$E" probe cuts.csv --theta 30 --phi 45 --frequency 2.45e9
-for cmd in "diversity cuts.csv" "fading cuts.csv" "map cuts.csv --out m.svg" "coverage cuts.csv" "rank cuts.csv"; do
+for cmd in "diversity cuts.csv" "fading cuts.csv" "map cuts.csv --out m.svg" "coverage cuts.csv" "rank cuts.csv" "report cuts.csv --out rep"; do
   expect_rc 1 "$cmd says it needs a sphere" "$E" $cmd
   grep -q "cuts.csv: .* needs the whole sphere; the data hold cuts only (phi 0, 90, 180, 270 deg): cut, probe and info read cuts" err.txt \
     && ok "... in words" || bad "$cmd: $(cat err.txt)"
