@@ -89,7 +89,7 @@ void loading_and_error(const AppState& s, Intents& in) {
 }
 
 void pattern_table(const AppState& s, Intents& in) {
-    ImGui::TextDisabled("Patterns: A is shown, tick B to compare");
+    text_wrapped_at_spaces("Patterns: A is shown, tick B to compare", true);  // wraps in a narrow panel
     if (!ImGui::BeginTable("patterns", 3, ImGuiTableFlags_RowBg | ImGuiTableFlags_BordersInnerH)) return;
     ImGui::TableSetupColumn("name", ImGuiTableColumnFlags_WidthStretch);
     ImGui::TableSetupColumn("B", ImGuiTableColumnFlags_WidthFixed, 24);
