@@ -55,7 +55,7 @@ test -s "$tmp/x.png" || { echo "headless render under the sanitizers wrote no im
 viewer_gate "$tmp/render.log"
 if command -v xvfb-run >/dev/null; then
   ASAN_OPTIONS=detect_leaks=1:exitcode=0 LSAN_OPTIONS=suppressions=$ROOT/tests/lsan.supp:exitcode=0 \
-    xvfb-run -a build-asan/ellipsa view "$tmp/x.csv" --software --frames 5 --size 640x400 \
+    tests/xvfb_run.sh -a build-asan/ellipsa view "$tmp/x.csv" --software --frames 5 --size 640x400 \
     --screenshot "$tmp/v.png" >"$tmp/view.log" 2>&1 || true
   test -s "$tmp/v.png" || { echo "windowed viewer under the sanitizers wrote no screenshot" >&2; cat "$tmp/view.log" >&2; exit 1; }
   viewer_gate "$tmp/view.log"
@@ -65,7 +65,7 @@ echo "viewer: no sanitizer errors and no leaks from our code"
 # Hostile settings, empty cuts, NaN options, no replacing without --force (tests/viewer/robustness.sh),
 # under the sanitizers: ASan's RSS limit stands in for ulimit -v, which ASan's shadow memory cannot live under.
 if command -v xvfb-run >/dev/null; then
-  ELLIPSA=build-asan/ellipsa XVFB_RUN=$(command -v xvfb-run) ROBUST_MEMORY_KB=unlimited ROBUST_WAIT_S=8 \
+  ELLIPSA=build-asan/ellipsa XVFB_RUN=$ROOT/tests/xvfb_run.sh ROBUST_MEMORY_KB=unlimited ROBUST_WAIT_S=8 \
     ASAN_OPTIONS=detect_leaks=0:abort_on_error=1:hard_rss_limit_mb=4000 tests/viewer/robustness.sh
 fi
 

@@ -112,13 +112,13 @@ if [[ -x $B/tests/bench_viewer_mesh ]]; then
       if [[ $step == 1-full ]]; then step=1; full=1; fi
       export ELLIPSA_FULL_DETAIL=$full
       [[ -f $VB/grid-$step.csv ]] || "$B/ellipsa" synth crossed-dipoles --step "$step" --out "$VB/grid-$step.csv" >/dev/null
-      stats=$(XDG_CONFIG_HOME="$VB/config" xvfb-run -a -s "-screen 0 1400x900x24" \
+      stats=$(XDG_CONFIG_HOME="$VB/config" tests/xvfb_run.sh -a -s "-screen 0 1400x900x24" \
         "$B/ellipsa" view "$VB/grid-$step.csv" --software --size 1280x800 --frames 150 --frame-stats 2>/dev/null | tail -1)
       label="$step-deg grid"; [[ $full == 1 ]] && label="$step-deg grid, every grid line"
       printf "  %-44s %s\n" "frame time, $label, 1280x800" "$stats"
       # CPU time per frame barely depends on other load: (CPU of 160 frames - CPU of 10) / 150,
       # all threads of llvmpipe and the X server included (on 2 cores, wall >= CPU / 2).
-      run() { XDG_CONFIG_HOME="$VB/config" /usr/bin/python3 tests/bench/time_cmd.py 1 xvfb-run -a -s "-screen 0 1400x900x24" \
+      run() { XDG_CONFIG_HOME="$VB/config" /usr/bin/python3 tests/bench/time_cmd.py 1 tests/xvfb_run.sh -a -s "-screen 0 1400x900x24" \
         "$B/ellipsa" view "$VB/grid-$step.csv" --software --size 1280x800 --frames "$1"; }
       read -r _ c10 < <(run 10)
       read -r _ c160 < <(run 160)

@@ -9,3 +9,6 @@ expect_rc() {  # WANT LABEL CMD... (stdout to out.txt, stderr to err.txt)
   if [[ $rc == "$want" ]]; then ok "$label (exit $rc)"; else bad "$label: exit $rc, expected $want; stderr: $(head -c 300 err.txt)"; fi
 }
 finish() { echo "$pass passed, $fail failed"; [[ $fail == 0 ]]; }
+# xvfb-run through tests/xvfb_run.sh (an authority file of our own, so xvfb-run's clean-up cannot
+# replace the program's exit status under load).
+XVFB="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)/xvfb_run.sh"

@@ -103,10 +103,10 @@ expect_rc 1 "view refuses a bad map file before opening a window" "$E" view "mea
 if command -v xvfb-run >/dev/null && [[ "${ELLIPSA_SKIP_WINDOW:-0}" != 1 ]]; then
   export XDG_CONFIG_HOME="$W/config"
   expect_rc 0 "view reads a measured file with its own map beside a simulated one" \
-    xvfb-run -a -s "-screen 0 1024x768x24" "$E" view sim.csv "meas.csv::map=$M3" --compare 2 --frames 2 --size 800x600 --software
+    "$XVFB" -a -s "-screen 0 1024x768x24" "$E" view sim.csv "meas.csv::map=$M3" --compare 2 --frames 2 --size 800x600 --software
   printf 'theta,phi,e_total_db\n0,0,x\n' >broken.csv
   expect_rc 1 "view --frames with a file that does not read fails" \
-    xvfb-run -a -s "-screen 0 1024x768x24" "$E" view broken.csv --frames 2 --size 800x600 --software
+    "$XVFB" -a -s "-screen 0 1024x768x24" "$E" view broken.csv --frames 2 --size 800x600 --software
   grep -q "broken.csv:2:5: expected a number" err.txt && ok "... with the reader's message" || bad "broken: $(cat err.txt)"
 else
   echo "xvfb-run not available: the windowed checks are skipped"

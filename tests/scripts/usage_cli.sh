@@ -114,7 +114,7 @@ grep -q "{vertical,horizontal,slant+45,slant-45,rhcp,lhcp}" out.txt && ok "fadin
 expect_rc 2 "view --compare 3 with one file" "$E" view d.csv --frames 1 --compare 3
 has "--compare expects a FILE number from 1 to 1, found 3" "... names the range"
 if command -v xvfb-run >/dev/null; then
-  expect_rc 1 "view --frames with a missing file" xvfb-run -a -s "-screen 0 800x600x24" "$E" view no-such.csv --frames 2 --software
+  expect_rc 1 "view --frames with a missing file" "$XVFB" -a -s "-screen 0 800x600x24" "$E" view no-such.csv --frames 2 --software
   has "no-such.csv" "... names the file"
   grep -qi "example" err.txt out.txt && bad "... fell back to the examples: $(cat err.txt)" || ok "... no fallback to the examples"
 fi

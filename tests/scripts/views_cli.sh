@@ -99,7 +99,7 @@ if "$E" render --help >/dev/null 2>&1; then
   python3 "$SRC/tests/scripts/check_mesh_files.py" s.glb s.ply >out.txt 2>&1 && ok "GLB and PLY pass the structural check" || bad "mesh files: $(cat out.txt)"
   expect_rc 1 "render refuses to replace a GLB" "$E" render "$TS" --out s.glb
   if command -v xvfb-run >/dev/null; then  # the viewer's export of the surface on screen, same writer
-    expect_rc 0 "view --export-view v.glb" xvfb-run -a -s "-screen 0 800x600x24" "$E" view "$TS" --frames 3 --export-view v.glb
+    expect_rc 0 "view --export-view v.glb" "$XVFB" -a -s "-screen 0 800x600x24" "$E" view "$TS" --frames 3 --export-view v.glb
     python3 "$SRC/tests/scripts/check_mesh_files.py" v.glb >out.txt 2>&1 && ok "the viewer's GLB passes the structural check" || bad "viewer GLB: $(cat out.txt)"
   fi
   expect_rc 1 "render: magnitude-only data cannot colour by axial ratio" "$E" render "$SRC/tests/data/csv/upper_hemisphere.csv" --color-by axial-ratio --out n.glb
