@@ -37,6 +37,7 @@ std::string grid_line(const Grid& g) {
 
 void write_human(const std::string& path, const FarFieldSet& s, const std::vector<std::size_t>& which,
                  const std::vector<PatternSummary>& rs) {
+    const std::vector<InfoExtras> extras = info_extras(s, which, rs);
     const char* q = to_string(s.quantity);
     const char* u = db_unit(s.quantity, Component::total);
     std::cout << path << ": " << (s.name.empty() ? "(no name)" : s.name) << "\n";
@@ -87,9 +88,9 @@ void write_human(const std::string& path, const FarFieldSet& s, const std::vecto
                   << (r.sense ? exports::polarisation_text(*r.sense, r.axial_ratio_db) : "unavailable (" + r.unavailable_reason + ")")
                   << "\n";
         // issue 16: AR beamwidth around the peak and the AR <= 3 dB share of the sphere.
-        const std::size_t k = which[std::size_t(&r - rs.data())];
-        std::cout << "    AR beamwidth (3 dB)   " << circular_text(circular_figures(s, k, r)) << "\n";
-        std::cout << "    phase centre          " << phase_centre_text(s, k) << "\n";
+        const std::size_t i = std::size_t(&r - rs.data()), k = which[i];
+        std::cout << "    AR beamwidth (3 dB)   " << circular_text(extras[i].circular) << "\n";
+        std::cout << "    phase centre          " << phase_centre_text(s, k, extras[i].phase_centre) << "\n";
         if (const std::string moved = reference_shift_text(s, k); !moved.empty())
             std::cout << "    phase reference       moved to " << moved << "\n";
     }

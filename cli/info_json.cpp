@@ -5,10 +5,21 @@
 #include "exports/figure_text.hpp"
 #include "pattern/convention_hints.hpp"
 #include "pattern/integrate.hpp"
+#include "pattern/parallel.hpp"
 
 namespace ellipsa::cli {
 
-void summary_json(JsonWriter& j, const FarFieldSet& s, std::size_t freq_index, const PatternSummary& r) {
+std::vector<InfoExtras> info_extras(const FarFieldSet& s, const std::vector<std::size_t>& which,
+                                    const std::vector<PatternSummary>& rs) {
+    std::vector<InfoExtras> out(which.size());
+    parallel_each(which.size(), [&](std::size_t i) {
+        out[i].circular = circular_figures(s, which[i], rs[i]);
+        out[i].phase_centre = estimate_phase_centre(s, which[i]);
+    });
+    return out;
+}
+
+void summary_json(JsonWriter& j, const FarFieldSet& s, std::size_t freq_index, const PatternSummary& r, const InfoExtras& x) {
     j.field("frequency_hz", r.frequency_hz);
     // A zero field has no peak direction: null, with zero_field true (docs/guide.md, JSON keys).
     std::optional<double> pt, pp;
@@ -50,8 +61,8 @@ void summary_json(JsonWriter& j, const FarFieldSet& s, std::size_t freq_index, c
     j.key("warnings").begin_array();
     if (r.efficiency_above_100) j.value(exports::efficiency_warning_text(*r.power.radiation_efficiency));
     j.end_array();
-    circular_json(j, circular_figures(s, freq_index, r));  // issue 16: AR beamwidth
-    phase_centre_json(j, s, freq_index);
+    circular_json(j, x.circular);  // issue 16: AR beamwidth
+    phase_centre_json(j, s, freq_index, x.phase_centre);
 }
 
 std::string info_json(const FarFieldSet& s, const std::vector<std::size_t>& which, const std::vector<PatternSummary>& rs) {
@@ -72,9 +83,10 @@ std::string info_json(const FarFieldSet& s, const std::vector<std::size_t>& whic
     j.end_object();
     mounting_json(j, s);
     j.key("results").begin_array();
+    const std::vector<InfoExtras> extras = info_extras(s, which, rs);
     for (std::size_t k = 0; k < rs.size(); ++k) {
         j.begin_object();
-        summary_json(j, s, which[k], rs[k]);
+        summary_json(j, s, which[k], rs[k], extras[k]);
         j.end_object();
     }
     j.end_array();

@@ -5,14 +5,26 @@
 #include <string>
 #include <vector>
 
+#include "cli/band_text.hpp"
 #include "cli/json.hpp"
 #include "pattern/far_field.hpp"
+#include "pattern/phase_centre.hpp"
 #include "pattern/summary.hpp"
 
 namespace ellipsa::cli {
 
+// The figures of one frequency beyond its summary: the AR beamwidths and the phase centre.
+struct InfoExtras {
+    CircularFigures circular;
+    Result<PhaseCentre> phase_centre = Error{};
+};
+// Those of every frequency in `which` (rs[k] summarises which[k]), one frequency a task on the
+// cores: they cost more than the summaries (the phase centre's fit walks the whole grid).
+std::vector<InfoExtras> info_extras(const FarFieldSet& s, const std::vector<std::size_t>& which,
+                                    const std::vector<PatternSummary>& rs);
+
 // One frequency's figures: an object of the "results" array (docs/guide.md, JSON keys).
-void summary_json(JsonWriter& j, const FarFieldSet& s, std::size_t freq_index, const PatternSummary& r);
+void summary_json(JsonWriter& j, const FarFieldSet& s, std::size_t freq_index, const PatternSummary& r, const InfoExtras& x);
 // The whole object: the set's description, the grid, one result per frequency in `which` (rs[k]
 // summarises which[k]) and, for more than one frequency, the band summary.
 std::string info_json(const FarFieldSet& s, const std::vector<std::size_t>& which, const std::vector<PatternSummary>& rs);

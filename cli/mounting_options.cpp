@@ -118,11 +118,11 @@ void mounting_json(JsonWriter& j, const FarFieldSet& s) {
     j.end_object();
 }
 
-void phase_centre_json(JsonWriter& j, const FarFieldSet& s, std::size_t k) {
+void phase_centre_json(JsonWriter& j, const FarFieldSet& s, std::size_t k, const Result<PhaseCentre>& pc) {
     const FarField& f = s.frequencies[k];
     const double lambda = wavelength_m(f);
     j.key("phase_centre");
-    if (auto pc = estimate_phase_centre(s, k)) {
+    if (pc) {
         j.begin_object();
         j.key("position_m");
         if (lambda > 0) vector_json(j, lambda * pc->centre_wl);
@@ -141,8 +141,7 @@ void phase_centre_json(JsonWriter& j, const FarFieldSet& s, std::size_t k) {
     else vector_json(j, lambda * f.reference_shift_wl);
 }
 
-std::string phase_centre_text(const FarFieldSet& s, std::size_t k) {
-    auto pc = estimate_phase_centre(s, k);
+std::string phase_centre_text(const FarFieldSet& s, std::size_t k, const Result<PhaseCentre>& pc) {
     if (!pc) return "unavailable (" + pc.error().message + ")";
     const double lambda = wavelength_m(s.frequencies[k]);
     std::string t = lambda > 0 ? triple(lambda * pc->centre_wl, metres) + " m = " : "";

@@ -39,11 +39,12 @@ void mounting_json(JsonWriter& j, const FarFieldSet& s);
 
 // The phase centre at one frequency in metres (null without a frequency) and wavelengths, with
 // the fit's residual and sample count, and the phase reference's shift when it was moved:
-// the "phase_centre" and "phase_reference_shift_m" fields of info --json.
-void phase_centre_json(JsonWriter& j, const FarFieldSet& s, std::size_t freq_index);
+// the "phase_centre" and "phase_reference_shift_m" fields of info --json. `pc` is
+// estimate_phase_centre(s, freq_index), computed by the caller (info does all frequencies at once).
+void phase_centre_json(JsonWriter& j, const FarFieldSet& s, std::size_t freq_index, const Result<PhaseCentre>& pc);
 // "(12.0, 0.0, -3.1) mm = (0.098, 0.000, -0.025) wavelengths, residual 0.4 deg over 812 samples",
 // or "unavailable (why)".
-std::string phase_centre_text(const FarFieldSet& s, std::size_t freq_index);
+std::string phase_centre_text(const FarFieldSet& s, std::size_t freq_index, const Result<PhaseCentre>& pc);
 // "(0.000, 0.000, 0.100) m from the file's origin" when the reference was moved, else "".
 std::string reference_shift_text(const FarFieldSet& s, std::size_t freq_index);
 

@@ -34,7 +34,8 @@ py::dict summary(const Pattern& p, int index, std::optional<double> frequency_hz
         py::gil_scoped_release unlocked;
         cli::JsonWriter j;
         j.begin_object();
-        cli::summary_json(j, p.set, fi, summarize(p.set, fi));
+        const std::vector<PatternSummary> rs{summarize(p.set, fi)};
+        cli::summary_json(j, p.set, fi, rs[0], cli::info_extras(p.set, {fi}, rs)[0]);
         j.end_object();
         text = j.str();
     }
