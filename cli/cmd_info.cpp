@@ -77,12 +77,13 @@ void write_human(const std::string& path, const FarFieldSet& s, const std::vecto
                                                      : std::string("unavailable (needs absolute gain data)"))
                   << "\n";
         if (r.efficiency_above_100) std::cout << "    warning: " << exports::efficiency_warning_text(*r.power.radiation_efficiency) << "\n";
-        for (const bool az : {false, true}) {  // "HPBW elevation", or at a pole "HPBW plane phi = 0"
-            std::string label = "HPBW " + (r.peak_at_pole ? exports::beam_plane_text(r, az, "") : az ? "azimuth" : "elevation");
+        for (const bool az : {false, true}) {  // "HPBW elevation plane", or at a pole "HPBW plane phi = 0"
+            std::string label = "HPBW " + exports::beam_plane_text(r, az, "");
             label.resize(std::max<std::size_t>(label.size() + 1, 22), ' ');
             std::cout << "    " << label << exports::beamwidth_text(az ? r.azimuth : r.elevation, az ? "angle" : "theta", "deg") << "\n";
         }
-        std::cout << "    side lobe elevation   " << exports::sidelobe_text(r.elevation) << "\n";
+        // The plane goes with the value: "elevation plane: -13.26 dB", "plane phi = 0: none (...)".
+        std::cout << "    side lobe             " << exports::beam_plane_text(r, false, "") << ": " << exports::sidelobe_text(r.elevation) << "\n";
         std::cout << "    front-to-back         " << exports::front_to_back_text(r.front_to_back_db, r.front_to_back_above_db) << "\n";
         std::cout << "    polarisation at peak  "
                   << (r.sense ? exports::polarisation_text(*r.sense, r.axial_ratio_db) : "unavailable (" + r.unavailable_reason + ")")

@@ -73,13 +73,7 @@ void pair_panel(XyPanel& p, bool ecc, const std::vector<BandPair>& pairs, const 
 
 // Every frequency of every set has its peak at a pole: the beam planes are phi = 0 and phi = 90.
 bool peaks_at_pole(const std::vector<BandSet>& sets) {
-    bool any = false;
-    for (const BandSet& b : sets)
-        for (const FrequencyFigures& f : b.figures) {
-            if (!f.summary.peak_at_pole) return false;
-            any = true;
-        }
-    return any;
+    return !sets.empty() && std::all_of(sets.begin(), sets.end(), [](const BandSet& b) { return ellipsa::peaks_at_pole(b.figures); });
 }
 
 // One panel for one quantity over all sets (and pairs).

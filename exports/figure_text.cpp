@@ -115,14 +115,14 @@ std::string beamwidth_text(const BeamFigures& b, const std::string& angle, const
     return "none";
 }
 
-std::string beam_plane_text(bool peak_at_pole, bool azimuth, const std::string& deg) {
-    if (!peak_at_pole) return azimuth ? "azimuth plane" : "elevation plane";
+std::string beam_plane_text(bool peak_at_pole, bool azimuth, const std::string& deg, bool brief) {
+    if (!peak_at_pole) return brief ? (azimuth ? "azim." : "elev.") : azimuth ? "azimuth plane" : "elevation plane";
     const bool greek = deg == "\u00b0";
-    return std::string(greek ? "plane \u03c6 = " : "plane phi = ") + with_unit(azimuth ? 90 : 0, 0, deg);
+    return std::string(brief ? "" : "plane ") + (greek ? "\u03c6 = " : "phi = ") + with_unit(azimuth ? 90 : 0, 0, deg);
 }
 
-std::string beam_plane_text(const PatternSummary& r, bool azimuth, const std::string& deg) {
-    return beam_plane_text(r.peak_at_pole, azimuth, deg);
+std::string beam_plane_text(const PatternSummary& r, bool azimuth, const std::string& deg, bool brief) {
+    return beam_plane_text(r.peak_at_pole, azimuth, deg, brief);
 }
 
 std::string beamwidth_cell(const BeamFigures& b) {

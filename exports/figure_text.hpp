@@ -63,8 +63,11 @@ std::string beamwidth_text(const BeamFigures& b, const std::string& angle, const
 // plane"; when the peak is at a pole (PatternSummary::peak_at_pole), where both are elevation
 // planes and the peak's phi means nothing, "plane phi = 0 deg" / "plane phi = 90 deg" (`deg`
 // "deg"; "" gives "plane phi = 0"), or "plane φ = 0°" / "plane φ = 90°" (`deg` "°").
-std::string beam_plane_text(bool peak_at_pole, bool azimuth, const std::string& deg);
-std::string beam_plane_text(const PatternSummary& r, bool azimuth, const std::string& deg);
+// `brief` gives the narrow table form: "elev." / "azim.", at a pole "φ = 0°" / "phi = 90 deg".
+// This is the one wording of these planes: every label that names one (summaries, tables, band
+// plots and menus, the viewer's panels) is made here.
+std::string beam_plane_text(bool peak_at_pole, bool azimuth, const std::string& deg, bool brief = false);
+std::string beam_plane_text(const PatternSummary& r, bool azimuth, const std::string& deg, bool brief = false);
 // Its JSON reason code: null (nullopt) when the HPBW exists, else "omnidirectional",
 // "wider_than_180_deg", "edge_outside_data_lower_angle", "edge_outside_data_higher_angle",
 // "edges_outside_data_both_sides", "no_power".

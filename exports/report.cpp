@@ -111,9 +111,9 @@ std::vector<std::pair<std::string, std::string>> figure_rows(const FarFieldSet& 
                    : s.grid.sampling == Sampling::cuts ? needs_sphere_text(s.grid)
                    : s.quantity == Quantity::gain      ? std::string("unavailable (partial sphere)")
                                                        : std::string("unavailable (needs absolute gain data)"));
-    v.emplace_back("HPBW, " + (r.peak_at_pole ? beam_plane_text(r, false, "°") : std::string("elevation plane")) + " through the peak (°)", r.zero_field ? std::string("none (zero field)") : beamwidth_text(r.elevation, "θ", ""));
-    v.emplace_back("HPBW, " + (r.peak_at_pole ? beam_plane_text(r, true, "°") : std::string("azimuth-like plane")) + " through the peak (°)", r.zero_field ? std::string("none (zero field)") : beamwidth_text(r.azimuth, "angle", ""));
-    v.emplace_back("Side lobe, elevation plane (dB)", r.zero_field ? std::string("none (zero field)") : sidelobe_text(r.elevation));
+    v.emplace_back("HPBW, " + beam_plane_text(r, false, "°") + " through the peak (°)", r.zero_field ? std::string("none (zero field)") : beamwidth_text(r.elevation, "θ", ""));
+    v.emplace_back("HPBW, " + beam_plane_text(r, true, "°") + " through the peak (°)", r.zero_field ? std::string("none (zero field)") : beamwidth_text(r.azimuth, "angle", ""));
+    v.emplace_back("Side lobe, " + beam_plane_text(r, false, "°") + " (dB)", r.zero_field ? std::string("none (zero field)") : sidelobe_text(r.elevation));
     // Beyond null_ratio_bound_db the back direction is a null, not a measurable level.
     v.emplace_back("Front-to-back (dB)", r.front_to_back_above_db ? "above " + fixed(*r.front_to_back_above_db, 0) + " (the back is a null)"
                                          : r.front_to_back_db     ? fixed(*r.front_to_back_db, db_decimals)

@@ -48,6 +48,11 @@ ArReading axial_ratio_at(const FarFieldSet& s, std::size_t fi, double theta_deg,
     return r;
 }
 
+bool peaks_at_pole(const std::vector<FrequencyFigures>& figures) {
+    return !figures.empty() &&
+           std::all_of(figures.begin(), figures.end(), [](const FrequencyFigures& f) { return f.summary.peak_at_pole; });
+}
+
 std::vector<FrequencyFigures> band_figures(const FarFieldSet& s, const BandOptions& o) {
     const std::vector<std::size_t> order = ascending(s);
     std::vector<FrequencyFigures> out(order.size());

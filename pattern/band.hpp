@@ -54,6 +54,9 @@ struct FrequencyFigures {
 // summarize() (a grid pass and two cuts), two more cuts for the AR beamwidths, one grid pass
 // per environment.
 std::vector<FrequencyFigures> band_figures(const FarFieldSet& s, const BandOptions& o);
+// Every frequency has its peak at a pole (PatternSummary::peak_at_pole): the beam planes are then
+// phi = 0 and phi = 90 throughout, and are named so (exports::beam_plane_text). False for none.
+bool peaks_at_pole(const std::vector<FrequencyFigures>& figures);
 
 struct PairFrequencyFigures {
     double frequency_hz = 0;

@@ -23,7 +23,11 @@ namespace {
 const ImU32 ink = IM_COL32(34, 38, 46, 255), grid = IM_COL32(205, 206, 203, 255), grid_minor = IM_COL32(228, 229, 226, 255),
             muted = IM_COL32(95, 100, 108, 255), no_data = IM_COL32(236, 236, 236, 255);
 
+// Room for the angle labels around a polar plot: beside it (the widest, "-150°") and above/below.
+const ImVec2 polar_label_room(44, 22);
+
 // The figures' curve colours (exports/palette.hpp), so screen and file colour a curve alike.
+
 ImU32 curve_u32(std::size_t i) {
     const exports::Rgb c = exports::curve_colour(i);
     return IM_COL32(int(c.r * 255 + 0.5), int(c.g * 255 + 0.5), int(c.b * 255 + 0.5), 255);
@@ -210,8 +214,8 @@ void draw_marks(ImDrawList* dl, const PlotFrame& f, const exports::CutPlot& fig,
 }
 
 // The figure's table (exports::cut_table, as in the files) under the plot: a swatch, the curve
-// (its tag in a narrow panel, the full name as a tooltip) and the figures.
-void figure_table(const exports::CutPlot& fig, bool narrow) {
+// and the figures.
+void figure_table(const exports::CutPlot& fig) {
     const exports::CutTable t = exports::cut_table(fig);
     ImGui::PushStyleVar(ImGuiStyleVar_CellPadding, ImVec2(5, 1));
     const bool open = ImGui::BeginTable("cutfigures", int(t.header.size()) + 1,
@@ -231,8 +235,40 @@ void figure_table(const exports::CutPlot& fig, bool narrow) {
         ImGui::Dummy(ImVec2(24, ImGui::GetTextLineHeight()));
         for (std::size_t c = 0; c < t.rows[r].size(); ++c) {
             ImGui::TableNextColumn();
-            ImGui::TextUnformatted(c == 0 && narrow ? fig.curves[r].tag.c_str() : t.rows[r][c].c_str());
-            if (c == 0 && ImGui::IsItemHovered()) ImGui::SetTooltip("%s", t.rows[r][0].c_str());
+            ImGui::TextUnformatted(t.rows[r][c].c_str());
+        }
+    }
+    ImGui::EndTable();
+}
+
+// The same table turned for a narrow panel: a row per figure, a column per curve headed by its
+// swatch and tag (the full name on hover); scrolls sideways when many curves are shown.
+void figure_table_turned(const exports::CutPlot& fig) {
+    const exports::CutTable t = exports::cut_table(fig);
+    const bool many = t.rows.size() > 2;  // more than two curves scroll sideways
+    ImGui::PushStyleVar(ImGuiStyleVar_CellPadding, ImVec2(5, 1));
+    const float h = ImGui::GetTextLineHeightWithSpacing() * float(t.header.size() + (many ? 1 : 0));
+    const bool open = ImGui::BeginTable("cutfiguresturned", int(t.rows.size()) + 1,
+                                        ImGuiTableFlags_SizingFixedFit | ImGuiTableFlags_BordersInnerH | (many ? ImGuiTableFlags_ScrollX : 0),
+                                        ImVec2(0, many ? h : 0));
+    ImGui::PopStyleVar();
+    if (!open) return;
+    if (many) ImGui::TableSetupScrollFreeze(1, 0);
+    ImGui::TableNextRow();  // the curves' tags in their colours (the full name on hover)
+    for (std::size_t r = 0; r < t.rows.size(); ++r) {
+        ImGui::TableSetColumnIndex(int(r) + 1);
+        ImGui::PushStyleColor(ImGuiCol_Text, curve_u32(r));
+        ImGui::TextUnformatted(fig.curves[r].tag.c_str());
+        ImGui::PopStyleColor();
+        if (ImGui::IsItemHovered()) ImGui::SetTooltip("%s", t.rows[r][0].c_str());
+    }
+    for (std::size_t c = 1; c < t.header.size(); ++c) {
+        ImGui::TableNextRow();
+        ImGui::TableSetColumnIndex(0);
+        ImGui::TextDisabled("%s", t.header[c].c_str());
+        for (std::size_t r = 0; r < t.rows.size(); ++r) {
+            ImGui::TableSetColumnIndex(int(r) + 1);
+            ImGui::TextUnformatted(t.rows[r][c].c_str());
         }
     }
     ImGui::EndTable();
@@ -250,24 +286,26 @@ void figure_key(const exports::CutPlot& fig) {
     }
 }
 
-// The cut's kind and angle (or what the pin cut follows) and the plot style, on a copy of the
-// settings. `kind_w`: the width of the kind and angle widgets (-1: the whole line each).
-void cut_kind_row(const AppState& s, ViewerSettings& st, float kind_w, bool one_line) {
+// The cut's kind and angle (or what the pin cut follows), on a copy of the settings, a line each.
+void cut_kind_rows(const AppState& s, ViewerSettings& st) {
     const char* kinds[] = {"\u03c6 = const (elevation cut)", "\u03b8 = const (conical cut)", "through the pinned direction"};
-    ImGui::SetNextItemWidth(kind_w);
+    ImGui::SetNextItemWidth(-1);
     ImGui::Combo("##kind", &st.cut_kind, kinds, 3);
-    if (one_line) ImGui::SameLine();
     if (st.cut_kind < 2) {
         float ang = float(st.cut_angle_deg);
-        ImGui::SetNextItemWidth(one_line ? kind_w * 0.6f : kind_w);
+        ImGui::SetNextItemWidth(-1);
         if (ImGui::SliderFloat("##ang", &ang, 0, 180, st.cut_kind == 0 ? "\u03c6 = %.0f\u00b0" : "\u03b8 = %.0f\u00b0",
                                ImGuiSliderFlags_AlwaysClamp))
             st.cut_angle_deg = std::round(ang);
-    } else if (!s.pinned) {  // once pinned, the axis note under the plot says what the cut follows
+    } else if (!s.pinned) {  // once pinned, the axis note under the controls says what the cut follows
         ImGui::TextDisabled("click the surface to pin");
     }
-    if (one_line) ImGui::SameLine();
+}
+
+void polar_check(ViewerSettings& st, bool key_hint) {
     ImGui::Checkbox("polar plot", &st.polar_plot);
+    if (ImGui::IsItemHovered()) ImGui::SetTooltip("Polar or rectangular plot (key P)");
+    if (!key_hint) return;
     ImGui::SameLine();
     ImGui::TextDisabled("(P)");
 }
@@ -295,14 +333,15 @@ void component_checks(const FarFieldSet& a, ViewerSettings& st, float width) {
 }
 
 // The controls as a column beside the plot; the components as checkboxes when the column is
-// tall enough, else in a popup.
-void cut_controls(const AppState& s, const FarFieldSet& a, float width, Intents& in) {
+// tall enough (leaving `keep` px under them), else in a popup beside the polar switch.
+void cut_controls(const AppState& s, const FarFieldSet& a, float width, float keep, Intents& in) {
     ViewerSettings st = s.settings;
-    cut_kind_row(s, st, -1, false);
+    cut_kind_rows(s, st);
     cut_export_row(s, in);
     append(in, export_outcome_line(s.cut_export, ExportTarget::cut));
-    ImGui::Separator();
-    if (ImGui::GetContentRegionAvail().y >= 5 * ImGui::GetFrameHeightWithSpacing()) {
+    if (ImGui::GetContentRegionAvail().y >= 6 * ImGui::GetFrameHeightWithSpacing() + keep) {
+        polar_check(st, true);
+        ImGui::Separator();
         ImGui::TextDisabled("Components");
         component_checks(a, st, width);
     } else {
@@ -311,6 +350,8 @@ void cut_controls(const AppState& s, const FarFieldSet& a, float width, Intents&
             component_checks(a, st, 220);
             ImGui::EndPopup();
         }
+        ImGui::SameLine();
+        polar_check(st, false);
     }
     if (!(st == s.settings)) in.push_back(intent::ChangeSettings{st});
 }
@@ -334,7 +375,7 @@ void cut_plot(const AppState& s, const CutData& cd, const exports::CutPlot& fig)
     f.full_turn = cd.spec.kind == CutKind::theta_const;
     f.a0 = cd.angle_deg.front();
     if (f.polar) {
-        f.R = std::max(20.0f, std::min(avail.x, avail.y) * 0.5f - 22);
+        f.R = std::max(20.0f, std::min(avail.x * 0.5f - polar_label_room.x, avail.y * 0.5f - polar_label_room.y));
         f.c = ImVec2(o.x + avail.x * 0.5f, o.y + avail.y * 0.5f);
     } else {
         f.p0 = ImVec2(o.x + 40, o.y + 18);
@@ -349,7 +390,25 @@ void cut_plot(const AppState& s, const CutData& cd, const exports::CutPlot& fig)
 }
 }  // namespace
 
-// Controls and plot side by side; under both, the figure's table and its axis in words.
+CutPanelLayout cut_panel_layout(ImVec2 avail, std::size_t curves, float line, float gap) {
+    CutPanelLayout L;
+    const float below = curves ? line * (float(curves) + 1) + 6 : 0;  // the table: its header and a row per curve
+    L.turned = avail.x < 560 || avail.y - below < cut_plot_min;
+    if (L.turned) {  // the plot over the full height, as wide as its labels need; the rest beside it
+        const float w = std::max(0.0f, std::min(avail.y + 2 * (polar_label_room.x - polar_label_room.y), avail.x - gap - 230));
+        L.controls_w = avail.x - gap - w;
+        L.top_h = avail.y;
+        L.plot = ImVec2(w, avail.y);
+        return L;
+    }
+    L.top_h = avail.y - below;
+    L.controls_w = std::clamp(avail.x * 0.36f, 180.0f, 228.0f);
+    L.plot = ImVec2(std::max(0.0f, avail.x - gap - L.controls_w), L.top_h);
+    return L;
+}
+
+// Controls beside the plot, with the axis in words under them; the figure's table under both,
+// or, in a narrow panel, turned in the controls' column so the plot keeps the full height.
 Intents draw_cut_panel(const AppState& s, const Derived& d) {
     Intents in;
     const LoadedPattern* a = s.active_pattern();
@@ -358,26 +417,21 @@ Intents draw_cut_panel(const AppState& s, const Derived& d) {
     const std::optional<std::string> none = no_cut_text(s, cd);
     std::optional<exports::CutPlot> fig;
     if (!none) fig = cut_figure(s, cd);
-    const ImVec2 avail = ImGui::GetContentRegionAvail();
+    const CutPanelLayout L = cut_panel_layout(ImGui::GetContentRegionAvail(), fig ? fig->curves.size() : 0,
+                                              ImGui::GetTextLineHeightWithSpacing(), ImGui::GetStyle().ItemSpacing.x);
+    ImGui::BeginChild("cutcontrols", ImVec2(L.controls_w, L.top_h), false);
+    // Room kept under the controls: the axis note (three lines), and in a narrow panel the table.
     const float line = ImGui::GetTextLineHeightWithSpacing();
-    // In a narrow panel the axis note goes into the controls' column, so the plot keeps its height.
-    const bool narrow = avail.x < 560;
-    const float below = fig ? line * (float(fig->curves.size()) + 1) + 6 + (narrow ? 0 : 2 * line) : 0;
-    const float top_h = std::max(6 * line, avail.y - below);
-    const float controls_w = std::clamp(avail.x * 0.36f, 180.0f, 228.0f);
-    ImGui::BeginChild("cutcontrols", ImVec2(controls_w, top_h), false, ImGuiWindowFlags_NoScrollbar);
-    cut_controls(s, a->set, controls_w, in);
-    if (fig && narrow) figure_key(*fig);
+    cut_controls(s, a->set, L.controls_w, 3 * line + (L.turned && fig ? line * 6 : 0), in);
+    if (fig) figure_key(*fig);
+    if (fig && L.turned) figure_table_turned(*fig);
     ImGui::EndChild();
     ImGui::SameLine();
-    ImGui::BeginChild("cutplot", ImVec2(0, top_h), false, ImGuiWindowFlags_NoScrollbar);
+    ImGui::BeginChild("cutplot", L.plot, false, ImGuiWindowFlags_NoScrollbar);
     if (fig) cut_plot(s, cd, *fig);
     else ImGui::TextWrapped("%s", none->c_str());
     ImGui::EndChild();
-    if (fig) {
-        figure_table(*fig, avail.x < 520);
-        if (!narrow) figure_key(*fig);
-    }
+    if (fig && !L.turned) figure_table(*fig);
     return in;
 }
 

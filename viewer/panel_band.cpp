@@ -8,6 +8,7 @@
 #include <imgui.h>
 
 #include "exports/band_figure.hpp"
+#include "exports/figure_text.hpp"
 #include "exports/xy_plot.hpp"
 #include "viewer/panels.hpp"
 
@@ -77,6 +78,12 @@ std::optional<std::size_t> draw_plot(const AppState& s, const BandView& v, int q
     return v.figures[best].freq_index;
 }
 
+// The menu text of quantity q: a beam figure with its plane in the one wording.
+std::string band_quantity_label(int q, bool at_pole) {
+    const BandQuantity& b = band_quantities[q];
+    return b.plane < 0 ? std::string(b.label) : std::string(b.label) + ", " + exports::beam_plane_text(at_pole, b.plane == 1, "\u00b0");
+}
+
 void edges_line(const char* label, const std::optional<BandEdges>& e, const std::string& missing) {
     ImGui::TextWrapped("%s: %s", label, e ? exports::edges_text(*e).c_str() : missing.c_str());
 }
@@ -91,10 +98,11 @@ Intents draw_band_panel(const AppState& s, const Derived& d) {
         return in;
     }
     int q = s.band_quantity;
+    const bool at_pole = peaks_at_pole(v.figures);
     ImGui::SetNextItemWidth(std::min(260.0f, ImGui::GetContentRegionAvail().x * 0.6f));
-    if (ImGui::BeginCombo("##figure", band_quantities[q].label)) {
+    if (ImGui::BeginCombo("##figure", band_quantity_label(q, at_pole).c_str())) {
         for (int k = 0; k < band_quantity_count; ++k)
-            if (ImGui::Selectable(band_quantities[k].label, k == q)) in.push_back(intent::SetBandQuantity{k});
+            if (ImGui::Selectable(band_quantity_label(k, at_pole).c_str(), k == q)) in.push_back(intent::SetBandQuantity{k});
         ImGui::EndCombo();
     }
     ImGui::SameLine();

@@ -140,16 +140,16 @@ void headline_figures(const LoadedPattern& a, const PatternSummary& sm) {
         table_row("Efficiency", b, "Radiated power over 4 pi, from absolute gain data");
         if (sm.efficiency_above_100) table_row("Warning", "efficiency above 100 %", exports::efficiency_warning_text(*sm.power.radiation_efficiency).c_str());
     }
-    if (sm.peak_at_pole) {  // both planes are elevation planes there: name them by their phi
-        table_row(("HPBW " + exports::beam_plane_text(sm, false, "\u00b0")).c_str(), exports::beamwidth_text(sm.elevation, "\u03b8", "\u00b0"),
-                  "Half-power beamwidth on the plane phi = 0 (the peak is at a pole, where its phi means nothing)");
-        table_row(("HPBW " + exports::beam_plane_text(sm, true, "\u00b0")).c_str(), exports::beamwidth_text(sm.azimuth, "\u03b8", "\u00b0"),
-                  "Half-power beamwidth on the plane phi = 90");
-    } else {
-        table_row("HPBW elev.", exports::beamwidth_text(sm.elevation, "\u03b8", "\u00b0"), "Half-power beamwidth on the phi = const cut through the peak");
-        table_row("HPBW azim.", exports::beamwidth_text(sm.azimuth, "angle", "\u00b0"), "Half-power beamwidth across it");
-    }
-    table_row("Side lobe", exports::sidelobe_text(sm.elevation), "Highest lobe outside the main beam on the elevation cut (3 dB prominence)");
+    // The planes by the one wording (exports::beam_plane_text): "elev." / "azim.", or at a pole,
+    // where both are elevation planes and the peak's phi means nothing, "φ = 0°" / "φ = 90°".
+    const std::string elev = exports::beam_plane_text(sm, false, "\u00b0", true), azim = exports::beam_plane_text(sm, true, "\u00b0", true);
+    const char* planes_tip = sm.peak_at_pole ? " (the peak is at a pole: the planes phi = 0 and phi = 90)" : "";
+    table_row(("HPBW " + elev).c_str(), exports::beamwidth_text(sm.elevation, "\u03b8", "\u00b0"),
+              ("Half-power beamwidth on the phi = const cut through the peak" + std::string(planes_tip)).c_str());
+    table_row(("HPBW " + azim).c_str(), exports::beamwidth_text(sm.azimuth, sm.peak_at_pole ? "\u03b8" : "angle", "\u00b0"),
+              ("Half-power beamwidth on the great circle across it" + std::string(planes_tip)).c_str());
+    table_row(("Side lobe " + elev).c_str(), exports::sidelobe_text(sm.elevation),
+              ("Highest lobe outside the main beam on the phi = const cut through the peak (3 dB prominence)" + std::string(planes_tip)).c_str());
     table_row("Front/back", sm.front_to_back_above_db ? "above " + exports::fixed(*sm.front_to_back_above_db, 0) + " dB (null)"
                                                       : opt_text(sm.front_to_back_db, "dB", "n/a"),
               "Peak against the opposite direction");

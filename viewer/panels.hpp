@@ -10,6 +10,8 @@
 // lays itself out for both a wide strip (about 700 px) and a narrow one (about 500 px). Edits of
 // the settings go out as ChangeSettings with an edited copy; new kinds of change as a new intent.
 #pragma once
+#include <imgui.h>
+
 #include "viewer/state/app_state.hpp"
 #include "viewer/state/derived.hpp"
 #include "viewer/state/intents.hpp"
@@ -21,6 +23,19 @@ Intents draw_surface_panel(const AppState& s, const Derived& d);
 Intents draw_probe_panel(const AppState& s, const Derived& d);
 Intents draw_polarisation_panel(const AppState& s, const Derived& d);
 Intents draw_cut_panel(const AppState& s, const Derived& d);
+// Where the cut panel puts its parts in a content region `avail` (`line`: a text line with its
+// spacing; `curves`: the figure table's rows; `gap`: the space between columns). The controls
+// column and the plot side by side with the table under both, as long as that leaves the plot
+// cut_plot_min px of height and the panel is 560 px wide; else (the plot strip at 800x600, or many
+// curves) the plot a square over the full height, and the controls and the table turned (a column
+// per curve) in the column beside it, so the plot keeps a usable size.
+inline constexpr float cut_plot_min = 220;
+struct CutPanelLayout {
+    bool turned = false;              // the table turned beside the plot, not under it
+    float controls_w = 0, top_h = 0;  // the controls column; the height of the controls and the plot
+    ImVec2 plot;                      // the plot's child window
+};
+CutPanelLayout cut_panel_layout(ImVec2 avail, std::size_t curves, float line, float gap);
 // A docked tool, a tab of the plot strip while s.diversity_open (its close button returns ShowDiversity{false}).
 Intents draw_diversity_panel(const AppState& s, const Derived& d);
 // A docked tool while s.band_open: one figure of A against frequency; a click picks the frequency.

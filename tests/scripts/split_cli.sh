@@ -52,6 +52,8 @@ grep -q "coverage     none: the data hold cuts only (phi 0, 90, 180, 270 deg)" o
 grep -q "directivity           unavailable (needs the whole sphere; the data hold cuts only" out.txt && ok "... directivity needs a sphere" || bad "directivity: $(grep directivity out.txt)"
 grep -q "radiation efficiency  unavailable (needs the whole sphere" out.txt && ok "... so does efficiency" || bad "efficiency: $(grep efficiency out.txt)"
 grep -q "HPBW plane phi = 0    131.0 deg" out.txt && ok "... the HPBW of the cut through the peak (131.1 deg closed form; 131.0 from 2-degree samples)" || bad "HPBW: $(grep HPBW out.txt)"
+# issue 17: the side lobe's plane by the same wording as the HPBW's (exports::beam_plane_text), never "elevation" at a pole
+grep -q "side lobe             plane phi = 0: " out.txt && ! grep -qi "elevation" out.txt && ok "... the side lobe named by its plane, no elevation label at the zenith" || bad "side lobe: $(grep -i 'side lobe\|elevation' out.txt)"
 grep -q '"sampling": "cuts"' <("$E" info cuts.csv --json) && ok "info --json gives the sampling" || bad "json sampling"
 expect_rc 0 "cut on a principal plane" "$E" cut cuts.csv --phi 90 --frequency 2.45e9 --out h_plane.csv
 expect_rc 0 "probe on a cut" "$E" probe cuts.csv --theta 30 --phi 90 --frequency 2.45e9

@@ -165,3 +165,22 @@ TEST_CASE("pair figures: a z dipole against an x dipole are uncorrelated at ever
         CHECK(*q.per_environment[0].diversity_gain_db == Approx(10 * std::log10(std::log(0.9) / std::log(0.99))).margin(1e-3));
     }
 }
+
+// issue 17: a band whose beam stays at the zenith names its planes by their phi (the band panel's
+// menu and the band plot's legends, exports::beam_plane_text); one frequency off the pole is enough
+// to keep the usual names. Crossed dipoles in the xy-plane peak on the z axis (Balanis sec. 4.7,
+// turnstile: common practice); a half-wave dipole along z peaks on the horizon.
+TEST_CASE("peaks_at_pole: every frequency's peak at a pole, and not for an empty band", "[band][pole]") {
+    const FarFieldSet turnstile = stack({crossed(-90), crossed(-80)}, {2.4e9, 2.5e9});
+    const auto zen = band_figures(turnstile, BandOptions{});
+    REQUIRE(zen.size() == 2);
+    CHECK(peaks_at_pole(zen));
+    ReferenceAntenna dip;
+    dip.kind = ReferenceKind::dipole;
+    const auto mixed = band_figures(stack({crossed(-90), dip}, {2.4e9, 2.5e9}), BandOptions{});
+    REQUIRE(mixed.size() == 2);
+    CHECK(mixed[0].summary.peak_at_pole);
+    CHECK_FALSE(mixed[1].summary.peak_at_pole);
+    CHECK_FALSE(peaks_at_pole(mixed));
+    CHECK_FALSE(peaks_at_pole(std::vector<FrequencyFigures>{}));
+}

@@ -236,3 +236,32 @@ TEST_CASE("report: 3D snapshots come in through the callback, failures become a 
     CHECK_FALSE(find(*noted, "p1-d-2450MHz-3d.png"));
     CHECK(find(*noted, "report.md")->bytes.find("3D view unavailable: no EGL display") != std::string::npos);
 }
+
+// A beam at the zenith (issue 17): the figures table names the beam planes phi = 0 and phi = 90
+// through exports::beam_plane_text, never "elevation plane" (both are elevation planes there and
+// the peak's phi means nothing); a beam off the poles keeps the elevation and azimuth planes.
+// Quadrature crossed dipoles in the xy-plane peak on the z axis (Balanis sec. 4.7, turnstile:
+// common practice); a half-wave dipole along z peaks on the horizon.
+TEST_CASE("report: beam planes of a zenith beam are named by their phi", "[report][pole]") {
+    ReportOptions o;
+    o.size = RenderSize{320, 240, 40};
+    o.environment = *environment_preset("uniform");
+    auto zen = build_report({reference_input(ReferenceKind::crossed_dipoles, "turnstile")}, o);
+    REQUIRE(zen.ok());
+    for (const char* name : {"report.md", "index.html"}) {
+        INFO(name);
+        const std::string& b = find(*zen, name)->bytes;
+        CHECK(b.find("HPBW, plane \u03c6 = 0\u00b0 through the peak") != std::string::npos);
+        CHECK(b.find("HPBW, plane \u03c6 = 90\u00b0 through the peak") != std::string::npos);
+        CHECK(b.find("Side lobe, plane \u03c6 = 0\u00b0 (dB)") != std::string::npos);
+        CHECK(b.find("elevation plane") == std::string::npos);
+        CHECK(b.find("azimuth plane") == std::string::npos);
+    }
+    auto dip = build_report({reference_input(ReferenceKind::dipole, "dipole")}, o);
+    REQUIRE(dip.ok());
+    const std::string& md = find(*dip, "report.md")->bytes;
+    CHECK(md.find("HPBW, elevation plane through the peak") != std::string::npos);
+    CHECK(md.find("HPBW, azimuth plane through the peak") != std::string::npos);
+    CHECK(md.find("Side lobe, elevation plane (dB)") != std::string::npos);
+    CHECK(md.find("plane \u03c6 = 0\u00b0 through") == std::string::npos);
+}

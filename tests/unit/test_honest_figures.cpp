@@ -286,12 +286,18 @@ TEST_CASE("a beam at a pole has its beamwidths in the planes phi = 0 and phi = 9
     CHECK(*r.hpbw_azimuth_deg == Approx(4 * std::acos(std::pow(2.0, -1.0 / 4)) / deg).margin(0.2));
     CHECK(exports::beam_plane_text(r, false, "deg") == "plane phi = 0 deg");
     CHECK(exports::beam_plane_text(r, true, "\u00b0") == "plane \u03c6 = 90\u00b0");
+    // The brief form of the same wording for narrow table labels (the viewer's figures).
+    CHECK(exports::beam_plane_text(r, false, "\u00b0", true) == "\u03c6 = 0\u00b0");
+    CHECK(exports::beam_plane_text(r, true, "deg", true) == "phi = 90 deg");
     CHECK(exports::peak_text(r, "dBi", "deg").find("(zenith)") != std::string::npos);
     CHECK(exports::peak_text(r, "dBi", "deg").find("phi") == std::string::npos);
     // A beam at the horizon keeps the usual names.
     const PatternSummary h = summarize(synthesize(ReferenceAntenna{}, 5.0, 1e9), 0);
     CHECK_FALSE(h.peak_at_pole);
     CHECK(exports::beam_plane_text(h, true, "deg") == "azimuth plane");
+    CHECK(exports::beam_plane_text(h, false, "deg") == "elevation plane");
+    CHECK(exports::beam_plane_text(h, false, "\u00b0", true) == "elev.");
+    CHECK(exports::beam_plane_text(h, true, "\u00b0", true) == "azim.");
 }
 
 // MEG's parts with their shares (issue 17): an exactly zero part is "none (0 %)", never "-inf dBi (0.0 %)".

@@ -19,6 +19,7 @@
 
 #include "pattern/reference.hpp"
 #include "viewer/frame.hpp"
+#include "viewer/panels.hpp"
 #include "viewer/state/apply.hpp"
 #include "viewer/widgets.hpp"
 
@@ -217,6 +218,28 @@ TEST_CASE("the layout at 1280x800 and 800x600: panels tile the window, the scene
             CHECK(L.probe_pos.y + L.probe_size.y == Approx(display.y));
             CHECK(L.area_pos.x + L.area_size.x == Approx(L.polar_pos.x));
         }
+    }
+    // The cut plot keeps a usable size in the strip (issue 17: at 800x600 it shrank to about
+    // 150 px under its table): the strip's content region is the strip less the window padding
+    // and the tab bar, as drawn; the plot is at least 220 px both ways at every size, and when
+    // the table is turned the plot has the full height and the column beside it keeps 200 px.
+    const ImGuiStyle& style = ImGui::GetStyle();
+    for (ImVec2 display : {ImVec2(1280, 800), ImVec2(800, 600), ImVec2(1024, 768)}) {
+        INFO("cut panel at " << display.x << "x" << display.y);
+        const Layout L = compute_layout(st, display, menu);
+        const ImVec2 content(L.strip_size.x - 2 * style.WindowPadding.x,
+                             L.strip_size.y - 2 * style.WindowPadding.y - ImGui::GetFrameHeightWithSpacing());
+        for (std::size_t curves : {std::size_t(1), std::size_t(2), std::size_t(5)}) {
+            const CutPanelLayout c = cut_panel_layout(content, curves, ImGui::GetTextLineHeightWithSpacing(), style.ItemSpacing.x);
+            CHECK(std::min(c.plot.x, c.plot.y) >= cut_plot_min);
+            CHECK(c.controls_w + style.ItemSpacing.x + c.plot.x <= content.x + 0.5f);
+            CHECK(c.top_h <= content.y + 0.5f);
+            if (c.turned) {
+                CHECK(c.plot.y == Approx(content.y));
+                CHECK(c.controls_w >= 200);
+            }
+        }
+        CHECK(cut_panel_layout(content, 2, ImGui::GetTextLineHeightWithSpacing(), style.ItemSpacing.x).turned == (display.x == 800));
     }
     // Every tab draws at 800 x 600 (the narrow layout), without asking for anything by itself.
     io.DisplaySize = ImVec2(800, 600);

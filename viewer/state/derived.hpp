@@ -100,14 +100,17 @@ struct BandKey {
 };
 
 // The figures the band panel can plot against frequency, by index (AppState::band_quantity).
+// A beam figure names its plane after the label through exports::beam_plane_text (the viewer's
+// band_quantity_label): "HPBW, elevation plane", or "HPBW, plane φ = 0°" for a beam at a pole.
 struct BandQuantity {
-    const char* label;  // menu text
+    const char* label;  // menu text (before the plane, for a beam figure)
     const char* unit;   // axis unit
+    int plane = -1;     // -1 none, 0 the elevation plane through the peak, 1 the plane across it
 };
 inline constexpr BandQuantity band_quantities[] = {
     {"Peak", "dBi, or dB for relative data"},          {"Directivity", "dBi"},        {"Radiation efficiency", "%"},
-    {"MEG, uniform", "dB"},  {"Axial ratio at the peak", "dB"}, {"HPBW, elevation plane", "deg"},
-    {"HPBW, azimuth plane", "deg"}, {"Front-to-back", "dB"}, {"AR beamwidth (3 dB)", "deg"}};
+    {"MEG, uniform", "dB"},  {"Axial ratio at the peak", "dB"}, {"HPBW", "deg", 0},
+    {"HPBW", "deg", 1}, {"Front-to-back", "dB"}, {"AR beamwidth (3 dB)", "deg", 0}};
 inline constexpr int band_quantity_count = int(sizeof band_quantities / sizeof band_quantities[0]);
 // The value of quantity q at one frequency (NaN: none there).
 double band_value(const FrequencyFigures& f, int q);
