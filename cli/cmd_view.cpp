@@ -32,6 +32,7 @@ struct ViewArgs {
     bool force = false;
     std::optional<double> frequency_hz;
     std::string tab;
+    std::string browse;
 };
 
 // "A,B" with two finite numbers (sscanf alone takes "nan" and "inf").
@@ -108,6 +109,8 @@ void add_view_options(CLI::App* sub, ViewArgs& a) {
     add_frequency_option(sub, a.frequency_hz, "Start at this frequency (the first file's nearest within 0.5 %; default its first)");
     sub->add_option("--tab", a.tab, "Start with this panel in front: patterns, surface (left column of a narrow window), cut, probe, polarisation (plot strip of a narrow window), diversity, band, map (the 2D map)")
         ->check(one_of(std::vector<std::string>(std::begin(viewer::tab_names), std::end(viewer::tab_names))));
+    sub->add_option("--browse", a.browse, "Start with the in-window file browser open in FOLDER (File > Open in this window)")
+        ->type_name("FOLDER");
     sub->add_flag("--force", a.force, "Replace the files of --screenshot, --export-view and --export-cut if they exist");
     add_load_options(sub, a.load);
 }
@@ -190,6 +193,7 @@ int start_state(const ViewArgs& a, viewer::ViewerOptions& o) {
     }
     o.frequency_hz = a.frequency_hz;
     o.tab = a.tab;
+    o.browse = a.browse;
     if (!a.pin.empty()) {
         if (!parse_pair(a.pin, o.pin_theta_deg, o.pin_phi_deg) || o.pin_theta_deg < 0 || o.pin_theta_deg > 180) {
             std::cerr << "ellipsa view: --pin expects THETA,PHI in degrees (finite) with THETA in [0, 180], found '" << a.pin << "'\n";

@@ -11,6 +11,10 @@
 #   docs/images/viewer-mounting-SIZE.png a dipole along x read with FILE::up=+x (the mounting control,
 #                                        the world-up gizmo and horizon ring) at 1280x800 and 800x600
 #   docs/images/report-cut.png, report-3d.png   a cut figure and the 3D view of the report
+#   docs/images/report-page.png          the guide's comparison report page as a browser shows it (headless
+#                                        chromium, installed on demand through ./dev ensure; skipped
+#                                        with a message when it cannot be had or cannot run)
+#   docs/images/viewer-browser-SIZE.png  the in-window file browser (File > Open in this window)
 set -euo pipefail
 cd "$(dirname "$0")/.."
 E=build/ellipsa
@@ -57,10 +61,40 @@ for size in 1280x800 800x600; do
     --size "$size" --frames 20 --screenshot "$I/viewer-mounting-$size.png" --force --diversity
 done
 rm -rf "$M"
+# The in-window file browser, open in the examples folder.
+for size in 1280x800 800x600; do
+  xvfb-run -a -s "-screen 0 1280x800x24" "$E" view "$X/printed-dipole.csv" "$X/turnstile.csv" "$X/small-loop.csv" \
+    --size "$size" --frames 20 --screenshot "$I/viewer-browser-$size.png" --force --browse "$X"
+done
 # The report: its cut figure and its 3D view, as the report's page shows them.
 R=$(mktemp -d)
 "$E" report "$X/small-loop.csv" --frequency 2.45e9 --out "$R/report" --force >/dev/null
 cp "$R"/report/*-phi0.png "$I/report-cut.png"
 cp "$R"/report/*-3d-axial-ratio.png "$I/report-3d.png"
+# The page itself, its top 2000 px at 1280 px wide, in a headless browser. Chromium is heavy, so it
+# is no build or test package: it is installed here on demand (./dev ensure), and the shot is
+# skipped, saying why, when it cannot be installed or run (--no-sandbox: run as root in a container).
+report_page() {
+  local browser
+  browser=$(command -v chromium || true)
+  if [[ -z $browser ]]; then
+    ./dev ensure chromium >/dev/null 2>&1 || true
+    browser=$(command -v chromium || true)
+  fi
+  if [[ -z $browser ]]; then
+    echo "screenshots: report-page.png skipped: chromium is not installed and could not be installed (apt-get install chromium)" >&2
+    return 0
+  fi
+  # The comparison report the guide makes (section 9).
+  "$E" report "$X/printed-dipole.csv" "$X/turnstile.csv" "$X/small-loop.csv" --environment indoor --frequency 2.45e9 \
+    --out "$R/tracker" --force >/dev/null
+  if ! timeout 120 "$browser" --headless --no-sandbox --disable-gpu --hide-scrollbars --window-size=1280,2000 \
+      --screenshot="$R/page.png" "file://$R/tracker/index.html" >"$R/browser.log" 2>&1 || [[ ! -s $R/page.png ]]; then
+    echo "screenshots: report-page.png skipped: chromium could not take the shot ($(tail -1 "$R/browser.log"))" >&2
+    return 0
+  fi
+  cp "$R/page.png" "$I/report-page.png"
+}
+report_page
 rm -rf "$R"
-echo "screenshots: wrote $I/viewer-overview.png, viewer-polarisation.png, small-loop-cut.png, turnstile-band.png, turnstile-ar-map.png, coverage-horizon.png, panel-*-1280x800.png, panel-*-800x600.png, viewer-mounting-*.png, report-cut.png, report-3d.png"
+echo "screenshots: wrote $I/viewer-overview.png, viewer-polarisation.png, small-loop-cut.png, turnstile-band.png, turnstile-ar-map.png, coverage-horizon.png, panel-*-1280x800.png, panel-*-800x600.png, viewer-mounting-*.png, viewer-browser-*.png, report-cut.png, report-3d.png, report-page.png (unless skipped above)"

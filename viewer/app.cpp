@@ -116,6 +116,7 @@ Intents start_options(const ViewerOptions& o, const AppState& s) {
     if (o.diversity_panel) in.push_back(intent::ShowDiversity{true});
     if (o.band_panel) in.push_back(intent::ShowBand{true});
     if (auto t = parse_tab(o.tab)) in.push_back(intent::SelectTab{*t});
+    if (!o.browse.empty()) in.push_back(intent::ShowBrowser{BrowserView::at(o.browse)});
     if (o.save_settings && !s.settings.seen_intro) in.push_back(intent::ShowIntro{true});  // first interactive run
     return in;
 }

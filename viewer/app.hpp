@@ -41,6 +41,7 @@ struct ViewerOptions {
     bool force = false;               // the files above may replace existing ones
     std::optional<double> frequency_hz;  // start at this frequency of the first file (within 0.5 %)
     std::string tab;                  // start with this tab in front (tab_names), "" as before
+    std::string browse;               // start with the in-window file browser open in this folder ("" closed)
 };
 
 // Runs until the window closes (or `frames` frames). Returns a process exit code (0 ok,

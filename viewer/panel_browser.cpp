@@ -111,7 +111,8 @@ void footer(const BrowserView& b, const FolderListing& l, const std::vector<std:
     BrowserView n = b;
     const char* filters[] = {"CSV and map files (*.csv, *.map)", "All files"};
     int f = b.all_files ? 1 : 0;
-    ImGui::SetNextItemWidth(230);
+    // As wide as its longer text and the arrow, so the choice shown is never cut off.
+    ImGui::SetNextItemWidth(ImGui::CalcTextSize(filters[0]).x + ImGui::GetFrameHeight() + 2 * ImGui::GetStyle().FramePadding.x);
     if (ImGui::Combo("##filter", &f, filters, 2)) n.all_files = f == 1, n.selected = 0;
     ImGui::SameLine();
     ImGui::Checkbox("hidden", &n.hidden);

@@ -13,6 +13,13 @@ export XDG_CONFIG_HOME="$out/config"
 "$XVFB_RUN" -a -s "-screen 0 1400x900x24" "$ELLIPSA" view ${VIEW_EXTRA:-} --size 1280x800 --frames 5 --cursor 620,240 \
   --screenshot "$out/shot.png"
 "$PNG_CHECK" "$out/shot.png" 1280 800 0.03
+# --browse: the in-window file browser open from the start, in a folder that exists and in one
+# that does not (the browser says it cannot be read; the viewer draws on and exits 0).
+if [[ -z "${VIEW_EXTRA:-}" ]]; then
+  "$XVFB_RUN" -a -s "-screen 0 1400x900x24" "$ELLIPSA" view --size 800x600 --frames 3 --browse "$out" --screenshot "$out/browse.png"
+  "$PNG_CHECK" "$out/browse.png" 800 600 0  # the browser covers most of the surface
+  "$XVFB_RUN" -a -s "-screen 0 1400x900x24" "$ELLIPSA" view --size 800x600 --frames 3 --browse "$out/no such folder"
+fi
 # Settings persist: an interactive run (no --frames) that is closed by SIGTERM saves viewer.conf
 # and imgui.ini under $XDG_CONFIG_HOME/ellipsa, with the opened file in the recent list.
 if [[ -z "${VIEW_EXTRA:-}" ]]; then
