@@ -28,6 +28,10 @@ struct MapArea {
     }
 };
 
+// The grey of directions outside the data; outside the projection's outline nothing is drawn, so
+// the corners of an equal-area map are not taken for missing data.
+constexpr ImU32 outside_data = IM_COL32(200, 200, 200, 255);
+
 // The cells as runs of equal colour along raster rows (a few thousand rectangles).
 void draw_cells(ImDrawList* dl, const MapArea& a, MapProjection pr, const FarFieldSet& set, const SurfaceMesh& m) {
     const int w = std::clamp(int(a.p1.x - a.p0.x) / 2, 90, 360), h = w / 2;
@@ -40,12 +44,14 @@ void draw_cells(ImDrawList* dl, const MapArea& a, MapProjection pr, const FarFie
             ImU32 c = 0;
             if (px < w) {
                 const double x = a.b.x_min + (px + 0.5) * (a.b.x_max - a.b.x_min) / w;
-                if (const auto dir = unproject(pr, x, y))
+                if (const auto dir = unproject(pr, x, y)) {
+                    c = outside_data;  // a direction of the sphere the data do not cover, until found
                     if (const auto k = sample_of(set.grid, dir->first, dir->second)) {
                         const int i = int(*k / std::size_t(set.grid.phi.count)), j = int(*k % std::size_t(set.grid.phi.count));
                         const float* v = &m.vertices[(std::size_t(i) * std::size_t(m.cols) + std::size_t(j)) * surface_floats_per_vertex];
                         c = ImGui::ColorConvertFloat4ToU32(ImVec4(v[6], v[7], v[8], 1));
                     }
+                }
             }
             if (px == w || c != run) {
                 if (run != 0)
@@ -89,7 +95,6 @@ Intents draw_map_panel(const AppState& s, const Derived& d) {
             ImGui::InvisibleButton("map", ImVec2(mw, mw / 2));
             const MapArea a{at, ImVec2(at.x + mw, at.y + mw / 2), map_bounds(pr)};
             ImDrawList* dl = ImGui::GetWindowDrawList();
-            dl->AddRectFilled(a.p0, a.p1, IM_COL32(235, 235, 235, 255));
             draw_cells(dl, a, pr, p->set, m);
             mark(dl, a, pr, s.pinned, IM_COL32(20, 20, 20, 255));
             mark(dl, a, pr, s.hover, IM_COL32(230, 159, 0, 255));
