@@ -88,7 +88,7 @@ std::vector<std::string> cut_key_notes(const CutPlot& p) {
     if (p.marked_curve >= 0 && std::size_t(p.marked_curve) < p.curves.size() && p.curves[std::size_t(p.marked_curve)].beam &&
         p.curves[std::size_t(p.marked_curve)].beam->hpbw_deg)
         v.push_back("Dots: the half-power (\u22123 dB) points of " + p.curves[std::size_t(p.marked_curve)].tag + ".");
-    if (!no_data_ranges(p).empty()) v.push_back("Grey: outside the sampled region (no data).");
+    if (!no_data_ranges(p).empty()) v.push_back("Grey: " + std::string(not_measured_label) + " (outside the sampled region).");
     const DbScale sc = plot_scale(p);
     if (p.style == PlotStyle::polar)
         v.push_back("Radius: " + p.value_label + ", " + num(sc.floor_db(), 0) + " (centre) to " + num(sc.top_db, 0) + " (rim) " +

@@ -54,6 +54,10 @@ std::string peak_text(const PatternSummary& r, const char* unit, const std::stri
 std::string radius_caption(const std::string& component, const std::optional<double>& peak_db, const std::string& unit,
                            double range_db);
 
+// The directions a pattern does not sample (a range's upper hemisphere), as every 3D view, 3D
+// file and probe names them: the key beside the view, the node of a glTF file, the probe's line.
+inline constexpr const char* not_measured_label = "not measured";
+
 // The half-power beamwidth of a cut as reported: "78.1 <deg>"; or why there is none:
 // "none: omnidirectional (ripple 0.35 dB)", "none: no beam (above half power over 283.6 <deg>)",
 // "none: the beam's edge lies outside the sampled range (toward lower theta)". `angle` names the

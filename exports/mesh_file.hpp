@@ -17,6 +17,7 @@
 #include <cstddef>
 #include <cstdint>
 #include <string>
+#include <vector>
 
 namespace ellipsa::exports {
 
@@ -37,9 +38,23 @@ struct MeshFileInfo {
     std::string comment;    // PLY comment line (one line)
 };
 
+// One part of a file with several: in glTF its own node, mesh and material, each named `name`
+// (the gain surface's material is "colour map"), so a CAD or web viewer lists it by name; PLY
+// names no parts, so there the parts' faces follow one another in one list (the file's comment
+// line says which faces are which).
+struct MeshPart {
+    MeshView mesh;
+    std::string name;      // node and mesh name
+    std::string material;  // material name
+};
+
 // The .glb bytes. Cost: one pass over the vertices and indices.
 std::string to_glb(const MeshView& m, const MeshFileInfo& info);
+// Several parts, each with its own buffer views, accessors, mesh, node and material, in order.
+std::string to_glb(const std::vector<MeshPart>& parts, const MeshFileInfo& info);
 // The .ply bytes (binary little-endian).
 std::string to_ply(const MeshView& m, const MeshFileInfo& info);
+// Several parts as one vertex list and one face list (part 2's indices moved past part 1's vertices).
+std::string to_ply(const std::vector<MeshPart>& parts, const MeshFileInfo& info);
 
 }  // namespace ellipsa::exports

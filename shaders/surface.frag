@@ -4,6 +4,7 @@ in vec3 v_normal;
 in vec3 v_color;
 in vec3 v_view_pos;
 uniform float u_alpha;
+uniform float u_hatch;  // > 0: the "not measured" region, hatched every u_hatch pixels (no data there)
 out vec4 frag_color;
 void main() {
     vec3 n = normalize(v_normal);
@@ -16,5 +17,9 @@ void main() {
     float s = abs(dot(n, h));
     s = s * s; s = s * s; s = s * s; s = s * s; s = s * s;   // ^32, cheaper than pow on llvmpipe
     vec3 c = v_color * (0.50 + 0.50 * diffuse) + vec3(0.08 * s) - 0.12 * rim * v_color;
+    if (u_hatch > 0.0) {  // nearly flat shading, so it reads as a marking, not as a shape of the data
+        c = v_color * (0.86 + 0.14 * diffuse);
+        if (mod(gl_FragCoord.x + gl_FragCoord.y, u_hatch) < 0.18 * u_hatch) c *= 0.82;
+    }
     frag_color = vec4(c, u_alpha);
 }

@@ -21,7 +21,7 @@ namespace ellipsa::viewer {
 
 namespace {
 const ImU32 ink = IM_COL32(34, 38, 46, 255), grid = IM_COL32(205, 206, 203, 255), grid_minor = IM_COL32(228, 229, 226, 255),
-            muted = IM_COL32(95, 100, 108, 255), no_data = IM_COL32(236, 236, 236, 255);
+            muted = IM_COL32(95, 100, 108, 255), no_data = IM_COL32(226, 226, 224, 255);
 
 // Room for the angle labels around a polar plot: beside it (the widest, "-150°") and above/below.
 const ImVec2 polar_label_room(44, 22);

@@ -6,6 +6,7 @@
 #include <filesystem>
 
 #include "exports/cut_figure.hpp"
+#include "exports/figure_text.hpp"
 #include "exports/mesh_file.hpp"
 #include "exports/render.hpp"
 #include "io/atomic_write.hpp"
@@ -101,12 +102,15 @@ bool is_surface_file(const std::string& path) {
 Status write_surface_file(const FarFieldSet& s, std::size_t fi, Component component, const SurfaceMesh& mesh,
                           const std::string& path, bool overwrite) {
     if (mesh.vertices.empty()) return Error{path, 0, 0, "no surface is shown"};
-    exports::MeshView m;
-    m.vertices = mesh.vertices.data();
-    m.vertex_count = mesh.vertices.size() / surface_floats_per_vertex;
-    m.stride = surface_floats_per_vertex;
-    m.indices = mesh.triangles.data();
-    m.index_count = mesh.triangles.size();
+    auto view_of = [](const std::vector<float>& vertices, const std::vector<std::uint32_t>& triangles) {
+        exports::MeshView m;
+        m.vertices = vertices.data();
+        m.vertex_count = vertices.size() / surface_floats_per_vertex;
+        m.stride = surface_floats_per_vertex;
+        m.indices = triangles.data();
+        m.index_count = triangles.size();
+        return m;
+    };
     exports::MeshFileInfo info;
     info.name = (s.name.empty() ? std::string("pattern") : s.name) + ", " + format_frequency(s.frequencies[fi].frequency_hz);
     info.generator = "ellipsa";
@@ -115,9 +119,15 @@ Status write_surface_file(const FarFieldSet& s, std::size_t fi, Component compon
                   to_string(component), mesh.floor_db, mesh.peak_db, mesh.unit.c_str(), mesh.bar.title.c_str(), mesh.bar.min,
                   mesh.bar.max, mesh.bar.unit.c_str());
     info.comment = info.name + c;
+    // The directions the file does not sample: a part of their own, named as the view's key names them.
+    std::vector<exports::MeshPart> parts{{view_of(mesh.vertices, mesh.triangles), info.name, "colour map"}};
+    if (!mesh.unsampled.empty()) {
+        parts.push_back({view_of(mesh.unsampled.vertices, mesh.unsampled.triangles), exports::not_measured_label, exports::not_measured_label});
+        info.comment += "; grey faces: " + std::string(exports::not_measured_label) + " (directions the file does not sample)";
+    }
     const std::string p = path;
     const bool glb = p.size() >= 4 && std::tolower(static_cast<unsigned char>(p[p.size() - 3])) == 'g';
-    return io::write_file_atomically(path, glb ? exports::to_glb(m, info) : exports::to_ply(m, info), overwrite);
+    return io::write_file_atomically(path, glb ? exports::to_glb(parts, info) : exports::to_ply(parts, info), overwrite);
 }
 
 ExportOutcome export_surface_file(const AppState& s, const SurfaceMesh& mesh, const std::string& path, bool overwrite) {

@@ -291,9 +291,10 @@ Intents read_mouse(const AppState& s, const Derived& d, const Layout& L) {
     if (over_view && !ImGui::IsMouseDown(0)) {
         const Ray ray = ray_through_pixel(s.camera, mp.x - L.view_pos.x, mp.y - L.view_pos.y, L.view_size.x, L.view_size.y);
         const std::optional<Pick> p = pick_direction(d.surface.value().mesh, ray);
-        in.push_back(intent::Hover{p ? std::optional(Direction{p->theta_deg, p->phi_deg}) : std::nullopt});
-    } else if (!over_view && s.hover) {
-        in.push_back(intent::Hover{std::nullopt});
+        if (p && !p->measured) in.push_back(intent::Hover{std::nullopt, true});
+        else in.push_back(intent::Hover{p ? std::optional(Direction{p->theta_deg, p->phi_deg}) : std::nullopt, false});
+    } else if (!over_view && (s.hover || s.hover_not_measured)) {
+        in.push_back(intent::Hover{std::nullopt, false});
     }
     return in;
 }
@@ -348,10 +349,12 @@ void draw_view_overlay(const AppState& s, const Derived& d, const Layout& L, con
     // The key strip: the colour bar on top, the ellipse key under it.
     const float kx = L.key_pos.x + 10, kw = L.key_size.x - 14;
     const float key_h = s.settings.glyphs && a->set.has_phase() ? 4 * fonts.small->FontSize * 1.35f + 10 : 0;
+    const float unsampled_h = sv.mesh.unsampled.empty() ? 0 : fonts.small->FontSize * 1.35f + 8;
     const float title_h = color_bar_title_height(sv.mesh.bar, fonts.small, kw);
-    const float bar_h = std::max(40.0f, std::min(320.0f, L.key_size.y - title_h - key_h - 16));
+    const float bar_h = std::max(40.0f, std::min(320.0f, L.key_size.y - title_h - key_h - unsampled_h - 16));
     if (!sv.mesh.vertices.empty())
         draw_color_bar(bg, ImVec2(kx, L.key_pos.y + title_h + 4), ImVec2(14, bar_h), sv.mesh.bar, fonts.small, fonts.small, kw);
+    if (unsampled_h > 0) draw_unsampled_key(bg, ImVec2(kx, L.key_pos.y + L.key_size.y - key_h - unsampled_h), fonts.small, ink);
     if (key_h > 0) draw_ellipse_key(bg, ImVec2(kx, L.key_pos.y + L.key_size.y - key_h), fonts.small, ink);
     bg->PopClipRect();
     bg->PushClipRect(L.view_pos, ImVec2(L.view_pos.x + L.view_size.x, L.view_pos.y + L.view_size.y));

@@ -1,5 +1,6 @@
 #include "viewer/overlay.hpp"
 
+#include "exports/figure_text.hpp"
 #include "pattern/db_scale.hpp"
 
 #include <algorithm>
@@ -83,6 +84,20 @@ float draw_ellipse_key(ImDrawList* dl, ImVec2 pos, ImFont* font, ImU32 text_colo
         y += line;
     }
     return y - pos.y;
+}
+
+float draw_unsampled_key(ImDrawList* dl, ImVec2 pos, ImFont* font, ImU32 text_colour) {
+    ImFont* f = font ? font : ImGui::GetFont();
+    const float side = f->FontSize, gap = std::max(3.0f, side * 0.3f);
+    const ImVec2 a(pos.x + 1, pos.y + 1), b(pos.x + 1 + side * 1.1f, pos.y + side);
+    dl->AddRectFilled(a, b, to_u32(unsampled_colour));
+    dl->PushClipRect(a, b, true);
+    for (float x = a.x - side; x < b.x; x += gap)  // the view's hatching
+        dl->AddLine(ImVec2(x, b.y), ImVec2(x + side, b.y - side), to_u32(Rgb{0.62f, 0.62f, 0.60f}), 1.0f);
+    dl->PopClipRect();
+    dl->AddRect(a, b, to_u32(unsampled_edge_colour), 0, 0, 1.0f);
+    dl->AddText(f, f->FontSize, ImVec2(b.x + 7, pos.y), text_colour, exports::not_measured_label);
+    return f->FontSize * 1.35f;
 }
 
 float draw_radial_scale(ImDrawList* dl, const OrbitCamera& cam, ImVec2 view_size, ImVec2 pos, double peak_db,

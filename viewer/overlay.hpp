@@ -22,6 +22,10 @@ void draw_color_bar(ImDrawList* dl, ImVec2 pos, ImVec2 size, const ColorBar& bar
 // name (right-hand, left-hand, linear), top-left at pos, one entry a line. Returns its height.
 float draw_ellipse_key(ImDrawList* dl, ImVec2 pos, ImFont* font, ImU32 text_colour);
 
+// The key to the "not measured" region (SurfaceMesh::unsampled): a hatched grey swatch as the
+// view draws it and its name (exports::not_measured_label), top-left at pos. Returns its height.
+float draw_unsampled_key(ImDrawList* dl, ImVec2 pos, ImFont* font, ImU32 text_colour);
+
 // The surface's radial scale as a ruler, left end at pos: as long on screen as the unit radius
 // at the origin's depth, ticked every grid step (pattern/db_scale.hpp) in dB below the peak,
 // titled with the peak and the range. Returns its height.

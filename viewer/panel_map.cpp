@@ -103,7 +103,7 @@ Intents draw_map_panel(const AppState& s, const Derived& d) {
                 const double x = a.b.x_min + (mp.x - a.p0.x) / (a.p1.x - a.p0.x) * (a.b.x_max - a.b.x_min);
                 const double y = a.b.y_max - (mp.y - a.p0.y) / (a.p1.y - a.p0.y) * (a.b.y_max - a.b.y_min);
                 const auto dir = unproject(pr, x, y);
-                if (dir) in.push_back(intent::Hover{Direction{dir->first, dir->second}});
+                if (dir) in.push_back(intent::Hover{Direction{dir->first, dir->second}, false});
                 if (dir && ImGui::IsItemClicked()) in.push_back(intent::Pin{Direction{dir->first, dir->second}});
             }
             ImGui::PushTextWrapPos(0);

@@ -329,7 +329,7 @@ void probe_table(const AppState& s, const char* title, const DirectionProbe& p) 
     std::snprintf(b, sizeof b, "\u03b8 %.1f\u00b0   \u03c6 %.1f\u00b0", p.a.theta_deg, p.a.phi_deg);
     table_row("Direction", b);
     if (!p.a.inside) {
-        table_row("", "outside the sampled region");
+        table_row("", std::string(exports::not_measured_label) + " (outside the sampled directions)");
     } else {
         for (const ComponentValue& v : p.a.components)
             table_row(short_label(v.component), db_text(v.db, db_unit(a->set.quantity, v.component)), definition(v.component));
@@ -351,6 +351,8 @@ Intents draw_probe_panel(const AppState& s, const Derived& d) {
     }
     if (const auto& h = d.hover.value())
         probe_table(s, "Under the cursor", *h);
+    else if (s.hover_not_measured)
+        ImGui::TextWrapped("Under the cursor: %s (the file holds no samples in these directions).", exports::not_measured_label);
     else if (!s.pinned)
         ImGui::TextWrapped("Point at the surface to read every component, the axial ratio, tilt, sense and Stokes "
                            "parameters there. Click to pin a direction.");

@@ -3,6 +3,7 @@
 #include <glm/gtc/type_ptr.hpp>
 #include <cstdlib>
 #include <string>
+#include <tuple>
 #include <vector>
 
 #include "viewer/embedded.hpp"
@@ -54,9 +55,9 @@ Result<unsigned> program(const char* vs_name, const char* fs_name) {
 }  // namespace
 
 SceneRenderer::~SceneRenderer() {
-    for (unsigned b : {surface_vbo_, surface_ibo_, wire_ibo_, glyphs_.vbo, ring_.vbo, axes_.vbo})
+    for (unsigned b : {surface_vbo_, surface_ibo_, wire_ibo_, unsampled_vbo_, unsampled_ibo_, glyphs_.vbo, ring_.vbo, axes_.vbo, edge_.vbo})
         if (b) glDeleteBuffers(1, &b);
-    for (unsigned a : {surface_vao_, wire_vao_, glyphs_.vao, ring_.vao, axes_.vao})
+    for (unsigned a : {surface_vao_, wire_vao_, unsampled_vao_, glyphs_.vao, ring_.vao, axes_.vao, edge_.vao})
         if (a) glDeleteVertexArrays(1, &a);
     if (surface_program_) glDeleteProgram(surface_program_);
     if (line_program_) glDeleteProgram(line_program_);
@@ -72,6 +73,7 @@ Status SceneRenderer::init() {
     s_view_ = glGetUniformLocation(surface_program_, "u_view");
     s_proj_ = glGetUniformLocation(surface_program_, "u_projection");
     s_alpha_ = glGetUniformLocation(surface_program_, "u_alpha");
+    s_hatch_ = glGetUniformLocation(surface_program_, "u_hatch");
     l_view_ = glGetUniformLocation(line_program_, "u_view");
     l_proj_ = glGetUniformLocation(line_program_, "u_projection");
     l_tint_ = glGetUniformLocation(line_program_, "u_tint");
@@ -79,16 +81,21 @@ Status SceneRenderer::init() {
 
     glGenVertexArrays(1, &surface_vao_);
     glGenVertexArrays(1, &wire_vao_);
+    glGenVertexArrays(1, &unsampled_vao_);
     glGenBuffers(1, &surface_vbo_);
     glGenBuffers(1, &surface_ibo_);
     glGenBuffers(1, &wire_ibo_);
+    glGenBuffers(1, &unsampled_vbo_);
+    glGenBuffers(1, &unsampled_ibo_);
     const GLsizei stride = surface_floats_per_vertex * sizeof(float);
-    glBindVertexArray(surface_vao_);
-    glBindBuffer(GL_ARRAY_BUFFER, surface_vbo_);
-    glBindBuffer(GL_ELEMENT_ARRAY_BUFFER, surface_ibo_);
-    for (int a = 0; a < 3; ++a) {
-        glEnableVertexAttribArray(a);
-        glVertexAttribPointer(a, 3, GL_FLOAT, GL_FALSE, stride, reinterpret_cast<void*>(std::size_t(a) * 3 * sizeof(float)));
+    for (auto [vao, vbo, ibo] : {std::tuple{surface_vao_, surface_vbo_, surface_ibo_}, std::tuple{unsampled_vao_, unsampled_vbo_, unsampled_ibo_}}) {
+        glBindVertexArray(vao);
+        glBindBuffer(GL_ARRAY_BUFFER, vbo);
+        glBindBuffer(GL_ELEMENT_ARRAY_BUFFER, ibo);
+        for (int a = 0; a < 3; ++a) {
+            glEnableVertexAttribArray(a);
+            glVertexAttribPointer(a, 3, GL_FLOAT, GL_FALSE, stride, reinterpret_cast<void*>(std::size_t(a) * 3 * sizeof(float)));
+        }
     }
     glBindVertexArray(wire_vao_);
     glBindBuffer(GL_ARRAY_BUFFER, surface_vbo_);
@@ -98,7 +105,7 @@ Status SceneRenderer::init() {
     glEnableVertexAttribArray(1);
     glVertexAttribPointer(1, 3, GL_FLOAT, GL_FALSE, stride, reinterpret_cast<void*>(6 * sizeof(float)));
     glBindVertexArray(0);
-    for (Lines* l : {&glyphs_, &ring_, &axes_}) {
+    for (Lines* l : {&glyphs_, &ring_, &axes_, &edge_}) {
         glGenVertexArrays(1, &l->vao);
         glGenBuffers(1, &l->vbo);
         glBindVertexArray(l->vao);
@@ -119,6 +126,7 @@ void SceneRenderer::set_surface(const SurfaceMesh& m) {
     surface_index_count_ = int(m.triangles.size());
     wire_index_count_ = int(m.wire_lines.size());
     grid_step_deg_ = m.grid_step_deg;
+    upload_unsampled(m.unsampled);
     // A component or frequency change keeps the index lists (about 30 MB at 0.25 degree).
     if (uploaded_topology_ && *uploaded_topology_ == m.topology) return;
     uploaded_topology_ = m.topology;
@@ -141,16 +149,40 @@ void SceneRenderer::set_surface(const SurfaceMesh& m) {
     glBindBuffer(GL_ELEMENT_ARRAY_BUFFER, 0);
 }
 
-void SceneRenderer::clear_surface() {
-    surface_index_count_ = wire_index_count_ = 0;
-    glyphs_.count = ring_.count = 0;
+void SceneRenderer::upload_unsampled(const UnsampledRegion& r) {
+    glBindVertexArray(0);
+    glBindBuffer(GL_ARRAY_BUFFER, unsampled_vbo_);
+    glBufferData(GL_ARRAY_BUFFER, GLsizeiptr(r.vertices.size() * sizeof(float)), r.vertices.data(), GL_DYNAMIC_DRAW);
+    glBindBuffer(GL_ELEMENT_ARRAY_BUFFER, unsampled_ibo_);
+    glBufferData(GL_ELEMENT_ARRAY_BUFFER, GLsizeiptr(r.triangles.size() * sizeof(std::uint32_t)), r.triangles.data(), GL_DYNAMIC_DRAW);
+    glBindBuffer(GL_ELEMENT_ARRAY_BUFFER, 0);
+    unsampled_index_count_ = int(r.triangles.size());
+    upload_lines(edge_, r.outline);
 }
 
-void SceneRenderer::upload_lines(Lines& l, const LineSet& set) {
+void SceneRenderer::clear_surface() {
+    surface_index_count_ = wire_index_count_ = unsampled_index_count_ = 0;
+    glyphs_.count = ring_.count = edge_.count = 0;
+}
+
+void SceneRenderer::upload_lines(Lines& l, const LineSet& set) { upload_lines(l, set.vertices); }
+
+void SceneRenderer::upload_lines(Lines& l, const std::vector<float>& vertices) {
     glBindVertexArray(0);
     glBindBuffer(GL_ARRAY_BUFFER, l.vbo);
-    glBufferData(GL_ARRAY_BUFFER, GLsizeiptr(set.vertices.size() * sizeof(float)), set.vertices.data(), GL_DYNAMIC_DRAW);
-    l.count = int(set.vertices.size() / 6);
+    glBufferData(GL_ARRAY_BUFFER, GLsizeiptr(vertices.size() * sizeof(float)), vertices.data(), GL_DYNAMIC_DRAW);
+    l.count = int(vertices.size() / 6);
+}
+
+// The "not measured" region: hatched neutral grey, both sides lit (its wall faces either way), as
+// opaque or translucent as the surface; the surface program's matrices are already set.
+void SceneRenderer::draw_unsampled(int h) {
+    if (!unsampled_index_count_) return;
+    glDisable(GL_CULL_FACE);
+    glUniform1f(s_hatch_, std::max(7.0f, float(h) / 75.0f));
+    glBindVertexArray(unsampled_vao_);
+    glDrawElements(GL_TRIANGLES, unsampled_index_count_, GL_UNSIGNED_INT, nullptr);
+    glUniform1f(s_hatch_, 0.0f);
 }
 
 void SceneRenderer::draw_lines(const Lines& l, float width) {
@@ -188,6 +220,7 @@ void SceneRenderer::draw_surface(const OrbitCamera& cam, int h, const glm::mat4&
     else if (stride >= 2 && lod_count_[1]) level = 1;
     last_stride_ = 1 << level;
     glDrawElements(GL_TRIANGLES, lod_count_[level], GL_UNSIGNED_INT, reinterpret_cast<void*>(lod_offset_[level]));
+    draw_unsampled(h);
     glDepthMask(GL_TRUE);
     glDisable(GL_CULL_FACE);
     glDisable(GL_POLYGON_OFFSET_FILL);
@@ -209,6 +242,7 @@ void SceneRenderer::draw_surface(const OrbitCamera& cam, int h, const glm::mat4&
     if (st.glyphs) draw_lines(glyphs_, 1.6f);
     glUniform4f(l_cull_, 0, 0, 0, 0);
     if (st.cut_ring) draw_lines(ring_, 2.5f);
+    draw_lines(edge_, 1.5f);
 }
 
 void SceneRenderer::draw(const OrbitCamera& cam, int x, int y, int w, int h, const SceneStyle& st, bool clear) {

@@ -1,5 +1,6 @@
 // Draws the 3D scene with OpenGL 3.3 core: the gain surface (optionally translucent, with a
-// wireframe), the polarisation glyphs, the active cut ring and the axes. Geometry comes ready-made
+// wireframe), its "not measured" region (hatched grey, with the data's edge as a line), the
+// polarisation glyphs, the active cut ring and the axes. Geometry comes ready-made
 // from the pure scene code (viewer/scene/); this class only owns GPU buffers and shaders.
 // Uploading a 1-degree surface costs one buffer copy (about 2.4 MB); drawing is one call per layer.
 #pragma once
@@ -51,20 +52,25 @@ private:
         int count = 0;  // vertices
     };
     void upload_lines(Lines& l, const LineSet& set);
+    void upload_lines(Lines& l, const std::vector<float>& vertices);
+    void upload_unsampled(const UnsampledRegion& r);
+    void draw_unsampled(int h);
     void draw_surface(const OrbitCamera& cam, int h, const glm::mat4& proj, const SceneStyle& st);
     void draw_lines(const Lines& l, float width);
 
     unsigned surface_program_ = 0, line_program_ = 0;
     unsigned surface_vao_ = 0, surface_vbo_ = 0, surface_ibo_ = 0, wire_vao_ = 0, wire_ibo_ = 0;
     int surface_index_count_ = 0, wire_index_count_ = 0;
+    unsigned unsampled_vao_ = 0, unsampled_vbo_ = 0, unsampled_ibo_ = 0;  // the "not measured" region
+    int unsampled_index_count_ = 0;
     int lod_count_[3] = {0, 0, 0};            // triangles x3 for stride 1, 2, 4
     std::size_t lod_offset_[3] = {0, 0, 0};   // byte offsets in the index buffer
     double grid_step_deg_ = 1;
     std::optional<SurfaceTopology> uploaded_topology_;  // of the index lists in the buffers
     int last_stride_ = 1;
-    Lines glyphs_, ring_, axes_;
+    Lines glyphs_, ring_, axes_, edge_;  // edge_: the data's edge beside the "not measured" region
     // Uniform locations.
-    int s_view_ = -1, s_proj_ = -1, s_alpha_ = -1, l_view_ = -1, l_proj_ = -1, l_tint_ = -1, l_cull_ = -1;
+    int s_view_ = -1, s_proj_ = -1, s_alpha_ = -1, s_hatch_ = -1, l_view_ = -1, l_proj_ = -1, l_tint_ = -1, l_cull_ = -1;
     const float* view_ = nullptr;
     const float* proj_ = nullptr;
 };

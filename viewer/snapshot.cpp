@@ -52,8 +52,9 @@ void draw_annotations(const FarFieldSet& s, const SnapshotOptions& o, const Surf
     const ImVec2 bar_pos(view_w + 18 * scale, o.height * 0.22f), bar_size(20 * scale, o.height * 0.56f);
     draw_color_bar(dl, bar_pos, bar_size, mesh.bar, fonts.small, fonts.small, bar_strip - 28 * scale);
     // The key to the ellipses (when drawn) under the bar, the radial scale at the bottom left.
-    if (o.glyphs && s.has_phase())
-        draw_ellipse_key(dl, ImVec2(bar_pos.x, bar_pos.y + bar_size.y + 24 * scale), fonts.small, ink);
+    float key_y = bar_pos.y + bar_size.y + 24 * scale;
+    if (!mesh.unsampled.empty()) key_y += draw_unsampled_key(dl, ImVec2(bar_pos.x, key_y), fonts.small, ink) + 8 * scale;
+    if (o.glyphs && s.has_phase()) draw_ellipse_key(dl, ImVec2(bar_pos.x, key_y), fonts.small, ink);
     draw_radial_scale(dl, cam, ImVec2(float(view_w), float(o.height)),
                       ImVec2(16 * scale, o.height - fonts.small->FontSize * 6.2f), mesh.peak_db, o.range_db, mesh.unit,
                       fonts.small, muted);

@@ -41,7 +41,21 @@ def check_glb(path):
         off = v.get("byteOffset", 0) + a.get("byteOffset", 0)
         assert off % size == 0 and n * size <= v["byteLength"], "accessor overruns its view"
         arrays.append(struct.unpack_from("<%d%s" % (n, fmt), bin_, off))
-    prim = doc["meshes"][0]["primitives"][0]
+    # Every mesh (the surface, and the "not measured" region of a partly sampled pattern), each
+    # the primitive of one node with a material of its own.
+    assert len(doc["nodes"]) == len(doc["meshes"]) == len(doc["materials"]) == len(doc["scenes"][0]["nodes"]), "one node, mesh, material a part"
+    names, nv_all, nt_all = [], 0, 0
+    for k, mesh in enumerate(doc["meshes"]):
+        assert doc["nodes"][k]["mesh"] == k and doc["nodes"][k]["name"] == mesh["name"], "node %d names its mesh" % k
+        prim = mesh["primitives"][0]
+        assert prim["material"] == k, "mesh %d has its own material" % k
+        nv, nt = check_primitive(doc, arrays, prim)
+        names.append(mesh["name"])
+        nv_all, nt_all = nv_all + nv, nt_all + nt
+    return "%d vertices, %d triangles; parts: %s" % (nv_all, nt_all, ", ".join(names))
+
+
+def check_primitive(doc, arrays, prim):
     pos_i, nrm_i, col_i = (prim["attributes"][k] for k in ("POSITION", "NORMAL", "COLOR_0"))
     pos, acc = arrays[pos_i], doc["accessors"][pos_i]
     nv = acc["count"]
@@ -54,9 +68,9 @@ def check_glb(path):
     assert all(0 <= c <= 1 for c in arrays[col_i]), "colour outside 0..1"
     idx = arrays[prim["indices"]]
     assert len(idx) % 3 == 0 and idx and max(idx) < nv, "indices"
-    for a in doc["accessors"]:
-        assert doc["accessors"][pos_i]["count"] == a["count"] or a is doc["accessors"][prim["indices"]], "attribute counts differ"
-    return "%d vertices, %d triangles" % (nv, len(idx) // 3)
+    for i in (nrm_i, col_i):
+        assert doc["accessors"][i]["count"] == nv, "attribute counts differ"
+    return nv, len(idx) // 3
 
 
 def check_ply(path):

@@ -102,6 +102,14 @@ if "$E" render --help >/dev/null 2>&1; then
     expect_rc 0 "view --export-view v.glb" "$XVFB" -a -s "-screen 0 800x600x24" "$E" view "$TS" --frames 3 --export-view v.glb
     python3 "$SRC/tests/scripts/check_mesh_files.py" v.glb >out.txt 2>&1 && ok "the viewer's GLB passes the structural check" || bad "viewer GLB: $(cat out.txt)"
   fi
+  # A hemisphere's 3D file: the directions it does not sample as a part of its own, "not measured".
+  expect_rc 0 "render an upper hemisphere to GLB and PLY" "$E" render "$SRC/tests/data/csv/upper_hemisphere.csv" --out u.glb
+  expect_rc 0 "render an upper hemisphere to PLY" "$E" render "$SRC/tests/data/csv/upper_hemisphere.csv" --out u.ply
+  python3 "$SRC/tests/scripts/check_mesh_files.py" u.glb u.ply >out.txt 2>&1 && grep -q "parts: .*, not measured$" out.txt &&
+    grep -a -q "grey faces: not measured" u.ply && ok "a hemisphere's GLB names its 'not measured' part; the PLY says which faces" ||
+    bad "hemisphere mesh files: $(cat out.txt)"
+  python3 "$SRC/tests/scripts/check_mesh_files.py" s.glb >out.txt 2>&1 && ! grep -q "not measured" out.txt && ok "a full sphere's GLB has no 'not measured' part" ||
+    bad "full sphere GLB parts: $(cat out.txt)"
   expect_rc 1 "render: magnitude-only data cannot colour by axial ratio" "$E" render "$SRC/tests/data/csv/upper_hemisphere.csv" --color-by axial-ratio --out n.glb
 else
   echo "skip 3D files: this build has no viewer"

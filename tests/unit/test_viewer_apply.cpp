@@ -93,11 +93,25 @@ TEST_CASE("closing patterns keeps A and B on the same patterns", "[viewer][apply
     }
     SECTION("closing every pattern leaves an empty, consistent state") {
         AppState s = three();
-        run(s, intent::Hover{Direction{10, 20}}, intent::ClosePattern{2}, intent::ClosePattern{1}, intent::ClosePattern{0});
+        run(s, intent::Hover{Direction{10, 20}, false}, intent::ClosePattern{2}, intent::ClosePattern{1}, intent::ClosePattern{0});
         CHECK(s.patterns.empty());
         CHECK(s.active_pattern() == nullptr);
         CHECK(s.compare == -1);
         CHECK_FALSE(s.hover);
+    }
+    SECTION("the cursor over the not-measured region probes nothing and says so") {
+        AppState s = three();
+        run(s, intent::Hover{Direction{10, 20}, false}, intent::Hover{std::nullopt, true});
+        CHECK_FALSE(s.hover);
+        CHECK(s.hover_not_measured);
+        run(s, intent::Hover{Direction{10, 20}, false});
+        CHECK(s.hover);
+        CHECK_FALSE(s.hover_not_measured);
+        // A direction and the flag together: the direction wins (data there).
+        run(s, intent::Hover{Direction{30, 20}, true});
+        CHECK_FALSE(s.hover_not_measured);
+        run(s, intent::Hover{std::nullopt, true}, intent::ClosePattern{2}, intent::ClosePattern{1}, intent::ClosePattern{0});
+        CHECK_FALSE(s.hover_not_measured);
     }
     SECTION("an index out of range changes nothing") {
         AppState s = three();

@@ -93,7 +93,7 @@ TEST_CASE("the derived data follows A, B, the frequency and the component", "[vi
     run(s, intent::ChangeSettings{st});
     CHECK(refresh(d, s).surface);
     // The probe follows the hover.
-    run(s, intent::Hover{Direction{90, 0}});
+    run(s, intent::Hover{Direction{90, 0}, false});
     refresh(d, s);
     REQUIRE(d.hover.value());
     CHECK(*d.hover.value()->a.db_of(Component::total) == Approx(peak_a + 6.02).margin(0.02));

@@ -4,6 +4,10 @@
 //   - surface pixels are present: at least MIN_SURFACE_FRACTION (default 0.02) of all pixels are
 //     strongly coloured (HSV saturation > 0.35 and value > 0.15). The UI and backgrounds are
 //     near-grey by design, so saturated pixels come from the colour-mapped surface, glyphs and plots.
+// With a fifth argument "neutral:X0,Y0,X1,Y1:MIN:MAX" (fractions of the width and height), the
+// share of the box's pixels in the "not measured" region's light neutral grey (every channel 150 to
+// 225, channels within 10 of each other) must lie in [MIN, MAX]: present below a hemisphere, absent
+// for a full sphere (viewer/scene/surface_mesh.hpp, UnsampledRegion).
 // Exit 0 when all hold; 1 with a message otherwise.
 #include <stb_image.h>
 
@@ -12,6 +16,28 @@
 #include <cstdio>
 #include <cstdlib>
 #include <set>
+
+// The share of light neutral grey pixels in a box given as "neutral:X0,Y0,X1,Y1:MIN:MAX".
+int check_neutral(const char* file, const char* spec, const unsigned char* px, int w, int h) {
+    double x0, y0, x1, y1, lo, hi;
+    if (std::sscanf(spec, "neutral:%lf,%lf,%lf,%lf:%lf:%lf", &x0, &y0, &x1, &y1, &lo, &hi) != 6) {
+        std::fprintf(stderr, "png_check: expected neutral:X0,Y0,X1,Y1:MIN:MAX, found %s\n", spec);
+        return 1;
+    }
+    long in_box = 0, neutral = 0;
+    for (int y = int(y0 * h); y < int(y1 * h) && y < h; ++y)
+        for (int x = int(x0 * w); x < int(x1 * w) && x < w; ++x) {
+            const unsigned char* p = px + 3 * (long(y) * w + x);
+            const int mx = std::max({p[0], p[1], p[2]}), mn = std::min({p[0], p[1], p[2]});
+            ++in_box;
+            if (mn >= 150 && mx <= 225 && mx - mn <= 10) ++neutral;
+        }
+    const double share = in_box ? double(neutral) / double(in_box) : 0;
+    std::printf("png_check: %s neutral grey in the box %.3f (expected %.3f to %.3f)\n", file, share, lo, hi);
+    if (share >= lo && share <= hi) return 0;
+    std::fprintf(stderr, "png_check: %s: the share of neutral grey %.3f is outside %.3f to %.3f\n", file, share, lo, hi);
+    return 1;
+}
 
 int main(int argc, char** argv) {
     if (argc < 4) {
@@ -55,6 +81,7 @@ int main(int argc, char** argv) {
         std::fprintf(stderr, "png_check: %s has too few surface pixels (%.3f < %.3f)\n", argv[1], frac, min_frac);
         ++fails;
     }
+    if (argc > 5) fails += check_neutral(argv[1], argv[5], px, w, h);
     stbi_image_free(px);
     return fails ? 1 : 0;
 }

@@ -39,3 +39,20 @@ set -e
 [[ $rc -eq 1 ]] || { echo "view without a display gave exit $rc, expected 1"; exit 1; }
 grep -qi "display" "$out/err"
 echo "render_headless: ok"
+# A pattern sampled over the upper hemisphere only (theta 0..90): the directions below the horizon
+# are drawn as the quiet "not measured" region (hatched light grey), not as a hole; seen from
+# below, its grey fills much of the view's lower part, where a full sphere has none of it. The 3D
+# file names it as a node of its own.
+"$ELLIPSA" synth small-loop --step 3 --out "$out/loop.csv" >/dev/null
+awk -F, '/^#/ {print; next} !t {for (i = 1; i <= NF; i++) if ($i == "theta") t = i; print; next} $t <= 90' \
+  "$out/loop.csv" > "$out/upper.csv"
+neutral_box=0.05,0.45,0.80,0.90
+"$ELLIPSA" render "$out/upper.csv" --out "$out/upper.png" --size 640x480 --view 35,-35
+"$PNG_CHECK" "$out/upper.png" 640 480 0.02 "neutral:$neutral_box:0.08:1"
+"$ELLIPSA" render "$out/loop.csv" --out "$out/full.png" --size 640x480 --view 35,-35
+"$PNG_CHECK" "$out/full.png" 640 480 0.02 "neutral:$neutral_box:0:0.03"
+"$ELLIPSA" render "$out/upper.csv" --out "$out/upper.glb" >/dev/null
+grep -a -q '"nodes":\[{"mesh":0,"name":"[^"]*"},{"mesh":1,"name":"not measured"}\]' "$out/upper.glb" ||
+  { echo "the glTF file of a hemisphere has no node named 'not measured'"; exit 1; }
+"$ELLIPSA" render "$out/loop.csv" --out "$out/full.glb" >/dev/null
+if grep -a -q '"not measured"' "$out/full.glb"; then echo "a full sphere's glTF file names a 'not measured' node"; exit 1; fi

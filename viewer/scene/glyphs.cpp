@@ -94,7 +94,13 @@ LineSet build_cut_ring(const FarFieldSet& s, const SurfaceMesh& m, const std::ve
         const double r = surface_radius(s, m, theta_deg[i], phi_deg[i]);
         return (r + 0.008) * direction(theta_deg[i] * deg, phi_deg[i] * deg);
     };
-    for (std::size_t i = 0; i + 1 < n + 1 && n > 1; ++i) out.add(point(i), point((i + 1) % n), colour);
+    // The ring stops at the data's edge: no segment runs into the "not measured" region.
+    auto sampled = [&](std::size_t i) {
+        GridStencil st;
+        return grid_stencil(s.grid, theta_deg[i], phi_deg[i], st);
+    };
+    for (std::size_t i = 0; i + 1 < n + 1 && n > 1; ++i)
+        if (sampled(i) && sampled((i + 1) % n)) out.add(point(i), point((i + 1) % n), colour);
     return out;
 }
 

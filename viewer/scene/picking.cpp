@@ -16,15 +16,17 @@ struct Hit {
     glm::dvec3 point{0};
 };
 
-// Moller-Trumbore on triangles [k0, k1) of the list (indices into it, steps of 3).
-void test_triangles(const SurfaceMesh& m, const Ray& ray, std::size_t k0, std::size_t k1, Hit& h) {
-    const float* v = m.vertices.data();
+// Moller-Trumbore on triangles [k0, k1) of a list (indices into it, steps of 3) over interleaved
+// vertices (surface_floats_per_vertex each).
+void test_triangles(const std::vector<float>& vertices, const std::vector<std::uint32_t>& triangles, const Ray& ray, std::size_t k0,
+                    std::size_t k1, Hit& h) {
+    const float* v = vertices.data();
     auto at = [&](std::uint32_t i) {
         const float* p = v + std::size_t(i) * surface_floats_per_vertex;
         return glm::dvec3(p[0], p[1], p[2]);
     };
     for (std::size_t k = k0; k + 2 < k1; k += 3) {
-        const glm::dvec3 p0 = at(m.triangles[k]), p1 = at(m.triangles[k + 1]), p2 = at(m.triangles[k + 2]);
+        const glm::dvec3 p0 = at(triangles[k]), p1 = at(triangles[k + 1]), p2 = at(triangles[k + 2]);
         const glm::dvec3 e1 = p1 - p0, e2 = p2 - p0;
         const glm::dvec3 pv = glm::cross(ray.dir, e2);
         const double det = glm::dot(e1, pv);
@@ -80,7 +82,7 @@ void test_blocks(const SurfaceMesh& m, const Ray& ray, Hit& h) {
         const std::size_t br = b / std::size_t(m.pick_block_cols), bc = b % std::size_t(m.pick_block_cols);
         const std::size_t j0 = bc * pick_block, j1 = std::min(cells_c, j0 + pick_block);
         for (std::size_t i = br * pick_block; i < std::min(rows_c, (br + 1) * pick_block); ++i)
-            test_triangles(m, ray, (i * cells_c + j0) * 6, (i * cells_c + j1) * 6, h);
+            test_triangles(m.vertices, m.triangles, ray, (i * cells_c + j0) * 6, (i * cells_c + j1) * 6, h);
     }
 }
 
@@ -97,11 +99,16 @@ std::optional<Pick> pick_direction(const SurfaceMesh& m, const Ray& ray) {
                          m.pick_boxes.size() == std::size_t(m.pick_block_rows) * std::size_t(m.pick_block_cols) * 6 &&
                          m.triangles.size() == std::size_t(m.rows - 1) * std::size_t(m.cols - 1) * 6;
     if (blocked) test_blocks(m, ray, h);
-    else test_triangles(m, ray, 0, m.triangles.size(), h);
+    else test_triangles(m.vertices, m.triangles, ray, 0, m.triangles.size(), h);
+    Hit none;
+    test_triangles(m.unsampled.vertices, m.unsampled.triangles, ray, 0, m.unsampled.triangles.size(), none);
+    const bool measured = !(none.best < h.best);
+    if (!measured) h = none;
     if (h.best == 1e300 || glm::length(h.point) < 1e-6) return std::nullopt;
     Pick p;
     p.point = h.point;
     p.distance = h.best;
+    p.measured = measured;
     double th, ph;
     to_spherical(Vec3{h.point.x, h.point.y, h.point.z}, th, ph);
     p.theta_deg = th / deg;

@@ -319,6 +319,7 @@ Result<SurfaceMesh> build_surface(const FarFieldSet& s, std::size_t k, const Sur
     if (o.color_by == ColorBy::difference) other_power = other_power_on_grid(s, *other, kb, o.component);
     fill_vertices(m, VertexSource{trig, s.frequencies[k], o, ColorLookup(m.bar.map), other_power, std::size_t(g.phi.count), wraps});
     pick_boxes(m);
+    m.unsampled = unsampled_region(g, m);
     m.grid_step_deg = std::min(g.theta.step_deg, g.phi.step_deg);
     const SurfaceTopology topology = topology_of(m, g, o.wire_step_deg);
     if (topology == m.topology && !m.triangles.empty()) return m;

@@ -42,6 +42,22 @@ struct ColorBar {
 
 inline constexpr int surface_floats_per_vertex = 9;
 
+// The directions a grid does not sample (a range's upper hemisphere, a sector of phi), shown as a
+// quiet "not measured" region instead of an open hole: a neutral grey cap over those directions
+// at a fixed small radius (unsampled_radius, below any data that stands out of the floor), a wall
+// from the data's edge down to that cap, and the data's edge as a line. It carries no colour-map
+// colour and no value: picking tells it from data (viewer/scene/picking.hpp). Empty for a full
+// sphere and for cut-only data. Its size is the boundary's plus a coarse cap (5-degree cells).
+struct UnsampledRegion {
+    std::vector<float> vertices;           // surface_floats_per_vertex per vertex, unsampled_colour
+    std::vector<std::uint32_t> triangles;  // three indices a triangle
+    std::vector<float> outline;            // the data's edge: xyz rgb per vertex, two vertices a segment
+    bool empty() const { return triangles.empty(); }
+};
+inline constexpr double unsampled_radius = 0.12;
+inline constexpr Rgb unsampled_colour{0.80f, 0.80f, 0.78f};
+inline constexpr Rgb unsampled_edge_colour{0.30f, 0.31f, 0.34f};
+
 // What the index lists (triangles, coarser levels, wireframe) depend on: the grid's shape and the
 // wireframe's spacing in grid lines, never the values. Equal topologies have equal index lists.
 struct SurfaceTopology {
@@ -69,6 +85,7 @@ struct SurfaceMesh {
     // slow), so that a hover pick tests only the triangles of the blocks its ray crosses.
     std::vector<float> pick_boxes;
     int pick_block_rows = 0, pick_block_cols = 0;
+    UnsampledRegion unsampled;  // the directions the grid does not sample (empty: the whole sphere)
 };
 
 inline constexpr int pick_block = 16;  // grid cells per side of a picking block
@@ -94,6 +111,10 @@ int lod_stride(double grid_step_deg, double view_height_px, double fov_deg, doub
 Result<SurfaceMesh> build_surface(const FarFieldSet& s, std::size_t freq_index, const SurfaceOptions& o,
                                   const FarFieldSet* other = nullptr, std::size_t other_freq_index = 0,
                                   SurfaceMesh&& previous = SurfaceMesh{});
+
+// The "not measured" region of a grid and the surface built on it (its vertices give the data's
+// edge). Called by build_surface; empty when the grid samples the whole sphere or holds cuts only.
+UnsampledRegion unsampled_region(const Grid& g, const SurfaceMesh& m);
 
 // Radius of the built surface toward a direction (bilinear in the grid; 0 outside the sampled region).
 double surface_radius(const FarFieldSet& s, const SurfaceMesh& m, double theta_deg, double phi_deg);

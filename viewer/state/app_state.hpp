@@ -92,6 +92,7 @@ struct AppState {
     ViewerSettings settings;
     OrbitCamera camera;
     std::optional<Direction> hover, pinned;
+    bool hover_not_measured = false;  // the cursor is over the "not measured" region (hover is empty)
 
     std::string path_input, map_input;  // the patterns panel's text fields
     std::optional<LoadingView> loading;

@@ -113,6 +113,7 @@ void normalise(AppState& s) {
     if (n == 0) {
         s.active = 0, s.compare = -1, s.freq = 0;
         s.hover.reset();
+        s.hover_not_measured = false;
         return;
     }
     s.active = std::clamp(s.active, 0, n - 1);
@@ -212,6 +213,7 @@ struct Apply {
     void operator()(intent::Hover& i) {
         if (i.at && !finite(*i.at)) i.at.reset();
         s.hover = i.at;
+        s.hover_not_measured = !i.at && i.not_measured;
     }
     void operator()(intent::Pin& i) {
         if (finite(i.at) && i.at.theta_deg >= 0 && i.at.theta_deg <= 180)

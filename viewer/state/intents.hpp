@@ -74,7 +74,12 @@ struct Zoom { double steps = 0; };
 struct LookFrom { OrbitCamera::Preset preset = OrbitCamera::Preset::px; };
 struct SetView { double azimuth_deg = 0, elevation_deg = 0; };
 struct ResetView {};
-struct Hover { std::optional<Direction> at; };
+// The direction under the cursor; none with not_measured: the cursor is over the "not measured"
+// region of a partly sampled pattern (no data there, nothing to probe or pin).
+struct Hover {
+    std::optional<Direction> at;
+    bool not_measured = false;
+};
 struct Pin { Direction at; };
 struct Unpin {};
 struct Escape {};  // closes the help if it is open, else unpins
