@@ -323,3 +323,37 @@ TEST_CASE("the in-window file browser is driven by the keyboard", "[viewer][ui][
     CHECK_FALSE(s.browser);
     fs::remove_all(root);
 }
+
+TEST_CASE("the pointer over the not-measured region of a hemisphere probes nothing and pins nothing", "[viewer][ui]") {
+    Ui ui;
+    AppState s;
+    FarFieldSet upper = antenna(ReferenceKind::small_loop);  // theta 0..90 of the 5-degree grid
+    upper.grid.theta.count = 19;
+    for (FarField& f : upper.frequencies) {
+        f.e_theta.resize(upper.grid.size());
+        f.e_phi.resize(upper.grid.size());
+    }
+    apply(s, Intents{intent::AddPatterns{{upper}, ""}, intent::SetView{30, -80}});  // from below
+    Derived d;
+    refresh(d, s);
+    REQUIRE_FALSE(d.surface.value().mesh.unsampled.empty());
+    ImGuiIO& io = ImGui::GetIO();
+    const Layout L = ui.layout(s);
+    io.MousePos = ImVec2(L.view_pos.x + L.view_size.x * 0.5f, L.view_pos.y + L.view_size.y * 0.5f);
+    ui.frame(s, d);
+    ui.frame(s, d);
+    CHECK_FALSE(s.hover);
+    CHECK(s.hover_not_measured);
+    CHECK_FALSE(d.hover.value());
+    io.MouseDown[0] = true;
+    ui.frame(s, d);
+    io.MouseDown[0] = false;
+    CHECK_FALSE(has<intent::Pin>(ui.frame(s, d)));
+    CHECK_FALSE(s.pinned);
+    // From above, the same pointer is over data again.
+    apply(s, Intents{intent::SetView{30, 80}});
+    ui.frame(s, d);
+    ui.frame(s, d);
+    CHECK(s.hover);
+    CHECK_FALSE(s.hover_not_measured);
+}
