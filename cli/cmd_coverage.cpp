@@ -9,6 +9,7 @@
 #include <optional>
 
 #include "cli/commands.hpp"
+#include "cli/coverage_json.hpp"
 #include "cli/frequency_option.hpp"
 #include "cli/json.hpp"
 #include "cli/load.hpp"
@@ -44,36 +45,23 @@ Result<CoverageRequest> request_of(const CoverageArgs& a) {
     auto lv = parse_number_list(a.levels);
     if (!lv) return Error{"", 0, 0, "--levels: expected levels in dB separated by commas; found \"" + a.levels + "\""};
     r.levels_db = *lv;
-    if (a.horizon_deg && !a.elevation.empty()) return Error{"", 0, 0, "choose --horizon or --elevation, not both"};
-    if (a.horizon_deg) {
-        if (!(*a.horizon_deg > 0 && *a.horizon_deg <= 90)) return Error{"", 0, 0, "--horizon: expected 0 < degrees <= 90"};
-        r.band = horizon_band(*a.horizon_deg);
-    }
+    std::optional<std::pair<double, double>> elevation;
+    const std::string found = "; found \"" + a.elevation + "\"";
     if (!a.elevation.empty()) {
         auto e = parse_number_list(a.elevation);
-        if (!e || e->size() != 2 || !((*e)[0] < (*e)[1]) || (*e)[0] < -90 || (*e)[1] > 90)
-            return Error{"", 0, 0, "--elevation: expected MIN,MAX in degrees, -90 <= MIN < MAX <= 90; found \"" + a.elevation + "\""};
-        r.band = {(*e)[0], (*e)[1]};
+        if (!e || e->size() != 2) return Error{"", 0, 0, "--elevation: expected MIN,MAX in degrees, -90 <= MIN < MAX <= 90" + found};
+        elevation = std::pair((*e)[0], (*e)[1]);
     }
+    auto band = coverage_band(a.horizon_deg, elevation);
+    if (!band) return Error{"", 0, 0, band.error().message + (band.error().message.starts_with("--elevation") ? found : "")};
+    r.band = *band;
+    r.components.clear();  // none: the defaults for the patterns read (coverage_of)
     if (!a.components.empty()) {
         auto c = parse_component_list(a.components);
         if (!c) return Error{"", 0, 0, "--components: " + c.error().message};
         r.components = *c;
     }
     return r;
-}
-
-// Default components: for one pattern total, vertical and horizontal (and RHCP, LHCP with
-// phase), as far as the data can give them; for two patterns the total alone (three curves).
-std::vector<Component> default_components(const std::vector<FarFieldSet>& sets) {
-    std::vector<Component> out;
-    if (sets.size() > 1) return {Component::total};
-    for (Component c : {Component::total, Component::vertical, Component::horizontal, Component::rhcp, Component::lhcp}) {
-        bool ok = true;
-        for (const FarFieldSet& s : sets) ok = ok && !component_unavailable(s, c);
-        if (ok) out.push_back(c);
-    }
-    return out;
 }
 
 std::string percent(double share) {
@@ -96,38 +84,6 @@ void print_table(const std::vector<CoverageSeries>& series, const CoverageReques
     std::cout << std::flush;
 }
 
-std::string coverage_json(const std::vector<CoverageSeries>& series, const CoverageRequest& r, double frequency_hz,
-                          const std::vector<FarFieldSet>& sets) {
-    JsonWriter j;
-    j.begin_object().field("frequency_hz", frequency_hz);
-    j.key("mountings").begin_array();  // one per pattern, A then B
-    for (const FarFieldSet& s : sets) {
-        j.begin_object();
-        mounting_json(j, s);
-        j.end_object();
-    }
-    j.end_array();
-    j.key("band").begin_object().field("elevation_min_deg", std::max(-90.0, r.band.min_deg));
-    j.field("elevation_max_deg", std::min(90.0, r.band.max_deg));
-    j.field("solid_angle_sr", series.empty() ? 0.0 : series[0].curve.band_solid_angle_sr).end_object();
-    j.key("series").begin_array();
-    for (const CoverageSeries& s : series) {
-        j.begin_object().field("label", s.label).field("component", to_string(s.component));
-        j.key("pattern");
-        if (s.pattern < 0)
-            j.value("best of both");
-        else
-            j.value(std::string(1, char('A' + s.pattern)));
-        j.field("unit", s.unit).field("sampled_share", s.curve.sampled_share);
-        j.key("at_levels").begin_array();
-        for (double l : r.levels_db)
-            j.begin_object().field("level_db", l).field("share", share_at_or_above(s.curve, l)).end_object();
-        j.end_array().end_object();
-    }
-    j.end_array().end_object();
-    return j.str() + "\n";
-}
-
 int run_coverage(const CoverageArgs& a) {
     if (a.files.size() > 2) return fail(exit_usage, "give one pattern file, or two for the best of both");
     auto req = request_of(a);
@@ -147,20 +103,16 @@ int run_coverage(const CoverageArgs& a) {
         auto s = load_pattern(f, a.load);
         if (!s) return fail(exit_bad_input, s.error().format());
         auto k = sets.empty() ? pick_frequency(*s, a.frequency_hz, f)
-                              : find_frequency(*s, sets[0].frequencies[fi[0]].frequency_hz, f);
+                              : coverage_frequency(*s, sets[0].frequencies[fi[0]].frequency_hz, f);
         if (!k) return fail(exit_bad_input, k.error().format());
         if (s->name.empty()) s->name = f;
         sets.push_back(std::move(*s));
         fi.push_back(*k);
     }
-    if (a.components.empty()) req->components = default_components(sets);
     std::vector<const FarFieldSet*> ptrs;
-    std::vector<std::string> labels;
-    for (std::size_t i = 0; i < sets.size(); ++i) {
-        ptrs.push_back(&sets[i]);
-        labels.push_back(sets.size() > 1 ? std::string(1, char('A' + i)) + ". " + sets[i].name : "");
-    }
-    auto series = coverage_series(ptrs, labels, fi, *req);
+    std::vector<std::string> names;
+    for (const FarFieldSet& s : sets) ptrs.push_back(&s), names.push_back(s.name);
+    auto series = coverage_of(ptrs, names, fi, *req);
     if (!series) return fail(exit_bad_input, series.error().message);
     const double f_hz = sets[0].frequencies[fi[0]].frequency_hz;
     const std::string what = describe_band(req->band);
@@ -172,18 +124,9 @@ int run_coverage(const CoverageArgs& a) {
         if (const std::string m = mounting_note(sets[i]); !m.empty()) std::cout << "  " << a.files[i] << ": " << m << "\n";
     print_table(*series, *req, what == "whole sphere" ? "sphere" : "band");
     if (a.out.empty()) return exit_ok;
-    std::string bytes;
-    if (json) {
-        bytes = coverage_json(*series, *req, f_hz, sets);
-    } else if (*format == FileFormat::csv) {
-        bytes = coverage_csv(*series);
-    } else {
-        const XyFigure fig = make_coverage_figure(*series, *req, format_frequency(f_hz) + ", " + what);
-        auto img = render_image([&](cairo_t* cr, double w, double h) { draw_xy_figure(cr, fig, w, h); }, *format, *size, fig.title);
-        if (!img) return fail(exit_bad_input, img.error().message);
-        bytes = std::move(*img);
-    }
-    if (Status st = io::write_file_atomically(a.out, bytes, a.force); !st) return fail(exit_bad_input, st.error().format());
+    auto bytes = coverage_file(a.out, *series, *req, f_hz, ptrs, *size);
+    if (!bytes) return fail(exit_bad_input, bytes.error().message);
+    if (Status st = io::write_file_atomically(a.out, *bytes, a.force); !st) return fail(exit_bad_input, st.error().format());
     std::cout << "wrote " << a.out << "\n";
     return exit_ok;
 }

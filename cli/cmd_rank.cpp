@@ -13,6 +13,7 @@
 #include "cli/environment_options.hpp"
 #include "cli/json.hpp"
 #include "cli/load.hpp"
+#include "cli/rank_json.hpp"
 #include "exports/rank_table.hpp"
 #include "io/atomic_write.hpp"
 #include "pattern/combining.hpp"
@@ -91,83 +92,6 @@ std::variant<std::vector<ChosenEnvironment>, UsageError, Error> environments_of(
     return out;
 }
 
-std::string display_name(const Loaded& l) {
-    if (!l.set.name.empty()) return l.set.name;
-    const std::size_t s = l.path.rfind('/');
-    return s == std::string::npos ? l.path : l.path.substr(s + 1);
-}
-
-void json_figures(JsonWriter& j, const RankFigures& f, double outage, RankScore score) {
-    const auto db = [](const std::optional<double>& v) -> std::optional<double> {
-        return v && *v > 0 ? std::optional<double>(to_db(*v)) : std::nullopt;
-    };
-    const std::string key = format_number(outage);
-    j.begin_object();
-    if (f.meg) {
-        j.field("meg_db", to_db(f.meg->meg)).field("meg_vertical_db", db(f.meg->meg_vertical));
-        j.field("meg_horizontal_db", db(f.meg->meg_horizontal));
-    } else {
-        j.key("meg_db").null();
-        j.field("unavailable_reason", f.meg.error().message);
-    }
-    const bool turned = f.orientations && *f.orientations;
-    j.field("orientation_median_db", turned ? db((**f.orientations).median) : std::nullopt);
-    j.field("orientation_p10_db", turned ? db((**f.orientations).random_p10) : std::nullopt);
-    j.field("orientation_worst_db", turned ? db((**f.orientations).min) : std::nullopt);
-    if (f.orientations && !*f.orientations) j.field("orientation_unavailable_reason", f.orientations->error().message);
-    j.key("fading_levels_db").begin_object().field(key, db(f.level)).end_object();
-    j.key("fading_levels_random_db").begin_object().field(key, db(f.random_level)).end_object();
-    j.field("advantage_db", f.advantage_db).field("random_advantage_db", f.random_advantage_db);
-    j.field("worst_advantage_db", f.worst_advantage_db).field("score_part_db", score_part_db(f, score));
-    j.end_object();
-}
-
-void json_environments(JsonWriter& j, const std::vector<ChosenEnvironment>& envs, const std::vector<RankFigures>& figs,
-                       const Ranking& r) {
-    j.key("environments").begin_object();
-    for (std::size_t e = 0; e < envs.size(); ++e) {
-        j.key(envs[e].environment.name);
-        json_figures(j, figs[e], r.outage, r.score);
-    }
-    j.end_object();
-}
-
-std::string write_json(const std::vector<ChosenEnvironment>& envs, const std::vector<Loaded>& ps, const Ranking& r,
-                       const RankLabels& l) {
-    JsonWriter j;
-    j.begin_object();
-    j.field("score", to_string(r.score)).field("score_definition", rank_score_definition(r.score));
-    j.field("outage", r.outage);
-    j.key("environment_list").begin_array();
-    for (const ChosenEnvironment& c : envs) {
-        j.begin_object();
-        write_environment_json(j, c);
-        j.end_object();
-    }
-    j.end_array();
-    j.key("reference").begin_object().field("name", l.reference);
-    json_environments(j, envs, r.reference, r);
-    j.end_object();
-    j.key("rows").begin_array();
-    for (std::size_t k = 0; k < r.rows.size(); ++k) {
-        const RankRow& row = r.rows[k];
-        const Loaded& p = ps[row.input];
-        j.begin_object();
-        j.field("rank", row.score_db ? std::optional<double>(double(k + 1)) : std::nullopt);
-        j.field("file", p.path).field("name", p.set.name).field("frequency_hz", p.set.frequencies[p.freq].frequency_hz);
-        j.field("score_db", row.score_db);
-        if (!row.score_db) j.field("unavailable_reason", row.unavailable_reason);
-        json_environments(j, envs, row.environments, r);
-        j.end_object();
-    }
-    j.end_array();
-    j.key("cautions").begin_array();
-    for (const char* c : outage_cautions) j.value(c);
-    j.end_array();
-    j.end_object();
-    return j.str() + "\n";
-}
-
 Document rank_document(const Ranking& r, const RankLabels& l) {
     Document doc;
     doc.title = "Ranking of candidate antennas";
@@ -198,21 +122,21 @@ Result<std::vector<Loaded>> load_candidates(const RankArgs& a) {
     return ps;
 }
 
-int emit(const RankArgs& a, const std::vector<ChosenEnvironment>& envs, const std::vector<Loaded>& ps, const Ranking& r,
+int emit(const RankArgs& a, const std::vector<ChosenEnvironment>& envs, const std::vector<RankCandidate>& ps, const Ranking& r,
          const RankLabels& l) {
     if (!a.out.empty()) {
         std::string lower = a.out;
         for (char& c : lower) c = char(std::tolower(static_cast<unsigned char>(c)));
         const auto ends = [&](const std::string& x) { return lower.size() >= x.size() && lower.compare(lower.size() - x.size(), x.size(), x) == 0; };
         std::string bytes = ends(".csv")    ? rank_csv(r, l)
-                            : ends(".json") ? write_json(envs, ps, r, l)
+                            : ends(".json") ? rank_json(envs, ps, r, l)
                             : ends(".md")   ? to_markdown(rank_document(r, l))
                                             : to_html(rank_document(r, l));
         if (Status st = io::write_file_atomically(a.out, bytes, a.force); !st) return fail(exit_bad_input, st.error().format());
         std::cerr << "wrote " << a.out << "\n";
     }
     if (a.json)
-        std::cout << write_json(envs, ps, r, l);
+        std::cout << rank_json(envs, ps, r, l);
     else if (a.csv)
         std::cout << rank_csv(r, l);
     else if (a.out.empty())
@@ -221,8 +145,7 @@ int emit(const RankArgs& a, const std::vector<ChosenEnvironment>& envs, const st
 }
 
 int run(RankArgs a) {
-    if (!parse_rank_score(a.score, a.rank.score))
-        return fail(exit_usage, "--score: expected mounted, random or worst, found \"" + a.score + "\"");
+    if (auto bad = rank_score_problem(a.score, a.rank.score)) return fail(exit_usage, "--score: " + *bad);
     a.rank.orientations = !a.no_orientations;
     if (Status v = validate(a.rank); !v) return fail(exit_usage, v.error().message);
     if (a.json && a.csv) return fail(exit_usage, "--json and --csv both choose what is printed; give one");
@@ -242,22 +165,11 @@ int run(RankArgs a) {
     if (!ref) return fail(exit_bad_input, ref.error().format());
 
     std::vector<RankCandidate> cands;
-    RankLabels l;
-    for (const Loaded& p : *ps) {
-        cands.push_back({&p.set, p.path, p.freq});
-        l.names.push_back(display_name(p));
-        l.files.push_back(p.path);
-        l.frequencies_hz.push_back(p.set.frequencies[p.freq].frequency_hz);
-    }
-    std::vector<Environment> environments;
-    for (const ChosenEnvironment& c : envs) environments.push_back(c.environment);
-    l.environments = environments;
-    l.reference = a.reference == "dipole" ? reference_dipole_description : ref->path;
-    l.sweep = a.rank.sweep;
-    l.orientations = a.rank.orientations;
-    auto r = rank_candidates(cands, {&ref->set, ref->path.empty() ? "reference dipole" : ref->path, ref->freq}, environments, a.rank);
+    for (const Loaded& p : *ps) cands.push_back({&p.set, p.path, p.freq});
+    auto r = rank_run(cands, {&ref->set, ref->path.empty() ? "reference dipole" : ref->path, ref->freq},
+                      a.reference == "dipole" ? reference_dipole_description : ref->path, envs, a.rank);
     if (!r) return fail(exit_bad_input, r.error().format());
-    return emit(a, envs, *ps, *r, l);
+    return emit(a, envs, cands, r->ranking, r->labels);
 }
 
 Registered add_rank(CLI::App& root) {

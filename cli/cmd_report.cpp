@@ -1,9 +1,6 @@
 // ellipsa report: one folder with index.html and report.md (same content), the figures table per
 // pattern and frequency, the principal cuts as SVG/PNG/CSV, and a comparison when several
 // patterns are given. The folder is built under a temporary name and renamed into place.
-#include <cmath>
-#include <cstdio>
-#include <ctime>
 #include <iostream>
 #include <memory>
 #include <optional>
@@ -13,8 +10,7 @@
 #include "cli/frequency_option.hpp"
 #include "cli/environment_options.hpp"
 #include "cli/load.hpp"
-#include "cli/version.hpp"
-#include "io/atomic_folder.hpp"
+#include "cli/report_options.hpp"
 #include "exports/png.hpp"
 #include "exports/report.hpp"
 #include "pattern/environment.hpp"
@@ -47,37 +43,15 @@ int fail(int code, const std::string& msg) {
     return code;
 }
 
-std::string first_line(const std::string& s) { return s.substr(0, s.find('\n')); }
-
 int run_report(const ReportArgs& a) {
-    if (!std::isfinite(a.range_db)) return fail(exit_usage, "--range: expected a number of dB from 3 to 200");
     auto size = parse_size(a.size, a.dpi);
     if (!size) return fail(exit_usage, size.error().format());
-    ReportOptions o;
-    o.title = a.title;
-    o.frequency_hz = a.frequency_hz;
-    o.size = *size;
-    o.range_db = a.range_db;
-    if (!parse_plot_style(a.style, o.style)) return fail(exit_usage, "--style: expected polar or rect, found \"" + a.style + "\"");
-    o.generator = first_line(version_text());
-    {
-        std::time_t t = std::time(nullptr);
-        char buf[64];
-        std::strftime(buf, sizeof buf, "%Y-%m-%d %H:%M UTC", std::gmtime(&t));
-        o.generated_utc = buf;
-    }
-    {
-        auto built = chosen_environment(a.environment);
-        if (auto* u = std::get_if<UsageError>(&built)) return fail(exit_usage, u->message);
-        if (auto* er = std::get_if<Error>(&built)) return fail(exit_bad_input, er->format());
-        ChosenEnvironment& env = std::get<ChosenEnvironment>(built);
-        if (env.xpr_from == XprOrigin::user) {
-            char xpr[48];
-            std::snprintf(xpr, sizeof xpr, ", XPR %g dB", env.environment.xpr_db);
-            env.environment.name += xpr;
-        }
-        o.environment = env.environment;
-    }
+    auto built = chosen_environment(a.environment);
+    if (auto* u = std::get_if<UsageError>(&built)) return fail(exit_usage, u->message);
+    if (auto* er = std::get_if<Error>(&built)) return fail(exit_bad_input, er->format());
+    auto options = report_options({a.title, a.style, a.frequency_hz, a.range_db}, *size, std::get<ChosenEnvironment>(built));
+    if (!options) return fail(exit_usage, options.error().message);
+    ReportOptions& o = *options;
 #ifdef ELLIPSA_HAVE_VIEWER
     // 3D views per pattern and frequency through the headless EGL context (viewer/snapshot.hpp):
     // gain-coloured, and for data with phase also coloured by axial ratio.
@@ -107,17 +81,14 @@ int run_report(const ReportArgs& a) {
         if (!s) return fail(exit_bad_input, s.error().format());
         inputs.push_back({f, std::move(*s)});
     }
-    auto files = build_report(inputs, o);
-    if (!files) return fail(exit_bad_input, files.error().format());
     // --force replaces only a folder ellipsa made, and never one that holds what the report reads.
     std::vector<std::string> read = a.files;
     for (const std::string& f : {a.load.map_file, a.load.map.rfind('@', 0) == 0 ? a.load.map.substr(1) : std::string(),
                                  a.environment.profile})
         if (!f.empty()) read.push_back(f);
-    Status st = io::publish_folder(
-        a.out, [&](const std::string& dir) { return write_report_files(dir, *files); }, a.force, read);
-    if (!st) return fail(exit_bad_input, st.error().format());
-    std::cout << "wrote " << a.out << "/index.html and report.md with " << files->size() - 2 << " figure and data files\n";
+    auto written = publish_report(a.out, inputs, o, a.force, read);
+    if (!written) return fail(exit_bad_input, written.error().format());
+    std::cout << "wrote " << a.out << "/index.html and report.md with " << *written << " figure and data files\n";
     return exit_ok;
 }
 

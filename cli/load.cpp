@@ -269,6 +269,11 @@ Result<FarFieldSet> read_joined(const PreparedLoad& p) {
 }
 }  // namespace
 
+Status refuse_cuts(const FarFieldSet& s, const std::string& path, const std::string& figure) {
+    if (s.grid.sampling != Sampling::cuts) return Ok{};
+    return Error{path, 0, 0, figure + " needs the whole sphere; " + sphere_shortfall(s.grid) + ": cut, probe and info read cuts"};
+}
+
 Result<FarFieldSet> load_pattern(const std::string& arg, const LoadOptions& o) {
     auto ro = prepare_load(arg, o);
     if (!ro) return ro.error();
@@ -277,10 +282,8 @@ Result<FarFieldSet> load_pattern(const std::string& arg, const LoadOptions& o) {
     auto raw = read_joined(*ro);
     if (!raw) return raw;
     for (const std::string& n : raw->reading_notes) std::fprintf(stderr, "ellipsa: %s: %s\n", path.c_str(), n.c_str());
-    if (o.whole_sphere_figure && raw->grid.sampling == Sampling::cuts)
-        return Error{path, 0, 0,
-                     std::string(o.whole_sphere_figure) + " needs the whole sphere; " + sphere_shortfall(raw->grid) +
-                         ": cut, probe and info read cuts"};
+    if (o.whole_sphere_figure)
+        if (Status whole = refuse_cuts(*raw, path, o.whole_sphere_figure); !whole) return whole.error();
     auto request = install_request(ro->mounting);
     if (!request) return request.error();
     auto installed = install_pattern(std::move(*raw), *request);
@@ -288,11 +291,12 @@ Result<FarFieldSet> load_pattern(const std::string& arg, const LoadOptions& o) {
     return installed;
 }
 
-Result<std::size_t> pick_frequency(const FarFieldSet& s, const std::optional<double>& f, const std::string& path) {
+Result<std::size_t> pick_frequency(const FarFieldSet& s, const std::optional<double>& f, const std::string& path,
+                                   bool note) {
     if (s.frequencies.empty()) return Error{path, 0, 0, "holds no frequency"};
     if (f) return find_frequency(s, *f, path);
     const std::size_t n = s.frequencies.size(), middle = (n - 1) / 2;
-    if (n > 1)
+    if (n > 1 && note)
         std::fprintf(stderr, "ellipsa: %s holds %zu frequencies (%s to %s); using the middle one, %s (choose with --frequency)\n",
                      path.c_str(), n, format_frequency(s.frequencies.front().frequency_hz).c_str(),
                      format_frequency(s.frequencies.back().frequency_hz).c_str(),

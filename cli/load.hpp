@@ -77,14 +77,19 @@ Result<PreparedLoad> prepare_load(const std::string& arg, const LoadOptions& o);
 // mounting or the options', the phase centres, a moved phase reference); progress goes to stderr
 // on a terminal for long loads, and a map file found beside the file is named there.
 Result<FarFieldSet> load_pattern(const std::string& arg, const LoadOptions& o);
+// The refusal of cut-only data (Sampling::cuts) for a whole-sphere `figure` ("a map"), naming
+// the file and the cuts; load_pattern applies it with LoadOptions::whole_sphere_figure, the
+// Python module to a pattern it already holds.
+Status refuse_cuts(const FarFieldSet& s, const std::string& path, const std::string& figure);
 
 // The one rule for the frequency of a command whose output holds one frequency (cut, map,
 // probe, coverage, fading, rank, render; docs/guide.md, "Which frequency"): the one asked for
 // (nearest within 0.5 %; an Error lists what the file holds when none matches), else the only
 // one, else the middle one of the file's list (of an even count the lower of the two middle
 // ones), named in a note on stderr. Commands whose output holds every frequency (info, band,
-// diversity, report, convert, gain-transfer) use them all instead.
+// diversity, report, convert, gain-transfer) use them all instead. The Python module passes
+// note=false (it returns the frequency used instead of printing it).
 Result<std::size_t> pick_frequency(const FarFieldSet& s, const std::optional<double>& frequency_hz,
-                                   const std::string& path);
+                                   const std::string& path, bool note = true);
 
 }  // namespace ellipsa::cli

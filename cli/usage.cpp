@@ -135,16 +135,18 @@ void refuse_non_finite(CLI::App& app) {
     for (CLI::App* sub : app.get_subcommands([](CLI::App*) { return true; })) refuse_non_finite(*sub);
 }
 
+std::string not_one_of(const std::vector<std::string>& names, const std::string& s) {
+    if (std::find(names.begin(), names.end(), s) != names.end()) return {};
+    std::string msg = "expected one of " + quoted_list(names, " or ") + ", found " + text::quote_found(s);
+    if (auto near = closest_names(s, names); !near.empty()) msg += "; did you mean " + quoted_list(near, " or ") + "?";
+    return msg;
+}
+
 CLI::Validator one_of(std::vector<std::string> names) {
     std::string description;
     for (const std::string& n : names) description += (description.empty() ? "{" : ",") + n;
     return CLI::Validator(
-        [names](std::string& s) -> std::string {
-            if (std::find(names.begin(), names.end(), s) != names.end()) return {};
-            std::string msg = "expected one of " + quoted_list(names, " or ") + ", found " + text::quote_found(s);
-            if (auto near = closest_names(s, names); !near.empty()) msg += "; did you mean " + quoted_list(near, " or ") + "?";
-            return msg;
-        },
+        [names](std::string& s) -> std::string { return not_one_of(names, s); },
         description + "}");
 }
 

@@ -31,6 +31,9 @@ void refuse_non_finite(CLI::App& app);
 // One of `names` (exact): the description "{a,b,c}" puts the choices in --help, the manual pages
 // and the completions (cli/cli_docs.hpp); a wrong value gets the closest names as suggestions.
 CLI::Validator one_of(std::vector<std::string> names);
+// What one_of says of `s` (empty when `s` is one of `names`), for callers that check a choice
+// outside CLI11 (the Python module) and must say the same.
+std::string not_one_of(const std::vector<std::string>& names, const std::string& s);
 
 // The items with `sep` between them.
 std::string join(const std::vector<std::string>& items, const std::string& sep);

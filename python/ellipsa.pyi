@@ -67,6 +67,14 @@ class Pattern:
                   step_deg: Optional[float] = None, style: Literal["polar", "rect"] = "polar", range_db: float = 40.0,
                   title: str = "", size_px: Tuple[int, int] = (1200, 900), dpi: float = 150.0,
                   force: bool = False) -> None: ...
+    def map(self, show: str = "total", *, minus: Optional[Pattern] = None, projection: str = "hammer",
+            levels: Optional[Sequence[float]] = None, bar: Optional[Tuple[float, float]] = None, range_db: float = 40.0,
+            colormap: str = "viridis", frequency_hz: Optional[float] = None) -> dict[str, Any]: ...
+    def write_map(self, path: str, show: str = "total", *, minus: Optional[Pattern] = None, projection: str = "hammer",
+                  levels: Optional[Sequence[float]] = None, bar: Optional[Tuple[float, float]] = None,
+                  range_db: float = 40.0, colormap: str = "viridis", frequency_hz: Optional[float] = None,
+                  title: str = "", size_px: Tuple[int, int] = (1200, 720), dpi: float = 150.0,
+                  force: bool = False) -> None: ...
     def write(self, path: str, *, family: Optional[str] = None, force: bool = False) -> None: ...
     @staticmethod
     def from_arrays(theta_deg: npt.ArrayLike, phi_deg: npt.ArrayLike, e_theta: npt.ArrayLike,
@@ -81,6 +89,29 @@ def read(path: str, *, map: OptionText = None, map_file: Optional[str] = None, a
 def synth(kind: str, *, length_wl: float = 0.5, circumference_wl: float = 1.0, phase_deg: float = -90.0,
           rotate_deg: Tuple[float, float, float] = (0.0, 0.0, 0.0), step_deg: float = 1.0,
           frequency_hz: float = 2.45e9) -> Pattern: ...
+
+def coverage(patterns: Sequence[Pattern], *, components: Optional[Sequence[str]] = None,
+             levels_db: Sequence[float] = (0.0, -3.0, -6.0, -10.0), horizon_deg: Optional[float] = None,
+             elevation_deg: Optional[Tuple[float, float]] = None,
+             frequency_hz: Optional[float] = None) -> dict[str, Any]: ...
+def write_coverage(path: str, patterns: Sequence[Pattern], *, components: Optional[Sequence[str]] = None,
+                   levels_db: Sequence[float] = (0.0, -3.0, -6.0, -10.0), horizon_deg: Optional[float] = None,
+                   elevation_deg: Optional[Tuple[float, float]] = None, frequency_hz: Optional[float] = None,
+                   title: str = "", size_px: Tuple[int, int] = (1200, 900), dpi: float = 150.0,
+                   force: bool = False) -> None: ...
+
+def band(patterns: Sequence[Pattern], *, environments: Sequence[str] = ("uniform",),
+         direction_deg: Optional[Tuple[float, float]] = None, ar_threshold_db: float = 3.0,
+         pair: bool = False) -> dict[str, Any]: ...
+def write_band(path: str, patterns: Sequence[Pattern], *, show: Optional[Sequence[str]] = None,
+               environments: Sequence[str] = ("uniform",), direction_deg: Optional[Tuple[float, float]] = None,
+               ar_threshold_db: float = 3.0, pair: bool = False, title: str = "",
+               size_px: Tuple[int, int] = (1200, 900), dpi: float = 150.0, force: bool = False) -> None: ...
+
+def write_report(path: str, patterns: Sequence[Pattern], *, frequency_hz: Optional[float] = None,
+                 title: str = "Antenna pattern report", size_px: Tuple[int, int] = (1200, 900), dpi: float = 150.0,
+                 range_db: float = 40.0, style: Literal["polar", "rect"] = "polar",
+                 environment: Optional[Environment] = None, force: bool = False) -> None: ...
 
 class Environment:
     """A multipath environment: incoming vertical and horizontal power densities and their XPR."""
@@ -112,3 +143,8 @@ def fading(patterns: Sequence[Pattern], environment: Environment, *, indices: Se
            realisations: int = 100000, seed: int = 1, waves: int = 100,
            outages: Sequence[float] = (0.01, 0.1, 0.5), random_tilt_max_deg: Optional[float] = None,
            dominant: Optional[Mapping[str, Any]] = None, threads: int = 1, cdf_points: int = 200) -> dict[str, Any]: ...
+def rank(candidates: Sequence[Pattern], environments: Optional[Sequence[Environment]] = None, *,
+         reference: Optional[Pattern] = None, score: Literal["mounted", "random", "worst"] = "mounted",
+         outage: float = 0.01, tilt_step_deg: float = 15.0, tilt_max_deg: float = 180.0, roll_step_deg: float = 15.0,
+         orientations: bool = True, frequency_hz: Optional[float] = None,
+         threads: Optional[int] = None) -> dict[str, Any]: ...

@@ -22,6 +22,12 @@ std::size_t frequency_index(const Pattern& p, int index, const std::optional<dou
     return std::size_t(index);
 }
 
+exports::RenderSize render_size(const std::array<int, 2>& size_px, double dpi) {
+    auto r = exports::parse_size(std::to_string(size_px[0]) + "x" + std::to_string(size_px[1]), dpi);
+    if (!r) throw py::value_error((r.error().file == "--dpi" ? "dpi: " : "size_px: ") + r.error().message);
+    return *r;
+}
+
 Component component_named(const std::string& name) {
     Component c;
     if (parse_component(name.c_str(), c)) return c;

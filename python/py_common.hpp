@@ -1,6 +1,7 @@
 // Shared pieces of the Python module: the Pattern object, errors as Python exceptions, numpy views
 // of the core's arrays and the conversions every binding file uses.
 #pragma once
+#include <array>
 #include <memory>
 #include <optional>
 #include <string>
@@ -10,6 +11,7 @@
 #include <pybind11/pybind11.h>
 #include <pybind11/stl.h>
 
+#include "exports/render.hpp"
 #include "pattern/components.hpp"
 #include "pattern/environment.hpp"
 #include "pattern/far_field.hpp"
@@ -70,6 +72,10 @@ Component component_named(const std::string& name);
 // Raise ellipsa.Error when the set cannot give the component (the core's reason).
 void check_component(const Pattern& p, Component c);
 
+// A figure's size as the command line's --size WIDTHxHEIGHT and --dpi check it (exports/render.hpp),
+// else ValueError naming size_px or dpi with the command's message.
+exports::RenderSize render_size(const std::array<int, 2>& size_px, double dpi);
+
 // Optional values as Python None.
 inline py::object opt(const std::optional<double>& v) { return v ? py::object(py::float_(*v)) : py::none(); }
 inline py::object opt(const std::optional<std::string>& v) { return v ? py::object(py::str(*v)) : py::none(); }
@@ -79,5 +85,8 @@ void bind_pattern(py::module_& m);
 void bind_figures(py::module_& m);
 void bind_diversity(py::module_& m);
 void bind_fading(py::module_& m);
+void bind_band(py::module_& m);
+void bind_map(py::module_& m);
+void bind_report(py::module_& m);
 
 }  // namespace ellipsa::python

@@ -2,9 +2,13 @@
 // sweep, ECC, the diversity study (pattern/diversity_study), exact two-branch combining
 // (pattern/combining) and the random-field simulation (pattern/fading). Key names follow the
 // command line's JSON; distributions and per-outage values are numpy arrays.
+#include <algorithm>
 #include <cmath>
+#include <thread>
 
 #include "cli/environment_options.hpp"
+#include "cli/load.hpp"
+#include "cli/rank_json.hpp"
 #include "pattern/diversity_study.hpp"
 #include "pattern/fading.hpp"
 #include "python/py_common.hpp"
@@ -193,6 +197,64 @@ py::dict diversity(const std::vector<PatternPtr>& patterns, const PyEnvironment&
     return d;
 }
 
+// The environments of a ranking: the ones given, else every preset (as `ellipsa rank` without
+// --environment).
+std::vector<ChosenEnvironment> rank_environments(const std::optional<std::vector<PyEnvironment>>& given) {
+    std::vector<ChosenEnvironment> envs;
+    if (given) {
+        if (given->empty()) throw py::value_error("environments: expected at least one ellipsa.Environment");
+        for (const PyEnvironment& e : *given) envs.push_back(e.chosen);
+        return envs;
+    }
+    for (const EnvironmentPreset& p : environment_presets()) {
+        cli::EnvironmentOptions o;
+        o.environment = p.name;
+        envs.push_back(std::get<ChosenEnvironment>(cli::chosen_environment(o)));
+    }
+    return envs;
+}
+
+// One pattern of a ranking at the frequency the command would use (cli::pick_frequency).
+RankCandidate rank_candidate(const Pattern& p, const std::optional<double>& frequency_hz) {
+    const std::string name = p.path.empty() ? label_of(p.set) : p.path;
+    check(cli::refuse_cuts(p.set, name, "ranking (MEG in each environment)"));
+    return {&p.set, p.path, take(cli::pick_frequency(p.set, frequency_hz, name, false))};
+}
+
+// The ranking as `ellipsa rank --json` prints it (cli/rank_json.hpp, the same code): the candidates
+// in every environment against the reference (default: the lossless vertical half-wave dipole on
+// the first candidate's grid).
+py::dict rank(const std::vector<PatternPtr>& candidates, const std::optional<std::vector<PyEnvironment>>& environments,
+              const std::optional<PatternPtr>& reference, const std::string& score, double outage, double tilt_step_deg,
+              double tilt_max_deg, double roll_step_deg, bool orientations, std::optional<double> frequency_hz,
+              std::optional<int> threads) {
+    if (candidates.empty()) throw py::value_error("candidates: expected at least one ellipsa.Pattern");
+    RankOptions o;
+    if (auto bad = cli::rank_score_problem(score, o.score)) throw py::value_error("score: " + *bad);
+    o.outage = outage, o.sweep = {tilt_step_deg, tilt_max_deg, roll_step_deg}, o.orientations = orientations;
+    o.threads = threads.value_or(int(std::clamp(std::thread::hardware_concurrency(), 1u, 4u)));
+    check(validate(o));
+    const std::vector<ChosenEnvironment> envs = rank_environments(environments);
+    std::vector<RankCandidate> cands;
+    for (const PatternPtr& p : candidates) cands.push_back(rank_candidate(*p, frequency_hz));
+    FarFieldSet dipole;
+    RankCandidate ref{&dipole, "reference dipole", 0};
+    std::string label = reference_dipole_description;
+    if (reference && *reference) {
+        ref = rank_candidate(**reference, frequency_hz);
+        label = (*reference)->path.empty() ? label_of((*reference)->set) : (*reference)->path;
+    } else {
+        dipole = reference_dipole(cands[0].set->grid, cands[0].set->frequencies[cands[0].freq_index].frequency_hz);
+    }
+    Result<cli::RankRun> r = Error{};
+    {
+        py::gil_scoped_release unlocked;
+        r = cli::rank_run(cands, ref, label, envs, o);
+    }
+    const cli::RankRun run = take(std::move(r));
+    return py::module_::import("json").attr("loads")(cli::rank_json(envs, cands, run.ranking, run.labels));
+}
+
 }  // namespace
 
 void bind_diversity(py::module_& m) {
@@ -242,6 +304,17 @@ void bind_diversity(py::module_& m) {
           py::arg("x"), py::arg("g1"), py::arg("g2"), py::arg("rho"),
           "P(|a1|^2 + |a2|^2 <= x) for correlated Rayleigh branches, exact (maximal-ratio combining).");
     bind_fading(m);
+    m.def("rank", &rank, py::arg("candidates"), py::arg("environments") = py::none(), py::kw_only(),
+          py::arg("reference") = py::none(), py::arg("score") = "mounted", py::arg("outage") = 0.01,
+          py::arg("tilt_step_deg") = 15.0, py::arg("tilt_max_deg") = 180.0, py::arg("roll_step_deg") = 15.0,
+          py::arg("orientations") = true, py::arg("frequency_hz") = py::none(), py::arg("threads") = py::none(),
+          "The ranking `ellipsa rank --json` prints (the same code): every candidate in every environment (MEG, its\n"
+          "V and H parts, orientation statistics, fading levels at the outage as mounted and with random\n"
+          "orientation), its advantage over the reference (default: a lossless vertical half-wave dipole on the\n"
+          "first candidate's grid) and the score (\"mounted\", \"random\" or \"worst\": the mean advantage over the\n"
+          "environments, dB), rows sorted best first. environments: default every preset. frequency_hz: of every\n"
+          "pattern (nearest within 0.5 %; default the middle one of each, as the command line). The result does\n"
+          "not depend on threads (default: up to 4).");
 }
 
 }  // namespace ellipsa::python

@@ -1,9 +1,13 @@
-// Pattern.info(), Pattern.summary() (the figures of `ellipsa info`, through the command's own JSON)
-// and Pattern.cut() (the core's cuts and beam figures).
+// Pattern.info(), Pattern.summary() (the figures of `ellipsa info`, through the command's own JSON),
+// Pattern.cut() (the core's cuts and beam figures) and coverage() (`ellipsa coverage`, through the
+// command's own code, cli/coverage_json.hpp).
+#include "cli/coverage_json.hpp"
 #include "cli/info_json.hpp"
+#include "cli/load.hpp"
 #include "exports/cut_export.hpp"
 #include "exports/cut_figure.hpp"
 #include "exports/figure_text.hpp"
+#include "io/atomic_write.hpp"
 #include "pattern/summary.hpp"
 #include "python/py_common.hpp"
 
@@ -105,10 +109,8 @@ void write_cut(const Pattern& p, const std::string& path, std::optional<double> 
     for (const std::string& c : components) r.components.push_back(component_named(c));
     if (!exports::parse_plot_style(style, r.figure.style)) throw py::value_error("style: expected \"polar\" or \"rect\"");
     if (!(range_db > 0 && range_db <= 200)) throw py::value_error("range_db: expected 0 < range_db <= 200");
-    if (!(size_px[0] >= 16 && size_px[1] >= 16 && size_px[0] <= 10000 && size_px[1] <= 10000 && dpi >= 10 && dpi <= 2400))
-        throw py::value_error("size_px: expected 16..10000 pixels each way, dpi 10..2400");
     r.figure.range_db = range_db, r.figure.title = title;
-    r.size = {size_px[0], size_px[1], dpi};
+    r.size = render_size(size_px, dpi);
     r.step_deg = step_deg.value_or(0);
     Result<exports::CutData> done = Error{};
     {
@@ -116,6 +118,69 @@ void write_cut(const Pattern& p, const std::string& path, std::optional<double> 
         done = exports::export_cut(p.set, fi, r, path, force);
     }
     take(std::move(done));
+}
+
+// One or two patterns' coverage as `ellipsa coverage` computes it: B at A's frequency.
+struct CoverageRun {
+    std::vector<const FarFieldSet*> sets;
+    std::vector<std::string> names;  // the pattern's name, else its file, as the command names it
+    std::vector<std::size_t> freq;
+    exports::CoverageRequest request;
+    std::vector<exports::CoverageSeries> series;
+};
+
+CoverageRun coverage_run(const std::vector<PatternPtr>& patterns, const std::optional<std::vector<std::string>>& components,
+                         const std::vector<double>& levels_db, std::optional<double> horizon_deg,
+                         std::optional<std::pair<double, double>> elevation_deg, std::optional<double> frequency_hz) {
+    if (patterns.empty() || patterns.size() > 2) throw py::value_error("patterns: expected one pattern, or two for the best of both");
+    CoverageRun run;
+    for (const PatternPtr& p : patterns) {
+        if (!p) throw py::value_error("patterns: expected ellipsa.Pattern objects");
+        const std::string file = p->path.empty() ? label_of(p->set) : p->path;
+        check(cli::refuse_cuts(p->set, file, "coverage of the sphere"));
+        run.sets.push_back(&p->set);
+        run.names.push_back(p->set.name.empty() ? file : p->set.name);
+        run.freq.push_back(run.freq.empty() ? take(cli::pick_frequency(p->set, frequency_hz, file, false))
+                                            : take(cli::coverage_frequency(p->set, run.sets[0]->frequencies[run.freq[0]].frequency_hz, file)));
+    }
+    run.request.levels_db = levels_db;
+    run.request.band = take(cli::coverage_band(horizon_deg, elevation_deg));
+    run.request.components.clear();  // none: the defaults, as the command's
+    if (components)
+        for (const std::string& c : *components) run.request.components.push_back(component_named(c));
+    Result<std::vector<exports::CoverageSeries>> series = Error{};
+    {
+        py::gil_scoped_release unlocked;
+        series = cli::coverage_of(run.sets, run.names, run.freq, run.request);
+    }
+    run.series = take(std::move(series));
+    return run;
+}
+
+py::dict coverage(const std::vector<PatternPtr>& patterns, const std::optional<std::vector<std::string>>& components,
+                  const std::vector<double>& levels_db, std::optional<double> horizon_deg,
+                  std::optional<std::pair<double, double>> elevation_deg, std::optional<double> frequency_hz) {
+    const CoverageRun r = coverage_run(patterns, components, levels_db, horizon_deg, elevation_deg, frequency_hz);
+    const double f_hz = r.sets[0]->frequencies[r.freq[0]].frequency_hz;
+    return py::module_::import("json").attr("loads")(cli::coverage_json(r.series, r.request, f_hz, r.sets));
+}
+
+void write_coverage(const std::string& path, const std::vector<PatternPtr>& patterns,
+                    const std::optional<std::vector<std::string>>& components, const std::vector<double>& levels_db,
+                    std::optional<double> horizon_deg, std::optional<std::pair<double, double>> elevation_deg,
+                    std::optional<double> frequency_hz, const std::string& title, std::array<int, 2> size_px, double dpi,
+                    bool force) {
+    const exports::RenderSize size = render_size(size_px, dpi);
+    CoverageRun r = coverage_run(patterns, components, levels_db, horizon_deg, elevation_deg, frequency_hz);
+    r.request.title = title;
+    const double f_hz = r.sets[0]->frequencies[r.freq[0]].frequency_hz;
+    Status done = Ok{};
+    {
+        py::gil_scoped_release unlocked;
+        auto bytes = cli::coverage_file(path, r.series, r.request, f_hz, r.sets, size);
+        done = bytes ? io::write_file_atomically(path, *bytes, force) : Status(bytes.error());
+    }
+    check(done);
 }
 
 }  // namespace
@@ -149,6 +214,24 @@ void bind_figures(py::module_& m) {
           "Write one cut as `ellipsa cut --out` does: a figure (.svg, .pdf, .png; style \"polar\" or \"rect\",\n"
           "range_db below the top) or the plotted values (.csv), chosen by the file name. The cut as in cut().\n"
           "An existing file is replaced only with force=True.");
+    m.def("coverage", &coverage, py::arg("patterns"), py::kw_only(), py::arg("components") = py::none(),
+          py::arg("levels_db") = std::vector<double>{0, -3, -6, -10}, py::arg("horizon_deg") = py::none(),
+          py::arg("elevation_deg") = py::none(), py::arg("frequency_hz") = py::none(),
+          "The share of the sphere, or of an elevation band, where each component is at least each level, as\n"
+          "`ellipsa coverage --out NAME.json` writes it (the same code): one pattern, or two for A, B and the best\n"
+          "of both in every direction (B at A's frequency; frequency_hz nearest within 0.5 %, default the middle\n"
+          "one of A's, as the command line). components: names (default: total, vertical,\n"
+          "horizontal, and rhcp, lhcp with phase; for two patterns total); horizon_deg: within that many degrees\n"
+          "of the horizon; elevation_deg=(min, max). Returns frequency_hz, mountings, band and series (each with\n"
+          "label, component, pattern, unit, sampled_share and at_levels [{level_db, share}]).");
+    m.def("write_coverage", &write_coverage, py::arg("path"), py::arg("patterns"), py::kw_only(),
+          py::arg("components") = py::none(), py::arg("levels_db") = std::vector<double>{0, -3, -6, -10},
+          py::arg("horizon_deg") = py::none(), py::arg("elevation_deg") = py::none(),
+          py::arg("frequency_hz") = py::none(), py::arg("title") = "", py::arg("size_px") = std::array<int, 2>{1200, 900},
+          py::arg("dpi") = 150.0, py::arg("force") = false,
+          "Write the coverage as `ellipsa coverage --out` does, chosen by the file name: the curves as a figure\n"
+          "(.svg, .png, .pdf), their values (.csv, 0.1 dB steps) or the figures of coverage() (.json). The\n"
+          "patterns and options as in coverage(). An existing file is replaced only with force=True.");
 }
 
 }  // namespace ellipsa::python

@@ -89,6 +89,58 @@ def test_fading_is_the_cli_and_matches_meg(cli_json):
     assert lo - 0.05 <= meg <= hi + 0.05
 
 
+def test_rank_is_the_cli_rank(cli_json):
+    # Two demo antennas in two environments against the default reference dipole: the dict is
+    # what `ellipsa rank --json` prints (the same code, cli/rank_json.cpp), compared key by key.
+    a, b = str(EXAMPLES / "printed-dipole.csv"), str(EXAMPLES / "turnstile.csv")
+    envs = [ellipsa.environment("uniform"), ellipsa.environment("indoor")]
+    r = ellipsa.rank([ellipsa.read(a), ellipsa.read(b)], envs, frequency_hz=2.45e9, tilt_step_deg=30,
+                     roll_step_deg=30, threads=2)
+    j = cli_json("rank", a, b, "--environment", "uniform,indoor", "--frequency", "2.45e9", "--tilt-step", "30",
+                 "--roll-step", "30")
+    assert r.keys() == j.keys()
+    for key in j:
+        assert r[key] == j[key], key
+    # Taga 1990: in the uniform environment with XPR 0 dB the MEG is half the radiation efficiency,
+    # for the lossless reference dipole -3.01 dBi.
+    assert r["reference"]["environments"]["uniform"]["meg_db"] == pytest.approx(IDEAL_MEG_DB, abs=0.01)
+    # The rows are sorted best first by the score, the mean advantage over the environments.
+    scores = [row["score_db"] for row in r["rows"]]
+    assert scores == sorted(scores, reverse=True)
+    for row in r["rows"]:
+        parts = [e["score_part_db"] for e in row["environments"].values()]
+        assert row["score_db"] == pytest.approx(sum(parts) / len(parts), abs=1e-9)
+
+
+def test_rank_defaults_and_reference_as_the_cli(cli_json):
+    # No environments: every preset; no frequency: the middle one of each file; a pattern as the
+    # reference is named by its file, as --reference FILE.
+    a, ref = str(EXAMPLES / "small-loop.csv"), str(EXAMPLES / "printed-dipole.csv")
+    r = ellipsa.rank([ellipsa.read(a)], reference=ellipsa.read(ref), orientations=False, outage=0.1)
+    j = cli_json("rank", a, "--reference", ref, "--no-orientations", "--outage", "0.1")
+    assert r == j
+    assert [e["environment"]["name"] for e in r["environment_list"]] == [
+        p["name"] for p in ellipsa.environment_presets()]
+
+
+@pytest.mark.parametrize("kwargs,args,option", [
+    ({"score": "best"}, ["--score", "best"], "score"),
+    ({"outage": 1.5}, ["--outage", "1.5"], None),
+    ({"score": "worst", "orientations": False}, ["--score", "worst", "--no-orientations"], None),
+])
+def test_rank_refusals_as_the_cli(cli, kwargs, args, option):
+    # Bad arguments raise ValueError with the command line's message (after the option's name).
+    a = str(EXAMPLES / "printed-dipole.csv")
+    code, _, err = cli("rank", a, *args)
+    assert code == 2
+    message = err.strip().removeprefix("ellipsa rank: ")
+    if option:
+        message = message.removeprefix("--" + option + ": ")
+    with pytest.raises(ValueError) as e:
+        ellipsa.rank([ellipsa.read(a)], [ellipsa.environment("uniform")], **kwargs)
+    assert str(e.value) == (option + ": " if option else "") + message
+
+
 def test_environment_refusals_as_the_cli(tmp_path, cli):
     with pytest.raises(ValueError, match="xpr"):
         ellipsa.environment("indoor", xpr_db="lots")

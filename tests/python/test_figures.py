@@ -1,4 +1,5 @@
 """Summary figures and cuts against published closed-form values and the command line's JSON."""
+import json
 import math
 
 import numpy as np
@@ -161,3 +162,183 @@ def test_peak_and_largest_sample():
     assert r["peak_sample_db"] == pytest.approx(10 * math.log10(np.max(p.power("total"))), abs=1e-12)
     assert r["peak_db"] >= r["peak_sample_db"]
     assert r["peak_db"] == pytest.approx(2.15, abs=0.01)
+
+
+def same_as_cli(got, want):
+    """Key by key, so a difference names its key."""
+    assert got.keys() == want.keys()
+    for key in want:
+        assert got[key] == want[key], key
+
+
+def test_coverage_is_the_cli_coverage(tmp_path, cli):
+    # One pattern with its default components, and two with the best of both near the horizon:
+    # the dict is the JSON `ellipsa coverage --out NAME.json` writes (the same code).
+    a, b = str(EXAMPLES / "printed-dipole.csv"), str(EXAMPLES / "small-loop.csv")
+    out = tmp_path / "one.json"
+    code, _, err = cli("coverage", a, "--frequency", "2.45e9", "--levels", "0,-3", "--out", out)
+    assert code == 0, err
+    pa, pb = ellipsa.read(a), ellipsa.read(b)
+    same_as_cli(ellipsa.coverage([pa], frequency_hz=2.45e9, levels_db=[0, -3]), json.loads(out.read_text()))
+    out = tmp_path / "two.json"
+    code, _, err = cli("coverage", a, b, "--horizon", "30", "--out", out)
+    assert code == 0, err
+    got = ellipsa.coverage([pa, pb], horizon_deg=30)  # no frequency: the middle one of A's, as the CLI
+    same_as_cli(got, json.loads(out.read_text()))
+    assert [s["pattern"] for s in got["series"]] == ["A", "B", "best of both"]
+    # The same curves as a CSV file, byte for byte as the command writes it; refused without force.
+    mine, theirs = tmp_path / "mine.csv", tmp_path / "theirs.csv"
+    ellipsa.write_coverage(str(mine), [pa, pb], frequency_hz=2.45e9, horizon_deg=30)
+    code, _, err = cli("coverage", a, b, "--frequency", "2.45e9", "--horizon", "30", "--out", theirs)
+    assert code == 0, err
+    assert mine.read_bytes() == theirs.read_bytes()
+    with pytest.raises(ellipsa.Error, match="already exists"):
+        ellipsa.write_coverage(str(mine), [pa, pb], frequency_hz=2.45e9, horizon_deg=30)
+    ellipsa.write_coverage(str(tmp_path / "c.svg"), [pa], components=["total"], size_px=(400, 300))
+    assert (tmp_path / "c.svg").read_text().startswith("<?xml")
+
+
+def test_coverage_refusals_as_the_cli(cli):
+    a = str(EXAMPLES / "printed-dipole.csv")
+    code, _, err = cli("coverage", a, "--horizon", "120")
+    assert code == 2
+    with pytest.raises(ValueError) as e:
+        ellipsa.coverage([ellipsa.read(a)], horizon_deg=120)
+    assert str(e.value) == err.strip().removeprefix("ellipsa coverage: ")
+    with pytest.raises(ValueError, match="not both"):
+        ellipsa.coverage([ellipsa.read(a)], horizon_deg=10, elevation_deg=(0, 10))
+    with pytest.raises(ValueError, match="size_px"):
+        ellipsa.write_coverage("never.svg", [ellipsa.read(a)], size_px=(5, 5))
+
+
+def test_coverage_of_a_short_dipole():
+    # Balanis sec. 4.2: G = 1.5 sin^2 t; G >= 1 (0 dBi) on the zone |cos t| <= 1/sqrt 3, whose share
+    # of the sphere is 1/sqrt 3 = 0.5774 (by hand). A 5-degree grid gives it to 0.001 (docs/views.md).
+    c = ellipsa.coverage([ellipsa.synth("short-dipole", step_deg=5)], components=["total"], levels_db=[0])
+    assert c["series"][0]["at_levels"][0]["share"] == pytest.approx(1 / math.sqrt(3), abs=1e-3)
+
+
+def test_band_is_the_cli_band(tmp_path, cli):
+    # Two demo antennas over their band with the pair figures: the dict is the JSON
+    # `ellipsa band --out NAME.json` writes (the same code), compared key by key.
+    a, b = str(EXAMPLES / "printed-dipole.csv"), str(EXAMPLES / "turnstile.csv")
+    out = tmp_path / "band.json"
+    code, _, err = cli("band", a, b, "--pair", "--environment", "uniform,indoor", "--direction", "30,45", "--out", out)
+    assert code == 0, err
+    pa, pb = ellipsa.read(a), ellipsa.read(b)
+    got = ellipsa.band([pa, pb], environments=["uniform", "indoor"], direction_deg=(30, 45), pair=True)
+    same_as_cli(got, json.loads(out.read_text()))
+    # Taga 1990: in the uniform environment (XPR 0 dB) MEG is half the radiation efficiency.
+    for f in got["patterns"][0]["frequencies"]:
+        assert f["meg_db"]["uniform"] == pytest.approx(10 * math.log10(f["radiation_efficiency"] / 2), abs=0.02)
+    # The CSV as the command writes it, byte for byte; a plot with chosen panels.
+    mine, theirs = tmp_path / "mine.csv", tmp_path / "theirs.csv"
+    ellipsa.write_band(str(mine), [pb])
+    code, _, err = cli("band", b, "--out", theirs)
+    assert code == 0, err
+    assert mine.read_bytes() == theirs.read_bytes()
+    ellipsa.write_band(str(tmp_path / "b.svg"), [pb], show=["gain", "axial-ratio"], size_px=(600, 400))
+    assert (tmp_path / "b.svg").read_text().startswith("<?xml")
+    with pytest.raises(ellipsa.Error, match="already exists"):
+        ellipsa.write_band(str(mine), [pb])
+
+
+@pytest.mark.parametrize("kwargs,args", [
+    ({"environments": ["uniform", "nowhere"]}, ["--environment", "uniform,nowhere"]),
+    ({"direction_deg": (200, 0)}, ["--direction", "200,0"]),
+    ({"ar_threshold_db": -1}, ["--ar-threshold", "-1"]),
+    ({"pair": True}, ["--pair"]),
+])
+def test_band_refusals_as_the_cli(tmp_path, cli, kwargs, args):
+    # Bad arguments raise ValueError with the command line's message.
+    a = str(EXAMPLES / "turnstile.csv")
+    code, _, err = cli("band", a, *args, "--out", tmp_path / "x.json")
+    assert code == 2
+    with pytest.raises(ValueError) as e:
+        ellipsa.band([ellipsa.read(a)], **kwargs)
+    assert str(e.value) == err.strip().removeprefix("ellipsa band: ")
+
+
+def test_map_is_the_cli_map(tmp_path, cli):
+    # The mapped values are the column of `ellipsa map --out NAME.csv` (the same code), sample by
+    # sample; the CSV and the figure are the command's bytes.
+    a, b = str(EXAMPLES / "turnstile.csv"), str(EXAMPLES / "printed-dipole.csv")
+    p = ellipsa.read(a)
+    for show, extra in (("rhcp", []), ("axial-ratio", ["--projection", "az-el"])):
+        out = tmp_path / f"{show}.csv"
+        code, _, err = cli("map", a, "--show", show, *extra, "--out", out)
+        assert code == 0, err
+        rows = np.genfromtxt(out, delimiter=",", names=True)
+        m = p.map(show, projection="az-el" if extra else "hammer")
+        assert m["quantity"] == rows.dtype.names[-1]
+        assert np.array_equal(m["values"].ravel(), rows[m["quantity"]], equal_nan=True), show
+        assert np.array_equal(np.repeat(m["theta_deg"], m["phi_deg"].size), rows["theta_deg"])
+        mine = tmp_path / f"mine-{show}.csv"
+        p.write_map(str(mine), show, projection="az-el" if extra else "hammer")
+        assert mine.read_bytes() == out.read_bytes()
+    # Conventions (docs/conventions.md): an ideal turnstile is right-hand circular toward the zenith,
+    # axial ratio 0 dB there.
+    ar = p.map("axial-ratio")
+    assert ar["unit"] == "dB" and ar["values"][0, 0] == pytest.approx(0.0, abs=0.01)
+    # A minus B, in dB, and the figure as the command draws it (PNG: cairo numbers SVG ids per
+    # process, so an SVG depends on what the process drew before).
+    d = p.map("total", minus=ellipsa.read(b), levels=[0], bar=(-10, 10))
+    assert d["bar"] == (-10.0, 10.0) and list(d["contour_levels"]) == [0.0]
+    mine, theirs = tmp_path / "mine.png", tmp_path / "theirs.png"
+    p.write_map(str(mine), "total", minus=ellipsa.read(b), levels=[0], bar=(-10, 10), size_px=(600, 360))
+    code, _, err = cli("map", a, "--minus", b, "--levels", "0", "--bar", "-10,10", "--size", "600x360", "--out", theirs)
+    assert code == 0, err
+    assert mine.read_bytes() == theirs.read_bytes()
+    with pytest.raises(ellipsa.Error, match="already exists"):
+        p.write_map(str(mine))
+
+
+@pytest.mark.parametrize("kwargs,args", [
+    ({"show": "gain"}, ["--show", "gain"]),
+    ({"projection": "mercator"}, ["--projection", "mercator"]),
+    ({"show": "tilt", "minus": "B"}, ["--show", "tilt", "--minus", "B"]),
+    ({"bar": (3, 1)}, ["--bar", "3,1"]),
+    ({"range_db": 0.5}, ["--range", "0.5"]),
+])
+def test_map_refusals_as_the_cli(tmp_path, cli, kwargs, args):
+    # Bad arguments raise ValueError with the command line's message.
+    a = str(EXAMPLES / "turnstile.csv")
+    args = [str(EXAMPLES / "printed-dipole.csv") if x == "B" else x for x in args]
+    if kwargs.get("minus") == "B":
+        kwargs = dict(kwargs, minus=ellipsa.read(str(EXAMPLES / "printed-dipole.csv")))
+    code, _, err = cli("map", a, *args, "--out", tmp_path / "x.csv")
+    assert code == 2
+    with pytest.raises(ValueError) as e:
+        ellipsa.read(a).map(**kwargs)
+    assert str(e.value).splitlines()[0] == err.strip().removeprefix("ellipsa map: ").removeprefix("ellipsa: ").splitlines()[0]
+
+
+def test_report_is_the_cli_report(tmp_path, cli):
+    # The folder `ellipsa report --out` writes (the same code): the same files but the 3D views
+    # (the module links no GL), the same data files byte for byte, the same text but the date
+    # line and the 3D views' place; refused without force, as the command.
+    a = str(EXAMPLES / "turnstile.csv")
+    theirs, mine = tmp_path / "cli", tmp_path / "py"
+    code, _, err = cli("report", a, "--frequency", "2.45e9", "--style", "rect", "--environment", "indoor", "--out", theirs)
+    assert code == 0, err
+    p = ellipsa.read(a)
+    ellipsa.write_report(str(mine), [p], frequency_hz=2.45e9, style="rect", environment=ellipsa.environment("indoor"))
+    cli_files = {f.name for f in theirs.iterdir()}
+    py_files = {f.name for f in mine.iterdir()}
+    views = {n for n in cli_files - py_files if n.endswith(".png") and "3d" in n}
+    assert py_files == cli_files - views
+    for name in py_files:
+        if name.endswith(".csv"):
+            assert (mine / name).read_bytes() == (theirs / name).read_bytes(), name
+
+    def text(folder):
+        return [line for line in (folder / "report.md").read_text().splitlines()
+                if line and "UTC" not in line and "3D" not in line and "3d" not in line]
+
+    assert text(mine) == text(theirs)
+    assert "MEG" in (mine / "report.md").read_text()
+    with pytest.raises(ellipsa.Error, match="exists"):
+        ellipsa.write_report(str(mine), [p])
+    ellipsa.write_report(str(mine), [p], frequency_hz=2.45e9, force=True)
+    with pytest.raises(ValueError, match="style"):
+        ellipsa.write_report(str(tmp_path / "x"), [p], style="round")
