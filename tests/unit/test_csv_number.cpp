@@ -13,8 +13,10 @@
 #include <string>
 
 #include "importers/csv_number.hpp"
+#include "importers/far_field_csv.hpp"
 
 using namespace ellipsa::csv;
+using ellipsa::parse_far_field_csv;
 
 namespace {
 
@@ -139,4 +141,47 @@ TEST_CASE("number cells: digits at the end of a row, with no cell after them", "
         CHECK(q == row.data() + t.size());
         CHECK(bits(v) == bits(want));
     }
+}
+
+// The reader finds an angle or frequency text again when the row before had it (one compare of
+// the text and its delimiter): texts that only begin alike ("1" then "10", "10" then "100") or
+// spell one value in other ways ("10", "10.0", "1e1", "010") must each read as themselves. The
+// same field written with plain texts in the usual column order is the reference (values
+// compared bit for bit).
+TEST_CASE("angle cells: texts alike at the start, or one value spelled several ways, read as themselves", "[csv][number]") {
+    auto field = [](int t, int p, int f) { return std::sin(0.1 * t + 0.01 * p) + 0.001 * (t * 37 + p) + f; };
+    auto spell = [](int v, std::mt19937_64& rng) {
+        static const char* const forms[5] = {"%d.0", "%.1fe1", "0%d", "%d", "%d"};
+        const int which = int(rng() % 5);
+        char t[32];
+        if (which == 1) std::snprintf(t, sizeof t, forms[1], v / 10.0);
+        else std::snprintf(t, sizeof t, forms[which], v);
+        return std::string(t);
+    };
+    std::mt19937_64 rng(7);
+    std::string plain = "frequency,theta,phi,e_theta_re,e_theta_im,e_phi_re,e_phi_im\n";
+    std::string varied = "frequency,e_theta_re,e_theta_im,phi,e_phi_re,e_phi_im,theta\n";
+    char b[300];
+    for (int f = 1; f <= 2; ++f)
+        for (int p = 0; p < 360; p += 10)
+            for (int t = 0; t <= 180; t += 10) {
+                const double v = field(t, p, f);
+                std::snprintf(b, sizeof b, "%d,%d,%d,%.17g,0,%.17g,0\n", f, t, p, v, -v);
+                plain += b;
+                const std::string fs = f == 1 ? (rng() % 2 ? "1" : "1.0") : "2";
+                std::snprintf(b, sizeof b, "%s,%.17g,0,%s,%.17g,0,%s\n", fs.c_str(), v, spell(p, rng).c_str(), -v,
+                              spell(t, rng).c_str());
+                varied += b;
+            }
+    const auto a = parse_far_field_csv(plain, "plain.csv"), c = parse_far_field_csv(varied, "varied.csv");
+    REQUIRE(a);
+    REQUIRE(c);
+    REQUIRE(a->frequencies.size() == 2);
+    REQUIRE(c->frequencies.size() == 2);
+    REQUIRE(c->grid.size() == a->grid.size());
+    for (std::size_t k = 0; k < 2; ++k)
+        for (std::size_t i = 0; i < a->grid.size(); ++i) {
+            REQUIRE(bits(c->frequencies[k].e_theta[i].real()) == bits(a->frequencies[k].e_theta[i].real()));
+            REQUIRE(bits(c->frequencies[k].e_phi[i].real()) == bits(a->frequencies[k].e_phi[i].real()));
+        }
 }
