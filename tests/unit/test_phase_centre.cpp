@@ -202,3 +202,35 @@ TEST_CASE("moving the phase reference: explicit point and the estimate", "[phase
     s.frequencies[0].frequency_hz = 0;
     CHECK(!install_pattern(s, q));
 }
+
+TEST_CASE("a second estimate of the same samples is the first one; a changed sample is estimated afresh", "[phase_centre]") {
+    // Loading estimates every phase centre (for interpolation) and info prints them again: the
+    // second asking finds the first estimate, and only for exactly the same samples and grid.
+    ReferenceAntenna a;
+    a.kind = ReferenceKind::dipole;
+    FarFieldSet s = synthesize(a, 2.0, 1e9);
+    displace(s, {0.5, 0, 0});
+    const auto first = estimate_phase_centre(s, 0), again = estimate_phase_centre(s, 0);
+    REQUIRE(first);
+    REQUIRE(again);
+    CHECK(again->centre_wl.x == first->centre_wl.x);
+    CHECK(again->residual_deg == first->residual_deg);
+    CHECK(again->samples == first->samples);
+    CHECK(first->centre_wl.x == Approx(0.5).margin(1e-9));
+    // Moved again: the estimate follows (not the one remembered).
+    displace(s, {0, 0, 1});
+    const auto moved = estimate_phase_centre(s, 0);
+    REQUIRE(moved);
+    CHECK(moved->centre_wl.x == Approx(0.5).margin(1e-9));
+    CHECK(moved->centre_wl.z == Approx(1).margin(1e-9));
+    CHECK(moved->residual_deg < 1e-6);
+    // One sample of the beam turned by a radian: a residual appears, so it was estimated afresh.
+    FarField& f = s.frequencies[0];
+    std::size_t peak = 0;
+    for (std::size_t k = 0; k < f.e_theta.size(); ++k)
+        if (std::norm(f.e_theta[k]) > std::norm(f.e_theta[peak])) peak = k;
+    f.e_theta[peak] *= std::polar(1.0, 1.0);
+    const auto spoiled = estimate_phase_centre(s, 0);
+    REQUIRE(spoiled);
+    CHECK(spoiled->residual_deg > 1e-3);
+}
