@@ -1,5 +1,6 @@
 // What `ellipsa band` computes and writes (cli/band_json.hpp).
 #include "cli/band_json.hpp"
+#include "cli/usage.hpp"
 
 #include <cmath>
 #include <cstdio>
@@ -102,6 +103,8 @@ std::string band_json(const std::vector<std::string>& files, const BandRun& run,
     return j.str() + "\n";
 }
 
+CLI::Validator band_direction_check() { return number_pair({"THETA", 0, 180}, {"PHI", -360, 360}, "degrees"); }
+
 Result<BandRequest> band_request(const BandChoices& a, std::size_t nfiles) {
     if (!std::isfinite(a.ar_threshold_db) || a.ar_threshold_db <= 0)
         return Error{"", 0, 0, "--ar-threshold: expected a positive number of dB"};
@@ -112,12 +115,10 @@ Result<BandRequest> band_request(const BandChoices& a, std::size_t nfiles) {
     r.options.environments = *envs;
     r.options.ar_threshold_db = a.ar_threshold_db;
     if (!a.direction.empty()) {
-        double t = 0, p = 0;
-        char extra = 0;
-        if (std::sscanf(a.direction.c_str(), "%lf,%lf%c", &t, &p, &extra) != 2 || !std::isfinite(t) || !std::isfinite(p) ||
-            t < 0 || t > 180)
-            return Error{"", 0, 0, "--direction: expected THETA,PHI in degrees (theta 0..180), found \"" + a.direction + "\""};
-        r.options.direction_deg = std::make_pair(t, p);
+        std::string text = a.direction;
+        const std::string bad = band_direction_check()(text);
+        if (!bad.empty()) return Error{"", 0, 0, "--direction: " + bad};
+        r.options.direction_deg = read_number_pair(a.direction);
     }
     if (a.pair && nfiles < 2) return Error{"", 0, 0, "--pair needs two pattern files"};
     if (!a.show.empty()) {

@@ -5,6 +5,8 @@
 #include <string>
 #include <vector>
 
+#include <CLI/CLI.hpp>
+
 #include "exports/band_figure.hpp"
 #include "exports/render.hpp"
 #include "pattern/far_field.hpp"
@@ -19,6 +21,9 @@ struct BandChoices {
     double ar_threshold_db = ellipsa::ar_threshold_db;
     bool pair = false;
 };
+// The check of --direction (THETA,PHI in degrees, THETA 0..180, PHI -360..360): on the option and
+// in band_request (the Python module does not pass through the command line).
+CLI::Validator band_direction_check();
 // The request, or an Error whose message is the command's usage message (naming its option).
 Result<exports::BandRequest> band_request(const BandChoices& c, std::size_t patterns);
 

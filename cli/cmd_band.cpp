@@ -84,7 +84,9 @@ Registered add_band(CLI::App& root) {
                     "ecc, diversity-gain (default gain,efficiency,axial-ratio,hpbw; ecc added with --pair)");
     sub->add_option("--environment", a->choices.environments,
                     "Environments for MEG and ECC, comma-separated presets: uniform, indoor, urban, rural (default uniform)");
-    sub->add_option("--direction", a->choices.direction, "Also read the axial ratio at THETA,PHI (deg) at every frequency");
+    sub->add_option("--direction", a->choices.direction, "Also read the axial ratio at THETA,PHI (deg) at every frequency")
+        ->check(band_direction_check())
+        ->type_name("THETA,PHI");
     sub->add_option("--ar-threshold", a->choices.ar_threshold_db, "Axial-ratio limit of the AR beamwidth, dB (default 3)");
     sub->add_flag("--pair", a->choices.pair, "ECC and diversity gain between the first two files at their shared frequencies");
     sub->add_option("--title", a->choices.title, "Figure title (default: the pattern's name)");

@@ -9,6 +9,7 @@
 #include <memory>
 #include <optional>
 #include <thread>
+#include <tuple>
 
 #include "cli/commands.hpp"
 #include "cli/usage.hpp"
@@ -17,6 +18,8 @@
 #include "cli/format.hpp"
 #include "cli/json.hpp"
 #include "cli/load.hpp"
+#include "cli/number_list.hpp"
+#include "importers/text.hpp"
 #include "exports/fading_figure.hpp"
 #include "exports/render.hpp"
 #include "io/atomic_write.hpp"
@@ -52,8 +55,9 @@ int fail(int code, const std::string& msg) {
 
 std::string letter(std::size_t i) { return std::string(1, char('A' + i % 26)); }
 
-// "10" (linear) or "10dB" / "10 dB".
-bool parse_k_factor(std::string text, double& k) {
+// "10" (linear, from 0 to max_k_factor) or "10dB" / "10 dB" (a finite number of dB within that range);
+// nullopt for anything else (a sign on a linear ratio included).
+std::optional<double> parse_k_factor(std::string text) {
     bool db = false;
     for (const char* suffix : {"dB", "db"}) {
         const std::size_t at = text.rfind(suffix);
@@ -62,12 +66,23 @@ bool parse_k_factor(std::string text, double& k) {
             db = true;
         }
     }
-    char* end = nullptr;
-    const double v = std::strtod(text.c_str(), &end);
-    while (end && *end == ' ') ++end;
-    if (text.empty() || !end || *end != 0 || !std::isfinite(v)) return false;
-    k = db ? std::pow(10.0, v / 10) : v;
-    return k >= 0;
+    while (!text.empty() && text.back() == ' ') text.pop_back();
+    const auto v = parse_number_list(text);
+    if (!v || v->size() != 1 || (!db && text.find_first_of("+-") != std::string::npos)) return std::nullopt;
+    const double k = db ? std::pow(10.0, v->front() / 10) : v->front();
+    if (!(k >= 0 && k <= max_k_factor)) return std::nullopt;
+    return k;
+}
+
+// The --k-factor check while parsing (exit 2, the usage hint).
+CLI::Validator k_factor_check() {
+    return CLI::Validator(
+        [](std::string& s) -> std::string {
+            if (parse_k_factor(s)) return {};
+            return "expected a linear power ratio from 0 to " + text::number(max_k_factor) + " or the same in dB (up to " +
+                   text::number(10 * std::log10(max_k_factor)) + "dB, e.g. 10dB), found " + text::quote_found(s);
+        },
+        "");
 }
 
 // The dominant wave the options describe (nullopt: none). Usage errors as UsageError, a partner
@@ -79,15 +94,8 @@ std::variant<std::optional<DominantWave>, UsageError, Error> dominant_wave(const
     if (!a.polarisation.empty() && !a.partner.empty())
         return UsageError{"--polarisation and --partner both set the dominant wave's polarisation; give one"};
     DominantWave d;
-    if (!parse_k_factor(a.k_factor, d.k_factor))
-        return UsageError{"--k-factor: expected a number >= 0 (linear) or a number of dB such as 10dB, found \"" + a.k_factor + "\""};
-    if (!a.dominant.empty()) {
-        char extra = 0;
-        if (std::sscanf(a.dominant.c_str(), "%lf,%lf%c", &d.theta_deg, &d.phi_deg, &extra) != 2 ||
-            !std::isfinite(d.theta_deg) || !std::isfinite(d.phi_deg) || d.theta_deg < 0 || d.theta_deg > 180)
-            return UsageError{"--dominant: expected THETA,PHI in degrees (theta 0..180: 0 is the zenith, 90 the horizon), found \"" +
-                              a.dominant + "\""};
-    }
+    d.k_factor = parse_k_factor(a.k_factor).value_or(0);  // checked while parsing (k_factor_check)
+    if (!a.dominant.empty()) std::tie(d.theta_deg, d.phi_deg) = read_number_pair(a.dominant);  // checked while parsing
     if (!a.partner.empty()) {
         auto p = load_pattern(a.partner, a.load);
         if (!p) return p.error();
@@ -99,9 +107,7 @@ std::variant<std::optional<DominantWave>, UsageError, Error> dominant_wave(const
         return std::optional<DominantWave>(d);
     }
     WavePolarisation pol = WavePolarisation::vertical;
-    if (!a.polarisation.empty() && !parse_wave_polarisation(a.polarisation, pol))
-        return UsageError{"--polarisation: expected vertical, horizontal, slant+45, slant-45, rhcp or lhcp, found \"" +
-                          a.polarisation + "\""};
+    if (!a.polarisation.empty()) parse_wave_polarisation(a.polarisation, pol);  // checked while parsing (one_of)
     d.field = incoming_field(pol, d.theta_deg, d.phi_deg);
     return std::optional<DominantWave>(d);
 }
@@ -364,8 +370,11 @@ Registered add_fading(CLI::App& root) {
     sub->add_option("--outage", a->sim.outages, "Outage probabilities, comma-separated fractions (default 0.01,0.1,0.5)")
         ->delimiter(',');
     add_frequency_option(sub, a->frequency_hz, "Use this frequency of every file (nearest within 0.5 %; default the middle one of each)");
-    sub->add_option("--dominant", a->dominant, "Add a dominant (Rician) wave from THETA,PHI, deg (default 90,0: the horizon)");
-    sub->add_option("--k-factor", a->k_factor, "Its K-factor: dominant over diffuse power, linear or in dB (\"10dB\")");
+    sub->add_option("--dominant", a->dominant, "Add a dominant (Rician) wave from THETA,PHI, deg (default 90,0: the horizon)")
+        ->check(number_pair({"THETA", 0, 180}, {"PHI", -360, 360}, "degrees"))
+        ->type_name("THETA,PHI");
+    sub->add_option("--k-factor", a->k_factor, "Its K-factor: dominant over diffuse power, linear or in dB (\"10dB\")")
+        ->check(k_factor_check());
     sub->add_option("--polarisation", a->polarisation, "Its polarisation (default vertical)")
         ->check(one_of(names_of(all_wave_polarisations)));
     sub->add_option("--partner", a->partner,

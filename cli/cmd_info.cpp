@@ -35,13 +35,29 @@ std::string grid_line(const Grid& g) {
     return buf;
 }
 
-void write_human(const std::string& path, const FarFieldSet& s, const std::vector<std::size_t>& which,
+// The files read for one FILE argument: its path and the files it joins ("co.csv + cross.csv",
+// as the merge names them in the set's source).
+std::string files_read(const std::string& arg, const LoadOptions& o) {
+    auto p = prepare_load(arg, o);
+    if (!p) return file_path(arg);
+    std::string out = p->path;
+    for (const std::string& j : p->join) out += " + " + j;
+    return out;
+}
+
+// The header: the files read, then the pattern's name (a file without one is named by its path
+// when read, which the header need not repeat), then the source unless it is that list of files.
+void write_header(const std::string& files, const std::string& path, const FarFieldSet& s) {
+    std::cout << files << ": " << (s.name.empty() || s.name == path ? "(no name)" : s.name) << "\n";
+    if (!s.source.empty() && s.source != files) std::cout << "  source       " << s.source << "\n";
+}
+
+void write_human(const std::string& files, const std::string& path, const FarFieldSet& s, const std::vector<std::size_t>& which,
                  const std::vector<PatternSummary>& rs) {
     const std::vector<InfoExtras> extras = info_extras(s, which, rs);
     const char* q = to_string(s.quantity);
     const char* u = db_unit(s.quantity, Component::total);
-    std::cout << path << ": " << (s.name.empty() ? "(no name)" : s.name) << "\n";
-    if (!s.source.empty()) std::cout << "  source       " << s.source << "\n";
+    write_header(files, path, s);
     std::cout << "  quantity     " << q
               << (s.quantity == Quantity::gain          ? " (absolute, includes radiation efficiency)"
                   : s.quantity == Quantity::directivity ? " (lossless)"
@@ -129,7 +145,7 @@ Registered add_info(CLI::App& root) {
                 if (a->json)
                     std::cout << info_json(*s, which, rs) << "\n";
                 else
-                    write_human(a->file, *s, which, rs);
+                    write_human(files_read(a->file, a->load), file_path(a->file), *s, which, rs);
                 return exit_ok;
             }};
 }

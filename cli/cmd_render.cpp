@@ -4,6 +4,8 @@
 #include <iostream>
 #include <memory>
 #include <optional>
+#include <cstdio>
+#include <tuple>
 
 #include "cli/commands.hpp"
 #include "cli/usage.hpp"
@@ -26,17 +28,10 @@ struct RenderArgs {
     LoadOptions load;
 };
 
-bool parse_pair(const std::string& s, char sep, double& a, double& b) {
-    const auto k = s.find(sep);
-    if (k == std::string::npos) return false;
-    try {
-        std::size_t n1 = 0, n2 = 0;
-        a = std::stod(s.substr(0, k), &n1);
-        b = std::stod(s.substr(k + 1), &n2);
-        return n1 == k && n2 == s.size() - k - 1;
-    } catch (...) {
-        return false;
-    }
+// "WxH" in whole pixels from 64 to 8192 (the headless renderer's limits).
+bool parse_size(const std::string& s, int& w, int& h) {
+    char tail = 0;
+    return std::sscanf(s.c_str(), "%5dx%5d%c", &w, &h, &tail) == 2 && w >= 64 && h >= 64 && w <= 8192 && h <= 8192;
 }
 
 // The surface the view shows (viewer/scene/surface_mesh), written as glTF binary or PLY.
@@ -62,7 +57,9 @@ Registered add_render(CLI::App& root) {
         ->check(one_of(names_of(all_components)));
     sub->add_option("--color-by", a->color_by, "Colour by (default component)")
         ->check(one_of(names_of(viewer::all_color_by, +[](viewer::ColorBy c) { return c != viewer::ColorBy::difference; })));
-    sub->add_option("--view", a->view, "Eye direction AZ,EL in degrees (azimuth from +x toward +y, elevation above xy; default 35,22)");
+    sub->add_option("--view", a->view, "Eye direction AZ,EL in degrees (azimuth from +x toward +y, elevation above xy; default 35,22)")
+        ->check(number_pair({"AZ", -360, 360}, {"EL", -90, 90}, "degrees"))
+        ->type_name("AZ,EL");
     sub->add_option("--size", a->size, "Image size WxH in pixels (default 1200x900)");
     add_frequency_option(sub, a->frequency_hz, "Frequency (nearest within 0.5 %; default the middle one of the file)");
     sub->add_option("--range", a->range_db, "Dynamic range below the peak shown by the radius, dB (default 30)")
@@ -76,34 +73,18 @@ Registered add_render(CLI::App& root) {
     a->load.whole_sphere_figure = "a 3D view";
     return {sub, [a]() -> int {
                 viewer::SnapshotOptions o;
-                if (!parse_component(a->component.c_str(), o.component)) {
-                    std::cerr << "ellipsa render: unknown --component '" << a->component << "'\n";
+                // The names were checked while parsing (one_of: the lists in --help).
+                parse_component(a->component.c_str(), o.component);
+                viewer::parse_color_by(a->color_by, o.color_by);
+                viewer::parse_color_map(a->map, o.gain_map);
+                if (!a->view.empty()) std::tie(o.view_azimuth_deg, o.view_elevation_deg) = read_number_pair(a->view);
+                int w = 0, h = 0;
+                if (!parse_size(a->size, w, h)) {
+                    std::cerr << "ellipsa render: --size: expected WxH in whole pixels, each from 64 to 8192 (e.g. 1200x900), found \""
+                              << a->size << "\"\n";
                     return exit_usage;
                 }
-                if (!viewer::parse_color_by(a->color_by, o.color_by) || o.color_by == viewer::ColorBy::difference) {
-                    std::cerr << "ellipsa render: unknown --color-by '" << a->color_by
-                              << "' (expected component, axial-ratio, rhcp-minus-lhcp or tilt)\n";
-                    return exit_usage;
-                }
-                if (!viewer::parse_color_map(a->map, o.gain_map) || !viewer::is_sequential(o.gain_map)) {
-                    std::cerr << "ellipsa render: --colormap expects viridis, cividis or magma, found '" << a->map << "'\n";
-                    return exit_usage;
-                }
-                if (!a->view.empty() && !parse_pair(a->view, ',', o.view_azimuth_deg, o.view_elevation_deg)) {
-                    std::cerr << "ellipsa render: --view expects AZ,EL in degrees, e.g. 35,22; found '" << a->view << "'\n";
-                    return exit_usage;
-                }
-                if (o.view_elevation_deg < -90 || o.view_elevation_deg > 90) {
-                    std::cerr << "ellipsa render: --view elevation must lie in [-90, 90], found " << o.view_elevation_deg << "\n";
-                    return exit_usage;
-                }
-                double w = 0, h = 0;
-                if (!parse_pair(a->size, 'x', w, h) || w != int(w) || h != int(h) || w < 64 || h < 64 || w > 8192 || h > 8192) {
-                    std::cerr << "ellipsa render: --size expects WxH in pixels between 64 and 8192, e.g. 1200x900; found '"
-                              << a->size << "'\n";
-                    return exit_usage;
-                }
-                o.width = int(w), o.height = int(h);
+                o.width = w, o.height = h;
                 o.range_db = a->range_db;
                 o.glyphs = a->glyphs;
                 o.software = a->software;

@@ -11,6 +11,7 @@
 #include "viewer/scene/components.hpp"
 #include "viewer/state/app_state.hpp"
 #include <iterator>
+#include <tuple>
 #include <optional>
 #include <cmath>
 #include <cstdio>
@@ -34,12 +35,6 @@ struct ViewArgs {
     std::string tab;
     std::string browse;
 };
-
-// "A,B" with two finite numbers (sscanf alone takes "nan" and "inf").
-bool parse_pair(const std::string& s, double& a, double& b) {
-    char tail = 0;
-    return std::sscanf(s.c_str(), "%lf,%lf%c", &a, &b, &tail) == 2 && std::isfinite(a) && std::isfinite(b);
-}
 
 // The first of the files a scripted run would write that is already there (a dangling link counts).
 std::string existing_output(const ViewArgs& a) {
@@ -94,10 +89,16 @@ void add_view_options(CLI::App* sub, ViewArgs& a) {
         ->check(one_of(names_of(all_components)));
     sub->add_option("--color-by", a.color_by, "Start with this colouring")->check(one_of(names_of(viewer::all_color_by)));
     sub->add_option("--compare", a.compare, "Start comparing with FILE number N (1-based) as B");
-    sub->add_option("--pin", a.pin, "Start with THETA,PHI (deg) pinned, and the cut through it");
-    sub->add_option("--view", a.view, "Start looking from AZ,EL (deg)");
+    sub->add_option("--pin", a.pin, "Start with THETA,PHI (deg) pinned, and the cut through it")
+        ->check(number_pair({"THETA", 0, 180}, {"PHI", -360, 360}, "degrees"))
+        ->type_name("THETA,PHI");
+    sub->add_option("--view", a.view, "Start looking from AZ,EL (deg)")
+        ->check(number_pair({"AZ", -360, 360}, {"EL", -90, 90}, "degrees"))
+        ->type_name("AZ,EL");
     sub->add_flag("--wireframe", a.wireframe, "Start with the wireframe on");
-    sub->add_option("--cursor", a.cursor, "With --frames: hold the mouse pointer at X,Y window pixels (probe screenshots)");
+    sub->add_option("--cursor", a.cursor, "With --frames: hold the mouse pointer at X,Y window pixels (probe screenshots)")
+        ->check(number_pair({"X", 0, 16384}, {"Y", 0, 16384}, "window pixels"))
+        ->type_name("X,Y");
     sub->add_option("--export-view", a.export_view, "With --frames: export the 3D view of the last frame as PNG (as Ctrl+E)")
         ->type_name("FILE");
     sub->add_option("--export-cut", a.export_cut, "With --frames: write the cut of the last frame (.svg, .png, .pdf or .csv)")
@@ -142,16 +143,6 @@ int window_options(const ViewArgs& a, viewer::ViewerOptions& o) {
 // The names of the starting component and colouring, and what a scripted run writes besides the
 // screenshot.
 int look_and_exports(const ViewArgs& a, viewer::ViewerOptions& o) {
-    ellipsa::Component c;
-    if (!a.component.empty() && !parse_component(a.component.c_str(), c)) {
-        std::cerr << "ellipsa view: unknown --component '" << a.component << "'\n";
-        return exit_usage;
-    }
-    viewer::ColorBy cb;
-    if (!a.color_by.empty() && !viewer::parse_color_by(a.color_by, cb)) {
-        std::cerr << "ellipsa view: unknown --color-by '" << a.color_by << "'\n";
-        return exit_usage;
-    }
     if (!a.export_cut.empty() && a.frames == 0) {
         std::cerr << "ellipsa view: --export-cut needs --frames N (the cut of the last frame is written)\n";
         return exit_usage;
@@ -159,10 +150,11 @@ int look_and_exports(const ViewArgs& a, viewer::ViewerOptions& o) {
     o.export_cut = a.export_cut;
     o.export_view = a.export_view;
     if (!a.cursor.empty()) {
-        if (a.frames == 0 || !parse_pair(a.cursor, o.cursor_x, o.cursor_y)) {
-            std::cerr << "ellipsa view: --cursor expects X,Y in pixels and needs --frames N, found '" << a.cursor << "'\n";
+        if (a.frames == 0) {
+            std::cerr << "ellipsa view: --cursor needs --frames N\n";
             return exit_usage;
         }
+        std::tie(o.cursor_x, o.cursor_y) = read_number_pair(a.cursor);
         o.has_cursor = true;
     }
     if (!a.export_view.empty() && a.frames == 0) {
@@ -195,17 +187,11 @@ int start_state(const ViewArgs& a, viewer::ViewerOptions& o) {
     o.tab = a.tab;
     o.browse = a.browse;
     if (!a.pin.empty()) {
-        if (!parse_pair(a.pin, o.pin_theta_deg, o.pin_phi_deg) || o.pin_theta_deg < 0 || o.pin_theta_deg > 180) {
-            std::cerr << "ellipsa view: --pin expects THETA,PHI in degrees (finite) with THETA in [0, 180], found '" << a.pin << "'\n";
-            return exit_usage;
-        }
+        std::tie(o.pin_theta_deg, o.pin_phi_deg) = read_number_pair(a.pin);  // checked while parsing
         o.has_pin = true;
     }
     if (!a.view.empty()) {
-        if (!parse_pair(a.view, o.view_azimuth_deg, o.view_elevation_deg) || std::abs(o.view_elevation_deg) > 90) {
-            std::cerr << "ellipsa view: --view expects AZ,EL in degrees with EL in [-90, 90], found '" << a.view << "'\n";
-            return exit_usage;
-        }
+        std::tie(o.view_azimuth_deg, o.view_elevation_deg) = read_number_pair(a.view);
         o.has_view = true;
     }
     return exit_ok;

@@ -5,8 +5,19 @@
 
 #include "cli/usage.hpp"
 #include "importers/elevation_profile_csv.hpp"
+#include "importers/text.hpp"
 
 namespace ellipsa::cli {
+
+namespace {
+// Why `s` is no XPR (empty when it is one): the one message of the option and of the Python module.
+std::string xpr_problem(const std::string& s) {
+    double db;
+    if (parse_xpr_db(s, db)) return {};
+    return "expected a number of dB from " + text::number(-max_finite_xpr_db) + " to " + text::number(max_finite_xpr_db) +
+           ", inf or -inf, found " + text::quote_found(s);
+}
+}  // namespace
 
 void add_environment_options(CLI::App* sub, EnvironmentOptions& o) {
     std::string presets;
@@ -14,7 +25,8 @@ void add_environment_options(CLI::App* sub, EnvironmentOptions& o) {
     sub->add_option("--environment", o.environment,
                     "uniform (default), gaussian (give all four angles), a preset (" + presets +
                         "; angle options override its values) or profile (with --profile)");
-    sub->add_option("--xpr", o.xpr, "Vertical-to-horizontal power ratio, dB (inf: vertical only)");
+    sub->add_option("--xpr", o.xpr, "Vertical-to-horizontal power ratio, dB (inf: vertical only)")
+        ->check(CLI::Validator([](std::string& s) { return xpr_problem(s); }, ""));
     sub->add_option("--v-mean", o.v_mean, "Gaussian: mean elevation of the vertical part, deg above the horizon");
     sub->add_option("--v-spread", o.v_spread, "Gaussian: spread of the vertical part, deg");
     sub->add_option("--h-mean", o.h_mean, "Gaussian: mean elevation of the horizontal part, deg");
@@ -34,7 +46,7 @@ bool parse_xpr_db(const std::string& s, double& db) {
     if (s == "-inf" || s == "-infinity") return db = -INFINITY, true;
     char* end = nullptr;
     db = std::strtod(s.c_str(), &end);
-    return !s.empty() && end == s.c_str() + s.size() && std::isfinite(db);
+    return !s.empty() && end == s.c_str() + s.size() && std::isfinite(db) && std::abs(db) <= max_finite_xpr_db;
 }
 
 std::variant<ChosenEnvironment, UsageError, Error> chosen_environment(const EnvironmentOptions& o) {
@@ -46,7 +58,7 @@ std::variant<ChosenEnvironment, UsageError, Error> chosen_environment(const Envi
     c.h_spread_deg = o.h_spread;
     if (!o.xpr.empty()) {
         double db;
-        if (!parse_xpr_db(o.xpr, db)) return UsageError{"--xpr: expected a number of dB, inf or -inf, found \"" + o.xpr + "\""};
+        if (!parse_xpr_db(o.xpr, db)) return UsageError{"--xpr: " + xpr_problem(o.xpr)};
         c.xpr_db = db;
     }
     if (c.model == "profile" && o.profile.empty())

@@ -19,6 +19,15 @@ std::vector<CommandEntry>& command_registry() {
 }
 }  // namespace ellipsa::cli
 
+namespace {
+// "ellipsa cut" when the error came from a command's options, else "ellipsa".
+std::string help_command(const CLI::App& app) {
+    for (const CLI::App* sub : app.get_subcommands([](const CLI::App* s) { return s->parsed(); }))
+        return "ellipsa " + sub->get_name();
+    return "ellipsa";
+}
+}  // namespace
+
 int main(int argc, char** argv) {
     CLI::App app{"ellipsa: read far-field patterns, decompose their polarisation, score them for multipath links"};
     app.name("ellipsa");
@@ -43,7 +52,7 @@ int main(int argc, char** argv) {
     } catch (const CLI::ParseError& e) {
         std::stringstream lines(usage_message(app, e));
         for (std::string line; std::getline(lines, line);) std::cerr << "ellipsa: " << line << "\n";
-        std::cerr << "Run 'ellipsa --help' (or 'ellipsa COMMAND --help') for usage.\n";
+        std::cerr << "Run '" << help_command(app) << " --help' for usage.\n";
         return exit_usage;
     }
     if (!docs_dir.empty()) return write_cli_documents(app, docs_dir);

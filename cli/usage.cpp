@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <cmath>
 
+#include "cli/number_list.hpp"
 #include "importers/text.hpp"
 
 namespace ellipsa::cli {
@@ -121,6 +122,26 @@ CLI::Validator positive_number() {
 
 CLI::Validator finite_number() {
     return number_check("", [](double) { return true; }, "a finite number");
+}
+
+CLI::Validator number_pair(const PairPart& first, const PairPart& second, const std::string& unit) {
+    const std::string expected = first.name + "," + second.name + (unit.empty() ? "" : " in " + unit) + ", " + first.name + " from " +
+                                 plain(first.lo) + " to " + plain(first.hi) + " and " + second.name + " from " + plain(second.lo) +
+                                 " to " + plain(second.hi);
+    return CLI::Validator(
+        [first, second, expected](std::string& s) -> std::string {
+            const auto v = parse_number_list(s);
+            const auto within = [](const PairPart& p, double x) { return x >= p.lo && x <= p.hi; };
+            if (v && v->size() == 2 && within(first, (*v)[0]) && within(second, (*v)[1])) return {};
+            return "expected " + expected + ", found " + text::quote_found(s);
+        },
+        "");
+}
+
+std::pair<double, double> read_number_pair(const std::string& text) {
+    const auto v = parse_number_list(text);
+    if (!v || v->size() != 2) return {0.0, 0.0};  // number_pair() let nothing else through
+    return {(*v)[0], (*v)[1]};
 }
 
 std::string join(const std::vector<std::string>& items, const std::string& sep) {

@@ -24,6 +24,20 @@ CLI::Validator number_from_to(double lo, double hi);
 CLI::Validator positive_number();
 CLI::Validator finite_number();
 
+// One number of a pair as its message names it ("THETA") and the range it must lie in.
+struct PairPart {
+    std::string name;
+    double lo, hi;
+};
+
+// "A,B" (cli/number_list.hpp): two finite numbers, each within its range, and nothing else;
+// a wrong text gets "expected THETA,PHI in degrees, THETA from 0 to 180 and PHI from -360 to 360,
+// found ...". Sets the option's type name in --help to "A,B". `unit` may be empty.
+CLI::Validator number_pair(const PairPart& first, const PairPart& second, const std::string& unit);
+
+// The two numbers of a text number_pair() accepted.
+std::pair<double, double> read_number_pair(const std::string& text);
+
 // Adds finite_number() to every option of `app` and its subcommands whose values are plain
 // FLOATs without a check of their own, so no command takes "nan", "inf" or "1e400" for a number.
 void refuse_non_finite(CLI::App& app);

@@ -46,6 +46,12 @@ struct ProfilePoint {
     double p_h = 0;            // horizontal (phi) part, relative, >= 0
 };
 
+// The largest finite XPR a user gives, dB: beyond 160 dB the weaker weight 1/(1 + 10^(XPR/10)) is
+// below the double's resolution of 1 (2^-53, about -160 dB), so the weights equal those of inf; the
+// options (--xpr, the module's xpr_db) refuse a larger finite number as a mistake (give inf or
+// -inf). A profile table's own XPR may lie beyond it.
+constexpr double max_finite_xpr_db = 160;
+
 struct Environment {
     EnvironmentModel model = EnvironmentModel::uniform;
     std::string name = "uniform";  // preset name, or "custom"

@@ -455,7 +455,7 @@ Status validate(const FadingOptions& o, std::size_t antennas) {
         return fail("the largest tilt must lie in [0, 180] deg");
     if (o.dominant) {
         const DominantWave& d = *o.dominant;
-        if (!(d.k_factor >= 0) || !std::isfinite(d.k_factor) || d.k_factor > 1e6)
+        if (!(d.k_factor >= 0) || !std::isfinite(d.k_factor) || d.k_factor > max_k_factor)
             return fail("the K-factor must be a number from 0 to 1e6 (linear)");
         if (!std::isfinite(d.theta_deg) || d.theta_deg < 0 || d.theta_deg > 180 || !std::isfinite(d.phi_deg))
             return fail("the dominant wave's direction needs theta in [0, 180] deg and a finite phi");

@@ -58,6 +58,10 @@ CVec3 incoming_field(WavePolarisation p, double theta_deg, double phi_deg);
 // data without phase.
 Result<CVec3> partner_field(const FarFieldSet& partner, std::size_t freq_index, double theta_deg, double phi_deg);
 
+// The largest K-factor the study takes (linear; 60 dB): beyond it the diffuse part is below the
+// simulation's resolution and the link is no longer a fading one.
+constexpr double max_k_factor = 1e6;
+
 struct DominantWave {
     double theta_deg = 90, phi_deg = 0;  // where it arrives from, world frame
     CVec3 field{1, 0, 0};                // unit incoming field vector (incoming_field, partner_field)

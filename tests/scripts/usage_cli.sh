@@ -79,6 +79,63 @@ has 'ellipsa: --phase: expected a finite number, found "nan"' "... a finite numb
 expect_rc 2 "synth --rotate-x 1e400" "$E" synth dipole --rotate-x 1e400 --out x.csv
 expect_rc 2 "fading --outage 0.1,inf" "$E" fading d.csv --outage 0.1,inf
 
+# 6b. Options read by our own text parsers (pairs of angles, K-factor, XPR): finite, within their
+# documented range, refused while parsing (exit 2) naming the option, the value and what was expected.
+"$E" synth dipole --step 10 --frequency 2e9 --out d2.csv >/dev/null
+pair_refused() {  # LABEL EXPECTED CMD...: every bad pair below refused with EXPECTED
+  local label=$1 want=$2; shift 2
+  for v in 1e308,0 inf,0 -inf,0 nan,0 0,1e308 0,nan 1e400,0 181,0 -1,0 -0.5,0 0,400 10 10,20,30 10,x "" ,; do
+    expect_rc 2 "$label $v" "$@" "$v"
+    grep -qF -- "$want" err.txt && grep -qF -- "found \"$v\"" err.txt && ok "... names the option, what was expected and '$v'" \
+      || bad "... $label $v: $(head -c 300 err.txt)"
+  done
+}
+pair_refused "band --direction" '--direction: expected THETA,PHI in degrees, THETA from 0 to 180 and PHI from -360 to 360' \
+  "$E" band d.csv --out b.csv --direction
+pair_refused "fading --dominant" '--dominant: expected THETA,PHI in degrees, THETA from 0 to 180 and PHI from -360 to 360' \
+  "$E" fading d.csv --k-factor 10 --samples 1000 --dominant
+pair_refused "view --pin" '--pin: expected THETA,PHI in degrees, THETA from 0 to 180 and PHI from -360 to 360' \
+  "$E" view d.csv --frames 1 --pin
+for v in 1e308,0 inf,0 nan,0 0,91 0,-90.5 0,1e308 10 ""; do
+  for c in "view d.csv --frames 1" "render d.csv --out r.png"; do
+    read -ra args <<<"$c"
+    expect_rc 2 "$c --view $v" "$E" "${args[@]}" --view "$v"
+    has "--view: expected AZ,EL in degrees, AZ from -360 to 360 and EL from -90 to 90, found \"$v\"" "... AZ,EL named with its ranges"
+  done
+done
+for v in -1,0 0,1e308 nan,1 5; do
+  expect_rc 2 "view --cursor $v" "$E" view d.csv --frames 1 --cursor "$v"
+  has "--cursor: expected X,Y in window pixels, X from 0 to 16384 and Y from 0 to 16384, found \"$v\"" "... X,Y named"
+done
+expect_rc 0 "fading --dominant 90,-90 (a documented direction)" "$E" fading d.csv --k-factor 10 --samples 1000 --dominant 90,-90
+expect_rc 0 "band --direction 0,0" "$E" band d.csv d2.csv --direction 0,0 --out b0.csv
+for v in 1e308 inf nan -0 -1 +1 1e-400x 61dB 1e308dB infdB nandB "" dB; do
+  expect_rc 2 "fading --k-factor '$v'" "$E" fading d.csv --samples 1000 --k-factor "$v"
+  has "--k-factor: expected a linear power ratio from 0 to 1000000 or the same in dB (up to 60dB, e.g. 10dB), found \"$v\"" \
+    "... named with its range"
+done
+for v in 0 1e6 10dB "10 dB" -10dB 60dB; do
+  expect_rc 0 "fading --k-factor '$v'" "$E" fading d.csv --samples 1000 --k-factor "$v" --json
+done
+for v in 1e308 161 -160.5 nan NaN 1e400 "" 3dB; do
+  expect_rc 2 "diversity --xpr '$v'" "$E" diversity d.csv --xpr "$v"
+  has "--xpr: expected a number of dB from -160 to 160, inf or -inf, found \"$v\"" "... named with its range"
+done
+for v in inf -inf 160 -160 -0 6; do expect_rc 0 "diversity --xpr $v" "$E" diversity d.csv --xpr "$v"; done
+
+# 6c. The hint after a usage error names the command whose options were wrong.
+expect_rc 2 "cut --range 1" "$E" cut d.csv --phi 0 --range 1 --out c.csv
+has "Run 'ellipsa cut --help' for usage." "... the hint names cut"
+expect_rc 2 "fading --k-factor nan" "$E" fading d.csv --k-factor nan
+has "Run 'ellipsa fading --help' for usage." "... and fading (an error found after parsing)"
+expect_rc 2 "a mistyped command" "$E" infoo d.csv
+has "Run 'ellipsa --help' for usage." "... the root's help without a command"
+# 6d. render's names: one list (the one --help shows), one message.
+expect_rc 2 "render --color-by difference (a viewer-only colouring)" "$E" render d.csv --color-by difference --out r.png
+has "--color-by: expected one of 'component', 'axial-ratio', 'rhcp-minus-lhcp' or 'tilt', found \"difference\"" "... the list in --help"
+expect_rc 0 "render --help" "$E" render --help
+grep -qF "{component,axial-ratio,rhcp-minus-lhcp,tilt}" out.txt && ok "... --help lists the same names" || bad "render --help: $(grep color-by out.txt)"
+
 # 5. A multi-frequency file and no --frequency: the middle one, named on stderr (one rule).
 for f in 2.4e9 2.45e9 2.5e9; do "$E" synth dipole --step 5 --frequency $f --out "f$f.csv" >/dev/null; done
 { cat f2.4e9.csv; grep -v '^#' f2.45e9.csv | tail -n +2; grep -v '^#' f2.5e9.csv | tail -n +2; } > three.csv
