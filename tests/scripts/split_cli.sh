@@ -16,6 +16,13 @@ ref=$(figures sphere.csv)
 [[ "$(figures "e_theta.csv::join=e_phi.csv")" == "$ref" ]] && ok "E_theta and E_phi files give the figures of the one file" || bad "theta/phi merge differs"
 expect_rc 0 "info on a joined pair" "$E" info "co.csv::join=cross.csv"
 grep -q "co.csv: merged co-polar and cross-polar parts from 2 files: co.csv + cross.csv" err.txt && ok "... says what it merged" || bad "merge note: $(cat err.txt)"
+# The header names the files joined once, then the pattern's name (never the path again).
+name=$(sed -n 's/^# name: //p' co.csv)
+[[ "$(head -1 out.txt)" == "co.csv + cross.csv: ${name:-(no name)}" ]] && ok "... its header names both files once" || bad "header: $(head -2 out.txt)"
+grep -q "^  source       co.csv + cross.csv" out.txt && bad "... repeats the files as the source" || ok "... not repeated as the source"
+grep -v '^# name:' co.csv > unnamed.csv
+expect_rc 0 "info on a file without a name" "$E" info unnamed.csv
+[[ "$(head -1 out.txt)" == "unnamed.csv: (no name)" ]] && ok "... its path once" || bad "unnamed header: $(head -1 out.txt)"
 expect_rc 0 "info on one part alone" "$E" info co.csv
 grep -q "the co-polar part only (the other stored as zero)" out.txt && ok "... says it is one part" || bad "part line: $(grep data out.txt)"
 grep -q "polarisation at peak  unavailable (axial ratio, tilt and sense need the whole field, but the data hold its co-polar part only" out.txt \
