@@ -357,11 +357,10 @@ MapRaster map_raster(const MapPlot& p) {
 
 void draw_map_plot(cairo_t* cr, const MapPlot& p, double w, double h) {
     cairo_save(cr);
-    Pen pen = begin_page(cr, w, h);
-    const double u = pen.u, m = 16 * u;
-    const double top = draw_header(pen, p.title, p.subtitle, w, m) + 10 * u;
-    const Footnotes notes = wrap_footnotes(pen, p.notes, w - 2 * m);
-    const double bottom = h - m - notes.height - 30 * u;
+    TitledPage page = begin_titled_page(cr, w, h, p.title, p.subtitle, p.notes, 10, 30);
+    Pen& pen = page.pen;
+    const double u = pen.u, m = page.m, top = page.top, bottom = page.bottom;
+    const Footnotes& notes = page.notes;
     // The map keeps its 2:1 shape inside the space left of the colour bar.
     const double avail_w = w - 2 * m - 40 * u - 60 * u, avail_h = bottom - top;
     const double mw = std::min(avail_w, 2 * avail_h), mh = mw / 2;

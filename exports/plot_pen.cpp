@@ -94,4 +94,15 @@ void draw_footnotes(Pen& pen, const Footnotes& f, double x, double y) {
     }
 }
 
+TitledPage begin_titled_page(cairo_t* cr, double w, double h, const std::string& title, const std::string& subtitle,
+                             const std::vector<std::string>& notes, double gap_under_header, double gap_above_notes) {
+    TitledPage page{begin_page(cr, w, h), 0, 0, 0, {}};
+    Pen& pen = page.pen;
+    page.m = 16 * pen.u;
+    page.top = draw_header(pen, title, subtitle, w, page.m) + gap_under_header * pen.u;
+    page.notes = wrap_footnotes(pen, notes, w - 2 * page.m);
+    page.bottom = h - page.m - page.notes.height - gap_above_notes * pen.u;
+    return page;
+}
+
 }  // namespace ellipsa::exports

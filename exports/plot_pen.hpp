@@ -97,4 +97,15 @@ void draw_footnotes(Pen& pen, const Footnotes& f, double x, double y);
 // Title (bold) and subtitle at the top left, a rule under them; returns the rule's y.
 double draw_header(Pen& pen, const std::string& title, const std::string& subtitle, double w, double m);
 
+// A page with a title block and footnotes across its width (maps, panels against x): begin_page,
+// the header, the footnotes wrapped to the width inside the margin m. `top` is `gap_under_header`
+// units under the header's rule, `bottom` is `gap_above_notes` units above the footnotes.
+struct TitledPage {
+    Pen pen;
+    double m, top, bottom;
+    Footnotes notes;
+};
+TitledPage begin_titled_page(cairo_t* cr, double w, double h, const std::string& title, const std::string& subtitle,
+                             const std::vector<std::string>& notes, double gap_under_header, double gap_above_notes);
+
 }  // namespace ellipsa::exports

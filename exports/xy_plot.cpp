@@ -230,11 +230,10 @@ void draw_overlays(Pen& pen, const Box& b, const XyPanel& p) {
 
 void draw_xy_figure(cairo_t* cr, const XyFigure& f, double w, double h) {
     cairo_save(cr);
-    Pen pen = begin_page(cr, w, h);
-    const double u = pen.u, m = 16 * u;
-    const double top = draw_header(pen, f.title, f.subtitle, w, m) + 6 * u;
-    const Footnotes notes = wrap_footnotes(pen, f.notes, w - 2 * m);
-    const double bottom = h - m - notes.height - 24 * u;
+    TitledPage page = begin_titled_page(cr, w, h, f.title, f.subtitle, f.notes, 6, 24);
+    Pen& pen = page.pen;
+    const double u = pen.u, m = page.m, top = page.top, bottom = page.bottom;
+    const Footnotes& notes = page.notes;
     const std::size_t np = std::max<std::size_t>(1, f.panels.size());
     // Each panel's gap above it holds its legend rows.
     const Range xr = x_range(f);

@@ -5,12 +5,7 @@
 # 0.02 dB where the level is above -20 dB), and --up with --rotate opens and draws.
 set -euo pipefail
 : "${ELLIPSA:?}" "${PNG_CHECK:?}"
-if [[ -z "${XVFB_RUN:-}" ]] || ! command -v "$XVFB_RUN" >/dev/null; then
-  echo "xvfb-run not installed: skipping"; exit 77
-fi
-out=$(mktemp -d)
-trap 'rm -rf "$out"' EXIT
-export XDG_CONFIG_HOME="$out/config"
+source "$(dirname "${BASH_SOURCE[0]}")/preamble.sh"  # xvfb-run or skip, $out, XDG_CONFIG_HOME
 cd "$out"
 "$ELLIPSA" synth dipole --step 2 --out z.csv >/dev/null
 "$ELLIPSA" synth dipole --step 2 --rotate-y 90 --out x.csv >/dev/null

@@ -8,14 +8,10 @@
 # viewer treats as closing the window: it draws at least one frame, saves and exits 0.
 set -uo pipefail
 : "${ELLIPSA:?}"
-if [[ -z "${XVFB_RUN:-}" ]] || ! command -v "$XVFB_RUN" >/dev/null; then
-  echo "xvfb-run not installed: skipping"; exit 77
-fi
+source "$(dirname "${BASH_SOURCE[0]}")/preamble.sh"  # xvfb-run or skip, $out, XDG_CONFIG_HOME
 LIMIT_S=${ROBUST_TIME_LIMIT:-90}       # per run, generous for a loaded 2-core machine
 LIMIT_KB=${ROBUST_MEMORY_KB:-4000000}  # address space of the viewer (llvmpipe reserves a lot)
 WAIT_S=${ROBUST_WAIT_S:-3}             # before an interactive run is asked to close
-out=$(mktemp -d)
-trap '[[ -n "${KEEP:-}" ]] || rm -rf "$out"' EXIT
 failures=0
 fail() { echo "FAIL: $*"; failures=$((failures + 1)); }
 

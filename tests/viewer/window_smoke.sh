@@ -3,12 +3,7 @@
 # screenshot of the right size, not blank, with surface pixels (checked by png_check).
 set -euo pipefail
 : "${ELLIPSA:?}" "${PNG_CHECK:?}"
-if [[ -z "${XVFB_RUN:-}" ]] || ! command -v "$XVFB_RUN" >/dev/null; then
-  echo "xvfb-run not installed: skipping"; exit 77
-fi
-out=$(mktemp -d)
-trap 'rm -rf "$out"' EXIT
-export XDG_CONFIG_HOME="$out/config"
+source "$(dirname "${BASH_SOURCE[0]}")/preamble.sh"  # xvfb-run or skip, $out, XDG_CONFIG_HOME
 # The pointer rests over the 3D view, so hover picking and the probe run too.
 "$XVFB_RUN" -a -s "-screen 0 1400x900x24" "$ELLIPSA" view ${VIEW_EXTRA:-} --size 1280x800 --frames 5 --cursor 620,240 \
   --screenshot "$out/shot.png"

@@ -3,12 +3,7 @@
 # compared (A minus B), with a pinned direction and the cut through it: every panel has content.
 set -euo pipefail
 : "${ELLIPSA:?}" "${PNG_CHECK:?}"
-if [[ -z "${XVFB_RUN:-}" ]] || ! command -v "$XVFB_RUN" >/dev/null; then
-  echo "xvfb-run not installed: skipping"; exit 77
-fi
-out=$(mktemp -d)
-trap 'rm -rf "$out"' EXIT
-export XDG_CONFIG_HOME="$out/config"
+source "$(dirname "${BASH_SOURCE[0]}")/preamble.sh"  # xvfb-run or skip, $out, XDG_CONFIG_HOME
 "$ELLIPSA" synth crossed-dipoles --step 2 --out "$out/a.csv" >/dev/null
 "$ELLIPSA" synth dipole --step 2 --out "$out/b.csv" >/dev/null
 "$XVFB_RUN" -a -s "-screen 0 1400x900x24" "$ELLIPSA" view "$out/a.csv" "$out/b.csv" --software --size 1024x700 \
