@@ -132,6 +132,15 @@ void allocate_target(FarFieldSet& s, Target& t) {
     }
 }
 
+// The refusal of a direction given twice with fields that differ (the later row's line in `f`).
+Failure differing_repeat(const TextSource& src, std::size_t line, std::size_t first_line, double theta_deg, double phi_deg,
+                         double frequency_hz) {
+    return {true, line, 1,
+            "expected one field per direction, found two that differ: this row and line " +
+                std::to_string(src.line_number_at(first_line)) + " both give theta " + number(theta_deg) + ", phi " +
+                number(wrap360(phi_deg)) + " deg (" + format_frequency(frequency_hz) + ")"};
+}
+
 // Store one point, or check a second value for it (same_direction_values, csv_passes.hpp).
 bool put(Target& t, std::size_t fk, std::size_t k, cplx et, cplx ep, std::size_t line, const TextSource& src, Failure& f) {
     FarField& ff = t.s->frequencies[fk];
@@ -145,10 +154,7 @@ bool put(Target& t, std::size_t fk, std::size_t k, cplx et, cplx ep, std::size_t
     if (same_direction_values(ff.e_theta[k], ff.e_phi[k], et, ep, t.tolerance)) return true;
     const Grid& g = t.s->grid;
     const int it = int(k / std::size_t(g.phi.count)), ip = int(k % std::size_t(g.phi.count));
-    f = {true, line, 1,
-         "expected one field per direction, found two that differ: this row and line " +
-             std::to_string(src.line_number_at(t.line[fk][k])) + " both give theta " + number(g.theta.value_deg(it)) +
-             ", phi " + number(wrap360(g.phi.value_deg(ip))) + " deg (" + format_frequency(ff.frequency_hz) + ")"};
+    f = differing_repeat(src, line, t.line[fk][k], g.theta.value_deg(it), g.phi.value_deg(ip), ff.frequency_hz);
     return false;
 }
 
@@ -289,6 +295,54 @@ Status resample(const FarFieldSet& raw, const std::vector<Sample>& smp, const La
     return Ok{};
 }
 
+// A resampled positioner table still gives some directions more than once (its elevation pole at
+// every azimuth, both ends of a full circle, a direction reached from both sides of the pole): their
+// fields must agree as the placed layouts' repeats do (same_direction_values, on the Cartesian field
+// written in the direction's theta-hat and phi-hat). Repeats are found by sorting the directions,
+// rounded to 1e-6 deg (a heap of 24 bytes a sample, no hash table).
+Status check_repeats(const FarFieldSet& raw, const std::vector<Sample>& smp, const std::vector<std::vector<std::size_t>>& lines,
+                     const Layout& L, const TextSource& src, const std::string& file) {
+    if (raw.content == FieldContent::magnitude_only) return Ok{};
+    struct Key {
+        long long t, p;
+        std::size_t k;
+    };
+    std::vector<Key> keys(smp.size());
+    for (std::size_t k = 0; k < smp.size(); ++k) {
+        const long long p = std::llround(smp[k].phi_deg * 1e6);
+        keys[k] = {std::llround(smp[k].theta_deg * 1e6), p >= 360000000LL ? p - 360000000LL : p, k};
+    }
+    std::sort(keys.begin(), keys.end(), [](const Key& a, const Key& b) { return a.t != b.t ? a.t < b.t : a.p != b.p ? a.p < b.p : a.k < b.k; });
+    for (std::size_t fk = 0; fk < raw.frequencies.size(); ++fk) {
+        const FarField& in = raw.frequencies[fk];
+        auto field = [&](std::size_t k, cplx& et, cplx& ep) {
+            const Sample& s = smp[k];
+            if (raw.content == FieldContent::total_only) {
+                et = in.e_theta[k], ep = 0;
+                return;
+            }
+            const CVec3 e = in.e_theta[k] * s.a + in.e_phi[k] * s.b;
+            et = dot(e, theta_hat(s.theta_deg * deg, s.phi_deg * deg));
+            ep = dot(e, phi_hat(s.phi_deg * deg));
+        };
+        for (std::size_t a = 0, b = 1; b < keys.size(); ++b) {
+            if (keys[b].t != keys[a].t || keys[b].p != keys[a].p) {
+                a = b;
+                continue;
+            }
+            cplx t1, p1, t2, p2;
+            field(keys[a].k, t1, p1);
+            field(keys[b].k, t2, p2);
+            if (same_direction_values(t1, p1, t2, p2, L.duplicate_tolerance)) continue;
+            const std::size_t first = std::min(lines[fk][keys[a].k], lines[fk][keys[b].k]);
+            const std::size_t later = std::max(lines[fk][keys[a].k], lines[fk][keys[b].k]);
+            const Sample& s = smp[keys[a].k];
+            return to_error(src, file, differing_repeat(src, later, first, s.theta_deg, s.phi_deg, in.frequency_hz));
+        }
+    }
+    return Ok{};
+}
+
 const char* layout_words(const Layout& L) {
     return L.angles == AngleSystem::az_over_el ? "azimuth over elevation" : "elevation over azimuth";
 }
@@ -341,6 +395,7 @@ Result<FarFieldSet> place_directions(FarFieldSet table, const std::vector<std::v
                         {true, f.line_offset, 0,
                          "the directions (theta below 0 read as theta, phi + 180): " +
                              (f.message.empty() ? std::string("expected a regular theta/phi grid") : f.message)});
+    if (Status st = check_repeats(raw, smp, lines, L, src, file); !st) return st.error();
     if (Status st = resample(raw, smp, L, s, file); !st) return st.error();
     s.reading_notes.push_back(std::string("read as ") + layout_words(L) + " and resampled onto theta 0.." +
                               number(s.grid.theta.last_deg()) + " step " + number(s.grid.theta.step_deg) + ", phi step " +

@@ -8,8 +8,9 @@
 //   - positioner grids (pattern/positioner.hpp): E = E_az az-hat + E_el el-hat, projected onto
 //     theta-hat and phi-hat of the direction.
 // When the directions fall on a regular theta/phi grid they are placed exactly; a direction given
-// twice (phi and phi + 360, a pole at several phi, both half-planes) must agree to 0.1 % of the
-// field (or both be below 1e-6), else the second row is refused naming the first. A positioner
+// twice (phi and phi + 360, a pole at several phi, both half-planes) must agree
+// (same_direction_values, csv_passes.hpp), else the later row is refused naming the first; so must a
+// resampled positioner table's own repeats. A positioner
 // grid whose directions do not fall on a theta/phi grid is resampled: the Cartesian complex field
 // is interpolated bilinearly in the positioner's angles onto theta 0..T, phi 0..360 at the
 // positioner's finer step, T the widest cone about +z that the scan covers (a reading note says

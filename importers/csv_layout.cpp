@@ -347,6 +347,8 @@ Status map_columns(const HeaderCells& h, const CsvReadOptions& o, Layout& L, con
     L.cells = int(h.text.size());
     L.role.assign(h.text.size(), c_ignore);
     L.header_column = h.column;
+    L.header_text.clear();
+    for (std::string_view t : h.text) L.header_text.emplace_back(text::trim(t));
     L.column_of.fill(-1);
     for (std::size_t k = 0; k < h.text.size(); ++k) {
         std::string n = text::normalise_name(h.text[k]);
@@ -445,8 +447,8 @@ Status choose_family(Layout& L, const std::string& file) {
         if (found) {
             const bool later = L.column_of[std::size_t(first)] > L.column_of[std::size_t(found_first)];
             return Error{file, L.header_line, col_of(later ? first : found_first),
-                         std::string("expected one field family per file, found two: \"") + names[found_first] +
-                             "\" and \"" + names[first] + "\""};
+                         "expected one field family per file, found two: " + column_label(L, found_first) + " and " +
+                             column_label(L, first)};
         }
         found = &g;
         found_first = first;
@@ -468,8 +470,8 @@ Status choose_family(Layout& L, const std::string& file) {
         for (int j = 0; j < 4; ++j)
             if (!has(found->cols[j]) && present(j & 2) && !(magnitudes && (j & 1)))
                 return Error{file, L.header_line, 1,
-                             std::string("expected a column \"") + names[found->cols[j]] + "\" beside \"" +
-                                 names[found_first] + "\", found none"};
+                             "expected a column " + column_label(L, found->cols[j]) + " beside " +
+                                 column_label(L, found_first) + ", found none"};
     }
     return Ok{};
 }
@@ -693,6 +695,17 @@ Status adjustments(const std::vector<CsvAdjustment>& list, const char* unnamed, 
 }  // namespace
 
 const char* column_name(int role) { return role >= 0 && role < c_count ? names[role] : "ignore"; }
+
+std::string column_label(const Layout& L, int role) {
+    std::string schema = column_name(role);
+    if (L.positioner_components)
+        for (const auto& [name, r] : positioner_names)
+            if (r == role) schema = name;
+    const int cell = role >= 0 && role < c_count ? L.column_of[std::size_t(role)] : -1;
+    const std::string written = cell >= 0 && std::size_t(cell) < L.header_text.size() ? L.header_text[std::size_t(cell)] : "";
+    if (written.empty() || text::normalise_name(written) == schema) return "\"" + schema + "\"";
+    return text::quote_found(written) + " (" + schema + ")";
+}
 
 int column_role(std::string_view n) {
     for (int k = 0; k < c_count; ++k)

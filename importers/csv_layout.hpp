@@ -33,6 +33,11 @@ inline constexpr bool is_db_role(int r) {
 }
 const char* column_name(int role);
 int column_role(std::string_view lower_name);  // -1 when unknown
+struct Layout;
+// A column in messages as the file names it: "e_az_re" (the positioner's own names for its field
+// columns, never the theta/phi roles they stand in for), or "Eaz re" (e_az_re) when a column map
+// gave the file's column that role; quotes included.
+std::string column_label(const Layout& L, int role);
 
 // Index of a metadata key of the file (quantity, ..., note) in a fixed table, or -1. With
 // `settings_too`, also the keys only settings may give (phase-unit).
@@ -110,6 +115,7 @@ struct Layout {
     int cells = 0;                  // header cells (trailing empty ones dropped)
     std::vector<int> role;          // per header cell: Col or c_ignore
     std::vector<long> header_column;  // 1-based byte column of each header cell
+    std::vector<std::string> header_text;  // each header cell as written (trimmed), for messages
     std::array<int, c_count> column_of{};  // header cell of each role, -1 when absent
     CsvFamily family = CsvFamily::complex;
     FieldPart part = FieldPart::whole;  // one component of the family only: the other is zero
@@ -125,7 +131,11 @@ struct Layout {
     double angle_to_deg = 1.0;      // deg per angle-unit
     double phase_to_rad = pi / 180;  // rad per phase unit
     double hz_per_unit = 1.0;
-    double duplicate_tolerance = 1e-3;  // same_direction_values (csv_passes.hpp); duplicate-tolerance
+    // same_direction_values (csv_passes.hpp); `duplicate-tolerance`. The default, 3 %, is what a
+    // far-field range repeats one direction to (docs/far-field-csv.md, "Tolerance": a receiver's
+    // +-0.1 dB and +-1 deg give 2.1 %, a positioner's +-0.05 deg on a 10-degree beam's flank 0.7 %;
+    // common practice, values from memory); a layout read wrongly differs by tens of per cent.
+    double duplicate_tolerance = 0.03;
     std::optional<double> frequency_hz;  // from metadata
     std::optional<Ludwig3Reference> ludwig3_reference;
     std::string name, source, note;

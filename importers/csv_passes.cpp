@@ -130,11 +130,11 @@ inline void fail_cell(Chunk& c, std::size_t line_offset, const char* line, const
 }
 
 // Why a number cell was refused: not a number (or empty), or beyond the double range.
-std::string number_problem(int role, NumberStatus st, const char* cell, const char* e, char delim) {
+std::string number_problem(const Layout& L, int role, NumberStatus st, const char* cell, const char* e, char delim) {
     const char* ce = static_cast<const char*>(std::memchr(cell, delim, std::size_t(e - cell)));
     if (!ce) ce = e;
     const std::string_view t(cell, std::size_t(ce - cell));
-    const std::string what = std::string("expected a number in column \"") + column_name(role) + "\", found ";
+    const std::string what = "expected a number in column " + column_label(L, role) + ", found ";
     if (st == NumberStatus::overflow) return what + text::quote_found(text::trim(t)) + ", beyond the range of numbers (about 1.8e308)";
     return what + (t.empty() ? std::string("an empty cell") : text::quote_found(t));
 }
@@ -147,7 +147,7 @@ std::string number_problem(int role, NumberStatus st, const char* cell, const ch
     const char* cell = q;
     q = parse_number_cell(q, e, L.delimiter, L.decimal_comma, x, st);
     if (st != NumberStatus::ok) {
-        fail_cell(c, line_offset, line, cell, number_problem(r, st, cell, e, L.delimiter));
+        fail_cell(c, line_offset, line, cell, number_problem(L, r, st, cell, e, L.delimiter));
         return false;
     }
     if (L.transform) x = x * L.scale[std::size_t(r)] + L.offset[std::size_t(r)];
@@ -486,8 +486,8 @@ inline void note_line(Context& ctx, std::size_t fk, std::size_t k, std::size_t l
     if (ctx.lines) (*ctx.lines)[fk][k] = line_offset;
 }
 
-// Write one point into the arrays; a second row for a point must agree with the first (to
-// 0.1 % of the larger field, or both below 1e-6). With several workers, the seen byte is the
+// Write one point into the arrays; a second row for a point must agree with the first
+// (same_direction_values, csv_passes.hpp). With several workers, the seen byte is the
 // lock: 0 absent, 1 being written, 2 present.
 [[gnu::always_inline]] inline bool store_point(Context& ctx, Chunk& c, std::size_t fk, std::size_t k, cplx et, cplx ep, std::size_t line_offset,
                  const AngleInfo* const ang[3]) {
@@ -605,7 +605,7 @@ void pass2(Context& ctx, Chunk& c, bool report_progress) {
         cplx et, ep;
         if (const FieldProblem bad = row_field(L, v, ang[1]->value, et, ep); bad.expected) {
             fail_cell(c, off, p, cell_at[std::size_t(L.column_of[std::size_t(bad.role)])],
-                      std::string("expected ") + bad.expected + " in column \"" + column_name(bad.role) + "\"");
+                      std::string("expected ") + bad.expected + " in column " + column_label(L, bad.role));
             return false;
         }
         const std::size_t fk = std::size_t(ang[2]->index);

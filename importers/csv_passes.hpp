@@ -24,7 +24,7 @@ namespace ellipsa::csv {
 
 // Two values given for one direction (a duplicate row, the phi seam, a pole at several phi, both
 // half-planes) agree when their field vectors differ by at most `tolerance` of the larger one
-// (Layout::duplicate_tolerance: 0.1 % unless `duplicate-tolerance` says otherwise), or both are
+// (Layout::duplicate_tolerance: 3 % unless `duplicate-tolerance` says otherwise), or both are
 // below 1e-6 in amplitude (-120 dB: zero field for any practical purpose).
 inline bool same_direction_values(cplx a_theta, cplx a_phi, cplx b_theta, cplx b_phi, double tolerance) {
     const double d = std::sqrt(std::norm(a_theta - b_theta) + std::norm(a_phi - b_phi));
