@@ -35,10 +35,7 @@ std::optional<double> reported_axial_ratio_db(double ar) {
 }
 
 double tilt_deg(const Stokes& s) {
-    // Degree of linear polarisation sqrt(Q^2 + U^2) / I = (AR^2 - 1) / (AR^2 + 1) (Born & Wolf sec. 1.4).
-    constexpr double a2 = circular_axial_ratio * circular_axial_ratio, min_linear = (a2 - 1) / (a2 + 1);
-    if (!(s.i > 0) || s.q * s.q + s.u * s.u < min_linear * min_linear * s.i * s.i)
-        return std::numeric_limits<double>::quiet_NaN();
+    if (!tilt_defined(s)) return std::numeric_limits<double>::quiet_NaN();
     double t = 0.5 * std::atan2(s.u, s.q) / deg;
     if (t <= -90.0) t += 180.0;
     return t;

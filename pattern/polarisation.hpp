@@ -82,6 +82,12 @@ std::optional<double> reported_axial_ratio_db(double axial_ratio);
 // Tilt of the major axis from theta-hat toward phi-hat, degrees in (-90, 90]; NaN where it is
 // undefined: a zero field, or an axial ratio below circular_axial_ratio_db.
 double tilt_deg(const Stokes& s);
+// Whether tilt_deg(s) is defined: a nonzero field whose axial ratio is at least circular_axial_ratio_db.
+inline bool tilt_defined(const Stokes& s) {
+    // Degree of linear polarisation sqrt(Q^2 + U^2) / I = (AR^2 - 1) / (AR^2 + 1) (Born & Wolf sec. 1.4).
+    constexpr double a2 = circular_axial_ratio * circular_axial_ratio, min_linear = (a2 - 1) / (a2 + 1);
+    return s.i > 0 && !(s.q * s.q + s.u * s.u < min_linear * min_linear * s.i * s.i);
+}
 // none for a zero field, linear at or above linear_axial_ratio_db, else right (V > 0) or left.
 Sense sense_of(const Stokes& s);
 

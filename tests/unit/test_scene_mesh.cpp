@@ -2,7 +2,9 @@
 // messages for data that cannot give a component.
 #include <catch2/catch.hpp>
 
+#include <algorithm>
 #include <cmath>
+#include <limits>
 
 #include "pattern/reference.hpp"
 #include "viewer/scene/surface_mesh.hpp"
@@ -120,6 +122,50 @@ TEST_CASE("colour by axial ratio follows AR = 1/|cos t| of crossed dipoles", "[s
     // theta = 0: circular, bottom of the bar.
     Rgb c0 = colour(*m, 0, 0), w0 = map_color(ColorMap::viridis, 0);
     CHECK(c0.r == Approx(w0.r).margin(2e-3));
+}
+
+TEST_CASE("polarisation colourings agree with the core's figures of each sample", "[scene][mesh]") {
+    // The colours are made in single precision (pattern/colour_math.hpp); the figures they show
+    // are the core's decompose() (axial ratio, RHCP and LHCP powers, tilt: IEEE Std 145 terms,
+    // conventions.md). Crossed dipoles in quadrature (circular on their axis: no tilt there, grey)
+    // and 60 deg out of quadrature, turned (elliptical and tilted everywhere).
+    for (double phase : {-90.0, -60.0}) {
+        ReferenceAntenna a;
+        a.kind = ReferenceKind::crossed_dipoles;
+        a.phase_deg = phase;
+        if (phase != -90) a.orientation = rotation_xyz_deg(17, 29, 11);
+        const FarFieldSet s = synthesize(a, 3, 1e9);
+        struct Case {
+            ColorBy by;
+            ColorMap map;
+        };
+        for (auto [by, map] : {Case{ColorBy::axial_ratio, ColorMap::viridis}, Case{ColorBy::circular_balance, ColorMap::diverging},
+                               Case{ColorBy::tilt, ColorMap::cyclic}}) {
+            SurfaceOptions o;
+            o.color_by = by;
+            auto m = build_surface(s, 0, o);
+            REQUIRE(m);
+            double worst = 0;
+            int grey = 0;
+            for (int i = 0; i < s.grid.theta.count; ++i)
+                for (int j = 0; j < s.grid.phi.count; ++j) {
+                    const std::size_t n = s.grid.index(i, j);
+                    const PolarisationState p = decompose(s.frequencies[0].e_theta[n], s.frequencies[0].e_phi[n],
+                                                          s.grid.phi.value_deg(j) * deg, s.ludwig3_reference);
+                    double t = std::numeric_limits<double>::quiet_NaN();
+                    if (by == ColorBy::axial_ratio && !std::isnan(p.axial_ratio))
+                        t = std::min(20 * std::log10(p.axial_ratio), o.axial_ratio_max_db) / o.axial_ratio_max_db;
+                    if (by == ColorBy::circular_balance)
+                        t = 0.5 + 0.5 * std::clamp(10 * std::log10(p.rhcp / p.lhcp) / o.balance_range_db, -1.0, 1.0);
+                    if (by == ColorBy::tilt) t = (p.tilt_deg + 90) / 180;
+                    grey += std::isnan(t);
+                    const Rgb want = map_color(map, t), got = colour(*m, i, j);
+                    worst = std::max({worst, double(std::abs(got.r - want.r)), double(std::abs(got.g - want.g)), double(std::abs(got.b - want.b))});
+                }
+            CHECK(worst < 1e-5);  // a 1/255 colour step is 3.9e-3
+            if (by == ColorBy::tilt) CHECK((grey > 0) == (phase == -90));
+        }
+    }
 }
 
 TEST_CASE("A minus B colours a 3 dB drop on the diverging map", "[scene][mesh]") {

@@ -5,6 +5,7 @@
 #include <limits>
 #include <mutex>
 
+#include "pattern/colour_math.hpp"
 #include "pattern/interpolate.hpp"
 #include "pattern/parallel.hpp"
 
@@ -29,26 +30,38 @@ std::vector<double> other_power_on_grid(const FarFieldSet& a, const FarFieldSet&
         }
     return out;
 }
-// Bounding boxes of pick_block x pick_block cells (their corner vertices included).
-void pick_boxes(SurfaceMesh& m) {
+// Picking blocks of pick_block x pick_block cells, their boxes empty (filled row by row with the vertices).
+void start_pick_boxes(SurfaceMesh& m) {
     const int cells_r = std::max(m.rows - 1, 0), cells_c = std::max(m.cols - 1, 0);
     m.pick_block_rows = (cells_r + pick_block - 1) / pick_block;
     m.pick_block_cols = (cells_c + pick_block - 1) / pick_block;
-    m.pick_boxes.assign(std::size_t(m.pick_block_rows) * std::size_t(m.pick_block_cols) * 6, 0.f);
-    parallel_blocks(std::size_t(m.pick_block_rows), 8, [&](std::size_t ba, std::size_t bb) {
-        for (std::size_t br = ba; br < bb; ++br)
-            for (int bc = 0; bc < m.pick_block_cols; ++bc) {
-                float lo[3] = {1e30f, 1e30f, 1e30f}, hi[3] = {-1e30f, -1e30f, -1e30f};
-                const int i1 = std::min(int(br + 1) * pick_block, m.rows - 1), j1 = std::min((bc + 1) * pick_block, m.cols - 1);
-                for (int i = int(br) * pick_block; i <= i1; ++i)
-                    for (int j = bc * pick_block; j <= j1; ++j) {
-                        const float* v = &m.vertices[(std::size_t(i) * std::size_t(m.cols) + std::size_t(j)) * surface_floats_per_vertex];
-                        for (int a = 0; a < 3; ++a) lo[a] = std::min(lo[a], v[a]), hi[a] = std::max(hi[a], v[a]);
-                    }
-                float* box = &m.pick_boxes[(br * std::size_t(m.pick_block_cols) + std::size_t(bc)) * 6];
-                for (int a = 0; a < 3; ++a) box[a] = lo[a], box[3 + a] = hi[a];
+    m.pick_boxes.resize(std::size_t(m.pick_block_rows) * std::size_t(m.pick_block_cols) * 6);
+    for (std::size_t b = 0; b < m.pick_boxes.size(); b += 6)
+        for (int a = 0; a < 3; ++a) m.pick_boxes[b + a] = 1e30f, m.pick_boxes[b + 3 + a] = -1e30f;
+}
+
+// Row i's positions into the boxes of the blocks holding it: its own block row (`own`) and, for a
+// row on a block edge, the block row above (`above`), which share it (corner vertices included).
+void add_row_to_boxes(SurfaceMesh& m, std::size_t i, bool own, bool above) {
+    const std::size_t cols = std::size_t(m.cols), br = i / pick_block;
+    own = own && br < std::size_t(m.pick_block_rows);
+    above = above && i % pick_block == 0 && br >= 1;
+    if (!own && !above) return;
+    const float* row = &m.vertices[i * cols * surface_floats_per_vertex];
+    for (std::size_t bc = 0; bc < std::size_t(m.pick_block_cols); ++bc) {
+        float lo[3] = {1e30f, 1e30f, 1e30f}, hi[3] = {-1e30f, -1e30f, -1e30f};
+        const std::size_t j1 = std::min((bc + 1) * pick_block, cols - 1);
+        for (std::size_t j = bc * pick_block; j <= j1; ++j)
+            for (std::size_t a = 0; a < 3; ++a) {
+                const float x = row[j * surface_floats_per_vertex + a];
+                lo[a] = std::min(lo[a], x), hi[a] = std::max(hi[a], x);
             }
-    });
+        for (std::size_t b : {br, br - 1}) {
+            if (b == br ? !own : !above) continue;
+            float* box = &m.pick_boxes[(b * std::size_t(m.pick_block_cols) + bc) * 6];
+            for (int a = 0; a < 3; ++a) box[a] = std::min(box[a], lo[a]), box[3 + a] = std::max(box[3 + a], hi[a]);
+        }
+    }
 }
 }  // namespace
 
@@ -86,19 +99,63 @@ struct GridTrig {
     Vec3 radial(std::size_t i, std::size_t j) const { return {sin_t[i] * cos_p[j], sin_t[i] * sin_p[j], cos_t[i]}; }
 };
 
-// The shown component in dB over the grid, into `value_db` (reused: no fresh memory to fault in);
-// returns its peak (0 for an all-zero component: flat at the origin).
-double component_db(const FarFieldSet& s, std::size_t k, Component c, std::vector<double>& value_db) {
+// Colour values in [0, 1] of the polarisation colourings (axial ratio, RHCP minus LHCP, tilt) for
+// the np samples from n0 into t (NaN: no value, grey); `r` and `l` are scratch for np powers. The
+// colouring is chosen once per row, and the arithmetic is single precision where only a colour
+// follows (pattern/colour_math.hpp; the probe's numbers do not come from here).
+void polarisation_colour_row(const FarFieldSet& s, std::size_t k, const SurfaceOptions& o, std::size_t n0, std::size_t np, float* t,
+                             double* r, double* l) {
+    constexpr float nan = std::numeric_limits<float>::quiet_NaN();
+    const FarField& f = s.frequencies[k];
+    const cplx *et = f.e_theta.data() + n0, *ep = f.e_phi.data() + n0;
+    if (o.color_by == ColorBy::tilt) {  // (tilt_deg + 90) / 180, tilt = atan2(U, Q) / 2; the cyclic map wraps at 1
+        for (std::size_t j = 0; j < np; ++j) {
+            const Stokes st = stokes(et[j], ep[j]);
+            t[j] = tilt_defined(st) ? colour_atan2(st.u, st.q) * float(0.5 / pi) + 0.5f : nan;
+        }
+        return;
+    }
+    component_power_many(np, et, ep, nullptr, nullptr, s.ludwig3_reference, Component::rhcp, r);
+    component_power_many(np, et, ep, nullptr, nullptr, s.ludwig3_reference, Component::lhcp, l);
+    if (o.color_by == ColorBy::axial_ratio) {
+        const float top = float(o.axial_ratio_max_db), inv_top = 1.f / top;
+        for (std::size_t j = 0; j < np; ++j) {
+            const double ar = axial_ratio_from_circular(r[j], l[j]);
+            t[j] = std::isnan(ar) ? nan : std::min(20.f * colour_log10(ar), top) * inv_top;
+        }
+        return;
+    }
+    const float scale = float(10 / o.balance_range_db);  // ColorBy::circular_balance
+    for (std::size_t j = 0; j < np; ++j) {
+        const float d = scale * colour_log10(std::max(r[j], 1e-300) / std::max(l[j], 1e-300));
+        t[j] = (r[j] > 0 || l[j] > 0) ? 0.5f + 0.5f * std::clamp(d, -1.f, 1.f) : nan;
+    }
+}
+
+bool polarisation_colouring(ColorBy by) { return by == ColorBy::axial_ratio || by == ColorBy::circular_balance || by == ColorBy::tilt; }
+
+// The shown component in dB over the grid into m.value_db (reused: no fresh memory to fault in),
+// and a polarisation colouring's values into m.colour_value, row by row while the row's fields are
+// in the cache; returns the component's peak (0 for an all-zero component: flat at the origin).
+double component_db(const FarFieldSet& s, std::size_t k, const SurfaceOptions& o, const GridTrig& trig, SurfaceMesh& m) {
     const std::size_t np = std::size_t(s.grid.phi.count);
-    value_db.resize(s.grid.size());
+    m.value_db.resize(s.grid.size());
+    const bool colours = polarisation_colouring(o.color_by);
+    m.colour_value.resize(colours ? s.grid.size() : 0);
     double peak = -std::numeric_limits<double>::infinity();
     std::mutex merge;
     parallel_blocks(std::size_t(s.grid.theta.count), std::max<std::size_t>(1, min_block / np), [&](std::size_t ia, std::size_t ib) {
-        component_power_grid(s, k, c, value_db.data(), int(ia), int(ib));
+        std::vector<double> r(colours ? np : 0), l(colours ? np : 0);
         double top = -std::numeric_limits<double>::infinity();
-        for (std::size_t n = ia * np; n < ib * np; ++n) {
-            value_db[n] = db_of(value_db[n]);
-            top = std::max(top, value_db[n]);
+        for (std::size_t i = ia; i < ib; ++i) {
+            const FarField& f = s.frequencies[k];
+            component_power_many(np, f.e_theta.data() + i * np, f.e_phi.data() + i * np, trig.cos_p.data(), trig.sin_p.data(),
+                                 s.ludwig3_reference, o.component, m.value_db.data() + i * np);
+            for (std::size_t n = i * np; n < (i + 1) * np; ++n) {
+                m.value_db[n] = db_of(m.value_db[n]);
+                top = std::max(top, m.value_db[n]);
+            }
+            if (colours) polarisation_colour_row(s, k, o, i * np, np, m.colour_value.data() + i * np, r.data(), l.data());
         }
         const std::lock_guard<std::mutex> lock(merge);
         peak = std::max(peak, top);
@@ -118,28 +175,11 @@ ColorBar colour_bar(const FarFieldSet& s, const SurfaceOptions& o, const Surface
     return {};
 }
 
-// One sample's colour value in [0, 1] (NaN: no value, grey); `radius` is radius_from_db(value_db).
-double colour_value(const SurfaceOptions& o, const SurfaceMesh& m, cplx et, cplx ep, double value_db, double radius, double other_power) {
-    switch (o.color_by) {
-        case ColorBy::component: return radius;
-        case ColorBy::axial_ratio: {
-            const double ar = axial_ratio_from_circular(std::norm(rhcp(et, ep)), std::norm(lhcp(et, ep)));
-            return std::isnan(ar) ? ar : std::min(20 * std::log10(ar), o.axial_ratio_max_db) / o.axial_ratio_max_db;
-        }
-        case ColorBy::circular_balance: {
-            const double r = std::norm(rhcp(et, ep)), l = std::norm(lhcp(et, ep));
-            return (r > 0 || l > 0) ? 0.5 + 0.5 * std::clamp(10 * std::log10(std::max(r, 1e-300) / std::max(l, 1e-300)) / o.balance_range_db, -1.0, 1.0)
-                                    : std::numeric_limits<double>::quiet_NaN();
-        }
-        case ColorBy::tilt: return (tilt_deg(stokes(et, ep)) + 90) / 180;
-        case ColorBy::difference: {
-            const double d = value_db - db_of(other_power);
-            // Where A is below the floor the difference is not shown (grey), nor where B is unknown.
-            return (value_db > m.floor_db && std::isfinite(d)) ? 0.5 + 0.5 * std::clamp(d / o.difference_range_db, -1.0, 1.0)
-                                                               : std::numeric_limits<double>::quiet_NaN();
-        }
-    }
-    return std::numeric_limits<double>::quiet_NaN();
+// A's dB minus B's as a colour value in [0, 1] (NaN, grey, where A is below the floor or B is unknown).
+float difference_colour(const SurfaceOptions& o, const SurfaceMesh& m, double a_db, double b_power) {
+    const float d = float(a_db) - 10.f * colour_log10(b_power);
+    return (a_db > m.floor_db && std::isfinite(d)) ? 0.5f + 0.5f * std::clamp(d / float(o.difference_range_db), -1.f, 1.f)
+                                                   : std::numeric_limits<float>::quiet_NaN();
 }
 
 // What one pass over the grid writes from: the grid's trigonometry, the frequency's fields, the
@@ -158,15 +198,17 @@ struct VertexSource {
 void vertex_row(SurfaceMesh& m, const VertexSource& src, std::size_t i) {
     constexpr std::size_t F = surface_floats_per_vertex;
     float* row = &m.vertices[i * std::size_t(m.cols) * F];
-    const FarField& f = src.field;
+    const ColorBy by = src.options.color_by;
     for (std::size_t j = 0, n = i * src.np; j < src.np; ++j, ++n) {
         const double r = radius_from_db(m.value_db[n], m.peak_db, src.options.range_db);
         m.radius[n] = float(r);
         float* v = row + j * F;
         const Vec3 u = src.trig.radial(i, j);
         v[0] = float(r * u.x), v[1] = float(r * u.y), v[2] = float(r * u.z);
-        const double other = src.other_power.empty() ? 0.0 : src.other_power[n];
-        const Rgb c = src.colour(colour_value(src.options, m, f.e_theta[n], f.e_phi[n], m.value_db[n], r, other));
+        const double t = by == ColorBy::component    ? r
+                         : by == ColorBy::difference ? double(difference_colour(src.options, m, m.value_db[n], src.other_power[n]))
+                                                     : double(m.colour_value[n]);
+        const Rgb c = src.colour(t);
         v[6] = c.r, v[7] = c.g, v[8] = c.b;
     }
     if (std::size_t(m.cols) > src.np) std::copy_n(row, F, row + src.np * F);
@@ -224,26 +266,34 @@ void normal_row(SurfaceMesh& m, const VertexSource& src, int i) {
         one(last, wraps ? position_at(row + (np - 1) * F) : position_at(row + (last - 1) * F), wraps ? position_at(row + F) : end, last % np);
 }
 
-// Positions, radii, colours and normals in one pass over the rows, so that each row's normals are
-// made while its neighbours are still in the cache (a second pass re-read 37 MB at 0.25 degree).
-// A block's first and last rows need a neighbour of another block: they come after the join.
+// Positions, radii, colours, normals and picking boxes in one pass over the rows, so that each
+// row's normals and boxes are made while its neighbours are still in the cache (a second pass
+// re-read 37 MB at 0.25 degree). The threads take whole block rows of the picking boxes; a
+// thread's first row, shared with the block row above, and its first and last rows' normals,
+// which need a neighbour of another thread, come after the join.
 void fill_vertices(SurfaceMesh& m, const VertexSource& src) {
     const std::size_t cols = std::size_t(m.cols), rows = std::size_t(m.rows);
     m.radius.resize(rows * src.np);
     m.vertices.resize(rows * cols * surface_floats_per_vertex);
+    start_pick_boxes(m);
     if (rows == 0 || cols == 0) return;
     std::mutex merge;
-    std::vector<std::size_t> edges;
-    parallel_blocks(rows, std::max<std::size_t>(1, min_block / cols), [&](std::size_t ia, std::size_t ib) {
+    std::vector<std::size_t> edges, firsts;
+    const std::size_t groups = (rows + pick_block - 1) / pick_block;
+    parallel_blocks(groups, std::max<std::size_t>(1, min_block / (cols * pick_block)), [&](std::size_t ga, std::size_t gb) {
+        const std::size_t ia = ga * pick_block, ib = std::min(gb * pick_block, rows);
         for (std::size_t i = ia; i < ib; ++i) {
             vertex_row(m, src, i);
+            add_row_to_boxes(m, i, true, i > ia);
             if (i >= ia + 2) normal_row(m, src, int(i - 1));
         }
         const std::lock_guard<std::mutex> lock(merge);
         edges.push_back(ia);
         if (ib - 1 > ia) edges.push_back(ib - 1);
+        firsts.push_back(ia);
     });
     for (std::size_t i : edges) normal_row(m, src, int(i));
+    for (std::size_t i : firsts) add_row_to_boxes(m, i, false, true);
 }
 
 // Triangles: two per grid cell.
@@ -312,13 +362,12 @@ Result<SurfaceMesh> build_surface(const FarFieldSet& s, std::size_t k, const Sur
     m.cols = g.phi.count + (wraps ? 1 : 0);
     m.unit = db_unit(s.quantity, o.component);
     const GridTrig trig(g);
-    m.peak_db = component_db(s, k, o.component, m.value_db);
+    m.peak_db = component_db(s, k, o, trig, m);
     m.floor_db = m.peak_db - o.range_db;
     m.bar = colour_bar(s, o, m);
     std::vector<double> other_power;
     if (o.color_by == ColorBy::difference) other_power = other_power_on_grid(s, *other, kb, o.component);
     fill_vertices(m, VertexSource{trig, s.frequencies[k], o, ColorLookup(m.bar.map), other_power, std::size_t(g.phi.count), wraps});
-    pick_boxes(m);
     m.unsampled = unsampled_region(g, m);
     m.grid_step_deg = std::min(g.theta.step_deg, g.phi.step_deg);
     const SurfaceTopology topology = topology_of(m, g, o.wire_step_deg);

@@ -81,6 +81,9 @@ struct SurfaceMesh {
     // Radius of the surface toward (theta, phi) in degrees (bilinear in the grid), for glyphs and rings.
     std::vector<float> radius;  // per grid sample (theta rows x phi count)
     std::vector<double> value_db;  // the shown component in dB per grid sample (-inf where zero)
+    // Per grid sample, the colour value in [0, 1] of a polarisation colouring (axial ratio, RHCP
+    // minus LHCP, tilt; NaN: grey), in single precision; empty for the other colourings.
+    std::vector<float> colour_value;
     // Bounding boxes of blocks of pick_block x pick_block grid cells (min xyz, max xyz; block rows
     // slow), so that a hover pick tests only the triangles of the blocks its ray crosses.
     std::vector<float> pick_boxes;
