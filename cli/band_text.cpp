@@ -74,6 +74,7 @@ void band_summary_json(JsonWriter& j, const BandSummary& b) {
     edges_json(j, "ar_bandwidth_3db", b.ar);
     j.field("ar_bandwidth_theta_deg", b.ar_theta_deg).field("ar_bandwidth_phi_deg", b.ar_phi_deg);
     if (!b.ar) j.field("ar_bandwidth_unavailable_reason", b.ar_unavailable_reason);
+    if (!b.gain_1db) j.field("gain_bandwidth_unavailable_reason", b.gain_unavailable_reason);
     j.end_object();
 }
 
@@ -84,8 +85,8 @@ std::string band_summary_text(const BandSummary& b) {
         return l + (e ? edges_text(*e) : missing) + "\n";
     };
     std::string s = "\n  band (edges interpolated linearly between sampled frequencies)\n";
-    s += line("peak within 1 dB", b.gain_1db, "unavailable");
-    s += line("peak within 3 dB", b.gain_3db, "unavailable");
+    s += line("peak within 1 dB", b.gain_1db, "unavailable (" + b.gain_unavailable_reason + ")");
+    s += line("peak within 3 dB", b.gain_3db, "unavailable (" + b.gain_unavailable_reason + ")");
     s += line("AR <= 3 dB", b.ar, "none (" + b.ar_unavailable_reason + ")");
     s += "                          (AR at theta " + number(b.ar_theta_deg, 1) + ", phi " + number(b.ar_phi_deg, 1) +
          " deg)\n";

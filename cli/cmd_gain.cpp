@@ -46,7 +46,28 @@ Result<std::vector<std::pair<std::optional<double>, double>>> parse_gains(const 
         out.emplace_back(f, v);
         pos = comma + 1;
     }
+    // One value for every frequency stands alone; several must each name their frequency.
+    if (out.size() > 1)
+        for (const auto& [fh, v] : out)
+            if (!fh)
+                return Error{"--reference-gain", 0, 0,
+                             "expected one gain for every frequency or FREQ=GAIN items, found a gain without a frequency among " +
+                                 std::to_string(out.size()) + " items in \"" + text + "\""};
     return out;
+}
+
+// The gain given for one frequency of the antenna under test (matched within 0.5 %); two items
+// that both match are refused rather than one silently winning.
+Result<double> gain_for(const std::vector<std::pair<std::optional<double>, double>>& gains, double f_hz) {
+    std::optional<double> found;
+    for (const auto& [fh, v] : gains) {
+        if (fh && std::abs(*fh - f_hz) > 0.005 * f_hz) continue;
+        if (found)
+            return Error{"--reference-gain", 0, 0, "expected one gain for " + format_frequency(f_hz) + ", found two items that match it"};
+        found = v;
+    }
+    if (!found) return Error{"--reference-gain", 0, 0, "expected a gain for " + format_frequency(f_hz) + ", found none"};
+    return *found;
 }
 
 // One GainReference per frequency of the antenna under test.
@@ -67,10 +88,9 @@ Result<std::vector<GainReference>> references(const GainArgs& a, const FarFieldS
     std::vector<GainReference> out;
     for (const FarField& f : aut.frequencies) {
         GainReference g{f.frequency_hz, 0, a.level_db.value_or(0)};
-        bool have = false;
-        for (const auto& [fh, v] : *gains)
-            if (!fh || std::abs(*fh - f.frequency_hz) <= 0.005 * f.frequency_hz) g.gain_dbi = v, have = true;
-        if (!have) return Error{"--reference-gain", 0, 0, "expected a gain for " + format_frequency(f.frequency_hz) + ", found none"};
+        auto gain = gain_for(*gains, f.frequency_hz);
+        if (!gain) return gain.error();
+        g.gain_dbi = *gain;
         if (ref) {
             auto k = find_frequency(*ref, f.frequency_hz, a.reference);
             if (!k) return k.error();

@@ -49,7 +49,8 @@ struct Loaded {
     std::size_t freq = 0;
 };
 
-// The comma-separated names of --environment; an empty item (as in "uniform,,indoor") is refused.
+// The comma-separated names of --environment; an empty item (as in "uniform,,indoor") or a repeated
+// one is refused.
 std::variant<std::vector<std::string>, UsageError> split_names(const std::string& text) {
     std::vector<std::string> out;
     if (text.empty()) return out;
@@ -61,6 +62,9 @@ std::variant<std::vector<std::string>, UsageError> split_names(const std::string
         }
         if (cur.empty())
             return UsageError{"--environment: expected comma-separated environment names, found an empty item in \"" + text + "\""};
+        // each environment once: a repeat would count twice in the score and repeat a JSON key
+        if (std::find(out.begin(), out.end(), cur) != out.end())
+            return UsageError{"--environment: expected each environment once, found \"" + cur + "\" twice in \"" + text + "\""};
         out.push_back(cur);
         cur.clear();
     }

@@ -16,6 +16,7 @@ void json_figures(JsonWriter& j, const RankFigures& f, double outage, RankScore 
     if (f.meg) {
         j.field("meg_db", to_db(f.meg->meg)).field("meg_vertical_db", db(f.meg->meg_vertical));
         j.field("meg_horizontal_db", db(f.meg->meg_horizontal));
+        if (!f.meg->assumption.empty()) j.field("assumption", f.meg->assumption);
     } else {
         j.key("meg_db").null();
         j.field("unavailable_reason", f.meg.error().message);

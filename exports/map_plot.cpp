@@ -9,6 +9,7 @@
 #include "exports/plot_pen.hpp"
 #include "exports/xy_plot.hpp"
 #include "pattern/peak.hpp"
+#include "pattern/polarisation.hpp"
 
 namespace ellipsa::exports {
 
@@ -92,6 +93,9 @@ Result<MapPlot> make_map_plot(const FarFieldSet& s, std::size_t fi, const MapReq
     p.notes.push_back("Each grid sample colours its whole cell; hatched: outside the sampled region; grey: no value "
                       "(zero field). Values beyond the colour bar take its end colours.");
     if (r.quantity == MapQuantity::axial_ratio) p.notes.push_back("A linear field (infinite axial ratio) takes the top colour.");
+    if (r.quantity == MapQuantity::tilt)  // the grey cells of a near-circular beam are not nulls
+        p.notes.push_back("Grey also where the tilt is undefined: axial ratio below " + num(circular_axial_ratio_db, 1) +
+                          " dB (nearly circular).");
     if (b) p.notes.push_back("B: " + b->name + " at " + format_frequency(b->frequencies[fb].frequency_hz) + ".");
     return p;
 }

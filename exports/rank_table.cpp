@@ -141,6 +141,19 @@ void definitions(Document& doc, const Ranking& r, const RankLabels& l) {
                   " dB below the mean (Rayleigh fading, one branch).");
 }
 
+// What a figure assumes (relative data scaled to directivity: a lossless antenna), once per
+// candidate and for the reference: without it a relative file would rank as if it were gain.
+void assumption_notes(Document& doc, const Ranking& r, const RankLabels& l) {
+    const auto said = [](const std::vector<RankFigures>& figs) -> std::string {
+        for (const RankFigures& f : figs)
+            if (f.meg && !f.meg->assumption.empty()) return f.meg->assumption;
+        return "";
+    };
+    for (const RankRow& row : r.rows)
+        if (std::string a = said(row.environments); !a.empty()) doc.note(l.names[row.input] + ": " + a + ".");
+    if (std::string a = said(r.reference); !a.empty()) doc.note("Reference: " + a + ".");
+}
+
 }  // namespace
 
 void rank_blocks(Document& doc, const Ranking& r, const RankLabels& l, int level) {
@@ -148,6 +161,7 @@ void rank_blocks(Document& doc, const Ranking& r, const RankLabels& l, int level
     definitions(doc, r, l);
     for (const RankRow& row : r.rows)
         if (!row.score_db) doc.note(l.names[row.input] + ": no score, " + row.unavailable_reason + ".");
+    assumption_notes(doc, r, l);
     for (std::size_t e = 0; e < l.environments.size(); ++e) {
         doc.heading(level, "Environment " + l.environments[e].name);
         doc.paragraph(describe(l.environments[e]) +

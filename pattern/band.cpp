@@ -171,6 +171,7 @@ BandSummary band_summary(const FarFieldSet& s, const std::vector<std::size_t>& w
     }
     b.gain_1db = gain_bandwidth(fr, pk, 1.0);
     b.gain_3db = gain_bandwidth(fr, pk, 3.0);
+    if (!b.gain_1db) b.gain_unavailable_reason = fr.size() < 2 ? "needs two or more frequencies" : "needs frequencies above 0 Hz";
     if (order.empty()) return b;
     const PatternSummary& mid = rs[order[order.size() / 2]];
     b.ar_theta_deg = dir ? dir->first : mid.peak.theta_deg;

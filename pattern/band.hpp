@@ -108,7 +108,8 @@ std::optional<BandEdges> ar_bandwidth(const std::vector<double>& frequency_hz, c
 struct BandSummary {
     std::optional<BandEdges> gain_1db, gain_3db, ar;
     double ar_theta_deg = 0, ar_phi_deg = 0;
-    std::string ar_unavailable_reason;  // when ar is missing
+    std::string ar_unavailable_reason;    // when ar is missing
+    std::string gain_unavailable_reason;  // when gain_1db and gain_3db are missing
 };
 BandSummary band_summary(const FarFieldSet& s, const std::vector<std::size_t>& freq_indices,
                          const std::vector<PatternSummary>& summaries,

@@ -1,5 +1,7 @@
 #include "pattern/install.hpp"
 
+#include <cstdio>
+
 #include "pattern/phase_centre.hpp"
 #include "pattern/rotate.hpp"
 
@@ -23,6 +25,12 @@ Status move_reference(FarFieldSet& s, const InstallRequest& q, const Mat3& r) {
                 return Error{"", 0, 0, "moving the phase reference by a distance in metres needs the frequency, "
                                        "and this data has none (give it with --assume frequency=...)"};
             c_file = (f.frequency_hz / speed_of_light_m_per_s) * apply_transposed(r, q.reference_point_m);
+        }
+        if (!(norm(c_file) <= max_reference_shift_wl)) {
+            char b[160];
+            std::snprintf(b, sizeof b, "expected a phase reference within %g wavelengths of the origin (beyond, the phases "
+                          "would be rounding noise), found %g wavelengths at ", max_reference_shift_wl, norm(c_file));
+            return Error{"", 0, 0, b + format_frequency(f.frequency_hz)};
         }
         move_phase_reference(s.grid, f, c_file);
     }

@@ -56,6 +56,9 @@ Result<PhaseCentre> estimate_phase_centre(const FarFieldSet& s, std::size_t freq
 // Multiply every sample by exp(-j 2 pi r.c): the fields as seen from the point c (wavelengths),
 // which becomes the new phase reference. Exact (no resampling). Complex data only.
 void move_phase_reference(const Grid& g, FarField& f, Vec3 c_wl);
+// The farthest a phase reference may move, in wavelengths: the phase 2 pi r.c is then still
+// good to about 1e-9 rad in double arithmetic; beyond it the phases would be rounding noise.
+inline constexpr double max_reference_shift_wl = 1e6;
 
 // Estimate every frequency's phase centre and keep it as its interpolation centre (far_field.hpp);
 // frequencies where no estimate is possible keep zero. Does nothing to data without phase.

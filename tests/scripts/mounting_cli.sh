@@ -91,6 +91,9 @@ py "r=json.load(open('n.json'))['results'][0]; assert r['phase_centre'] is None 
   && ok "magnitude-only data: phase_centre null with the reason" || bad "no phase: $(head -c 300 n.json)"
 expect_rc 1 "--phase-centre on magnitude-only data is refused" "$E" info mag.csv --phase-centre auto
 grep -q "needs the phase" err.txt && ok "and says it needs the phase" || bad "message: $(cat err.txt)"
+# A reference 1e300 m away leaves phases that are rounding noise (2 pi r.c far beyond 2^53): refused.
+expect_rc 1 "a phase reference a million wavelengths away or more is refused" "$E" info "z.csv::phase-centre=1e300,0,0"
+grep -q "expected a phase reference within 1e+06 wavelengths of the origin" err.txt && ok "... saying how far it may be" || bad "far reference: $(cat err.txt)"
 
 # Every command that reads patterns takes the options.
 for c in "info z.csv" "probe z.csv --theta 90 --phi 0" "cut z.csv --phi 0 --out c.svg" "map z.csv --out m.png" \

@@ -76,6 +76,14 @@ expect_rc 2 "gain-transfer needs one reference" "$E" gain-transfer aut_rel.csv -
 expect_rc 2 "a gain list without the file's frequency is a usage error" "$E" gain-transfer aut_rel.csv --reference-level 0 --reference-gain "2.4GHz=1" --out x.csv
 grep -q "expected a gain for 5.8 GHz, found none" err.txt && ok "... naming the frequency" || bad "gain list: $(cat err.txt)"
 expect_rc 1 "gain data are refused (already gain)" "$E" gain-transfer aut_g.csv --reference-level 0 --reference-gain 1 --out x.csv
+# A list that gives one frequency two gains, or bare gains among several items, is ambiguous:
+# refused rather than the last item silently winning.
+expect_rc 2 "two gains for one frequency are refused" "$E" gain-transfer aut_rel.csv --reference-level 0 --reference-gain "5.8GHz=1,5.8GHz=2" --out x.csv
+grep -q "expected one gain for 5.8 GHz, found two items that match it" err.txt && ok "... naming the frequency" || bad "duplicate gain: $(cat err.txt)"
+expect_rc 2 "two items within 0.5 % of one frequency are refused" "$E" gain-transfer aut_rel.csv --reference-level 0 --reference-gain "5.79GHz=1,5.81GHz=2" --out x.csv
+expect_rc 2 "bare gains among several items are refused" "$E" gain-transfer aut_rel.csv --reference-level 0 --reference-gain "1,2" --out x.csv
+grep -q "found a gain without a frequency among 2 items" err.txt && ok "... saying what is missing" || bad "bare gains: $(cat err.txt)"
+[[ ! -e x.csv ]] && ok "... and nothing is written" || bad "x.csv written by a refused transfer"
 
 # --- The viewer: the same options, and scripted runs that fail instead of falling back ---
 [[ $has_view == 0 ]] && { echo "built without the viewer: its checks are skipped"; finish; exit; }

@@ -10,6 +10,16 @@ expect_rc 0 "synth z dipole" "$E" synth dipole --step 2 --out z.csv
 expect_rc 0 "synth x dipole (lying)" "$E" synth dipole --rotate-y 90 --step 2 --out x.csv
 expect_rc 0 "synth small loop" "$E" synth small-loop --step 2 --out loop.csv
 expect_rc 2 "rank refuses an empty environment name in the list" "$E" rank x.csv z.csv --environment uniform,,urban
+expect_rc 2 "rank refuses an environment named twice (it would count twice in the score)" "$E" rank x.csv z.csv --environment urban,indoor,urban
+grep -q 'expected each environment once, found "urban" twice' err.txt && ok "... naming it" || bad "repeated environment: $(cat err.txt)"
+# Relative levels have no absolute scale: MEG scales them to directivity (a lossless antenna,
+# pattern/diversity.hpp), and the ranking must say so rather than rank them as if they were gain.
+"$E" convert z.csv zrel.csv --assume quantity=relative >/dev/null
+expect_rc 0 "rank a relative-level file" "$E" rank zrel.csv x.csv --environment uniform --no-orientations
+grep -q "dipole: relative data scaled to directivity over the full sphere: assumes a lossless antenna" out.txt && ok "... says what it assumed" || bad "relative note: $(tail -5 out.txt)"
+expect_rc 0 "... and in JSON" "$E" rank zrel.csv x.csv --environment uniform --no-orientations --json
+py "r=[r for r in d['rows'] if r['file']=='zrel.csv'][0]['environments']['uniform']; assert 'lossless' in r['assumption']; assert 'assumption' not in [r for r in d['rows'] if r['file']=='x.csv'][0]['environments']['uniform']" \
+  && ok "... an assumption field on the relative file's figures only" || bad "relative assumption in JSON"
 expect_rc 0 "rank three, two environments, JSON" "$E" rank x.csv loop.csv z.csv --environment uniform,urban --json
 py "s=[r['score_db'] for r in d['rows']]; assert s == sorted(s, reverse=True), s; assert [r['rank'] for r in d['rows']] == [1,2,3]" \
   && ok "rows sorted by score_db descending" || bad "rows not sorted: $(head -c 300 out.txt)"

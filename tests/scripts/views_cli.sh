@@ -37,6 +37,12 @@ expect_rc 2 "band: bad direction" "$E" band "$BAND" --out x.svg --direction 200,
 expect_rc 2 "band: --pair needs two files" "$E" band "$BAND" --out x.svg --pair
 expect_rc 2 "band: unknown extension" "$E" band "$BAND" --out x.txt
 [[ ! -e x.svg ]] && ok "nothing written on usage errors" || bad "x.svg written despite errors"
+# One frequency has no band: every band figure says why instead of a bare "unavailable".
+"$E" synth dipole --step 5 --out one.csv >/dev/null
+expect_rc 0 "band of a one-frequency file" "$E" band one.csv --out one.json
+grep -q "peak within 1 dB      unavailable (needs two or more frequencies)" out.txt && ok "... the gain band says why it is missing" || bad "one-frequency band: $(cat out.txt)"
+python3 -c "import json; b=json.load(open('one.json'))['patterns'][0]['band']; assert b['gain_bandwidth_1db'] is None and b['gain_bandwidth_unavailable_reason'] == 'needs two or more frequencies' and b['ar_bandwidth_unavailable_reason'] == 'needs two or more frequencies'" \
+  && ok "... and so does the JSON" || bad "one-frequency band JSON"
 
 # ---- map
 TS=$SRC/examples/turnstile.csv
