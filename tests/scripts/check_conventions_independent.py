@@ -18,6 +18,7 @@ commands with --json (or the cut's CSV), and compares every figure with the clos
   honest    the documented thresholds (linear, circular tilt, null floor) on both sides, every output
   gain_transfer  IEEE Std 149 sec. 12 gain comparison, sample by sample
   rank      candidates against the reference dipole
+  simulation_ci  the simulation's 95 % intervals hold the exact values about 95 % of the time
 Tolerances, with their reasons, are beside each group (TOL_*). Usage:
   check_conventions_independent.py ELLIPSA WORKDIR SOURCE_DIR
 """
@@ -1302,9 +1303,47 @@ def check_per_file():
         for i, axis in enumerate("xyz"):
             check(f"phase centre of the {label}, {axis} (wavelengths)", pc[i], want[i], 1e-3)
 
+
+# ---------------------------------------------------------------- the simulation's intervals
+def check_simulation_ci():
+    """The random-field simulation's 95 % intervals are honest: over 40 seeds, the exact values
+    (MEG and ECC from the reference's quadrature, the exact selection and MRC levels) fall inside
+    them about 38 times. Binomial(40, 0.95): 34 or more with probability 0.99 (common practice for
+    a coverage check); the seeds are fixed, so the check is repeatable."""
+    print("== fading simulation: coverage of its 95 % intervals over 40 seeds")
+    label, opts, env = ENVS[-1]
+    a, b = "rhcp_tilt", "half_x"
+    g1, g2 = meg_of(label, a, env)[0], meg_of(label, b, env)[0]
+    rho = cr.ecc(ANT[a][0], ANT[b][0], env)[0]
+    want = {"mean A": cr.db(g1), "mean B": cr.db(g2), "ECC": rho,
+            "selection 0.1": cr.db(cr.level(lambda x: cr.cdf_selection(x, g1, g2, rho), 0.1, max(g1, g2))),
+            "MRC 0.1": cr.db(cr.level(lambda x: cr.cdf_mrc(x, g1, g2, rho), 0.1, max(g1, g2)))}
+    inside = {k: 0 for k in want}
+    widths = []
+    seeds = range(1, 41)
+    for seed in seeds:
+        r = run_json("fading", FILES[a], FILES[b], *opts, "--samples", "2000", "--seed", str(seed), "--outage", "0.1")
+        got = {"mean A": r["patterns"][0]["mean_ci95_db"], "mean B": r["patterns"][1]["mean_ci95_db"],
+               "ECC": r["pair"]["power_correlation_ci95"], "selection 0.1": r["pair"]["selection_levels_ci95_db"]["0.1"],
+               "MRC 0.1": r["pair"]["mrc_levels_ci95_db"]["0.1"]}
+        for k, (lo, hi) in got.items():
+            inside[k] += lo <= want[k] <= hi
+        widths.append(got["mean A"][1] - got["mean A"][0])
+    # and not wider than they need be: the mean of N exponential powers has a relative standard
+    # error of 1/sqrt(N), so the interval spans about 2 * 1.96 / sqrt(N) in linear terms
+    half = 1.96 / math.sqrt(2000)
+    check("simulation 95 % interval of the mean: median width against 1.96/sqrt(N) either side (dB)",
+          float(np.median(widths)), cr.db((1 + half) / (1 - half)), 0.25 * cr.db((1 + half) / (1 - half)))
+    for k, n in inside.items():
+        ok = 34 <= n
+        PASSED[0] += ok
+        if not ok:
+            FAIL.append(f"simulation interval coverage {k}")
+        print(f"{'ok  ' if ok else 'FAIL'} simulation 95 % interval of {k} holds the exact value in {n} of {len(seeds)} seeds (at least 34)")
+
 if __name__ == "__main__":
     ONLY = sys.argv[4:]  # optional: run only these groups (while iterating)
-    for group in ("info", "probe", "cut", "diversity", "fading", "band", "coverage", "examples", "orientations", "profile", "families", "beam_extras", "mounting", "phase_centre", "rank", "honest", "gain_transfer", "per_file"):
+    for group in ("info", "probe", "cut", "diversity", "fading", "band", "coverage", "examples", "orientations", "profile", "families", "beam_extras", "mounting", "phase_centre", "rank", "honest", "gain_transfer", "per_file", "simulation_ci"):
         if not ONLY or group in ONLY:
             start = time.monotonic()
             globals()["check_" + group]()
