@@ -49,6 +49,7 @@ TextSource TextSource::memory(std::string_view text) {
 
 Result<TextSource> TextSource::open(const std::string& path) {
     struct stat st {};
+    if (path.empty()) return Error{"", 0, 0, "expected a file name, found an empty one"};  // "" (an unset variable in a script)
     if (::stat(path.c_str(), &st) != 0) return Error{path, 0, 0, "cannot open the file: " + reason(errno)};
     if (S_ISDIR(st.st_mode)) return Error{path, 0, 0, "expected a file, found a directory"};
     if (!S_ISREG(st.st_mode)) return Error{path, 0, 0, "expected a regular file, found a device, pipe or socket"};

@@ -92,4 +92,15 @@ timeout 20 "$E" info "$R3" --map-file fifo.map 2>err.txt; rc=$?
 [[ $rc == 1 ]] && ok "--map-file FIFO is refused without blocking" || bad "FIFO map: $rc"
 timeout 20 "$E" info "$R3" --map-file . 2>err.txt; rc=$?
 [[ $rc == 1 ]] && grep -q 'found a folder' err.txt && ok "--map-file on a folder is refused" || bad "folder map: $rc"
+# A FIFO anywhere a file is read is refused at once (opening one without a writer would block),
+# naming it; an empty file name (an unset variable in a script) says so.
+mkfifo fifo.csv
+"$E" synth short-dipole --step 10 --out sd.csv >/dev/null && "$E" convert sd.csv sdrel.csv --assume quantity=relative >/dev/null
+for args in "info fifo.csv" "info sd.csv::join=fifo.csv" "info $R3::map=fifo.map" "diversity sd.csv --environment profile --profile fifo.csv" \
+            "gain-transfer sdrel.csv --reference fifo.csv --reference-gain 0 --out gt.csv" "rank sd.csv --reference fifo.csv --no-orientations"; do
+  timeout 20 "$E" $args >/dev/null 2>err.txt; rc=$?
+  [[ $rc == 1 ]] && grep -q "fifo\.[a-z]*: expected .*a regular file.*found a device, pipe or socket" err.txt && ok "FIFO refused: $args" || bad "FIFO ($args): rc $rc, $(cat err.txt)"
+done
+timeout 20 "$E" info "" 2>err.txt; rc=$?
+[[ $rc == 1 ]] && grep -q "expected a file name, found an empty one" err.txt && ok "an empty file name is refused, saying so" || bad "empty name: rc $rc, $(cat err.txt)"
 finish
