@@ -1294,6 +1294,16 @@ def check_per_file():
     b = run_json("diversity", FILES["half_x"], FILES["half_y"], "--up", "+x", "--environment", "indoor")
     c = run_json("diversity", FILES["half_x"] + "::up=+x", FILES["half_y"] + "::up=+x", "--environment", "indoor")
     check("per-file ::up on both files equals --up (ECC)", c["ecc"], b["ecc"], 1e-12)
+    # the file's own mounting metadata (docs/far-field-csv.md) turns it the same way, and a
+    # per-file key replaces it
+    meta = f"{WORK}/half_x_mounted.csv"
+    with open(FILES["half_x"], encoding="utf-8") as f, open(meta, "w", encoding="utf-8") as g:
+        g.write("# mounting-up: 60,120\n# mounting-turns: x:20,z:-45\n" + f.read())
+    want = cr.meg(turned("half_x", up_vector((60.0, 120.0)), [("x", 20), ("z", -45)]), env)[0]
+    d = run_json("diversity", meta, "--environment", "indoor")["patterns"][0]
+    check("file metadata mounting-up 60,120 and mounting-turns x:20,z:-45: MEG of the turned closed form", d["meg_db"], cr.db(want), TOL_MEG_DB)
+    d = run_json("diversity", meta + "::up=+x", "--environment", "indoor")["patterns"][0]
+    check("a per-file ::up=+x replaces the file's mounting: MEG", d["meg_db"], cr.db(want_a), TOL_MEG_DB)
     lam = 299792458.0 / F0
     spec = ",".join(repr(v * lam) for v in D_SHIFT)
     for label, path, want in (("displaced dipole with ::phase-centre=d", FILES["short_z_shift"] + "::phase-centre=" + spec, (0, 0, 0)),
