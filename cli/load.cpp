@@ -19,15 +19,20 @@ bool names_pattern_file(const CLI::Option* opt) {
            n == "--reference";
 }
 
-// Keeps PATH of "PATH::key=value..." and records the file's own options.
+// Keeps PATH of "PATH::key=value..." and records the file with its own options (none for a plain
+// PATH). The options are found again by path (prepare_load), so a path named twice when either
+// mention has options is refused: the options would silently apply to both mentions.
 std::string take_file_options(const std::string& arg, LoadOptions& o) {
     auto f = parse_file_argument(arg);
     if (!f) throw CLI::ValidationError(f.error().format());
-    if (has_options(f->own)) {
-        for (const auto& [path, _] : o.per_file)
-            if (path == f->path) throw CLI::ValidationError(f->path + ": expected the options of one file once, found them again");
-        o.per_file.emplace_back(f->path, f->own);
+    for (const auto& [path, own] : o.per_file) {
+        if (path != f->path || (!has_options(own) && !has_options(f->own))) continue;
+        if (has_options(own) && has_options(f->own))
+            throw CLI::ValidationError(f->path + ": expected the options of one file once, found them again");
+        throw CLI::ValidationError(f->path + ": expected a file with its own options (FILE::key=value) to be named once, found it "
+                                             "again (its options would apply to both; give the other mention a copy of the file)");
     }
+    o.per_file.emplace_back(f->path, f->own);
     return f->path;
 }
 }  // namespace

@@ -113,6 +113,15 @@ grep -q "expected turns AXIS:DEG" err.txt && ok "--rotate says what it expects" 
 expect_rc 2 "--rotate w:10" "$E" diversity z.csv --rotate w:10
 expect_rc 2 "--phase-centre 1,2" "$E" info z.csv --phase-centre 1,2
 grep -q "expected X,Y,Z in metres" err.txt && ok "--phase-centre says what it expects" || bad "$(cat err.txt)"
+# Per-file options are found again by path: one file named twice, once with options, would give
+# both mentions the options (a z dipole against itself "turned" gave ECC 1). Refused, either order;
+# a file named twice without options stays allowed.
+expect_rc 2 "a file named plain and with ::up= is refused" "$E" diversity z.csv "z.csv::up=+x"
+grep -q "z.csv: expected a file with its own options (FILE::key=value) to be named once, found it again" err.txt \
+  && ok "... saying the options would apply to both" || bad "plain + options: $(cat err.txt)"
+expect_rc 2 "... in the other order too" "$E" diversity "z.csv::up=+x" z.csv
+expect_rc 2 "... and as a gain-transfer reference" "$E" gain-transfer "z.csv::assume=quantity=relative" --reference z.csv --reference-gain 0 --out gt.csv
+expect_rc 0 "a file named twice without options is read twice" "$E" diversity z.csv z.csv
 sed 's/^# mounting-up: +x$/# mounting-up: upwards/' xm.csv >bad.csv
 expect_rc 1 "a bad mounting-up line" "$E" info bad.csv
 grep -q "bad.csv:[0-9]*:16: mounting-up: expected an axis" err.txt && ok "the file's line and column" || bad "$(cat err.txt)"
