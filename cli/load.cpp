@@ -170,6 +170,7 @@ Result<CsvReadOptions> read_options(const FileOptions& o) {
 }
 
 Result<FileArgument> parse_file_argument(const std::string& arg) {
+    if (arg.empty()) return Error{"", 0, 0, "expected a file name, found an empty one"};  // "" (an unset variable in a script)
     const std::size_t cut = arg.find("::");
     if (cut == std::string::npos || exists(arg)) return FileArgument{arg, {}};
     FileArgument out{arg.substr(0, cut), {}};

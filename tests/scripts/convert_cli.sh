@@ -102,5 +102,7 @@ for args in "info fifo.csv" "info sd.csv::join=fifo.csv" "info $R3::map=fifo.map
   [[ $rc == 1 ]] && grep -q "fifo\.[a-z]*: expected .*a regular file.*found a device, pipe or socket" err.txt && ok "FIFO refused: $args" || bad "FIFO ($args): rc $rc, $(cat err.txt)"
 done
 timeout 20 "$E" info "" 2>err.txt; rc=$?
-[[ $rc == 1 ]] && grep -q "expected a file name, found an empty one" err.txt && ok "an empty file name is refused, saying so" || bad "empty name: rc $rc, $(cat err.txt)"
+[[ $rc == 2 ]] && grep -q "expected a file name, found an empty one" err.txt && ok "an empty file name is a usage error, saying so" || bad "empty name: rc $rc, $(cat err.txt)"
+timeout 20 "$E" diversity sd.csv --environment profile --profile "" 2>err.txt; rc=$?
+[[ $rc == 1 || $rc == 2 ]] && grep -q "expected a file name, found an empty one\|needs --profile FILE" err.txt && ok "an empty --profile is refused, saying so" || bad "empty profile: rc $rc, $(cat err.txt)"
 finish
