@@ -141,8 +141,12 @@ void draw_axis_labels(ImDrawList* dl, const OrbitCamera& cam, ImVec2 origin, ImV
     for (const Axis& a : axes) {
         Projected p = project(cam, a.tip * 1.04, size.x, size.y);
         if (!p.visible) continue;
-        dl->AddText(f, f->FontSize, ImVec2(origin.x + float(p.x) + 3, origin.y + float(p.y) - f->FontSize * 0.5f), a.col,
-                    a.label);
+        // On a light, translucent card: the tip of an axis pointing at the viewer lies over the
+        // surface, where the bare text was lost among the colours and ellipses.
+        const ImVec2 at(origin.x + float(p.x) + 3, origin.y + float(p.y) - f->FontSize * 0.5f);
+        const ImVec2 ts = f->CalcTextSizeA(f->FontSize, 1e9f, 0, a.label);
+        dl->AddRectFilled(ImVec2(at.x - 2, at.y - 1), ImVec2(at.x + ts.x + 2, at.y + ts.y + 1), IM_COL32(255, 255, 255, 200), 3.0f);
+        dl->AddText(f, f->FontSize, at, a.col, a.label);
     }
 }
 
