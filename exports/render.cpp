@@ -8,6 +8,7 @@
 #include <cmath>
 #include <cstdint>
 #include <cstring>
+#include <utility>
 #include <vector>
 
 #include "exports/png.hpp"
@@ -94,6 +95,41 @@ Result<std::string> surface_png(cairo_surface_t* surface) {
     return encode_png(rgb.data(), w, h, 3, std::size_t(w) * 3);
 }
 
+// Cairo 1.16 names an SVG's page group and its embedded images after the surfaces' unique ids,
+// which count every Cairo surface the process has made ("surface1" in a fresh command,
+// "surface241" in a Python session after a PNG). Those names are renumbered in order of first
+// appearance, in their definitions (id="...") and references (#...), so the same figure gives
+// the same bytes whatever was drawn before it. Glyph, clip and pattern names count per document.
+void renumber_svg_ids(std::string& svg) {
+    std::string out;
+    out.reserve(svg.size());
+    std::vector<std::pair<std::string, std::string>> seen;  // old name -> new name
+    std::size_t i = 0;
+    while (i < svg.size()) {
+        const bool opens = svg[i] == '#' || (svg[i] == '"' && i >= 3 && svg.compare(i - 3, 3, "id=") == 0);
+        std::size_t stem = 0;
+        for (const char* p : {"surface", "image"})
+            if (opens && svg.compare(i + 1, std::strlen(p), p) == 0) stem = std::strlen(p);
+        std::size_t end = i + 1 + stem;
+        while (stem && end < svg.size() && std::isdigit(static_cast<unsigned char>(svg[end]))) ++end;
+        if (!stem || end == i + 1 + stem || end >= svg.size() || (svg[end] != '"' && svg[end] != ')')) {
+            out += svg[i++];
+            continue;
+        }
+        const std::string name = svg.substr(i + 1, end - i - 1), prefix = svg.substr(i + 1, stem);
+        auto it = std::find_if(seen.begin(), seen.end(), [&](const auto& kv) { return kv.first == name; });
+        if (it == seen.end()) {
+            const auto count = std::count_if(seen.begin(), seen.end(),
+                                             [&](const auto& kv) { return kv.first.compare(0, stem, prefix) == 0; });
+            it = seen.insert(seen.end(), {name, prefix + std::to_string(count + 1)});
+        }
+        out += svg[i];
+        out += it->second;
+        i = end;
+    }
+    svg.swap(out);
+}
+
 }  // namespace
 
 Result<std::string> render_image(const Drawing& draw, FileFormat format, const RenderSize& size,
@@ -136,6 +172,7 @@ Result<std::string> render_image(const Drawing& draw, FileFormat format, const R
     cairo_surface_destroy(surface);
     if (st != CAIRO_STATUS_SUCCESS) return cairo_error("drawing failed", st);
     if (format == FileFormat::png) return png;
+    if (format == FileFormat::svg) renumber_svg_ids(out);
     return out;
 }
 
