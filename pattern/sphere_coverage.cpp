@@ -1,6 +1,7 @@
 #include "pattern/sphere_coverage.hpp"
 
 #include <algorithm>
+#include <array>
 #include <cmath>
 #include <numeric>
 #include <utility>
@@ -48,10 +49,68 @@ void add_quarter(double v, double nt, double np, double nd, const Stretch& st, c
     add(lo, hi, w);
 }
 
-// Every quarter cell inside the band t_lo..t_hi (theta, radians): add(lo, hi, solid angle).
-// Returns the sampled solid angle of the band (NaN samples included).
+// Where a neighbour's value is missing (NaN), the sample's own stands in (see at() below).
+inline double or_own(double x, double own) { return std::isnan(x) ? own : x; }
+
+// add_quarter() for an unclipped quarter (fractions 0 and 1 on both axes): its corners are v,
+// the two half-way values and the corner value. The same figures bit for bit as add_quarter()
+// when every value is finite and at most 1e300 in size (so that no sum overflows and x * 0 is
+// a zero, which max(0, ...) turns into +0 as it does there).
 template <class Add>
-double for_each_quarter(const Grid& g, const std::vector<double>& values, double t_lo, double t_hi, Add add) {
+void add_unclipped_quarter(double v, double nt, double np, double nd, double w, Add& add) {
+    if (!(w > 0)) return;
+    const double dt = (nt - v) / 2, dp = (np - v) / 2, dx = (v - nt - np + nd) / 4;
+    const double c00 = std::max(0.0, v), c01 = std::max(0.0, v + dp), c10 = std::max(0.0, v + dt);
+    const double c11 = std::max(0.0, v + dt + dp + dx);
+    add(std::min(std::min(c00, c01), std::min(c10, c11)), std::max(std::max(c00, c01), std::max(c10, c11)), w);
+}
+
+// True when every value is NaN or finite and at most 1e300 in size (add_unclipped_quarter's condition).
+bool values_moderate(const std::vector<double>& values) {
+    bool ok = true;
+    for (const double x : values) ok &= !(std::abs(x) > 1e300);
+    return ok;
+}
+
+// One sample's four quarters by the general path (any clipping, any neighbour missing).
+// at(i, j, own): a neighbour's value, or `own` where there is none.
+template <class At, class Add>
+void general_sample(int i, int j, double v, const Stretch th[2], const Stretch ph[2], At& at, Add& add) {
+    for (int a = 0; a < 2; ++a)
+        for (int b = 0; b < 2; ++b) {
+            const double vt = at(i + 2 * a - 1, j, v), vp = at(i, j + 2 * b - 1, v);
+            add_quarter(v, vt, vp, at(i + 2 * a - 1, j + 2 * b - 1, vt + vp - v), th[a], ph[b], add);
+        }
+}
+
+// The four quarters of sample j of an unclipped row (r: the row, rt[0], rt[1]: the rows before
+// and after; jn: the neighbouring columns) whose column is unclipped too. The same add() calls,
+// in the same order and with the same figures, as general_sample().
+template <class Add>
+void unclipped_sample(const double* r, const double* const rt[2], const int jn[2], int j, const Stretch th[2],
+                      const Stretch ph[2], Add& add) {
+    const double v = r[j];
+    const double vt[2] = {or_own(rt[0][j], v), or_own(rt[1][j], v)};
+    const double vp[2] = {or_own(r[jn[0]], v), or_own(r[jn[1]], v)};
+    for (int a = 0; a < 2; ++a)
+        for (int b = 0; b < 2; ++b)
+            add_unclipped_quarter(v, vt[a], vp[b], or_own(rt[a][jn[b]], vt[a] + vp[b] - v), th[a].measure * ph[b].measure, add);
+}
+
+bool unclipped(const Stretch s[2]) {
+    return s[0].measure > 0 && s[1].measure > 0 && s[0].f0 == 0 && s[0].f1 == 1 && s[1].f0 == 0 && s[1].f1 == 1;
+}
+
+// Every quarter cell inside the band t_lo..t_hi (theta, radians): add(lo, hi, solid angle), in
+// the order of the samples (row by row), each sample's four quarters in the order (theta side,
+// phi side) = (-,-), (-,+), (+,-), (+,+). Returns the sampled solid angle of the band (NaN
+// samples included). The general path (add_quarter on each sample's clipped stretches) is the
+// definition; where a row and a column are both unclipped (the interior of the grid, and every
+// column of a wrapping one) and the values moderate, a fast path gives the same calls, bit for
+// bit (tests/unit/test_sphere_coverage.cpp compares the two). general_only: the definition alone.
+template <class Add>
+double for_each_quarter(const Grid& g, const std::vector<double>& values, double t_lo, double t_hi, Add add,
+                        bool general_only = false) {
     // The cells of pattern/integrate, clipped to the sampled range and to the band, in halves.
     const double dt = g.theta.step_deg * deg, dp = g.phi.step_deg * deg;
     const double lo_t = std::max({0.0, g.theta.start_deg * deg, t_lo}), hi_t = std::min({pi, g.theta.last_deg() * deg, t_hi});
@@ -64,25 +123,33 @@ double for_each_quarter(const Grid& g, const std::vector<double>& values, double
     auto at = [&](int i, int j, double own) {
         if (wraps) j = (j + np) % np;
         if (i < 0 || i >= nt || j < 0 || j >= np) return own;
-        const double x = values[g.index(i, j)];
-        return std::isnan(x) ? own : x;
+        return or_own(values[g.index(i, j)], own);
     };
+    // Each column's phi stretches (the same in every row), its neighbours, and whether it is unclipped.
+    std::vector<std::array<Stretch, 2>> ph(std::size_t(std::max(np, 0)));
+    std::vector<std::array<int, 2>> jn(ph.size());
+    std::vector<unsigned char> col_fast(ph.size(), 0);
+    for (int j = 0; j < np; ++j) {
+        const double p = g.phi.value_deg(j) * deg;
+        ph[j] = {stretch(p, p - dp / 2, lo_p, hi_p, width), stretch(p, p + dp / 2, lo_p, hi_p, width)};
+        jn[j] = {wraps ? (j - 1 + np) % np : j - 1, wraps ? (j + 1) % np : j + 1};
+        col_fast[j] = unclipped(ph[j].data()) && jn[j][0] >= 0 && jn[j][1] < np;
+    }
+    const bool fast = !general_only && values_moderate(values);
     double sampled = 0;
     for (int i = 0; i < nt; ++i) {
         const double t = g.theta.value_deg(i) * deg;
         const Stretch th[2] = {stretch(t, t - dt / 2, lo_t, hi_t, solid), stretch(t, t + dt / 2, lo_t, hi_t, solid)};
         if (!(th[0].measure + th[1].measure > 0)) continue;
+        const bool row_fast = fast && unclipped(th) && i > 0 && i + 1 < nt;
+        const double* r = values.data() + g.index(i, 0);
+        const double* const rt[2] = {row_fast ? r - np : r, row_fast ? r + np : r};
         for (int j = 0; j < np; ++j) {
-            const double p = g.phi.value_deg(j) * deg;
-            const Stretch ph[2] = {stretch(p, p - dp / 2, lo_p, hi_p, width), stretch(p, p + dp / 2, lo_p, hi_p, width)};
-            sampled += (th[0].measure + th[1].measure) * (ph[0].measure + ph[1].measure);
-            const double v = values[g.index(i, j)];
+            sampled += (th[0].measure + th[1].measure) * (ph[j][0].measure + ph[j][1].measure);
+            const double v = r[j];
             if (std::isnan(v)) continue;
-            for (int a = 0; a < 2; ++a)
-                for (int b = 0; b < 2; ++b) {
-                    const double vt = at(i + 2 * a - 1, j, v), vp = at(i, j + 2 * b - 1, v);
-                    add_quarter(v, vt, vp, at(i + 2 * a - 1, j + 2 * b - 1, vt + vp - v), th[a], ph[b], add);
-                }
+            if (row_fast && col_fast[j]) unclipped_sample(r, rt, jn[j].data(), j, th, ph[j].data(), add);
+            else general_sample(i, j, v, th, ph[j].data(), at, add);
         }
     }
     return sampled;
@@ -153,6 +220,13 @@ double solid_angle_at_or_above(const Grid& g, const std::vector<double>& values,
         else if (hi >= level) sum += w;
     });
     return sum;
+}
+
+std::vector<QuarterCell> quarter_cells(const Grid& g, const std::vector<double>& values, ElevationBand band, bool general_only) {
+    const auto [t_lo, t_hi] = band_theta(band);
+    std::vector<QuarterCell> out;
+    for_each_quarter(g, values, t_lo, t_hi, [&](double lo, double hi, double w) { out.push_back({lo, hi, w}); }, general_only);
+    return out;
 }
 
 double share_at_or_above(const CoverageCurve& c, double level_db) {

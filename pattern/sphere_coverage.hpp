@@ -59,6 +59,16 @@ double share_at_or_above(const CoverageCurve& c, double level_db);
 // For one level of any quantity that is smooth between samples (ar_solid_angle uses it for |V|/I).
 double solid_angle_at_or_above(const Grid& g, const std::vector<double>& values, double level, ElevationBand band = {});
 
+// One quarter cell of the model above: the range of values its interpolant spans and its solid angle.
+struct QuarterCell {
+    double lo = 0, hi = 0, solid_angle_sr = 0;
+};
+// Every quarter cell inside the band, in the order the figures above sum them. The general path
+// (each sample's cells clipped on its own) is the definition; by default a faster path takes
+// the unclipped interior of the grid. general_only: the definition alone. For tests, which
+// hold the two to the same cells bit for bit.
+std::vector<QuarterCell> quarter_cells(const Grid& g, const std::vector<double>& values, ElevationBand band, bool general_only);
+
 // Linear power of a component at every grid sample of one frequency, as a new array
 // (component_power_grid of pattern/components.hpp). The caller checks that the data can give it.
 std::vector<double> component_power_samples(const FarFieldSet& s, std::size_t freq_index, Component c);

@@ -2,6 +2,7 @@
 #include <catch2/catch.hpp>
 
 #include <cmath>
+#include <cstring>
 
 #include "pattern/integrate.hpp"
 #include "pattern/reference.hpp"
@@ -108,4 +109,89 @@ TEST_CASE("coverage per component and best of two", "[coverage]") {
     // The horizontal (phi) part of the z dipole is zero everywhere: no share above any finite level.
     const auto h = component_power_samples(a, 0, Component::horizontal);
     CHECK(share_at_or_above(coverage_curve(a.grid, h, {}), -100) == 0);
+}
+
+namespace {
+// Values on a grid: a smooth pattern with some exact zeros, negative dips, a few NaN holes.
+std::vector<double> test_values(const Grid& g, double nan_share, unsigned seed) {
+    std::vector<double> v(g.size());
+    unsigned x = seed;
+    for (int i = 0; i < g.theta.count; ++i)
+        for (int j = 0; j < g.phi.count; ++j) {
+            x = x * 1664525u + 1013904223u;  // Numerical Recipes' LCG (value from memory)
+            const double t = g.theta.value_deg(i) * deg, p = g.phi.value_deg(j) * deg;
+            double y = std::sin(t) * std::sin(t) * (1 + 0.4 * std::cos(3 * p)) - 0.05 + 0.01 * double(x >> 24) / 256;
+            if ((x >> 8) % 17 == 0) y = 0;
+            if (double((x >> 12) % 1000) < 1000 * nan_share) y = std::nan("");
+            v[g.index(i, j)] = y;
+        }
+    return v;
+}
+
+bool same_bits(double a, double b) { return std::memcmp(&a, &b, sizeof a) == 0; }
+}  // namespace
+
+TEST_CASE("the quarter cells' fast path gives the general path's cells bit for bit", "[coverage]") {
+    // Reference: the general path (each sample's stretches clipped on their own, a neighbour
+    // looked up with every check) is the project's own definition of the quarter-cell model
+    // (pattern/sphere_coverage.hpp; the cells of docs/conventions.md). The fast path takes the
+    // unclipped interior; both must hand the sums the same cells in the same order.
+    struct Case {
+        const char* what;
+        AngleAxis theta, phi;
+        ElevationBand band;
+        double nan_share;
+    };
+    const Case cases[] = {
+        {"full sphere, wrapping phi", {0, 5, 37}, {0, 5, 72}, {}, 0},
+        {"full sphere, phi -180..175, NaN holes", {0, 2.5, 73}, {-180, 2.5, 144}, {}, 0.05},
+        {"full sphere with a band cutting cells", {0, 3, 61}, {0, 3, 120}, {-17.3, 42.1}, 0.02},
+        {"upper hemisphere, wrapping", {0, 2, 46}, {0, 2, 180}, {}, 0.01},
+        {"half-open theta, no poles", {2.5, 5, 36}, {0, 5, 72}, horizon_band(30), 0},
+        {"phi range that does not wrap", {0, 4, 46}, {-60, 4, 31}, {}, 0.03},
+        {"phi range that does not wrap, band", {10, 1.5, 80}, {20, 1.5, 61}, {-5, 75}, 0.1},
+        {"a single row", {90, 1, 1}, {0, 10, 36}, {}, 0},
+        {"a single column", {0, 10, 19}, {0, 10, 1}, {}, 0},
+        {"mostly NaN", {0, 5, 37}, {0, 5, 72}, {}, 0.7},
+    };
+    for (const Case& c : cases) {
+        Grid g;
+        g.theta = c.theta;
+        g.phi = c.phi;
+        for (unsigned seed : {1u, 7u, 123u}) {
+            const std::vector<double> v = test_values(g, c.nan_share, seed);
+            const std::vector<QuarterCell> fast = quarter_cells(g, v, c.band, false);
+            const std::vector<QuarterCell> general = quarter_cells(g, v, c.band, true);
+            INFO(c.what << ", seed " << seed);
+            REQUIRE(fast.size() == general.size());
+            if (g.theta.count > 1 && g.phi.count > 1) CHECK(!general.empty());  // one row or column: no area
+            std::size_t differ = 0;
+            for (std::size_t k = 0; k < fast.size(); ++k)
+                differ += !same_bits(fast[k].lo, general[k].lo) || !same_bits(fast[k].hi, general[k].hi) ||
+                          !same_bits(fast[k].solid_angle_sr, general[k].solid_angle_sr);
+            CHECK(differ == 0);
+        }
+    }
+}
+
+TEST_CASE("the quarter cells: huge or infinite values take the general path", "[coverage]") {
+    // The fast path holds only for values within 1e300 (no overflow in its differences); beyond,
+    // the general path (the definition, as above) serves the whole grid, infinities included.
+    Grid g;
+    g.theta = {0, 10, 19};
+    g.phi = {0, 10, 36};
+    std::vector<double> v = test_values(g, 0.05, 5);
+    v[g.index(9, 9)] = INFINITY;
+    v[g.index(4, 20)] = 1e305;
+    const std::vector<QuarterCell> fast = quarter_cells(g, v, {}, false), general = quarter_cells(g, v, {}, true);
+    REQUIRE(fast.size() == general.size());
+    for (std::size_t k = 0; k < fast.size(); ++k) {
+        INFO("cell " << k);
+        CHECK(same_bits(fast[k].lo, general[k].lo));
+        CHECK(same_bits(fast[k].hi, general[k].hi));
+    }
+    // With an infinite neighbour the hi of a cell is infinite (the interpolant reaches it).
+    bool any_inf = false;
+    for (const QuarterCell& q : general) any_inf |= std::isinf(q.hi);
+    CHECK(any_inf);
 }
