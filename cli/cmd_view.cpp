@@ -45,6 +45,19 @@ std::string existing_output(const ViewArgs& a) {
     return "";
 }
 
+// A file named in the window (typed, recent, dropped, chosen) and the map file typed beside it,
+// read as a FILE argument of the command line: "co.csv::join=cross.csv" or "x.csv::up=+x" work
+// there too; the command's own options are not applied to it.
+Result<viewer::FileRequest> prepare_in_window(const std::string& text, const std::string& map) {
+    LoadOptions none;
+    none.map_file = map;
+    auto p = prepare_load(text, none);
+    if (!p) return p.error();
+    auto install = install_request(p->mounting);
+    if (!install) return Error{p->path, 0, 0, install.error().message};
+    return viewer::FileRequest{p->path, std::move(p->join), std::move(p->options), std::move(*install)};
+}
+
 // Every file's reader options, made here as for every other command (cli/load.hpp); a bad option
 // or map file is refused before the window opens.
 int file_options(const ViewArgs& a, viewer::ViewerOptions& o) {
@@ -59,11 +72,6 @@ int file_options(const ViewArgs& a, viewer::ViewerOptions& o) {
             std::cerr << "ellipsa view: " << p->path << ": expected a pattern file, found " << (std::filesystem::exists(p->path, ec) ? "no regular file" : "nothing") << "\n";
             return exit_bad_input;
         }
-        if (!p->join.empty()) {
-            std::cerr << "ellipsa view: " << p->path << ": expected one file per pattern (the viewer does not join files); "
-                      << "merge them first: ellipsa convert \"" << p->path << "::join=...\" merged.csv\n";
-            return exit_usage;
-        }
         if (!p->beside_map.empty()) std::cerr << "ellipsa view: " << p->path << ": read with the map file beside it, " << p->beside_map << "\n";
         auto install = install_request(p->mounting);  // checked while parsing; named all the same
         if (!install) {
@@ -73,7 +81,9 @@ int file_options(const ViewArgs& a, viewer::ViewerOptions& o) {
         o.files.push_back(p->path);
         o.file_options.push_back(std::move(p->options));
         o.file_installs.push_back(std::move(*install));
+        o.file_joins.push_back(std::move(p->join));
     }
+    o.prepare = prepare_in_window;
     return exit_ok;
 }
 

@@ -1,7 +1,6 @@
 #include "cli/load.hpp"
 
 #include "pattern/integrate.hpp"
-#include "pattern/merge.hpp"
 
 #include <cmath>
 #include <cstdio>
@@ -241,37 +240,27 @@ Result<PreparedLoad> prepare_load(const std::string& arg, const LoadOptions& o) 
 }
 
 namespace {
-// One file, with progress on a terminal for long loads.
-Result<FarFieldSet> read_with_progress(const std::string& path, CsvReadOptions options) {
-    if (::isatty(2)) {
-        struct stat st {};
-        if (::stat(path.c_str(), &st) == 0 && st.st_size > (200 << 20)) {
-            options.progress = [last = -1](double f) mutable {
-                const int pc = int(f * 100);
-                if (pc != last) {
-                    last = pc;
-                    std::fprintf(stderr, "\rreading %3d %%", pc);
-                    if (pc >= 100) std::fprintf(stderr, "\r              \r");
-                }
-                return true;
-            };
-        }
+// The options with progress on a terminal when the first file is long (over 200 MB).
+CsvReadOptions with_progress(const std::string& path, CsvReadOptions options) {
+    struct stat st {};
+    if (::isatty(2) && ::stat(path.c_str(), &st) == 0 && st.st_size > (200 << 20)) {
+        options.progress = [last = -1](double f) mutable {
+            const int pc = int(f * 100);
+            if (pc != last) {
+                last = pc;
+                std::fprintf(stderr, "\rreading %3d %%", pc);
+                if (pc >= 100) std::fprintf(stderr, "\r              \r");
+            }
+            return true;
+        };
     }
-    return read_far_field_csv(path, options);
+    return options;
 }
 
-// The file and the files it joins (FILE::join=OTHER), read with the same options and merged.
+// The file and the files it joins (FILE::join=OTHER), read with the same options and merged
+// (importers/far_field_csv.hpp, the viewer's read too).
 Result<FarFieldSet> read_joined(const PreparedLoad& p) {
-    auto first = read_with_progress(p.path, p.options);
-    if (!first || p.join.empty()) return first;
-    std::vector<NamedSet> sets;
-    sets.push_back({p.path, std::move(*first)});
-    for (const std::string& other : p.join) {
-        auto s = read_with_progress(other, p.options);
-        if (!s) return s;
-        sets.push_back({other, std::move(*s)});
-    }
-    return merge_sets(std::move(sets));
+    return read_joined_far_field_csv(p.path, p.join, with_progress(p.path, p.options));
 }
 }  // namespace
 

@@ -105,6 +105,13 @@ std::string find_csv_map_beside(const std::string& path);
 // memory and the grid the angle values imply against the number of rows (a small file never
 // makes the reader allocate a large grid). Lines are at most 1 MiB.
 Result<FarFieldSet> read_far_field_csv(const std::string& path, const CsvReadOptions& options = {});
+// A pattern split over files (FILE::join=OTHER, docs/far-field-csv.md "Data split over files"):
+// `path` and each of `join`, read one after the other with the same options, merged by
+// merge_sets() (pattern/merge.hpp: its source is "path + other + ..."). With no `join`, the file
+// alone. Every front end that reads joined files (the commands through cli/load.cpp, the viewer)
+// calls this one.
+Result<FarFieldSet> read_joined_far_field_csv(const std::string& path, const std::vector<std::string>& join,
+                                              const CsvReadOptions& options = {});
 // Parse text already in memory; `display_name` is used in messages. Same rules and costs.
 Result<FarFieldSet> parse_far_field_csv(std::string_view text, const std::string& display_name,
                                         const CsvReadOptions& options = {});

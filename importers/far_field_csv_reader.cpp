@@ -11,6 +11,7 @@
 #include "importers/far_field_csv.hpp"
 #include "importers/text.hpp"
 #include "importers/text_source.hpp"
+#include "pattern/merge.hpp"
 
 namespace ellipsa {
 
@@ -135,6 +136,20 @@ Result<FarFieldSet> read_far_field_csv(const std::string& path, const CsvReadOpt
     // A file that changed under the reader: say so, whatever the stages made of it.
     if (Status st = src->unchanged(); !st) return st.error();
     return r;
+}
+
+Result<FarFieldSet> read_joined_far_field_csv(const std::string& path, const std::vector<std::string>& join,
+                                              const CsvReadOptions& o) {
+    auto first = read_far_field_csv(path, o);
+    if (!first || join.empty()) return first;
+    std::vector<NamedSet> sets;
+    sets.push_back({path, std::move(*first)});
+    for (const std::string& other : join) {
+        auto s = read_far_field_csv(other, o);
+        if (!s) return s;
+        sets.push_back({other, std::move(*s)});
+    }
+    return merge_sets(std::move(sets));
 }
 
 }  // namespace ellipsa

@@ -74,7 +74,8 @@ WindowRequest window_request(const ViewerOptions& o, const Startup& st) {
 int load_start_files(const ViewerOptions& o, AppState& s, FileLoader& loader, StopSignals& stop) {
     for (std::size_t k = 0; k < o.files.size(); ++k) {
         if (k < o.file_options.size())
-            loader.enqueue(o.files[k], o.file_options[k], k < o.file_installs.size() ? o.file_installs[k] : InstallRequest{});
+            loader.enqueue({o.files[k], k < o.file_joins.size() ? o.file_joins[k] : std::vector<std::string>{}, o.file_options[k],
+                            k < o.file_installs.size() ? o.file_installs[k] : InstallRequest{}});
         else loader.enqueue(o.files[k], "");
     }
     int failed = 0;
@@ -129,9 +130,21 @@ Result<std::size_t> start_frequency(double hz, const AppState& s) {
 }
 
 // --- Effects and derived data ---
-void start_loads(const Effects& fx, FileLoader& loader) {
-    for (const Effects::Load& l : fx.load) loader.enqueue(l.path, l.map);
+// Files named in the window, read as the command line reads a FILE argument when `prepare` is
+// given; a name it refuses comes back as a failed load.
+Intents start_loads(const Effects& fx, FileLoader& loader, const PrepareFile& prepare) {
+    Intents out;
+    for (const Effects::Load& l : fx.load) {
+        if (!prepare) {
+            loader.enqueue(l.path, l.map);
+            continue;
+        }
+        auto r = prepare(l.path, l.map);
+        if (r) loader.enqueue(std::move(*r));
+        else out.push_back(intent::LoadFinished{l.path, l.path, r.error()});
+    }
     if (fx.cancel_load) loader.cancel_current();
+    return out;
 }
 
 // Exports asked for from the UI; their outcomes come back as intents for the next frame.
@@ -293,8 +306,8 @@ int run_viewer(const ViewerOptions& opt) {
         Layout layout;
         append(in, draw_ui(s, d, w.renderer(), layout));
         const Effects fx = apply(s, std::move(in));
-        start_loads(fx, loader);
-        Intents from_dialog = start_file_dialog(fx, dialog);
+        Intents later = start_loads(fx, loader, opt.prepare);  // refused names, a dialog that failed
+        append(later, start_file_dialog(fx, dialog));
         upload(w.scene(), d, refresh(d, s, ImGui::IsAnyItemActive()));
         draw_view_overlay(s, d, layout, w.fonts(), w.renderer());
         draw_frame(w, s, d, layout, profile);
@@ -302,7 +315,7 @@ int run_viewer(const ViewerOptions& opt) {
         if (last) exit_code = script.finish(s, d, w);
         w.swap();
         carried = run_exports(fx, s, d, w);
-        append(carried, std::move(from_dialog));
+        append(carried, std::move(later));
         frame_ms.push_back(ms_since(profile.t0));
         if (last || s.quit || w.close_requested() || stop.requested()) break;
     }

@@ -6,6 +6,7 @@
 
 #include "importers/far_field_csv.hpp"
 #include "pattern/install.hpp"
+#include "viewer/file_loader.hpp"
 
 namespace ellipsa::viewer {
 
@@ -17,6 +18,10 @@ struct ViewerOptions {
     // The mounting of each file (--up, --rotate, --phase-centre or FILE::up=..., pattern/install.hpp);
     // a file without an entry is installed with its own mounting.
     std::vector<InstallRequest> file_installs;
+    // The files joined to each file (FILE::join=OTHER): read with its options and merged.
+    std::vector<std::vector<std::string>> file_joins;
+    // How a file named in the window is read (viewer/file_loader.hpp); unset: the file alone.
+    PrepareFile prepare;
     bool software = false;
     int width = 0, height = 0;       // 0: from the saved settings (default 1280 x 800)
     int frames = 0;                  // > 0: run this many frames and exit

@@ -14,6 +14,7 @@ struct FileLoader::Job {
     std::string path, map;
     std::optional<CsvReadOptions> options;
     InstallRequest install;
+    std::vector<std::string> join;
     std::atomic<double> progress{0};
     std::atomic<bool> cancel{false}, done{false};
     std::optional<Result<FarFieldSet>> result;
@@ -34,9 +35,15 @@ CsvReadOptions with_progress(CsvReadOptions o, std::function<bool(double)> progr
 FileLoader::FileLoader() = default;
 FileLoader::~FileLoader() = default;
 
-void FileLoader::enqueue(std::string path, std::string map) { waiting_.push_back({std::move(path), std::move(map), {}, {}}); }
-void FileLoader::enqueue(std::string path, CsvReadOptions options, InstallRequest install) {
-    waiting_.push_back({std::move(path), "", std::move(options), std::move(install)});
+void FileLoader::enqueue(std::string path, std::string map) { waiting_.push_back({std::move(path), std::move(map), {}, {}, {}}); }
+void FileLoader::enqueue(FileRequest r) {
+    waiting_.push_back({std::move(r.path), "", std::move(r.options), std::move(r.install), std::move(r.join)});
+}
+
+std::string joined_file_text(const std::string& path, const std::vector<std::string>& join) {
+    std::string out = path;
+    for (const std::string& j : join) out += "::join=" + j;
+    return out;
 }
 
 void FileLoader::cancel_current() {
@@ -51,11 +58,13 @@ Intents FileLoader::poll() {
         current_->worker.join();
         Job& j = *current_;
         std::error_code ec;
-        const std::string abs = std::filesystem::absolute(j.path, ec).string();
+        std::vector<std::string> abs_join;
+        for (const std::string& f : j.join) abs_join.push_back(std::filesystem::absolute(f, ec).string());
+        const std::string abs = joined_file_text(std::filesystem::absolute(j.path, ec).string(), abs_join);
         if (j.cancel)
             out.push_back(intent::LoadFinished{j.path, abs, Error{j.path, 0, 0, "loading cancelled"}});
         else if (j.result)
-            out.push_back(intent::LoadFinished{j.path, abs, std::move(*j.result), j.install});
+            out.push_back(intent::LoadFinished{j.path, abs, std::move(*j.result), j.install, j.join});
         current_.reset();
     }
     if (!current_ && !waiting_.empty()) {
@@ -64,6 +73,7 @@ Intents FileLoader::poll() {
         current_->map = std::move(waiting_.front().map);
         current_->options = std::move(waiting_.front().options);
         current_->install = std::move(waiting_.front().install);
+        current_->join = std::move(waiting_.front().join);
         waiting_.pop_front();
         Job* raw = current_.get();
         raw->worker = std::thread([raw] {
@@ -71,7 +81,7 @@ Intents FileLoader::poll() {
                 raw->progress = f;
                 return !raw->cancel.load();
             };
-            auto r = raw->options ? load_pattern_file(raw->path, with_progress(*raw->options, progress))
+            auto r = raw->options ? load_pattern_file(raw->path, with_progress(*raw->options, progress), raw->join)
                                   : load_pattern_file(raw->path, raw->map, progress);
             raw->result.emplace(std::move(r));
             raw->done = true;

@@ -336,8 +336,8 @@ void draw_view_overlay(const AppState& s, const Derived& d, const Layout& L, con
     bg->AddRectFilled(o, ImVec2(o.x + L.area_size.x, L.view_pos.y), view_bg);
     bg->AddRectFilled(L.key_pos, ImVec2(L.key_pos.x + L.key_size.x, L.key_pos.y + L.key_size.y), view_bg);
     const SurfaceView& sv = d.surface.value();
-    std::string title = a->set.name;
-    if (const LoadedPattern* b = s.compare_pattern(); b && s.settings.color_by == ColorBy::difference) title += "  minus  " + b->set.name;
+    std::string title = a->list_name();
+    if (const LoadedPattern* b = s.compare_pattern(); b && s.settings.color_by == ColorBy::difference) title += "  minus  " + b->list_name();
     const float wrap = L.area_size.x - 24;
     bg->PushClipRect(o, ImVec2(o.x + L.area_size.x, o.y + L.area_size.y));
     bg->AddText(fonts.title, fonts.title->FontSize, ImVec2(o.x + 12, o.y + 6), ink, title.c_str());

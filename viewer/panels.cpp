@@ -99,10 +99,11 @@ void pattern_table(const AppState& s, Intents& in) {
         ImGui::PushID(i);
         ImGui::TableNextRow();
         ImGui::TableSetColumnIndex(0);
-        const std::string label = (i == s.active ? "A  " : "   ") + (p.set.name.empty() ? std::string("(unnamed)") : p.set.name);
+        const std::string label = (i == s.active ? "A  " : "   ") + p.list_name();
         if (ImGui::Selectable(label.c_str(), i == s.active) && i != s.active) in.push_back(intent::SelectPattern{i});
         if (ImGui::IsItemHovered())
-            ImGui::SetTooltip("%s\n%s, %s, %zu frequenc%s", p.path.empty() ? p.set.source.c_str() : p.path.c_str(),
+            ImGui::SetTooltip("%s%s%s\n%s, %s, %zu frequenc%s", p.path.empty() || !p.join.empty() ? p.set.source.c_str() : p.path.c_str(),
+                              p.join.empty() ? "" : "\nname: ", p.join.empty() ? "" : p.set.name.c_str(),
                               to_string(p.set.quantity), to_string(p.set.content), p.set.frequencies.size(),
                               p.set.frequencies.size() == 1 ? "y" : "ies");
         ImGui::TableSetColumnIndex(1);

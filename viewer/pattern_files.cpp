@@ -10,8 +10,9 @@
 
 namespace ellipsa::viewer {
 
-Result<FarFieldSet> load_pattern_file(const std::string& path, const CsvReadOptions& options) {
-    auto r = read_far_field_csv(path, options);
+Result<FarFieldSet> load_pattern_file(const std::string& path, const CsvReadOptions& options,
+                                      const std::vector<std::string>& join) {
+    auto r = read_joined_far_field_csv(path, join, options);
     if (r && r->grid.sampling == Sampling::cuts)  // the window draws surfaces over the sphere
         return Error{path, 0, 0,
                      "the viewer's 3D view needs the whole sphere; " + sphere_shortfall(r->grid) +

@@ -19,8 +19,11 @@ namespace ellipsa::viewer {
 Result<FarFieldSet> load_pattern_file(const std::string& path, const std::string& map_file = "",
                                       std::function<bool(double)> progress = {});
 
-// Read one file with reader options already made (the command line's, importers/far_field_csv.hpp).
-Result<FarFieldSet> load_pattern_file(const std::string& path, const CsvReadOptions& options);
+// Read one file with reader options already made (the command line's, importers/far_field_csv.hpp),
+// and the files that hold the rest of its pattern (`join`: read_joined_far_field_csv, as every
+// command reads FILE::join=OTHER).
+Result<FarFieldSet> load_pattern_file(const std::string& path, const CsvReadOptions& options,
+                                      const std::vector<std::string>& join = {});
 
 // The example CSV files shipped in examples/, sorted by name, from the first folder that has
 // any: $ELLIPSA_EXAMPLES, the installed examples beside the executable's folder

@@ -48,10 +48,7 @@ grep -q "sphere.csv and cuts.csv: expected the same grid, found surface and cuts
 expect_rc 1 "parts of two bases are refused" "$E" info "co.csv::join=e_phi.csv"
 grep -q "found co-polar and E_phi" err.txt && ok "... naming the parts" || bad "bases: $(cat err.txt)"
 expect_rc 2 "join= without a file is a usage error" "$E" info "co.csv::join="
-if "$E" view --help >/dev/null 2>&1; then
-  expect_rc 2 "the viewer refuses joined files with what to do" "$E" view "co.csv::join=cross.csv" --frames 1
-  grep -q "merge them first: ellipsa convert" err.txt && ok "... (convert first)" || bad "view join: $(cat err.txt)"
-fi
+# The viewer reads joined files too: tests/viewer/joined_view.sh (under Xvfb).
 
 # --- Cut-only data ---
 expect_rc 0 "info reads principal cuts" "$E" info cuts.csv --frequency 2.45e9

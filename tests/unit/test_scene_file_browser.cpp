@@ -102,6 +102,8 @@ TEST_CASE("parent folders, joined paths and recent folders", "[scene][browser]")
     CHECK(join_path("/data", "a.csv") == "/data/a.csv");
     const std::vector<std::string> r = recent_folders({"/data/a.csv", "/data/b.csv", "/range/m.csv", "/x/y.csv"}, 2);
     CHECK(r == std::vector<std::string>{"/data", "/range"});
+    // A joined pattern's entry counts its first file's folder, not a folder inside the option.
+    CHECK(recent_folders({"/range/co.csv::join=/other/cross.csv"}, 2) == std::vector<std::string>{"/range"});
 }
 
 TEST_CASE("a desktop dialog's answer is one absolute path to a regular file", "[scene][browser]") {

@@ -22,6 +22,7 @@ TEST_CASE("settings round-trip through their text form", "[scene][settings]") {
     s.window_width = 1600;
     s.remember_file("/data/b.csv");
     s.remember_file("/data/a b.csv");
+    s.remember_file("/range/co.csv::join=/range/cross.csv");  // a joined pattern (viewer/file_loader.hpp)
     std::vector<std::string> w;
     ViewerSettings t = parse_settings(format_settings(s), &w);
     CHECK(w.empty());
@@ -34,8 +35,9 @@ TEST_CASE("settings round-trip through their text form", "[scene][settings]") {
     CHECK(t.cut_angle_deg == 60);
     CHECK(t.cut_components == 0x181u);
     CHECK(t.window_width == 1600);
-    REQUIRE(t.recent_files.size() == 2);
-    CHECK(t.recent_files[0] == "/data/a b.csv");
+    REQUIRE(t.recent_files.size() == 3);
+    CHECK(t.recent_files[0] == "/range/co.csv::join=/range/cross.csv");
+    CHECK(t.recent_files[1] == "/data/a b.csv");
 }
 
 TEST_CASE("settings numbers with many digits survive their text form exactly", "[scene][settings]") {

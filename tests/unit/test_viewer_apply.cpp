@@ -239,6 +239,21 @@ TEST_CASE("loading: files go out as effects, results come back as intents", "[vi
     CHECK(s.settings.recent_files.front() == "/x/d.csv");
 }
 
+TEST_CASE("loading: a joined pattern is named by its files and remembered with them", "[viewer][apply]") {
+    AppState s = three();
+    // What the loader sends for "ellipsa view range/co.csv::join=range/cross.csv" (the set merged).
+    run(s, intent::LoadFinished{"range/co.csv", "/r/range/co.csv::join=/r/range/cross.csv",
+                                antenna(ReferenceKind::dipole, {1e9}, "co"), {}, {"range/cross.csv"}});
+    REQUIRE(s.patterns.size() == 4);
+    const LoadedPattern& p = s.patterns[3];
+    CHECK(p.path == "range/co.csv");
+    CHECK(p.join == std::vector<std::string>{"range/cross.csv"});
+    CHECK(p.list_name() == "co.csv + cross.csv");  // as `info` names the files it read
+    CHECK(s.patterns[0].list_name() == "p0");       // a single file: the set's name
+    // The recent list keeps the whole FILE argument, so opening it again joins the files again.
+    CHECK(s.settings.recent_files.front() == "/r/range/co.csv::join=/r/range/cross.csv");
+}
+
 TEST_CASE("exports: asked for, answered, replaced only when asked", "[viewer][apply]") {
     AppState s = three();
     Effects fx = run(s, intent::ExportCut{"c.svg", false});

@@ -115,7 +115,11 @@ std::vector<std::string> recent_folders(const std::vector<std::string>& recent_f
     for (const std::string& f : recent_files) {
         if (out.size() == max) break;
         std::error_code ec;
-        const fs::path abs = fs::absolute(fs::path(f), ec);
+        // A joined pattern is kept as "PATH::join=OTHER" (viewer/file_loader.hpp): its folder is
+        // PATH's. A path that exists as given is taken whole, as the command line takes it.
+        const std::size_t options = f.find("::");
+        const fs::path file = options == std::string::npos || fs::exists(fs::path(f), ec) ? fs::path(f) : fs::path(f.substr(0, options));
+        const fs::path abs = fs::absolute(file, ec);
         if (ec || !abs.has_parent_path()) continue;
         const std::string d = without_trailing_slash(abs.lexically_normal().parent_path().string());
         if (!d.empty() && std::find(out.begin(), out.end(), d) == out.end()) out.push_back(d);

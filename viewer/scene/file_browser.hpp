@@ -50,7 +50,8 @@ std::string parent_folder(const std::string& folder);
 // `name` inside `folder`.
 std::string join_path(const std::string& folder, const std::string& name);
 
-// The folders of the recent files, most recent first, each once, at most `max`.
+// The folders of the recent files, most recent first, each once, at most `max`; an entry with
+// options ("PATH::join=OTHER", a joined pattern) counts PATH's folder.
 std::vector<std::string> recent_folders(const std::vector<std::string>& recent_files, std::size_t max);
 
 // The file a desktop dialog printed on its standard output: one line (a final newline dropped),

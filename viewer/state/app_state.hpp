@@ -24,6 +24,7 @@ namespace ellipsa::viewer {
 struct LoadedPattern {
     FarFieldSet set;   // installed (pattern/install.hpp): every figure and view uses this one
     std::string path;  // empty for built-in patterns
+    std::vector<std::string> join;  // the files joined to `path` (FILE::join=OTHER), as given
     int id = 0;        // unique in the window's life; derived data is keyed on it, not on the list position
     // The mounting asked for (the command line's --up/--rotate/--phase-centre or FILE::up=...,
     // then the mounting control), and the pattern as read when `set` differs from it (a mounting
@@ -31,6 +32,9 @@ struct LoadedPattern {
     // mounting installs the pattern as read again (install_loaded, viewer/state/apply.hpp).
     InstallRequest install;
     std::shared_ptr<const FarFieldSet> as_read;
+    // The name the Patterns list shows: a joined pattern's file names, "co.csv + cross.csv" (as
+    // `info` names the files it read), else the set's name ("(unnamed)" when it has none).
+    std::string list_name() const;
 };
 
 // A direction on the sphere, degrees.

@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <filesystem>
 #include <iterator>
 #include <type_traits>
 
@@ -25,6 +26,13 @@ std::size_t AppState::freq_for(const LoadedPattern& p) const {
     if (!a || &p == a || freq >= a->set.frequencies.size())
         return std::min(freq, p.set.frequencies.empty() ? 0 : p.set.frequencies.size() - 1);
     return p.set.nearest_frequency(a->set.frequencies[freq].frequency_hz);
+}
+
+std::string LoadedPattern::list_name() const {
+    if (join.empty()) return set.name.empty() ? std::string("(unnamed)") : set.name;
+    std::string out = std::filesystem::path(path).filename().string();
+    for (const std::string& j : join) out += " + " + std::filesystem::path(j).filename().string();
+    return out;
 }
 
 std::optional<Tab> parse_tab(const std::string& name) {
@@ -55,11 +63,13 @@ void set_active(AppState& s, int i, std::optional<double> keep_hz) {
 }
 
 // Install and add one pattern; an Error (the mounting cannot be applied) adds nothing.
-Status add_pattern(AppState& s, FarFieldSet set, std::string path, const InstallRequest& q) {
+Status add_pattern(AppState& s, FarFieldSet set, std::string path, const InstallRequest& q,
+                   std::vector<std::string> join = {}) {
     LoadedPattern p;
     if (Status st = install_loaded(p, std::move(set), q); !st) return st;
     const std::optional<double> hz = shown_frequency_hz(s);
     p.path = std::move(path);
+    p.join = std::move(join);
     p.id = s.next_pattern_id++;
     s.patterns.push_back(std::move(p));
     set_active(s, int(s.patterns.size()) - 1, hz);
@@ -143,7 +153,7 @@ struct Apply {
             s.load_error = i.result.error().format();  // the loaded patterns and the view stay as they were
             return;
         }
-        if (Status st = add_pattern(s, std::move(*i.result), i.path, i.install); !st) {
+        if (Status st = add_pattern(s, std::move(*i.result), i.path, i.install, std::move(i.join)); !st) {
             s.load_error = Error{i.path, 0, 0, st.error().message}.format();
             return;
         }

@@ -34,6 +34,7 @@ struct LoadFinished {  // from the loader: a read ended
     std::string path, absolute_path;
     Result<FarFieldSet> result;  // as read; apply() installs it with `install`
     InstallRequest install{};    // the command line's mounting for this file (none from the UI)
+    std::vector<std::string> join{};  // the files joined to `path` (FILE::join=OTHER), as given
 };
 struct AddPatterns {  // built-in or example patterns (no file to remember)
     std::vector<FarFieldSet> sets;
