@@ -6,13 +6,13 @@
 #include <cstring>
 #include <mutex>
 #include <optional>
-#include <queue>
 #include <utility>
 #include <vector>
 
 #include "pattern/integrate.hpp"
 #include "pattern/interpolate.hpp"
 #include "pattern/parallel.hpp"
+#include "pattern/power_queue.hpp"
 
 namespace ellipsa {
 
@@ -67,29 +67,46 @@ void copolar_field(const Grid& g, const GridTrig& tr, const FarField& f, std::ve
     }
 }
 
-double wrap_pi(double a) { return a - 2 * pi * std::round(a / (2 * pi)); }
+// std::round (halves away from zero, the sign kept) without the library call it costs on the
+// baseline x86-64 instruction set; the same result for every double.
+double round_half_away(double x) {
+    if (!(std::abs(x) < 0x1p52)) return std::round(x);  // integral already, or NaN
+    const auto n = static_cast<std::int64_t>(x);  // toward zero, exact here
+    const double f = x - double(n);               // exact: |x| < 2^52
+    const double r = double(n + (f >= 0.5) - (f <= -0.5));
+    return std::copysign(r, x);
+}
+
+double wrap_pi(double a) { return a - 2 * pi * round_half_away(a / (2 * pi)); }
 
 // Quality-guided unwrapping from the co-polar peak over the samples within the region's level.
-// psi: unwrapped phase (rad) where in_region is set.
-void unwrap_region(const Grid& g, const std::vector<cplx>& co, std::vector<double>& psi,
+// power: |co|^2 of every sample (made here); psi: unwrapped phase (rad) where in_region is set.
+// The phases of the samples that may join (at or above the level) are taken in one pass over the
+// grid first: the walk then reads 16 bytes a sample (power and phase) in the order it finds
+// them, instead of the 16-byte complex value and an atan2 waiting on it.
+void unwrap_region(const Grid& g, const std::vector<cplx>& co, std::vector<double>& power, std::vector<double>& psi,
                    std::vector<unsigned char>& in_region) {
+    power.resize(co.size());
     std::size_t peak = 0;
-    for (std::size_t k = 1; k < co.size(); ++k)
-        if (std::norm(co[k]) > std::norm(co[peak])) peak = k;
-    const double floor = std::norm(co[peak]) * std::pow(10.0, -phase_centre_region_db / 10);
+    for (std::size_t k = 0; k < co.size(); ++k) {
+        power[k] = std::norm(co[k]);
+        if (power[k] > power[peak]) peak = k;
+    }
+    const double floor = power[peak] * std::pow(10.0, -phase_centre_region_db / 10);
     psi.assign(co.size(), 0.0);
     in_region.assign(co.size(), 0);
-    if (!(std::norm(co[peak]) > 0)) return;
-    std::priority_queue<std::pair<double, std::size_t>> heap;
-    psi[peak] = std::arg(co[peak]);
-    in_region[peak] = 1;
-    heap.emplace(std::norm(co[peak]), peak);
+    if (!(power[peak] > 0)) return;
+    for (std::size_t k = 0; k < co.size(); ++k)  // the phase of each sample that may join; psi once it has
+        if (power[k] >= floor) psi[k] = std::arg(co[k]);
     const int nt = g.theta.count, np = g.phi.count;
     const bool wraps = g.phi_wraps();
+    PowerQueue heap(floor, power[peak]);
+    in_region[peak] = 1;
+    heap.push({power[peak], std::uint32_t(peak / std::size_t(np)), std::uint32_t(peak % std::size_t(np))});
     while (!heap.empty()) {
-        const std::size_t k = heap.top().second;
-        heap.pop();
-        const int i = int(k / std::size_t(np)), j = int(k % std::size_t(np));
+        const PowerQueue::Entry e = heap.pop();
+        const int i = int(e.i), j = int(e.j);
+        const double here = psi[g.index(i, j)];
         const int di[4] = {-1, 1, 0, 0}, dj[4] = {0, 0, -1, 1};
         for (int n = 0; n < 4; ++n) {
             const int a = i + di[n];
@@ -100,10 +117,10 @@ void unwrap_region(const Grid& g, const std::vector<cplx>& co, std::vector<doubl
                 b = (b + np) % np;
             }
             const std::size_t m = g.index(a, b);
-            if (in_region[m] || !(std::norm(co[m]) >= floor)) continue;
-            psi[m] = psi[k] + wrap_pi(std::arg(co[m]) - psi[k]);
+            if (in_region[m] || !(power[m] >= floor)) continue;
+            psi[m] = here + wrap_pi(psi[m] - here);
             in_region[m] = 1;
-            heap.emplace(std::norm(co[m]), m);
+            heap.push({power[m], std::uint32_t(a), std::uint32_t(b)});
         }
     }
 }
@@ -143,16 +160,16 @@ void eigen_symmetric(double a[3][3], double w[3], double v[3][3]) {
 
 // Weighted least squares psi ~ psi0 + a . r over the region, centred on the weighted mean
 // direction so that psi0 and a separate; a = 2 pi d / lambda.
-PhaseCentre fit_linear_phase(const Grid& g, const GridTrig& tr, const std::vector<cplx>& co, const std::vector<double>& psi,
+PhaseCentre fit_linear_phase(const Grid& g, const GridTrig& tr, const std::vector<double>& power, const std::vector<double>& psi,
                              const std::vector<unsigned char>& in_region) {
     const CellWeights cw = cell_weights(g);
     const int np = g.phi.count;
     std::vector<std::pair<std::size_t, double>> pts;  // (sample, weight)
     double sw = 0, spsi = 0;
     Vec3 sr{};
-    for (std::size_t k = 0; k < co.size(); ++k) {
+    for (std::size_t k = 0; k < power.size(); ++k) {
         if (!in_region[k]) continue;
-        const double w = std::norm(co[k]) * cw.theta[k / std::size_t(np)] * cw.phi[k % std::size_t(np)];
+        const double w = power[k] * cw.theta[k / std::size_t(np)] * cw.phi[k % std::size_t(np)];
         pts.emplace_back(k, w);
         sw += w;
         spsi += w * psi[k];
@@ -204,39 +221,60 @@ PhaseCentre fit_linear_phase(const Grid& g, const GridTrig& tr, const std::vecto
 // The key is a 128-bit fingerprint of all that the estimate reads (the grid and every sample's
 // bytes), one pass over the samples at a tenth of the estimate's cost.
 struct Fingerprint {
-    std::uint64_t a = 0x243F6A8885A308D3ull, b = 0x13198A2E03707344ull;
-    void add(std::uint64_t w) {
-        a = (a ^ w) * 0x9E3779B97F4A7C15ull;
-        a ^= a >> 29;
-        b = (b + w) * 0xC2B2AE3D27D4EB4Full;
-        b ^= b >> 31;
-    }
-    void add(double x) {
-        std::uint64_t w;
-        std::memcpy(&w, &x, sizeof w);
-        add(w);
-    }
-    void add(const std::vector<cplx>& v) {
-        add(std::uint64_t(v.size()));
-        for (const cplx& c : v) {
-            add(c.real());
-            add(c.imag());
-        }
-    }
+    std::uint64_t a = 0, b = 0;
     bool operator==(const Fingerprint& o) const { return a == o.a && b == o.b; }
 };
 
+// Four independent lanes of two mixing chains each, so that the multiplies overlap (one chain
+// over every word waited on each multiply in turn); the lanes are folded at the end.
+class FingerprintLanes {
+public:
+    void add(std::uint64_t w, int lane) {
+        std::uint64_t& x = a_[lane];
+        std::uint64_t& y = b_[lane];
+        x = (x ^ w) * 0x9E3779B97F4A7C15ull;
+        x ^= x >> 29;
+        y = (y + w) * 0xC2B2AE3D27D4EB4Full;
+        y ^= y >> 31;
+    }
+    void add(double x) { add(bits(x), 0); }
+    void add(const std::vector<cplx>& v) {
+        add(std::uint64_t(v.size()), 0);
+        const double* d = reinterpret_cast<const double*>(v.data());  // re, im of each (std::complex's layout)
+        const std::size_t n = 2 * v.size(), four = n - n % 4;
+        for (std::size_t k = 0; k < four; k += 4)
+            for (int lane = 0; lane < 4; ++lane) add(bits(d[k + std::size_t(lane)]), lane);
+        for (std::size_t k = four; k < n; ++k) add(bits(d[k]), 0);
+    }
+    Fingerprint fold() {
+        for (int lane = 1; lane < 4; ++lane) {
+            add(a_[lane], 0);
+            add(b_[lane], 0);
+        }
+        return {a_[0], b_[0]};
+    }
+
+private:
+    static std::uint64_t bits(double x) {
+        std::uint64_t w;
+        std::memcpy(&w, &x, sizeof w);
+        return w;
+    }
+    std::uint64_t a_[4] = {0x243F6A8885A308D3ull, 0xA4093822299F31D0ull, 0x082EFA98EC4E6C89ull, 0x452821E638D01377ull};
+    std::uint64_t b_[4] = {0x13198A2E03707344ull, 0xBE5466CF34E90C6Cull, 0xC0AC29B7C97C50DDull, 0x3F84D5B5B5470917ull};
+};
+
 Fingerprint fingerprint(const Grid& g, const FarField& f) {
-    Fingerprint h;
+    FingerprintLanes h;
     for (const AngleAxis* x : {&g.theta, &g.phi}) {
         h.add(x->start_deg);
         h.add(x->step_deg);
-        h.add(std::uint64_t(x->count));
+        h.add(std::uint64_t(x->count), 0);
     }
-    h.add(std::uint64_t(g.sampling));
+    h.add(std::uint64_t(g.sampling), 0);
     h.add(f.e_theta);
     h.add(f.e_phi);
-    return h;
+    return h.fold();
 }
 
 // The last estimates (at most 64; the oldest half dropped when full), shared by all threads.
@@ -268,10 +306,10 @@ Result<PhaseCentre> estimate_afresh(const Grid& g, const FarField& f) {
     const GridTrig tr(g);
     std::vector<cplx> co;
     copolar_field(g, tr, f, co);
-    std::vector<double> psi;
+    std::vector<double> power, psi;
     std::vector<unsigned char> in_region;
-    unwrap_region(g, co, psi, in_region);
-    PhaseCentre pc = fit_linear_phase(g, tr, co, psi, in_region);
+    unwrap_region(g, co, power, psi, in_region);
+    PhaseCentre pc = fit_linear_phase(g, tr, power, psi, in_region);
     if (pc.samples < 4)
         return Error{"", 0, 0, "the main beam holds fewer than 4 samples (or the field is zero): too few to fit a phase centre"};
     if (pc.unresolved_axes == 3) return Error{"", 0, 0, "the main beam's samples do not resolve any direction"};
