@@ -86,23 +86,32 @@ std::optional<FieldSample> interpolate(const FarFieldSet& s, std::size_t fi, dou
         const Vec3 c = f.interpolation_centre_wl;
         const bool centred = c.x != 0 || c.y != 0 || c.z != 0;
         auto unturn = [&](Vec3 r) { return std::polar(1.0, -2 * pi * dot(r, c)); };
+        // sin and cos of the stencil's rows and columns, once each: the values direction(),
+        // theta_hat() and phi_hat() (and so cartesian_at()) take from the same angles.
+        double sin_t[2], cos_t[2], sin_p[2], cos_p[2];
+        for (int a = 0; a < 2; ++a) {
+            const double t = g.theta.value_deg(st.i_theta[a]) * deg, p = g.phi.value_deg(st.i_phi[a]) * deg;
+            sin_t[a] = std::sin(t), cos_t[a] = std::cos(t), sin_p[a] = std::sin(p), cos_p[a] = std::cos(p);
+        }
         CVec3 e{};
         for (int a = 0; a < 2; ++a)
             for (int b = 0; b < 2; ++b) {
                 double w = st.w[a][b];
                 if (w == 0) continue;
-                const int i = st.i_theta[a], j = st.i_phi[b];
                 cplx cw = w;
-                if (centred) cw *= unturn(direction(g.theta.value_deg(i) * deg, g.phi.value_deg(j) * deg));
-                const CVec3 v = cartesian_at(g, f, i, j);
+                if (centred) cw *= unturn({sin_t[a] * cos_p[b], sin_t[a] * sin_p[b], cos_t[a]});
+                const std::size_t k = g.index(st.i_theta[a], st.i_phi[b]);
+                const CVec3 v = f.e_theta[k] * Vec3{cos_t[a] * cos_p[b], cos_t[a] * sin_p[b], -sin_t[a]} +
+                                f.e_phi[k] * Vec3{-sin_p[b], cos_p[b], 0.0};
                 e = e + CVec3{cw * v.x, cw * v.y, cw * v.z};
             }
         const double t = theta_deg * deg, p = phi_deg * deg;
+        const double s_t = std::sin(t), c_t = std::cos(t), s_p = std::sin(p), c_p = std::cos(p);
         if (centred) {
-            const cplx back = std::conj(unturn(direction(t, p)));
+            const cplx back = std::conj(unturn({s_t * c_p, s_t * s_p, c_t}));
             e = CVec3{back * e.x, back * e.y, back * e.z};
         }
-        FieldSample out{dot(e, theta_hat(t, p)), dot(e, phi_hat(p))};
+        FieldSample out{dot(e, Vec3{c_t * c_p, c_t * s_p, -s_t}), dot(e, Vec3{-s_p, c_p, 0.0})};
         // Going through Cartesian and back leaves rounding residue of about 1e-16 |E| in a
         // component that is zero in the data (E_phi of a dipole); clear it rather than report
         // -330 dB as if it were measured.
