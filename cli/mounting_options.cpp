@@ -37,20 +37,6 @@ Result<InstallRequest> phase_reference(const std::string& text, InstallRequest q
     return q;
 }
 
-std::string metres(double v) {
-    char b[32];
-    std::snprintf(b, sizeof b, "%.4f", v);
-    return std::string(b) == "-0.0000" ? "0.0000" : b;
-}
-
-std::string triple(Vec3 v, std::string (*f)(double)) { return "(" + f(v.x) + ", " + f(v.y) + ", " + f(v.z) + ")"; }
-
-std::string wavelengths(double v) {
-    char b[32];
-    std::snprintf(b, sizeof b, "%.3f", v);
-    return std::string(b) == "-0.000" ? "0.000" : b;
-}
-
 double wavelength_m(const FarField& f) { return f.frequency_hz > 0 ? speed_of_light_m_per_s / f.frequency_hz : 0; }
 
 
@@ -139,26 +125,6 @@ void phase_centre_json(JsonWriter& j, const FarFieldSet& s, std::size_t k, const
     j.key("phase_reference_shift_m");
     if (norm(f.reference_shift_wl) == 0 || !(lambda > 0)) j.null();
     else vector_json(j, lambda * f.reference_shift_wl);
-}
-
-std::string phase_centre_text(const FarFieldSet& s, std::size_t k, const Result<PhaseCentre>& pc) {
-    if (!pc) return "unavailable (" + pc.error().message + ")";
-    const double lambda = wavelength_m(s.frequencies[k]);
-    std::string t = lambda > 0 ? triple(lambda * pc->centre_wl, metres) + " m = " : "";
-    char b[96];
-    std::snprintf(b, sizeof b, " wavelengths, residual %.1f deg over %zu samples", pc->residual_deg, pc->samples);
-    t += triple(pc->centre_wl, wavelengths) + b;
-    if (pc->unresolved_axes > 0)
-        t += "; " + std::to_string(pc->unresolved_axes) + " direction(s) not resolved by the main beam (left at 0)";
-    return t;
-}
-
-std::string reference_shift_text(const FarFieldSet& s, std::size_t k) {
-    const FarField& f = s.frequencies[k];
-    const double lambda = wavelength_m(f);
-    if (norm(f.reference_shift_wl) == 0) return "";
-    if (!(lambda > 0)) return triple(f.reference_shift_wl, wavelengths) + " wavelengths from the file's origin";
-    return triple(lambda * f.reference_shift_wl, metres) + " m from the file's origin (world frame)";
 }
 
 }  // namespace ellipsa::cli

@@ -7,6 +7,7 @@
 #include <CLI/CLI.hpp>
 
 #include "cli/json.hpp"
+#include "exports/figure_text.hpp"
 #include "pattern/far_field.hpp"
 #include "pattern/install.hpp"
 #include "pattern/phase_centre.hpp"
@@ -42,10 +43,8 @@ void mounting_json(JsonWriter& j, const FarFieldSet& s);
 // the "phase_centre" and "phase_reference_shift_m" fields of info --json. `pc` is
 // estimate_phase_centre(s, freq_index), computed by the caller (info does all frequencies at once).
 void phase_centre_json(JsonWriter& j, const FarFieldSet& s, std::size_t freq_index, const Result<PhaseCentre>& pc);
-// "(12.0, 0.0, -3.1) mm = (0.098, 0.000, -0.025) wavelengths, residual 0.4 deg over 812 samples",
-// or "unavailable (why)".
-std::string phase_centre_text(const FarFieldSet& s, std::size_t freq_index, const Result<PhaseCentre>& pc);
-// "(0.000, 0.000, 0.100) m from the file's origin" when the reference was moved, else "".
-std::string reference_shift_text(const FarFieldSet& s, std::size_t freq_index);
+// The texts of the phase centre and of a moved reference (one wording: exports/figure_text.hpp).
+using exports::phase_centre_text;
+using exports::reference_shift_text;
 
 }  // namespace ellipsa::cli

@@ -212,4 +212,37 @@ std::string mounting_text(const FarFieldSet& s) {
            (s.mounting_resampled ? "; rotation resampled (interpolated between samples)" : "; rotation exact (samples permuted)");
 }
 
+namespace {
+std::string fixed(double v, const char* format) {
+    char b[32];
+    std::snprintf(b, sizeof b, format, v);
+    const std::string t = b;
+    return t.find_first_not_of("-0.") == std::string::npos ? t.substr(t[0] == '-' ? 1 : 0) : t;  // no "-0.0000"
+}
+std::string metres(double v) { return fixed(v, "%.4f"); }
+std::string wavelengths(double v) { return fixed(v, "%.3f"); }
+std::string triple(Vec3 v, std::string (*f)(double)) { return "(" + f(v.x) + ", " + f(v.y) + ", " + f(v.z) + ")"; }
+double wavelength_m(const FarField& f) { return f.frequency_hz > 0 ? speed_of_light_m_per_s / f.frequency_hz : 0; }
+}  // namespace
+
+std::string phase_centre_text(const FarFieldSet& s, std::size_t k, const Result<PhaseCentre>& pc) {
+    if (!pc) return "unavailable (" + pc.error().message + ")";
+    const double lambda = wavelength_m(s.frequencies[k]);
+    std::string t = lambda > 0 ? triple(lambda * pc->centre_wl, metres) + " m = " : "";
+    char b[96];
+    std::snprintf(b, sizeof b, " wavelengths, residual %.1f deg over %zu samples", pc->residual_deg, pc->samples);
+    t += triple(pc->centre_wl, wavelengths) + b;
+    if (pc->unresolved_axes > 0)
+        t += "; " + std::to_string(pc->unresolved_axes) + " direction(s) not resolved by the main beam (left at 0)";
+    return t;
+}
+
+std::string reference_shift_text(const FarFieldSet& s, std::size_t k) {
+    const FarField& f = s.frequencies[k];
+    const double lambda = wavelength_m(f);
+    if (norm(f.reference_shift_wl) == 0) return "";
+    if (!(lambda > 0)) return triple(f.reference_shift_wl, wavelengths) + " wavelengths from the file's origin";
+    return triple(lambda * f.reference_shift_wl, metres) + " m from the file's origin (world frame)";
+}
+
 }  // namespace ellipsa::exports

@@ -7,6 +7,7 @@
 #include <string>
 
 #include "pattern/cut.hpp"
+#include "pattern/phase_centre.hpp"
 #include "pattern/polarisation.hpp"
 #include "pattern/summary.hpp"
 
@@ -103,5 +104,13 @@ std::string efficiency_warning_text(double efficiency);
 std::string mounting_text(const FarFieldSet& s);
 // Same up direction and turns, as written in text.
 bool same_mounting(const Mounting& a, const Mounting& b);
+
+// The estimated phase centre at one frequency: "(0.0120, 0.0000, -0.0031) m = (0.098, 0.000,
+// -0.025) wavelengths, residual 0.4 deg over 812 samples", or "unavailable (why)". `pc` is
+// estimate_phase_centre(s, freq_index) (pattern/phase_centre.hpp), computed by the caller.
+std::string phase_centre_text(const FarFieldSet& s, std::size_t freq_index, const Result<PhaseCentre>& pc);
+// "(0.0000, 0.0000, 0.1000) m from the file's origin (world frame)" when the phase reference was
+// moved (--phase-centre, FILE::phase-centre=, the viewer's control), else "".
+std::string reference_shift_text(const FarFieldSet& s, std::size_t freq_index);
 
 }  // namespace ellipsa::exports

@@ -361,7 +361,9 @@ void draw_view_overlay(const AppState& s, const Derived& d, const Layout& L, con
     draw_axis_labels(bg, s.camera, L.view_pos, L.view_size, 1.3, fonts.small);
     // The mounting applied, in the words of every output (exports::mounting_text), at the view's
     // foot, and the world's up and horizon above it.
-    const std::string mounting = "mounting: " + exports::mounting_text(a->set);
+    std::string mounting = "mounting: " + exports::mounting_text(a->set);
+    if (const std::string moved = exports::reference_shift_text(a->set, s.freq); !moved.empty())
+        mounting += "\nphase reference " + moved;
     const float mh = fonts.small->CalcTextSizeA(fonts.small->FontSize, 1e9f, L.view_size.x - 24, mounting.c_str()).y;
     const float foot = L.view_pos.y + L.view_size.y - mh - 6;
     bg->AddText(fonts.small, fonts.small->FontSize, ImVec2(L.view_pos.x + 12, foot), muted, mounting.c_str(), nullptr,

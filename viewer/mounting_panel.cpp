@@ -54,7 +54,70 @@ void turns_field(const AppState& s, const LoadedPattern& p, Intents& in) {
         in.push_back(intent::SetMounting{s.active, p.install.up, *turns});
     }
 }
+// The next small button beside the last item when it fits in the panel, else on the next line.
+void same_line_if_fits(const char* label) {
+    const float w = ImGui::CalcTextSize(label).x + 2 * ImGui::GetStyle().FramePadding.x;
+    const float right = ImGui::GetItemRectMax().x + ImGui::GetStyle().ItemSpacing.x + w;
+    if (right <= ImGui::GetWindowPos().x + ImGui::GetWindowContentRegionMax().x) ImGui::SameLine();
+}
+
+// Which phase reference is in use, in the words of `info` (exports::reference_shift_text).
+std::string reference_label(const LoadedPattern& p, std::size_t freq) {
+    const std::string moved = freq < p.set.frequencies.size() ? exports::reference_shift_text(p.set, freq) : "";
+    if (p.install.reference == PhaseReference::phase_centre)
+        return "at the estimated phase centre" + (moved.empty() ? std::string() : ", " + moved);
+    return moved.empty() ? "at the file's origin" : moved;
+}
+
+// X, Y, Z in metres (world frame, as --phase-centre takes them) and the three choices.
+void reference_controls(const AppState& s, const LoadedPattern& p, Intents& in) {
+    const Vec3 shown = s.reference_input ? *s.reference_input
+                       : p.install.reference == PhaseReference::point ? p.install.reference_point_m : Vec3{};
+    double v[3] = {shown.x, shown.y, shown.z};
+    const float w = (ImGui::GetContentRegionAvail().x - 3 * ImGui::GetStyle().ItemSpacing.x - ImGui::CalcTextSize("m").x) / 3;
+    const char* ids[3] = {"##rx", "##ry", "##rz"};
+    const char* names[3] = {"x", "y", "z"};
+    bool changed = false;
+    for (int k = 0; k < 3; ++k) {
+        if (k > 0) ImGui::SameLine();
+        ImGui::SetNextItemWidth(w);
+        char fmt[16];
+        std::snprintf(fmt, sizeof fmt, "%s %%.4f", names[k]);
+        changed |= ImGui::InputDouble(ids[k], &v[k], 0, 0, fmt);
+        if (ImGui::IsItemHovered()) ImGui::SetTooltip("%s of the new phase reference, metres (world frame, after the mounting)", names[k]);
+    }
+    ImGui::SameLine();
+    ImGui::TextUnformatted("m");
+    if (changed) in.push_back(intent::EditReferencePoint{Vec3{v[0], v[1], v[2]}});
+    if (ImGui::SmallButton("Move here")) in.push_back(intent::SetPhaseReference{s.active, PhaseReference::point, Vec3{v[0], v[1], v[2]}});
+    same_line_if_fits("Phase centre");
+    if (ImGui::SmallButton("Phase centre")) in.push_back(intent::SetPhaseReference{s.active, PhaseReference::phase_centre, {}});
+    if (ImGui::IsItemHovered()) ImGui::SetTooltip("Move the reference onto the estimated phase centre (as --phase-centre auto)");
+    same_line_if_fits("File's origin");
+    if (ImGui::SmallButton("File's origin")) in.push_back(intent::SetPhaseReference{s.active, PhaseReference::keep, {}});
+}
 }  // namespace
+
+void draw_reference_section(const AppState& s, Intents& in) {
+    const LoadedPattern* a = s.active_pattern();
+    if (!a) return;
+    ImGui::TextDisabled("Phase reference of A");
+    ImGui::SameLine();
+    help_marker("The point the phases are measured from (as --phase-centre). Moving it changes only the phase: "
+                "gain, axial ratio and the cuts stay; the correlation (ECC) between two antennas changes, since "
+                "it needs one common reference.");
+    ImGui::PushTextWrapPos(0);
+    if (!a->set.has_phase()) {
+        ImGui::TextDisabled("needs phase (the file is %s)", to_string(a->set.content));
+        ImGui::PopTextWrapPos();
+        return;
+    }
+    reference_controls(s, *a, in);
+    ImGui::TextDisabled("in use: %s", reference_label(*a, s.freq).c_str());
+    if (!s.reference_error.empty())
+        ImGui::TextColored(ImVec4(0.55f, 0.12f, 0.08f, 1), "Phase reference not moved: %s", s.reference_error.c_str());
+    ImGui::PopTextWrapPos();
+}
 
 void draw_mounting_section(const AppState& s, Intents& in) {
     const LoadedPattern* a = s.active_pattern();

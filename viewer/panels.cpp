@@ -182,6 +182,7 @@ Intents draw_patterns_panel(const AppState& s, const Derived& d) {
     ImGui::Spacing();
     pattern_table(s, in);
     draw_mounting_section(s, in);
+    draw_reference_section(s, in);
     ImGui::Spacing();
     frequency_and_figures(s, d, in);
     if (!s.note.empty()) ImGui::TextDisabled("%s", s.note.c_str());

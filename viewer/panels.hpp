@@ -54,6 +54,9 @@ Intents draw_help_overlay(const AppState& s);
 // A section of the Patterns panel (viewer/mounting_panel.cpp): A's mounting, presets for the six
 // axes and turns about the world axes, with exports::mounting_text of what is applied.
 void draw_mounting_section(const AppState& s, Intents& in);
+// The section under it: A's phase reference (x, y, z in metres, the estimated phase centre, the
+// file's origin) and which one is in use (exports::reference_shift_text).
+void draw_reference_section(const AppState& s, Intents& in);
 // The first-run orientation: what each panel shows, dismissable (remembered in the settings).
 Intents draw_intro_overlay(const AppState& s);
 

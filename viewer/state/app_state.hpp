@@ -26,6 +26,10 @@ struct LoadedPattern {
     std::string path;  // empty for built-in patterns
     std::vector<std::string> join;  // the files joined to `path` (FILE::join=OTHER), as given
     int id = 0;        // unique in the window's life; derived data is keyed on it, not on the list position
+    // Changes (with a value unique in the window's life) when only the phase reference moves: the
+    // magnitudes and the polarisation stay, so only what reads the absolute phase (the diversity
+    // figures: ECC, and the fading curves from them) is keyed on it besides `id`.
+    int reference_id = 0;
     // The mounting asked for (the command line's --up/--rotate/--phase-centre or FILE::up=...,
     // then the mounting control), and the pattern as read when `set` differs from it (a mounting
     // or a moved phase reference applied; null when `set` is the file's pattern as read). A new
@@ -104,6 +108,8 @@ struct AppState {
     std::string mounting_error;  // why the last mounting asked for was not applied ("" none)
     // The mounting control's turns as typed, not yet applied (none: A's turns are shown).
     std::optional<std::string> turns_input;
+    std::optional<Vec3> reference_input;  // the phase-reference point as typed, not yet applied (metres)
+    std::string reference_error;          // why the last phase reference asked for was not applied
     std::string note;        // e.g. "built-in demo"
     bool show_help = false, show_intro = false;
     bool diversity_open = false;

@@ -55,7 +55,10 @@ std::optional<double> shown_frequency_hz(const AppState& s) {
 // Make pattern i the A pattern, at the frequency nearest to the one shown before (so switching
 // between files of the same band keeps the band). B is dropped if it was i.
 void set_active(AppState& s, int i, std::optional<double> keep_hz) {
-    if (i != s.active) s.turns_input.reset(), s.mounting_error.clear();  // the mounting control shows the new A's
+    if (i != s.active) {  // the mounting and reference controls show the new A's
+        s.turns_input.reset(), s.mounting_error.clear();
+        s.reference_input.reset(), s.reference_error.clear();
+    }
     s.active = i;
     if (s.compare == i) s.compare = -1;
     const LoadedPattern* a = s.active_pattern();
@@ -91,6 +94,24 @@ void set_mounting(AppState& s, const intent::SetMounting& m) {
     s.mounting_error.clear();
     s.turns_input.reset();
     p.id = s.next_pattern_id++;
+}
+
+// Pattern i installed again from the pattern as read with its phase reference moved; the id stays
+// (magnitudes and polarisation do not change), the reference id is new.
+void set_phase_reference(AppState& s, const intent::SetPhaseReference& r) {
+    if (r.index < 0 || r.index >= int(s.patterns.size())) return;
+    LoadedPattern& p = s.patterns[std::size_t(r.index)];
+    InstallRequest q = p.install;
+    q.reference = r.reference;
+    q.reference_point_m = r.reference == PhaseReference::point ? r.point_m : Vec3{};
+    FarFieldSet source = p.as_read ? *p.as_read : p.set;
+    if (Status st = install_loaded(p, std::move(source), q); !st) {
+        s.reference_error = st.error().message;
+        return;
+    }
+    s.reference_error.clear();
+    s.reference_input.reset();
+    p.reference_id = s.next_pattern_id++;
 }
 
 void close_pattern(AppState& s, int i) {
@@ -193,6 +214,10 @@ struct Apply {
     void operator()(intent::DismissLoadError&) { s.load_error.clear(); }
     void operator()(intent::SetMounting& i) { set_mounting(s, i); }
     void operator()(intent::EditTurns& i) { s.turns_input = std::move(i.text); }
+    void operator()(intent::SetPhaseReference& i) { set_phase_reference(s, i); }
+    void operator()(intent::EditReferencePoint& i) {
+        if (std::isfinite(i.point_m.x) && std::isfinite(i.point_m.y) && std::isfinite(i.point_m.z)) s.reference_input = i.point_m;
+    }
     void operator()(intent::ChangeSettings& i) { s.settings = within_limits(std::move(i.settings), s.settings); }
     void operator()(intent::StepComponent& i) {
         const LoadedPattern* a = s.active_pattern();

@@ -36,14 +36,15 @@ struct Shown {
     const LoadedPattern* a = nullptr;
     const LoadedPattern* b = nullptr;
     int a_id = 0, b_id = 0;
+    int a_ref = 0, b_ref = 0;  // LoadedPattern::reference_id
     std::size_t fa = 0, fb = 0;
 };
 Shown shown(const AppState& s) {
     Shown w;
     w.a = s.active_pattern();
     w.b = w.a ? s.compare_pattern() : nullptr;
-    if (w.a) w.a_id = w.a->id, w.fa = s.freq;
-    if (w.b) w.b_id = w.b->id, w.fb = s.freq_for(*w.b);
+    if (w.a) w.a_id = w.a->id, w.a_ref = w.a->reference_id, w.fa = s.freq;
+    if (w.b) w.b_id = w.b->id, w.b_ref = w.b->reference_id, w.fb = s.freq_for(*w.b);
     return w;
 }
 
@@ -114,7 +115,7 @@ void refresh_band(Derived& d, const AppState& s, const Shown& w) {
 // The diversity figures; while a slider is held the orientation sweep waits and the last one stays.
 void refresh_diversity(Derived& d, const AppState& s, const Shown& w, bool interacting) {
     if (!s.diversity_open && !s.fading_open) return;
-    DiversityKey k{s.diversity, w.a_id, w.b_id, w.fa, w.fb};
+    DiversityKey k{s.diversity, w.a_id, w.b_id, w.fa, w.fb, w.a_ref, w.b_ref};
     if (!s.diversity_open) k.choice.orientations = false;  // the fading panel alone needs no sweep
     const bool defer = interacting && k.choice.orientations;
     if (defer) k.choice.orientations = false;

@@ -85,6 +85,7 @@ struct DiversityKey {
     DiversityChoice choice;  // as computed (orientations off while a slider is held)
     int a = 0, b = 0;
     std::size_t fa = 0, fb = 0;
+    int a_reference = 0, b_reference = 0;  // LoadedPattern::reference_id: ECC reads the phase
     bool operator==(const DiversityKey&) const = default;
 };
 

@@ -58,6 +58,15 @@ struct SetMounting {
     std::vector<AxisTurn> turns;
 };
 struct EditTurns { std::string text; };  // the mounting control's turns field being typed
+// Pattern `index` installed again with its phase reference moved (pattern/install.hpp, as
+// --phase-centre / FILE::phase-centre= do): to the file's origin (keep), the estimated phase
+// centre, or a point in metres (world frame). The mounting stays.
+struct SetPhaseReference {
+    int index = 0;
+    PhaseReference reference = PhaseReference::keep;
+    Vec3 point_m{};
+};
+struct EditReferencePoint { Vec3 point_m{}; };  // the phase-reference fields being typed (metres)
 // The up axes the mounting control offers (parse_up's text forms).
 inline constexpr const char* mounting_up_presets[] = {"+z", "-z", "+x", "-x", "+y", "-y"};
 
@@ -111,7 +120,7 @@ struct Quit {};
 using Intent = std::variant<
     intent::OpenFiles, intent::CancelLoad, intent::LoadStatus, intent::LoadFinished, intent::AddPatterns,
     intent::ClosePattern, intent::SelectPattern, intent::NextPattern, intent::SetCompare, intent::SetFrequency,
-    intent::StepFrequency, intent::EditPath, intent::EditMap, intent::DismissLoadError, intent::SetMounting, intent::EditTurns, intent::ChangeSettings,
+    intent::StepFrequency, intent::EditPath, intent::EditMap, intent::DismissLoadError, intent::SetMounting, intent::EditTurns, intent::SetPhaseReference, intent::EditReferencePoint, intent::ChangeSettings,
     intent::StepComponent, intent::StepColorBy, intent::Orbit, intent::Zoom, intent::LookFrom, intent::SetView,
     intent::ResetView, intent::Hover, intent::Pin, intent::Unpin, intent::Escape, intent::ShowHelp, intent::ShowIntro,
     intent::DismissIntro, intent::ShowDiversity, intent::ChangeDiversity, intent::ShowBand, intent::ShowFading, intent::SetBandQuantity, intent::SelectTab, intent::ShowMap, intent::SetMapProjection, intent::SetCutExportFormat,
