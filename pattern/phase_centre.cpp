@@ -39,12 +39,40 @@ struct GridTrig {
     Vec3 phi_hat(int j) const { return {-sp[j], cp[j], 0.0}; }
 };
 
+// One row (sines and cosines st, ct of its theta) of the co-polar field below, in real arithmetic
+// without branches so that the compiler can take two samples a vector register: the operations
+// of the complex expressions there (dot, projection, conj(u) . e / |u|) in the same order, so the
+// same values bit for bit while no product overflows (fields below 1e100, see copolar_field).
+void copolar_row(const CVec3& p, double st, double ct, const GridTrig& tr, const double* et, const double* ep, double* co) {
+    const double pxr = p.x.real(), pxi = p.x.imag(), pyr = p.y.real(), pyi = p.y.imag(), pzr = p.z.real(), pzi = p.z.imag();
+    const std::size_t n = tr.sp.size();
+    for (std::size_t j = 0; j < n; ++j) {
+        const double sp = tr.sp[j], cp = tr.cp[j];
+        const double rx = st * cp, ry = st * sp, rz = ct;                                   // tr.dir
+        const double prr = pxr * rx + pyr * ry + pzr * rz, pri = pxi * rx + pyi * ry + pzi * rz;  // dot(p, r)
+        const double uxr = pxr - prr * rx, uxi = pxi - pri * rx, uyr = pyr - prr * ry, uyi = pyi - pri * ry;
+        const double uzr = pzr - prr * rz, uzi = pzi - pri * rz;
+        const double nu = std::sqrt((uxr * uxr + uxi * uxi) + (uyr * uyr + uyi * uyi) + (uzr * uzr + uzi * uzi));
+        const double thx = ct * cp, thy = ct * sp, thz = -st, phx = -sp, phy = cp, phz = 0.0;  // theta_hat, phi_hat
+        const double etr = et[2 * j], eti = et[2 * j + 1], epr = ep[2 * j], epi = ep[2 * j + 1];
+        const double exr = etr * thx + epr * phx, exi = eti * thx + epi * phx, eyr = etr * thy + epr * phy;
+        const double eyi = eti * thy + epi * phy, ezr = etr * thz + epr * phz, ezi = eti * thz + epi * phz;
+        const double sr = (uxr * exr - (-uxi) * exi) + (uyr * eyr - (-uyi) * eyi) + (uzr * ezr - (-uzi) * ezi);
+        const double si = (uxr * exi + (-uxi) * exr) + (uyr * eyi + (-uyi) * eyr) + (uzr * ezi + (-uzi) * ezr);
+        const bool has = nu > 1e-9;  // else the reference polarisation points along r: no co-polar part
+        co[2 * j] = has ? sr / nu : 0.0;
+        co[2 * j + 1] = has ? si / nu : 0.0;
+    }
+}
+
 // Co-polar field u(r)^H E(r) at every sample (u: the peak's polarisation carried to r).
 void copolar_field(const Grid& g, const GridTrig& tr, const FarField& f, std::vector<cplx>& co) {
     std::size_t best = 0;
     double best_p = -1;
+    bool moderate = true;  // every |E|^2 below 1e200 (no NaN): copolar_row's condition
     for (std::size_t k = 0; k < g.size(); ++k) {
         const double p = power(f.e_theta[k], f.e_phi[k]);
+        moderate &= p < 1e200;
         if (p > best_p) best_p = p, best = k;
     }
     const int pc = g.phi.count;
@@ -54,6 +82,12 @@ void copolar_field(const Grid& g, const GridTrig& tr, const FarField& f, std::ve
     if (!(n0 > 0)) return;
     const CVec3 p = (1.0 / n0) * e0;
     for (int i = 0; i < g.theta.count; ++i) {
+        const std::size_t row = g.index(i, 0);
+        if (moderate) {  // std::complex's layout: re, im
+            copolar_row(p, tr.st[i], tr.ct[i], tr, reinterpret_cast<const double*>(f.e_theta.data() + row),
+                        reinterpret_cast<const double*>(f.e_phi.data() + row), reinterpret_cast<double*>(co.data() + row));
+            continue;
+        }
         for (int j = 0; j < pc; ++j) {
             const Vec3 r = tr.dir(i, j);
             const cplx pr = dot(p, r);
