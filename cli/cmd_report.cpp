@@ -11,12 +11,9 @@
 #include "cli/environment_options.hpp"
 #include "cli/load.hpp"
 #include "cli/report_options.hpp"
-#include "exports/png.hpp"
+#include "cli/report_3d.hpp"
 #include "exports/report.hpp"
 #include "pattern/environment.hpp"
-#ifdef ELLIPSA_HAVE_VIEWER
-#include "viewer/snapshot.hpp"
-#endif
 
 namespace ellipsa::cli {
 
@@ -52,28 +49,7 @@ int run_report(const ReportArgs& a) {
     auto options = report_options({a.title, a.style, a.frequency_hz, a.range_db}, *size, std::get<ChosenEnvironment>(built));
     if (!options) return fail(exit_usage, options.error().message);
     ReportOptions& o = *options;
-#ifdef ELLIPSA_HAVE_VIEWER
-    // 3D views per pattern and frequency through the headless EGL context (viewer/snapshot.hpp):
-    // gain-coloured, and for data with phase also coloured by axial ratio.
-    // One renderer for every 3D view: its context and compiled shaders are kept between views.
-    auto renderer = std::make_shared<viewer::SnapshotRenderer>();
-    auto view = [size = *size, renderer](viewer::ColorBy colour) {
-        return [size, colour, renderer](const FarFieldSet& s, std::size_t fi) -> Result<std::string> {
-            viewer::SnapshotOptions so;
-            so.frequency_index = fi;
-            so.width = size.width_px;
-            so.height = size.height_px;
-            so.color_by = colour;
-            auto rgba = renderer->render(s, so);
-            if (!rgba) return rgba.error();
-            return exports::encode_png(rgba->data(), so.width, so.height, 4, std::size_t(so.width) * 4);
-        };
-    };
-    o.snapshot = view(viewer::ColorBy::component);
-    o.polarisation_snapshot = view(viewer::ColorBy::axial_ratio);
-#else
-    o.snapshot_note = "3D views are not included: this build has no viewer (ELLIPSA_VIEWER=OFF).";
-#endif
+    add_report_3d_views(o, *size);
 
     std::vector<ReportInput> inputs;
     for (const std::string& f : a.files) {

@@ -1,14 +1,42 @@
 // What `ellipsa report` makes of its options and how it publishes the folder (cli/report_options.hpp).
 #include "cli/report_options.hpp"
 
+#include <cctype>
+#include <cerrno>
 #include <cmath>
 #include <cstdio>
+#include <cstdlib>
 #include <ctime>
 
 #include "cli/version.hpp"
 #include "io/atomic_folder.hpp"
 
 namespace ellipsa::cli {
+
+namespace {
+
+// The date line: now, or SOURCE_DATE_EPOCH when set (seconds since 1970 UTC, the reproducible
+// builds convention, reproducible-builds.org/specs/source-date-epoch), so a report can be made
+// again byte for byte. A malformed value is refused, as that specification asks.
+Result<std::string> report_date() {
+    std::time_t t = std::time(nullptr);
+    if (const char* e = std::getenv("SOURCE_DATE_EPOCH"); e && *e) {
+        char* end = nullptr;
+        errno = 0;
+        const long long v = std::strtoll(e, &end, 10);
+        if (*end != '\0' || errno != 0 || v < 0 || v > 253402300799LL || !std::isdigit(static_cast<unsigned char>(*e)))
+            return Error{"", 0, 0, "SOURCE_DATE_EPOCH: expected whole seconds since 1970-01-01 UTC, found \"" +
+                                       std::string(e) + "\""};
+        t = std::time_t(v);
+    }
+    std::tm utc{};
+    char date[64];
+    if (!gmtime_r(&t, &utc) || std::strftime(date, sizeof date, "%Y-%m-%d %H:%M UTC", &utc) == 0)
+        return Error{"", 0, 0, "cannot write the report's date"};
+    return std::string(date);
+}
+
+}  // namespace
 
 Result<exports::ReportOptions> report_options(const ReportChoices& c, const exports::RenderSize& size,
                                              const ChosenEnvironment& environment) {
@@ -21,12 +49,10 @@ Result<exports::ReportOptions> report_options(const ReportChoices& c, const expo
     o.range_db = c.range_db;
     if (!exports::parse_plot_style(c.style, o.style))
         return Error{"", 0, 0, "--style: expected polar or rect, found \"" + c.style + "\""};
-    const std::string version = version_text();
-    o.generator = version.substr(0, version.find('\n'));
-    const std::time_t t = std::time(nullptr);
-    char date[64];
-    std::strftime(date, sizeof date, "%Y-%m-%d %H:%M UTC", std::gmtime(&t));
-    o.generated_utc = date;
+    o.generator = version_line();
+    auto date = report_date();
+    if (!date) return date.error();
+    o.generated_utc = *date;
     o.environment = environment.environment;
     if (environment.xpr_from == XprOrigin::user) {
         char xpr[48];

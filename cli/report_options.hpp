@@ -17,7 +17,8 @@ struct ReportChoices {
     std::optional<double> frequency_hz;
     double range_db = 40;
 };
-// The report's options with the provenance line and the date, or an Error whose message is the
+// The report's options with the provenance line and the date (SOURCE_DATE_EPOCH when set, for a
+// reproducible report), or an Error whose message is the
 // command's usage message (naming its option). The environment's name gains ", XPR x dB" when
 // the XPR was given. The 3D views are the caller's (the command's headless renderer).
 Result<exports::ReportOptions> report_options(const ReportChoices& c, const exports::RenderSize& size,

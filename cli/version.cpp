@@ -6,8 +6,12 @@
 
 namespace ellipsa::cli {
 
+std::string version_line() {
+    return "ellipsa " ELLIPSA_VERSION;  // project(VERSION) in CMakeLists.txt
+}
+
 std::string version_text() {
-    std::string s = "ellipsa " ELLIPSA_VERSION "\n";  // project(VERSION) in CMakeLists.txt
+    std::string s = version_line() + "\n";
 #ifdef ELLIPSA_HAVE_VIEWER
     s += "OpenGL: " + viewer::probe_renderer_line() + "\n";
 #else

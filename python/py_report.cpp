@@ -1,8 +1,8 @@
 // write_report(): the report folder of `ellipsa report`, through the command's own code
-// (cli/report_options.hpp, exports/report.hpp). The module draws no 3D view (it links no GL): the
-// report says so where the command's has its 3D views.
+// (cli/report_options.hpp, cli/report_3d.hpp, exports/report.hpp), 3D views included.
 #include "cli/load.hpp"
 #include "cli/report_options.hpp"
+#include "cli/report_3d.hpp"
 #include "python/py_common.hpp"
 
 namespace ellipsa::python {
@@ -24,7 +24,7 @@ void write_report(const std::string& path, const std::vector<PatternPtr>& patter
     }
     auto options = cli::report_options({title, style, frequency_hz, range_db}, size, env);
     if (!options) throw py::value_error(options.error().message);
-    options->snapshot_note = "3D views are not included: the Python module draws none (ellipsa report does).";
+    cli::add_report_3d_views(*options, size);
     std::vector<exports::ReportInput> inputs;
     std::vector<std::string> read;
     for (const PatternPtr& p : patterns) {
@@ -52,9 +52,9 @@ void bind_report(py::module_& m) {
           "Write the report folder `ellipsa report --out` writes (the same code): index.html and report.md with\n"
           "the figures per pattern and frequency (only frequency_hz when given), the principal cuts (style\n"
           "\"polar\" or \"rect\", range_db 3..200, size_px and dpi of every figure), the maps, MEG in the\n"
-          "environment (default: the command's default) and a comparison of several patterns. The module draws\n"
-          "no 3D view (the report says so). The folder is replaced only with force=True, and only one ellipsa\n"
-          "made that holds none of the patterns' files.");
+          "environment (default: the command's default), the 3D views (headless, as the command draws them)\n"
+          "and a comparison of several patterns. The folder is replaced only with force=True, and only one\n"
+          "ellipsa made that holds none of the patterns' files.");
 }
 
 }  // namespace ellipsa::python

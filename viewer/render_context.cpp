@@ -7,9 +7,6 @@
 #include <cstring>
 #include <string>
 
-#define GLFW_INCLUDE_NONE
-#include <GLFW/glfw3.h>
-
 #include "viewer/gl.hpp"
 
 namespace ellipsa::viewer {
@@ -24,55 +21,6 @@ bool looks_software(const std::string& renderer) {
     for (const char* w : {"llvmpipe", "softpipe", "swrast", "Software", "software"})
         if (renderer.find(w) != std::string::npos) return true;
     return false;
-}
-
-bool software_forced_by_env() {
-    const char* a = std::getenv("LIBGL_ALWAYS_SOFTWARE");
-    return a && *a && std::strcmp(a, "0") != 0 && std::strcmp(a, "false") != 0;
-}
-
-void fill_info(RendererInfo& info, const std::string& context, bool forced, const std::string& fallback_reason) {
-    info.renderer = gl_string(GL_RENDERER);
-    info.version = gl_string(GL_VERSION);
-    info.software = looks_software(info.renderer);
-    info.context = context;
-    if (forced)
-        info.how = "software forced (--software or LIBGL_ALWAYS_SOFTWARE)";
-    else if (!fallback_reason.empty())
-        info.how = "hardware context failed (" + fallback_reason + "), fell back to Mesa software";
-    else if (info.software)
-        info.how = "no GPU driver answered, Mesa chose its software renderer";
-    else
-        info.how = "hardware";
-}
-
-// --- GLFW window -----------------------------------------------------------------------------
-class WindowContext final : public RenderContext {
-public:
-    ~WindowContext() override {
-        if (window_) glfwDestroyWindow(window_);
-        glfwTerminate();
-    }
-    const RendererInfo& info() const override { return info_; }
-    void make_current() override { glfwMakeContextCurrent(window_); }
-    GLFWwindow* window() override { return window_; }
-
-    GLFWwindow* window_ = nullptr;
-    RendererInfo info_;
-};
-
-std::string glfw_error_text() {
-    const char* d = nullptr;
-    glfwGetError(&d);
-    return d ? d : "unknown GLFW error";
-}
-
-GLFWwindow* open_window(const ContextRequest& r) {
-    glfwDefaultWindowHints();
-    glfwWindowHint(GLFW_CONTEXT_VERSION_MAJOR, 3);
-    glfwWindowHint(GLFW_CONTEXT_VERSION_MINOR, 3);
-    glfwWindowHint(GLFW_OPENGL_PROFILE, GLFW_OPENGL_CORE_PROFILE);
-    return glfwCreateWindow(r.width, r.height, r.title.c_str(), nullptr, nullptr);
 }
 
 // --- Headless EGL ----------------------------------------------------------------------------
@@ -127,6 +75,26 @@ Result<std::unique_ptr<HeadlessContext>> try_headless() {
 }
 }  // namespace
 
+bool software_forced_by_env() {
+    const char* a = std::getenv("LIBGL_ALWAYS_SOFTWARE");
+    return a && *a && std::strcmp(a, "0") != 0 && std::strcmp(a, "false") != 0;
+}
+
+void fill_renderer_info(RendererInfo& info, const std::string& context, bool forced, const std::string& fallback_reason) {
+    info.renderer = gl_string(GL_RENDERER);
+    info.version = gl_string(GL_VERSION);
+    info.software = looks_software(info.renderer);
+    info.context = context;
+    if (forced)
+        info.how = "software forced (--software or LIBGL_ALWAYS_SOFTWARE)";
+    else if (!fallback_reason.empty())
+        info.how = "hardware context failed (" + fallback_reason + "), fell back to Mesa software";
+    else if (info.software)
+        info.how = "no GPU driver answered, Mesa chose its software renderer";
+    else
+        info.how = "hardware";
+}
+
 std::string RendererInfo::line() const {
     std::string s = renderer.empty() ? std::string("unknown renderer") : renderer;
     s += software ? " - Mesa software" : " - hardware";
@@ -140,32 +108,6 @@ void force_software_rendering() {
     setenv("MESA_LOADER_DRIVER_OVERRIDE", "llvmpipe", 1);
 }
 
-Result<std::unique_ptr<RenderContext>> create_window_context(const ContextRequest& r) {
-    if (!(r.width >= 1 && r.width <= 16384 && r.height >= 1 && r.height <= 16384))
-        return Error{"", 0, 0, "window size " + std::to_string(r.width) + " x " + std::to_string(r.height) + " is not usable"};
-    if (r.software) force_software_rendering();
-    const bool forced = r.software || software_forced_by_env();
-    if (!glfwInit()) {
-        const std::string why = glfw_error_text();
-        return Error{"", 0, 0,
-                     "cannot open a window (" + why + "); is a display available? "
-                     "Use 'ellipsa render' for images without a display"};
-    }
-    auto c = std::make_unique<WindowContext>();
-    std::string fallback;
-    c->window_ = open_window(r);
-    if (!c->window_ && !forced) {
-        fallback = glfw_error_text();
-        force_software_rendering();
-        c->window_ = open_window(r);
-    }
-    if (!c->window_) return Error{"", 0, 0, "cannot create an OpenGL 3.3 core window: " + glfw_error_text()};
-    glfwMakeContextCurrent(c->window_);
-    glfwSwapInterval(r.vsync ? 1 : 0);
-    fill_info(c->info_, "GLFW window", forced, fallback);
-    return std::unique_ptr<RenderContext>(std::move(c));
-}
-
 Result<std::unique_ptr<RenderContext>> create_headless_context(const ContextRequest& r) {
     if (r.software) force_software_rendering();
     const bool forced = r.software || software_forced_by_env();
@@ -177,7 +119,7 @@ Result<std::unique_ptr<RenderContext>> create_headless_context(const ContextRequ
         c = try_headless();
     }
     if (!c) return Error{"", 0, 0, "cannot create a headless OpenGL 3.3 context: " + c.error().message};
-    fill_info((*c)->info_, "headless EGL (surfaceless)", forced, fallback);
+    fill_renderer_info((*c)->info_, "headless EGL (surfaceless)", forced, fallback);
     return std::unique_ptr<RenderContext>(std::move(*c));
 }
 

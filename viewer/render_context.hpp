@@ -44,8 +44,13 @@ public:
 
 // Set the environment so that Mesa uses its software renderer for contexts made after this.
 void force_software_rendering();
+// Whether LIBGL_ALWAYS_SOFTWARE asks for the software renderer.
+bool software_forced_by_env();
+// The current context's renderer, and how it was chosen (both kinds of context fill it).
+void fill_renderer_info(RendererInfo& info, const std::string& context, bool forced, const std::string& fallback_reason);
 
 // A visible GLFW window with an OpenGL 3.3 core context. Fails (with a message) without a display.
+// In viewer/window_context.cpp (the viewer's library), so the snapshot library links no GLFW.
 Result<std::unique_ptr<RenderContext>> create_window_context(const ContextRequest& r);
 // A headless context on EGL's surfaceless platform; render into framebuffer objects.
 Result<std::unique_ptr<RenderContext>> create_headless_context(const ContextRequest& r);
