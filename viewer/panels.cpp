@@ -88,6 +88,26 @@ void loading_and_error(const AppState& s, Intents& in) {
     ImGui::PopStyleColor();
 }
 
+// One pattern's name in the list, selectable, wrapped over at most three lines so that the part
+// that tells files of one series apart (often the end) stays in view; a longer name keeps its
+// start and its end (elide_middle). True when clicked.
+bool pattern_name_row(const std::string& name, bool active) {
+    const char* mark = active ? "A  " : "   ";
+    const float indent = ImGui::CalcTextSize("A  ").x;
+    const float w = std::max(ImGui::GetContentRegionAvail().x - indent, 40.0f);
+    const float line = ImGui::GetTextLineHeight();
+    std::string shown = name;
+    if (ImGui::CalcTextSize(shown.c_str(), nullptr, false, w).y > 3.5f * line) shown = elide_middle(name, 2.6f * w);
+    const float h = ImGui::CalcTextSize(shown.c_str(), nullptr, false, w).y;
+    const ImVec2 at = ImGui::GetCursorScreenPos();
+    const bool clicked = ImGui::Selectable("##name", active, 0, ImVec2(0, h));
+    ImDrawList* dl = ImGui::GetWindowDrawList();
+    const ImU32 ink = ImGui::GetColorU32(ImGuiCol_Text);
+    dl->AddText(at, ink, mark);
+    dl->AddText(ImGui::GetFont(), ImGui::GetFontSize(), ImVec2(at.x + indent, at.y), ink, shown.c_str(), nullptr, w);
+    return clicked;
+}
+
 void pattern_table(const AppState& s, Intents& in) {
     text_wrapped_at_spaces("Patterns: A is shown, tick B to compare", true);  // wraps in a narrow panel
     if (!ImGui::BeginTable("patterns", 3, ImGuiTableFlags_RowBg | ImGuiTableFlags_BordersInnerH)) return;
@@ -99,10 +119,10 @@ void pattern_table(const AppState& s, Intents& in) {
         ImGui::PushID(i);
         ImGui::TableNextRow();
         ImGui::TableSetColumnIndex(0);
-        const std::string label = (i == s.active ? "A  " : "   ") + p.list_name();
-        if (ImGui::Selectable(label.c_str(), i == s.active) && i != s.active) in.push_back(intent::SelectPattern{i});
+        if (pattern_name_row(p.list_name(), i == s.active) && i != s.active) in.push_back(intent::SelectPattern{i});
         if (ImGui::IsItemHovered())
-            ImGui::SetTooltip("%s%s%s\n%s, %s, %zu frequenc%s", p.path.empty() || !p.join.empty() ? p.set.source.c_str() : p.path.c_str(),
+            ImGui::SetTooltip("%s\n%s%s%s\n%s, %s, %zu frequenc%s", p.list_name().c_str(),
+                              p.path.empty() || !p.join.empty() ? p.set.source.c_str() : p.path.c_str(),
                               p.join.empty() ? "" : "\nname: ", p.join.empty() ? "" : p.set.name.c_str(),
                               to_string(p.set.quantity), to_string(p.set.content), p.set.frequencies.size(),
                               p.set.frequencies.size() == 1 ? "y" : "ies");

@@ -102,4 +102,30 @@ std::string db_text(double v, const std::string& unit) {
     return b;
 }
 
+namespace {
+bool continuation(char c) { return (static_cast<unsigned char>(c) & 0xC0) == 0x80; }
+}  // namespace
+
+std::string elide_middle(const std::string& text, float width) {
+    if (ImGui::CalcTextSize(text.c_str()).x <= width) return text;
+    const std::string dots = "\u2026";
+    const float room = width - ImGui::CalcTextSize(dots.c_str()).x;
+    std::size_t tail = text.size();  // the end: grow it back from the last character
+    while (tail > 0) {
+        std::size_t t = tail - 1;
+        while (t > 0 && continuation(text[t])) --t;
+        if (ImGui::CalcTextSize(text.c_str() + t).x > room * 2 / 3) break;
+        tail = t;
+    }
+    std::size_t head = 0;  // the start, in the room the end left
+    const float left = room - ImGui::CalcTextSize(text.c_str() + tail).x;
+    while (head < tail) {
+        std::size_t h = head + 1;
+        while (h < tail && continuation(text[h])) ++h;
+        if (ImGui::CalcTextSize(text.c_str(), text.c_str() + h).x > left) break;
+        head = h;
+    }
+    return text.substr(0, head) + dots + text.substr(tail);
+}
+
 }  // namespace ellipsa::viewer

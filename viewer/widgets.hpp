@@ -18,6 +18,10 @@ void help_marker(const char* text);
 std::vector<std::string> word_lines(const std::string& text, float width, const std::function<float(const std::string&)>& measure);
 // The text wrapped with word_lines() to the space left on the line (muted when `disabled`).
 void text_wrapped_at_spaces(const std::string& text, bool disabled = false);
+// `text` as it fits in `width` pixels of the current font: whole, or its start and its end with
+// "\u2026" between (the end gets two thirds of the room: file names differ most at their end, as
+// "patch_rev_B_2450MHz"), cut between UTF-8 characters.
+std::string elide_middle(const std::string& text, float width);
 // A two-column table of labels (as wide as the widest) and values (the rest, wrapped). End it
 // with ImGui::EndTable() when it returns true.
 bool begin_figure_table(const char* id, bool row_bg = false);

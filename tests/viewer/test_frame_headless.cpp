@@ -357,3 +357,37 @@ TEST_CASE("the pointer over the not-measured region of a hemisphere probes nothi
     CHECK(s.hover);
     CHECK_FALSE(s.hover_not_measured);
 }
+
+// A long pattern name in the Patterns list keeps its start and its end (common practice: a middle
+// ellipsis, as file managers shorten names), fits the width, and is cut between UTF-8 characters.
+TEST_CASE("long names keep their start and end, cut between characters", "[viewer][ui]") {
+    Ui ui;
+    ImGui::NewFrame();
+    const std::string name = "Patch antenna on ground plane, revision B, 2450 MHz, measured 2026-11-03";
+    CHECK(elide_middle("short", 200) == "short");
+    const std::string e = elide_middle(name, 150);
+    CHECK(ImGui::CalcTextSize(e.c_str()).x <= 150);
+    CHECK(e.rfind("Patch", 0) == 0);
+    CHECK(e.size() > 10);
+    CHECK(e.substr(e.size() - 5) == "11-03");
+    CHECK(e.find("\u2026") != std::string::npos);
+    std::string phis;
+    for (int k = 0; k < 40; ++k) phis += "\u03c6";
+    const std::string g = elide_middle(phis, 80);
+    std::size_t chars = 0;
+    for (char c : g) chars += (static_cast<unsigned char>(c) & 0xC0) != 0x80;
+    CHECK(g.size() == (chars - 1) * 2 + 3);  // whole two-byte phis and the three-byte ellipsis
+    ImGui::Render();
+    // The list and the phase-reference control draw such a name and ask for nothing by themselves.
+    AppState s;
+    Derived d;
+    FarFieldSet a = antenna(ReferenceKind::dipole);
+    a.name = name;
+    apply(s, Intents{intent::AddPatterns{{a, antenna(ReferenceKind::small_loop)}, ""}, intent::SelectTab{Tab::patterns}});
+    refresh(d, s);
+    for (int k = 0; k < 2; ++k) {
+        const Intents in = ui.frame(s, d);
+        CHECK_FALSE(has<intent::SelectPattern>(in));
+        CHECK_FALSE(has<intent::SetPhaseReference>(in));
+    }
+}
