@@ -33,6 +33,7 @@ std::optional<std::size_t> draw_plot(const AppState& s, const BandView& v, int q
     }
     const ImVec2 avail = ImGui::GetContentRegionAvail();
     const ImVec2 size(std::max(200.0f, avail.x), std::clamp(avail.y - 4, 100.0f, 360.0f));
+    const float line = ImGui::GetTextLineHeight();
     const ImVec2 at = ImGui::GetCursorScreenPos();
     ImGui::InvisibleButton("band plot", size);
     const bool clicked = ImGui::IsItemClicked();
@@ -43,7 +44,7 @@ std::optional<std::size_t> draw_plot(const AppState& s, const BandView& v, int q
     }
     if (hi - lo < 1e-9) lo -= 0.5, hi += 0.5;
     const double pad = 0.04 * (v.frequency_hz.back() - v.frequency_hz.front());
-    PlotBox b{ImVec2(at.x + 48, at.y + 6), ImVec2(at.x + size.x - 8, at.y + size.y - 22), v.frequency_hz.front() - pad,
+    PlotBox b{ImVec2(at.x + 48, at.y + line + 6), ImVec2(at.x + size.x - 8, at.y + size.y - 22), v.frequency_hz.front() - pad,
               v.frequency_hz.back() + pad, lo - 0.08 * (hi - lo), hi + 0.08 * (hi - lo)};
     const ImU32 ink = ImGui::GetColorU32(ImGuiCol_Text), grid = ImGui::GetColorU32(ImGuiCol_Border);
     dl->AddRect(b.p0, b.p1, grid);
@@ -59,6 +60,9 @@ std::optional<std::size_t> draw_plot(const AppState& s, const BandView& v, int q
         dl->AddText(ImVec2(b.X(tx * scale) - 12, b.p1.y + 3), ink, t);
     }
     dl->AddText(ImVec2(at.x, b.p1.y + 3), ink, scale == 1e9 ? "GHz" : "MHz");
+    // The unit above the y axis's numbers, as the other plots have it.
+    const char* unit = *band_quantities[q].unit ? band_quantities[q].unit : db_unit(s.active_pattern()->set.quantity, Component::total);
+    dl->AddText(ImVec2(at.x, at.y), ImGui::GetColorU32(ImGuiCol_TextDisabled), unit);
     // The cursor at the frequency shown.
     for (std::size_t k = 0; k < v.figures.size(); ++k)
         if (v.figures[k].freq_index == s.freq)
@@ -105,10 +109,6 @@ Intents draw_band_panel(const AppState& s, const Derived& d) {
             if (ImGui::Selectable(band_quantity_label(k, at_pole).c_str(), k == q)) in.push_back(intent::SetBandQuantity{k});
         ImGui::EndCombo();
     }
-    ImGui::SameLine();
-    ImGui::PushTextWrapPos(0);
-    ImGui::TextDisabled("(%s)", band_quantities[q].unit);
-    ImGui::PopTextWrapPos();
     // The plot, and the notes beside it in a wide strip or under it in a narrow one.
     const ImVec2 avail = ImGui::GetContentRegionAvail();
     const bool beside = avail.x >= 560;

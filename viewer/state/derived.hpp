@@ -105,13 +105,13 @@ struct BandKey {
 // band_quantity_label): "HPBW, elevation plane", or "HPBW, plane φ = 0°" for a beam at a pole.
 struct BandQuantity {
     const char* label;  // menu text (before the plane, for a beam figure)
-    const char* unit;   // axis unit
+    const char* unit;   // the y axis's unit; "" for the pattern's own dB unit (db_unit: dBi, or dB for relative data)
     int plane = -1;     // -1 none, 0 the elevation plane through the peak, 1 the plane across it
 };
 inline constexpr BandQuantity band_quantities[] = {
-    {"Peak", "dBi, or dB for relative data"},          {"Directivity", "dBi"},        {"Radiation efficiency", "%"},
-    {"MEG, uniform", "dB"},  {"Axial ratio at the peak", "dB"}, {"HPBW", "deg", 0},
-    {"HPBW", "deg", 1}, {"Front-to-back", "dB"}, {"AR beamwidth (3 dB)", "deg", 0}};
+    {"Peak", ""},          {"Directivity", "dBi"},        {"Radiation efficiency", "%"},
+    {"MEG, uniform", "dB"},  {"Axial ratio at the peak", "dB"}, {"HPBW", "\u00b0", 0},
+    {"HPBW", "\u00b0", 1}, {"Front-to-back", "dB"}, {"AR beamwidth (3 dB)", "\u00b0", 0}};
 inline constexpr int band_quantity_count = int(sizeof band_quantities / sizeof band_quantities[0]);
 // The value of quantity q at one frequency (NaN: none there).
 double band_value(const FrequencyFigures& f, int q);
