@@ -101,19 +101,19 @@ void reference_controls(const AppState& s, const LoadedPattern& p, Intents& in) 
 void draw_reference_section(const AppState& s, Intents& in) {
     const LoadedPattern* a = s.active_pattern();
     if (!a) return;
-    ImGui::TextDisabled("Phase reference of A");
+    // Folded by default, so the frequency and the figures below stay in view; a moved reference is
+    // named under the fold all the same.
+    const bool open = ImGui::TreeNodeEx("Phase reference of A", ImGuiTreeNodeFlags_SpanAvailWidth);
     ImGui::SameLine();
     help_marker("The point the phases are measured from (as --phase-centre). Moving it changes only the phase: "
                 "gain, axial ratio and the cuts stay; the correlation (ECC) between two antennas changes, since "
                 "it needs one common reference.");
     ImGui::PushTextWrapPos(0);
-    if (!a->set.has_phase()) {
-        ImGui::TextDisabled("needs phase (the file is %s)", to_string(a->set.content));
-        ImGui::PopTextWrapPos();
-        return;
-    }
-    reference_controls(s, *a, in);
-    ImGui::TextDisabled("in use: %s", reference_label(*a, s.freq).c_str());
+    if (open && !a->set.has_phase()) ImGui::TextDisabled("needs phase (the file is %s)", to_string(a->set.content));
+    else if (open) reference_controls(s, *a, in);
+    if (open) ImGui::TreePop();
+    if (a->set.has_phase() && (open || a->install.reference != PhaseReference::keep))
+        ImGui::TextDisabled("in use: %s", reference_label(*a, s.freq).c_str());
     if (!s.reference_error.empty())
         ImGui::TextColored(ImVec4(0.55f, 0.12f, 0.08f, 1), "Phase reference not moved: %s", s.reference_error.c_str());
     ImGui::PopTextWrapPos();
