@@ -662,10 +662,13 @@ Status metadata_values(const TextSource& src, const std::string& file, const std
     if (freq)
         if (Status st = frequency_value(src, file, *freq, L); !st) return st;
     if (Status st = positioner_fields(L, file); !st) return st;
-    if (L.family == CsvFamily::ludwig3_polar && !L.ludwig3_reference)
-        return Error{file, L.header_line, L.header_column[std::size_t(L.column_of[c_e_co_db])],
+    if (L.family == CsvFamily::ludwig3_polar && !L.ludwig3_reference) {
+        // The family's first column in the file (a file of the cross-polar part alone has no e_co_db).
+        const int col = L.column_of[c_e_co_db] >= 0 ? L.column_of[c_e_co_db] : L.column_of[c_e_cross_db];
+        return Error{file, L.header_line, col >= 0 ? L.header_column[std::size_t(col)] : 1,
                      "the e_co/e_cross family: expected a metadata line \"# ludwig3-reference: x\" (or y) before the "
                      "header, found none"};
+    }
     return Ok{};
 }
 
