@@ -188,6 +188,53 @@ Result<GridPlan> plan_grid(const std::vector<Chunk>& chunks, const Layout& L, co
     return g;
 }
 
+namespace {
+
+// Sorted distinct values with the gaps of a regular axis filled in (its ends and the smallest
+// gap); false when the ends are not a whole number of smallest gaps apart.
+bool filled_axis(std::vector<Value> v, std::vector<Value>& out) {
+    if (v.size() < 2) {
+        out = std::move(v);
+        return true;
+    }
+    double gap = std::numeric_limits<double>::infinity();
+    for (std::size_t k = 1; k < v.size(); ++k) gap = std::min(gap, v[k].v - v[k - 1].v);
+    const double span = v.back().v - v.front().v, n = std::round(span / gap);
+    if (!(gap > 0) || std::abs(span / gap - n) > 1e-4 || n > 1e7) return false;
+    out.clear();
+    for (std::size_t k = 0; k + 1 < std::size_t(n) + 1; ++k)
+        out.push_back({v.front().v + span * double(k) / n, v.front().line_offset});
+    out.push_back(v.back());
+    return true;
+}
+
+bool same_axis(const AngleAxis& a, const AngleAxis& b) {
+    return a.start_deg == b.start_deg && a.step_deg == b.step_deg && a.count == b.count;
+}
+
+}  // namespace
+
+std::optional<GridPlan> guess_plan(const std::vector<Chunk>& samples, const Layout& L, const TextSource& src) {
+    std::vector<Value> tv, pv;
+    if (!filled_axis(merged(samples, &Chunk::theta, merge_tol_deg, false), tv) ||
+        !filled_axis(merged(samples, &Chunk::phi, merge_tol_deg, false), pv) || tv.empty() || pv.empty())
+        return std::nullopt;
+    const bool raw = L.angles == AngleSystem::az_over_el || L.angles == AngleSystem::el_over_az || tv.front().v < 0 ||
+                     !usual_phi_window(pv);
+    GridPlan g;
+    if (raw || !theta_axis(tv, L, src, "", g) || !phi_axis(pv, L, src, "", g)) return std::nullopt;
+    for (const Value& x : merged(samples, &Chunk::freq, 1e-9, true)) g.freqs.push_back(x.v);
+    if (g.freqs.empty()) return std::nullopt;
+    return g;
+}
+
+bool same_plan(const GridPlan& a, const GridPlan& b) {
+    return same_axis(a.grid.theta, b.grid.theta) && same_axis(a.grid.phi, b.grid.phi) && a.grid.sampling == b.grid.sampling &&
+           a.theta0 == b.theta0 && a.theta_step == b.theta_step && a.phi0 == b.phi0 && a.phi_step == b.phi_step &&
+           a.n_phi_distinct == b.n_phi_distinct && a.phi_shift == b.phi_shift && a.phi_seam == b.phi_seam &&
+           a.raw == b.raw && a.freqs == b.freqs;
+}
+
 Status check_grid_size(const GridPlan& g, std::size_t rows, FieldContent content, const CsvReadOptions& o,
                        const std::string& file) {
     const long double nf = (long double)g.freqs.size();

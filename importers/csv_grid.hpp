@@ -1,5 +1,6 @@
 // Internal to the CSV reader: the grid between the two passes and after them, as named stages.
 //   plan_grid        regular theta, phi and frequency axes from the distinct values of pass 1
+//   guess_plan       the same from samples of the file, for a single pass (same_plan confirms it)
 //   check_grid_size  before any allocation: the grid against the rows that could fill it, and
 //                    its arrays against the memory there is
 //   allocate         the set's arrays, zeroed, and one "seen" byte per point
@@ -7,6 +8,7 @@
 //   fill_poles       one sample at a pole stands for its whole ring
 //   check_complete   every point present, or the first five missing named
 #pragma once
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -28,6 +30,13 @@ bool regular_axis(const std::vector<Value>& v, const char* what, double& start, 
 // Cost: sorting the distinct values. Errors name the first value off the regular step.
 Result<GridPlan> plan_grid(const std::vector<Chunk>& chunks, const Layout& L, const TextSource& src,
                            const std::string& file);
+
+// A plan guessed from pass 1 over samples of the file (its first and last lines and windows in
+// between): theta and phi filled in as regular axes from their ends and smallest step, the
+// frequencies as met. None when the samples do not make a usual (not raw) grid. Pass 2 on the
+// guess (one_pass) then proves it: plan_grid on what that pass saw must give the same plan.
+std::optional<GridPlan> guess_plan(const std::vector<Chunk>& samples, const Layout& L, const TextSource& src);
+bool same_plan(const GridPlan& a, const GridPlan& b);
 
 // Before allocation: refuses more than 4 points a row (plus 4096) when `rows` data rows cannot
 // fill the grid (a small file with N distinct values of each angle and frequency implies N^3

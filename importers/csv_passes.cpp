@@ -113,7 +113,7 @@ template <class Row>
             } else if (q < e) {
                 if (!row(p, e, at + std::size_t(p - base))) return false;
                 if ((++n & 4095) == 0) {
-                    if (ctx.cancelled.load(std::memory_order_relaxed)) return false;
+                    if (ctx.cancelled.load(std::memory_order_relaxed) || ctx.stop.load(std::memory_order_relaxed)) return false;
                     every_4096_rows(ctx, c, at + std::size_t(p - base), progress_base, progress_span);
                 }
             }
@@ -540,12 +540,13 @@ constexpr const char* changed_message =
 
 }  // namespace
 
-void pass1(Context& ctx, Chunk& c, bool report_progress) {
+namespace {
+
+// Pass 1 over [c.begin, c.end) with the caches given.
+void pass1_rows(Context& ctx, Chunk& c, bool report_progress, AngleCaches& cache) {
     const Layout& L = *ctx.L;
-    AngleCaches cache;
     AngleInfo scratch;
     DistinctValues* sets[3] = {&c.theta, &c.phi, &c.freq};
-    if (!L.frequency_column) c.freq.add(L.frequency_hz ? *L.frequency_hz : 0.0, c.begin);
     const int upto = L.last_angle_cell;
     for_each_row(ctx, c, true, 0.0, report_progress ? 0.35 : 0.0, [&](const char* p, const char* e, std::size_t off) __attribute__((always_inline)) {
         const char* q = p;
@@ -568,7 +569,34 @@ void pass1(Context& ctx, Chunk& c, bool report_progress) {
     });
 }
 
-void pass2(Context& ctx, Chunk& c, bool report_progress) {
+}  // namespace
+
+void pass1(Context& ctx, Chunk& c, bool report_progress) {
+    const Layout& L = *ctx.L;
+    AngleCaches cache;
+    if (!L.frequency_column) c.freq.add(L.frequency_hz ? *L.frequency_hz : 0.0, c.begin);
+    pass1_rows(ctx, c, report_progress, cache);
+}
+
+void pass1_ranges(Context& ctx, Chunk& c, const std::vector<std::pair<std::size_t, std::size_t>>& ranges) {
+    const Layout& L = *ctx.L;
+    AngleCaches cache;
+    if (!L.frequency_column) c.freq.add(L.frequency_hz ? *L.frequency_hz : 0.0, ranges.empty() ? 0 : ranges[0].first);
+    for (const auto& [b, e] : ranges) {
+        c.begin = b;
+        c.end = e;
+        pass1_rows(ctx, c, false, cache);
+        if (c.failure.set) return;
+    }
+}
+
+namespace {
+
+// Pass 2, or (Collect) the single pass on a guessed plan: it also does pass 1's work (NUL bytes,
+// metadata after the header, the distinct values, the row count) so that the plan can be
+// confirmed from what it saw.
+template <bool Collect>
+void pass2_impl(Context& ctx, Chunk& c, bool report_progress) {
     const Layout& L = *ctx.L;
     const GridPlan& g = *ctx.plan;
     const int ncells = L.cells;
@@ -579,7 +607,10 @@ void pass2(Context& ctx, Chunk& c, bool report_progress) {
     for (int r = 0; r < c_count; ++r) v[r] = is_db_role(r) ? -HUGE_VAL : 0.0;
     AngleInfo fixed_f;  // without a frequency column: the one frequency
     fixed_f.value = g.freqs.empty() ? 0.0 : g.freqs[0];
-    for_each_row(ctx, c, false, 0.35, report_progress ? 0.65 : 0.0, [&](const char* p, const char* e, std::size_t off) __attribute__((always_inline)) {
+    DistinctValues* sets[3] = {&c.theta, &c.phi, &c.freq};
+    if (Collect && !L.frequency_column) c.freq.add(L.frequency_hz ? *L.frequency_hz : 0.0, c.begin);
+    const double progress_base = Collect ? 0.0 : 0.35;
+    for_each_row(ctx, c, Collect, progress_base, report_progress ? 1.0 - progress_base : 0.0, [&](const char* p, const char* e, std::size_t off) __attribute__((always_inline)) {
         const AngleInfo* ang[3] = {nullptr, nullptr, L.frequency_column ? nullptr : &fixed_f};
         AngleInfo fresh[3];
         const char* q = p;
@@ -596,12 +627,16 @@ void pass2(Context& ctx, Chunk& c, bool report_progress) {
                 v[r] = x;
             } else {
                 ang[slot] = angle_cell(L, cache[slot], r, q, e, p, off, c, fresh[slot], changed_message,
-                                       [&](double x, AngleInfo& a) { return place_on_grid(g, slot, x, a); });
+                                       [&](double x, AngleInfo& a) {
+                                           if (Collect) sets[slot]->add(x, off);
+                                           return place_on_grid(g, slot, x, a);
+                                       });
                 if (!ang[slot]) return false;
             }
             if (!next_cell(c, off, p, e, q, k, ncells)) return false;
         }
         if (q < e && !rest_is_empty(c, L, p, q, e, off)) return false;
+        if (Collect) ++c.rows;
         cplx et, ep;
         if (const FieldProblem bad = row_field(L, v, ang[1]->value, et, ep); bad.expected) {
             fail_cell(c, off, p, cell_at[std::size_t(L.column_of[std::size_t(bad.role)])],
@@ -616,6 +651,35 @@ void pass2(Context& ctx, Chunk& c, bool report_progress) {
         }
         return store_point(ctx, c, fk, k, et, ep, off, ang);
     });
+    if (Collect && c.failure.set) ctx.stop = true;
+}
+
+}  // namespace
+
+void pass2(Context& ctx, Chunk& c, bool report_progress) { pass2_impl<false>(ctx, c, report_progress); }
+void one_pass(Context& ctx, Chunk& c, bool report_progress) { pass2_impl<true>(ctx, c, report_progress); }
+
+std::vector<std::pair<std::size_t, std::size_t>> sample_ranges(const TextSource& src, std::size_t begin) {
+    const std::size_t size = src.size(), len = size - begin, n = std::min<std::size_t>(512, len >> 16);
+    std::vector<char> buffer;
+    auto line_start = [&](std::size_t at) {  // the first line start at or after `at`
+        if (at <= begin) return begin;
+        if (at >= size) return size;
+        for (std::size_t want = 4096;; want = max_line_bytes + 1) {  // a short read first
+            auto w = src.view(at - 1, want, buffer);
+            const void* nl = w ? std::memchr(w->data(), '\n', w->size()) : nullptr;
+            if (nl) return at + std::size_t(static_cast<const char*>(nl) - w->data());
+            if (!w || want > max_line_bytes || w->size() < want) return size;
+        }
+    };
+    std::vector<std::pair<std::size_t, std::size_t>> at = {{begin, begin + (256u << 10)}};
+    for (std::size_t i = 1; i <= n; ++i) at.push_back({begin + len * i / (n + 1), begin + len * i / (n + 1) + 2048});
+    at.push_back({size - std::min(len, std::size_t(256) << 10), size});
+    for (auto& [b, e] : at) {
+        b = line_start(b);
+        e = std::max(b, line_start(e));
+    }
+    return at;
 }
 
 std::vector<Chunk> split(const TextSource& src, std::size_t begin, int n) {

@@ -1,5 +1,5 @@
 // Internal to the CSV reader: the two passes over the data rows, each split across worker
-// threads at line boundaries.
+// threads at line boundaries (or, for a large regular file, one pass on a guessed grid).
 //   pass 1 reads only the angle and frequency cells and collects their distinct values, from
 //          which the grid is planned and checked (csv_grid.hpp);
 //   pass 2 reads every cell, converts the field family to complex E_theta/E_phi and writes each
@@ -91,6 +91,8 @@ struct Context {
     const Layout* L = nullptr;
     const CsvReadOptions* options = nullptr;
     std::atomic<bool> cancelled{false};
+    // A worker of one_pass met something: the others stop (the file is read again in two passes).
+    std::atomic<bool> stop{false};
     // pass 2
     const GridPlan* plan = nullptr;
     bool concurrent = false;  // more than one worker writes the arrays
@@ -101,13 +103,33 @@ struct Context {
     std::vector<std::vector<std::size_t>>* lines = nullptr;
 };
 
+// Samples of the rows [begin, size) for a guessed plan (pass1_ranges), each from a line start to
+// a line start: the first and last 256 kB (the ends of the angle axes) and up to 512 windows of
+// 2 kB evenly between, one every 64 kB at the least (so a block of rows of one frequency longer
+// than the spacing is met). About 1.5 MB at the most whatever the file's size.
+std::vector<std::pair<std::size_t, std::size_t>> sample_ranges(const TextSource& src, std::size_t begin);
+
 // Split [begin, size) into n chunks at line starts (fewer when lines are too long to split).
 std::vector<Chunk> split(const TextSource& src, std::size_t begin, int n);
 // The failure that comes first in the file (a read failure before any other).
 const Failure* first_failure(const std::vector<Chunk>& cs);
 
 void pass1(Context& ctx, Chunk& c, bool report_progress);
+// Pass 1 over several line-aligned ranges of the rows, [begin, end) each, into one chunk (the
+// samples of a guessed plan); the chunk's begin and end are those of the last range.
+void pass1_ranges(Context& ctx, Chunk& c, const std::vector<std::pair<std::size_t, std::size_t>>& ranges);
 void pass2(Context& ctx, Chunk& c, bool report_progress);
+// Pass 2 on a plan guessed from samples of the file (far_field_csv_reader.cpp), doing pass 1's
+// work as well: its checks (NUL bytes, metadata after the header), the distinct values and the
+// row count, so that plan_grid on its chunks can confirm the guess afterwards.
+void one_pass(Context& ctx, Chunk& c, bool report_progress);
+
+// Files whose data rows take at least this many bytes are read in one pass on a guessed plan
+// when the guess can be made (below it, or when the guess is not confirmed, in two passes).
+// Tests lower or raise it to compare the two ways.
+inline std::atomic<std::size_t> one_pass_min_bytes{std::size_t(8) << 20};
+// Reads made in one pass so far (a guess confirmed), for the tests that compare the two ways.
+inline std::atomic<std::size_t> one_pass_reads{0};
 
 // f(chunk, is_first) on every chunk, the first on this thread and the others on their own.
 template <class F>

@@ -100,7 +100,8 @@ std::string find_csv_map_beside(const std::string& path);
 // changes while it is read ends in an Error, not a signal). The file name is used in messages.
 // Costs two passes over the text, each split across the cores at line boundaries (pass 1: the
 // angle and frequency cells, to build and check the grid; pass 2: every cell, written straight
-// into the final arrays). Heap: the final arrays plus one byte per grid point plus a 256 KiB
+// into the final arrays), or one pass when the rows take 8 MB or more and the grid guessed from
+// samples of the file is confirmed (else the two passes follow it; the result is the same). Heap: the final arrays plus one byte per grid point plus a 256 KiB
 // window per thread. Before anything is allocated, the file size is checked against available
 // memory and the grid the angle values imply against the number of rows (a small file never
 // makes the reader allocate a large grid). Lines are at most 1 MiB.

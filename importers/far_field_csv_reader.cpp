@@ -2,6 +2,8 @@
 // stages: layout (csv_layout.hpp: metadata, delimiter, header, column map, family, settings),
 // pass 1 (csv_passes.hpp: angle and frequency cells), plan and size the grid, allocate, pass 2
 // (every cell into place), seam, poles, completeness (csv_grid.hpp).
+#include <cstring>
+#include <optional>
 #include <thread>
 
 #include "importers/csv_directions.hpp"
@@ -73,6 +75,63 @@ Result<FarFieldSet> read_directions(FarFieldSet table, const SeenPoints& seen, c
     return s;
 }
 
+// The stages after the last pass of a usual (not raw) grid: seam, poles, completeness.
+Result<FarFieldSet> finish(FarFieldSet s, SeenPoints& seen, const std::vector<Chunk>& chunks, const Layout& L,
+                           const TextSource& src, const std::string& file, const CsvReadOptions& o) {
+    if (Status st = merge_seam(chunks, s, seen, L, src, file); !st) return st.error();
+    const bool lone_pole_without_phase = fill_poles(s, seen);
+    if (Status st = check_complete(s, seen, L, lone_pole_without_phase, file); !st) return st.error();
+    if (o.progress) o.progress(1.0);
+    return s;
+}
+
+// A large file in one pass: pass 1 over samples guesses the grid, one_pass reads every row onto
+// it and collects what pass 1 would have, and plan_grid on that must give the guessed plan (so
+// every value is where two passes put it). None when the guess cannot be made or is not
+// confirmed, or when the pass met anything in the text (two passes then read the file again and
+// report what they find, in their order); a read error or cancelling ends the read.
+std::optional<Result<FarFieldSet>> one_pass_read(Context& ctx, const Layout& L, const TextSource& src, const std::string& file,
+                                                 const CsvReadOptions& o) {
+    const std::size_t data = src.size() - std::min(src.size(), L.data_offset);
+    if (data < one_pass_min_bytes.load()) return std::nullopt;
+    std::optional<GridPlan> guess;
+    std::size_t sample_rows = 0, sample_bytes = 0;
+    {  // the samples' heap is given back before the arrays are allocated
+        const auto ranges = sample_ranges(src, L.data_offset);
+        std::vector<Chunk> samples(1);
+        pass1_ranges(ctx, samples[0], ranges);
+        if (samples[0].failure.set) return std::nullopt;
+        sample_rows = samples[0].rows;
+        for (const auto& [b, e] : ranges) sample_bytes += e - b;
+        if (sample_rows) guess = guess_plan(samples, L, src);
+    }
+    if (!guess) return std::nullopt;
+    guess->grid.sampling = L.sampling ? *L.sampling : inferred_sampling(guess->grid);
+    FarFieldSet s = empty_set(L, file);
+    const auto rows_about = std::size_t(double(data) * double(sample_rows) / double(std::max<std::size_t>(1, sample_bytes)));
+    if (!check_grid_size(*guess, rows_about, s.content, o, file)) return std::nullopt;
+    SeenPoints seen;
+    allocate(*guess, s, seen);
+    std::vector<Chunk> chunks = split(src, L.data_offset, worker_count(o, data));
+    ctx.plan = &*guess;
+    ctx.out = &s.frequencies;
+    ctx.seen = &seen;
+    ctx.lines = nullptr;
+    ctx.concurrent = chunks.size() > 1;
+    run_chunks(chunks, [&](Chunk& c, bool first) { one_pass(ctx, c, first); });
+    const Failure* f = first_failure(chunks);
+    if (ctx.cancelled || (f && f->io)) return Result<FarFieldSet>(after_pass(ctx, chunks, file).error());
+    std::size_t rows = 0;
+    for (const Chunk& c : chunks) rows += c.rows;
+    if (f || rows == 0) return std::nullopt;
+    auto plan = plan_grid(chunks, L, src, file);
+    if (!plan) return std::nullopt;
+    plan->grid.sampling = L.sampling ? *L.sampling : inferred_sampling(plan->grid);
+    if (!same_plan(*plan, *guess) || !check_grid_size(*plan, rows, s.content, o, file)) return std::nullopt;
+    ++one_pass_reads;
+    return finish(std::move(s), seen, chunks, L, src, file, o);
+}
+
 // The stages in order; any refusal ends the read with nothing partial returned.
 Result<FarFieldSet> read_stages(const TextSource& src, const std::string& file, const CsvReadOptions& o) {
     auto layout = read_layout(src, file, o);
@@ -82,6 +141,8 @@ Result<FarFieldSet> read_stages(const TextSource& src, const std::string& file, 
     ctx.source = &src;
     ctx.L = &L;
     ctx.options = &o;
+    if (auto one = one_pass_read(ctx, L, src, file, o)) return std::move(*one);
+    ctx.stop = false;
     std::vector<Chunk> chunks = split(src, L.data_offset, worker_count(o, src.size() - L.data_offset));
 
     run_chunks(chunks, [&](Chunk& c, bool first) { pass1(ctx, c, first); });
@@ -108,12 +169,7 @@ Result<FarFieldSet> read_stages(const TextSource& src, const std::string& file, 
     run_chunks(chunks, [&](Chunk& c, bool first) { pass2(ctx, c, first); });
     if (Status st = after_pass(ctx, chunks, file); !st) return st.error();
     if (plan->raw) return read_directions(std::move(s), seen, lines, L, src, file, o);
-
-    if (Status st = merge_seam(chunks, s, seen, L, src, file); !st) return st.error();
-    const bool lone_pole_without_phase = fill_poles(s, seen);
-    if (Status st = check_complete(s, seen, L, lone_pole_without_phase, file); !st) return st.error();
-    if (o.progress) o.progress(1.0);
-    return s;
+    return finish(std::move(s), seen, chunks, L, src, file, o);
 }
 
 }  // namespace
