@@ -13,6 +13,7 @@
 #include <thread>
 #include <unistd.h>
 
+#include "importers/csv_passes.hpp"
 #include "importers/far_field_csv.hpp"
 #include "pattern/integrate.hpp"
 
@@ -145,7 +146,8 @@ int main(int argc, char** argv) {
     const unsigned cores = std::max(1u, std::thread::hardware_concurrency());
     const double t_all = run(0, &rows, &bytes);
     const double t_one = run(1, nullptr, nullptr);
-    std::printf("file: %s, %.1f MB, %zu rows, 16 frequencies\n", path.c_str(), mb, rows);
+    std::printf("file: %s, %.1f MB, %zu rows, 16 frequencies (%zu of 8 reads in one pass on a guessed grid)\n",
+                path.c_str(), mb, rows, csv::one_pass_reads.load());
     std::printf("read, %u threads: %8.1f ms  %7.0f MB/s  (wall clock, all cores; the goal is per core, below)\n", cores, 1e3 * t_all, mb / t_all);
     std::printf("read, 1 thread:   %8.1f ms  %7.0f MB/s  (CPU time %.1f ms: %.0f MB/s per core, whatever the load;\n"
                 "  target >= 800 MB/s per core)\n",
