@@ -48,23 +48,25 @@ int run_band(const BandArgs& a) {
     if (!a.force && std::filesystem::exists(a.out, ec)) return fail(exit_bad_input, a.out + ": already exists; use --force to replace it");
 
     std::vector<FarFieldSet> loaded;
+    std::vector<std::string> paths;
     for (const std::string& f : a.files) {
         auto s = load_pattern(f, a.load);
         if (!s) return fail(exit_bad_input, s.error().format());
-        if (s->name.empty()) s->name = f;
+        paths.push_back(file_path(f));
+        if (s->name.empty()) s->name = paths.back();
         loaded.push_back(std::move(*s));
     }
     std::vector<const FarFieldSet*> ptrs;
     std::vector<std::string> names;
     for (const FarFieldSet& s : loaded) ptrs.push_back(&s), names.push_back(s.name);
-    auto run = band_run(ptrs, names, a.files, a.choices.pair, *req);
+    auto run = band_run(ptrs, names, paths, a.choices.pair, *req);
     if (!run) return fail(exit_bad_input, run.error().message);
-    auto bytes = band_file(a.out, a.files, *run, *req, *size);
+    auto bytes = band_file(a.out, paths, *run, *req, *size);
     if (!bytes) return fail(exit_bad_input, bytes.error().message);
     if (Status st = io::write_file_atomically(a.out, *bytes, a.force); !st) return fail(exit_bad_input, st.error().format());
     std::cout << "wrote " << a.out << "\n";
     for (std::size_t i = 0; i < run->sets.size(); ++i) {
-        std::cout << "\n" << a.files[i] << ": " << run->sets[i].figures.size() << " frequencies";
+        std::cout << "\n" << paths[i] << ": " << run->sets[i].figures.size() << " frequencies";
         if (const std::string m = mounting_note(*run->sets[i].set); !m.empty()) std::cout << "\n  " << m;
         std::cout << band_summary_text(run->sets[i].summary);
     }

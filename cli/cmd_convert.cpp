@@ -48,7 +48,7 @@ Registered add_convert(CLI::App& root) {
     // --rotate) is written as metadata instead, so nothing is resampled.
     a->load.mounting.turn_fields = false;
     return {sub, [a]() -> int {
-                if (same_file(a->in, a->out) || a->in == a->out) {
+                if (same_file(file_path(a->in), a->out) || file_path(a->in) == a->out) {
                     std::cerr << "ellipsa convert: " << a->out
                               << ": expected an output file other than the input, found the input itself\n";
                     return exit_usage;

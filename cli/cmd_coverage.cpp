@@ -99,13 +99,15 @@ int run_coverage(const CoverageArgs& a) {
         return fail(exit_bad_input, a.out + ": already exists; use --force to replace it");
     std::vector<FarFieldSet> sets;
     std::vector<std::size_t> fi;
+    std::vector<std::string> paths;
     for (const std::string& f : a.files) {
         auto s = load_pattern(f, a.load);
         if (!s) return fail(exit_bad_input, s.error().format());
-        auto k = sets.empty() ? pick_frequency(*s, a.frequency_hz, f)
-                              : coverage_frequency(*s, sets[0].frequencies[fi[0]].frequency_hz, f);
+        paths.push_back(file_path(f));
+        auto k = sets.empty() ? pick_frequency(*s, a.frequency_hz, paths.back())
+                              : coverage_frequency(*s, sets[0].frequencies[fi[0]].frequency_hz, paths.back());
         if (!k) return fail(exit_bad_input, k.error().format());
-        if (s->name.empty()) s->name = f;
+        if (s->name.empty()) s->name = paths.back();
         sets.push_back(std::move(*s));
         fi.push_back(*k);
     }
@@ -118,10 +120,10 @@ int run_coverage(const CoverageArgs& a) {
     const std::string what = describe_band(req->band);
     char sampled[32];
     std::snprintf(sampled, sizeof sampled, "%.1f %%", 100 * (*series)[0].curve.sampled_share);
-    std::cout << a.files[0] << (sets.size() > 1 ? " and " + a.files[1] : "") << ", " << format_frequency(f_hz) << ", " << what
+    std::cout << paths[0] << (sets.size() > 1 ? " and " + paths[1] : "") << ", " << format_frequency(f_hz) << ", " << what
               << " (" << sampled << " of it sampled)\n";
     for (std::size_t i = 0; i < sets.size(); ++i)
-        if (const std::string m = mounting_note(sets[i]); !m.empty()) std::cout << "  " << a.files[i] << ": " << m << "\n";
+        if (const std::string m = mounting_note(sets[i]); !m.empty()) std::cout << "  " << paths[i] << ": " << m << "\n";
     print_table(*series, *req, what == "whole sphere" ? "sphere" : "band");
     if (a.out.empty()) return exit_ok;
     auto bytes = coverage_file(a.out, *series, *req, f_hz, ptrs, *size);

@@ -73,13 +73,14 @@ int run_cut(const CutArgs& a) {
     struct stat st {};
     if (!a.force && ::stat(a.out.c_str(), &st) == 0) return fail(exit_bad_input, a.out + ": already exists; use --force to replace it");
 
+    const std::string path = file_path(a.file);
     auto s = load_pattern(a.file, a.load);
     if (!s) return fail(exit_bad_input, s.error().format());
-    if (s->source.empty()) s->source = a.file;
-    auto fi = pick_frequency(*s, a.frequency_hz, a.file);
+    if (s->source.empty()) s->source = path;
+    auto fi = pick_frequency(*s, a.frequency_hz, path);
     if (!fi) return fail(exit_bad_input, fi.error().format());
     for (Component c : *comps)
-        if (auto why = component_unavailable(*s, c)) return fail(exit_bad_input, a.file + ": " + *why);
+        if (auto why = component_unavailable(*s, c)) return fail(exit_bad_input, path + ": " + *why);
 
     CutSpec spec;
     if (a.phi_deg) {
@@ -102,7 +103,7 @@ int run_cut(const CutArgs& a) {
     req.size = *size;
     req.step_deg = a.step_deg.value_or(0);
     auto cut = export_cut(*s, *fi, req, a.out, a.force);
-    if (!cut) return fail(exit_bad_input, cut.error().file.empty() ? a.file + ": " + cut.error().message : cut.error().format());
+    if (!cut) return fail(exit_bad_input, cut.error().file.empty() ? path + ": " + cut.error().message : cut.error().format());
 
     std::cout << "wrote " << a.out << ": " << spec.label() << ", " << format_frequency(s->frequencies[*fi].frequency_hz) << "\n";
     if (const std::string m = mounting_note(*s); !m.empty()) std::cout << "  " << m << " (the cut is in the world frame)\n";

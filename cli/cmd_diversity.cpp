@@ -343,7 +343,7 @@ int run(const DiversityArgs& a) {
         if (path.empty()) continue;
         auto s = load_pattern(path, a.load);
         if (!s) return fail(exit_bad_input, s.error().format());
-        ps.push_back({path, std::move(*s)});
+        ps.push_back({file_path(path), std::move(*s)});
     }
     std::vector<StudyPattern> inputs;
     for (const PatternResult& p : ps) inputs.push_back({&p.set, p.path, {}});

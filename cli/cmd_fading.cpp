@@ -99,10 +99,10 @@ std::variant<std::optional<DominantWave>, UsageError, Error> dominant_wave(const
     if (!a.partner.empty()) {
         auto p = load_pattern(a.partner, a.load);
         if (!p) return p.error();
-        auto k = pick_frequency(*p, a.frequency_hz, a.partner);
+        auto k = pick_frequency(*p, a.frequency_hz, file_path(a.partner));
         if (!k) return k.error();
         auto f = partner_field(*p, *k, d.theta_deg, d.phi_deg);
-        if (!f) return Error{a.partner, 0, 0, f.error().message};
+        if (!f) return Error{file_path(a.partner), 0, 0, f.error().message};
         d.field = *f;
         return std::optional<DominantWave>(d);
     }
@@ -117,7 +117,7 @@ std::string dominant_text(const FadingArgs& a, const DominantWave& d) {
     std::snprintf(buf, sizeof buf, "from theta %g, phi %g deg, K = %.4g (%.2f dB), polarisation %s", d.theta_deg, d.phi_deg,
                   d.k_factor, 10 * std::log10(d.k_factor),
                   a.partner.empty() ? (a.polarisation.empty() ? "vertical" : a.polarisation.c_str())
-                                    : ("of the partner " + a.partner).c_str());
+                                    : ("of the partner " + file_path(a.partner)).c_str());
     return buf;
 }
 
@@ -340,9 +340,9 @@ int run(FadingArgs a) {
     for (const std::string& path : a.files) {
         auto s = load_pattern(path, a.load);
         if (!s) return fail(exit_bad_input, s.error().format());
-        auto k = pick_frequency(*s, a.frequency_hz, path);
+        auto k = pick_frequency(*s, a.frequency_hz, file_path(path));
         if (!k) return fail(exit_bad_input, k.error().format());
-        ps.push_back({path, std::move(*s), *k});
+        ps.push_back({file_path(path), std::move(*s), *k});
     }
     std::vector<FadingAntenna> ants;
     for (const Loaded& p : ps) ants.push_back({&p.set, p.freq});

@@ -79,7 +79,7 @@ Result<std::vector<GainReference>> references(const GainArgs& a, const FarFieldS
         auto r = load_pattern(a.reference, a.load);
         if (!r) return r.error();
         ref = std::move(*r);
-        name = "the reference " + a.reference;
+        name = "the reference " + file_path(a.reference);
     } else {
         char b[64];
         std::snprintf(b, sizeof b, "a reference measured at %g dB", *a.level_db);
@@ -92,10 +92,10 @@ Result<std::vector<GainReference>> references(const GainArgs& a, const FarFieldS
         if (!gain) return gain.error();
         g.gain_dbi = *gain;
         if (ref) {
-            auto k = find_frequency(*ref, f.frequency_hz, a.reference);
+            auto k = find_frequency(*ref, f.frequency_hz, file_path(a.reference));
             if (!k) return k.error();
             if (ref->quantity != Quantity::relative)
-                return Error{a.reference, 0, 0, "expected the reference's relative levels (quantity relative), found " + std::string(to_string(ref->quantity))};
+                return Error{file_path(a.reference), 0, 0, "expected the reference's relative levels (quantity relative), found " + std::string(to_string(ref->quantity))};
             g.measured_db = reference_level_db(*ref, *k);
         }
         out.push_back(g);

@@ -132,7 +132,7 @@ Registered add_info(CLI::App& root) {
                 }
                 std::vector<std::size_t> which;
                 if (a->frequency_hz) {
-                    auto k = pick_frequency(*s, a->frequency_hz, a->file);
+                    auto k = pick_frequency(*s, a->frequency_hz, file_path(a->file));
                     if (!k) {
                         std::cerr << "ellipsa info: " << k.error().format() << "\n";
                         return exit_bad_input;

@@ -51,20 +51,20 @@ int run_map(const MapArgs& a) {
     if (!a.force && std::filesystem::exists(a.out, ec)) return fail(exit_bad_input, a.out + ": already exists; use --force to replace it");
     auto s = load_pattern(a.file, a.load);
     if (!s) return fail(exit_bad_input, s.error().format());
-    auto fi = pick_frequency(*s, a.frequency_hz, a.file);
+    auto fi = pick_frequency(*s, a.frequency_hz, file_path(a.file));
     if (!fi) return fail(exit_bad_input, fi.error().format());
     std::optional<FarFieldSet> b;
     std::size_t fb = 0;
     if (!a.minus.empty()) {
         auto bs = load_pattern(a.minus, a.load);
         if (!bs) return fail(exit_bad_input, bs.error().format());
-        auto k = find_frequency(*bs, s->frequencies[*fi].frequency_hz, a.minus);
+        auto k = find_frequency(*bs, s->frequencies[*fi].frequency_hz, file_path(a.minus));
         if (!k) return fail(exit_bad_input, k.error().format());
         b = std::move(*bs);
         fb = *k;
     }
     auto plot = make_map_plot(*s, *fi, *req, b ? &*b : nullptr, fb);
-    if (!plot) return fail(exit_bad_input, a.file + ": " + plot.error().message);
+    if (!plot) return fail(exit_bad_input, file_path(a.file) + ": " + plot.error().message);
     auto bytes = map_file(a.out, *plot, *size);
     if (!bytes) return fail(exit_bad_input, bytes.error().message);
     if (Status st = io::write_file_atomically(a.out, *bytes, a.force); !st) return fail(exit_bad_input, st.error().format());

@@ -86,7 +86,7 @@ void print_text(const ProbeArgs& a, const FarFieldSet& s, std::size_t fi, Ludwig
     const char* uc = db_unit(s.quantity, Component::rhcp);
     auto line = [](const char* label, const std::string& text) { std::printf("  %-22s %s\n", label, text.c_str()); };
     const char* np = "unavailable (needs phase)";
-    std::printf("%s at theta %g, phi %g deg, %s\n", a.file.c_str(), a.theta_deg, a.phi_deg,
+    std::printf("%s at theta %g, phi %g deg, %s\n", file_path(a.file).c_str(), a.theta_deg, a.phi_deg,
                 format_frequency(s.frequencies[fi].frequency_hz).c_str());
     if (const std::string m = mounting_note(s); !m.empty()) std::printf("  %s (theta and phi in the world frame)\n", m.c_str());
     line("total", fmt(to_db(p.total), u));
@@ -126,14 +126,14 @@ Registered add_probe(CLI::App& root) {
                     std::cerr << "ellipsa probe: " << s.error().format() << "\n";
                     return exit_bad_input;
                 }
-                auto fi = pick_frequency(*s, a->frequency_hz, a->file);
+                auto fi = pick_frequency(*s, a->frequency_hz, file_path(a->file));
                 if (!fi) {
                     std::cerr << "ellipsa probe: " << fi.error().format() << "\n";
                     return exit_bad_input;
                 }
                 auto f = interpolate(*s, *fi, a->theta_deg, a->phi_deg);
                 if (!f) {
-                    std::cerr << "ellipsa probe: " << a->file << ": theta " << a->theta_deg << ", phi " << a->phi_deg
+                    std::cerr << "ellipsa probe: " << file_path(a->file) << ": theta " << a->theta_deg << ", phi " << a->phi_deg
                               << " deg lies outside the sampled region\n";
                     return exit_bad_input;
                 }

@@ -109,9 +109,10 @@ Result<Loaded> load_reference(const RankArgs& a, const Loaded& first) {
         return Loaded{"", reference_dipole(first.set.grid, first.set.frequencies[first.freq].frequency_hz), 0};
     auto s = load_pattern(a.reference, a.load);
     if (!s) return s.error();
-    auto k = pick_frequency(*s, a.frequency_hz, a.reference);
+    const std::string path = file_path(a.reference);
+    auto k = pick_frequency(*s, a.frequency_hz, path);
     if (!k) return k.error();
-    return Loaded{a.reference, std::move(*s), *k};
+    return Loaded{path, std::move(*s), *k};
 }
 
 Result<std::vector<Loaded>> load_candidates(const RankArgs& a) {
@@ -119,9 +120,9 @@ Result<std::vector<Loaded>> load_candidates(const RankArgs& a) {
     for (const std::string& f : a.files) {
         auto s = load_pattern(f, a.load);
         if (!s) return s.error();
-        auto k = pick_frequency(*s, a.frequency_hz, f);
+        auto k = pick_frequency(*s, a.frequency_hz, file_path(f));
         if (!k) return k.error();
-        ps.push_back({f, std::move(*s), *k});
+        ps.push_back({file_path(f), std::move(*s), *k});
     }
     return ps;
 }

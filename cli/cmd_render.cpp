@@ -103,7 +103,7 @@ Registered add_render(CLI::App& root) {
                     std::cerr << "ellipsa render: " << s.error().format() << "\n";
                     return exit_bad_input;
                 }
-                auto k = pick_frequency(*s, a->frequency_hz, a->file);
+                auto k = pick_frequency(*s, a->frequency_hz, file_path(a->file));
                 if (!k) {
                     std::cerr << "ellipsa render: " << k.error().format() << "\n";
                     return exit_bad_input;

@@ -55,10 +55,11 @@ int run_report(const ReportArgs& a) {
     for (const std::string& f : a.files) {
         auto s = load_pattern(f, a.load);
         if (!s) return fail(exit_bad_input, s.error().format());
-        inputs.push_back({f, std::move(*s)});
+        inputs.push_back({file_path(f), std::move(*s)});
     }
     // --force replaces only a folder ellipsa made, and never one that holds what the report reads.
-    std::vector<std::string> read = a.files;
+    std::vector<std::string> read;
+    for (const std::string& f : a.files) read.push_back(file_path(f));
     for (const std::string& f : {a.load.map_file, a.load.map.rfind('@', 0) == 0 ? a.load.map.substr(1) : std::string(),
                                  a.environment.profile})
         if (!f.empty()) read.push_back(f);

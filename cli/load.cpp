@@ -18,27 +18,20 @@ bool names_pattern_file(const CLI::Option* opt) {
            n == "--reference";
 }
 
-// Keeps PATH of "PATH::key=value..." and records the file with its own options (none for a plain
-// PATH). The options are found again by path (prepare_load), so a path named twice when either
-// mention has options is refused: the options would silently apply to both mentions.
-std::string take_file_options(const std::string& arg, LoadOptions& o) {
+// Checks one mention of a pattern file ("PATH" or "PATH::key=value...") while the command line is
+// parsed (a bad key or mounting value is a usage error, exit 2) and keeps the mention whole: each
+// mention carries its own options, so one file named twice (z.csv z.csv::up=+x) is read once per
+// mention with that mention's options. Commands name the file by file_path(mention).
+std::string check_file_argument(const std::string& arg) {
     auto f = parse_file_argument(arg);
     if (!f) throw CLI::ValidationError(f.error().format());
-    for (const auto& [path, own] : o.per_file) {
-        if (path != f->path || (!has_options(own) && !has_options(f->own))) continue;
-        if (has_options(own) && has_options(f->own))
-            throw CLI::ValidationError(f->path + ": expected the options of one file once, found them again");
-        throw CLI::ValidationError(f->path + ": expected a file with its own options (FILE::key=value) to be named once, found it "
-                                             "again (its options would apply to both; give the other mention a copy of the file)");
-    }
-    o.per_file.emplace_back(f->path, f->own);
-    return f->path;
+    return arg;
 }
 }  // namespace
 
 void add_load_options(CLI::App* sub, LoadOptions& o) {
     for (CLI::Option* opt : sub->get_options())
-        if (names_pattern_file(opt)) opt->transform([&o](std::string arg) { return take_file_options(arg, o); }, "", "");
+        if (names_pattern_file(opt)) opt->transform(check_file_argument, "", "");
     sub->add_option("--map", o.map,
                     "Read a foreign column layout: \"SourceName=schema_name,...\" (schema_name may be "
                     "\"ignore\"; @FILE reads a map file; see docs/far-field-csv.md)");
@@ -219,9 +212,9 @@ Status prepare_mounting(const MountingOptions& command, const MountingOptions& o
 Result<PreparedLoad> prepare_load(const std::string& arg, const LoadOptions& o) {
     auto file = parse_file_argument(arg);
     if (!file) return file.error();
-    for (const auto& [path, own] : o.per_file)
-        if (path == file->path && !has_options(file->own)) file->own = own;
-    PreparedLoad p{file->path, {}, "", {}, file->own.join};
+    PreparedLoad p;
+    p.path = file->path;
+    p.join = file->own.join;
     if (Status st = prepare_mounting(o.mounting, file->own.mounting, file->path, p.mounting); !st) return st.error();
     if (Status st = add_options(o, flag_names, p.options); !st) return st.error();
     const std::string own_map = file->path + "::map", own_assume = file->path + "::assume",

@@ -28,9 +28,6 @@ struct FileOptions {
 // True when any option is set (the mounting's turn_fields aside).
 bool has_options(const FileOptions& o);
 struct LoadOptions : FileOptions {
-    // The options of single files ("PATH::key=value", below), by path; filled while the command
-    // line is parsed, so each FILE argument holds its path alone.
-    std::vector<std::pair<std::string, FileOptions>> per_file;
     // Set by commands that produce only whole-sphere figures (a map, 3D, coverage, MEG): what they
     // make, e.g. "a map". load_pattern then refuses cut-only data (pattern/far_field.hpp,
     // Sampling) naming the file and the cuts, instead of a figure over no solid angle.
@@ -39,7 +36,8 @@ struct LoadOptions : FileOptions {
 // The one place that adds the import options (--map, --map-file, --assume, --scale, --offset)
 // and the mounting options (--up, --rotate, --phase-centre) to a subcommand; they apply to every pattern file of the command. Call it after the options
 // that name pattern files (the positionals FILE, FILE2, IN and --minus, --partner, --reference): those accept
-// "PATH::key=value" and keep PATH.
+// "PATH::key=value", checked while parsing, and keep each mention whole (its options travel with it, so
+// one file named twice with different options is read once per mention); name it by file_path().
 void add_load_options(CLI::App* sub, LoadOptions& o);
 // The reader options the command-line options describe (a map file is read here). A --map value
 // without '=' names a map file (a column map always has one), as does "@FILE".
@@ -59,8 +57,8 @@ Result<FileArgument> parse_file_argument(const std::string& arg);
 // The file's path alone (for messages): what parse_file_argument would give, else `arg`.
 std::string file_path(const std::string& arg);
 
-// What one FILE argument is read with: the command's options, then the file's own (from the
-// argument, or recorded in o.per_file while parsing); a key given
+// What one FILE argument (one mention) is read with: the command's options, then the mention's own;
+// a key given
 // in both is refused naming both places. When neither names a map, the map file beside the
 // file (find_csv_map_beside) is used and named in `beside_map`.
 struct PreparedLoad {
