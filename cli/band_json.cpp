@@ -2,6 +2,7 @@
 #include "cli/band_json.hpp"
 #include "cli/usage.hpp"
 
+#include <charconv>
 #include <cmath>
 #include <cstdio>
 
@@ -105,9 +106,14 @@ std::string band_json(const std::vector<std::string>& files, const BandRun& run,
 
 CLI::Validator band_direction_check() { return number_pair({"THETA", 0, 180}, {"PHI", -360, 360}, "degrees"); }
 
+CLI::Validator band_ar_threshold_check() { return number_above_to(0, max_ar_threshold_db); }
+
 Result<BandRequest> band_request(const BandChoices& a, std::size_t nfiles) {
-    if (!std::isfinite(a.ar_threshold_db) || a.ar_threshold_db <= 0)
-        return Error{"", 0, 0, "--ar-threshold: expected a positive number of dB"};
+    {
+        char text[40];
+        std::string t(text, std::to_chars(text, text + sizeof text, a.ar_threshold_db).ptr);
+        if (const std::string bad = band_ar_threshold_check()(t); !bad.empty()) return Error{"", 0, 0, "--ar-threshold: " + bad};
+    }
     BandRequest r;
     r.title = a.title;
     auto envs = parse_environments(a.environments);

@@ -18,12 +18,16 @@ namespace ellipsa::cli {
 // --title).
 struct BandChoices {
     std::string environments = "uniform", direction, show, title;
-    double ar_threshold_db = ellipsa::ar_threshold_db;
+    double ar_threshold_db = ellipsa::ar_threshold_db;  // above 0, up to max_ar_threshold_db
     bool pair = false;
 };
 // The check of --direction (THETA,PHI in degrees, THETA 0..180, PHI -360..360): on the option and
 // in band_request (the Python module does not pass through the command line).
 CLI::Validator band_direction_check();
+// The check of --ar-threshold (dB, above 0 and up to max_ar_threshold_db: an axial ratio of 60 dB is
+// a linear wave for every purpose), on the option and in band_request likewise.
+inline constexpr double max_ar_threshold_db = 60;
+CLI::Validator band_ar_threshold_check();
 // The request, or an Error whose message is the command's usage message (naming its option).
 Result<exports::BandRequest> band_request(const BandChoices& c, std::size_t patterns);
 

@@ -8,6 +8,7 @@
 #include <optional>
 
 #include "cli/band_json.hpp"
+#include "cli/usage.hpp"
 #include "cli/band_text.hpp"
 #include "cli/commands.hpp"
 #include "cli/format.hpp"
@@ -89,11 +90,13 @@ Registered add_band(CLI::App& root) {
     sub->add_option("--direction", a->choices.direction, "Also read the axial ratio at THETA,PHI (deg) at every frequency")
         ->check(band_direction_check())
         ->type_name("THETA,PHI");
-    sub->add_option("--ar-threshold", a->choices.ar_threshold_db, "Axial-ratio limit of the AR beamwidth, dB (default 3)");
+    sub->add_option("--ar-threshold", a->choices.ar_threshold_db, "Axial-ratio limit of the AR beamwidth, dB (default 3)")
+        ->check(band_ar_threshold_check());
     sub->add_flag("--pair", a->choices.pair, "ECC and diversity gain between the first two files at their shared frequencies");
     sub->add_option("--title", a->choices.title, "Figure title (default: the pattern's name)");
-    sub->add_option("--size", a->size, "Image size WIDTHxHEIGHT in pixels (default 1200x900)");
-    sub->add_option("--dpi", a->dpi, "Dots per inch (default 150)");
+    sub->add_option("--size", a->size, "Image size WIDTHxHEIGHT in pixels (default 1200x900)")
+        ->check(pixel_size(exports::min_size_px, exports::min_size_px, exports::max_size_px));
+    sub->add_option("--dpi", a->dpi, "Dots per inch (default 150)")->check(number_from_to(exports::min_dpi, exports::max_dpi));
     sub->add_flag("--force", a->force, "Replace the output file if it exists");
     add_load_options(sub, a->load);
     return {sub, [a]() -> int { return run_band(*a); }};

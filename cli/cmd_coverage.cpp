@@ -9,6 +9,7 @@
 #include <optional>
 
 #include "cli/commands.hpp"
+#include "cli/usage.hpp"
 #include "cli/coverage_json.hpp"
 #include "cli/frequency_option.hpp"
 #include "cli/json.hpp"
@@ -143,12 +144,14 @@ Registered add_coverage(CLI::App& root) {
     sub->add_option("--components", a->components,
                     "Comma-separated components (default total, vertical, horizontal, and rhcp, lhcp with phase; total for two files)");
     sub->add_option("--levels", a->levels, "Levels for the table, dB, comma-separated (default 0,-3,-6,-10)");
-    sub->add_option("--horizon", a->horizon_deg, "Only directions within this many degrees of the horizon");
+    sub->add_option("--horizon", a->horizon_deg, "Only directions within this many degrees of the horizon")
+        ->check(number_above_to(0, 90));
     sub->add_option("--elevation", a->elevation, "Only elevations MIN,MAX in degrees (-90..90)");
     add_frequency_option(sub, a->frequency_hz, "Frequency (nearest within 0.5 %; default the middle one of the file)");
     sub->add_option("--title", a->title, "Figure title");
-    sub->add_option("--size", a->size, "Image size WIDTHxHEIGHT in pixels (default 1200x900)");
-    sub->add_option("--dpi", a->dpi, "Dots per inch (default 150)");
+    sub->add_option("--size", a->size, "Image size WIDTHxHEIGHT in pixels (default 1200x900)")
+        ->check(pixel_size(exports::min_size_px, exports::min_size_px, exports::max_size_px));
+    sub->add_option("--dpi", a->dpi, "Dots per inch (default 150)")->check(number_from_to(exports::min_dpi, exports::max_dpi));
     sub->add_flag("--force", a->force, "Replace the output file if it exists");
     add_load_options(sub, a->load);
     a->load.whole_sphere_figure = "coverage of the sphere";

@@ -130,8 +130,9 @@ Registered add_cut(CLI::App& root) {
     sub->add_option("--range", a->range_db, "Dynamic range shown below the top of the scale, dB (default 40)")
         ->check(number_from_to(3.0, 200.0));
     sub->add_option("--title", a->title, "Figure title (default: the pattern's name)");
-    sub->add_option("--size", a->size, "Image size WIDTHxHEIGHT in pixels (default 1200x900); SVG/PDF get the same physical size");
-    sub->add_option("--dpi", a->dpi, "Dots per inch: sets the physical size and text scale (default 150)");
+    sub->add_option("--size", a->size, "Image size WIDTHxHEIGHT in pixels (default 1200x900); SVG/PDF get the same physical size")
+        ->check(pixel_size(exports::min_size_px, exports::min_size_px, exports::max_size_px));
+    sub->add_option("--dpi", a->dpi, "Dots per inch: sets the physical size and text scale (default 150)")->check(number_from_to(exports::min_dpi, exports::max_dpi));
     sub->add_option("--step", a->step_deg, "Cut sample step, deg (default: a quarter of the grid step)")
         ->check(number_from_to(0.01, 10.0));
     sub->add_flag("--force", a->force, "Replace the output file if it exists");

@@ -9,6 +9,7 @@
 #include <variant>
 
 #include "cli/commands.hpp"
+#include "cli/usage.hpp"
 #include "cli/frequency_option.hpp"
 #include "cli/environment_options.hpp"
 #include "cli/format.hpp"
@@ -371,14 +372,18 @@ Registered add_diversity(CLI::App& root) {
     add_environment_options(sub, a->environment);
     sub->add_flag("--orientations", a->study.orientations, "Also turn the antenna through tilts and rolls: MEG statistics");
     sub->add_option("--tilt-step", a->study.sweep.tilt_step_deg,
-                    "Orientation sweep: tilt step, deg (default 15; implies --orientations)");
-    sub->add_option("--tilt-max", a->study.sweep.tilt_max_deg, "Orientation sweep: largest tilt, deg (default 90; up to 180)");
+                    "Orientation sweep: tilt step, deg (default 15; implies --orientations)")
+        ->check(number_from_to(0.1, 180));
+    sub->add_option("--tilt-max", a->study.sweep.tilt_max_deg, "Orientation sweep: largest tilt, deg (default 90; up to 180)")
+        ->check(number_from_to(0, 180));
     sub->add_option("--roll-step", a->study.sweep.roll_step_deg,
-                    "Orientation sweep: roll step, deg (default 15; a multiple of the grid's phi step is exact and fast)");
+                    "Orientation sweep: roll step, deg (default 15; a multiple of the grid's phi step is exact and fast)")
+        ->check(number_from_to(0.1, 360));
     add_frequency_option(sub, a->study.frequency_hz, "Only this frequency (nearest within 0.5 %; default all)");
     sub->add_option("--outage", a->study.outages,
                     "Outage probabilities of the combining figures, comma-separated fractions (default 0.01,0.1)")
-        ->delimiter(',');
+        ->delimiter(',')
+        ->check(number_between(0, 1));
     sub->add_flag("--json", a->json, "Print one JSON object instead of the human summary");
     add_load_options(sub, a->load);
     a->load.whole_sphere_figure = "diversity (MEG and ECC)";

@@ -364,11 +364,13 @@ Registered add_fading(CLI::App& root) {
         "fading", "Simulate multipath fading: received power levels, fade depth, correlation and combining of antennas");
     sub->add_option("FILE", a->files, "Far-field CSV files (one or more; two also give correlation and combining)")->required();
     add_environment_options(sub, a->environment);
-    sub->add_option("--samples", a->sim.realisations, "Realisations of the field (default 100000)");
-    sub->add_option("--seed", a->sim.seed, "Seed of the random numbers (default 1; the same seed gives the same result)");
-    sub->add_option("--waves", a->sim.waves, "Diffuse plane waves per realisation (default 100)");
+    sub->add_option("--samples", a->sim.realisations, "Realisations of the field (default 100000)")->check(number_from_to(100, 1e7));
+    sub->add_option("--seed", a->sim.seed, "Seed of the random numbers (default 1; the same seed gives the same result)")
+        ->check(number_from_to(0, 4294967295.0));
+    sub->add_option("--waves", a->sim.waves, "Diffuse plane waves per realisation (default 100)")->check(number_from_to(1, 10000));
     sub->add_option("--outage", a->sim.outages, "Outage probabilities, comma-separated fractions (default 0.01,0.1,0.5)")
-        ->delimiter(',');
+        ->delimiter(',')
+        ->check(number_between(0, 1));
     add_frequency_option(sub, a->frequency_hz, "Use this frequency of every file (nearest within 0.5 %; default the middle one of each)");
     sub->add_option("--dominant", a->dominant, "Add a dominant (Rician) wave from THETA,PHI, deg (default 90,0: the horizon)")
         ->check(number_pair({"THETA", 0, 180}, {"PHI", -360, 360}, "degrees"))
@@ -383,11 +385,13 @@ Registered add_fading(CLI::App& root) {
     sub->add_flag("--random-orientation", a->random_orientation,
                   "Turn the antennas (together) to a random orientation in each realisation, uniform over all");
     sub->add_option("--tilt-max", a->tilt_max_deg,
-                    "With a random orientation: keep the up axis within this tilt of vertical, deg (implies --random-orientation)");
-    sub->add_option("--threads", a->sim.threads, "Threads (the result does not depend on it)");
+                    "With a random orientation: keep the up axis within this tilt of vertical, deg (implies --random-orientation)")
+        ->check(number_from_to(0, 180));
+    sub->add_option("--threads", a->sim.threads, "Threads (the result does not depend on it)")->check(number_from_to(1, 64));
     sub->add_option("--plot", a->plot, "Write the distribution curves: .svg, .png, .pdf or .csv")->type_name("FILE");
-    sub->add_option("--size", a->size, "Plot size WIDTHxHEIGHT in pixels (default 1200x900)");
-    sub->add_option("--dpi", a->dpi, "Plot dots per inch (default 150)");
+    sub->add_option("--size", a->size, "Plot size WIDTHxHEIGHT in pixels (default 1200x900)")
+        ->check(pixel_size(exports::min_size_px, exports::min_size_px, exports::max_size_px));
+    sub->add_option("--dpi", a->dpi, "Plot dots per inch (default 150)")->check(number_from_to(exports::min_dpi, exports::max_dpi));
     sub->add_flag("--force", a->force, "Replace the plot file if it exists");
     sub->add_flag("--json", a->json, "Print one JSON object instead of the human summary");
     add_load_options(sub, a->load);

@@ -8,6 +8,7 @@
 #include <optional>
 
 #include "cli/commands.hpp"
+#include "cli/usage.hpp"
 #include "cli/load.hpp"
 #include "importers/far_field_csv.hpp"
 #include "importers/frequency_text.hpp"
@@ -41,8 +42,8 @@ Result<std::vector<std::pair<std::optional<double>, double>>> parse_gains(const 
         const std::string g = eq == std::string::npos ? item : item.substr(eq + 1);
         char* end = nullptr;
         const double v = std::strtod(g.c_str(), &end);
-        if (end == g.c_str() || *end != 0 || !std::isfinite(v))
-            return Error{"--reference-gain", 0, 0, "expected a gain in dBi, found \"" + g + "\""};
+        if (end == g.c_str() || *end != 0 || !(v >= -100 && v <= 100))
+            return Error{"--reference-gain", 0, 0, "expected a gain in dBi from -100 to 100, found \"" + g + "\""};
         out.emplace_back(f, v);
         pos = comma + 1;
     }
@@ -135,8 +136,14 @@ Registered add_gain(CLI::App& root) {
         "gain-transfer", "Relative range levels to gain (dBi) by comparison with a reference antenna of known gain (IEEE Std 149)");
     sub->add_option("FILE", a->file, "The antenna under test: relative levels (quantity relative)")->required();
     sub->add_option("--reference", a->reference, "The reference antenna measured in the same set-up (relative levels); its peak is its measured level");
-    sub->add_option("--reference-level", a->level_db, "Or the reference's measured level, dB in the file's relative units");
-    sub->add_option("--reference-gain", a->gain, "The reference's known gain, dBi: one value, or per frequency \"5.7GHz=7.4,5.8GHz=7.5\"")->required();
+    sub->add_option("--reference-level", a->level_db, "Or the reference's measured level, dB in the file's relative units")
+        ->check(number_from_to(-400, 400));
+    sub->add_option("--reference-gain", a->gain, "The reference's known gain, dBi: one value, or per frequency \"5.7GHz=7.4,5.8GHz=7.5\"")
+        ->required()
+        ->check([](const std::string& s) {  // checked while parsing, as references() reads it
+            auto g = parse_gains(s);
+            return g ? std::string() : g.error().message;
+        });
     sub->add_option("--out", a->out, "Output far-field CSV (quantity gain)")->required();
     sub->add_flag("--force", a->force, "Replace --out if it exists");
     add_load_options(sub, a->load);

@@ -90,13 +90,15 @@ Registered add_map(CLI::App& root) {
         ->check(one_of(names_of(all_map_projections)));
     sub->add_option("--levels", a->choices.levels, "Contour levels in the map's unit, comma-separated, or none");
     sub->add_option("--bar", a->choices.scale, "Colour bar ends MIN,MAX in the map's unit");
-    sub->add_option("--range", a->choices.range_db, "Component maps: colour bar span below the peak, dB (default 40)");
+    sub->add_option("--range", a->choices.range_db, "Component maps: colour bar span below the peak, dB (default 40)")
+        ->check(number_from_to(1, 200));
     sub->add_option("--colormap", a->choices.colormap, "Sequential colour map (default viridis)")
         ->check(one_of(names_of(all_color_maps, is_sequential)));
     add_frequency_option(sub, a->frequency_hz, "Frequency (nearest within 0.5 %; default the middle one of the file)");
     sub->add_option("--title", a->choices.title, "Figure title (default: the pattern's name)");
-    sub->add_option("--size", a->size, "Image size WIDTHxHEIGHT in pixels (default 1200x720)");
-    sub->add_option("--dpi", a->dpi, "Dots per inch (default 150)");
+    sub->add_option("--size", a->size, "Image size WIDTHxHEIGHT in pixels (default 1200x720)")
+        ->check(pixel_size(exports::min_size_px, exports::min_size_px, exports::max_size_px));
+    sub->add_option("--dpi", a->dpi, "Dots per inch (default 150)")->check(number_from_to(exports::min_dpi, exports::max_dpi));
     sub->add_flag("--force", a->force, "Replace the output file if it exists");
     add_load_options(sub, a->load);
     a->load.whole_sphere_figure = "a map of the sphere";

@@ -9,6 +9,7 @@
 #include <variant>
 
 #include "cli/commands.hpp"
+#include "cli/usage.hpp"
 #include "cli/frequency_option.hpp"
 #include "cli/environment_options.hpp"
 #include "cli/json.hpp"
@@ -193,13 +194,14 @@ Registered add_rank(CLI::App& root) {
     sub->add_option("--score", a->score,
                     "mounted (default: fading level as mounted = MEG), random (with random orientation) or worst "
                     "(worst orientation): each as the mean advantage over the reference across the environments, dB");
-    sub->add_option("--outage", a->rank.outage, "Outage probability of the fading levels (default 0.01)");
+    sub->add_option("--outage", a->rank.outage, "Outage probability of the fading levels (default 0.01)")->check(number_between(0, 1));
     add_frequency_option(sub, a->frequency_hz, "Use this frequency of every file (nearest within 0.5 %; default the middle one of each)");
-    sub->add_option("--tilt-step", a->rank.sweep.tilt_step_deg, "Orientation sweep: tilt step, deg (default 15)");
-    sub->add_option("--tilt-max", a->rank.sweep.tilt_max_deg, "Orientation sweep: largest tilt, deg (default 180: every orientation)");
-    sub->add_option("--roll-step", a->rank.sweep.roll_step_deg, "Orientation sweep: roll step, deg (default 15)");
+    sub->add_option("--tilt-step", a->rank.sweep.tilt_step_deg, "Orientation sweep: tilt step, deg (default 15)")->check(number_from_to(0.1, 180));
+    sub->add_option("--tilt-max", a->rank.sweep.tilt_max_deg, "Orientation sweep: largest tilt, deg (default 180: every orientation)")
+        ->check(number_from_to(0, 180));
+    sub->add_option("--roll-step", a->rank.sweep.roll_step_deg, "Orientation sweep: roll step, deg (default 15)")->check(number_from_to(0.1, 360));
     sub->add_flag("--no-orientations", a->no_orientations, "Skip the orientation sweep (faster; only the mounted score)");
-    sub->add_option("--threads", a->rank.threads, "Threads (the result does not depend on it)");
+    sub->add_option("--threads", a->rank.threads, "Threads (the result does not depend on it)")->check(number_from_to(1, 64));
     sub->add_flag("--json", a->json, "Print one JSON object instead of the tables");
     sub->add_flag("--csv", a->csv, "Print CSV (one row per candidate and environment) instead of the tables");
     sub->add_option("--out", a->out, "Also write the ranking to a file: .md, .html, .csv or .json");

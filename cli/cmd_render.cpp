@@ -11,6 +11,7 @@
 #include "cli/usage.hpp"
 #include "cli/frequency_option.hpp"
 #include "cli/load.hpp"
+#include "exports/render.hpp"
 #include "pattern/colormap.hpp"
 #include "pattern/components.hpp"
 #include "viewer/scene/components.hpp"
@@ -28,11 +29,8 @@ struct RenderArgs {
     LoadOptions load;
 };
 
-// "WxH" in whole pixels from 64 to 8192 (the headless renderer's limits).
-bool parse_size(const std::string& s, int& w, int& h) {
-    char tail = 0;
-    return std::sscanf(s.c_str(), "%5dx%5d%c", &w, &h, &tail) == 2 && w >= 64 && h >= 64 && w <= 8192 && h <= 8192;
-}
+// The headless renderer's image limits (exports::parse_pixel_size reads --size).
+constexpr exports::PixelLimits render_limits{64, 64, 8192};
 
 // The surface the view shows (viewer/scene/surface_mesh), written as glTF binary or PLY.
 Status write_mesh_file(const FarFieldSet& s, const viewer::SnapshotOptions& o, const std::string& path, bool overwrite) {
@@ -60,7 +58,8 @@ Registered add_render(CLI::App& root) {
     sub->add_option("--view", a->view, "Eye direction AZ,EL in degrees (azimuth from +x toward +y, elevation above xy; default 35,22)")
         ->check(number_pair({"AZ", -360, 360}, {"EL", -90, 90}, "degrees"))
         ->type_name("AZ,EL");
-    sub->add_option("--size", a->size, "Image size WxH in pixels (default 1200x900)");
+    sub->add_option("--size", a->size, "Image size WxH in pixels (default 1200x900)")
+        ->check(pixel_size(render_limits.min_width, render_limits.min_height, render_limits.max_side));
     add_frequency_option(sub, a->frequency_hz, "Frequency (nearest within 0.5 %; default the middle one of the file)");
     sub->add_option("--range", a->range_db, "Dynamic range below the peak shown by the radius, dB (default 30)")
         ->check(number_from_to(1.0, 200.0));
@@ -78,13 +77,12 @@ Registered add_render(CLI::App& root) {
                 viewer::parse_color_by(a->color_by, o.color_by);
                 viewer::parse_color_map(a->map, o.gain_map);
                 if (!a->view.empty()) std::tie(o.view_azimuth_deg, o.view_elevation_deg) = read_number_pair(a->view);
-                int w = 0, h = 0;
-                if (!parse_size(a->size, w, h)) {
-                    std::cerr << "ellipsa render: --size: expected WxH in whole pixels, each from 64 to 8192 (e.g. 1200x900), found \""
-                              << a->size << "\"\n";
+                auto size = exports::parse_pixel_size(a->size, render_limits);
+                if (!size) {
+                    std::cerr << "ellipsa render: " << size.error().format() << "\n";
                     return exit_usage;
                 }
-                o.width = w, o.height = h;
+                o.width = size->width_px, o.height = size->height_px;
                 o.range_db = a->range_db;
                 o.glyphs = a->glyphs;
                 o.software = a->software;

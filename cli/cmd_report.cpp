@@ -7,6 +7,7 @@
 
 #include "cli/commands.hpp"
 #include "cli/usage.hpp"
+#include "exports/render.hpp"
 #include "cli/frequency_option.hpp"
 #include "cli/environment_options.hpp"
 #include "cli/load.hpp"
@@ -77,8 +78,9 @@ Registered add_report(CLI::App& root) {
     sub->add_option("--out", a->out, "Output folder (created; replaced only with --force)")->required()->type_name("FOLDER");
     add_frequency_option(sub, a->frequency_hz, "Only this frequency (nearest within 0.5 %; default all)");
     sub->add_option("--title", a->title, "Report title");
-    sub->add_option("--size", a->size, "Cut figure size WIDTHxHEIGHT in pixels (default 1200x900)");
-    sub->add_option("--dpi", a->dpi, "Dots per inch of the figures (default 150)");
+    sub->add_option("--size", a->size, "Cut figure size WIDTHxHEIGHT in pixels (default 1200x900)")
+        ->check(pixel_size(exports::min_size_px, exports::min_size_px, exports::max_size_px));
+    sub->add_option("--dpi", a->dpi, "Dots per inch of the figures (default 150)")->check(number_from_to(exports::min_dpi, exports::max_dpi));
     sub->add_option("--range", a->range_db, "Dynamic range of the cut plots, dB (default 40)")->check(number_from_to(3.0, 200.0));
     sub->add_option("--style", a->style, "Cut figures: polar (default) or rect")->check(one_of({"polar", "rect"}));
     add_environment_options(sub, a->environment);

@@ -40,10 +40,11 @@ Registered add_synth(CLI::App& root) {
         ->check(number_from_to(1e-6, 100.0));
     sub->add_option("--phase", a->phase_deg,
                     "Crossed dipoles: phase of the y current against the x current, deg "
-                    "(default -90: right-hand circular toward +z)");
-    sub->add_option("--rotate-x", a->rx, "Turn the antenna about x, deg (applied first)");
-    sub->add_option("--rotate-y", a->ry, "Then about y, deg");
-    sub->add_option("--rotate-z", a->rz, "Then about z, deg");
+                    "(default -90: right-hand circular toward +z)")
+        ->check(number_from_to(-360, 360));
+    sub->add_option("--rotate-x", a->rx, "Turn the antenna about x, deg (applied first)")->check(number_from_to(-360, 360));
+    sub->add_option("--rotate-y", a->ry, "Then about y, deg")->check(number_from_to(-360, 360));
+    sub->add_option("--rotate-z", a->rz, "Then about z, deg")->check(number_from_to(-360, 360));
     sub->add_option("--step", a->step_deg, "Grid step in theta and phi, deg; must divide 180 (default 1)")
         ->check(number_from_to(0.05, 90.0));
     add_frequency_option(sub, a->frequency_hz, "Frequency written to the file (default 2.45 GHz)")

@@ -6,6 +6,7 @@
 #include "cli/usage.hpp"
 #include "cli/frequency_option.hpp"
 #include "cli/load.hpp"
+#include "exports/render.hpp"
 #include "viewer/app.hpp"
 #include "pattern/components.hpp"
 #include "viewer/scene/components.hpp"
@@ -19,6 +20,8 @@
 
 namespace ellipsa::cli {
 namespace {
+// The window's size limits (--size).
+constexpr exports::PixelLimits view_limits{320, 240, 16384};
 struct ViewArgs {
     std::vector<std::string> files;
     bool software = false, frame_stats = false;
@@ -90,7 +93,8 @@ int file_options(const ViewArgs& a, viewer::ViewerOptions& o) {
 void add_view_options(CLI::App* sub, ViewArgs& a) {
     sub->add_option("FILE", a.files, "Far-field CSV files, each may carry its own options (FILE::map=...); default: the bundled examples");
     sub->add_flag("--software", a.software, "Force Mesa's software renderer (llvmpipe)");
-    sub->add_option("--size", a.size, "Window size WxH in pixels (default: as last time, first 1280x800)");
+    sub->add_option("--size", a.size, "Window size WxH in pixels (default: as last time, first 1280x800)")
+        ->check(pixel_size(view_limits.min_width, view_limits.min_height, view_limits.max_side));
     sub->add_option("--frames", a.frames, "Run this many frames and exit")->check(number_from_to(1, 1000000));
     sub->add_option("--screenshot", a.screenshot, "With --frames: write the last frame to this PNG")->type_name("FILE");
     sub->add_flag("--frame-stats", a.frame_stats,
@@ -98,7 +102,7 @@ void add_view_options(CLI::App* sub, ViewArgs& a) {
     sub->add_option("--component", a.component, "Start with this component as the radius")
         ->check(one_of(names_of(all_components)));
     sub->add_option("--color-by", a.color_by, "Start with this colouring")->check(one_of(names_of(viewer::all_color_by)));
-    sub->add_option("--compare", a.compare, "Start comparing with FILE number N (1-based) as B");
+    sub->add_option("--compare", a.compare, "Start comparing with FILE number N (1-based) as B")->check(number_from_to(1, 1000));
     sub->add_option("--pin", a.pin, "Start with THETA,PHI (deg) pinned, and the cut through it")
         ->check(number_pair({"THETA", 0, 180}, {"PHI", -360, 360}, "degrees"))
         ->type_name("THETA,PHI");
@@ -137,14 +141,12 @@ int window_options(const ViewArgs& a, viewer::ViewerOptions& o) {
         return exit_usage;
     }
     if (!a.size.empty()) {
-        int w = 0, h = 0;
-        char tail = 0;
-        if (std::sscanf(a.size.c_str(), "%dx%d%c", &w, &h, &tail) != 2 || w < 320 || h < 240 || w > 16384 || h > 16384) {
-            std::cerr << "ellipsa view: --size expects WxH with W >= 320 and H >= 240, e.g. 1280x800; found '"
-                      << a.size << "'\n";
+        auto size = exports::parse_pixel_size(a.size, view_limits);
+        if (!size) {
+            std::cerr << "ellipsa view: " << size.error().format() << "\n";
             return exit_usage;
         }
-        o.width = w, o.height = h;
+        o.width = size->width_px, o.height = size->height_px;
     }
     o.save_settings = a.frames == 0;
     return exit_ok;

@@ -27,10 +27,11 @@ void add_environment_options(CLI::App* sub, EnvironmentOptions& o) {
                         "; angle options override its values) or profile (with --profile)");
     sub->add_option("--xpr", o.xpr, "Vertical-to-horizontal power ratio, dB (inf: vertical only)")
         ->check(CLI::Validator([](std::string& s) { return xpr_problem(s); }, ""));
-    sub->add_option("--v-mean", o.v_mean, "Gaussian: mean elevation of the vertical part, deg above the horizon");
-    sub->add_option("--v-spread", o.v_spread, "Gaussian: spread of the vertical part, deg");
-    sub->add_option("--h-mean", o.h_mean, "Gaussian: mean elevation of the horizontal part, deg");
-    sub->add_option("--h-spread", o.h_spread, "Gaussian: spread of the horizontal part, deg");
+    sub->add_option("--v-mean", o.v_mean, "Gaussian: mean elevation of the vertical part, deg above the horizon")
+        ->check(number_from_to(-90, 90));
+    sub->add_option("--v-spread", o.v_spread, "Gaussian: spread of the vertical part, deg")->check(number_above_to(0, 1000));
+    sub->add_option("--h-mean", o.h_mean, "Gaussian: mean elevation of the horizontal part, deg")->check(number_from_to(-90, 90));
+    sub->add_option("--h-spread", o.h_spread, "Gaussian: spread of the horizontal part, deg")->check(number_above_to(0, 1000));
     sub->add_option("--profile", o.profile,
                     "User environment: CSV table elevation_deg,p_v,p_h (interpolated; zero outside its "
                     "elevations; XPR from the column totals unless --xpr is given)")

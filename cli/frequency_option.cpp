@@ -12,6 +12,8 @@ CLI::Validator frequency_text_validator() {
         [](std::string& s) -> std::string {
             auto hz = parse_frequency_text(s);
             if (!hz) return hz.error().message;
+            if (!(*hz > 0 && *hz <= max_option_frequency_hz))
+                return "expected a frequency above 0 Hz and up to 1e15 Hz (1000 THz), found \"" + s + "\"";
             char buffer[32];
             auto r = std::to_chars(buffer, buffer + sizeof buffer, *hz);
             s.assign(buffer, r.ptr);

@@ -9,6 +9,10 @@
 
 namespace ellipsa::cli {
 
+// The largest frequency an option takes (1000 THz: far beyond any antenna), so a typo as 2.45e19
+// is refused while parsing instead of matching nothing.
+inline constexpr double max_option_frequency_hz = 1e15;
+
 // A CLI11 transform: frequency text -> the number of Hz (shortest round-trip text).
 CLI::Validator frequency_text_validator();
 

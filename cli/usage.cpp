@@ -1,4 +1,5 @@
 #include "cli/usage.hpp"
+#include "exports/render.hpp"
 
 #include <algorithm>
 #include <cmath>
@@ -114,6 +115,25 @@ CLI::Validator number_check(std::string description, std::function<bool(double)>
 CLI::Validator number_from_to(double lo, double hi) {
     const std::string range = "from " + plain(lo) + " to " + plain(hi);
     return number_check(range, [lo, hi](double v) { return v >= lo && v <= hi; }, "a number " + range);
+}
+
+CLI::Validator number_above_to(double lo, double hi) {
+    const std::string range = "above " + plain(lo) + " and up to " + plain(hi);
+    return number_check(range, [lo, hi](double v) { return v > lo && v <= hi; }, "a number " + range);
+}
+
+CLI::Validator number_between(double lo, double hi) {
+    const std::string range = "between " + plain(lo) + " and " + plain(hi) + ", both excluded";
+    return number_check(range, [lo, hi](double v) { return v > lo && v < hi; }, "a number " + range);
+}
+
+CLI::Validator pixel_size(int min_width, int min_height, int max_side) {
+    return CLI::Validator(
+        [=](std::string& s) -> std::string {
+            auto r = exports::parse_pixel_size(s, {min_width, min_height, max_side});
+            return r ? std::string() : r.error().message;
+        },
+        "");
 }
 
 CLI::Validator positive_number() {

@@ -21,8 +21,15 @@ std::string usage_message(const CLI::App& root, const CLI::ParseError& e);
 // Number checks with messages in plain numbers ("expected a number from 0 to 180, found 200");
 // NaN and infinities are refused by all of them.
 CLI::Validator number_from_to(double lo, double hi);
+// lo < v <= hi ("a number above 0 and up to 1000").
+CLI::Validator number_above_to(double lo, double hi);
+// lo < v < hi ("a number between 0 and 1, both excluded"), as outage probabilities.
+CLI::Validator number_between(double lo, double hi);
 CLI::Validator positive_number();
 CLI::Validator finite_number();
+// --size: "WIDTHxHEIGHT" in whole pixels within the limits (exports::parse_pixel_size, the one
+// reader of sizes), checked while parsing.
+CLI::Validator pixel_size(int min_width, int min_height, int max_side);
 
 // One number of a pair as its message names it ("THETA") and the range it must lie in.
 struct PairPart {

@@ -38,13 +38,17 @@ std::optional<FileFormat> format_from_path(std::string_view path) {
     return std::nullopt;
 }
 
-Result<RenderSize> parse_size(std::string_view text, double dpi) {
-    const std::size_t x = text.find_first_of("xX");
+Result<PixelSize> parse_pixel_size(std::string_view text, const PixelLimits& lim) {
     auto bad = [&] {
-        return Error{"--size", 0, 0,
-                     "expected WIDTHxHEIGHT in pixels, each 16..20000 (e.g. 1200x900), found \"" + std::string(text) + "\""};
+        const std::string m = std::to_string(lim.max_side);
+        const std::string range = lim.min_width == lim.min_height
+                                      ? "each from " + std::to_string(lim.min_width) + " to " + m
+                                      : "WIDTH from " + std::to_string(lim.min_width) + " and HEIGHT from " +
+                                            std::to_string(lim.min_height) + ", each up to " + m;
+        return Error{"--size", 0, 0, "expected WIDTHxHEIGHT in whole pixels, " + range + " (e.g. 1200x900), found \"" +
+                                         std::string(text) + "\""};
     };
-    if (x == std::string_view::npos) return bad();
+    // Digits only (no sign, point or exponent), at most 6 of them: no overflow.
     auto whole = [](std::string_view s, int& out) {
         if (s.empty() || s.size() > 6) return false;
         int v = 0;
@@ -55,10 +59,21 @@ Result<RenderSize> parse_size(std::string_view text, double dpi) {
         out = v;
         return true;
     };
+    const std::size_t x = text.find_first_of("xX");
+    PixelSize r{0, 0};
+    if (x == std::string_view::npos || !whole(text.substr(0, x), r.width_px) || !whole(text.substr(x + 1), r.height_px))
+        return bad();
+    if (r.width_px < lim.min_width || r.height_px < lim.min_height || r.width_px > lim.max_side || r.height_px > lim.max_side)
+        return bad();
+    return r;
+}
+
+Result<RenderSize> parse_size(std::string_view text, double dpi) {
+    auto px = parse_pixel_size(text, {min_size_px, min_size_px, max_size_px});
+    if (!px) return px.error();
     RenderSize r;
-    if (!whole(text.substr(0, x), r.width_px) || !whole(text.substr(x + 1), r.height_px)) return bad();
-    if (r.width_px < 16 || r.height_px < 16 || r.width_px > 20000 || r.height_px > 20000) return bad();
-    if (!(dpi >= 36 && dpi <= 2400)) return Error{"--dpi", 0, 0, "expected 36..2400 dots per inch"};
+    r.width_px = px->width_px, r.height_px = px->height_px;
+    if (!(dpi >= min_dpi && dpi <= max_dpi)) return Error{"--dpi", 0, 0, "expected 36..2400 dots per inch"};
     r.dpi = dpi;
     return r;
 }

@@ -30,6 +30,20 @@ struct RenderSize {
 };
 // "1200x900" -> size (each side 16..20000 pixels); an Error says what was expected otherwise.
 Result<RenderSize> parse_size(std::string_view text, double dpi);
+// The limits parse_size checks: dots per inch and pixels on a side.
+inline constexpr double min_dpi = 36, max_dpi = 2400;
+inline constexpr int min_size_px = 16, max_size_px = 20000;
+
+// The one syntax of every --size: "WIDTHxHEIGHT" in whole pixels (digits only, x or X between),
+// WIDTH from min_width and HEIGHT from min_height, each at most max_side. The Error's file is
+// "--size" and its message says the allowed range and what was found.
+struct PixelLimits {
+    int min_width, min_height, max_side;
+};
+struct PixelSize {
+    int width_px, height_px;
+};
+Result<PixelSize> parse_pixel_size(std::string_view text, const PixelLimits& limits);
 
 // Draws into [0, width_pt] x [0, height_pt] in points.
 using Drawing = std::function<void(cairo_t*, double width_pt, double height_pt)>;
