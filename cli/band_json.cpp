@@ -109,11 +109,8 @@ CLI::Validator band_direction_check() { return number_pair({"THETA", 0, 180}, {"
 CLI::Validator band_ar_threshold_check() { return number_above_to(0, max_ar_threshold_db); }
 
 Result<BandRequest> band_request(const BandChoices& a, std::size_t nfiles) {
-    {
-        char text[40];
-        std::string t(text, std::to_chars(text, text + sizeof text, a.ar_threshold_db).ptr);
-        if (const std::string bad = band_ar_threshold_check()(t); !bad.empty()) return Error{"", 0, 0, "--ar-threshold: " + bad};
-    }
+    if (const std::string bad = check_number(band_ar_threshold_check(), a.ar_threshold_db); !bad.empty())
+        return Error{"", 0, 0, "--ar-threshold: " + bad};
     BandRequest r;
     r.title = a.title;
     auto envs = parse_environments(a.environments);

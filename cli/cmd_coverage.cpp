@@ -145,7 +145,7 @@ Registered add_coverage(CLI::App& root) {
                     "Comma-separated components (default total, vertical, horizontal, and rhcp, lhcp with phase; total for two files)");
     sub->add_option("--levels", a->levels, "Levels for the table, dB, comma-separated (default 0,-3,-6,-10)");
     sub->add_option("--horizon", a->horizon_deg, "Only directions within this many degrees of the horizon")
-        ->check(number_above_to(0, 90));
+        ->check(coverage_horizon_check());
     sub->add_option("--elevation", a->elevation, "Only elevations MIN,MAX in degrees (-90..90)");
     add_frequency_option(sub, a->frequency_hz, "Frequency (nearest within 0.5 %; default the middle one of the file)");
     sub->add_option("--title", a->title, "Figure title");

@@ -91,7 +91,7 @@ Registered add_map(CLI::App& root) {
     sub->add_option("--levels", a->choices.levels, "Contour levels in the map's unit, comma-separated, or none");
     sub->add_option("--bar", a->choices.scale, "Colour bar ends MIN,MAX in the map's unit");
     sub->add_option("--range", a->choices.range_db, "Component maps: colour bar span below the peak, dB (default 40)")
-        ->check(number_from_to(1, 200));
+        ->check(map_range_check());
     sub->add_option("--colormap", a->choices.colormap, "Sequential colour map (default viridis)")
         ->check(one_of(names_of(all_color_maps, is_sequential)));
     add_frequency_option(sub, a->frequency_hz, "Frequency (nearest within 0.5 %; default the middle one of the file)");

@@ -194,7 +194,7 @@ Registered add_rank(CLI::App& root) {
     sub->add_option("--score", a->score,
                     "mounted (default: fading level as mounted = MEG), random (with random orientation) or worst "
                     "(worst orientation): each as the mean advantage over the reference across the environments, dB");
-    sub->add_option("--outage", a->rank.outage, "Outage probability of the fading levels (default 0.01)")->check(number_between(0, 1));
+    sub->add_option("--outage", a->rank.outage, "Outage probability of the fading levels (default 0.01)")->check(rank_outage_check());
     add_frequency_option(sub, a->frequency_hz, "Use this frequency of every file (nearest within 0.5 %; default the middle one of each)");
     sub->add_option("--tilt-step", a->rank.sweep.tilt_step_deg, "Orientation sweep: tilt step, deg (default 15)")->check(number_from_to(0.1, 180));
     sub->add_option("--tilt-max", a->rank.sweep.tilt_max_deg, "Orientation sweep: largest tilt, deg (default 180: every orientation)")

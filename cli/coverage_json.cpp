@@ -4,16 +4,20 @@
 #include <algorithm>
 
 #include "cli/json.hpp"
+#include "cli/usage.hpp"
 #include "cli/mounting_options.hpp"
 #include "exports/cut_figure.hpp"
 
 namespace ellipsa::cli {
 
+CLI::Validator coverage_horizon_check() { return number_above_to(0, 90); }
+
 Result<ElevationBand> coverage_band(const std::optional<double>& horizon_deg,
                                     const std::optional<std::pair<double, double>>& elevation_deg) {
     if (horizon_deg && elevation_deg) return Error{"", 0, 0, "choose --horizon or --elevation, not both"};
     if (horizon_deg) {
-        if (!(*horizon_deg > 0 && *horizon_deg <= 90)) return Error{"", 0, 0, "--horizon: expected 0 < degrees <= 90"};
+        if (const std::string bad = check_number(coverage_horizon_check(), *horizon_deg); !bad.empty())
+            return Error{"", 0, 0, "--horizon: " + bad};
         return horizon_band(*horizon_deg);
     }
     if (elevation_deg) {

@@ -6,6 +6,8 @@
 #include <utility>
 #include <vector>
 
+#include <CLI/CLI.hpp>
+
 #include "exports/coverage_figure.hpp"
 #include "exports/render.hpp"
 #include "pattern/far_field.hpp"
@@ -16,6 +18,8 @@ namespace ellipsa::cli {
 // The band: the whole sphere, within horizon_deg of the horizon (0 < deg <= 90), or between two
 // elevations (-90 <= min < max <= 90); not both. Errors name the command's options (the Python
 // module gives the same message).
+// The check of --horizon (deg, above 0 and up to 90), on the option and in coverage_band.
+CLI::Validator coverage_horizon_check();
 Result<ElevationBand> coverage_band(const std::optional<double>& horizon_deg,
                                     const std::optional<std::pair<double, double>>& elevation_deg);
 

@@ -8,6 +8,9 @@
 
 namespace ellipsa::cli {
 
+CLI::Validator map_range_check() { return number_from_to(1, 200); }
+
+
 using namespace ellipsa::exports;
 
 // The values of --show: a component, or a map quantity other than those two.
@@ -48,7 +51,7 @@ Result<MapRequest> map_request(const MapChoices& a) {
         r.scale_min = (*s)[0];
         r.scale_max = (*s)[1];
     }
-    if (!std::isfinite(a.range_db) || a.range_db < 1) return Error{"", 0, 0, "--range: expected a number of dB from 1 to 200"};
+    if (const std::string bad = check_number(map_range_check(), a.range_db); !bad.empty()) return Error{"", 0, 0, "--range: " + bad};
     return r;
 }
 

@@ -2,6 +2,7 @@
 // Pattern.write_map): the request from the command's choices (the same checks and messages) and
 // the bytes of its --out file.
 #pragma once
+#include <CLI/CLI.hpp>
 #include <string>
 #include <vector>
 
@@ -10,6 +11,9 @@
 #include "pattern/result.hpp"
 
 namespace ellipsa::cli {
+
+// The check of --range (dB, from 1 to 200), on the option and in map_request.
+CLI::Validator map_range_check();
 
 // The values --show accepts: a component, or a map quantity other than a component or A minus B.
 std::vector<std::string> map_show_names();

@@ -1,12 +1,14 @@
 #include "cli/rank_json.hpp"
 
 #include "cli/json.hpp"
+#include "cli/usage.hpp"
 #include "pattern/combining.hpp"
 
 namespace ellipsa::cli {
 
-namespace {
+CLI::Validator rank_outage_check() { return number_between(0, 1); }
 
+namespace {
 void json_figures(JsonWriter& j, const RankFigures& f, double outage, RankScore score) {
     const auto db = [](const std::optional<double>& v) -> std::optional<double> {
         return v && *v > 0 ? std::optional<double>(to_db(*v)) : std::nullopt;

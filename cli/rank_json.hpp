@@ -5,6 +5,8 @@
 #include <string>
 #include <vector>
 
+#include <CLI/CLI.hpp>
+
 #include "cli/environment_options.hpp"
 #include "exports/rank_table.hpp"
 #include "pattern/rank.hpp"
@@ -17,6 +19,8 @@ std::optional<std::string> rank_score_problem(const std::string& text, RankScore
 
 // How a candidate is named in the tables: the pattern's name, else its file's name.
 std::string rank_display_name(const RankCandidate& c);
+// The check of --outage (between 0 and 1, both excluded), on the option and in the Python module's rank.
+CLI::Validator rank_outage_check();
 
 // The ranking of the candidates in every environment against the reference (reference_label
 // names it in the tables: the dipole's description or the reference's file), with the labels

@@ -1,4 +1,6 @@
 #include "cli/usage.hpp"
+
+#include <charconv>
 #include "exports/render.hpp"
 
 #include <algorithm>
@@ -134,6 +136,12 @@ CLI::Validator pixel_size(int min_width, int min_height, int max_side) {
             return r ? std::string() : r.error().message;
         },
         "");
+}
+
+std::string check_number(const CLI::Validator& check, double x) {
+    char buf[40];
+    std::string text(buf, std::to_chars(buf, buf + sizeof buf, x).ptr);
+    return check(text);
 }
 
 CLI::Validator positive_number() {

@@ -26,6 +26,9 @@ CLI::Validator number_above_to(double lo, double hi);
 // lo < v < hi ("a number between 0 and 1, both excluded"), as outage probabilities.
 CLI::Validator number_between(double lo, double hi);
 CLI::Validator positive_number();
+// What `check` says of the number `x` written shortest ("" when it passes), for the Python module's
+// path, which takes numbers, not text, and must refuse them with the command line's words.
+std::string check_number(const CLI::Validator& check, double x);
 CLI::Validator finite_number();
 // --size: "WIDTHxHEIGHT" in whole pixels within the limits (exports::parse_pixel_size, the one
 // reader of sizes), checked while parsing.

@@ -9,6 +9,7 @@
 #include "cli/environment_options.hpp"
 #include "cli/load.hpp"
 #include "cli/rank_json.hpp"
+#include "cli/usage.hpp"
 #include "pattern/diversity_study.hpp"
 #include "pattern/fading.hpp"
 #include "python/py_common.hpp"
@@ -231,6 +232,8 @@ py::dict rank(const std::vector<PatternPtr>& candidates, const std::optional<std
     if (candidates.empty()) throw py::value_error("candidates: expected at least one ellipsa.Pattern");
     RankOptions o;
     if (auto bad = cli::rank_score_problem(score, o.score)) throw py::value_error("score: " + *bad);
+    if (const std::string bad = cli::check_number(cli::rank_outage_check(), outage); !bad.empty())
+        throw py::value_error("--outage: " + bad);  // the command line's words
     o.outage = outage, o.sweep = {tilt_step_deg, tilt_max_deg, roll_step_deg}, o.orientations = orientations;
     o.threads = threads.value_or(int(std::clamp(std::thread::hardware_concurrency(), 1u, 4u)));
     check(validate(o));

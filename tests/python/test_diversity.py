@@ -133,7 +133,8 @@ def test_rank_refusals_as_the_cli(cli, kwargs, args, option):
     a = str(EXAMPLES / "printed-dipole.csv")
     code, _, err = cli("rank", a, *args)
     assert code == 2
-    message = err.strip().removeprefix("ellipsa rank: ")
+    # a value refused while parsing reads "ellipsa: MESSAGE" and a line naming the command's help
+    message = err.strip().removeprefix("ellipsa rank: ").removeprefix("ellipsa: ").splitlines()[0]
     if option:
         message = message.removeprefix("--" + option + ": ")
     with pytest.raises(ValueError) as e:

@@ -60,7 +60,7 @@ grep -q "0.000000" err.txt && bad "... printed 0.000000" || ok "... no 0.000000"
 expect_rc 2 "synth --step" "$E" synth dipole --step 100 --out x.csv
 has 'expected a number from 0.05 to 90, found "100"' "... 0.05 to 90"
 expect_rc 2 "synth --frequency 0" "$E" synth dipole --frequency 0 --out x.csv
-has 'expected a number above 0, found "0"' "... above 0"
+has 'expected a frequency above 0 Hz and up to 1e15 Hz (1000 THz), found "0"' "... above 0"
 expect_rc 2 "cut --range" "$E" cut d.csv --phi 0 --range 1 --out c.csv
 has 'expected a number from 3 to 200, found "1"' "... 3 to 200"
 
@@ -73,9 +73,9 @@ done
 expect_rc 0 "probe --phi -90 (a documented angle)" "$E" probe d.csv --theta 10 --phi -90
 expect_rc 2 "cut --step inf" "$E" cut d.csv --phi 0 --step inf --out c.csv
 expect_rc 2 "render --range nan" "$E" render d.csv --range nan --out r.png
-# Every plain FLOAT option refuses NaN and infinities (refuse_non_finite, cli/usage.hpp).
+# Every numeric option refuses NaN and infinities (its range; numeric_options_cli.sh walks them all).
 expect_rc 2 "synth --phase nan" "$E" synth crossed-dipoles --phase nan --out x.csv
-has 'ellipsa: --phase: expected a finite number, found "nan"' "... a finite number"
+has 'ellipsa: --phase: expected a number from -360 to 360, found "nan"' "... its range"
 expect_rc 2 "synth --rotate-x 1e400" "$E" synth dipole --rotate-x 1e400 --out x.csv
 expect_rc 2 "fading --outage 0.1,inf" "$E" fading d.csv --outage 0.1,inf
 
