@@ -30,7 +30,11 @@ public:
         if (display_ != EGL_NO_DISPLAY) {
             eglMakeCurrent(display_, EGL_NO_SURFACE, EGL_NO_SURFACE, EGL_NO_CONTEXT);
             if (context_ != EGL_NO_CONTEXT) eglDestroyContext(display_, context_);
-            eglTerminate(display_);
+            // The display is left initialised: it is one per process, and Mesa 22's llvmpipe
+            // crashed (a call through a stale pointer) when a second context on a display that
+            // had been terminated and initialised again was torn down, as a Python session
+            // writing two reports did. eglInitialize on an initialised display just succeeds.
+            // The display is released when the process ends.
         }
     }
     const RendererInfo& info() const override { return info_; }

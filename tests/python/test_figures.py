@@ -375,6 +375,23 @@ def test_report_is_the_cli_report(tmp_path, cli, monkeypatch):
         ellipsa.write_report(str(tmp_path / "x"), [p], style="round")
 
 
+def test_reports_one_after_another_in_one_session(tmp_path):
+    # A session writing a second report tears down a second headless GL context; with the EGL
+    # display terminated after the first, Mesa's llvmpipe crashed there in about one run in three
+    # (this sequence). Each run is its own process, so a crash is a failed run, not a lost session.
+    script = ("import ellipsa, sys\n"
+              "p, q = ellipsa.read(sys.argv[2]), ellipsa.read(sys.argv[3])\n"
+              "ellipsa.write_report(sys.argv[1], [p, q], frequency_hz=2.45e9, style='rect', size_px=(640, 480),\n"
+              "                     environment=ellipsa.environment('indoor'))\n"
+              "ellipsa.write_report(sys.argv[1], [p], frequency_hz=2.45e9, force=True)\n")
+    for run in range(6):
+        out = tmp_path / f"r{run}"
+        r = subprocess.run([sys.executable, "-c", script, str(out), str(EXAMPLES / "turnstile.csv"),
+                            str(EXAMPLES / "small-loop.csv")], capture_output=True, text=True, check=False)
+        assert r.returncode == 0, f"run {run}: exit {r.returncode}: {r.stderr[-2000:]}"
+        assert (out / "p1-turnstile-2450MHz-3d.png").stat().st_size > 0
+
+
 def test_report_without_gl_says_what_the_cli_says(tmp_path, cli, exe):
     # Where no OpenGL context can be made (here: GLVND finds no EGL vendor), the report notes each
     # 3D view as unavailable with the reason, from Python as from the command. Python runs in a
