@@ -133,7 +133,7 @@ std::optional<Result<FarFieldSet>> one_pass_read(Context& ctx, const Layout& L, 
 }
 
 // The stages in order; any refusal ends the read with nothing partial returned.
-Result<FarFieldSet> read_stages(const TextSource& src, const std::string& file, const CsvReadOptions& o) {
+Result<FarFieldSet> read_stages_once(const TextSource& src, const std::string& file, const CsvReadOptions& o) {
     auto layout = read_layout(src, file, o);
     if (!layout) return layout.error();
     const Layout& L = *layout;
@@ -170,6 +170,22 @@ Result<FarFieldSet> read_stages(const TextSource& src, const std::string& file, 
     if (Status st = after_pass(ctx, chunks, file); !st) return st.error();
     if (plan->raw) return read_directions(std::move(s), seen, lines, L, src, file, o);
     return finish(std::move(s), seen, chunks, L, src, file, o);
+}
+
+// Several workers read a file's parts at once, so which of two findings in different parts
+// they meet first can depend on timing (a point given twice is found by whichever row is
+// written second in time, not in the file). A refusal tied to a line of a read made by several
+// workers is therefore settled by reading again with one: the message is always the first
+// finding in the file's order, the same on every run. Refusals cost the second read; a read
+// that succeeds, is cancelled or fails on the system's side (no line) is not repeated.
+Result<FarFieldSet> read_stages(const TextSource& src, const std::string& file, const CsvReadOptions& o) {
+    auto r = read_stages_once(src, file, o);
+    if (r || r.error().line == 0 || o.threads == 1) return r;
+    const std::size_t data = src.size();
+    if (worker_count(o, data) < 2) return r;
+    CsvReadOptions one = o;
+    one.threads = 1;
+    return read_stages_once(src, file, one);
 }
 
 }  // namespace

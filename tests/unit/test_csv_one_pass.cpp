@@ -165,3 +165,32 @@ TEST_CASE("one pass on a guessed grid: what defeats the guess is read in two pas
     swapped.replace(a.begin, row.size() + 1 + next.size(), next + "\n" + row);
     CHECK(check_both_ways(swapped) == 2);
 }
+
+TEST_CASE("two workers give the refusal one worker gives: the first finding in the file, on every run", "[csv][one-pass]") {
+    // A point given twice with different values, its first row early in the second half of the
+    // file and its second row (in the file's order) late in the first half: with two workers the
+    // second half's row is usually written first, so the first half's row looks like the second
+    // one, and which is found depends on timing. The reader settles any refusal of a read by
+    // several workers by reading again with one, so the message names the first finding in the
+    // file's order (the one-worker read, the reference here) on every run. Common practice:
+    // deterministic messages from a parallel parser.
+    std::string s = grid_file(1, 5, 0, 30, 12);
+    const std::size_t half = s.size() / 2;
+    const std::size_t after = s.find('\n', half) + 1;      // the second half's first row
+    const std::string original = s.substr(after, s.find('\n', after) - after + 1);
+    std::string copy = original;
+    copy.replace(copy.rfind(',') + 1, std::string::npos, "0.5\n");
+    const std::size_t before = s.rfind('\n', half - 200) + 1;  // a row late in the first half
+    s.insert(before, copy);
+    CsvReadOptions one;
+    one.threads = 1;
+    const std::string reference = describe(parse_far_field_csv(s, "two.csv", one));
+    REQUIRE(reference.rfind("refused: ", 0) == 0);
+    CsvReadOptions two;
+    two.threads = 2;
+    for (int run = 0; run < 40; ++run) {
+        csv::one_pass_min_bytes = run % 2 ? std::size_t(0) : ~std::size_t(0);
+        CHECK(describe(parse_far_field_csv(s, "two.csv", two)) == reference);
+    }
+    csv::one_pass_min_bytes = std::size_t(8) << 20;
+}
