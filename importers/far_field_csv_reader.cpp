@@ -180,9 +180,7 @@ Result<FarFieldSet> read_stages_once(const TextSource& src, const std::string& f
 // that succeeds, is cancelled or fails on the system's side (no line) is not repeated.
 Result<FarFieldSet> read_stages(const TextSource& src, const std::string& file, const CsvReadOptions& o) {
     auto r = read_stages_once(src, file, o);
-    if (r || r.error().line == 0 || o.threads == 1) return r;
-    const std::size_t data = src.size();
-    if (worker_count(o, data) < 2) return r;
+    if (r || r.error().line == 0 || worker_count(o, src.size()) < 2) return r;
     CsvReadOptions one = o;
     one.threads = 1;
     return read_stages_once(src, file, one);

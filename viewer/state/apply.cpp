@@ -79,6 +79,13 @@ Status add_pattern(AppState& s, FarFieldSet set, std::string path, const Install
     return Ok{};
 }
 
+// Pattern p installed again from the pattern as read (or as shown when nothing else was kept),
+// with the request q.
+Status reinstall(LoadedPattern& p, const InstallRequest& q) {
+    FarFieldSet source = p.as_read ? *p.as_read : p.set;
+    return install_loaded(p, std::move(source), q);
+}
+
 // Pattern i installed again from the pattern as read, with a new mounting and a new id.
 void set_mounting(AppState& s, const intent::SetMounting& m) {
     if (m.index < 0 || m.index >= int(s.patterns.size())) return;
@@ -86,8 +93,7 @@ void set_mounting(AppState& s, const intent::SetMounting& m) {
     InstallRequest q = p.install;
     q.up = m.up;
     q.turns = m.turns;
-    FarFieldSet source = p.as_read ? *p.as_read : p.set;
-    if (Status st = install_loaded(p, std::move(source), q); !st) {
+    if (Status st = reinstall(p, q); !st) {
         s.mounting_error = st.error().message;
         return;
     }
@@ -104,8 +110,7 @@ void set_phase_reference(AppState& s, const intent::SetPhaseReference& r) {
     InstallRequest q = p.install;
     q.reference = r.reference;
     q.reference_point_m = r.reference == PhaseReference::point ? r.point_m : Vec3{};
-    FarFieldSet source = p.as_read ? *p.as_read : p.set;
-    if (Status st = install_loaded(p, std::move(source), q); !st) {
+    if (Status st = reinstall(p, q); !st) {
         s.reference_error = st.error().message;
         return;
     }
