@@ -300,6 +300,7 @@ int run_viewer(const ViewerOptions& opt) {
         profile.t0 = Clock::now();
         script.place_pointer(w);
         Intents in = std::exchange(carried, {});
+        append(in, script.frame_intents(s));
         if (std::vector<std::string> dropped = w.begin_frame(); !dropped.empty()) in.push_back(intent::OpenFiles{std::move(dropped), ""});
         append(in, loader.poll());
         append(in, dialog.poll());

@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <cstdint>
+#include <cstdlib>
 #include <iostream>
 #include <vector>
 
@@ -41,6 +42,17 @@ int report(const char* option, const ExportOutcome& o) {
     return 1;
 }
 }  // namespace
+
+ScriptedRun::ScriptedRun(const ViewerOptions& o) : o_(o) {
+    const char* e = std::getenv("ELLIPSA_BENCH_STEP_FREQUENCY");
+    step_frequency_ = o.frames > 0 && e && *e && *e != '0';
+}
+
+Intents ScriptedRun::frame_intents(const AppState& s) const {
+    const LoadedPattern* a = s.active_pattern();
+    if (!step_frequency_ || !a || a->set.frequencies.size() < 2) return {};
+    return {intent::SetFrequency{(s.freq + 1) % a->set.frequencies.size()}};
+}
 
 void ScriptedRun::place_pointer(Window& w) const {
     if (o_.has_cursor) glfwSetCursorPos(w.glfw(), o_.cursor_x, o_.cursor_y);

@@ -92,9 +92,22 @@ if [[ ${ELLIPSA_BENCH_SWEEP:-0} == 1 ]]; then
     /Elapsed \(wall clock\)/ { wall = $NF }
     /User time/ { u = $NF } /System time/ { s = $NF }
     END { arrays = 361 * 720 * 100 * 32 / 1048576
-          printf "  ellipsa info: %s wall, %.1f s CPU, %d MB read; peak memory %.0f MiB for %.0f MiB of arrays (%.2fx)
-",
+          printf "  ellipsa info: %s wall, %.1f s CPU, %d MB read; peak memory %.0f MiB for %.0f MiB of arrays (%.2fx)\n",
                  wall, u + s, mb, rss, arrays, rss / arrays }' "$BENCH_DIR/sweep_time.txt"
+  # The viewer on the same sweep: the frequency stepped on every frame (as a slider dragged
+  # through the band without pause), with the cut and the probe's figures redrawn each time.
+  if command -v xvfb-run >/dev/null; then
+    VS=$(mktemp -d)
+    for step in 0 1; do
+      stats=$(ELLIPSA_BENCH_STEP_FREQUENCY=$step XDG_CONFIG_HOME="$VS/config" /usr/bin/time -v -o "$VS/time.txt" \
+        tests/xvfb_run.sh -a -s "-screen 0 1400x900x24" "$B/ellipsa" view "$SWEEP" --software --size 1280x800 \
+        --frames 200 --frame-stats 2>/dev/null | tail -1)
+      label="viewer, one frequency shown"; [[ $step == 1 ]] && label="viewer, next frequency every frame"
+      printf "  %-40s %s (target at 0.5 deg: median <= 33 ms)\n" "$label" "$stats"
+    done
+    awk '/Maximum resident set size/ { printf "  viewer peak memory %.0f MiB (the arrays, the mesh, the window and its textures)\n", $NF / 1024 }' "$VS/time.txt"
+    rm -rf "$VS"
+  fi
   rm -f "$SWEEP"
 else
   echo "  skipped (2.5 GB of disk and a few minutes): ELLIPSA_BENCH_SWEEP=1 ./dev bench"
