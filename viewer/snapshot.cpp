@@ -23,7 +23,9 @@ namespace ellipsa::viewer {
 namespace {
 
 // Makes `mine` the current ImGui context and restores the caller's afterwards (the viewer window
-// may be exporting).
+// may be exporting). A context destroyed meanwhile is never restored: ImGui counts every
+// allocation through its current context, so a dangling one was written to after it was freed,
+// which corrupted the heap (Mesa's llvmpipe crashed later, in eglDestroyContext).
 struct ImGuiContextSwitch {
     ImGuiContext* saved = ImGui::GetCurrentContext();
     explicit ImGuiContextSwitch(ImGuiContext* mine) { ImGui::SetCurrentContext(mine); }
@@ -85,6 +87,7 @@ struct SnapshotRenderer::Gl {
         if (!imgui) return;
         context->make_current();
         ImGuiContextSwitch sw(imgui);
+        if (sw.saved == imgui) sw.saved = nullptr;
         ImGui_ImplOpenGL3_Shutdown();
         ImGui::DestroyContext(imgui);
     }
@@ -112,8 +115,10 @@ Status SnapshotRenderer::start(const SnapshotOptions& o) {
     gl->context = std::move(*ctx);
     if (Status st = gl->target.create(o.width, o.height, 4); !st) return st.error();
     if (Status st = gl->scene.init(); !st) return st.error();
+    // CreateContext makes the new context current when none is: the switch restores the caller's.
+    ImGuiContextSwitch sw(nullptr);
     gl->imgui = ImGui::CreateContext();
-    ImGuiContextSwitch sw(gl->imgui);
+    ImGui::SetCurrentContext(gl->imgui);
     ImGuiIO& io = ImGui::GetIO();
     io.IniFilename = nullptr;
     io.LogFilename = nullptr;
