@@ -1,47 +1,73 @@
 // ellipsa render: a 3D snapshot of a pattern as PNG, through the headless EGL context (works with
 // no display at all), or the gain surface itself as a 3D file (.glb, .ply; no GL needed).
-#include <filesystem>
 #include <iostream>
 #include <memory>
 #include <optional>
-#include <cstdio>
-#include <tuple>
 
 #include "cli/commands.hpp"
-#include "cli/usage.hpp"
 #include "cli/frequency_option.hpp"
 #include "cli/load.hpp"
-#include "exports/render.hpp"
-#include "pattern/colormap.hpp"
-#include "pattern/components.hpp"
-#include "viewer/scene/components.hpp"
-#include "viewer/scene/surface_mesh.hpp"
-#include "viewer/exports_ui.hpp"
-#include "viewer/snapshot.hpp"
+#include "cli/mounting_options.hpp"
+#include "cli/render_options.hpp"
+#include "importers/text.hpp"
+#include "viewer/surface_file.hpp"
 
 namespace ellipsa::cli {
 namespace {
+// The options as given (cli/render_options.hpp checks them and holds their defaults).
 struct RenderArgs {
-    std::string file, out, component = "total", color_by = "component", view, size = "1200x900", map = "viridis";
-    std::optional<double> frequency_hz;
-    double range_db = 30;
+    std::string file, out, component, color_by, view, size, map;
+    std::optional<double> frequency_hz, range_db;
     bool force = false, glyphs = false, software = false;
     LoadOptions load;
+    // Unset options are empty (an empty value is refused while parsing).
+    RenderChoices choices() const {
+        auto given = [](const std::string& v) { return v.empty() ? std::nullopt : std::optional(v); };
+        return {given(component), given(color_by), given(map), given(view), given(size), range_db, glyphs, software};
+    }
 };
 
-// The headless renderer's image limits (exports::parse_pixel_size reads --size).
-constexpr exports::PixelLimits render_limits{64, 64, 8192};
+int fail(int code, const std::string& message) {
+    std::cerr << "ellipsa render: " << message << "\n";
+    return code;
+}
 
-// The surface the view shows (viewer/scene/surface_mesh), written as glTF binary or PLY.
-Status write_mesh_file(const FarFieldSet& s, const viewer::SnapshotOptions& o, const std::string& path, bool overwrite) {
-    viewer::SurfaceOptions so;
-    so.component = o.component;
-    so.color_by = o.color_by;
-    so.range_db = o.range_db;
-    so.gain_map = o.gain_map;
-    auto mesh = viewer::build_surface(s, o.frequency_index, so);
-    if (!mesh) return mesh.error();
-    return viewer::write_surface_file(s, o.frequency_index, o.component, *mesh, path, overwrite);
+void add_render_options(CLI::App* sub, RenderArgs& a) {
+    const RenderChecks& k = render_checks();
+    const viewer::SnapshotOptions d;  // the defaults
+    const std::string view = pair_text(d.view_azimuth_deg, d.view_elevation_deg, ','), size = pair_text(d.width, d.height, 'x');
+    sub->add_option("--component", a.component, std::string("Radius from this component (default ") + to_string(d.component) + ")")
+        ->check(k.component);
+    sub->add_option("--color-by", a.color_by, std::string("Colour by (default ") + viewer::to_string(d.color_by) + ")")->check(k.color_by);
+    sub->add_option("--view", a.view, "Eye direction AZ,EL in degrees (azimuth from +x toward +y, elevation above xy; default " + view + ")")
+        ->check(k.view)
+        ->type_name("AZ,EL");
+    sub->add_option("--size", a.size, "Image size WxH in pixels (default " + size + ")")->check(k.size);
+    add_frequency_option(sub, a.frequency_hz, "Frequency (nearest within 0.5 %; default the middle one of the file)");
+    sub->add_option("--range", a.range_db, "Dynamic range below the peak shown by the radius, dB (default " + text::number(d.range_db) + ")")
+        ->check(k.range);
+    sub->add_option("--colormap", a.map, std::string("Sequential colour map for gain (default ") + to_string(d.gain_map) + ")")
+        ->check(k.colormap);
+    sub->add_flag("--glyphs", a.glyphs, "Draw polarisation ellipses on the surface");
+    sub->add_flag("--software", a.software, "Force Mesa's software renderer");
+}
+
+int run_render(const RenderArgs& a) {
+    auto o = render_options(a.choices());  // checked while parsing too: the same checks
+    if (!o) return fail(exit_usage, o.error().message);
+    if (Status st = check_render_out(a.out); !st) return fail(exit_usage, st.error().message);
+    if (Status st = refuse_existing_out(a.out, a.force); !st) return fail(exit_bad_input, st.error().message);
+    auto s = load_pattern(a.file, a.load);
+    if (!s) return fail(exit_bad_input, s.error().format());
+    auto k = pick_frequency(*s, a.frequency_hz, file_path(a.file));
+    if (!k) return fail(exit_bad_input, k.error().format());
+    o->frequency_index = *k;
+    auto wrote = write_render(*s, *o, a.out, a.force);
+    if (!wrote) return fail(exit_bad_input, wrote.error().format());
+    std::cout << "wrote " << a.out << " " << *wrote << "\n";
+    if (viewer::is_surface_file(a.out)) return exit_ok;
+    if (const std::string m = mounting_note(*s); !m.empty()) std::cout << "  " << m << "\n";
+    return exit_ok;
 }
 
 Registered add_render(CLI::App& root) {
@@ -51,78 +77,11 @@ Registered add_render(CLI::App& root) {
     sub->add_option("--out", a->out, "Output file: .png (a snapshot), .glb (glTF 2.0 binary) or .ply (the surface as a 3D file)")
         ->required()
         ->type_name("FILE");
-    sub->add_option("--component", a->component, "Radius from this component (default total)")
-        ->check(one_of(names_of(all_components)));
-    sub->add_option("--color-by", a->color_by, "Colour by (default component)")
-        ->check(one_of(names_of(viewer::all_color_by, +[](viewer::ColorBy c) { return c != viewer::ColorBy::difference; })));
-    sub->add_option("--view", a->view, "Eye direction AZ,EL in degrees (azimuth from +x toward +y, elevation above xy; default 35,22)")
-        ->check(number_pair({"AZ", -360, 360}, {"EL", -90, 90}, "degrees"))
-        ->type_name("AZ,EL");
-    sub->add_option("--size", a->size, "Image size WxH in pixels (default 1200x900)")
-        ->check(pixel_size(render_limits.min_width, render_limits.min_height, render_limits.max_side));
-    add_frequency_option(sub, a->frequency_hz, "Frequency (nearest within 0.5 %; default the middle one of the file)");
-    sub->add_option("--range", a->range_db, "Dynamic range below the peak shown by the radius, dB (default 30)")
-        ->check(number_from_to(1.0, 200.0));
-    sub->add_option("--colormap", a->map, "Sequential colour map for gain (default viridis)")
-        ->check(one_of(names_of(all_color_maps, is_sequential)));
-    sub->add_flag("--glyphs", a->glyphs, "Draw polarisation ellipses on the surface");
-    sub->add_flag("--software", a->software, "Force Mesa's software renderer");
+    add_render_options(sub, *a);
     sub->add_flag("--force", a->force, "Overwrite an existing output file");
     add_load_options(sub, a->load);
     a->load.whole_sphere_figure = "a 3D view";
-    return {sub, [a]() -> int {
-                viewer::SnapshotOptions o;
-                // The names were checked while parsing (one_of: the lists in --help).
-                parse_component(a->component.c_str(), o.component);
-                viewer::parse_color_by(a->color_by, o.color_by);
-                viewer::parse_color_map(a->map, o.gain_map);
-                if (!a->view.empty()) std::tie(o.view_azimuth_deg, o.view_elevation_deg) = read_number_pair(a->view);
-                auto size = exports::parse_pixel_size(a->size, render_limits);
-                if (!size) {
-                    std::cerr << "ellipsa render: " << size.error().format() << "\n";
-                    return exit_usage;
-                }
-                o.width = size->width_px, o.height = size->height_px;
-                o.range_db = a->range_db;
-                o.glyphs = a->glyphs;
-                o.software = a->software;
-                if (const std::string ext = std::filesystem::path(a->out).extension().string();
-                    ext != ".png" && !viewer::is_surface_file(a->out)) {  // as `cut` refuses what it cannot write
-                    std::cerr << "ellipsa render: --out: expected a file name ending in .png, .glb or .ply, found '" << a->out << "'\n";
-                    return exit_usage;
-                }
-                std::error_code ec;
-                if (!a->force && std::filesystem::exists(a->out, ec)) {
-                    std::cerr << "ellipsa render: " << a->out << " exists; use --force to overwrite it\n";
-                    return exit_bad_input;
-                }
-                auto s = load_pattern(a->file, a->load);
-                if (!s) {
-                    std::cerr << "ellipsa render: " << s.error().format() << "\n";
-                    return exit_bad_input;
-                }
-                auto k = pick_frequency(*s, a->frequency_hz, file_path(a->file));
-                if (!k) {
-                    std::cerr << "ellipsa render: " << k.error().format() << "\n";
-                    return exit_bad_input;
-                }
-                o.frequency_index = *k;
-                if (viewer::is_surface_file(a->out)) {
-                    if (Status st = write_mesh_file(*s, o, a->out, a->force); !st) {
-                        std::cerr << "ellipsa render: " << st.error().format() << "\n";
-                        return exit_bad_input;
-                    }
-                    std::cout << "wrote " << a->out << " (the surface: radius 1 at the largest sample, +z up; glTF files +y up)\n";
-                    return exit_ok;
-                }
-                if (Status st = viewer::render_snapshot_png(*s, o, a->out, a->force); !st) {
-                    std::cerr << "ellipsa render: " << st.error().format() << "\n";
-                    return exit_bad_input;
-                }
-                std::cout << "wrote " << a->out << " (" << o.width << "x" << o.height << ")\n";
-                if (const std::string m = mounting_note(*s); !m.empty()) std::cout << "  " << m << "\n";
-                return exit_ok;
-            }};
+    return {sub, [a]() -> int { return run_render(*a); }};
 }
 const CommandRegistration registration(65, add_render);
 }  // namespace

@@ -3,7 +3,7 @@
 
 #include <cstdint>
 #include <memory>
-#include <mutex>
+#include <mutex>  // viewer::snapshot_turn(): reports drawn from two threads take turns
 #include <vector>
 
 #include "exports/png.hpp"
@@ -16,14 +16,6 @@ namespace ellipsa::cli {
 #ifdef ELLIPSA_HAVE_VIEWER
 namespace {
 
-// Dear ImGui's current context is one pointer for the whole process, so reports written from two
-// threads at once (Python releases its lock while it writes one) take turns at drawing and at
-// dropping their renderers.
-std::mutex& snapshot_turn() {
-    static std::mutex m;
-    return m;
-}
-
 // One renderer for every 3D view of a report: its context and compiled shaders are kept between
 // views, and dropped with the report's options.
 struct SharedRenderer {
@@ -32,7 +24,7 @@ struct SharedRenderer {
     SharedRenderer(const SharedRenderer&) = delete;
     SharedRenderer& operator=(const SharedRenderer&) = delete;
     ~SharedRenderer() {
-        std::lock_guard<std::mutex> turn(snapshot_turn());
+        std::lock_guard<std::mutex> turn(viewer::snapshot_turn());
         renderer.reset();
     }
 };
@@ -52,7 +44,7 @@ void add_report_3d_views(exports::ReportOptions& o, const exports::RenderSize& s
             so.color_by = colour;
             Result<std::vector<std::uint8_t>> rgba = Error{};
             {
-                std::lock_guard<std::mutex> turn(snapshot_turn());
+                std::lock_guard<std::mutex> turn(viewer::snapshot_turn());
                 rgba = shared->renderer->render(s, so);
             }
             if (!rgba) return rgba.error();

@@ -75,6 +75,12 @@ class Pattern:
                   range_db: float = 40.0, colormap: str = "viridis", frequency_hz: Optional[float] = None,
                   title: str = "", size_px: Tuple[int, int] = (1200, 720), dpi: float = 150.0,
                   force: bool = False) -> None: ...
+    def write_view(self, path: str, *, component: str = "total",
+                   color_by: Literal["component", "axial-ratio", "rhcp-minus-lhcp", "tilt"] = "component",
+                   view_deg: Tuple[float, float] = (35.0, 22.0), size_px: Tuple[int, int] = (1200, 900),
+                   frequency_hz: Optional[float] = None, range_db: float = 30.0,
+                   colormap: Literal["viridis", "cividis", "magma"] = "viridis", glyphs: bool = False,
+                   software: bool = False, force: bool = False) -> None: ...
     def write(self, path: str, *, family: Optional[str] = None, force: bool = False) -> None: ...
     @staticmethod
     def from_arrays(theta_deg: npt.ArrayLike, phi_deg: npt.ArrayLike, e_theta: npt.ArrayLike,

@@ -1,5 +1,5 @@
 // import ellipsa: the module's entry point. The parts live in py_pattern.cpp (reading, arrays,
-// writing), py_figures.cpp (summary figures, cuts, coverage), py_band.cpp (figures against frequency), py_map.cpp (maps), py_report.cpp (the report folder) and py_diversity.cpp (environments, MEG, ECC,
+// writing), py_figures.cpp (summary figures, cuts, coverage), py_band.cpp (figures against frequency), py_map.cpp (maps), py_report.cpp (the report folder), py_view.cpp (one 3D view as a file) and py_diversity.cpp (environments, MEG, ECC,
 // combining, fading).
 #include "python/py_common.hpp"
 
@@ -25,4 +25,5 @@ PYBIND11_MODULE(ellipsa, m) {
     ellipsa::python::bind_band(m);
     ellipsa::python::bind_map(m);
     ellipsa::python::bind_report(m);
+    ellipsa::python::bind_view(m);
 }

@@ -88,5 +88,6 @@ void bind_fading(py::module_& m);
 void bind_band(py::module_& m);
 void bind_map(py::module_& m);
 void bind_report(py::module_& m);
+void bind_view(py::module_& m);
 
 }  // namespace ellipsa::python

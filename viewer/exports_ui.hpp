@@ -13,6 +13,7 @@
 
 #include "viewer/scene/cut_view.hpp"
 #include "viewer/scene/surface_mesh.hpp"
+#include "viewer/surface_file.hpp"
 #include "viewer/state/app_state.hpp"
 
 namespace ellipsa::viewer {
@@ -33,13 +34,7 @@ ExportOutcome export_cut_file(const AppState& s, const CutData& cut, const std::
 // first and makes it current again afterwards (GLVND allows one window-system API per thread).
 ExportOutcome export_view_file(const AppState& s, const std::string& path, bool overwrite);
 
-// The gain surface as a 3D file, by the name's extension: .glb (glTF 2.0 binary) or .ply
-// (exports/mesh_file.hpp), with a name and comment saying what the radius and colour show.
-// `ellipsa render --out NAME.glb|ply` and the viewer's File menu both write through this.
-bool is_surface_file(const std::string& path);
-Status write_surface_file(const FarFieldSet& s, std::size_t freq_index, Component component, const SurfaceMesh& mesh,
-                          const std::string& path, bool overwrite);
-// The surface on screen (the derived mesh) as a 3D file; needs no GL context.
+// The surface on screen (the derived mesh) as a 3D file (viewer/surface_file.hpp); needs no GL context.
 ExportOutcome export_surface_file(const AppState& s, const SurfaceMesh& mesh, const std::string& path, bool overwrite);
 
 // A file name in the current folder for an export from the UI: "<stem>-YYYYmmdd-HHMMSS.<ext>".

@@ -181,6 +181,11 @@ Result<std::vector<std::uint8_t>> SnapshotRenderer::render(const FarFieldSet& s,
     return gl.target.read_rgba();
 }
 
+std::mutex& snapshot_turn() {
+    static std::mutex m;
+    return m;
+}
+
 Result<std::vector<std::uint8_t>> render_snapshot_rgba(const FarFieldSet& s, const SnapshotOptions& o) {
     SnapshotRenderer r;
     return r.render(s, o);

@@ -8,6 +8,7 @@
 #pragma once
 #include <cstdint>
 #include <memory>
+#include <mutex>
 #include <string>
 #include <vector>
 
@@ -58,6 +59,11 @@ private:
     Status start(const SnapshotOptions& o);
     std::unique_ptr<Gl> gl_;
 };
+
+// Dear ImGui's current context is one pointer for the whole process: callers that may draw from
+// several threads at once (the Python module releases its lock while it writes a report or a
+// view) hold this one mutex while they render and while they drop a renderer.
+std::mutex& snapshot_turn();
 
 // Render and write a PNG through a temporary file and a rename. overwrite = false refuses when
 // `path` exists (the message says to use --force).
