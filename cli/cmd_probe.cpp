@@ -1,6 +1,7 @@
 // ellipsa probe: every polarisation figure at one direction, interpolated.
 #include <cmath>
 #include <cstdio>
+#include <iterator>
 #include <iostream>
 #include <memory>
 #include <optional>
@@ -12,6 +13,7 @@
 #include "cli/json.hpp"
 #include "cli/load.hpp"
 #include "exports/figure_text.hpp"
+#include "pattern/component_phase.hpp"
 #include "pattern/interpolate.hpp"
 #include "pattern/polarisation.hpp"
 
@@ -49,8 +51,28 @@ Available available(const FarFieldSet& s, const PolarisationState& p) {
     return v;
 }
 
+// The phase of each component that has one (pattern/component_phase.hpp), NaN where it has none
+// or the data carry no phase; indexed by Component.
+struct Phases {
+    double deg[std::size(all_components)];
+    double operator[](Component c) const { return deg[std::size_t(c)]; }
+};
+
+Phases phases(const FarFieldSet& s, cplx et, cplx ep, double phi_deg, Ludwig3Reference ref) {
+    Phases p{};
+    const double cp = std::cos(phi_deg * deg), sp = std::sin(phi_deg * deg);
+    for (Component c : all_components)
+        p.deg[std::size_t(c)] = phase_unavailable(s, c) ? NAN : component_phase_deg(et, ep, cp, sp, ref, c);
+    return p;
+}
+
+std::optional<double> phase_or_null(double phase_deg) {
+    if (std::isnan(phase_deg)) return std::nullopt;
+    return phase_deg;
+}
+
 void print_json(const ProbeArgs& a, const FarFieldSet& s, std::size_t fi, Ludwig3Reference ref,
-                const PolarisationState& p) {
+                const PolarisationState& p, const Phases& ph) {
     const Available v = available(s, p);
     JsonWriter j;
     j.begin_object();
@@ -69,6 +91,10 @@ void print_json(const ProbeArgs& a, const FarFieldSet& s, std::size_t fi, Ludwig
     if (v.ph && p.sense != Sense::none) j.value(p.tilt_deg); else j.null();  // NaN (near circular): null
     j.key("sense");
     if (v.sense) j.value(v.sense); else j.null();
+    // The phase of each component, deg in (-180, 180], null where undefined (no field, no phase in the data).
+    for (Component c : all_components)
+        if (has_phase(c)) j.field(std::string(to_string(c)) + "_phase_deg", phase_or_null(ph[c]));
+    phase_reference_json(j, s, fi);
     j.key("stokes").begin_array();
     j.value(p.stokes.i);
     if (v.parts) j.value(p.stokes.q); else j.null();
@@ -79,25 +105,30 @@ void print_json(const ProbeArgs& a, const FarFieldSet& s, std::size_t fi, Ludwig
 }
 
 void print_text(const ProbeArgs& a, const FarFieldSet& s, std::size_t fi, Ludwig3Reference ref,
-                const PolarisationState& p) {
+                const PolarisationState& p, const Phases& phs) {
     const Available v = available(s, p);
     const bool ph = v.ph;
     const char* u = db_unit(s.quantity, Component::total);
     const char* uc = db_unit(s.quantity, Component::rhcp);
-    auto line = [](const char* label, const std::string& text) { std::printf("  %-22s %s\n", label, text.c_str()); };
+    // A level, and its phase beside it when the data have phase.
+    auto line = [&](const char* label, const std::string& text, Component c = Component::total) {
+        if (!ph || !has_phase(c) || text == "unavailable (needs phase)") std::printf("  %-22s %s\n", label, text.c_str());
+        else std::printf("  %-22s %-18s phase %s\n", label, text.c_str(), exports::phase_text(phs[c], "deg").c_str());
+    };
     const char* np = "unavailable (needs phase)";
     std::printf("%s at theta %g, phi %g deg, %s\n", file_path(a.file).c_str(), a.theta_deg, a.phi_deg,
                 format_frequency(s.frequencies[fi].frequency_hz).c_str());
     if (const std::string m = mounting_note(s); !m.empty()) std::printf("  %s (theta and phi in the world frame)\n", m.c_str());
     line("total", fmt(to_db(p.total), u));
     if (v.parts) {
-        line("theta (vertical)", fmt(to_db(p.theta), u));
-        line("phi (horizontal)", fmt(to_db(p.phi), u));
+        line("theta (vertical)", fmt(to_db(p.theta), u), Component::theta);
+        line("phi (horizontal)", fmt(to_db(p.phi), u), Component::phi);
     }
-    line("RHCP", ph ? fmt(to_db(p.rhcp), uc) : np);
-    line("LHCP", ph ? fmt(to_db(p.lhcp), uc) : np);
-    line(ref == Ludwig3Reference::x ? "co (Ludwig-3, x ref)" : "co (Ludwig-3, y ref)", ph ? fmt(to_db(p.co), u) : np);
-    line("cross (Ludwig-3)", ph ? fmt(to_db(p.cross), u) : np);
+    line("RHCP", ph ? fmt(to_db(p.rhcp), uc) : np, Component::rhcp);
+    line("LHCP", ph ? fmt(to_db(p.lhcp), uc) : np, Component::lhcp);
+    line(ref == Ludwig3Reference::x ? "co (Ludwig-3, x ref)" : "co (Ludwig-3, y ref)", ph ? fmt(to_db(p.co), u) : np,
+         Component::co);
+    line("cross (Ludwig-3)", ph ? fmt(to_db(p.cross), u) : np, Component::cross);
     line("axial ratio", ph ? exports::axial_ratio_text(p.sense, p.axial_ratio_db) : np);
     line("tilt", ph ? exports::tilt_text(p.tilt_deg, p.sense, "deg") : np);
     line("sense", ph ? exports::sense_text(p.sense) : np);
@@ -107,6 +138,8 @@ void print_text(const ProbeArgs& a, const FarFieldSet& s, std::size_t fi, Ludwig
     std::snprintf(buf, sizeof buf, "I %.6g, Q %.6g, U %.6g, V %.6g", p.stokes.i, clean(p.stokes.q), clean(p.stokes.u),
                   clean(p.stokes.v));
     line("Stokes (linear)", ph ? std::string(buf) : np);
+    if (ph) line("phase relative to", exports::phase_reference_text(s, fi));
+    else line("phase", std::string("none: the data are ") + to_string(s.content) + " (no phase)");
 }
 
 Registered add_probe(CLI::App& root) {
@@ -141,8 +174,9 @@ Registered add_probe(CLI::App& root) {
                 if (a->ludwig3 == "x") ref = Ludwig3Reference::x;
                 if (a->ludwig3 == "y") ref = Ludwig3Reference::y;
                 const PolarisationState p = decompose(f->e_theta, f->e_phi, a->phi_deg * deg, ref);
-                if (a->json) print_json(*a, *s, *fi, ref, p);
-                else print_text(*a, *s, *fi, ref, p);
+                const Phases ph = phases(*s, f->e_theta, f->e_phi, a->phi_deg, ref);
+                if (a->json) print_json(*a, *s, *fi, ref, p, ph);
+                else print_text(*a, *s, *fi, ref, p, ph);
                 return exit_ok;
             }};
 }

@@ -122,6 +122,12 @@ void phase_centre_json(JsonWriter& j, const FarFieldSet& s, std::size_t k, const
         j.null();
         j.field("phase_centre_reason", pc.error().message);
     }
+    phase_reference_json(j, s, k);
+}
+
+void phase_reference_json(JsonWriter& j, const FarFieldSet& s, std::size_t k) {
+    const FarField& f = s.frequencies[k];
+    const double lambda = wavelength_m(f);
     j.key("phase_reference_shift_m");
     if (norm(f.reference_shift_wl) == 0 || !(lambda > 0)) j.null();
     else vector_json(j, lambda * f.reference_shift_wl);

@@ -43,6 +43,9 @@ void mounting_json(JsonWriter& j, const FarFieldSet& s);
 // the "phase_centre" and "phase_reference_shift_m" fields of info --json. `pc` is
 // estimate_phase_centre(s, freq_index), computed by the caller (info does all frequencies at once).
 void phase_centre_json(JsonWriter& j, const FarFieldSet& s, std::size_t freq_index, const Result<PhaseCentre>& pc);
+// The "phase_reference_shift_m" field: where the phase reference was moved from the file's
+// origin (metres, world frame), null when it was not moved (or the frequency is unknown).
+void phase_reference_json(JsonWriter& j, const FarFieldSet& s, std::size_t freq_index);
 // The texts of the phase centre and of a moved reference (one wording: exports/figure_text.hpp).
 using exports::phase_centre_text;
 using exports::reference_shift_text;

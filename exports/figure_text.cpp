@@ -80,6 +80,18 @@ std::string tilt_text(double tilt_deg, Sense s, const std::string& deg) {
     return with_unit(tilt_deg, angle_decimals, deg);
 }
 
+double shown_phase_deg(double phase_deg) {
+    const double p = std::pow(10.0, angle_decimals);
+    double r = std::round(phase_deg * p) / p;
+    if (r <= -180) r += 360;
+    return r;
+}
+
+std::string phase_text(double phase_deg, const std::string& deg) {
+    if (std::isnan(phase_deg)) return "none: no field";
+    return with_unit(shown_phase_deg(phase_deg), angle_decimals, deg);
+}
+
 std::string peak_text(const PatternSummary& r, const char* unit, const std::string& deg) {
     if (r.zero_field) return "none (zero field)";
     const bool greek = deg != "deg";
@@ -243,6 +255,11 @@ std::string reference_shift_text(const FarFieldSet& s, std::size_t k) {
     if (norm(f.reference_shift_wl) == 0) return "";
     if (!(lambda > 0)) return triple(f.reference_shift_wl, wavelengths) + " wavelengths from the file's origin";
     return triple(lambda * f.reference_shift_wl, metres) + " m from the file's origin (world frame)";
+}
+
+std::string phase_reference_text(const FarFieldSet& s, std::size_t k) {
+    const std::string moved = reference_shift_text(s, k);
+    return moved.empty() ? "the file's origin" : moved;
 }
 
 }  // namespace ellipsa::exports

@@ -44,6 +44,14 @@ std::string polarisation_text(Sense s, const std::optional<double>& axial_ratio_
 // The tilt as reported: "12.3 <deg>", "undefined (near circular: axial ratio below 0.1 dB)",
 // "none (zero field)". `deg` is the degree unit: "deg" or "°".
 std::string tilt_text(double tilt_deg, Sense s, const std::string& deg);
+// A component's phase as reported (pattern/component_phase.hpp): "-45.0 <deg>", rounded once
+// into (-180, 180] (-179.96 shows as 180.0); "none: no field" where it has none (NaN).
+std::string phase_text(double phase_deg, const std::string& deg);
+// The phase to 1 decimal as shown, in (-180, 180]; NaN stays NaN.
+double shown_phase_deg(double phase_deg);
+// What every shown phase is relative to: "the file's origin", or "(0.0000, 0.0000, 0.1000) m from
+// the file's origin (world frame)" when the phase reference was moved (reference_shift_text).
+std::string phase_reference_text(const FarFieldSet& s, std::size_t freq_index);
 
 // The peak of a summary: "5.16 dBi at theta 90.0, phi 0.0 deg" (`deg` "deg") or with Greek
 // letters and degree signs (`deg` "°"); "none (zero field)" when every sample is zero. A peak at a
