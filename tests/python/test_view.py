@@ -153,3 +153,31 @@ def test_views_one_after_another_in_one_session(tmp_path, exe):
         assert r.returncode == 0, f"run {run}: exit {r.returncode}: {r.stderr[-2000:]}"
         assert (out / "a.png").stat().st_size > 0 and (out / "b.png").stat().st_size > 0
         assert (out / "c.png").read_bytes() == (tmp_path / "cli.png").read_bytes()
+
+
+def test_views_from_two_threads_at_once(tmp_path):
+    # write_view releases the interpreter's lock while it draws; views drawn in two threads at
+    # once take turns at the renderer (viewer::snapshot_turn: ImGui has one current context a
+    # process), so each is the view drawn alone.
+    import threading
+    p = ellipsa.read(str(TURNSTILE))
+    p.write_view(str(tmp_path / "alone.png"), size_px=(160, 120), color_by="axial-ratio")
+    failures = []
+
+    def draw(n):
+        try:
+            for k in range(3):
+                p.write_view(str(tmp_path / f"t{n}-{k}.png"), size_px=(160, 120), color_by="axial-ratio")
+        except Exception as e:  # noqa: BLE001 (reported below)
+            failures.append(e)
+
+    threads = [threading.Thread(target=draw, args=(n,)) for n in range(2)]
+    for t in threads:
+        t.start()
+    for t in threads:
+        t.join()
+    assert not failures
+    alone = (tmp_path / "alone.png").read_bytes()
+    for n in range(2):
+        for k in range(3):
+            assert (tmp_path / f"t{n}-{k}.png").read_bytes() == alone
