@@ -2,6 +2,7 @@
 // stages: layout (csv_layout.hpp: metadata, delimiter, header, column map, family, settings),
 // pass 1 (csv_passes.hpp: angle and frequency cells), plan and size the grid, allocate, pass 2
 // (every cell into place), seam, poles, completeness (csv_grid.hpp).
+#include <algorithm>
 #include <cstring>
 #include <optional>
 #include <thread>
@@ -132,8 +133,23 @@ std::optional<Result<FarFieldSet>> one_pass_read(Context& ctx, const Layout& L, 
     return finish(std::move(s), seen, chunks, L, src, file, o);
 }
 
-// The stages in order; any refusal ends the read with nothing partial returned.
-Result<FarFieldSet> read_stages_once(const TextSource& src, const std::string& file, const CsvReadOptions& o) {
+// The progress the caller sees when the file is read again (a one pass whose guess was not
+// confirmed, a refusal settled with one worker): the next read reports over the rest of the way
+// from where the one before left it, instead of going back to 0.
+struct ProgressSpan {
+    const std::function<bool(double)>& to;
+    double from = 0, reached = 0;
+    bool operator()(double f) {
+        reached = std::max(reached, from + (1 - from) * f);
+        return to(reached);
+    }
+    void again() { from = reached; }
+};
+
+// The stages in order; any refusal ends the read with nothing partial returned. o.progress is
+// `span` when there is one.
+Result<FarFieldSet> read_stages_once(const TextSource& src, const std::string& file, const CsvReadOptions& o,
+                                     ProgressSpan* span) {
     auto layout = read_layout(src, file, o);
     if (!layout) return layout.error();
     const Layout& L = *layout;
@@ -142,6 +158,7 @@ Result<FarFieldSet> read_stages_once(const TextSource& src, const std::string& f
     ctx.L = &L;
     ctx.options = &o;
     if (auto one = one_pass_read(ctx, L, src, file, o)) return std::move(*one);
+    if (span) span->again();
     ctx.stop = false;
     std::vector<Chunk> chunks = split(src, L.data_offset, worker_count(o, src.size() - L.data_offset));
 
@@ -179,11 +196,18 @@ Result<FarFieldSet> read_stages_once(const TextSource& src, const std::string& f
 // finding in the file's order, the same on every run. Refusals cost the second read; a read
 // that succeeds, is cancelled or fails on the system's side (no line) is not repeated.
 Result<FarFieldSet> read_stages(const TextSource& src, const std::string& file, const CsvReadOptions& o) {
-    auto r = read_stages_once(src, file, o);
+    std::optional<ProgressSpan> span;
+    CsvReadOptions mine = o;
+    if (o.progress) {
+        span.emplace(ProgressSpan{o.progress});
+        mine.progress = [&](double f) { return (*span)(f); };
+    }
+    ProgressSpan* const s = span ? &*span : nullptr;
+    auto r = read_stages_once(src, file, mine, s);
     if (r || r.error().line == 0 || worker_count(o, src.size()) < 2) return r;
-    CsvReadOptions one = o;
-    one.threads = 1;
-    return read_stages_once(src, file, one);
+    if (s) s->again();
+    mine.threads = 1;
+    return read_stages_once(src, file, mine, s);
 }
 
 }  // namespace

@@ -194,3 +194,34 @@ TEST_CASE("two workers give the refusal one worker gives: the first finding in t
     }
     csv::one_pass_min_bytes = std::size_t(8) << 20;
 }
+
+TEST_CASE("one pass on a guessed grid: progress goes on across a guess that fails, never back", "[csv][one-pass]") {
+    // A frequency met only between the samples: the one pass reads every row, the guess is not
+    // confirmed, and two passes read the file again. The progress the caller sees must never go
+    // back (it went back to 0 when the two passes began) and must still move during them.
+    // Common practice for a progress report.
+    std::string s = grid_file(3, 2, 0, 2, 180);
+    const double mid = between_samples(s, 20);
+    s = replaced(s, mid, "2.415" + text_of(s, mid).substr(4));
+    for (int threads : {1, 2}) {
+        std::vector<double> seen;
+        CsvReadOptions o;
+        o.threads = threads;
+        o.progress = [&](double f) {
+            seen.push_back(f);
+            return true;
+        };
+        csv::one_pass_min_bytes = 0;
+        const std::size_t before = csv::one_pass_reads;
+        const auto r = parse_far_field_csv(s, "f.csv", o);
+        csv::one_pass_min_bytes = std::size_t(8) << 20;
+        INFO("threads " << threads);
+        CHECK(csv::one_pass_reads == before);  // the guess failed: two passes read the file
+        CHECK_FALSE(r.ok());                   // (the new frequency lacks most of its points)
+        REQUIRE(seen.size() > 4);
+        for (std::size_t i = 1; i < seen.size(); ++i) CHECK(seen[i] >= seen[i - 1]);
+        const double at_fallback = seen[seen.size() / 3];
+        CHECK(seen.back() > at_fallback);
+        CHECK(seen.back() <= 1.0);
+    }
+}
