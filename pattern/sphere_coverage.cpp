@@ -108,9 +108,11 @@ bool unclipped(const Stretch s[2]) {
 // definition; where a row and a column are both unclipped (the interior of the grid, and every
 // column of a wrapping one) and the values moderate, a fast path gives the same calls, bit for
 // bit (tests/unit/test_sphere_coverage.cpp compares the two). general_only: the definition alone.
-template <class Add>
+// skip_row(i): true when no quarter of row i could matter to add (its samples still count in
+// the sampled solid angle returned).
+template <class Add, class SkipRow = bool (*)(int)>
 double for_each_quarter(const Grid& g, const std::vector<double>& values, double t_lo, double t_hi, Add add,
-                        bool general_only = false) {
+                        bool general_only = false, SkipRow skip_row = [](int) { return false; }) {
     // The cells of pattern/integrate, clipped to the sampled range and to the band, in halves.
     const double dt = g.theta.step_deg * deg, dp = g.phi.step_deg * deg;
     const double lo_t = std::max({0.0, g.theta.start_deg * deg, t_lo}), hi_t = std::min({pi, g.theta.last_deg() * deg, t_hi});
@@ -144,6 +146,10 @@ double for_each_quarter(const Grid& g, const std::vector<double>& values, double
         const bool row_fast = fast && unclipped(th) && i > 0 && i + 1 < nt;
         const double* r = values.data() + g.index(i, 0);
         const double* const rt[2] = {row_fast ? r - np : r, row_fast ? r + np : r};
+        if (skip_row(i)) {
+            for (int j = 0; j < np; ++j) sampled += (th[0].measure + th[1].measure) * (ph[j][0].measure + ph[j][1].measure);
+            continue;
+        }
         for (int j = 0; j < np; ++j) {
             sampled += (th[0].measure + th[1].measure) * (ph[j][0].measure + ph[j][1].measure);
             const double v = r[j];
@@ -212,13 +218,54 @@ CoverageCurve coverage_curve(const Grid& g, const std::vector<double>& values, E
     return c;
 }
 
-double solid_angle_at_or_above(const Grid& g, const std::vector<double>& values, double level, ElevationBand band) {
+namespace {
+// For each row, whether every quarter cell of its samples lies below `level` (> 0), so that it
+// adds exactly nothing to solid_angle_at_or_above. A quarter's interpolant is a weighted mean
+// of values of its own row and the rows beside it (a missing neighbour stands in as the
+// sample's own, a missing corner as a sum whose mean with the rest stays within them), so it
+// stays at most the largest of those values, up to rounding of a few units in the last place
+// of the largest size among them: 1e-9 of that size is margin enough.
+std::vector<unsigned char> rows_below(const Grid& g, const std::vector<double>& values, double level) {
+    const int nt = g.theta.count, np = g.phi.count;
+    std::vector<unsigned char> below(std::size_t(std::max(nt, 0)), 0);
+    if (!(level > 0) || np <= 0) return below;
+    std::vector<double> top(below.size(), -INFINITY), size(below.size(), 0.0);
+    for (int i = 0; i < nt; ++i) {
+        const double* r = values.data() + g.index(i, 0);
+        double t = -INFINITY, a = 0;
+        for (int j = 0; j < np; ++j) {
+            const double x = r[j];
+            if (std::isnan(x)) continue;
+            t = std::max(t, x);
+            a = std::max(a, std::abs(x));
+        }
+        top[std::size_t(i)] = t, size[std::size_t(i)] = a;
+    }
+    for (int i = 0; i < nt; ++i) {
+        double t = -INFINITY, a = 0;
+        for (int k = std::max(i - 1, 0); k <= std::min(i + 1, nt - 1); ++k)
+            t = std::max(t, top[std::size_t(k)]), a = std::max(a, size[std::size_t(k)]);
+        below[std::size_t(i)] = t + 1e-9 * a < level;
+    }
+    return below;
+}
+}  // namespace
+
+double solid_angle_at_or_above(const Grid& g, const std::vector<double>& values, double level, ElevationBand band,
+                               bool every_row) {
     const auto [t_lo, t_hi] = band_theta(band);
     double sum = 0;
-    for_each_quarter(g, values, t_lo, t_hi, [&](double lo, double hi, double w) {
-        if (hi > lo) sum += w * std::clamp((hi - level) / (hi - lo), 0.0, 1.0);
-        else if (hi >= level) sum += w;
-    });
+    // A quarter entirely below the level adds +0 to a sum that is +0 or positive: rows of such
+    // quarters alone are passed over (the same sum bit for bit).
+    const std::vector<unsigned char> below = every_row ? std::vector<unsigned char>() : rows_below(g, values, level);
+    auto skip = [&](int i) { return !below.empty() && below[std::size_t(i)] != 0; };
+    for_each_quarter(
+        g, values, t_lo, t_hi,
+        [&](double lo, double hi, double w) {
+            if (hi > lo) sum += w * std::clamp((hi - level) / (hi - lo), 0.0, 1.0);
+            else if (hi >= level) sum += w;
+        },
+        false, skip);
     return sum;
 }
 

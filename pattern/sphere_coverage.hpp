@@ -57,7 +57,10 @@ double share_at_or_above(const CoverageCurve& c, double level_db);
 // Solid angle (sr) of the band where the value is at least `level` (linear, the values' own
 // unit), by the same quarter-cell model, without the curve: one pass over the grid, no sort.
 // For one level of any quantity that is smooth between samples (ar_solid_angle uses it for |V|/I).
-double solid_angle_at_or_above(const Grid& g, const std::vector<double>& values, double level, ElevationBand band = {});
+// Rows whose quarters all lie below a positive level (with their neighbour rows' values) are
+// passed over, which changes no bit of the sum; every_row: visit every row (for tests).
+double solid_angle_at_or_above(const Grid& g, const std::vector<double>& values, double level, ElevationBand band = {},
+                               bool every_row = false);
 
 // One quarter cell of the model above: the range of values its interpolant spans and its solid angle.
 struct QuarterCell {
