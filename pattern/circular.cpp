@@ -92,8 +92,20 @@ ArBeamwidth ar_beamwidth(const FarFieldSet& s, const CutSamples& c, int k0, doub
 
 ArBeamwidth ar_beamwidth_through(const FarFieldSet& s, std::size_t fi, double theta_deg, double phi_deg, bool along_phi,
                                  double threshold_db) {
-    const CutSamples c = sample_cut(s, fi, CutSpec::through(theta_deg, phi_deg, along_phi), default_cut_step(s.grid));
-    return ar_beamwidth(s, c, nearest_cut_sample(c, direction(theta_deg * deg, phi_deg * deg)), threshold_db);
+    // ar_beamwidth decides on the chosen sample alone when the polarisation is unavailable, or
+    // the sample lies outside the data, has a zero field or an axial ratio above the threshold:
+    // then only that sample is interpolated (the rest, left invalid, are not read). Otherwise
+    // the whole cut, as sample_cut gives it.
+    CutSamples c = cut_positions(CutSpec::through(theta_deg, phi_deg, along_phi), default_cut_step(s.grid));
+    const int k0 = nearest_cut_sample(c, direction(theta_deg * deg, phi_deg * deg));
+    if (polarisation_unavailable(s) || k0 < 0) return ar_beamwidth(s, c, k0, threshold_db);
+    sample_cut_at(s, fi, c, std::size_t(k0));
+    const std::size_t at = std::size_t(k0);
+    if (!c.valid[at] || !(circularity(c.e_theta[at], c.e_phi[at]) >= circularity_at_ar_db(threshold_db)))
+        return ar_beamwidth(s, c, k0, threshold_db);
+    for (std::size_t k = 0; k < c.angle_deg.size(); ++k)
+        if (k != at) sample_cut_at(s, fi, c, k);
+    return ar_beamwidth(s, c, k0, threshold_db);
 }
 
 std::optional<ArSolidAngle> ar_solid_angle(const FarFieldSet& s, std::size_t fi, double threshold_db) {

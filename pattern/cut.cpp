@@ -91,7 +91,7 @@ double default_cut_step(const Grid& g) {
     return std::max(s, 0.05);
 }
 
-CutSamples sample_cut(const FarFieldSet& s, std::size_t fi, const CutSpec& spec, double step_deg) {
+CutSamples cut_positions(const CutSpec& spec, double step_deg) {
     int n = int(std::lround(360.0 / std::max(step_deg, 1e-3)));
     if (n < 8) n = 8;
     if (n % 2) ++n;
@@ -134,13 +134,22 @@ CutSamples sample_cut(const FarFieldSet& s, std::size_t fi, const CutSpec& spec,
         c.angle_deg[k_] = a;
         c.theta_deg[k_] = t_deg;
         c.phi_deg[k_] = p_deg;
-        auto f = interpolate(s, fi, t_deg, p_deg);
-        c.valid[k_] = f.has_value();
-        if (f) {
-            c.e_theta[k_] = f->e_theta;
-            c.e_phi[k_] = f->e_phi;
-        }
     }
+    return c;
+}
+
+void sample_cut_at(const FarFieldSet& s, std::size_t fi, CutSamples& c, std::size_t k) {
+    auto f = interpolate(s, fi, c.theta_deg[k], c.phi_deg[k]);
+    c.valid[k] = f.has_value();
+    if (f) {
+        c.e_theta[k] = f->e_theta;
+        c.e_phi[k] = f->e_phi;
+    }
+}
+
+CutSamples sample_cut(const FarFieldSet& s, std::size_t fi, const CutSpec& spec, double step_deg) {
+    CutSamples c = cut_positions(spec, step_deg);
+    for (std::size_t k = 0; k < c.angle_deg.size(); ++k) sample_cut_at(s, fi, c, k);
     return c;
 }
 

@@ -57,6 +57,10 @@ struct CutSamples {
 
 // Sample a cut; step_deg is rounded so that 360 / step is a whole even number.
 CutSamples sample_cut(const FarFieldSet& s, std::size_t freq_index, const CutSpec& spec, double step_deg);
+// sample_cut in two parts: the cut's angles and directions alone (every sample invalid, no
+// field yet), then the field at one sample k; every k filled gives sample_cut's samples.
+CutSamples cut_positions(const CutSpec& spec, double step_deg);
+void sample_cut_at(const FarFieldSet& s, std::size_t freq_index, CutSamples& c, std::size_t k);
 // Index of the cut sample nearest to a direction (largest dot product); -1 for an empty cut.
 int nearest_cut_sample(const CutSamples& c, Vec3 dir);
 // A step that resolves the grid (a quarter of its finer step, at least 0.05 deg).

@@ -4,6 +4,7 @@
 #include <cmath>
 
 #include "pattern/circular.hpp"
+#include "pattern/cut.hpp"
 #include "pattern/reference.hpp"
 #include "pattern/summary.hpp"
 
@@ -109,4 +110,44 @@ TEST_CASE("turnstile: the solid angle where AR <= threshold is two caps, 4 pi (1
     FarFieldSet m = s;
     m.content = FieldContent::magnitude_only;
     CHECK(!ar_solid_angle(m, 0));
+}
+
+TEST_CASE("AR beamwidth through a direction: the same figures as on the whole cut", "[circular]") {
+    // Reference: ar_beamwidth on the whole cut as sample_cut gives it (pattern/circular.hpp, the
+    // definition). ar_beamwidth_through interpolates only the chosen sample when that sample
+    // decides the answer (outside the data, zero field, AR above the threshold); every answer
+    // must be the same, bit for bit, as the definition's.
+    auto same = [](const ArBeamwidth& a, const ArBeamwidth& b) {
+        auto eq = [](const std::optional<double>& x, const std::optional<double>& y) { return x.has_value() == y.has_value() && (!x || *x == *y); };
+        return eq(a.width_deg, b.width_deg) && eq(a.left_deg, b.left_deg) && eq(a.right_deg, b.right_deg) &&
+               a.unavailable_reason == b.unavailable_reason;
+    };
+    ReferenceAntenna tilted;
+    tilted.kind = ReferenceKind::crossed_dipoles;
+    tilted.phase_deg = -60;
+    tilted.orientation = rotation_axis(normalized(Vec3{0.3, 1, 0.2}), 35 * deg);
+    ReferenceAntenna dipole;
+    FarFieldSet partial = synthesize(tilted, 3.0, 2e9);  // only theta <= 60 deg sampled: cuts leave the data
+    Grid g = partial.grid;
+    g.theta = {0, 3, 21};
+    partial = synthesize_on(tilted, g, 2e9);
+    const FarFieldSet sets[] = {turnstile(2.0), synthesize(tilted, 2.5, 2e9), synthesize(dipole, 2.0, 1e9), partial};
+    int decided_early = 0, whole = 0;
+    for (const FarFieldSet& s : sets)
+        for (const double t : {0.0, 20.0, 47.5, 90.0, 133.0, 180.0})
+            for (const double p : {0.0, 41.0, 270.0})
+                for (const bool along : {false, true})
+                    for (const double thr : {3.0, 10.0}) {
+                        const CutSamples c = sample_cut(s, 0, CutSpec::through(t, p, along), default_cut_step(s.grid));
+                        const ArBeamwidth def = ar_beamwidth(s, c, nearest_cut_sample(c, direction(t * deg, p * deg)), thr);
+                        const ArBeamwidth fast = ar_beamwidth_through(s, 0, t, p, along, thr);
+                        INFO("theta " << t << " phi " << p << " along_phi " << along << " threshold " << thr << ": " << def.unavailable_reason);
+                        CHECK(same(def, fast));
+                        (def.width_deg || def.unavailable_reason.find("along the cut") != std::string::npos ||
+                                 def.unavailable_reason.find("leaves") != std::string::npos
+                             ? whole
+                             : decided_early)++;
+                    }
+    CHECK(decided_early > 20);  // both kinds of answer were compared
+    CHECK(whole > 20);
 }
