@@ -1,6 +1,7 @@
 #include "pattern/phase_centre.hpp"
 
 #include <algorithm>
+#include <atomic>
 #include <cmath>
 #include <cstdint>
 #include <cstring>
@@ -119,7 +120,7 @@ double wrap_pi(double a) { return a - 2 * pi * round_half_away(a / (2 * pi)); }
 // grid first: the walk then reads 16 bytes a sample (power and phase) in the order it finds
 // them, instead of the 16-byte complex value and an atan2 waiting on it.
 void unwrap_region(const Grid& g, const std::vector<cplx>& co, std::vector<double>& power, std::vector<double>& psi,
-                   std::vector<unsigned char>& in_region) {
+                   std::vector<unsigned char>& in_region, PowerQueue& heap) {
     power.resize(co.size());
     std::size_t peak = 0;
     for (std::size_t k = 0; k < co.size(); ++k) {
@@ -134,7 +135,7 @@ void unwrap_region(const Grid& g, const std::vector<cplx>& co, std::vector<doubl
         if (power[k] >= floor) psi[k] = std::arg(co[k]);
     const int nt = g.theta.count, np = g.phi.count;
     const bool wraps = g.phi_wraps();
-    PowerQueue heap(floor, power[peak]);
+    heap.reset(floor, power[peak]);
     in_region[peak] = 1;
     heap.push({power[peak], std::uint32_t(peak / std::size_t(np)), std::uint32_t(peak % std::size_t(np))});
     while (!heap.empty()) {
@@ -193,37 +194,40 @@ void eigen_symmetric(double a[3][3], double w[3], double v[3][3]) {
 }
 
 // Weighted least squares psi ~ psi0 + a . r over the region, centred on the weighted mean
-// direction so that psi0 and a separate; a = 2 pi d / lambda.
+// direction so that psi0 and a separate; a = 2 pi d / lambda. Every sum runs over the region's
+// samples in index order (row by row).
 PhaseCentre fit_linear_phase(const Grid& g, const GridTrig& tr, const std::vector<double>& power, const std::vector<double>& psi,
                              const std::vector<unsigned char>& in_region) {
     const CellWeights cw = cell_weights(g);
-    const int np = g.phi.count;
-    std::vector<std::pair<std::size_t, double>> pts;  // (sample, weight)
+    const int nt = g.theta.count, np = g.phi.count;
+    auto each = [&](auto&& f) {  // f(sample, its direction, its weight) over the region
+        for (int i = 0; i < nt; ++i)
+            for (int j = 0; j < np; ++j) {
+                const std::size_t k = g.index(i, j);
+                if (in_region[k]) f(k, tr.dir(i, j), power[k] * cw.theta[std::size_t(i)] * cw.phi[std::size_t(j)]);
+            }
+    };
     double sw = 0, spsi = 0;
     Vec3 sr{};
-    for (std::size_t k = 0; k < power.size(); ++k) {
-        if (!in_region[k]) continue;
-        const double w = power[k] * cw.theta[k / std::size_t(np)] * cw.phi[k % std::size_t(np)];
-        pts.emplace_back(k, w);
+    PhaseCentre out;
+    each([&](std::size_t k, const Vec3& r, double w) {
+        ++out.samples;
         sw += w;
         spsi += w * psi[k];
-    }
-    PhaseCentre out;
-    out.samples = pts.size();
+        sr = sr + w * r;
+    });
     if (!(sw > 0)) return out;
-    auto dir = [&](std::size_t k) { return tr.dir(int(k / std::size_t(np)), int(k % std::size_t(np))); };
-    for (auto [k, w] : pts) sr = sr + w * dir(k);
     const Vec3 rm = (1 / sw) * sr;
     const double pm = spsi / sw;
     double c[3][3] = {}, b[3] = {};
-    for (auto [k, w] : pts) {
-        const Vec3 d = dir(k) - rm;
+    each([&](std::size_t k, const Vec3& r, double w) {
+        const Vec3 d = r - rm;
         const double x[3] = {d.x, d.y, d.z};
-        for (int i = 0; i < 3; ++i) {
-            b[i] += w * x[i] * (psi[k] - pm);
-            for (int j = 0; j < 3; ++j) c[i][j] += w * x[i] * x[j];
+        for (int u = 0; u < 3; ++u) {
+            b[u] += w * x[u] * (psi[k] - pm);
+            for (int v = 0; v < 3; ++v) c[u][v] += w * x[u] * x[v];
         }
-    }
+    });
     double ev[3], v[3][3];
     eigen_symmetric(c, ev, v);
     const double top = std::max({ev[0], ev[1], ev[2]});
@@ -239,10 +243,10 @@ PhaseCentre fit_linear_phase(const Grid& g, const GridTrig& tr, const std::vecto
     const Vec3 av{a[0], a[1], a[2]};
     const double psi0 = pm - dot(av, rm);
     double ss = 0;
-    for (auto [k, w] : pts) {
-        const double r = psi[k] - psi0 - dot(av, dir(k));
-        ss += w * r * r;
-    }
+    each([&](std::size_t k, const Vec3& r, double w) {
+        const double e = psi[k] - psi0 - dot(av, r);
+        ss += w * e * e;
+    });
     out.centre_wl = (1 / (2 * pi)) * av;
     out.constant_deg = wrap_pi(psi0) / deg;
     out.residual_deg = std::sqrt(ss / sw) / deg;
@@ -336,32 +340,43 @@ void remember(const Fingerprint& key, const Result<PhaseCentre>& r) {
     m.items.emplace_back(key, r);
 }
 
-Result<PhaseCentre> estimate_afresh(const Grid& g, const FarField& f) {
-    const GridTrig tr(g);
+// The arrays of one estimate, kept by a caller that makes several in turn (set_interpolation_centres:
+// one for each of its threads) so that the next estimate finds them allocated.
+struct EstimateScratch {
     std::vector<cplx> co;
-    copolar_field(g, tr, f, co);
     std::vector<double> power, psi;
     std::vector<unsigned char> in_region;
-    unwrap_region(g, co, power, psi, in_region);
-    PhaseCentre pc = fit_linear_phase(g, tr, power, psi, in_region);
+    PowerQueue queue;
+};
+
+Result<PhaseCentre> estimate_afresh(const Grid& g, const FarField& f, EstimateScratch& w) {
+    const GridTrig tr(g);
+    copolar_field(g, tr, f, w.co);
+    unwrap_region(g, w.co, w.power, w.psi, w.in_region, w.queue);
+    PhaseCentre pc = fit_linear_phase(g, tr, w.power, w.psi, w.in_region);
     if (pc.samples < 4)
         return Error{"", 0, 0, "the main beam holds fewer than 4 samples (or the field is zero): too few to fit a phase centre"};
     if (pc.unresolved_axes == 3) return Error{"", 0, 0, "the main beam's samples do not resolve any direction"};
     return pc;
 }
 
-}  // namespace
-
-Result<PhaseCentre> estimate_phase_centre(const FarFieldSet& s, std::size_t fi) {
+Result<PhaseCentre> estimate_with(const FarFieldSet& s, std::size_t fi, EstimateScratch& scratch) {
     if (!s.has_phase())
         return Error{"", 0, 0, std::string("the phase centre needs the phase of the field; the data are ") +
                                    to_string(s.content)};
     if (fi >= s.frequencies.size() || s.grid.size() == 0) return Error{"", 0, 0, "no samples at this frequency"};
     const Fingerprint key = fingerprint(s.grid, s.frequencies[fi]);
     if (auto r = remembered(key)) return *r;
-    Result<PhaseCentre> r = estimate_afresh(s.grid, s.frequencies[fi]);
+    Result<PhaseCentre> r = estimate_afresh(s.grid, s.frequencies[fi], scratch);
     remember(key, r);
     return r;
+}
+
+}  // namespace
+
+Result<PhaseCentre> estimate_phase_centre(const FarFieldSet& s, std::size_t fi) {
+    EstimateScratch scratch;
+    return estimate_with(s, fi, scratch);
 }
 
 void move_phase_reference(const Grid& g, FarField& f, Vec3 c_wl) {
@@ -380,10 +395,17 @@ void move_phase_reference(const Grid& g, FarField& f, Vec3 c_wl) {
 
 void set_interpolation_centres(FarFieldSet& s) {
     if (!s.has_phase()) return;
-    // One frequency a task: each estimate reads only its own frequency and writes only its own centre.
-    parallel_each(s.frequencies.size(), [&s](std::size_t k) {
-        auto pc = estimate_phase_centre(s, k);
-        s.frequencies[k].interpolation_centre_wl = pc ? pc->centre_wl : Vec3{};
+    // One frequency a task: each estimate reads only its own frequency and writes only its own
+    // centre. Each thread takes the next frequency in turn and keeps its arrays from one to the next.
+    const std::size_t n = s.frequencies.size(), threads = std::min(parallel_threads(), n);
+    std::atomic<std::size_t> next{0};
+    parallel_blocks(threads, 1, [&](std::size_t a, std::size_t b) {
+        EstimateScratch scratch;
+        for (std::size_t t = a; t < b; ++t)  // one block of one thread each
+            for (std::size_t k = next++; k < n; k = next++) {
+                auto pc = estimate_with(s, k, scratch);
+                s.frequencies[k].interpolation_centre_wl = pc ? pc->centre_wl : Vec3{};
+            }
     });
 }
 

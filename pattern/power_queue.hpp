@@ -23,10 +23,17 @@ public:
         double power;
         std::uint32_t i, j;
     };
-    PowerQueue(double floor, double peak) : base_(key(floor)) {
+    PowerQueue() = default;
+    PowerQueue(double floor, double peak) { reset(floor, peak); }
+    // Empty, for the range floor..peak. The buckets keep the room they had (a queue used again
+    // for the next walk allocates little); a queue still holding entries drops them.
+    void reset(double floor, double peak) {
+        base_ = key(floor);
         const std::uint64_t span = key(peak) >= base_ ? key(peak) - base_ + 1 : 1;
+        for (std::vector<Entry>& h : buckets_) h.clear();
         buckets_.resize(std::size_t(std::min<std::uint64_t>(span, 1u << 16)));
         used_.assign((buckets_.size() + 63) / 64, 0);
+        top_word_ = 0, count_ = 0;
     }
     bool empty() const { return count_ == 0; }
     void push(Entry e) {
@@ -67,7 +74,7 @@ private:
             return x.power < y.power || (x.power == y.power && (x.i < y.i || (x.i == y.i && x.j < y.j)));
         }
     };
-    std::uint64_t base_;
+    std::uint64_t base_ = 0;
     std::vector<std::vector<Entry>> buckets_;
     std::vector<std::uint64_t> used_;
     std::size_t top_word_ = 0, count_ = 0;

@@ -17,10 +17,15 @@ TEST_CASE("PowerQueue pops in std::priority_queue's order, ties to the higher in
     // and pops interleave as in the walk; the powers come with exact ties, values at the floor and
     // at the peak, values packed into one bucket and, beyond the stated range, ones that must
     // fall into the end buckets and still come out in order.
+    // One queue serves every seed in turn, reset for each (as the phase centre's estimates reuse
+    // one a thread), with entries of another range left in it before the reset on some seeds.
     const int columns = 37;
-    for (unsigned seed : {1u, 2u, 3u, 4u}) {
-        const double floor = 0.1 * seed, peak = 1.0 * seed;
-        PowerQueue q(floor, peak);
+    PowerQueue q;
+    for (unsigned seed : {1u, 2u, 3u, 4u, 5u}) {
+        const double floor = seed == 5 ? 1e-30 : 0.1 * seed, peak = seed == 5 ? 1e-27 : 1.0 * seed;
+        if (seed % 2 == 0)
+            for (std::uint32_t k = 0; k < 50; ++k) q.push({0.5 * seed + k, k, 0});
+        q.reset(floor, peak);
         std::priority_queue<std::pair<double, std::size_t>> ref;
         unsigned x = seed;
         auto next = [&] { return x = x * 1664525u + 1013904223u; };  // Numerical Recipes' LCG (value from memory)
