@@ -53,8 +53,9 @@ void write_header(const std::string& files, const std::string& path, const FarFi
 }
 
 void write_human(const std::string& files, const std::string& path, const FarFieldSet& s, const std::vector<std::size_t>& which,
-                 const std::vector<PatternSummary>& rs) {
-    const std::vector<InfoExtras> extras = info_extras(s, which, rs);
+                 const InfoFigures& f) {
+    const std::vector<PatternSummary>& rs = f.summaries;
+    const std::vector<InfoExtras>& extras = f.extras;
     const char* q = to_string(s.quantity);
     const char* u = db_unit(s.quantity, Component::total);
     write_header(files, path, s);
@@ -141,11 +142,11 @@ Registered add_info(CLI::App& root) {
                 } else {
                     for (std::size_t k = 0; k < s->frequencies.size(); ++k) which.push_back(k);
                 }
-                const std::vector<PatternSummary> rs = summarize_each(*s, which);
+                const InfoFigures figures = info_figures(*s, which);
                 if (a->json)
-                    std::cout << info_json(*s, which, rs) << "\n";
+                    std::cout << info_json(*s, which, figures) << "\n";
                 else
-                    write_human(files_read(a->file, a->load), file_path(a->file), *s, which, rs);
+                    write_human(files_read(a->file, a->load), file_path(a->file), *s, which, figures);
                 return exit_ok;
             }};
 }

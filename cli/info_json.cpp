@@ -9,12 +9,14 @@
 
 namespace ellipsa::cli {
 
-std::vector<InfoExtras> info_extras(const FarFieldSet& s, const std::vector<std::size_t>& which,
-                                    const std::vector<PatternSummary>& rs) {
-    std::vector<InfoExtras> out(which.size());
+InfoFigures info_figures(const FarFieldSet& s, const std::vector<std::size_t>& which) {
+    InfoFigures out;
+    out.summaries.resize(which.size());
+    out.extras.resize(which.size());
     parallel_each(which.size(), [&](std::size_t i) {
-        out[i].circular = circular_figures(s, which[i], rs[i]);
-        out[i].phase_centre = estimate_phase_centre(s, which[i]);
+        out.summaries[i] = summarize(s, which[i]);
+        out.extras[i].circular = circular_figures(s, which[i], out.summaries[i]);
+        out.extras[i].phase_centre = estimate_phase_centre(s, which[i]);
     });
     return out;
 }
@@ -65,7 +67,8 @@ void summary_json(JsonWriter& j, const FarFieldSet& s, std::size_t freq_index, c
     phase_centre_json(j, s, freq_index, x.phase_centre);
 }
 
-std::string info_json(const FarFieldSet& s, const std::vector<std::size_t>& which, const std::vector<PatternSummary>& rs) {
+std::string info_json(const FarFieldSet& s, const std::vector<std::size_t>& which, const InfoFigures& f) {
+    const std::vector<PatternSummary>& rs = f.summaries;
     JsonWriter j;
     j.begin_object();
     j.field("name", s.name).field("source", s.source);
@@ -83,10 +86,9 @@ std::string info_json(const FarFieldSet& s, const std::vector<std::size_t>& whic
     j.end_object();
     mounting_json(j, s);
     j.key("results").begin_array();
-    const std::vector<InfoExtras> extras = info_extras(s, which, rs);
     for (std::size_t k = 0; k < rs.size(); ++k) {
         j.begin_object();
-        summary_json(j, s, which[k], rs[k], extras[k]);
+        summary_json(j, s, which[k], rs[k], f.extras[k]);
         j.end_object();
     }
     j.end_array();

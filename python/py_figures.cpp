@@ -26,7 +26,7 @@ py::dict info(const Pattern& p, std::optional<double> frequency_hz) {
     std::string text;
     {
         py::gil_scoped_release unlocked;
-        text = cli::info_json(p.set, which, summarize_each(p.set, which));  // as `ellipsa info` does
+        text = cli::info_json(p.set, which, cli::info_figures(p.set, which));  // as `ellipsa info` does
     }
     return py::module_::import("json").attr("loads")(text);
 }
@@ -38,8 +38,8 @@ py::dict summary(const Pattern& p, int index, std::optional<double> frequency_hz
         py::gil_scoped_release unlocked;
         cli::JsonWriter j;
         j.begin_object();
-        const std::vector<PatternSummary> rs{summarize(p.set, fi)};
-        cli::summary_json(j, p.set, fi, rs[0], cli::info_extras(p.set, {fi}, rs)[0]);
+        const cli::InfoFigures f = cli::info_figures(p.set, {fi});
+        cli::summary_json(j, p.set, fi, f.summaries[0], f.extras[0]);
         j.end_object();
         text = j.str();
     }
