@@ -15,6 +15,7 @@
 #include "exports/cut_figure.hpp"
 #include "exports/figure_text.hpp"
 #include "exports/render.hpp"
+#include "pattern/component_phase.hpp"
 #include "pattern/peak.hpp"
 #include "pattern/summary.hpp"
 
@@ -30,6 +31,8 @@ struct CutArgs {
     bool through_peak = false;
     std::string components = "total";
     std::string style = "polar";
+    bool style_given = false;
+    bool phase = false;
     std::optional<double> frequency_hz;
     double range_db = 40;
     std::string title;
@@ -66,6 +69,8 @@ int run_cut(const CutArgs& a) {
     if (!format) return fail(exit_usage, "--out " + a.out + ": expected a file name ending in .svg, .png, .pdf or .csv");
     PlotStyle style;
     if (!parse_plot_style(a.style, style)) return fail(exit_usage, "--style: expected polar or rect, found \"" + a.style + "\"");
+    if (a.phase && a.style_given && style == PlotStyle::polar)
+        return fail(exit_usage, "--phase plots on a rectangular grid (a phase has no radius); leave out --style polar or use --style rect");
     auto size = parse_size(a.size, a.dpi);
     if (!size) return fail(exit_usage, size.error().format());
     auto comps = parse_component_list(a.components);
@@ -80,7 +85,7 @@ int run_cut(const CutArgs& a) {
     auto fi = pick_frequency(*s, a.frequency_hz, path);
     if (!fi) return fail(exit_bad_input, fi.error().format());
     for (Component c : *comps)
-        if (auto why = component_unavailable(*s, c)) return fail(exit_bad_input, path + ": " + *why);
+        if (auto why = a.phase ? phase_unavailable(*s, c) : component_unavailable(*s, c)) return fail(exit_bad_input, path + ": " + *why);
 
     CutSpec spec;
     if (a.phi_deg) {
@@ -102,11 +107,13 @@ int run_cut(const CutArgs& a) {
     req.figure.title = a.title;
     req.size = *size;
     req.step_deg = a.step_deg.value_or(0);
+    req.phase = a.phase;
     auto cut = export_cut(*s, *fi, req, a.out, a.force);
     if (!cut) return fail(exit_bad_input, cut.error().file.empty() ? path + ": " + cut.error().message : cut.error().format());
 
     std::cout << "wrote " << a.out << ": " << spec.label() << ", " << format_frequency(s->frequencies[*fi].frequency_hz) << "\n";
     if (const std::string m = mounting_note(*s); !m.empty()) std::cout << "  " << m << " (the cut is in the world frame)\n";
+    if (a.phase) std::cout << "  phase relative to " << phase_reference_text(*s, *fi) << "\n";
     for (std::size_t i = 0; i < cut->components.size(); ++i) std::cout << "  " << beam_line(*s, spec, *cut, i) << "\n";
     return exit_ok;
 }
@@ -125,7 +132,12 @@ Registered add_cut(CLI::App& root) {
     o_theta->excludes(o_peak);
     sub->add_option("--components", a->components,
                     "Comma-separated: total, theta, phi, vertical, horizontal, co, cross, rhcp, lhcp (default total)");
-    sub->add_option("--style", a->style, "polar (default) or rect")->check(one_of({"polar", "rect"}));
+    sub->add_option("--style", a->style, "polar (default) or rect")
+        ->check(one_of({"polar", "rect"}))
+        ->each([a](const std::string&) { a->style_given = true; });
+    sub->add_flag("--phase", a->phase,
+                  "Plot the phase of each component (deg, -180..180, rect) instead of its gain; a .csv gets a phase column "
+                  "after each gain column. Relative to the phase reference (--phase-centre moves it); not for total");
     add_frequency_option(sub, a->frequency_hz, "Frequency (nearest within 0.5 %; default the middle one of the file)");
     sub->add_option("--range", a->range_db, "Dynamic range shown below the top of the scale, dB (default 40)")
         ->check(number_from_to(3.0, 200.0));

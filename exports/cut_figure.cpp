@@ -58,9 +58,12 @@ std::string lower(std::string s) {
 }
 }  // namespace
 
-std::string cut_csv(const FarFieldSet& s, const CutData& c) {
+std::string cut_csv(const FarFieldSet& s, const CutData& c, const std::vector<std::vector<double>>* phase_deg) {
     std::string out = "angle_deg,theta_deg,phi_deg";
-    for (Component comp : c.components) out += std::string(",") + to_string(comp) + "_" + lower(db_unit(s.quantity, comp));
+    for (Component comp : c.components) {
+        out += std::string(",") + to_string(comp) + "_" + lower(db_unit(s.quantity, comp));
+        if (phase_deg) out += std::string(",") + to_string(comp) + "_phase_deg";
+    }
     out += "\n";
     const CutSamples& x = c.samples;
     out.reserve(out.size() + x.angle_deg.size() * (3 + c.components.size()) * 20);
@@ -74,6 +77,10 @@ std::string cut_csv(const FarFieldSet& s, const CutData& c) {
             out += ',';
             const double p = c.power[i][k];
             if (!std::isnan(p)) append_csv_number(out, to_db(p));
+            if (phase_deg) {
+                out += ',';
+                append_csv_number(out, (*phase_deg)[i][k]);  // NaN: an empty field
+            }
         }
         out += '\n';
     }

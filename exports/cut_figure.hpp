@@ -28,7 +28,9 @@ using CutData = ComponentCut;
 //   angle_deg,theta_deg,phi_deg,<component>_<unit>,...
 // dB values are 10 log10 of cut_power() printed with 17 significant digits (they read back as
 // the same doubles); "-inf" for zero power, an empty field outside the sampled region.
-std::string cut_csv(const FarFieldSet& s, const CutData& c);
+// With `phase_deg` (cut_phases(), exports/cut_phase.hpp) each component's column is followed by
+// <component>_phase_deg, empty where the component has no phase.
+std::string cut_csv(const FarFieldSet& s, const CutData& c, const std::vector<std::vector<double>>* phase_deg = nullptr);
 
 struct FigureOptions {
     PlotStyle style = PlotStyle::polar;

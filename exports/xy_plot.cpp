@@ -24,6 +24,13 @@ std::vector<double> nice_ticks(double lo, double hi, int target) {
     return t;
 }
 
+std::vector<double> step_ticks(double lo, double hi, double step) {
+    std::vector<double> t;
+    if (!(hi > lo) || !(step > 0) || !std::isfinite(lo) || !std::isfinite(hi)) return t;
+    for (long k = long(std::ceil(lo / step - 1e-9)); double(k) * step <= hi + 1e-9 * step; ++k) t.push_back(double(k) * step);
+    return t;
+}
+
 namespace {
 
 // Decimals that show a tick step exactly (0 for steps of 1 and more).
@@ -132,8 +139,9 @@ void draw_series(Pen& pen, const Box& b, const XySeries& s) {
 void draw_frame(Pen& pen, const Box& b, const XyFigure& f, const XyPanel& p, bool x_labels) {
     cairo_t* cr = pen.cr;
     const double u = pen.u;
-    const std::vector<double> xt = nice_ticks(b.xr.lo / f.x_scale, b.xr.hi / f.x_scale, 6);
-    std::vector<double> yt = nice_ticks(b.yr.lo, b.yr.hi, 4);
+    const std::vector<double> xt = f.x_tick_step ? step_ticks(b.xr.lo / f.x_scale, b.xr.hi / f.x_scale, *f.x_tick_step)
+                                                 : nice_ticks(b.xr.lo / f.x_scale, b.xr.hi / f.x_scale, 6);
+    std::vector<double> yt = p.y_tick_step ? step_ticks(b.yr.lo, b.yr.hi, *p.y_tick_step) : nice_ticks(b.yr.lo, b.yr.hi, 4);
     if (p.log_y) {
         yt.clear();
         for (double k = std::ceil(b.yr.lo - 1e-9); k <= b.yr.hi + 1e-9; ++k) yt.push_back(k);

@@ -33,6 +33,7 @@ struct XyPanel {
     std::string y_unit;   // "dBi"
     std::vector<XySeries> series;
     std::optional<double> y_min, y_max;  // default: the data range, padded to whole ticks
+    std::optional<double> y_tick_step;   // ticks at whole multiples of this (phase: 45 deg); default nice_ticks
     std::vector<XyMarker> markers;       // dashed vertical lines
     std::vector<double> y_references;    // dotted horizontal lines (e.g. AR 3 dB)
     std::string empty_text;              // shown when no series has a value
@@ -47,12 +48,15 @@ struct XyFigure {
     std::string x_unit;   // "MHz"
     double x_scale = 1;   // x values are divided by this for the axis (Hz -> MHz: 1e6)
     std::optional<double> x_min, x_max;  // in data units
+    std::optional<double> x_tick_step;   // ticks at whole multiples of this, in axis units; default nice_ticks
     std::vector<XyPanel> panels;
     std::vector<std::string> notes;  // small print at the bottom
 };
 
 // Tick positions for [lo, hi]: steps of 1, 2 or 5 times a power of ten, about `target` of them.
 std::vector<double> nice_ticks(double lo, double hi, int target = 5);
+// Whole multiples of `step` in [lo, hi].
+std::vector<double> step_ticks(double lo, double hi, double step);
 
 // Draw the figure into [0, width] x [0, height] (points). Costs a few path segments per sample.
 void draw_xy_figure(cairo_t* cr, const XyFigure& f, double width_pt, double height_pt);

@@ -38,4 +38,25 @@ grep -q '"theta_phase_deg": null' out.txt && ok "magnitude-only: phase null" || 
 expect_rc 0 "probe magnitude-only" "$E" probe mag.csv --theta 60 --phi 40
 grep -q 'phase  *none: the data are magnitude-only' out.txt && ok "magnitude-only: message" || bad "magnitude-only: no message"
 grep -q 'phase -\?[0-9]' out.txt && bad "magnitude-only: a phase number printed" || ok "magnitude-only: no phase numbers"
+# cut --phase: along the phi = 30 cut the turnstile's E_R = -(1 + cos t) exp(-j phi)/sqrt2 has
+# phase 180 - 30 = 150 deg on the positive side and 180 - 210 = -30 deg on the phi = 210 side
+# (IEEE Std 145, Balanis sec. 2.12, worked by hand); none at theta 180, where E_R is zero.
+expect_rc 0 "cut --phase to CSV" "$E" cut cd.csv --phi 30 --components theta,rhcp --phase --out p.csv
+head -1 p.csv | grep -q '^angle_deg,theta_deg,phi_deg,theta_dbi,theta_phase_deg,rhcp_dbic,rhcp_phase_deg$' \
+  && ok "CSV: a phase column after each gain column" || bad "CSV header: $(head -1 p.csv)"
+grep -q "phase relative to the file's origin" out.txt && ok "cut names the phase reference" || bad "cut lacks the phase reference"
+awk -F, 'NR > 1 && $1 > 1 && $1 < 179 { n++; d = $7 - 150; if (d > 1e-6 || d < -1e-6) bad++ }
+         NR > 1 && $1 < -1 && $1 > -179 { n++; d = $7 + 30; if (d > 1e-6 || d < -1e-6) bad++ }
+         END { exit !(n > 200 && bad == 0) }' p.csv && ok "RHCP phase along the cut = 150 / -30 deg by hand" || bad "RHCP phase along the cut off"
+awk -F, '$1 == -180 { exit !($7 == "") }' p.csv && ok "no RHCP phase at theta 180 (zero field)" || bad "a phase where E_R is zero"
+expect_rc 0 "cut --phase figure (PNG)" "$E" cut cd.csv --phi 30 --components rhcp,lhcp --phase --out p.png
+expect_rc 0 "cut --phase figure (SVG)" "$E" cut cd.csv --theta 45 --components co --phase --style rect --out p.svg
+grep -q '<svg' p.svg && ok "SVG figure made" || bad "not an SVG"
+expect_rc 2 "cut --phase refuses --style polar" "$E" cut cd.csv --phi 0 --components co --phase --style polar --out q.png
+grep -q 'rectangular' err.txt && ok "polar refusal says why" || bad "polar refusal: $(cat err.txt)"
+expect_rc 1 "cut --phase refuses total" "$E" cut cd.csv --phi 0 --phase --out q.png
+grep -q '"total" is a power and has no phase' err.txt && ok "total refusal says why" || bad "total refusal: $(cat err.txt)"
+expect_rc 1 "cut --phase refuses magnitude-only data" "$E" cut mag.csv --phi 0 --components theta --phase --out q.png
+grep -q 'magnitude-only (no phase)' err.txt && ok "magnitude-only refusal says why" || bad "magnitude-only refusal: $(cat err.txt)"
+[[ ! -e q.png ]] && ok "nothing written on refusal" || bad "a file was written on refusal"
 finish

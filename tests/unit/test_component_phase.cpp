@@ -7,6 +7,7 @@
 #include <cmath>
 #include <string>
 
+#include "exports/cut_phase.hpp"
 #include "exports/figure_text.hpp"
 #include "importers/far_field_csv.hpp"
 #include "pattern/component_phase.hpp"
@@ -161,4 +162,16 @@ TEST_CASE("no phase where there is no field, for total, or in data without phase
     const auto why = phase_unavailable(s, Component::theta);
     REQUIRE(why);
     CHECK(why->find("no phase") != std::string::npos);
+}
+
+TEST_CASE("a phase line breaks where the phase wraps round, not where it only turns fast", "[phase]") {
+    // common practice: wrapped phase in (-180, 180]; a jump of more than 180 deg between
+    // neighbours is a wrap, not the antenna's phase.
+    std::vector<double> x{0, 1, 2, 3, 4}, y{170, 179, -178, -100, NAN}, xo, yo;
+    exports::break_at_wraps(x, y, xo, yo);
+    REQUIRE(xo.size() == 6);
+    CHECK(yo[2] != yo[2]);  // NaN between 179 and -178
+    CHECK(xo[2] == 1.5);
+    CHECK(yo[3] == -178);
+    CHECK(yo[4] == -100);  // a 78 deg step is drawn
 }
