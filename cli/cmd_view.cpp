@@ -6,6 +6,7 @@
 #include "cli/usage.hpp"
 #include "cli/frequency_option.hpp"
 #include "cli/load.hpp"
+#include "exports/cut_figure.hpp"
 #include "exports/render.hpp"
 #include "viewer/app.hpp"
 #include "pattern/components.hpp"
@@ -27,7 +28,7 @@ struct ViewArgs {
     bool software = false, frame_stats = false;
     std::string size, screenshot;
     int frames = 0;
-    std::string component, color_by, pin, view, export_cut, export_view, cursor, cut_style;
+    std::string component, color_by, pin, view, export_cut, export_view, cursor, cut_style, cut_components;
     int compare = 0;
     bool wireframe = false, translucent = false;
     bool diversity = false;
@@ -117,7 +118,9 @@ void add_view_options(CLI::App* sub, ViewArgs& a) {
         ->type_name("FILE");
     sub->add_option("--export-cut", a.export_cut, "With --frames: write the cut of the last frame (.svg, .png, .pdf or .csv)")
         ->type_name("FILE");
-    sub->add_option("--cut-style", a.cut_style, "Start with a polar or rect cut plot")->check(one_of({"polar", "rect"}));
+    sub->add_option("--cut-style", a.cut_style, "Start with a polar or rect cut plot of the gains, or the phases (phase)")
+        ->check(one_of({"polar", "rect", "phase"}));
+    sub->add_option("--cut-components", a.cut_components, "Start with these components in the cut: comma-separated (see 'cut --components')");
     sub->add_flag("--translucent", a.translucent, "Start with a translucent surface");
     sub->add_flag("--diversity", a.diversity, "Start with the diversity panel open (MEG, ECC, orientation curve)");
     sub->add_flag("--band", a.band, "Start with the figures-against-frequency panel open");
@@ -188,7 +191,17 @@ int start_state(const ViewArgs& a, viewer::ViewerOptions& o) {
     o.compare = a.compare - 1;
     o.wireframe = a.wireframe;
     o.translucent = a.translucent;
-    if (!a.cut_style.empty()) o.cut_style = a.cut_style == "rect" ? 1 : 0;
+    if (!a.cut_style.empty()) o.cut_style = a.cut_style == "rect" ? 1 : a.cut_style == "phase" ? 2 : 0;
+    if (!a.cut_components.empty()) {
+        auto list = exports::parse_component_list(a.cut_components);
+        if (!list) {
+            std::cerr << "ellipsa view: --cut-components: " << list.error().message << "\n";
+            return exit_usage;
+        }
+        unsigned bits = 0;
+        for (Component c : *list) bits |= 1u << unsigned(c);
+        o.cut_components = bits;
+    }
     o.diversity_panel = a.diversity;
     o.band_panel = a.band;
     if (a.frequency_hz && !(std::isfinite(*a.frequency_hz) && *a.frequency_hz > 0)) {

@@ -52,6 +52,11 @@ for size in 1280x800 800x600; do
   shot map "$size" --tab map
   shot fading "$size" --compare 2 --tab fading
 done
+# The cut's phase view of the turnstile (the phases of its theta, phi and circular parts).
+for size in 1280x800 800x600; do
+  xvfb-run -a -s "-screen 0 1280x800x24" "$E" view "$X/turnstile.csv" --size "$size" --frames 20 --force \
+    --screenshot "$I/panel-cut-phase-$size.png" --pin 60,30 --tab cut --cut-style phase --cut-components theta,phi,rhcp,lhcp
+done
 # The mounting: a half-wave dipole along x, read with its +x axis up, beside the printed dipole; the
 # diversity panel shows the MEG of a vertical dipole.
 M=$(mktemp -d)

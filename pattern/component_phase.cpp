@@ -43,6 +43,7 @@ std::optional<std::string> phase_unavailable(const FarFieldSet& s, Component c) 
 std::vector<double> cut_phase_deg(const FarFieldSet& s, const CutSamples& c, Component comp) {
     const std::size_t n = c.angle_deg.size();
     std::vector<double> out(n, std::numeric_limits<double>::quiet_NaN());
+    if (phase_unavailable(s, comp)) return out;  // stored phases of magnitude-only data are not the antenna's
     for (std::size_t k = 0; k < n; ++k) {
         if (!c.valid[k]) continue;
         const double p = c.phi_deg[k] * deg;

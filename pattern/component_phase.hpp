@@ -40,7 +40,7 @@ double component_phase_deg(cplx et, cplx ep, double cos_phi, double sin_phi, Lud
 std::optional<std::string> phase_unavailable(const FarFieldSet& s, Component c);
 
 // The phase of a component along a cut (degrees, NaN where invalid or undefined), one value per
-// cut sample. Cost: one pass over the samples. The caller checks phase_unavailable() first.
+// cut sample; all NaN when phase_unavailable(s, comp). Cost: one pass over the samples.
 std::vector<double> cut_phase_deg(const FarFieldSet& s, const CutSamples& c, Component comp);
 
 }  // namespace ellipsa

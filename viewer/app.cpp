@@ -109,6 +109,8 @@ Intents start_options(const ViewerOptions& o, const AppState& s) {
     if (o.wireframe) st.wireframe = true;
     if (o.translucent) st.translucent = true;
     if (o.cut_style >= 0) st.polar_plot = o.cut_style == 0;
+    st.cut_phase = o.cut_style == 2 || (o.cut_style < 0 && st.cut_phase);
+    if (o.cut_components) st.cut_components = *o.cut_components;
     if (o.has_pin) st.cut_kind = 2;
     if (o.compare >= 0) in.push_back(intent::SetCompare{o.compare});  // before the colouring, which may need B
     in.push_back(intent::ChangeSettings{st});

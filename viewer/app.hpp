@@ -36,7 +36,8 @@ struct ViewerOptions {
     double view_azimuth_deg = 0, view_elevation_deg = 0;
     int compare = -1;                 // index of the B pattern among the files
     bool wireframe = false, translucent = false;
-    int cut_style = -1;               // 0 polar, 1 rectangular, -1 from the settings
+    int cut_style = -1;               // 0 polar, 1 rectangular, 2 phase (rectangular), -1 from the settings
+    std::optional<unsigned> cut_components;  // bit per Component; none: from the settings
     bool has_cursor = false;          // place the pointer at (cursor_x, cursor_y) window pixels each frame
     double cursor_x = 0, cursor_y = 0;
     std::string export_view;          // with frames: export the 3D view of the last frame (headless snapshot)

@@ -2,6 +2,7 @@
 // pattern) overlaid, a legend, dB grid labels, -3 dB markers and the HPBW / front-to-back readout.
 #include <imgui.h>
 
+#include "exports/cut_phase.hpp"
 #include "exports/cut_plot.hpp"
 #include "exports/figure_text.hpp"
 #include "exports/palette.hpp"
@@ -15,6 +16,7 @@
 #include "viewer/panels.hpp"
 #include "viewer/widgets.hpp"
 #include "viewer/scene/components.hpp"
+#include "pattern/component_phase.hpp"
 #include "pattern/db_scale.hpp"
 
 namespace ellipsa::viewer {
@@ -302,12 +304,23 @@ void cut_kind_rows(const AppState& s, ViewerSettings& st) {
     }
 }
 
-void polar_check(ViewerSettings& st, bool key_hint) {
-    ImGui::Checkbox("polar plot", &st.polar_plot);
-    if (ImGui::IsItemHovered()) ImGui::SetTooltip("Polar or rectangular plot (key P)");
+// What the plot shows: the gains on a polar or a rectangular plot, or each component's phase
+// (rectangular: a phase has no radius). One small combo, so it fits beside "Components..".
+void plot_view_combo(ViewerSettings& st, bool key_hint) {
+    const char* views[] = {"polar", "rect", "phase"};
+    int v = st.cut_phase ? 2 : st.polar_plot ? 0 : 1;
+    ImGui::SetNextItemWidth(ImGui::CalcTextSize("phase").x + ImGui::GetFrameHeight() + 2 * ImGui::GetStyle().FramePadding.x);
+    if (ImGui::Combo("##plotview", &v, views, 3)) {
+        st.cut_phase = v == 2;
+        if (v < 2) st.polar_plot = v == 0;
+    }
+    if (ImGui::IsItemHovered())
+        ImGui::SetTooltip("polar / rect: the gain of each component (key P switches)\n"
+                          "phase: the phase of each component along the cut, deg, relative to the\n"
+                          "phase reference that the Probe panel names (total has none)");
     if (!key_hint) return;
     ImGui::SameLine();
-    ImGui::TextDisabled("(P)");
+    ImGui::TextDisabled("plot (P)");
 }
 
 void cut_export_row(const AppState& s, Intents& in) {
@@ -340,7 +353,7 @@ void cut_controls(const AppState& s, const FarFieldSet& a, float width, float ke
     cut_export_row(s, in);
     append(in, export_outcome_line(s.cut_export, ExportTarget::cut));
     if (ImGui::GetContentRegionAvail().y >= 6 * ImGui::GetFrameHeightWithSpacing() + keep) {
-        polar_check(st, true);
+        plot_view_combo(st, true);
         ImGui::Separator();
         ImGui::TextDisabled("Components");
         component_checks(a, st, width);
@@ -351,18 +364,89 @@ void cut_controls(const AppState& s, const FarFieldSet& a, float width, float ke
             ImGui::EndPopup();
         }
         ImGui::SameLine();
-        polar_check(st, false);
+        plot_view_combo(st, false);
     }
     if (!(st == s.settings)) in.push_back(intent::ChangeSettings{st});
 }
 
 // Why there is no cut to show, or nothing.
 std::optional<std::string> no_cut_text(const AppState& s, const CutData& cd) {
+    if (cd.a && cd.peak_db && s.settings.cut_phase && !s.active_pattern()->set.has_phase())
+        return "No phase: the data are " + std::string(to_string(s.active_pattern()->set.content)) +
+               " (no phase). Untick \"phase\" to see the gains.";
+    if (cd.a && cd.peak_db && s.settings.cut_phase &&
+        std::none_of(cd.a->components.begin(), cd.a->components.end(), [](Component c) { return has_phase(c); }))
+        return std::string("No phase: the total is a power. Choose a component (Components..) to see its phase.");
     if (cd.a && cd.peak_db) return std::nullopt;
     if (!cd.why.empty()) return "No cut: " + cd.why + ".";
     return !cd.valid && s.settings.cut_kind == 2 ? "Pin a direction to cut through it."
            : !cd.valid                            ? "Choose at least one component."
                                                   : "No power on this cut: every chosen component is zero here.";
+}
+
+// The phase view's grid: -180..180 deg, a line every 45 deg, labels every 90; angles as rect_grid.
+void phase_grid(ImDrawList* dl, const PlotFrame& f) {
+    for (double v = exports::phase_axis_lo_deg; v <= exports::phase_axis_hi_deg; v += exports::phase_tick_deg) {
+        const float y = f.at(f.a0, (v - exports::phase_axis_lo_deg) / 360).y;
+        dl->AddLine(ImVec2(f.p0.x, y), ImVec2(f.p1.x, y), std::fmod(v, 90) == 0 ? grid : grid_minor);
+        if (std::fmod(v, 90) != 0) continue;
+        char b[16];
+        std::snprintf(b, sizeof b, "%g\u00b0", v);
+        const ImVec2 ts = ImGui::CalcTextSize(b);
+        dl->AddText(ImVec2(f.p0.x - ts.x - 4, y - ts.y * 0.5f), muted, b);
+    }
+    const int xstep = (f.p1.x - f.p0.x) / 8 < 48 ? 90 : 45;
+    for (int a = int(f.a0); a <= int(f.a0) + 360; a += xstep) {
+        const float x = f.p0.x + float(a - f.a0) / 360 * (f.p1.x - f.p0.x);
+        dl->AddLine(ImVec2(x, f.p0.y), ImVec2(x, f.p1.y), grid);
+        char b[16];
+        std::snprintf(b, sizeof b, "%d\u00b0", a);
+        const ImVec2 ts = ImGui::CalcTextSize(b);
+        dl->AddText(ImVec2(x - ts.x * 0.5f, f.p1.y + 2), muted, b);
+    }
+    dl->AddRect(f.p0, f.p1, IM_COL32(160, 160, 160, 255));
+}
+
+// One phase line in curve k's colour, broken where there is no phase, at wraps
+// (exports::break_at_wraps, as in the files) and where the angle axis wraps round.
+void phase_curve(ImDrawList* dl, const PlotFrame& f, const std::vector<double>& angle, const std::vector<double>& phase,
+                 std::size_t k) {
+    std::vector<double> x, y;
+    exports::break_at_wraps(angle, phase, x, y);
+    std::vector<ImVec2> pts;
+    auto flush = [&] {
+        if (pts.size() > 1) dl->AddPolyline(pts.data(), int(pts.size()), curve_u32(k), 0, curve_width(k));
+        pts.clear();
+    };
+    for (std::size_t i = 0; i < x.size(); ++i) {
+        if (std::isnan(y[i])) {
+            flush();
+            continue;
+        }
+        const ImVec2 q = f.at(x[i], (y[i] - exports::phase_axis_lo_deg) / 360);
+        if (!pts.empty() && q.x < pts.back().x) flush();
+        pts.push_back(q);
+    }
+    flush();
+}
+
+// The phase view: A's components, then B's, in the colours of the gain view's curves.
+void phase_plot(const AppState& s, const CutData& cd, const exports::CutPlot& fig, const PlotFrame& f) {
+    ImDrawList* dl = ImGui::GetWindowDrawList();
+    draw_no_data(dl, f, fig);
+    phase_grid(dl, f);
+    std::size_t k = 0;
+    const LoadedPattern* b = s.compare_pattern();
+    for (const auto& [set, cut] : {std::pair{&s.active_pattern()->set, &cd.a}, std::pair{b ? &b->set : nullptr, &cd.b}}) {
+        if (!set || !*cut) continue;
+        for (const std::vector<double>& ph : exports::cut_phases(*set, **cut)) phase_curve(dl, f, (*cut)->samples.angle_deg, ph, k++);
+    }
+    const FarFieldSet& a = s.active_pattern()->set;
+    std::string ref = "\u2220 relative to " + exports::phase_reference_text(a, cd.a->freq_index);
+    if (ImGui::CalcTextSize(ref.c_str()).x >= f.p1.x - f.p0.x - 8)  // the point itself is in the Probe panel
+        ref = exports::reference_shift_text(a, cd.a->freq_index).empty() ? "\u2220 re the file's origin" : "\u2220 re the moved reference";
+    const ImVec2 ts = ImGui::CalcTextSize(ref.c_str());
+    if (ts.x < f.p1.x - f.p0.x - 8) halo_text(dl, ImVec2(f.p1.x - ts.x - 4, f.p0.y - ts.y - 1), muted, ref.c_str());
 }
 
 // The plot, filling the current child: the figure the export writes.
@@ -371,7 +455,8 @@ void cut_plot(const AppState& s, const CutData& cd, const exports::CutPlot& fig)
     const ImVec2 o = ImGui::GetCursorScreenPos(), avail = ImGui::GetContentRegionAvail();
     ImDrawList* dl = ImGui::GetWindowDrawList();
     PlotFrame f;
-    f.polar = s.settings.polar_plot;
+    const bool phase = s.settings.cut_phase;
+    f.polar = s.settings.polar_plot && !phase;
     f.full_turn = cd.spec.kind == CutKind::theta_const;
     f.a0 = cd.angle_deg.front();
     if (f.polar) {
@@ -381,6 +466,7 @@ void cut_plot(const AppState& s, const CutData& cd, const exports::CutPlot& fig)
         f.p0 = ImVec2(o.x + 40, o.y + 18);
         f.p1 = ImVec2(o.x + avail.x - 14, o.y + avail.y - 20);
     }
+    if (phase) return phase_plot(s, cd, fig, f);
     draw_no_data(dl, f, fig);
     if (f.polar) polar_grid(dl, f, sc, !f.full_turn);
     else rect_grid(dl, f, sc, fig.value_unit);

@@ -1,5 +1,7 @@
 #include "viewer/exports_ui.hpp"
 
+#include "exports/cut_phase.hpp"
+
 #include <ctime>
 #include <filesystem>
 
@@ -18,7 +20,15 @@ bool something_at(const std::string& path) {
 
 // The file from the cut on screen: the same figure value that the panel draws.
 Result<std::string> cut_bytes(const AppState& s, const CutData& cut, exports::FileFormat format) {
-    if (format == exports::FileFormat::csv) return exports::cut_csv(s.active_pattern()->set, *cut.a);
+    const FarFieldSet& set = s.active_pattern()->set;
+    if (s.settings.cut_phase && set.has_phase()) {  // the phase view, as `ellipsa cut --phase` writes it (A only)
+        const auto phases = exports::cut_phases(set, *cut.a);
+        if (format == exports::FileFormat::csv) return exports::cut_csv(set, *cut.a, &phases);
+        const exports::XyFigure fig = exports::make_cut_phase_figure(set, *cut.a, phases, "");
+        return exports::render_image([&](cairo_t* cr, double w, double h) { exports::draw_xy_figure(cr, fig, w, h); }, format,
+                                     exports::RenderSize{}, fig.title);
+    }
+    if (format == exports::FileFormat::csv) return exports::cut_csv(set, *cut.a);
     const exports::CutPlot plot = cut_figure(s, cut);
     return exports::render_image([&](cairo_t* cr, double w, double h) { exports::draw_cut_plot(cr, plot, w, h); }, format,
                                  exports::RenderSize{}, plot.title);

@@ -343,6 +343,13 @@ void compare_rows(const AppState& s, const DirectionProbe& p) {
     }
 }
 
+// "-8.01 dBi  \u2220 45.0\u00b0": the level, and its phase where the data have phase and the level is not zero.
+std::string level_and_phase(const FarFieldSet& set, const ComponentValue& v) {
+    const std::string level = db_text(v.db, db_unit(set.quantity, v.component));
+    if (!set.has_phase() || v.component == Component::total || !std::isfinite(v.db)) return level;
+    return level + "  \u2220 " + exports::phase_text(v.phase_deg, "\u00b0");
+}
+
 void probe_table(const AppState& s, const char* title, const DirectionProbe& p) {
     const LoadedPattern* a = s.active_pattern();
     ImGui::TextUnformatted(title);
@@ -354,7 +361,10 @@ void probe_table(const AppState& s, const char* title, const DirectionProbe& p) 
         table_row("", std::string(exports::not_measured_label) + " (outside the sampled directions)");
     } else {
         for (const ComponentValue& v : p.a.components)
-            table_row(short_label(v.component), db_text(v.db, db_unit(a->set.quantity, v.component)), definition(v.component));
+            table_row(short_label(v.component), level_and_phase(a->set, v), definition(v.component));
+        if (a->set.has_phase())
+            table_row("Phase ref.", exports::phase_reference_text(a->set, std::min(s.freq, a->set.frequencies.size() - 1)),
+                      "Phases (\u2220) are relative to this point, exp(+j\u03c9t); --phase-centre or the Mounting panel moves it");
         if (p.a.polarisation) polarisation_rows(*p.a.polarisation);
         else table_row("Polarisation", "needs phase (file is " + std::string(to_string(a->set.content)) + ")");
         compare_rows(s, p);

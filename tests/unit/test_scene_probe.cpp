@@ -44,6 +44,20 @@ TEST_CASE("probe of crossed dipoles: circular on the axis, AR 1/|cos t| off it",
     const ProbeValues at60 = probe(s, 0, 60, 20);
     CHECK(20 * std::log10(at60.polarisation->axial_ratio) == Approx(6.02).margin(0.005));  // 20 log10(2)
     CHECK(probe(s, 0, 180, 0).polarisation->sense == Sense::left);
+    // The phases beside the gains (IEEE Std 145, Balanis sec. 2.12, by hand at theta 60, phi 20):
+    // Et = -cos t exp(-j p) (160 deg), Ep = j exp(-j p) (70), E_R = -(1 + cos t) exp(-j p)/sqrt2 (160),
+    // E_L = (1 - cos t) exp(-j p)/sqrt2 (-20); the total has none. 0.01 deg: interpolated at a grid node.
+    auto phase_of = [](const ProbeValues& p, Component c) -> double {
+        for (const ComponentValue& v : p.components)
+            if (v.component == c) return v.phase_deg;
+        return NAN;
+    };
+    CHECK(phase_of(at60, Component::theta) == Approx(160).margin(0.01));
+    CHECK(phase_of(at60, Component::phi) == Approx(70).margin(0.01));
+    CHECK(phase_of(at60, Component::rhcp) == Approx(160).margin(0.01));
+    CHECK(phase_of(at60, Component::lhcp) == Approx(-20).margin(0.01));
+    CHECK(std::isnan(phase_of(at60, Component::total)));
+    CHECK(std::isnan(phase_of(on_axis, Component::lhcp)));  // pure right-hand: E_L zero, no phase
 }
 
 TEST_CASE("probe without phase gives powers and no polarisation", "[scene][probe]") {
@@ -55,4 +69,5 @@ TEST_CASE("probe without phase gives powers and no polarisation", "[scene][probe
     CHECK(*p.db_of(Component::total) == Approx(2.15).margin(0.005));  // half-wave dipole, Balanis sec. 4.5: D = 1.64
     CHECK_FALSE(p.db_of(Component::rhcp));
     CHECK_FALSE(p.polarisation);
+    for (const ComponentValue& v : p.components) CHECK(std::isnan(v.phase_deg));  // no phase in the data: none shown
 }

@@ -1,5 +1,6 @@
 #include "viewer/scene/probe.hpp"
 
+#include "pattern/component_phase.hpp"
 #include "pattern/interpolate.hpp"
 #include "viewer/scene/components.hpp"
 
@@ -19,8 +20,12 @@ ProbeValues probe(const FarFieldSet& set, std::size_t k, double th, double ph) {
     if (!f) return p;
     p.inside = true;
     const PolarisationState st = decompose(f->e_theta, f->e_phi, ph * deg, set.ludwig3_reference);
-    for (Component c : all_components)
-        if (!component_unavailable(set, c)) p.components.push_back({c, to_db(component_power(st, c))});
+    const double cp = std::cos(ph * deg), sp = std::sin(ph * deg);
+    for (Component c : all_components) {
+        if (component_unavailable(set, c)) continue;
+        const double phase = phase_unavailable(set, c) ? NAN : component_phase_deg(f->e_theta, f->e_phi, cp, sp, set.ludwig3_reference, c);
+        p.components.push_back({c, to_db(component_power(st, c)), phase});
+    }
     if (set.has_phase()) p.polarisation = st;
     return p;
 }

@@ -1,8 +1,9 @@
-// The probe's figures for one direction, as numbers: every component the data can give (in dB),
+// The probe's figures for one direction, as numbers: every component the data can give (in dB, with its phase),
 // and with phase the field's polarisation state (axial ratio, tilt, sense, Stokes). Pure code:
 // the field comes from pattern/interpolate.hpp (Cartesian interpolation) and decompose(). The
 // probe panel formats these values; nothing here makes text.
 #pragma once
+#include <cmath>
 #include <optional>
 #include <vector>
 
@@ -14,6 +15,9 @@ namespace ellipsa::viewer {
 struct ComponentValue {
     Component component = Component::total;
     double db = 0;  // -inf where the component is zero
+    // Its phase, deg in (-180, 180], relative to the set's phase reference (pattern/component_phase.hpp);
+    // NaN where it has none: total, no field there, or data without phase.
+    double phase_deg = NAN;
 };
 
 struct ProbeValues {

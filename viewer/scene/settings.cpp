@@ -59,6 +59,7 @@ void for_each_flag(S& s, F&& f) {
     f("translucent", s.translucent);
     f("glyphs", s.glyphs);
     f("polar_plot", s.polar_plot);
+    f("cut_phase", s.cut_phase);
     f("seen_intro", s.seen_intro);
 }
 

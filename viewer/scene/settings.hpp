@@ -22,6 +22,7 @@ struct ViewerSettings {
     bool glyphs = true;
     double glyph_spacing_deg = 15;
     bool polar_plot = true;
+    bool cut_phase = false;    // the cut panel shows each component's phase instead of its gain (rect)
     int cut_kind = 0;          // 0 phi = const, 1 theta = const, 2 through the pinned direction
     double cut_angle_deg = 0;  // phi for kind 0, theta for kind 1
     unsigned cut_components = 1u;  // bit per Component (bit 0: total)
