@@ -5,6 +5,7 @@
 #include <sys/mman.h>
 
 #include "importers/text.hpp"
+#include "pattern/parallel.hpp"
 #include "pattern/polarisation.hpp"
 
 namespace ellipsa::csv {
@@ -290,12 +291,15 @@ void allocate(const GridPlan& g, FarFieldSet& s, SeenPoints& seen) {
     s.grid = g.grid;
     s.frequencies.resize(g.freqs.size());
     seen.assign(g.freqs.size(), {});
-    for (std::size_t k = 0; k < g.freqs.size(); ++k) {
+    // Making the pages present and zeroing them is most of the cost: one frequency a task on the
+    // cores when the arrays are large (each task writes only its own frequency's arrays).
+    const std::size_t threads = points * g.freqs.size() >= (std::size_t(1) << 20) ? parallel_threads() : 1;
+    parallel_each(g.freqs.size(), threads, [&](std::size_t k) {
         s.frequencies[k].frequency_hz = g.freqs[k];
         zeroed(s.frequencies[k].e_theta, points);
         zeroed(s.frequencies[k].e_phi, points);
         zeroed(seen[k], points);
-    }
+    });
 }
 
 Status merge_seam(const std::vector<Chunk>& chunks, FarFieldSet& s, SeenPoints& seen, const Layout& L,
