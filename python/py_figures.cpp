@@ -8,6 +8,7 @@
 #include "exports/cut_figure.hpp"
 #include "exports/figure_text.hpp"
 #include "io/atomic_write.hpp"
+#include "pattern/component_phase.hpp"
 #include "pattern/summary.hpp"
 #include "python/py_common.hpp"
 
@@ -80,7 +81,7 @@ py::dict cut(const Pattern& p, std::optional<double> phi_deg, std::optional<doub
     for (const std::string& c : components) comps.push_back(component_named(c));
     const CutSpec spec = cut_spec(p, fi, phi_deg, theta_deg, through, along_phi);
     const ComponentCut c = take(compute_cut(p.set, fi, spec, comps, step_deg.value_or(0)));
-    py::dict d, power, beams;
+    py::dict d, power, beams, phases;
     d["label"] = spec.label(), d["angle_name"] = spec.angle_name(), d["step_deg"] = c.samples.step_deg;
     d["frequency_hz"] = p.set.frequencies[fi].frequency_hz;
     d["angle_deg"] = copy(c.samples.angle_deg), d["theta_deg"] = copy(c.samples.theta_deg);
@@ -92,8 +93,9 @@ py::dict cut(const Pattern& p, std::optional<double> phi_deg, std::optional<doub
     for (std::size_t k = 0; k < comps.size(); ++k) {
         power[to_string(comps[k])] = copy(c.power[k]);
         beams[to_string(comps[k])] = beam_dict(c.beams[k]);
+        phases[to_string(comps[k])] = copy(cut_phase_deg(p.set, c.samples, comps[k]));  // NaN: no phase (total, no field, no phase data)
     }
-    d["power"] = power, d["beam"] = beams;
+    d["power"] = power, d["beam"] = beams, d["phase_deg"] = phases;
     return d;
 }
 
@@ -204,7 +206,8 @@ void bind_figures(py::module_& m) {
           "to 180), theta_deg (a cone, angle = phi), or through=(theta_deg, phi_deg) (the great circle through\n"
           "that direction along theta-hat, or along phi-hat with along_phi=True); none of them: the elevation\n"
           "cut through the peak. Returns a dict of arrays angle_deg, theta_deg, phi_deg, e_theta, e_phi, valid;\n"
-          "power[component] (linear, NaN outside the data) and beam[component] (HPBW, front-to-back, side lobe).");
+          "power[component] (linear, NaN outside the data), phase_deg[component] (deg in (-180, 180], NaN where there is\n"
+          "none, as `ellipsa cut --phase`) and beam[component] (HPBW, front-to-back, side lobe).");
     p.def("write_cut", &write_cut, py::arg("path"), py::arg("phi_deg") = py::none(), py::arg("theta_deg") = py::none(),
           py::kw_only(), py::arg("through") = py::none(), py::arg("along_phi") = false,
           py::arg("components") = std::vector<std::string>{"total"}, py::arg("index") = 0,

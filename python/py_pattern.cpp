@@ -7,6 +7,7 @@
 #include "cli/load.hpp"
 #include "exports/figure_text.hpp"
 #include "importers/far_field_csv.hpp"
+#include "pattern/component_phase.hpp"
 #include "pattern/interpolate.hpp"
 #include "pattern/install.hpp"
 #include "pattern/polarisation.hpp"
@@ -227,6 +228,14 @@ public:
     explicit StateArrays(std::vector<py::ssize_t> shape) : sense_(shape) {
         for (int k = 0; k < 6; ++k) cx_.emplace_back(shape);
         for (int k = 0; k < 7; ++k) re_.emplace_back(shape);
+        for (Component c : all_components)
+            if (has_phase(c)) phase_.emplace_back(c, py::array_t<double>(shape));
+    }
+    // The phase of each component (the keys of `ellipsa probe --json`: theta_phase_deg, ...), deg,
+    // NaN where it has none (pattern/component_phase.hpp).
+    void set_phases(std::size_t k, const FarFieldSet& s, cplx et, cplx ep, double phi_deg) {
+        const double cp = std::cos(phi_deg * deg), sp = std::sin(phi_deg * deg);
+        for (auto& [c, a] : phase_) a.mutable_data()[k] = component_phase_deg(et, ep, cp, sp, s.ludwig3_reference, c);
     }
     void set(std::size_t k, const PolarisationState& st) {
         const cplx c[] = {st.e_theta, st.e_phi, st.e_rhcp, st.e_lhcp, st.e_co, st.e_cross};
@@ -240,6 +249,7 @@ public:
     void set_missing(std::size_t k) {
         for (auto& a : cx_) a.mutable_data()[k] = cplx(std::nan(""), std::nan(""));
         for (auto& a : re_) a.mutable_data()[k] = std::nan("");
+        for (auto& ca : phase_) ca.second.mutable_data()[k] = std::nan("");
         sense_.mutable_data()[k] = std::int8_t(Sense::none);
     }
     // with_fields: also e_theta and e_phi (a probe's interpolated values; the grid has its views).
@@ -250,6 +260,7 @@ public:
         for (int j = with_fields ? 0 : 2; j < 6; ++j) d[cx_names[j]] = cx_[j];
         for (int j = 0; j < 7; ++j) d[re_names[j]] = re_[j];
         d["sense"] = sense_;
+        for (const auto& [c, a] : phase_) d[(std::string(to_string(c)) + "_phase_deg").c_str()] = a;
         return d;
     }
 
@@ -257,6 +268,7 @@ private:
     std::vector<py::array_t<cplx>> cx_;
     std::vector<py::array_t<double>> re_;
     py::array_t<std::int8_t> sense_;
+    std::vector<std::pair<Component, py::array_t<double>>> phase_;
 };
 
 py::dict polarisation(const Pattern& p, int index, std::optional<double> frequency_hz) {
@@ -269,6 +281,7 @@ py::dict polarisation(const Pattern& p, int index, std::optional<double> frequen
         for (int ip = 0; ip < s.grid.phi.count; ++ip) {
             const std::size_t k = s.grid.index(it, ip);
             out.set(k, decompose(f.e_theta[k], f.e_phi[k], s.grid.phi.value_deg(ip) * deg, s.ludwig3_reference));
+            out.set_phases(k, s, f.e_theta[k], f.e_phi[k], s.grid.phi.value_deg(ip));
         }
     return out.dict(false);
 }
@@ -288,9 +301,10 @@ py::dict probe(const Pattern& p, py::object theta_deg, py::object phi_deg, int i
         if (!(th >= 0 && th <= 180) || !std::isfinite(ph))
             throw py::value_error("theta_deg: expected 0..180 deg, phi_deg: finite angles");
         const auto v = interpolate(s, fi, th, ph);
-        if (v)
+        if (v) {
             out.set(std::size_t(k), decompose(v->e_theta, v->e_phi, ph * deg, s.ludwig3_reference));
-        else
+            out.set_phases(std::size_t(k), s, v->e_theta, v->e_phi, ph);
+        } else
             out.set_missing(std::size_t(k));
     }
     return out.dict(true);
@@ -343,7 +357,9 @@ static void bind_pattern_class(py::module_& m) {
         .def("polarisation", &polarisation, py::arg("index") = 0, py::kw_only(), py::arg("frequency_hz") = py::none(),
              "Every grid sample in every basis: a dict of (theta, phi) arrays e_rhcp, e_lhcp, e_co, e_cross (complex),\n"
              "axial_ratio (linear, inf when linear, NaN for a zero field), axial_ratio_db (as reported: NaN when\n"
-             "linear or zero), tilt_deg (NaN where undefined), stokes_i/q/u/v, and sense (codes into ellipsa.SENSES).")
+             "linear or zero), tilt_deg (NaN where undefined), stokes_i/q/u/v, sense (codes into ellipsa.SENSES) and\n"
+             "<component>_phase_deg (theta, phi, vertical, horizontal, co, cross, rhcp, lhcp; deg in (-180, 180],\n"
+             "relative to the phase reference; NaN where the component has no field).")
         .def("probe", &probe, py::arg("theta_deg"), py::arg("phi_deg"), py::arg("index") = 0, py::kw_only(),
              py::arg("frequency_hz") = py::none(),
              "The field and its polarisation at any directions, as `ellipsa probe` gives them: theta_deg and phi_deg\n"

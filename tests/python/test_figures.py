@@ -453,3 +453,24 @@ def test_reports_from_two_threads_at_once(tmp_path, monkeypatch):
     for n in range(2):
         for name in views:
             assert (tmp_path / f"t{n}" / name).read_bytes() == (tmp_path / "alone" / name).read_bytes(), name
+
+
+def test_phases_are_the_cli_probe(cli_json):
+    # The phase of each component: the keys and values of `ellipsa probe --json` (null there: NaN here).
+    path = str(EXAMPLES / "turnstile.csv")
+    p = ellipsa.read(path)
+    q = p.probe([47.3, 0.0], [181.7, 0.0], frequency_hz=2.45e9)
+    for n, (theta, phi) in enumerate([(47.3, 181.7), (0.0, 0.0)]):
+        want = cli_json("probe", path, "--theta", theta, "--phi", phi, "--frequency", "2.45e9")
+        for name in ("theta", "phi", "vertical", "horizontal", "co", "cross", "rhcp", "lhcp"):
+            key = name + "_phase_deg"
+            if want[key] is None:
+                assert np.isnan(q[key][n]), key
+            else:
+                assert q[key][n] == pytest.approx(want[key], abs=1e-9), key
+    c = p.cut(phi_deg=0, components=["total", "rhcp"], frequency_hz=2.45e9)
+    assert np.all(np.isnan(c["phase_deg"]["total"]))  # a power has no phase
+    e_r = (c["e_theta"] + 1j * c["e_phi"]) / np.sqrt(2)  # IEEE Std 145, Balanis sec. 2.12
+    ok = np.isfinite(c["phase_deg"]["rhcp"])
+    assert ok.sum() > 100
+    np.testing.assert_allclose(c["phase_deg"]["rhcp"][ok], np.degrees(np.angle(e_r[ok])), atol=1e-9)
