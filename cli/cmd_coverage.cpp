@@ -95,9 +95,8 @@ int run_coverage(const CoverageArgs& a) {
         return fail(exit_usage, "--out " + a.out + ": expected a file name ending in .svg, .png, .pdf, .csv or .json");
     auto size = parse_size(a.size, a.dpi);
     if (!size) return fail(exit_usage, size.error().format());
-    std::error_code ec;
-    if (!a.out.empty() && !a.force && std::filesystem::exists(a.out, ec))
-        return fail(exit_bad_input, a.out + ": already exists; use --force to replace it");
+    if (!a.out.empty())
+        if (Status st = io::check_destination(a.out, a.force); !st) return fail(exit_bad_input, st.error().format());
     std::vector<FarFieldSet> sets;
     std::vector<std::size_t> fi;
     std::vector<std::string> paths;

@@ -4,9 +4,9 @@
 #include <iostream>
 #include <memory>
 #include <optional>
-#include <sys/stat.h>
 
 #include "cli/commands.hpp"
+#include "io/atomic_write.hpp"
 #include "cli/usage.hpp"
 #include "cli/frequency_option.hpp"
 #include "cli/format.hpp"
@@ -75,8 +75,7 @@ int run_cut(const CutArgs& a) {
     if (!size) return fail(exit_usage, size.error().format());
     auto comps = parse_component_list(a.components);
     if (!comps) return fail(exit_usage, comps.error().format());
-    struct stat st {};
-    if (!a.force && ::stat(a.out.c_str(), &st) == 0) return fail(exit_bad_input, a.out + ": already exists; use --force to replace it");
+    if (Status st = io::check_destination(a.out, a.force); !st) return fail(exit_bad_input, st.error().format());
 
     const std::string path = file_path(a.file);
     auto s = load_pattern(a.file, a.load);

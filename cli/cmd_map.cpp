@@ -47,8 +47,7 @@ int run_map(const MapArgs& a) {
     if (!req) return fail(exit_usage, req.error().message);
     auto size = parse_size(a.size, a.dpi);
     if (!size) return fail(exit_usage, size.error().format());
-    std::error_code ec;
-    if (!a.force && std::filesystem::exists(a.out, ec)) return fail(exit_bad_input, a.out + ": already exists; use --force to replace it");
+    if (Status st = io::check_destination(a.out, a.force); !st) return fail(exit_bad_input, st.error().format());
     auto s = load_pattern(a.file, a.load);
     if (!s) return fail(exit_bad_input, s.error().format());
     auto fi = pick_frequency(*s, a.frequency_hz, file_path(a.file));

@@ -5,6 +5,7 @@
 #include <optional>
 
 #include "cli/commands.hpp"
+#include "io/atomic_write.hpp"
 #include "cli/frequency_option.hpp"
 #include "cli/load.hpp"
 #include "cli/mounting_options.hpp"
@@ -56,7 +57,7 @@ int run_render(const RenderArgs& a) {
     auto o = render_options(a.choices());  // checked while parsing too: the same checks
     if (!o) return fail(exit_usage, o.error().message);
     if (Status st = check_render_out(a.out); !st) return fail(exit_usage, st.error().message);
-    if (Status st = refuse_existing_out(a.out, a.force); !st) return fail(exit_bad_input, st.error().message);
+    if (Status st = io::check_destination(a.out, a.force); !st) return fail(exit_bad_input, st.error().format());
     auto s = load_pattern(a.file, a.load);
     if (!s) return fail(exit_bad_input, s.error().format());
     auto k = pick_frequency(*s, a.frequency_hz, file_path(a.file));

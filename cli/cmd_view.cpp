@@ -3,6 +3,7 @@
 #include <memory>
 
 #include "cli/commands.hpp"
+#include "io/atomic_write.hpp"
 #include "cli/usage.hpp"
 #include "cli/frequency_option.hpp"
 #include "cli/load.hpp"
@@ -40,13 +41,13 @@ struct ViewArgs {
     std::string browse;
 };
 
-// The first of the files a scripted run would write that is already there (a dangling link counts).
-std::string existing_output(const ViewArgs& a) {
-    for (const std::string* f : {&a.screenshot, &a.export_cut, &a.export_view}) {
-        std::error_code ec;
-        if (!f->empty() && std::filesystem::exists(std::filesystem::symlink_status(*f, ec))) return *f;
-    }
-    return "";
+// The first refusal of the files a scripted run would write (one already there without --force,
+// a dangling link too; a folder or a device always), before the window opens.
+Status outputs_refused(const ViewArgs& a) {
+    for (const std::string* f : {&a.screenshot, &a.export_cut, &a.export_view})
+        if (!f->empty())
+            if (Status st = io::check_destination(*f, a.force); !st) return st;
+    return Ok{};
 }
 
 // A file named in the window (typed, recent, dropped, chosen) and the map file typed beside it,
@@ -230,8 +231,8 @@ Registered add_view(CLI::App& root) {
                 viewer::ViewerOptions o;
                 for (auto step : {file_options, window_options, look_and_exports, start_state})
                     if (int rc = step(*a, o); rc != exit_ok) return rc;
-                if (const std::string f = existing_output(*a); !f.empty() && !a->force) {
-                    std::cerr << "ellipsa view: " << f << ": already exists; use --force to replace it\n";
+                if (Status st = outputs_refused(*a); !st) {
+                    std::cerr << "ellipsa view: " << st.error().format() << "\n";
                     return exit_bad_input;
                 }
                 o.force = a->force;

@@ -80,12 +80,6 @@ Status check_render_out(const std::string& out) {
     return Error{"", 0, 0, "--out: expected a file name ending in .png, .glb or .ply, found '" + out + "'"};
 }
 
-Status refuse_existing_out(const std::string& out, bool force) {
-    std::error_code ec;
-    if (force || !std::filesystem::exists(out, ec)) return Ok{};
-    return Error{"", 0, 0, out + " exists; use --force to overwrite it"};
-}
-
 Result<std::string> write_render(const FarFieldSet& s, const viewer::SnapshotOptions& o, const std::string& out, bool force) {
     if (viewer::is_surface_file(out)) {
         if (Status st = viewer::write_surface_file(s, o, out, force); !st) return st.error();

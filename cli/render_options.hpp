@@ -43,10 +43,9 @@ Result<viewer::SnapshotOptions> render_options(const RenderChoices& c);
 std::string pair_text(double a, double b, char sep);
 
 // Before any work: an --out name the command cannot write is a usage Error ("--out: expected a
-// file name ending in .png, .glb or .ply, found ..."); an existing file without `force` is an
-// Error too (not a usage one).
+// file name ending in .png, .glb or .ply, found ..."). What is at the path is checked by
+// io::check_destination (an Error, not a usage one).
 Status check_render_out(const std::string& out);
-Status refuse_existing_out(const std::string& out, bool force);
 
 // Writes `out` by its extension: .png the snapshot (headless EGL), .glb/.ply the surface itself
 // (no GL). Returns what the command prints after "wrote OUT ": the image size, or what the

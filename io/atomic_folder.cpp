@@ -59,7 +59,7 @@ Result<std::string> create_temporary(const std::string& target) {
         if (::mkdir(tmp.c_str(), 0777) == 0) return tmp;
         if (errno != EEXIST) break;
     }
-    return Error{target, 0, 0, "cannot create a temporary folder beside it: " + reason(errno)};
+    return Error{target, 0, 0, detail::parent_problem(target, errno)};
 }
 
 // Swap the finished folder with the old one (renameat2 RENAME_EXCHANGE), then delete the old
@@ -96,7 +96,10 @@ Status publish_folder(const std::string& target_in, const std::function<Status(c
     if (target.empty()) return Error{target_in, 0, 0, "expected a folder name"};
     struct stat st {};
     const bool exists = ::lstat(target.c_str(), &st) == 0;
-    if (exists && !S_ISDIR(st.st_mode)) return Error{target, 0, 0, "exists and is not a folder; not replacing it"};
+    if (exists && !S_ISDIR(st.st_mode)) {
+        const std::string kind = detail::unreplaceable_kind(st.st_mode);
+        return Error{target, 0, 0, "exists and is " + (kind.empty() ? std::string("not a folder") : kind) + "; not replacing it"};
+    }
     if (exists && !overwrite) return Error{target, 0, 0, detail::exists_message};
     if (exists)
         if (Status ok = may_replace(target, inputs); !ok) return ok;
@@ -112,7 +115,10 @@ Status publish_folder(const std::string& target_in, const std::function<Status(c
                                        false);
     if (!filled) {
         remove_tree(*tmp);
-        return filled;
+        Error e = filled.error();
+        // Name the file as it would have been in the folder, not under the temporary name.
+        if (e.file.compare(0, tmp->size() + 1, *tmp + "/") == 0) e.file = target + e.file.substr(tmp->size());
+        return e;
     }
     if (exists) return swap_in(*tmp, target);
     if (const int e = detail::rename_no_replace(*tmp, target, true); e != 0) {

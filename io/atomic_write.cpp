@@ -47,16 +47,37 @@ void keep_mode_of(int fd, const struct stat& old) {
         if (::fchown(fd, old.st_uid, old.st_gid) == 0) ::fchmod(fd, old.st_mode & 07777);
 }
 
+// What is at `path` now (lstat: a link is not followed), refused before anything is written when
+// no write may go there; `replacing` says a regular file will be replaced (its mode is kept).
+Status check_target(const std::string& path, bool overwrite, struct stat& old, bool& replacing) {
+    if (path.empty() || path.back() == '/')
+        return Error{path, 0, 0, std::string("expected a file name, found ") + (path.empty() ? "nothing" : "a folder name")};
+    replacing = false;
+    if (::lstat(path.c_str(), &old) != 0) return Ok{};  // nothing there, or a folder problem the create step names
+    if (S_ISDIR(old.st_mode)) return Error{path, 0, 0, "is a folder; expected a file name (a folder is never replaced by a file)"};
+    if (const std::string kind = detail::unreplaceable_kind(old.st_mode); !kind.empty())
+        return Error{path, 0, 0, "is " + kind + ", not a regular file; ellipsa writes regular files only (a device, FIFO or socket is never written to or replaced)"};
+    if (!overwrite) return Error{path, 0, 0, detail::exists_message};
+    replacing = S_ISREG(old.st_mode);
+    return Ok{};
+}
+
 }  // namespace
+
+Status check_destination(const std::string& path, bool overwrite) {
+    struct stat old {};
+    bool replacing = false;
+    return check_target(path, overwrite, old, replacing);
+}
 
 Status write_file_atomically(const std::string& path, std::string_view content, bool overwrite) {
     struct stat old {};
+    bool replacing = false;
     // Refuse early what the last step would refuse anyway (no need to write a large file first).
-    if (!overwrite && ::lstat(path.c_str(), &old) == 0) return Error{path, 0, 0, detail::exists_message};
-    const bool replacing = overwrite && ::stat(path.c_str(), &old) == 0 && S_ISREG(old.st_mode);
+    if (Status ok = check_target(path, overwrite, old, replacing); !ok) return ok;
     std::string tmp;
     const int fd = create_temporary(path, tmp);
-    if (fd < 0) return Error{path, 0, 0, "cannot create a temporary file beside it: " + reason(errno)};
+    if (fd < 0) return Error{path, 0, 0, detail::parent_problem(path, errno)};
     int e = write_all(fd, content);
     if (e == 0 && replacing) keep_mode_of(fd, old);
     if (e == 0 && ::fsync(fd) != 0) e = errno;

@@ -2,6 +2,7 @@
 
 #include <cerrno>
 #include <cstdio>
+#include <cstring>
 #include <fcntl.h>
 #include <random>
 #include <sys/stat.h>
@@ -39,9 +40,30 @@ int rename_no_replace(const std::string& from, const std::string& to, bool folde
     return e;
 }
 
-void sync_parent(const std::string& path) {
+namespace {
+std::string parent_of(const std::string& path) {
     const std::size_t slash = path.rfind('/');
-    const std::string parent = slash == std::string::npos ? "." : slash == 0 ? "/" : path.substr(0, slash);
+    return slash == std::string::npos ? "." : slash == 0 ? "/" : path.substr(0, slash);
+}
+}  // namespace
+
+std::string parent_problem(const std::string& path, int e) {
+    const std::string parent = parent_of(path);
+    if (e == ENOENT) return "cannot write: the folder " + parent + " does not exist";
+    if (e == ENOTDIR) return "cannot write: " + parent + " is not a folder (or a part of it is not)";
+    return "cannot create a file in the folder " + parent + ": " + std::strerror(e);
+}
+
+std::string unreplaceable_kind(unsigned st_mode) {
+    if (S_ISCHR(st_mode)) return "a character device";
+    if (S_ISBLK(st_mode)) return "a block device";
+    if (S_ISFIFO(st_mode)) return "a FIFO (named pipe)";
+    if (S_ISSOCK(st_mode)) return "a socket";
+    return "";
+}
+
+void sync_parent(const std::string& path) {
+    const std::string parent = parent_of(path);
     const int fd = ::open(parent.c_str(), O_RDONLY | O_DIRECTORY | O_CLOEXEC);
     if (fd >= 0) {
         ::fsync(fd);

@@ -17,6 +17,15 @@ int rename_no_replace(const std::string& from, const std::string& to, bool folde
 // Flush the folder that holds `path`, so a rename survives a crash.
 void sync_parent(const std::string& path);
 
+// Why nothing can be created beside `path` (open(2) or mkdir(2) of the temporary failed with
+// errno `e`): names the folder and the reason ("the folder out does not exist", ...).
+std::string parent_problem(const std::string& path, int e);
+
+// Why an existing `st` (from lstat) at the target can never be replaced by a file or folder
+// write, whatever --force says: "" when it can. A device, FIFO or socket is never written
+// (writing through one is not atomic, and replacing its node would remove it).
+std::string unreplaceable_kind(unsigned st_mode);
+
 // "already exists; use --force to replace it": the one message of a refusal to replace.
 inline constexpr const char* exists_message = "already exists; use --force to replace it";
 

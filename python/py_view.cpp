@@ -7,6 +7,7 @@
 #include "python/py_common.hpp"
 #ifdef ELLIPSA_HAVE_VIEWER
 #include "cli/render_options.hpp"
+#include "io/atomic_write.hpp"
 #endif
 
 namespace ellipsa::python {
@@ -23,7 +24,7 @@ void write_view(const Pattern& p, const std::string& path, const std::string& co
     auto o = cli::render_options(c);
     if (!o) throw py::value_error(o.error().message);  // the command's usage message
     if (Status st = cli::check_render_out(path); !st) throw py::value_error(st.error().message);
-    check(cli::refuse_existing_out(path, force));
+    check(io::check_destination(path, force));
     const std::string name = p.path.empty() ? label_of(p.set) : p.path;
     check(cli::refuse_cuts(p.set, name, "a 3D view"));
     o->frequency_index = take(cli::pick_frequency(p.set, frequency_hz, name, false));

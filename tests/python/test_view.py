@@ -124,8 +124,9 @@ def test_existing_file_refused_and_untouched(tmp_path, cli):
         with pytest.raises(ellipsa.Error) as e:
             p.write_view(str(name), size_px=(128, 96))
         assert name.read_bytes() == b"mine"
-    assert str(e.value) == f"{tmp_path / 'v.ply'} exists; use --force to overwrite it"
-    assert err.strip() == f"ellipsa render: {out} exists; use --force to overwrite it"
+    # The one refusal of every writer (io/place.hpp exists_message).
+    assert str(e.value) == f"{tmp_path / 'v.ply'}: already exists; use --force to replace it"
+    assert err.strip() == f"ellipsa render: {out}: already exists; use --force to replace it"
     p.write_view(str(out), size_px=(128, 96), force=True)
     assert out.read_bytes()[:8] == b"\x89PNG\r\n\x1a\n"
 

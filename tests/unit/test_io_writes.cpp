@@ -162,3 +162,58 @@ TEST_CASE("with overwrite, only a folder ellipsa made is replaced, never one hol
     CHECK(fs::exists(made / "input.csv"));
     fs::remove_all(root);
 }
+
+TEST_CASE("a folder, a device or a FIFO at the path is refused up front, even with overwrite", "[io]") {
+    const fs::path root = scratch("kinds");
+    fs::create_directories(root / "dir.csv");
+    REQUIRE(::mkfifo((root / "pipe.csv").c_str(), 0644) == 0);
+    for (bool overwrite : {false, true}) {
+        auto dir = io::write_file_atomically((root / "dir.csv").string(), "x", overwrite);
+        REQUIRE_FALSE(dir.ok());
+        CHECK_THAT(dir.error().message, Contains("is a folder"));
+        auto pipe = io::write_file_atomically((root / "pipe.csv").string(), "x", overwrite);
+        REQUIRE_FALSE(pipe.ok());  // never opened: opening a FIFO for writing would wait for a reader
+        CHECK_THAT(pipe.error().message, Contains("FIFO"));
+        // /dev/null: a rename over it would remove the node, a write through it is not atomic.
+        auto dev = io::write_file_atomically("/dev/null", "x", overwrite);
+        REQUIRE_FALSE(dev.ok());
+        CHECK_THAT(dev.error().message, Contains("character device"));
+        CHECK(io::check_destination("/dev/null", overwrite).error().message == dev.error().message);
+    }
+    CHECK(fs::is_directory(root / "dir.csv"));
+    CHECK(fs::is_fifo(root / "pipe.csv"));
+    CHECK(fs::is_character_file("/dev/null"));
+    fs::remove_all(root);
+}
+
+TEST_CASE("a missing folder or a file in the path: the message names the folder", "[io]") {
+    const fs::path root = scratch("parent");
+    auto missing = io::write_file_atomically((root / "no" / "a.csv").string(), "x", true);
+    REQUIRE_FALSE(missing.ok());
+    CHECK(missing.error().file == (root / "no" / "a.csv").string());
+    CHECK_THAT(missing.error().message, Contains("the folder " + (root / "no").string() + " does not exist"));
+    std::ofstream(root / "f") << "keep";
+    auto through_file = io::write_file_atomically((root / "f" / "a.csv").string(), "x", true);
+    REQUIRE_FALSE(through_file.ok());
+    CHECK_THAT(through_file.error().message, Contains("is not a folder"));
+    CHECK(read_file(root / "f") == "keep");
+    CHECK_FALSE(io::write_file_atomically("", "x", true).ok());
+    CHECK_FALSE(io::write_file_atomically((root / "end/").string(), "x", true).ok());
+    CHECK_FALSE(fs::exists(root / "no"));
+    fs::remove_all(root);
+}
+
+TEST_CASE("with overwrite a link is replaced, never followed", "[io]") {
+    const fs::path root = scratch("follow");
+    std::ofstream(root / "target.csv") << "theirs";
+    fs::create_symlink("target.csv", root / "out.csv");
+    fs::create_symlink("nowhere.csv", root / "dangling.csv");
+    REQUIRE(io::write_file_atomically((root / "out.csv").string(), "new", true).ok());
+    REQUIRE(io::write_file_atomically((root / "dangling.csv").string(), "new", true).ok());
+    CHECK_FALSE(fs::is_symlink(root / "out.csv"));
+    CHECK(read_file(root / "out.csv") == "new");
+    CHECK(read_file(root / "target.csv") == "theirs");
+    CHECK_FALSE(fs::is_symlink(root / "dangling.csv"));
+    CHECK_FALSE(fs::exists(root / "nowhere.csv"));
+    fs::remove_all(root);
+}
