@@ -5,6 +5,7 @@
 #include <memory>
 #include <optional>
 
+#include "exports/cut_plot.hpp"
 #include "cli/commands.hpp"
 #include "io/atomic_write.hpp"
 #include "cli/usage.hpp"
@@ -139,7 +140,7 @@ Registered add_cut(CLI::App& root) {
                   "after each gain column. Relative to the phase reference (--phase-centre moves it); not for total");
     add_frequency_option(sub, a->frequency_hz, "Frequency (nearest within 0.5 %; default the middle one of the file)");
     sub->add_option("--range", a->range_db, "Dynamic range shown below the top of the scale, dB (default 40)")
-        ->check(number_from_to(3.0, 200.0));
+        ->check(number_from_to(exports::min_range_db, exports::max_range_db));
     sub->add_option("--title", a->title, "Figure title (default: the pattern's name)");
     sub->add_option("--size", a->size, "Image size WIDTHxHEIGHT in pixels (default 1200x900); SVG/PDF get the same physical size")
         ->check(pixel_size(exports::min_size_px, exports::min_size_px, exports::max_size_px));

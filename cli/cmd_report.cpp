@@ -5,6 +5,7 @@
 #include <memory>
 #include <optional>
 
+#include "exports/cut_plot.hpp"
 #include "cli/commands.hpp"
 #include "cli/usage.hpp"
 #include "exports/render.hpp"
@@ -81,7 +82,7 @@ Registered add_report(CLI::App& root) {
     sub->add_option("--size", a->size, "Cut figure size WIDTHxHEIGHT in pixels (default 1200x900)")
         ->check(pixel_size(exports::min_size_px, exports::min_size_px, exports::max_size_px));
     sub->add_option("--dpi", a->dpi, "Dots per inch of the figures (default 150)")->check(number_from_to(exports::min_dpi, exports::max_dpi));
-    sub->add_option("--range", a->range_db, "Dynamic range of the cut plots, dB (default 40)")->check(number_from_to(3.0, 200.0));
+    sub->add_option("--range", a->range_db, "Dynamic range of the cut plots, dB (default 40)")->check(number_from_to(exports::min_range_db, exports::max_range_db));
     sub->add_option("--style", a->style, "Cut figures: polar (default) or rect")->check(one_of({"polar", "rect"}));
     add_environment_options(sub, a->environment);
     sub->add_flag("--force", a->force, "Replace the output folder if it exists");

@@ -9,6 +9,8 @@
 #include <ctime>
 
 #include "cli/version.hpp"
+#include "exports/cut_plot.hpp"
+#include "importers/text.hpp"
 #include "io/atomic_folder.hpp"
 
 namespace ellipsa::cli {
@@ -40,8 +42,9 @@ Result<std::string> report_date() {
 
 Result<exports::ReportOptions> report_options(const ReportChoices& c, const exports::RenderSize& size,
                                              const ChosenEnvironment& environment) {
-    if (!(std::isfinite(c.range_db) && c.range_db >= 3 && c.range_db <= 200))
-        return Error{"", 0, 0, "--range: expected a number of dB from 3 to 200"};
+    if (!(std::isfinite(c.range_db) && c.range_db >= exports::min_range_db && c.range_db <= exports::max_range_db))
+        return Error{"", 0, 0, "--range: expected a number of dB from " + text::number(exports::min_range_db) + " to " +
+                                   text::number(exports::max_range_db)};
     exports::ReportOptions o;
     o.title = c.title;
     o.frequency_hz = c.frequency_hz;

@@ -39,6 +39,10 @@ struct PlotCurve {
     std::optional<BeamFigures> beam;  // its row of the table: peak, HPBW, F/B, side lobe
 };
 
+// The dynamic range a cut plot takes (`ellipsa cut --range`, the report's, Python's write_cut),
+// dB below the top of the scale: enough for one grid step, no more than the scale can label.
+inline constexpr double min_range_db = 3, max_range_db = 200;
+
 struct CutPlot {
     PlotStyle style = PlotStyle::polar;
     AngleLayout layout = AngleLayout::signed_half;
@@ -49,7 +53,7 @@ struct CutPlot {
     std::string value_unit = "dBi";
     std::string negative_side, positive_side;  // signed layout: what the two halves are ("φ = 180°")
     std::string axis_note;  // what the angle axis means and which way is positive (cut_axis_text)
-    double range_db = 40;
+    double range_db = 40;  // from min_range_db to max_range_db
     std::optional<double> top_db;  // default: the highest value, rounded up (db_scale)
     std::vector<PlotCurve> curves;
     int marked_curve = 0;  // the curve that gets -3 dB markers (-1: none)

@@ -68,12 +68,22 @@ Result<PixelSize> parse_pixel_size(std::string_view text, const PixelLimits& lim
     return r;
 }
 
+namespace {
+// A limit as the user types it ("36", "2400", "0.5").
+std::string limit_text(double v) {
+    char b[32];
+    std::snprintf(b, sizeof b, "%.15g", v);
+    return b;
+}
+}  // namespace
+
 Result<RenderSize> parse_size(std::string_view text, double dpi) {
     auto px = parse_pixel_size(text, {min_size_px, min_size_px, max_size_px});
     if (!px) return px.error();
     RenderSize r;
     r.width_px = px->width_px, r.height_px = px->height_px;
-    if (!(dpi >= min_dpi && dpi <= max_dpi)) return Error{"--dpi", 0, 0, "expected 36..2400 dots per inch"};
+    if (!(dpi >= min_dpi && dpi <= max_dpi))
+        return Error{"--dpi", 0, 0, "expected a number of dots per inch from " + limit_text(min_dpi) + " to " + limit_text(max_dpi)};
     r.dpi = dpi;
     return r;
 }

@@ -28,7 +28,8 @@ struct RenderSize {
     double width_pt() const { return width_px * 72.0 / dpi; }
     double height_pt() const { return height_px * 72.0 / dpi; }
 };
-// "1200x900" -> size (each side 16..20000 pixels); an Error says what was expected otherwise.
+// "1200x900" -> size (each side min_size_px..max_size_px pixels, dpi min_dpi..max_dpi); an Error
+// says what was expected otherwise.
 Result<RenderSize> parse_size(std::string_view text, double dpi);
 // The limits parse_size checks: dots per inch and pixels on a side.
 inline constexpr double min_dpi = 36, max_dpi = 2400;

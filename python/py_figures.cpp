@@ -1,6 +1,8 @@
 // Pattern.info(), Pattern.summary() (the figures of `ellipsa info`, through the command's own JSON),
 // Pattern.cut() (the core's cuts and beam figures) and coverage() (`ellipsa coverage`, through the
 // command's own code, cli/coverage_json.hpp).
+#include "exports/cut_plot.hpp"
+#include "importers/text.hpp"
 #include "cli/coverage_json.hpp"
 #include "cli/info_json.hpp"
 #include "cli/load.hpp"
@@ -110,7 +112,9 @@ void write_cut(const Pattern& p, const std::string& path, std::optional<double> 
     r.components.clear();
     for (const std::string& c : components) r.components.push_back(component_named(c));
     if (!exports::parse_plot_style(style, r.figure.style)) throw py::value_error("style: expected \"polar\" or \"rect\"");
-    if (!(range_db > 0 && range_db <= 200)) throw py::value_error("range_db: expected 0 < range_db <= 200");
+    if (!(range_db >= exports::min_range_db && range_db <= exports::max_range_db))
+        throw py::value_error("range_db: expected a number of dB from " + text::number(exports::min_range_db) + " to " +
+                              text::number(exports::max_range_db));
     r.figure.range_db = range_db, r.figure.title = title;
     r.size = render_size(size_px, dpi);
     r.step_deg = step_deg.value_or(0);

@@ -474,3 +474,19 @@ def test_phases_are_the_cli_probe(cli_json):
     ok = np.isfinite(c["phase_deg"]["rhcp"])
     assert ok.sum() > 100
     np.testing.assert_allclose(c["phase_deg"]["rhcp"][ok], np.degrees(np.angle(e_r[ok])), atol=1e-9)
+
+
+def test_cut_range_and_dpi_limits_as_the_cli(tmp_path, cli):
+    # One set of limits for the cut plot's range (exports/cut_plot.hpp) and the dpi
+    # (exports/render.hpp): the module refuses what `ellipsa cut` refuses, in the same numbers.
+    p = ellipsa.synth("short-dipole", step_deg=10)
+    code, _, err = cli("cut", "-", "--phi", "0", "--range", "2", "--out", tmp_path / "c.svg")
+    assert code == 2 and "from 3 to 200" in err
+    with pytest.raises(ValueError, match="from 3 to 200"):
+        p.write_cut(str(tmp_path / "c.svg"), phi_deg=0, range_db=2)
+    with pytest.raises(ValueError, match="from 3 to 200"):
+        p.write_cut(str(tmp_path / "c.svg"), phi_deg=0, range_db=201)
+    with pytest.raises((ValueError, ellipsa.Error), match="from 36 to 2400"):
+        p.write_cut(str(tmp_path / "c.svg"), phi_deg=0, dpi=2401)
+    p.write_cut(str(tmp_path / "c.svg"), phi_deg=0, range_db=3, dpi=36)
+    assert (tmp_path / "c.svg").exists()

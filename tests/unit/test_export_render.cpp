@@ -144,6 +144,10 @@ TEST_CASE("sizes and formats are parsed strictly", "[export]") {
     CHECK_FALSE(parse_size("0x10", 150).ok());
     CHECK_FALSE(parse_size("12ax10", 150).ok());
     CHECK_FALSE(parse_size("800x600", 5).ok());
+    // The limits in the message are the constants the check uses (min_dpi, max_dpi).
+    CHECK(parse_size("800x600", max_dpi + 1).error().message == "expected a number of dots per inch from 36 to 2400");
+    CHECK(parse_size("800x600", min_dpi).ok());
+    CHECK(parse_size("800x600", max_dpi).ok());
     CHECK(format_from_path("a/b.SVG") == FileFormat::svg);
     CHECK(format_from_path("x.pdf") == FileFormat::pdf);
     CHECK(format_from_path("x.png") == FileFormat::png);
