@@ -12,6 +12,7 @@
 #include <chrono>
 #include <cstdio>
 #include <cstdlib>
+#include <filesystem>
 #include <iostream>
 #include <thread>
 
@@ -24,6 +25,7 @@
 #include "viewer/frame.hpp"
 #include "viewer/gl.hpp"
 #include "viewer/pattern_files.hpp"
+#include "viewer/scene/settings.hpp"
 #include "viewer/scripted_run.hpp"
 #include "viewer/settings_file.hpp"
 #include "viewer/state/apply.hpp"
@@ -132,11 +134,36 @@ Result<std::size_t> start_frequency(double hz, const AppState& s) {
 }
 
 // --- Effects and derived data ---
+// A recent-list entry: its file (whole, even with "::" in its name) and the files joined to it.
+// A file no longer there goes to the loader as it is, whose message names it.
+void start_recent(const Effects::Load& l, FileLoader& loader, const PrepareFile& prepare, Intents& out) {
+    auto is_file = [](const std::string& p) {
+        std::error_code ec;
+        return std::filesystem::is_regular_file(p, ec);
+    };
+    const RecentEntry e = split_recent_entry(l.path, is_file);
+    if (!prepare || !is_file(e.path)) {
+        loader.enqueue(e.path, l.map);
+        return;
+    }
+    auto r = prepare(e.path, l.map);  // an existing file: taken whole
+    if (!r) {
+        out.push_back(intent::LoadFinished{e.path, e.path, r.error()});
+        return;
+    }
+    r->join = e.join;
+    loader.enqueue(std::move(*r));
+}
+
 // Files named in the window, read as the command line reads a FILE argument when `prepare` is
 // given; a name it refuses comes back as a failed load.
 Intents start_loads(const Effects& fx, FileLoader& loader, const PrepareFile& prepare) {
     Intents out;
     for (const Effects::Load& l : fx.load) {
+        if (l.recent) {
+            start_recent(l, loader, prepare, out);
+            continue;
+        }
         if (!prepare) {
             loader.enqueue(l.path, l.map);
             continue;

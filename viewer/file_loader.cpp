@@ -6,6 +6,7 @@
 #include <thread>
 
 #include "viewer/pattern_files.hpp"
+#include "viewer/scene/settings.hpp"
 
 namespace ellipsa::viewer {
 
@@ -40,12 +41,6 @@ void FileLoader::enqueue(FileRequest r) {
     waiting_.push_back({std::move(r.path), "", std::move(r.options), std::move(r.install), std::move(r.join)});
 }
 
-std::string joined_file_text(const std::string& path, const std::vector<std::string>& join) {
-    std::string out = path;
-    for (const std::string& j : join) out += "::join=" + j;
-    return out;
-}
-
 void FileLoader::cancel_current() {
     if (current_) current_->cancel = true;
 }
@@ -60,7 +55,7 @@ Intents FileLoader::poll() {
         std::error_code ec;
         std::vector<std::string> abs_join;
         for (const std::string& f : j.join) abs_join.push_back(std::filesystem::absolute(f, ec).string());
-        const std::string abs = joined_file_text(std::filesystem::absolute(j.path, ec).string(), abs_join);
+        const std::string abs = recent_entry(std::filesystem::absolute(j.path, ec).string(), abs_join);
         if (j.cancel)
             out.push_back(intent::LoadFinished{j.path, abs, Error{j.path, 0, 0, "loading cancelled"}});
         else if (j.result)

@@ -30,9 +30,6 @@ struct FileRequest {
 // alone, with its map file or the one beside it.
 using PrepareFile = std::function<Result<FileRequest>(const std::string& text, const std::string& map)>;
 
-// The text that names a joined pattern as a FILE argument ("PATH::join=OTHER..."), as the recent
-// files keep it: read back through PrepareFile. A single file is its path.
-std::string joined_file_text(const std::string& path, const std::vector<std::string>& join);
 
 class FileLoader {
 public:

@@ -59,7 +59,7 @@ void file_menu(const AppState& s, Intents& in) {
     if (ImGui::MenuItem("Open in this window...")) in.push_back(intent::ShowBrowser{browse_from(s)});
     ImGui::Separator();
     for (const std::string& f : s.settings.recent_files)
-        if (ImGui::MenuItem(f.c_str())) in.push_back(intent::OpenFiles{{f}, ""});
+        if (ImGui::MenuItem(f.c_str())) in.push_back(intent::OpenFiles{{f}, "", true});
     if (s.settings.recent_files.empty()) ImGui::MenuItem("(no recent files)", nullptr, false, false);
     ImGui::Separator();
     if (ImGui::MenuItem("Export 3D view as PNG", "Ctrl+E")) in.push_back(intent::ExportView{timestamped_name("ellipsa-view", "png"), false});

@@ -64,7 +64,7 @@ void open_controls(const AppState& s, Intents& in) {
     ImGui::SetNextItemWidth(-1);
     if (ImGui::BeginCombo("##recent", "Recent files", ImGuiComboFlags_HeightLarge)) {
         for (const std::string& f : s.settings.recent_files)
-            if (ImGui::Selectable(f.c_str())) in.push_back(intent::OpenFiles{{f}, ""});
+            if (ImGui::Selectable(f.c_str())) in.push_back(intent::OpenFiles{{f}, "", true});
         ImGui::EndCombo();
     }
 }

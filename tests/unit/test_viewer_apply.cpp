@@ -226,7 +226,13 @@ TEST_CASE("loading: files go out as effects, results come back as intents", "[vi
     REQUIRE(fx.load.size() == 2);
     CHECK(fx.load[1].path == "b.csv");
     CHECK(fx.load[1].map == "m.map");
+    CHECK_FALSE(fx.load[1].recent);  // typed or dropped: read as a FILE argument
     CHECK(fx.cancel_load);
+    // From the recent list: marked, so the entry is read back by split_recent_entry.
+    const Effects recent = run(s, intent::OpenFiles{{"/d/a::b.csv"}, "", true});
+    REQUIRE(recent.load.size() == 1);
+    CHECK(recent.load[0].recent);
+    CHECK(recent.load[0].path == "/d/a::b.csv");
     run(s, intent::LoadFinished{"bad.csv", "/x/bad.csv", Error{"bad.csv", 3, 1, "expected a number"}});
     CHECK(s.patterns.size() == 3);
     CHECK(s.load_error == "bad.csv:3:1: expected a number");

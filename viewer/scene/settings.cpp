@@ -18,6 +18,48 @@ void ViewerSettings::remember_file(const std::string& path) {
     if (recent_files.size() > max_recent) recent_files.resize(max_recent);
 }
 
+std::string recent_entry(const std::string& path, const std::vector<std::string>& join) {
+    std::string out = path;
+    for (const std::string& j : join) out += "::join=" + j;
+    return out;
+}
+
+namespace {
+constexpr std::string_view join_mark = "::join=";
+
+// The entry cut at every "::join=" (the form as written).
+std::vector<std::string> pieces_of(const std::string& entry) {
+    std::vector<std::string> pieces;
+    std::size_t from = 0;
+    for (std::size_t at; (at = entry.find(join_mark, from)) != std::string::npos; from = at + join_mark.size())
+        pieces.push_back(entry.substr(from, at - from));
+    pieces.push_back(entry.substr(from));
+    return pieces;
+}
+}  // namespace
+
+RecentEntry split_recent_entry(const std::string& entry, const std::function<bool(const std::string&)>& is_file) {
+    if (is_file(entry)) return {entry, {}};
+    const std::vector<std::string> pieces = pieces_of(entry);
+    // Greedy: each file is the shortest run of pieces that names an existing file.
+    std::vector<std::string> files;
+    std::string current = pieces[0];
+    for (std::size_t i = 1; i < pieces.size(); ++i) {
+        if (is_file(current)) {
+            files.push_back(current);
+            current = pieces[i];
+        } else {
+            current += std::string(join_mark) + pieces[i];
+        }
+    }
+    if (is_file(current)) files.push_back(current);
+    else  // the rest names no file (moved away since): cut as written
+        for (std::string& p : pieces_of(current)) files.push_back(std::move(p));
+    RecentEntry e{files[0], {}};
+    e.join.assign(files.begin() + 1, files.end());
+    return e;
+}
+
 namespace {
 std::string trim(const std::string& s) {
     const auto a = s.find_first_not_of(" \t\r"), b = s.find_last_not_of(" \t\r");

@@ -3,6 +3,7 @@
 // the pure part: the values, and their text form. Unknown keys and bad values are skipped and
 // reported, so an old or hand-edited file never stops the viewer from starting.
 #pragma once
+#include <functional>
 #include <string>
 #include <vector>
 
@@ -38,6 +39,21 @@ struct ViewerSettings {
     void remember_file(const std::string& path);
     bool operator==(const ViewerSettings&) const = default;
 };
+
+// A recent file as the list keeps it: the file's absolute path, then "::join=OTHER" for each file
+// joined to it (the text of a FILE argument, so an entry reads as on the command line).
+std::string recent_entry(const std::string& path, const std::vector<std::string>& join);
+// An entry read back: the file and the files joined to it. A path may itself hold "::" (legal on
+// Linux), so the text is not parsed as FILE::options: an entry that names an existing file as a
+// whole is that file; else it is cut at "::join=" only where the text before names an existing
+// file; a rest that names no file (moved away since) is cut at every "::join=", as written.
+// `is_file` says whether a path names an existing file (the caller's file system; tests fake it).
+struct RecentEntry {
+    std::string path;
+    std::vector<std::string> join;
+    bool operator==(const RecentEntry&) const = default;
+};
+RecentEntry split_recent_entry(const std::string& entry, const std::function<bool(const std::string&)>& is_file);
 
 std::string format_settings(const ViewerSettings& s);
 // Parse settings text: a pure function of the text (no I/O), linear in its length. Every value

@@ -170,7 +170,7 @@ struct Apply {
 
     void operator()(intent::OpenFiles& i) {
         for (std::string& p : i.paths)
-            if (!p.empty()) fx.load.push_back({std::move(p), i.map});
+            if (!p.empty()) fx.load.push_back({std::move(p), i.map, i.recent});
     }
     void operator()(intent::CancelLoad&) { fx.cancel_load = true; }
     void operator()(intent::LoadStatus& i) { s.loading = std::move(i.now); }

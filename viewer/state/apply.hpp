@@ -14,6 +14,7 @@ namespace ellipsa::viewer {
 struct Effects {
     struct Load {
         std::string path, map;
+        bool recent = false;  // `path` is a recent-list entry (split_recent_entry reads it)
     };
     std::vector<Load> load;  // files to read, in order
     bool cancel_load = false;

@@ -19,7 +19,8 @@ namespace intent {
 // --- Patterns and files ---
 struct OpenFiles {  // read these files (in the background, one after the other)
     std::vector<std::string> paths;
-    std::string map;  // column-map file for them; "" looks beside each file
+    std::string map;      // column-map file for them; "" looks beside each file
+    bool recent = false;  // the paths are recent-list entries (recent_entry(), scene/settings.hpp)
 };
 struct CancelLoad {};
 struct OpenFileDialog {};  // File > Open: the desktop's dialog when there is one, else the in-window browser
