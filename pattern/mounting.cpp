@@ -38,7 +38,8 @@ std::optional<double> number(std::string_view t) {
     return v;
 }
 
-std::string quoted(std::string_view t) { return "\"" + std::string(t) + "\""; }
+// Appended piece by piece: `"\"" + std::string(t)` makes g++ 12 -O3 warn -Wrestrict (GCC bug 105329).
+std::string quoted(std::string_view t) { return std::string("\"").append(t).append("\""); }
 
 std::string number_text(double v) {
     if (v == 0) v = 0;  // no "-0"
@@ -113,7 +114,10 @@ std::string format_up(Vec3 up) {
 
 std::string format_turns(const std::vector<AxisTurn>& turns) {
     std::string s;
-    for (const AxisTurn& t : turns) s += (s.empty() ? "" : ",") + std::string(to_string(t.axis)) + ":" + number_text(t.angle_deg);
+    for (const AxisTurn& t : turns) {
+        if (!s.empty()) s += ',';
+        s.append(to_string(t.axis)).append(":").append(number_text(t.angle_deg));
+    }
     return s;
 }
 

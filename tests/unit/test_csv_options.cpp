@@ -107,7 +107,7 @@ TEST_CASE("semicolon and tab delimiters, decimal commas, CRLF, BOM, quotes, blan
     CHECK(std::norm(at(s, 90, 90)) == Approx(std::pow(10.0, -0.35)));
     std::string tab = "theta\tphi\te_total_db\n";
     for (int t : {0, 90, 180})
-        for (int p : {0, 90, 180, 270}) tab += " " + std::to_string(t) + "\t" + std::to_string(p) + "\t\"+1.5\"\t\n";
+        for (int p : {0, 90, 180, 270}) tab.append(" ").append(std::to_string(t) + "\t" + std::to_string(p) + "\t\"+1.5\"\t\n");
     s = load(tab);
     CHECK(std::norm(at(s, 180, 270)) == Approx(std::pow(10.0, 0.15)));
     // Decimal commas are not numbers when the delimiter is a comma.
