@@ -111,7 +111,7 @@ TEST_CASE("two writers racing for one new name: exactly one succeeds", "[io]") {
     const fs::path root = scratch("race");
     int both = 0, none = 0;
     for (int round = 0; round < 40; ++round) {
-        const std::string target = (root / ("f" + std::to_string(round))).string();
+        const std::string target = (root / "f").string() + std::to_string(round);
         std::atomic<int> ready{0};
         bool ok[2] = {false, false};
         auto run = [&](int k) {
