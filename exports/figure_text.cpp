@@ -233,7 +233,16 @@ std::string fixed(double v, const char* format) {
 }
 std::string metres(double v) { return fixed(v, "%.4f"); }
 std::string wavelengths(double v) { return fixed(v, "%.3f"); }
-std::string triple(Vec3 v, std::string (*f)(double)) { return "(" + f(v.x) + ", " + f(v.y) + ", " + f(v.z) + ")"; }
+std::string triple(Vec3 v, std::string (*f)(double)) {
+    std::string t = "(";  // appended piece by piece: "(" + std::string&& trips g++ 12's -Wrestrict (GCC bug 105329)
+    t += f(v.x);
+    t += ", ";
+    t += f(v.y);
+    t += ", ";
+    t += f(v.z);
+    t += ")";
+    return t;
+}
 double wavelength_m(const FarField& f) { return f.frequency_hz > 0 ? speed_of_light_m_per_s / f.frequency_hz : 0; }
 }  // namespace
 

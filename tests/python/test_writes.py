@@ -85,8 +85,18 @@ def run_child(name, path, *, unprivileged=False, fsize=None):
             signal.signal(signal.SIGXFSZ, signal.SIG_IGN)  # the write then fails with EFBIG
             resource.setrlimit(resource.RLIMIT_FSIZE, (fsize, fsize))
 
-    r = subprocess.run([*prefix, sys.executable, "-c", code], capture_output=True, text=True,
-                       env=dict(os.environ), preexec_fn=limit, timeout=120, check=False)
+    env = dict(os.environ)
+    with tempfile.TemporaryDirectory(prefix="ellipsa-module-") as shared:
+        if prefix:
+            # User nobody may not enter the build folder (a checkout under a private home or a
+            # 0700 temporary folder): the child imports a copy of the module from a folder every
+            # user may read, and starts in "/".
+            os.chmod(shared, 0o755)
+            shutil.copy2(ellipsa.__file__, shared)
+            os.chmod(os.path.join(shared, os.path.basename(ellipsa.__file__)), 0o755)
+            env["PYTHONPATH"] = shared
+        r = subprocess.run([*prefix, sys.executable, "-c", code], capture_output=True, text=True, cwd="/",
+                           env=env, preexec_fn=limit, timeout=120, check=False)
     return r.returncode, r.stdout + r.stderr
 
 
