@@ -44,7 +44,8 @@ struct GridTrig {
 // without branches so that the compiler can take two samples a vector register: the operations
 // of the complex expressions there (dot, projection, conj(u) . e / |u|) in the same order, so the
 // same values bit for bit while no product overflows (fields below 1e100, see copolar_field).
-void copolar_row(const CVec3& p, double st, double ct, const GridTrig& tr, const double* et, const double* ep, double* co) {
+void copolar_row(const CVec3& p, double st, double ct, const GridTrig& tr, const double* et, const double* ep, double* co,
+                 double* power) {
     const double pxr = p.x.real(), pxi = p.x.imag(), pyr = p.y.real(), pyi = p.y.imag(), pzr = p.z.real(), pzi = p.z.imag();
     const std::size_t n = tr.sp.size();
     for (std::size_t j = 0; j < n; ++j) {
@@ -61,32 +62,50 @@ void copolar_row(const CVec3& p, double st, double ct, const GridTrig& tr, const
         const double sr = (uxr * exr - (-uxi) * exi) + (uyr * eyr - (-uyi) * eyi) + (uzr * ezr - (-uzi) * ezi);
         const double si = (uxr * exi + (-uxi) * exr) + (uyr * eyi + (-uyi) * eyr) + (uzr * ezi + (-uzi) * ezr);
         const bool has = nu > 1e-9;  // else the reference polarisation points along r: no co-polar part
-        co[2 * j] = has ? sr / nu : 0.0;
-        co[2 * j + 1] = has ? si / nu : 0.0;
+        const double cr = has ? sr / nu : 0.0, ci = has ? si / nu : 0.0;
+        co[2 * j] = cr;
+        co[2 * j + 1] = ci;
+        power[j] = cr * cr + ci * ci;  // std::norm's arithmetic
     }
 }
 
-// Co-polar field u(r)^H E(r) at every sample (u: the peak's polarisation carried to r).
-void copolar_field(const Grid& g, const GridTrig& tr, const FarField& f, std::vector<cplx>& co) {
+// Co-polar field u(r)^H E(r) at every sample (u: the peak's polarisation carried to r), and its
+// power |co|^2 (power). A row whose every sample's total power lies below the region's level
+// (phase_centre_region_db under the peak's) cannot join the region, since |co| <= |E|: its co-polar
+// field is left zero instead of computed, which changes nothing the estimate reads.
+void copolar_field(const Grid& g, const GridTrig& tr, const FarField& f, std::vector<cplx>& co, std::vector<double>& power,
+                   std::vector<double>& row_top) {
     std::size_t best = 0;
     double best_p = -1;
     bool moderate = true;  // every |E|^2 below 1e200 (no NaN): copolar_row's condition
-    for (std::size_t k = 0; k < g.size(); ++k) {
-        const double p = power(f.e_theta[k], f.e_phi[k]);
-        moderate &= p < 1e200;
-        if (p > best_p) best_p = p, best = k;
-    }
     const int pc = g.phi.count;
+    row_top.assign(std::size_t(g.theta.count), 0.0);
+    for (int i = 0; i < g.theta.count; ++i) {
+        double top = 0;
+        for (std::size_t k = g.index(i, 0), e = k + std::size_t(pc); k < e; ++k) {
+            const double p = ellipsa::power(f.e_theta[k], f.e_phi[k]);
+            moderate &= p < 1e200;
+            top = std::max(top, p);
+            if (p > best_p) best_p = p, best = k;
+        }
+        row_top[std::size_t(i)] = top;
+    }
     const CVec3 e0 = cartesian_at(g, f, int(best / std::size_t(pc)), int(best % std::size_t(pc)));
     const double n0 = std::sqrt(std::norm(e0.x) + std::norm(e0.y) + std::norm(e0.z));
     co.assign(g.size(), cplx(0, 0));
+    power.assign(g.size(), 0.0);
     if (!(n0 > 0)) return;
     const CVec3 p = (1.0 / n0) * e0;
+    // Below this, a sample's co-polar power is under the region's level whatever rounding does
+    // (the co-polar peak is the total peak, to rounding; the margin is a millionth).
+    const double below = best_p * std::pow(10.0, -phase_centre_region_db / 10) * (1 - 1e-6);
     for (int i = 0; i < g.theta.count; ++i) {
         const std::size_t row = g.index(i, 0);
         if (moderate) {  // std::complex's layout: re, im
+            if (row_top[std::size_t(i)] < below) continue;
             copolar_row(p, tr.st[i], tr.ct[i], tr, reinterpret_cast<const double*>(f.e_theta.data() + row),
-                        reinterpret_cast<const double*>(f.e_phi.data() + row), reinterpret_cast<double*>(co.data() + row));
+                        reinterpret_cast<const double*>(f.e_phi.data() + row), reinterpret_cast<double*>(co.data() + row),
+                        power.data() + row);
             continue;
         }
         for (int j = 0; j < pc; ++j) {
@@ -98,6 +117,7 @@ void copolar_field(const Grid& g, const GridTrig& tr, const FarField& f, std::ve
             const std::size_t k = g.index(i, j);
             const CVec3 e = f.e_theta[k] * tr.theta_hat(i, j) + f.e_phi[k] * tr.phi_hat(j);  // cartesian_at
             co[k] = (std::conj(u.x) * e.x + std::conj(u.y) * e.y + std::conj(u.z) * e.z) / nu;
+            power[k] = std::norm(co[k]);
         }
     }
 }
@@ -112,31 +132,41 @@ double round_half_away(double x) {
     return std::copysign(r, x);
 }
 
-double wrap_pi(double a) { return a - 2 * pi * round_half_away(a / (2 * pi)); }
+// a - 2 pi round(a / 2 pi). Within +-3 radians the rounding gives (signed) zero, so the result is
+// a + 0.0 (a, with -0 made +0, as a - 2 pi * (-0) makes it): the same bits, without the divide.
+// What unwrap_region finds of a sample.
+enum RegionState : unsigned char { below_level, candidate, in_region };
+
+double wrap_pi(double a) {
+    if (std::abs(a) < 3.0) return a + 0.0;
+    return a - 2 * pi * round_half_away(a / (2 * pi));
+}
 
 // Quality-guided unwrapping from the co-polar peak over the samples within the region's level.
-// power: |co|^2 of every sample (made here); psi: unwrapped phase (rad) where in_region is set.
+// power: |co|^2 of every sample (copolar_field); psi: unwrapped phase (rad) where region is
+// in_region (elsewhere unset); region: of every sample, whether it is in the region (in_region), at
+// or above the level but not reached from the peak (a candidate, ruled out), or below the level.
 // The phases of the samples that may join (at or above the level) are taken in one pass over the
 // grid first: the walk then reads 16 bytes a sample (power and phase) in the order it finds
 // them, instead of the 16-byte complex value and an atan2 waiting on it.
-void unwrap_region(const Grid& g, const std::vector<cplx>& co, std::vector<double>& power, std::vector<double>& psi,
-                   std::vector<unsigned char>& in_region, PowerQueue& heap) {
-    power.resize(co.size());
+void unwrap_region(const Grid& g, const std::vector<cplx>& co, const std::vector<double>& power, std::vector<double>& psi,
+                   std::vector<unsigned char>& region, PowerQueue& heap) {
     std::size_t peak = 0;
-    for (std::size_t k = 0; k < co.size(); ++k) {
-        power[k] = std::norm(co[k]);
+    for (std::size_t k = 0; k < co.size(); ++k)
         if (power[k] > power[peak]) peak = k;
-    }
     const double floor = power[peak] * std::pow(10.0, -phase_centre_region_db / 10);
-    psi.assign(co.size(), 0.0);
-    in_region.assign(co.size(), 0);
+    psi.resize(co.size());
+    region.assign(co.size(), below_level);
     if (!(power[peak] > 0)) return;
     for (std::size_t k = 0; k < co.size(); ++k)  // the phase of each sample that may join; psi once it has
-        if (power[k] >= floor) psi[k] = std::arg(co[k]);
+        if (power[k] >= floor) {
+            psi[k] = std::arg(co[k]);
+            region[k] = candidate;
+        }
     const int nt = g.theta.count, np = g.phi.count;
     const bool wraps = g.phi_wraps();
     heap.reset(floor, power[peak]);
-    in_region[peak] = 1;
+    region[peak] = in_region;
     heap.push({power[peak], std::uint32_t(peak / std::size_t(np)), std::uint32_t(peak % std::size_t(np))});
     while (!heap.empty()) {
         const PowerQueue::Entry e = heap.pop();
@@ -152,9 +182,9 @@ void unwrap_region(const Grid& g, const std::vector<cplx>& co, std::vector<doubl
                 b = (b + np) % np;
             }
             const std::size_t m = g.index(a, b);
-            if (in_region[m] || !(power[m] >= floor)) continue;
+            if (region[m] != candidate) continue;
             psi[m] = here + wrap_pi(psi[m] - here);
-            in_region[m] = 1;
+            region[m] = in_region;
             heap.push({power[m], std::uint32_t(a), std::uint32_t(b)});
         }
     }
@@ -197,14 +227,14 @@ void eigen_symmetric(double a[3][3], double w[3], double v[3][3]) {
 // direction so that psi0 and a separate; a = 2 pi d / lambda. Every sum runs over the region's
 // samples in index order (row by row).
 PhaseCentre fit_linear_phase(const Grid& g, const GridTrig& tr, const std::vector<double>& power, const std::vector<double>& psi,
-                             const std::vector<unsigned char>& in_region) {
+                             const std::vector<unsigned char>& region) {
     const CellWeights cw = cell_weights(g);
     const int nt = g.theta.count, np = g.phi.count;
     auto each = [&](auto&& f) {  // f(sample, its direction, its weight) over the region
         for (int i = 0; i < nt; ++i)
             for (int j = 0; j < np; ++j) {
                 const std::size_t k = g.index(i, j);
-                if (in_region[k]) f(k, tr.dir(i, j), power[k] * cw.theta[std::size_t(i)] * cw.phi[std::size_t(j)]);
+                if (region[k] == in_region) f(k, tr.dir(i, j), power[k] * cw.theta[std::size_t(i)] * cw.phi[std::size_t(j)]);
             }
     };
     double sw = 0, spsi = 0;
@@ -344,16 +374,16 @@ void remember(const Fingerprint& key, const Result<PhaseCentre>& r) {
 // one for each of its threads) so that the next estimate finds them allocated.
 struct EstimateScratch {
     std::vector<cplx> co;
-    std::vector<double> power, psi;
-    std::vector<unsigned char> in_region;
+    std::vector<double> power, psi, row_top;
+    std::vector<unsigned char> region;
     PowerQueue queue;
 };
 
 Result<PhaseCentre> estimate_afresh(const Grid& g, const FarField& f, EstimateScratch& w) {
     const GridTrig tr(g);
-    copolar_field(g, tr, f, w.co);
-    unwrap_region(g, w.co, w.power, w.psi, w.in_region, w.queue);
-    PhaseCentre pc = fit_linear_phase(g, tr, w.power, w.psi, w.in_region);
+    copolar_field(g, tr, f, w.co, w.power, w.row_top);
+    unwrap_region(g, w.co, w.power, w.psi, w.region, w.queue);
+    PhaseCentre pc = fit_linear_phase(g, tr, w.power, w.psi, w.region);
     if (pc.samples < 4)
         return Error{"", 0, 0, "the main beam holds fewer than 4 samples (or the field is zero): too few to fit a phase centre"};
     if (pc.unresolved_axes == 3) return Error{"", 0, 0, "the main beam's samples do not resolve any direction"};
