@@ -292,8 +292,11 @@ void allocate(const GridPlan& g, FarFieldSet& s, SeenPoints& seen) {
     s.frequencies.resize(g.freqs.size());
     seen.assign(g.freqs.size(), {});
     // Making the pages present and zeroing them is most of the cost: one frequency a task on the
-    // cores when the arrays are large (each task writes only its own frequency's arrays).
-    const std::size_t threads = points * g.freqs.size() >= (std::size_t(1) << 20) ? parallel_threads() : 1;
+    // cores when the arrays are large (each task writes only its own frequency's arrays). From a
+    // quarter of a million samples (8 MB of arrays, a few ms of one core against a thread's start
+    // of a few tens of microseconds); the bench file's 1 042 560 samples went to one thread when
+    // the bar was 2^20, 11 ms of the read's wall time while the other core waited.
+    const std::size_t threads = points * g.freqs.size() >= (std::size_t(1) << 18) ? parallel_threads() : 1;
     parallel_each(g.freqs.size(), threads, [&](std::size_t k) {
         s.frequencies[k].frequency_hz = g.freqs[k];
         zeroed(s.frequencies[k].e_theta, points);
