@@ -31,6 +31,12 @@ void break_at_wraps(const std::vector<double>& x, const std::vector<double>& y, 
 XyFigure make_cut_phase_figure(const FarFieldSet& s, const CutData& c, const std::vector<std::vector<double>>& phases,
                                const std::string& title);
 
+// Two antennas' phases on one figure, as the viewer's phase view shows a comparison: A's series
+// then B's, labelled "A: <name>, <component>" and "B: ...", in the colours that continue from A's;
+// the title names both, and the small print gives each one's phase reference (they may differ).
+XyFigure make_cut_phase_comparison(const FarFieldSet& a, const CutData& ca, const std::vector<std::vector<double>>& pa,
+                                   const FarFieldSet& b, const CutData& cb, const std::vector<std::vector<double>>& pb);
+
 // The small print of every phase view: "Phase relative to the file's origin; wrapped to
 // (-180°, 180°]; no line where a component has no field (at most 1e-12 of the total power)."
 std::string cut_phase_note(const FarFieldSet& s, std::size_t freq_index);

@@ -2,12 +2,14 @@
 
 #include "exports/cut_phase.hpp"
 
+#include <algorithm>
 #include <ctime>
 #include <filesystem>
 
 #include "exports/cut_figure.hpp"
 #include "exports/render.hpp"
 #include "io/atomic_write.hpp"
+#include "pattern/component_phase.hpp"
 #include "viewer/snapshot.hpp"
 
 namespace ellipsa::viewer {
@@ -21,10 +23,16 @@ bool something_at(const std::string& path) {
 // The file from the cut on screen: the same figure value that the panel draws.
 Result<std::string> cut_bytes(const AppState& s, const CutData& cut, exports::FileFormat format) {
     const FarFieldSet& set = s.active_pattern()->set;
-    if (s.settings.cut_phase && set.has_phase()) {  // the phase view, as `ellipsa cut --phase` writes it (A only)
+    if (s.settings.cut_phase && set.has_phase()) {  // the phase view, as `ellipsa cut --phase` writes it
+        if (std::none_of(cut.a->components.begin(), cut.a->components.end(), [](Component c) { return has_phase(c); }))
+            return Error{"", 0, 0, no_phase_component_text};
         const auto phases = exports::cut_phases(set, *cut.a);
-        if (format == exports::FileFormat::csv) return exports::cut_csv(set, *cut.a, &phases);
-        const exports::XyFigure fig = exports::make_cut_phase_figure(set, *cut.a, phases, "");
+        if (format == exports::FileFormat::csv) return exports::cut_csv(set, *cut.a, &phases);  // A's, as the gain view's CSV
+        const LoadedPattern* b = s.compare_pattern();
+        const bool with_b = b && cut.b && b->set.has_phase();  // B as the panel draws it, beside A
+        const exports::XyFigure fig =
+            with_b ? exports::make_cut_phase_comparison(set, *cut.a, phases, b->set, *cut.b, exports::cut_phases(b->set, *cut.b))
+                   : exports::make_cut_phase_figure(set, *cut.a, phases, "");
         return exports::render_image([&](cairo_t* cr, double w, double h) { exports::draw_xy_figure(cr, fig, w, h); }, format,
                                      exports::RenderSize{}, fig.title);
     }

@@ -28,6 +28,10 @@ ExportOutcome write_export(const std::string& path, bool overwrite, const std::f
 // table). Needs an active pattern and cut.a.
 exports::CutPlot cut_figure(const AppState& s, const CutData& cut);
 
+// What the phase view says, on screen and when asked to export, when every chosen component is the
+// total (a power, with no phase).
+inline constexpr char no_phase_component_text[] = "No phase: the total is a power. Choose a component (Components..) to see its phase.";
+
 ExportOutcome export_cut_file(const AppState& s, const CutData& cut, const std::string& path, bool overwrite);
 
 // Renders through its own headless context: a caller with a current window context releases it

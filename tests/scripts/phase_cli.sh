@@ -59,4 +59,16 @@ grep -q '"total" is a power and has no phase' err.txt && ok "total refusal says 
 expect_rc 1 "cut --phase refuses magnitude-only data" "$E" cut mag.csv --phi 0 --components theta --phase --out q.png
 grep -q 'magnitude-only (no phase)' err.txt && ok "magnitude-only refusal says why" || bad "magnitude-only refusal: $(cat err.txt)"
 [[ ! -e q.png ]] && ok "nothing written on refusal" || bad "a file was written on refusal"
+# The viewer's phase view exports what it draws: with a comparison, B's lines beside A's
+# (tests/unit/test_export_cut.cpp checks the figure's content); with only the total chosen, nothing.
+if "$E" --help | grep -q '^  view ' && command -v xvfb-run >/dev/null; then
+  expect_rc 0 "synth a dipole to compare with" "$E" synth dipole --step 5 --rotate-x 30 --out dip.csv
+  v() { "$XVFB" -a -s "-screen 0 1024x768x24" "$E" view "$@" --frames 2 --size 800x600 --cut-style phase; }
+  expect_rc 0 "view: phase export of A" v cd.csv dip.csv --cut-components rhcp,lhcp --export-cut a.svg
+  expect_rc 0 "view: phase export of A and B" v cd.csv dip.csv --compare 2 --cut-components rhcp,lhcp --export-cut ab.svg
+  [[ -s a.svg && -s ab.svg ]] && ! cmp -s a.svg ab.svg && ok "the comparison's export draws more than A's" || bad "A and B export same as A's"
+  expect_rc 1 "view: phase export of the total alone is refused" v cd.csv --cut-components total --export-cut t.svg
+  grep -q 'the total is a power' err.txt && ok "refusal says why" || bad "total refusal: $(cat err.txt)"
+  [[ ! -e t.svg ]] && ok "nothing written for the total's phase" || bad "t.svg written"
+fi
 finish

@@ -10,6 +10,7 @@
 #include <vector>
 
 #include "exports/cut_figure.hpp"
+#include "exports/cut_phase.hpp"
 #include "exports/figure_text.hpp"
 #include "pattern/cut.hpp"
 #include "pattern/reference.hpp"
@@ -209,4 +210,38 @@ TEST_CASE("the table shows a peak at the nadir of a phi cut as 180, not -180", "
     p.layout = AngleLayout::full_turn;
     p.curves[0].beam->peak_angle_deg = 359.99;  // a conical cut: 360 is 0
     CHECK(cut_table(p).rows[0][2] == "0.0\u00b0");
+}
+
+TEST_CASE("a phase comparison figure holds A's and B's phases, each labelled and with its reference", "[export]") {
+    // The viewer's phase view with a comparison exports what it draws: B's lines after A's. The
+    // values are the core's cut phases (pattern/component_phase.hpp) of each antenna, unchanged.
+    FarFieldSet a = crossed_dipoles();
+    a.name = "turnstile";
+    ReferenceAntenna d;
+    d.kind = ReferenceKind::dipole;
+    FarFieldSet b = synthesize(d, 2.0, 2.45e9);
+    b.name = "half-wave";
+    const CutSpec spec = CutSpec::phi_cut(30);
+    auto ca = compute_cut(a, 0, spec, {Component::rhcp, Component::lhcp}, 1.0);
+    auto cb = compute_cut(b, 0, spec, {Component::theta}, 1.0);
+    REQUIRE(ca.ok());
+    REQUIRE(cb.ok());
+    const auto pa = cut_phases(a, *ca), pb = cut_phases(b, *cb);
+    const XyFigure f = make_cut_phase_comparison(a, *ca, pa, b, *cb, pb);
+    REQUIRE(f.panels.size() == 1);
+    const std::vector<XySeries>& s = f.panels[0].series;
+    REQUIRE(s.size() == 3);
+    CHECK(s[0].label.rfind("A: turnstile, ", 0) == 0);
+    CHECK(s[1].label.rfind("A: turnstile, ", 0) == 0);
+    CHECK(s[2].label.rfind("B: half-wave, ", 0) == 0);
+    CHECK(s[0].style != s[2].style);
+    CHECK(s[1].style != s[2].style);
+    std::vector<double> x, y;
+    break_at_wraps(cb->samples.angle_deg, pb[0], x, y);
+    REQUIRE(s[2].y.size() == y.size());
+    for (std::size_t k = 0; k < y.size(); ++k) CHECK((s[2].y[k] == y[k] || (std::isnan(s[2].y[k]) && std::isnan(y[k]))));
+    CHECK(f.title == "turnstile (A) and half-wave (B)");
+    const std::string notes = f.notes[0] + "\n" + f.notes[1];
+    CHECK(notes.find("A: Phase relative to") != std::string::npos);
+    CHECK(notes.find("B: Phase relative to") != std::string::npos);
 }
