@@ -17,27 +17,33 @@ enum class NumberStatus { ok, not_a_number, nan, overflow };
 // decimal significand fits in 53 bits and the power of ten is within 10^+-22, one IEEE multiply
 // or divide of two exact doubles is correctly rounded, so the result equals fast_float's. Returns
 // false (and leaves p) for anything else; the caller then uses fast_float.
-[[gnu::always_inline]] inline bool fast_decimal(const char*& p, const char* e, bool decimal_comma, double& v) {
+// Padded: the caller guarantees that the byte at e is a line end ('\n' or '\r') and that the 16
+// bytes from e on may be read, so the digit loops stop at e by themselves and need no bounds
+// check (the same result as unpadded: every byte the checks would stop at is no digit, sign,
+// point or exponent mark).
+template <bool Padded>
+[[gnu::always_inline]] inline bool fast_decimal_at(const char*& p, const char* e, bool decimal_comma, double& v) {
     static constexpr double pow10[23] = {1e0,  1e1,  1e2,  1e3,  1e4,  1e5,  1e6,  1e7,  1e8,  1e9,  1e10, 1e11,
                                          1e12, 1e13, 1e14, 1e15, 1e16, 1e17, 1e18, 1e19, 1e20, 1e21, 1e22};
+    const auto in = [e](const char* at) { return Padded || at < e; };
     const char* q = p;
     bool neg = false;
-    if (q < e && *q == '-') {
+    if (in(q) && *q == '-') {
         neg = true;
         ++q;
     }
     std::uint64_t m = 0;
     int digits = 0, frac = 0;
-    while (q < e && unsigned(*q - '0') < 10u) {
+    while (in(q) && unsigned(*q - '0') < 10u) {
         m = m * 10 + unsigned(*q - '0');
         ++digits;
         ++q;
     }
-    if (q < e && (*q == '.' || (decimal_comma && *q == ','))) {
+    if (in(q) && (*q == '.' || (decimal_comma && *q == ','))) {
         ++q;
         const char* fb = q;
         // Eight digits at a time (SWAR, as in fast_float) while they last.
-        while (e - q >= 8 && digits <= 11) {
+        while ((Padded || e - q >= 8) && digits <= 11) {
             std::uint64_t w;
             std::memcpy(&w, q, 8);
             if ((((w & 0xF0F0F0F0F0F0F0F0ull) | (((w + 0x0606060606060606ull) & 0xF0F0F0F0F0F0F0F0ull) >> 4)) !=
@@ -51,7 +57,7 @@ enum class NumberStatus { ok, not_a_number, nan, overflow };
             digits += 8;
             q += 8;
         }
-        while (q < e && unsigned(*q - '0') < 10u) {
+        while (in(q) && unsigned(*q - '0') < 10u) {
             m = m * 10 + unsigned(*q - '0');
             ++digits;
             ++q;
@@ -60,19 +66,19 @@ enum class NumberStatus { ok, not_a_number, nan, overflow };
     }
     if (digits == 0 || digits > 19) return false;
     int e10 = 0;
-    if (q < e && (*q == 'e' || *q == 'E')) {
+    if (in(q) && (*q == 'e' || *q == 'E')) {
         ++q;
         bool eneg = false;
-        if (q < e && (*q == '+' || *q == '-')) {
+        if (in(q) && (*q == '+' || *q == '-')) {
             eneg = *q == '-';
             ++q;
         }
         const char* eb = q;
-        while (q < e && unsigned(*q - '0') < 10u && e10 < 1000) {
+        while (in(q) && unsigned(*q - '0') < 10u && e10 < 1000) {
             e10 = e10 * 10 + (*q - '0');
             ++q;
         }
-        if (q == eb || (q < e && unsigned(*q - '0') < 10u)) return false;
+        if (q == eb || (in(q) && unsigned(*q - '0') < 10u)) return false;
         if (eneg) e10 = -e10;
     }
     e10 -= frac;
@@ -82,6 +88,10 @@ enum class NumberStatus { ok, not_a_number, nan, overflow };
     if (neg) v = -v;
     p = q;
     return true;
+}
+
+[[gnu::always_inline]] inline bool fast_decimal(const char*& p, const char* e, bool decimal_comma, double& v) {
+    return fast_decimal_at<false>(p, e, decimal_comma, v);
 }
 
 // Parse the number cell that starts at p (cell content runs to the delimiter or e). Leading

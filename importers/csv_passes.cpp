@@ -6,6 +6,7 @@
 #include "importers/csv_passes.hpp"
 
 #include <cmath>
+#include <type_traits>
 #if defined(__SSE2__)
 #include <emmintrin.h>
 #endif
@@ -86,8 +87,9 @@ void every_4096_rows(Context& ctx, const Chunk& c, std::size_t done, double prog
     }
 }
 
-// Walk the lines of [c.begin, c.end), calling row(line_begin, line_end, line_offset) for each
-// data row. Blank lines and '#' lines are skipped (metadata keys after the header are refused
+// Walk the lines of [c.begin, c.end), calling row(line_begin, line_end, line_offset, padded) for
+// each data row; padded when the byte at line_end is a line end and the 16 bytes from it may be
+// read (fast_decimal_at<true>). Blank lines and '#' lines are skipped (metadata keys after the header are refused
 // in pass 1, which also refuses NUL bytes).
 template <bool first_pass, class Row>
 [[gnu::always_inline]] inline void for_each_row(Context& ctx, Chunk& c, double progress_base,
@@ -120,7 +122,8 @@ template <bool first_pass, class Row>
             if (q < e && *q == '#') {
                 if (first_pass && !comment_after_header(c, p, q, e, at + std::size_t(p - base))) return false;
             } else if (q < e) {
-                if (!row(p, e, at + std::size_t(p - base))) return false;
+                // Padded: the line ends in '\n' with at least 16 bytes of the window after it.
+                if (!row(p, e, at + std::size_t(p - base), end - nl >= 16)) return false;
                 if ((++n & 4095) == 0) {
                     if (ctx.cancelled.load(std::memory_order_relaxed) || ctx.stop.load(std::memory_order_relaxed)) return false;
                     every_4096_rows(ctx, c, at + std::size_t(p - base), progress_base, progress_span);
@@ -252,9 +255,10 @@ struct AngleCache {
         AngleInfo info;
         std::size_t slot = 0;
         // True, with q moved past the text, when the cell at q holds it.
+        template <bool Padded>
         [[gnu::always_inline]] bool found_at(const char*& q, const char* e) const {
 #if defined(__SSE2__)
-            if (mask == 0 || e - q < 16) return false;
+            if (mask == 0 || (!Padded && e - q < 16)) return false;
             const __m128i v = _mm_loadu_si128(reinterpret_cast<const __m128i*>(q));
             const unsigned m = unsigned(_mm_movemask_epi8(_mm_cmpeq_epi8(v, _mm_load_si128(reinterpret_cast<const __m128i*>(text)))));
             if ((m & mask) != mask) return false;
@@ -273,10 +277,13 @@ struct AngleCache {
     // is usually found by one 16-byte compare, without its key and slot.
     std::vector<Known> next;
     int shift = 56;
-    Known last;  // this column's text in the row before
+    // This column's text in the row before (null when unknown or longer than 15 bytes): an
+    // entry of `next` or `first`, pointed at rather than copied (three columns a row).
+    const Known* last = nullptr;
+    Known first;  // the text met when no text came before it
     void remember(const CellKey& k, std::size_t n, char delim, const AngleInfo& info, std::size_t at) {
         if (n > 15) {
-            last.mask = 0;
+            last = nullptr;
             return;
         }
         Known t;
@@ -287,23 +294,28 @@ struct AngleCache {
         t.size = std::uint32_t(n);
         t.info = info;
         t.slot = at;
-        if (last.mask) next[last.slot] = t;
-        last = t;
+        Known& to = last ? next[last->slot] : first;
+        to = t;
+        last = &to;
     }
     // The cell at q is the one that followed the row before's text last time, or that text
     // again: true, with q moved past it and `last` set.
+    template <bool Padded>
     [[gnu::always_inline]] bool as_expected(const char*& q, const char* e) {
-        if (last.mask == 0) return false;
-        const Known& x = next[last.slot];
-        if (x.found_at(q, e)) {
-            last = x;
+        if (!last) return false;
+        Known& x = next[last->slot];
+        if (x.found_at<Padded>(q, e)) {
+            last = &x;
             return true;
         }
-        if (!last.found_at(q, e)) return false;
-        next[last.slot] = last;
+        if (!last->found_at<Padded>(q, e)) return false;
+        x = *last;
+        last = &x;
         return true;
     }
     explicit AngleCache(int bits) : slots(std::size_t(1) << bits), next(std::size_t(1) << bits), shift(64 - bits) {}
+    AngleCache(const AngleCache&) = delete;  // `last` may point at `first`
+    AngleCache& operator=(const AngleCache&) = delete;
     std::size_t slot(const CellKey& k) const {
         return std::size_t(((k.a * 0x9E3779B97F4A7C15ull) ^ (k.b * 0xC2B2AE3D27D4EB4Full)) >> shift);
     }
@@ -391,12 +403,12 @@ std::string angle_value(const Layout& L, int role, double raw, double& out) {
 // else parsed, scaled, checked and handed to fresh(value, info), which fills the cache entry
 // (false: the value is refused with `refusal`). Moves q to the delimiter or e. Returns the
 // cell's meaning, or null with the chunk's failure set.
-template <class Fresh>
+template <bool Padded = false, class Fresh>
 [[gnu::always_inline]] inline const AngleInfo* angle_cell(const Layout& L, AngleCache& cache, int r, const char*& q,
                                                           const char* e, const char* line, std::size_t line_offset,
                                                           Chunk& c, AngleInfo& scratch, const char* refusal,
                                                           Fresh&& fresh) {
-    if (cache.as_expected(q, e)) return &cache.last.info;
+    if (cache.as_expected<Padded>(q, e)) return &cache.last->info;
     CellKey key;
     const char* ce = nullptr;
     const bool keyed = key_cell(q, e, L.delimiter, key, ce);
@@ -528,23 +540,38 @@ FieldProblem polar_field(const Layout& L, const double* v, double phi_deg, cplx&
     }
 }
 
-// The line of a point's row, where the grid stages want it (Context::lines).
-inline void note_line(Context& ctx, std::size_t fk, std::size_t k, std::size_t line_offset) {
-    if (ctx.lines) (*ctx.lines)[fk][k] = line_offset;
-}
+// Where pass 2 writes each frequency's points, taken from the context once per pass: read
+// through the context's vectors, the pointers were loaded again on every row (the byte store
+// of `seen` may alias anything).
+struct Targets {
+    struct Frequency {
+        cplx* e_theta;
+        cplx* e_phi;
+        unsigned char* seen;  // 0 absent, 1 being written, 2 present
+        std::size_t* line;    // the line offset of each point's row (Context::lines), or null
+    };
+    std::vector<Frequency> by_frequency;
+    bool concurrent;
+    double tolerance;
+    explicit Targets(const Context& ctx) : concurrent(ctx.concurrent), tolerance(ctx.L->duplicate_tolerance) {
+        for (std::size_t fk = 0; fk < ctx.out->size(); ++fk)
+            by_frequency.push_back({(*ctx.out)[fk].e_theta.data(), (*ctx.out)[fk].e_phi.data(), (*ctx.seen)[fk].data(),
+                                    ctx.lines ? (*ctx.lines)[fk].data() : nullptr});
+    }
+};
 
 // Write one point into the arrays; a second row for a point must agree with the first
 // (same_direction_values, csv_passes.hpp). With several workers, the seen byte is the
 // lock: 0 absent, 1 being written, 2 present.
-[[gnu::always_inline]] inline bool store_point(Context& ctx, Chunk& c, std::size_t fk, std::size_t k, cplx et, cplx ep, std::size_t line_offset,
-                 const AngleInfo* const ang[3]) {
-    unsigned char& seen = (*ctx.seen)[fk][k];
-    FarField& ff = (*ctx.out)[fk];
-    if (!ctx.concurrent) {
+[[gnu::always_inline]] inline bool store_point(const Targets& t, Chunk& c, std::size_t fk, std::size_t k, cplx et, cplx ep,
+                                               std::size_t line_offset, const AngleInfo* const ang[3]) {
+    const Targets::Frequency& f = t.by_frequency[fk];
+    unsigned char& seen = f.seen[k];
+    if (!t.concurrent) {
         if (seen == 0) {
-            ff.e_theta[k] = et;
-            ff.e_phi[k] = ep;
-            note_line(ctx, fk, k, line_offset);
+            f.e_theta[k] = et;
+            f.e_phi[k] = ep;
+            if (f.line) f.line[k] = line_offset;
             seen = 2;
             return true;
         }
@@ -552,16 +579,16 @@ inline void note_line(Context& ctx, std::size_t fk, std::size_t k, std::size_t l
         std::atomic_ref<unsigned char> s(seen);
         unsigned char expected = 0;
         if (s.compare_exchange_strong(expected, 1, std::memory_order_acq_rel)) {
-            ff.e_theta[k] = et;
-            ff.e_phi[k] = ep;
-            note_line(ctx, fk, k, line_offset);
+            f.e_theta[k] = et;
+            f.e_phi[k] = ep;
+            if (f.line) f.line[k] = line_offset;
             s.store(2, std::memory_order_release);
             return true;
         }
         // A second row for the same point: wait for the first writer, then compare.
         while (s.load(std::memory_order_acquire) != 2) std::this_thread::yield();
     }
-    if (same_direction_values(ff.e_theta[k], ff.e_phi[k], et, ep, ctx.L->duplicate_tolerance)) return true;
+    if (same_direction_values(f.e_theta[k], f.e_phi[k], et, ep, t.tolerance)) return true;
     c.failure = {true, line_offset, 1,
                  "expected at most one value per grid point, found a second one that differs (theta " +
                      text::number(ang[0]->value) + ", phi " + text::number(ang[1]->value) + " deg, " +
@@ -602,7 +629,7 @@ void pass1_rows(Context& ctx, Chunk& c, bool report_progress, AngleCaches& cache
     AngleInfo scratch;
     DistinctValues* sets[3] = {&c.theta, &c.phi, &c.freq};
     const int upto = L.last_angle_cell;
-    for_each_row<true>(ctx, c, 0.0, report_progress ? 0.35 : 0.0, [&](const char* p, const char* e, std::size_t off) __attribute__((always_inline)) {
+    for_each_row<true>(ctx, c, 0.0, report_progress ? 0.35 : 0.0, [&](const char* p, const char* e, std::size_t off, bool) __attribute__((always_inline)) {
         const char* q = p;
         for (int k = 0; k <= upto; ++k) {
             const int r = L.role[std::size_t(k)];
@@ -655,6 +682,7 @@ void pass2_impl(Context& ctx, Chunk& c, bool report_progress) {
     const GridPlan& g = *ctx.plan;
     const int ncells = L.cells;
     AngleCaches cache;
+    const Targets targets(ctx);
     // Each cell's role and, for an angle or frequency, its cache (angle_slot), worked out once.
     struct Column {
         int role, slot;
@@ -672,29 +700,34 @@ void pass2_impl(Context& ctx, Chunk& c, bool report_progress) {
     DistinctValues* sets[3] = {&c.theta, &c.phi, &c.freq};
     if (Collect && !L.frequency_column) c.freq.add(L.frequency_hz ? *L.frequency_hz : 0.0, c.begin);
     const double progress_base = Collect ? 0.0 : 0.35;
-    for_each_row<Collect>(ctx, c, progress_base, report_progress ? 1.0 - progress_base : 0.0, [&](const char* p, const char* e, std::size_t off) __attribute__((always_inline)) {
+    // Kept in registers: read through L, they were loaded again after every byte store.
+    const char delim = L.delimiter;
+    const bool decimal_comma = L.decimal_comma, transform = L.transform;
+    // One row; Padded as for_each_row says (bounds checks left out of the number and angle cells).
+    const auto row = [&](auto padded, const char* p, const char* e, std::size_t off) __attribute__((always_inline)) {
+        constexpr bool Padded = decltype(padded)::value;
         const AngleInfo* ang[3] = {nullptr, nullptr, L.frequency_column ? nullptr : &fixed_f};
         AngleInfo fresh[3];
         const char* q = p;
         for (int k = 0; k < ncells; ++k) {
             const int r = columns[std::size_t(k)].role, slot = columns[std::size_t(k)].slot;
             if (r < 0) {
-                const char* ce = static_cast<const char*>(std::memchr(q, L.delimiter, std::size_t(e - q)));
+                const char* ce = static_cast<const char*>(std::memchr(q, delim, std::size_t(e - q)));
                 q = ce ? ce : e;
             } else if (slot < 0) {
                 double x;
                 const char* fq = q;
                 // The plain number (no spaces, quotes or '+') without parse_number_cell's checks
                 // around it; anything else takes number_cell from the cell's start.
-                if (fast_decimal(fq, e, L.decimal_comma, x) && (fq == e || *fq == L.delimiter)) {
-                    if (L.transform) x = x * L.scale[std::size_t(r)] + L.offset[std::size_t(r)];
+                if (fast_decimal_at<Padded>(fq, e, decimal_comma, x) && (fq == e || *fq == delim)) {
+                    if (transform) x = x * L.scale[std::size_t(r)] + L.offset[std::size_t(r)];
                     q = fq;
                 } else if (!number_cell(L, r, q, e, p, off, c, x)) {
                     return false;
                 }
                 v[r] = x;
             } else {
-                ang[slot] = angle_cell(L, cache[slot], r, q, e, p, off, c, fresh[slot], changed_message,
+                ang[slot] = angle_cell<Padded>(L, cache[slot], r, q, e, p, off, c, fresh[slot], changed_message,
                                        [&](double x, AngleInfo& a) {
                                            if (Collect) sets[slot]->add(x, off);
                                            return place_on_grid(g, slot, x, a);
@@ -717,8 +750,12 @@ void pass2_impl(Context& ctx, Chunk& c, bool report_progress) {
             c.aliases.push_back({fk, k, et, ep, off});
             return true;
         }
-        return store_point(ctx, c, fk, k, et, ep, off, ang);
-    });
+        return store_point(targets, c, fk, k, et, ep, off, ang);
+    };
+    for_each_row<Collect>(ctx, c, progress_base, report_progress ? 1.0 - progress_base : 0.0,
+                          [&](const char* p, const char* e, std::size_t off, bool padded) __attribute__((always_inline)) {
+                              return padded ? row(std::true_type{}, p, e, off) : row(std::false_type{}, p, e, off);
+                          });
     if (Collect && c.failure.set) ctx.stop = true;
 }
 

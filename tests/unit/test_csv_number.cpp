@@ -59,6 +59,31 @@ void check_same_as_fast_float(const std::string& t) {
     const char* p = t.data();
     double fast = 0;
     if (t[0] != '+' && fast_decimal(p, t.data() + t.size(), false, fast)) REQUIRE(bits(fast) == bits(want));
+    // The padded fast path (a line end after the text, digits beyond it): the same double,
+    // ending at the line end.
+    for (const char* end : {"\n", "\r\n"}) {
+        const std::string row = t + end + "9999999999999999";
+        const char* q = row.data();
+        double padded = 0;
+        if (t[0] != '+' && fast_decimal_at<true>(q, row.data() + t.size(), false, padded)) {
+            REQUIRE(bits(padded) == bits(want));
+            REQUIRE(q == row.data() + t.size());
+        }
+    }
+}
+
+// The fast path with and without bounds checks (fast_decimal_at<true>, for rows followed by a
+// line end and 16 readable bytes) on a text at the end of a row: the same answer, the same end.
+void check_padded_as_checked(const std::string& t, const char* line_end) {
+    INFO("cell \"" << t << "\" then " << (line_end[0] == '\r' ? "CR LF" : "LF"));
+    const std::string row = t + line_end + "1234567890123456e5";
+    const char* e = row.data() + t.size();
+    const char *a = row.data(), *b = row.data();
+    double va = 0, vb = 0;
+    const bool ok_a = fast_decimal_at<false>(a, e, false, va), ok_b = fast_decimal_at<true>(b, e, false, vb);
+    REQUIRE(ok_a == ok_b);
+    REQUIRE(a == b);
+    if (ok_a) REQUIRE(bits(va) == bits(vb));
 }
 
 // A random plain decimal: sign, 0-20 integer digits (leading zeros too), an optional point with
@@ -102,6 +127,21 @@ TEST_CASE("number cells: edge cases read exactly as fast_float reads them", "[cs
 TEST_CASE("number cells: 400 000 random decimals read exactly as fast_float reads them", "[csv][number]") {
     std::mt19937_64 rng(20261202);
     for (int i = 0; i < 400000; ++i) check_same_as_fast_float(random_decimal(rng));
+}
+
+TEST_CASE("number cells: the fast path without bounds checks ends where the checked one ends", "[csv][number]") {
+    // Texts of digits, points, signs, exponent marks and delimiters, cut at every length: each
+    // stops at the line end however many digits follow it (common practice: a padded parser
+    // compared with its checked form).
+    std::mt19937_64 rng(20261203);
+    const std::string alphabet = "0123456789012345678901234567890123456789..--+eE,";
+    for (int i = 0; i < 200000; ++i) {
+        std::string t;
+        const int n = int(rng() % 25);
+        for (int k = 0; k < n; ++k) t += alphabet[rng() % alphabet.size()];
+        check_padded_as_checked(t, i % 2 ? "\n" : "\r\n");
+    }
+    for (int i = 0; i < 20000; ++i) check_padded_as_checked(random_decimal(rng), "\n");
 }
 
 TEST_CASE("number cells: the refusals and special values as before", "[csv][number]") {
