@@ -192,8 +192,10 @@ Result<GridPlan> plan_grid(const std::vector<Chunk>& chunks, const Layout& L, co
 namespace {
 
 // Sorted distinct values with the gaps of a regular axis filled in (its ends and the smallest
-// gap); false when the ends are not a whole number of smallest gaps apart.
-bool filled_axis(std::vector<Value> v, std::vector<Value>& out) {
+// gap); false when the ends are not a whole number of smallest gaps apart, or when the axis would
+// hold more than max_values (two theta values 1e-5 apart in a 1 kB file made a guess of millions
+// of values, a 256 MB allocation; fuzz_csv found it).
+bool filled_axis(std::vector<Value> v, std::vector<Value>& out, double max_values) {
     if (v.size() < 2) {
         out = std::move(v);
         return true;
@@ -201,8 +203,9 @@ bool filled_axis(std::vector<Value> v, std::vector<Value>& out) {
     double gap = std::numeric_limits<double>::infinity();
     for (std::size_t k = 1; k < v.size(); ++k) gap = std::min(gap, v[k].v - v[k - 1].v);
     const double span = v.back().v - v.front().v, n = std::round(span / gap);
-    if (!(gap > 0) || std::abs(span / gap - n) > 1e-4 || n > 1e7) return false;
+    if (!(gap > 0) || std::abs(span / gap - n) > 1e-4 || n > 1e7 || n + 1 > max_values) return false;
     out.clear();
+    out.reserve(std::size_t(n) + 1);
     for (std::size_t k = 0; k + 1 < std::size_t(n) + 1; ++k)
         out.push_back({v.front().v + span * double(k) / n, v.front().line_offset});
     out.push_back(v.back());
@@ -217,8 +220,11 @@ bool same_axis(const AngleAxis& a, const AngleAxis& b) {
 
 std::optional<GridPlan> guess_plan(const std::vector<Chunk>& samples, const Layout& L, const TextSource& src) {
     std::vector<Value> tv, pv;
-    if (!filled_axis(merged(samples, &Chunk::theta, merge_tol_deg, false), tv) ||
-        !filled_axis(merged(samples, &Chunk::phi, merge_tol_deg, false), pv) || tv.empty() || pv.empty())
+    // Each value of a complete axis is written in a row of its own, and a row takes two bytes at
+    // the least: an axis with more values than that is no grid this file can fill.
+    const double max_values = double(src.size() / 2 + 1);
+    if (!filled_axis(merged(samples, &Chunk::theta, merge_tol_deg, false), tv, max_values) ||
+        !filled_axis(merged(samples, &Chunk::phi, merge_tol_deg, false), pv, max_values) || tv.empty() || pv.empty())
         return std::nullopt;
     const bool raw = L.angles == AngleSystem::az_over_el || L.angles == AngleSystem::el_over_az || tv.front().v < 0 ||
                      !usual_phi_window(pv);
