@@ -41,9 +41,10 @@ struct GridTrig {
 };
 
 // One row (sines and cosines st, ct of its theta) of the co-polar field below, in real arithmetic
-// without branches so that the compiler can take two samples a vector register: the operations
-// of the complex expressions there (dot, projection, conj(u) . e / |u|) in the same order, so the
-// same values bit for bit while no product overflows (fields below 1e100, see copolar_field).
+// (no complex multiply's checks for infinities): the operations of the complex expressions there
+// (dot, projection, conj(u) . e / |u|) in the same order, so the same values bit for bit while no
+// product overflows (fields below 1e100, see copolar_field). g++ 12 does not vectorise the loop
+// (sqrt may set errno, and the division is conditional); -fno-math-errno alone did not change that.
 void copolar_row(const CVec3& p, double st, double ct, const GridTrig& tr, const double* et, const double* ep, double* co,
                  double* power) {
     const double pxr = p.x.real(), pxi = p.x.imag(), pyr = p.y.real(), pyi = p.y.imag(), pzr = p.z.real(), pzi = p.z.imag();

@@ -2,7 +2,18 @@
 
 namespace ellipsa::python {
 
-void raise(const Error& e) {
+namespace {
+// The writers' refusals to replace a file name the command's --force (io/place.hpp); a Python
+// caller has the keyword force=True.
+Error in_python_words(Error e) {
+    for (std::size_t at = e.message.find("--force"); at != std::string::npos; at = e.message.find("--force", at))
+        e.message.replace(at, 7, "force=True");
+    return e;
+}
+}  // namespace
+
+void raise(const Error& error) {
+    const Error e = in_python_words(error);
     py::object type = py::module_::import("ellipsa").attr("Error");
     py::object inst = type(e.format());
     inst.attr("file") = e.file.empty() ? py::object(py::none()) : py::object(py::str(e.file));

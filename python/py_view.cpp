@@ -15,6 +15,19 @@ namespace ellipsa::python {
 namespace {
 
 #ifdef ELLIPSA_HAVE_VIEWER
+// The command's usage messages begin with the option's name ("--size: expected ..."); a Python
+// caller gave a keyword, so the message names that keyword instead (the rest is the command's).
+std::string in_keyword_words(const std::string& message) {
+    static const std::pair<const char*, const char*> keyword_of[] = {
+        {"--component", "component"}, {"--color-by", "color_by"}, {"--view", "view_deg"}, {"--size", "size_px"},
+        {"--range", "range_db"},      {"--colormap", "colormap"},  {"--out", "path"}};
+    for (const auto& [option, keyword] : keyword_of) {
+        const std::string head = std::string(option) + ":";
+        if (message.rfind(head, 0) == 0) return keyword + message.substr(head.size() - 1);
+    }
+    return message;
+}
+
 void write_view(const Pattern& p, const std::string& path, const std::string& component, const std::string& color_by,
                 const std::array<double, 2>& view_deg, const std::array<int, 2>& size_px,
                 const std::optional<double>& frequency_hz, double range_db, const std::string& colormap, bool glyphs,
@@ -22,8 +35,8 @@ void write_view(const Pattern& p, const std::string& path, const std::string& co
     const cli::RenderChoices c{component,  color_by, colormap, cli::pair_text(view_deg[0], view_deg[1], ','),
                                cli::pair_text(size_px[0], size_px[1], 'x'), range_db, glyphs, software};
     auto o = cli::render_options(c);
-    if (!o) throw py::value_error(o.error().message);  // the command's usage message
-    if (Status st = cli::check_render_out(path); !st) throw py::value_error(st.error().message);
+    if (!o) throw py::value_error(in_keyword_words(o.error().message));  // the command's usage message
+    if (Status st = cli::check_render_out(path); !st) throw py::value_error(in_keyword_words(st.error().message));
     check(io::check_destination(path, force));
     const std::string name = p.path.empty() ? label_of(p.set) : p.path;
     check(cli::refuse_cuts(p.set, name, "a 3D view"));
@@ -54,8 +67,8 @@ void bind_view(py::module_& m) {
             "keywords are the command's options: component (the radius), color_by, view_deg=(azimuth,\n"
             "elevation) of the eye, size_px, frequency_hz (nearest within 0.5 %; default the middle one),\n"
             "range_db (below the peak), colormap, glyphs (polarisation ellipses), software (Mesa's software\n"
-            "renderer). A bad value raises ValueError with the command's message; an existing file is\n"
-            "replaced only with force=True.");
+            "renderer). A bad value raises ValueError with the command's message, naming the keyword; an\n"
+            "existing file is replaced only with force=True.");
 #else
     cls.def("write_view", [](const Pattern&, const std::string&, const py::kwargs&) {
         raise(Error{"", 0, 0, "3D views are not available: this build has no viewer (ELLIPSA_VIEWER=OFF)"});

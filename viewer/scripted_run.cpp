@@ -11,6 +11,7 @@
 
 #include "exports/png.hpp"
 #include "io/atomic_write.hpp"
+#include "io/place.hpp"
 #include "viewer/exports_ui.hpp"
 #include "viewer/gl.hpp"
 #include "viewer/snapshot.hpp"
@@ -36,7 +37,7 @@ Result<std::string> back_buffer_png(Window& w) {
 int report(const char* option, const ExportOutcome& o) {
     if (o.status == ExportOutcome::Status::written) return 0;
     if (o.status == ExportOutcome::Status::exists)
-        std::cerr << "ellipsa view: " << o.path << ": already exists; use --force to replace it\n";
+        std::cerr << "ellipsa view: " << o.path << ": " << io::detail::exists_message << "\n";
     else
         std::cerr << "ellipsa view: " << option << ": " << o.error << "\n";
     return 1;

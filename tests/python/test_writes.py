@@ -151,7 +151,7 @@ def test_existing_output_and_dangling_link(name, dipole, folder):
     out = folder / ("out" + ext)
     call(dipole, str(out))
     first = snapshot(folder)
-    with pytest.raises(ellipsa.Error, match=f"out{ext}.*already exists; use --force"):
+    with pytest.raises(ellipsa.Error, match=f"out{ext}.*already exists; use force=True"):
         call(dipole, str(out))
     assert snapshot(folder) == first
     call(dipole, str(out), force=True)  # replaced (the report: a folder ellipsa made)
