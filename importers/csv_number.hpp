@@ -21,6 +21,16 @@ enum class NumberStatus { ok, not_a_number, nan, overflow };
 // bytes from e on may be read, so the digit loops stop at e by themselves and need no bounds
 // check (the same result as unpadded: every byte the checks would stop at is no digit, sign,
 // point or exponent mark).
+// The value of eight decimal digits, one a byte (0-9, the first in the lowest byte), by three
+// multiplies (as in fast_float's parse_eight_digits_unrolled).
+[[gnu::always_inline]] inline std::uint32_t eight_digits(std::uint64_t w) {
+    w = (w * 10) + (w >> 8);
+    return std::uint32_t((((w & 0x000000FF000000FFull) * 0x000F424000000064ull) +
+                          (((w >> 16) & 0x000000FF000000FFull) * 0x0000271000000001ull)) >> 32);
+}
+
+inline constexpr std::uint64_t pow10_u64[9] = {1, 10, 100, 1000, 10000, 100000, 1000000, 10000000, 100000000};
+
 template <bool Padded>
 [[gnu::always_inline]] inline bool fast_decimal_at(const char*& p, const char* e, bool decimal_comma, double& v) {
     static constexpr double pow10[23] = {1e0,  1e1,  1e2,  1e3,  1e4,  1e5,  1e6,  1e7,  1e8,  1e9,  1e10, 1e11,
@@ -42,20 +52,44 @@ template <bool Padded>
     if (in(q) && (*q == '.' || (decimal_comma && *q == ','))) {
         ++q;
         const char* fb = q;
-        // Eight digits at a time (SWAR, as in fast_float) while they last.
-        while ((Padded || e - q >= 8) && digits <= 11) {
-            std::uint64_t w;
-            std::memcpy(&w, q, 8);
-            if ((((w & 0xF0F0F0F0F0F0F0F0ull) | (((w + 0x0606060606060606ull) & 0xF0F0F0F0F0F0F0F0ull) >> 4)) !=
-                 0x3333333333333333ull))
+        if constexpr (Padded) {
+            // Eight bytes at a time: all digits, or the digits before the first other byte taken
+            // at once (no loop over single digits, whose count changes from cell to cell).
+            for (;;) {
+                std::uint64_t w;
+                std::memcpy(&w, q, 8);
+                w -= 0x3030303030303030ull;
+                // The top bit of each byte that is no digit; exact up to the first such byte (a
+                // borrow or carry only ever reaches the bytes after it).
+                const std::uint64_t other = ((w + 0x7676767676767676ull) | w) & 0x8080808080808080ull;
+                if (other == 0) {
+                    if (digits > 11) break;  // the loop below takes the rest (more than 19 digits: refused)
+                    m = m * 100000000ull + eight_digits(w);
+                    digits += 8;
+                    q += 8;
+                    continue;
+                }
+                // No more digits (a branch: the next cell then need not wait for the mask).
+                if (other & 0x80) break;
+                const unsigned n = unsigned(__builtin_ctzll(other)) >> 3;  // digits before the other byte
+                w = (w << (63 - 8 * n)) << 1;  // those digits in the top bytes, zeros before them
+                m = m * pow10_u64[n] + eight_digits(w);
+                digits += int(n);
+                q += n;
                 break;
-            w -= 0x3030303030303030ull;
-            w = (w * 10) + (w >> 8);
-            w = (((w & 0x000000FF000000FFull) * 0x000F424000000064ull) +
-                 (((w >> 16) & 0x000000FF000000FFull) * 0x0000271000000001ull)) >> 32;
-            m = m * 100000000ull + std::uint32_t(w);
-            digits += 8;
-            q += 8;
+            }
+        } else {
+            // Eight digits at a time (SWAR, as in fast_float) while they last.
+            while (e - q >= 8 && digits <= 11) {
+                std::uint64_t w;
+                std::memcpy(&w, q, 8);
+                if ((((w & 0xF0F0F0F0F0F0F0F0ull) | (((w + 0x0606060606060606ull) & 0xF0F0F0F0F0F0F0F0ull) >> 4)) !=
+                     0x3333333333333333ull))
+                    break;
+                m = m * 100000000ull + eight_digits(w - 0x3030303030303030ull);
+                digits += 8;
+                q += 8;
+            }
         }
         while (in(q) && unsigned(*q - '0') < 10u) {
             m = m * 10 + unsigned(*q - '0');

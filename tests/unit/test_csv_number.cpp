@@ -142,6 +142,22 @@ TEST_CASE("number cells: the fast path without bounds checks ends where the chec
         check_padded_as_checked(t, i % 2 ? "\n" : "\r\n");
     }
     for (int i = 0; i < 20000; ++i) check_padded_as_checked(random_decimal(rng), "\n");
+    // Every count of integer and fraction digits around the eight-digit blocks (0-20 and 0-24),
+    // signed or not, with an exponent or not: the padded path takes the digits before the first
+    // other byte of a block at once.
+    for (int ni = 0; ni <= 20; ++ni)
+        for (int nf = 0; nf <= 24; ++nf)
+            for (const char* tail : {"", "e-5", "E+12"}) {
+                std::string t = ni % 3 == 1 ? "-" : "";
+                for (int k = 0; k < ni; ++k) t += char('1' + (k * 7 + nf) % 9);
+                if (nf > 0 || ni == 0) t += '.';
+                for (int k = 0; k < nf; ++k) t += char('0' + (k * 3 + ni) % 10);
+                if (ni + nf == 0) t += '0';
+                t += tail;
+                check_padded_as_checked(t, "\n");
+                check_padded_as_checked(t, "\r\n");
+                check_same_as_fast_float(t);
+            }
 }
 
 TEST_CASE("number cells: the refusals and special values as before", "[csv][number]") {
