@@ -3,6 +3,7 @@
 
 #include <cstdint>
 #include <memory>
+#include <string>
 #include <mutex>  // viewer::snapshot_turn(): reports drawn from two threads take turns
 #include <vector>
 
@@ -55,7 +56,7 @@ void add_report_3d_views(exports::ReportOptions& o, const exports::RenderSize& s
     o.polarisation_snapshot = view(viewer::ColorBy::axial_ratio);
 #else
     (void)size;
-    o.snapshot_note = "3D views are not included: this build has no viewer (ELLIPSA_VIEWER=OFF).";
+    o.snapshot_note = std::string("3D views are not included: ") + no_viewer_reason + ".";
 #endif
 }
 

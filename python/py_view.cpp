@@ -4,6 +4,7 @@
 #include <array>
 
 #include "cli/load.hpp"
+#include "cli/report_3d.hpp"
 #include "python/py_common.hpp"
 #ifdef ELLIPSA_HAVE_VIEWER
 #include "cli/render_options.hpp"
@@ -71,7 +72,7 @@ void bind_view(py::module_& m) {
             "existing file is replaced only with force=True.");
 #else
     cls.def("write_view", [](const Pattern&, const std::string&, const py::kwargs&) {
-        raise(Error{"", 0, 0, "3D views are not available: this build has no viewer (ELLIPSA_VIEWER=OFF)"});
+        raise(Error{"", 0, 0, std::string("3D views are not available: ") + cli::no_viewer_reason});
     }, py::arg("path"), "Not in this build: it has no viewer (ELLIPSA_VIEWER=OFF).");
 #endif
 }

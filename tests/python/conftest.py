@@ -12,6 +12,23 @@ SOURCE = Path(os.environ.get("ELLIPSA_SOURCE_DIR", Path(__file__).resolve().pare
 EXAMPLES = SOURCE / "examples"
 
 
+def _viewer_built():
+    """A build with the viewer lists `render` in `ellipsa --help`; one with ELLIPSA_VIEWER=OFF does
+    not (its module's write_view raises, its reports have no 3D views). Without ELLIPSA_EXE: the
+    default build, with the viewer."""
+    path = os.environ.get("ELLIPSA_EXE")
+    if not path:
+        return True
+    out = subprocess.run([path, "--help"], capture_output=True, text=True, check=True).stdout
+    return any(line.startswith("  render ") for line in out.splitlines())
+
+
+VIEWER = _viewer_built()
+# Why a build without the viewer has no 3D views: cli/report_3d.hpp, no_viewer_reason.
+NO_VIEWER_REASON = "this build has no viewer (ELLIPSA_VIEWER=OFF)"
+NO_3D_VIEWS_NOTE = f"3D views are not included: {NO_VIEWER_REASON}."
+
+
 @pytest.fixture(scope="session")
 def exe():
     path = os.environ.get("ELLIPSA_EXE")

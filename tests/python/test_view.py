@@ -8,7 +8,10 @@ import sys
 import pytest
 
 import ellipsa
-from conftest import EXAMPLES, SOURCE
+from conftest import EXAMPLES, SOURCE, VIEWER
+
+# A build without the viewer has no write_view to compare (test_no_viewer.py checks its refusal).
+pytestmark = pytest.mark.skipif(not VIEWER, reason="built without the viewer (ELLIPSA_VIEWER=OFF)")
 
 TURNSTILE = EXAMPLES / "turnstile.csv"
 

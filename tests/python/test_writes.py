@@ -16,6 +16,7 @@ from pathlib import Path
 import pytest
 
 import ellipsa
+from conftest import VIEWER
 
 # name -> (file ending, a call that writes `path`)
 WRITERS = {
@@ -39,6 +40,9 @@ CHILD_CALLS = {
     "write_view": "p.write_view(path, size_px=(128, 96), force=True)",
     "write_view_png": "p.write_view(path, size_px=(128, 96), force=True)",
 }
+if not VIEWER:  # no write_view to put to the test (test_no_viewer.py checks that it writes nothing)
+    for name in ("write_view", "write_view_png"):
+        del WRITERS[name], CHILD_CALLS[name]
 
 
 @pytest.fixture(scope="module")

@@ -12,3 +12,13 @@ finish() { echo "$pass passed, $fail failed"; [[ $fail == 0 ]]; }
 # xvfb-run through tests/xvfb_run.sh (an authority file of our own, so xvfb-run's clean-up cannot
 # replace the program's exit status under load).
 XVFB="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)/xvfb_run.sh"
+# has_command ELLIPSA NAME: NAME is listed in --help (a build without the viewer lists no view, render).
+has_command() { "$1" --help | grep -q "^  $2 "; }
+# refused_without_viewer LABEL CMD...: in a build without the viewer, CMD (view or render) is refused
+# as bad usage (exit 2) with the reason (cli/cmd_no_viewer.cpp), not with its options called unknown.
+refused_without_viewer() {
+  local label=$1; shift
+  expect_rc 2 "$label, a build without the viewer" "$@"
+  if grep -qF "is not available: this build has no viewer (ELLIPSA_VIEWER=OFF)" err.txt && ! grep -q "unknown option" err.txt
+  then ok "... says the build has no viewer"; else bad "... says the build has no viewer: $(head -c 300 err.txt)"; fi
+}

@@ -8,7 +8,7 @@ set -uo pipefail
 source "$(dirname "$0")/checks.sh"  # ok, bad, expect_rc, finish
 MODE=$1; B=$2; W=$3; SRC=$4; rm -rf "$W"; mkdir -p "$W"; cd "$W"
 E=$B/ellipsa
-viewer=0; "$E" view --help >/dev/null 2>&1 && viewer=1  # built with the viewer
+viewer=0; has_command "$E" view && viewer=1  # built with the viewer
 
 if [[ $MODE == tree ]]; then
   cmake --install "$B" --prefix "$W/root" >install.log 2>&1 || { bad "cmake --install: $(tail -5 install.log)"; finish; exit; }
@@ -22,6 +22,11 @@ else
   for p in libc6 libstdc++6 libcairo2 $( ((viewer)) && echo libglfw3 libgl1-mesa-dri); do
     grep -q "\b$p\b" depends.txt && ok "Depends names $p" || bad "Depends lacks $p: $(cat depends.txt)"
   done
+  if ((!viewer)); then  # without the viewer, nothing of GL or GLFW is needed
+    for p in libglfw3 libgl1-mesa-dri libegl1 libopengl0; do
+      grep -q "\b$p\b" depends.txt && bad "Depends names $p without the viewer: $(cat depends.txt)" || ok "Depends leaves out $p"
+    done
+  fi
   # apt would install it: every dependency is a Debian 12 package (simulated: nothing is installed).
   apt-get install -s "$deb" >apt.txt 2>&1 && grep -q "^Inst ellipsa " apt.txt && ok "apt-get install -s: dependencies resolve" \
     || bad "apt-get install -s: $(tail -3 apt.txt)"
@@ -137,7 +142,12 @@ if command -v zsh >/dev/null; then
 else bad "zsh not installed (./dev installs it)"; fi
 
 # The menu entry opens the viewer with the files given; the icon is well-formed SVG.
-[[ $viewer == 1 ]] || { finish; exit; }
+if [[ $viewer == 0 ]]; then  # no window to open: no menu entry, no icon
+  for f in share/applications/ellipsa.desktop share/icons/hicolor/scalable/apps/ellipsa.svg; do
+    [[ ! -e $P/$f ]] && ok "no $f without the viewer" || bad "$f installed without the viewer"
+  done
+  finish; exit
+fi
 desk=$P/share/applications/ellipsa.desktop
 grep -qx "Exec=ellipsa view %F" "$desk" && grep -q "^MimeType=.*text/csv;" "$desk" && ok "desktop entry: view %F, text/csv" || bad "desktop entry"
 if command -v desktop-file-validate >/dev/null; then desktop-file-validate "$desk" && ok "desktop-file-validate" || bad "desktop-file-validate"; fi

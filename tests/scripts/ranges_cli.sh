@@ -10,9 +10,12 @@ R3="$SRC/tests/data/csv/foreign/range3.csv"; M3="$SRC/tests/data/csv/foreign/ran
 cp "$R3" meas.csv  # a foreign file with no map beside it
 
 # --- The same load options on every command that reads patterns (docs/far-field-csv.md, section 9) ---
-has_view=0; "$E" view --help >/dev/null 2>&1 && has_view=1  # not in a build without the viewer
+has_view=0; has_command "$E" view && has_view=1  # not in a build without the viewer
 for cmd in info cut map probe render view convert band coverage diversity fading report; do
-  h=$("$E" $cmd --help 2>&1) || { [[ $has_view == 0 && ( $cmd == view || $cmd == render ) ]] && continue; }
+  if [[ $has_view == 0 && ( $cmd == view || $cmd == render ) ]]; then
+    refused_without_viewer "$cmd --help" "$E" $cmd --help; continue
+  fi
+  h=$("$E" $cmd --help 2>&1)
   all=1
   for o in --map --map-file --assume --scale --offset; do grep -q -- "^  $o " <<<"$h" || all=0; done
   grep -q "FILE::map=" <<<"$h" || all=0
@@ -86,7 +89,11 @@ grep -q "found a gain without a frequency among 2 items" err.txt && ok "... sayi
 [[ ! -e x.csv ]] && ok "... and nothing is written" || bad "x.csv written by a refused transfer"
 
 # --- The viewer: the same options, and scripted runs that fail instead of falling back ---
-[[ $has_view == 0 ]] && { echo "built without the viewer: its checks are skipped"; finish; exit; }
+if [[ $has_view == 0 ]]; then  # a build without the viewer: refused with the reason, before reading
+  refused_without_viewer "view with options for one file" "$E" view sim.csv "meas.csv::map=nothing-here.map" --frames 2
+  refused_without_viewer "render to a name it cannot write" "$E" render sim.csv --out view.jpg
+  finish; exit
+fi
 expect_rc 1 "view --frames with a missing file fails (no fallback to the examples)" "$E" view missing.csv --frames 2
 grep -q "missing.csv: expected a pattern file, found nothing" err.txt && ok "... naming the file" || bad "missing file: $(cat err.txt)"
 expect_rc 2 "view --compare beyond the files given is a usage error" "$E" view sim.csv --compare 3 --frames 2

@@ -72,7 +72,12 @@ for v in 1e308 inf -inf nan 400; do
 done
 expect_rc 0 "probe --phi -90 (a documented angle)" "$E" probe d.csv --theta 10 --phi -90
 expect_rc 2 "cut --step inf" "$E" cut d.csv --phi 0 --step inf --out c.csv
-expect_rc 2 "render --range nan" "$E" render d.csv --range nan --out r.png
+# The viewer's commands: in a build without it (ELLIPSA_VIEWER=OFF), each is refused with the reason.
+if has_command "$E" render; then
+  expect_rc 2 "render --range nan" "$E" render d.csv --range nan --out r.png
+else
+  refused_without_viewer "render --range nan" "$E" render d.csv --range nan --out r.png
+fi
 # Every numeric option refuses NaN and infinities (its range; numeric_options_cli.sh walks them all).
 expect_rc 2 "synth --phase nan" "$E" synth crossed-dipoles --phase nan --out x.csv
 has 'ellipsa: --phase: expected a number from -360 to 360, found "nan"' "... its range"
@@ -94,19 +99,24 @@ pair_refused "band --direction" '--direction: expected THETA,PHI in degrees, THE
   "$E" band d.csv --out b.csv --direction
 pair_refused "fading --dominant" '--dominant: expected THETA,PHI in degrees, THETA from 0 to 180 and PHI from -360 to 360' \
   "$E" fading d.csv --k-factor 10 --samples 1000 --dominant
-pair_refused "view --pin" '--pin: expected THETA,PHI in degrees, THETA from 0 to 180 and PHI from -360 to 360' \
-  "$E" view d.csv --frames 1 --pin
-for v in 1e308,0 inf,0 nan,0 0,91 0,-90.5 0,1e308 10 ""; do
-  for c in "view d.csv --frames 1" "render d.csv --out r.png"; do
-    read -ra args <<<"$c"
-    expect_rc 2 "$c --view $v" "$E" "${args[@]}" --view "$v"
-    has "--view: expected AZ,EL in degrees, AZ from -360 to 360 and EL from -90 to 90, found \"$v\"" "... AZ,EL named with its ranges"
+if has_command "$E" view; then
+  pair_refused "view --pin" '--pin: expected THETA,PHI in degrees, THETA from 0 to 180 and PHI from -360 to 360' \
+    "$E" view d.csv --frames 1 --pin
+  for v in 1e308,0 inf,0 nan,0 0,91 0,-90.5 0,1e308 10 ""; do
+    for c in "view d.csv --frames 1" "render d.csv --out r.png"; do
+      read -ra args <<<"$c"
+      expect_rc 2 "$c --view $v" "$E" "${args[@]}" --view "$v"
+      has "--view: expected AZ,EL in degrees, AZ from -360 to 360 and EL from -90 to 90, found \"$v\"" "... AZ,EL named with its ranges"
+    done
   done
-done
-for v in -1,0 0,1e308 nan,1 5; do
-  expect_rc 2 "view --cursor $v" "$E" view d.csv --frames 1 --cursor "$v"
-  has "--cursor: expected X,Y in window pixels, X from 0 to 16384 and Y from 0 to 16384, found \"$v\"" "... X,Y named"
-done
+  for v in -1,0 0,1e308 nan,1 5; do
+    expect_rc 2 "view --cursor $v" "$E" view d.csv --frames 1 --cursor "$v"
+    has "--cursor: expected X,Y in window pixels, X from 0 to 16384 and Y from 0 to 16384, found \"$v\"" "... X,Y named"
+  done
+else
+  refused_without_viewer "view --pin nan,0" "$E" view d.csv --frames 1 --pin nan,0
+  refused_without_viewer "render --view nan,0" "$E" render d.csv --out r.png --view nan,0
+fi
 expect_rc 0 "fading --dominant 90,-90 (a documented direction)" "$E" fading d.csv --k-factor 10 --samples 1000 --dominant 90,-90
 expect_rc 0 "band --direction 0,0" "$E" band d.csv d2.csv --direction 0,0 --out b0.csv
 for v in 1e308 inf nan -0 -1 +1 1e-400x 61dB 1e308dB infdB nandB "" dB; do
@@ -131,10 +141,14 @@ has "Run 'ellipsa fading --help' for usage." "... and fading (an error found aft
 expect_rc 2 "a mistyped command" "$E" infoo d.csv
 has "Run 'ellipsa --help' for usage." "... the root's help without a command"
 # 6d. render's names: one list (the one --help shows), one message.
-expect_rc 2 "render --color-by difference (a viewer-only colouring)" "$E" render d.csv --color-by difference --out r.png
-has "--color-by: expected one of 'component', 'axial-ratio', 'rhcp-minus-lhcp' or 'tilt', found \"difference\"" "... the list in --help"
-expect_rc 0 "render --help" "$E" render --help
-grep -qF "{component,axial-ratio,rhcp-minus-lhcp,tilt}" out.txt && ok "... --help lists the same names" || bad "render --help: $(grep color-by out.txt)"
+if has_command "$E" render; then
+  expect_rc 2 "render --color-by difference (a viewer-only colouring)" "$E" render d.csv --color-by difference --out r.png
+  has "--color-by: expected one of 'component', 'axial-ratio', 'rhcp-minus-lhcp' or 'tilt', found \"difference\"" "... the list in --help"
+  expect_rc 0 "render --help" "$E" render --help
+  grep -qF "{component,axial-ratio,rhcp-minus-lhcp,tilt}" out.txt && ok "... --help lists the same names" || bad "render --help: $(grep color-by out.txt)"
+else
+  refused_without_viewer "render --help" "$E" render --help
+fi
 
 # 5. A multi-frequency file and no --frequency: the middle one, named on stderr (one rule).
 for f in 2.4e9 2.45e9 2.5e9; do "$E" synth dipole --step 5 --frequency $f --out "f$f.csv" >/dev/null; done
@@ -168,9 +182,14 @@ expect_rc 0 "fading --help" "$E" fading --help
 grep -q "{vertical,horizontal,slant+45,slant-45,rhcp,lhcp}" out.txt && ok "fading --polarisation lists its choices" || bad "fading choices"
 
 # 4. The scripted viewer: a missing file is an error, never the examples; --compare N out of range.
-expect_rc 2 "view --compare 3 with one file" "$E" view d.csv --frames 1 --compare 3
-has "--compare expects a FILE number from 1 to 1, found 3" "... names the range"
-if command -v xvfb-run >/dev/null; then
+if ! has_command "$E" view; then
+  refused_without_viewer "view --compare 3 with one file" "$E" view d.csv --frames 1 --compare 3
+  refused_without_viewer "view with a missing file" "$E" view no-such.csv --frames 2 --software
+else
+  expect_rc 2 "view --compare 3 with one file" "$E" view d.csv --frames 1 --compare 3
+  has "--compare expects a FILE number from 1 to 1, found 3" "... names the range"
+fi
+if has_command "$E" view && command -v xvfb-run >/dev/null; then
   expect_rc 1 "view --frames with a missing file" "$XVFB" -a -s "-screen 0 800x600x24" "$E" view no-such.csv --frames 2 --software
   has "no-such.csv" "... names the file"
   grep -qi "example" err.txt out.txt && bad "... fell back to the examples: $(cat err.txt)" || ok "... no fallback to the examples"

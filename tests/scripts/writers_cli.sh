@@ -20,8 +20,14 @@ chmod 644 d.csv rel.csv
 
 # The writers: NAME EXTENSION; write NAME PATH [ARGS...] runs the command that writes PATH.
 WRITERS="synth:csv convert:csv gain-transfer:csv cut:svg cut:csv band:png map:pdf coverage:json rank:md
-fading:svg render:png render:glb render:ply report:dir"
-if "$E" --help | grep -q '^  view ' && command -v xvfb-run >/dev/null; then
+fading:svg report:dir"
+if has_command "$E" render; then
+  WRITERS="$WRITERS render:png render:glb render:ply"
+else  # a build without the viewer: render writes nothing, whatever the destination
+  refused_without_viewer "render to a missing folder" "$E" render d.csv --out missing/v.png
+  [[ ! -e missing ]] && ok "... nothing written" || bad "... nothing written"
+fi
+if has_command "$E" view && command -v xvfb-run >/dev/null; then
   WRITERS="$WRITERS view-screenshot:png view-export-view:png view-export-cut:pdf"
 fi
 # Running the viewer under Xvfb as another user needs an X authority file that user can read.
