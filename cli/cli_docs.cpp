@@ -102,6 +102,8 @@ const char* exit_status_text =
     ".SH EXIT STATUS\n.TP\n.B 0\nsuccess\n.TP\n.B 1\nbad input: the message on standard error names the file, "
     "line and column and what was expected\n.TP\n.B 2\nbad usage (an unknown option, a missing argument)\n";
 
+#ifdef ELLIPSA_HAVE_VIEWER
+// All of it is the viewer's: a build without the viewer has no such section.
 const char* root_environment_text =
     ".SH ENVIRONMENT\n.TP\n.B XDG_CONFIG_HOME\nThe viewer keeps its settings in \\fI$XDG_CONFIG_HOME/ellipsa/\\fR "
     "(\\fI~/.config/ellipsa/\\fR when it is unset or not an absolute path).\n.TP\n.B ELLIPSA_EXAMPLES\n"
@@ -110,6 +112,7 @@ const char* root_environment_text =
     "renderer, as with \\fB\\-\\-software\\fR.\n"
     ".SH FILES\n.TP\n.I $XDG_CONFIG_HOME/ellipsa/viewer.conf\nThe viewer's settings (window size, panels, view).\n"
     ".TP\n.I $XDG_CONFIG_HOME/ellipsa/imgui.ini\nThe viewer's window layout.\n";
+#endif
 
 // The EXAMPLES of each manual page: a command line and what it does. They use two files that
 // `ellipsa synth` writes (the root page's first examples), so every line runs as shown
@@ -172,7 +175,9 @@ std::string man_page(const CommandDoc& c, const std::vector<CommandDoc>& all, co
     s += ".SH OPTIONS\n";
     for (const OptionDoc& o : c.options) s += man_item(o);
     s += exit_status_text;
+#ifdef ELLIPSA_HAVE_VIEWER
     if (c.name.empty()) s += root_environment_text;
+#endif
     s += examples_section(c.name);
     s += ".SH SEE ALSO\n";
     if (!c.name.empty()) return s + "\\fBellipsa\\fR(1)\n";

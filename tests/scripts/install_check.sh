@@ -146,6 +146,8 @@ if [[ $viewer == 0 ]]; then  # no window to open: no menu entry, no icon
   for f in share/applications/ellipsa.desktop share/icons/hicolor/scalable/apps/ellipsa.svg; do
     [[ ! -e $P/$f ]] && ok "no $f without the viewer" || bad "$f installed without the viewer"
   done
+  zcat "$P/share/man/man1/ellipsa.1.gz" | grep -Eq "ellipsa (view|render)|The viewer" \
+    && bad "ellipsa(1) names the viewer without it" || ok "ellipsa(1) names no viewer, view or render"
   finish; exit
 fi
 desk=$P/share/applications/ellipsa.desktop
