@@ -292,7 +292,7 @@ void zeroed(std::vector<T>& v, std::size_t n) {
 
 }  // namespace
 
-void allocate(const GridPlan& g, FarFieldSet& s, SeenPoints& seen) {
+void allocate(const GridPlan& g, FarFieldSet& s, SeenPoints& seen, int workers) {
     const std::size_t points = g.grid.size();
     s.grid = g.grid;
     s.frequencies.resize(g.freqs.size());
@@ -302,7 +302,8 @@ void allocate(const GridPlan& g, FarFieldSet& s, SeenPoints& seen) {
     // quarter of a million samples (8 MB of arrays, a few ms of one core against a thread's start
     // of a few tens of microseconds); the bench file's 1 042 560 samples went to one thread when
     // the bar was 2^20, 11 ms of the read's wall time while the other core waited.
-    const std::size_t threads = points * g.freqs.size() >= (std::size_t(1) << 18) ? parallel_threads() : 1;
+    const std::size_t threads =
+        points * g.freqs.size() >= (std::size_t(1) << 18) ? std::min(parallel_threads(), std::size_t(std::max(1, workers))) : 1;
     parallel_each(g.freqs.size(), threads, [&](std::size_t k) {
         s.frequencies[k].frequency_hz = g.freqs[k];
         zeroed(s.frequencies[k].e_theta, points);

@@ -46,8 +46,9 @@ bool same_plan(const GridPlan& a, const GridPlan& b);
 Status check_grid_size(const GridPlan& g, std::size_t rows, FieldContent content, const CsvReadOptions& o,
                        const std::string& file);
 
-// The set's frequencies with zeroed arrays, and every point marked absent.
-void allocate(const GridPlan& g, FarFieldSet& s, SeenPoints& seen);
+// The set's frequencies with zeroed arrays, and every point marked absent; on up to `threads`
+// threads (the read's workers) when the arrays are large.
+void allocate(const GridPlan& g, FarFieldSet& s, SeenPoints& seen, int threads);
 
 // Seam duplicates (collected by pass 2 in every chunk): merged when they agree with the canonical
 // column (the test of duplicate rows), put in place when it is absent, refused otherwise.

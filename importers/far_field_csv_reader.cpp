@@ -112,8 +112,9 @@ std::optional<Result<FarFieldSet>> one_pass_read(Context& ctx, const Layout& L, 
     const auto rows_about = std::size_t(double(data) * double(sample_rows) / double(std::max<std::size_t>(1, sample_bytes)));
     if (!check_grid_size(*guess, rows_about, s.content, o, file)) return std::nullopt;
     SeenPoints seen;
-    allocate(*guess, s, seen);
-    std::vector<Chunk> chunks = split(src, L.data_offset, worker_count(o, data));
+    const int workers = worker_count(o, data);
+    allocate(*guess, s, seen, workers);
+    std::vector<Chunk> chunks = split(src, L.data_offset, workers);
     ctx.plan = &*guess;
     ctx.out = &s.frequencies;
     ctx.seen = &seen;
@@ -174,7 +175,7 @@ Result<FarFieldSet> read_stages_once(const TextSource& src, const std::string& f
     plan->grid.sampling = L.sampling ? *L.sampling : inferred_sampling(plan->grid);
     if (Status st = check_grid_size(*plan, rows, s.content, o, file); !st) return st.error();
     SeenPoints seen;
-    allocate(*plan, s, seen);
+    allocate(*plan, s, seen, int(chunks.size()));
     std::vector<std::vector<std::size_t>> lines;
     if (plan->raw) lines.assign(s.frequencies.size(), std::vector<std::size_t>(s.grid.size(), 0));
 
