@@ -33,7 +33,11 @@ int main(int argc, char** argv) {
     app.name("ellipsa");
     app.require_subcommand(0, 1);
     bool show_version = false;
+#ifdef ELLIPSA_HAVE_VIEWER
     app.add_flag("--version", show_version, "Print the version and which OpenGL renderer would be used");
+#else
+    app.add_flag("--version", show_version, "Print the version (this build has no viewer, so no OpenGL renderer)");
+#endif
     // Hidden (empty group): the build writes the manual pages and completions with it (cli/cli_docs.hpp).
     std::string docs_dir;
     app.add_option("--write-cli-docs", docs_dir, "Write manual pages and shell completions into DIR")->group("");
