@@ -74,13 +74,12 @@ void copolar_row(const CVec3& p, double st, double ct, const GridTrig& tr, const
 // power |co|^2 (power). A row whose every sample's total power lies below the region's level
 // (phase_centre_region_db under the peak's) cannot join the region, since |co| <= |E|: its co-polar
 // field is left zero instead of computed, which changes nothing the estimate reads.
-void copolar_field(const Grid& g, const GridTrig& tr, const FarField& f, std::vector<cplx>& co, std::vector<double>& power,
-                   std::vector<double>& row_top) {
+void copolar_field(const Grid& g, const GridTrig& tr, const FarField& f, std::vector<cplx>& co, std::vector<double>& power) {
     std::size_t best = 0;
     double best_p = -1;
     bool moderate = true;  // every |E|^2 below 1e200 (no NaN): copolar_row's condition
     const int pc = g.phi.count;
-    row_top.assign(std::size_t(g.theta.count), 0.0);
+    std::vector<double> row_top(std::size_t(g.theta.count), 0.0);  // each row's largest power
     for (int i = 0; i < g.theta.count; ++i) {
         double top = 0;
         for (std::size_t k = g.index(i, 0), e = k + std::size_t(pc); k < e; ++k) {
@@ -133,11 +132,11 @@ double round_half_away(double x) {
     return std::copysign(r, x);
 }
 
-// a - 2 pi round(a / 2 pi). Within +-3 radians the rounding gives (signed) zero, so the result is
-// a + 0.0 (a, with -0 made +0, as a - 2 pi * (-0) makes it): the same bits, without the divide.
 // What unwrap_region finds of a sample.
 enum RegionState : unsigned char { below_level, candidate, in_region };
 
+// a - 2 pi round(a / 2 pi). Within +-3 radians the rounding gives (signed) zero, so the result is
+// a + 0.0 (a, with -0 made +0, as a - 2 pi * (-0) makes it): the same bits, without the divide.
 double wrap_pi(double a) {
     if (std::abs(a) < 3.0) return a + 0.0;
     return a - 2 * pi * round_half_away(a / (2 * pi));
@@ -375,14 +374,14 @@ void remember(const Fingerprint& key, const Result<PhaseCentre>& r) {
 // one for each of its threads) so that the next estimate finds them allocated.
 struct EstimateScratch {
     std::vector<cplx> co;
-    std::vector<double> power, psi, row_top;
+    std::vector<double> power, psi;
     std::vector<unsigned char> region;
     PowerQueue queue;
 };
 
 Result<PhaseCentre> estimate_afresh(const Grid& g, const FarField& f, EstimateScratch& w) {
     const GridTrig tr(g);
-    copolar_field(g, tr, f, w.co, w.power, w.row_top);
+    copolar_field(g, tr, f, w.co, w.power);
     unwrap_region(g, w.co, w.power, w.psi, w.region, w.queue);
     PhaseCentre pc = fit_linear_phase(g, tr, w.power, w.psi, w.region);
     if (pc.samples < 4)

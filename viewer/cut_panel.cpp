@@ -374,9 +374,7 @@ std::optional<std::string> no_cut_text(const AppState& s, const CutData& cd) {
     if (cd.a && cd.peak_db && s.settings.cut_phase && !s.active_pattern()->set.has_phase())
         return "No phase: the data are " + std::string(to_string(s.active_pattern()->set.content)) +
                " (no phase). Untick \"phase\" to see the gains.";
-    if (cd.a && cd.peak_db && s.settings.cut_phase &&
-        std::none_of(cd.a->components.begin(), cd.a->components.end(), [](Component c) { return has_phase(c); }))
-        return std::string(no_phase_component_text);
+    if (cd.a && cd.peak_db && s.settings.cut_phase && no_phase_component(*cd.a)) return std::string(no_phase_component_text);
     if (cd.a && cd.peak_db) return std::nullopt;
     if (!cd.why.empty()) return "No cut: " + cd.why + ".";
     return !cd.valid && s.settings.cut_kind == 2 ? "Pin a direction to cut through it."

@@ -24,8 +24,7 @@ bool something_at(const std::string& path) {
 Result<std::string> cut_bytes(const AppState& s, const CutData& cut, exports::FileFormat format) {
     const FarFieldSet& set = s.active_pattern()->set;
     if (s.settings.cut_phase && set.has_phase()) {  // the phase view, as `ellipsa cut --phase` writes it
-        if (std::none_of(cut.a->components.begin(), cut.a->components.end(), [](Component c) { return has_phase(c); }))
-            return Error{"", 0, 0, no_phase_component_text};
+        if (no_phase_component(*cut.a)) return Error{"", 0, 0, no_phase_component_text};
         const auto phases = exports::cut_phases(set, *cut.a);
         if (format == exports::FileFormat::csv) return exports::cut_csv(set, *cut.a, &phases);  // A's, as the gain view's CSV
         const LoadedPattern* b = s.compare_pattern();
@@ -42,6 +41,10 @@ Result<std::string> cut_bytes(const AppState& s, const CutData& cut, exports::Fi
                                  exports::RenderSize{}, plot.title);
 }
 }  // namespace
+
+bool no_phase_component(const ComponentCut& cut) {
+    return std::none_of(cut.components.begin(), cut.components.end(), [](Component c) { return has_phase(c); });
+}
 
 exports::CutPlot cut_figure(const AppState& s, const CutData& cut) {
     const LoadedPattern* a = s.active_pattern();

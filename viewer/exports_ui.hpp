@@ -29,8 +29,9 @@ ExportOutcome write_export(const std::string& path, bool overwrite, const std::f
 exports::CutPlot cut_figure(const AppState& s, const CutData& cut);
 
 // What the phase view says, on screen and when asked to export, when every chosen component is the
-// total (a power, with no phase).
+// total (a power, with no phase): when no_phase_component(cut) holds.
 inline constexpr char no_phase_component_text[] = "No phase: the total is a power. Choose a component (Components..) to see its phase.";
+bool no_phase_component(const ComponentCut& cut);
 
 ExportOutcome export_cut_file(const AppState& s, const CutData& cut, const std::string& path, bool overwrite);
 
